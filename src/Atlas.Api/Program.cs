@@ -1,0 +1,2 @@
+var app = Atlas.Api.ApiHost.Build(args);
+app.Run();

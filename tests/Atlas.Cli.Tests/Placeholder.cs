@@ -1,0 +1,1 @@
+namespace Atlas.Cli.Tests; public class Placeholder { [Fact] public void Builds() { } }

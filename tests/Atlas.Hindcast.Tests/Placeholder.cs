@@ -1,0 +1,1 @@
+namespace Atlas.Hindcast.Tests; public class Placeholder { [Fact] public void Builds() { } }

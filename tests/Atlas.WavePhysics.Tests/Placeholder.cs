@@ -1,0 +1,1 @@
+namespace Atlas.WavePhysics.Tests; public class Placeholder { [Fact] public void Builds() { } }
