@@ -1,0 +1,1 @@
+namespace Atlas.Demo.Tests; public class Placeholder { [Fact] public void Builds() { } }
