@@ -1,1 +1,3 @@
-return 0;
+using Atlas.Cli.Commands;
+
+return await AtlasCommandLine.Build().Parse(args).InvokeAsync();

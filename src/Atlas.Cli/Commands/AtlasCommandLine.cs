@@ -1,0 +1,14 @@
+using System.CommandLine;
+
+namespace Atlas.Cli.Commands;
+
+/// <summary>The <c>atlas</c> command: one sub-command per job, each in its own file.</summary>
+public static class AtlasCommandLine
+{
+    public static RootCommand Build()
+    {
+        var root = new RootCommand("Wave-resource atlas: load hindcast fields, compute resource statistics, serve them.");
+        root.Subcommands.Add(DatabaseCommands.Build());
+        return root;
+    }
+}

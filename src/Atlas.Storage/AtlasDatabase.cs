@@ -1,0 +1,42 @@
+using Npgsql;
+
+namespace Atlas.Storage;
+
+/// <summary>
+/// Chooses the database: the server named by the ATLAS_DB connection string, or else the embedded cluster,
+/// started (and created) on demand. Builds the one <see cref="NpgsqlDataSource"/> the process uses.
+/// </summary>
+public static class AtlasDatabase
+{
+    public const string ConnectionVariable = "ATLAS_DB";
+
+    public static string? ConfiguredConnectionString =>
+        Environment.GetEnvironmentVariable(ConnectionVariable) is { Length: > 0 } s ? s : null;
+
+    public static EmbeddedCluster EmbeddedCluster() => new(AtlasHome.Resolve());
+
+    /// <summary>The connection string to use, starting the embedded cluster first when none is configured.</summary>
+    public static async Task<string> ResolveConnectionStringAsync(CancellationToken cancel = default)
+    {
+        if (ConfiguredConnectionString is { } configured) return configured;
+        var cluster = EmbeddedCluster();
+        await cluster.EnsureRunningAsync(cancel);
+        return cluster.ConnectionString;
+    }
+
+    public static NpgsqlDataSource CreateDataSource(string connectionString)
+    {
+        var builder = new NpgsqlDataSourceBuilder(connectionString);
+        builder.UseNetTopologySuite();
+        builder.ConnectionStringBuilder.ApplicationName ??= "atlas";
+        return builder.Build();
+    }
+
+    /// <summary>Resolves the database, applies pending migrations, and returns a data source for it.</summary>
+    public static async Task<NpgsqlDataSource> OpenMigratedAsync(Action<string>? log = null, CancellationToken cancel = default)
+    {
+        var connectionString = await ResolveConnectionStringAsync(cancel);
+        SchemaMigrator.Migrate(connectionString, log);
+        return CreateDataSource(connectionString);
+    }
+}

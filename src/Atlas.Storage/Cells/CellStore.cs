@@ -1,0 +1,148 @@
+using NetTopologySuite.Geometries;
+using Npgsql;
+using NpgsqlTypes;
+
+namespace Atlas.Storage.Cells;
+
+/// <summary>Cells (grid points) of datasets and the mesh triangles between them.</summary>
+public sealed class CellStore(NpgsqlDataSource dataSource)
+{
+    private static readonly GeometryFactory Wgs84 = new(new PrecisionModel(), 4326);
+
+    /// <summary>Bulk-loads cells with binary COPY inside the caller's transaction.</summary>
+    public static async Task InsertAsync(NpgsqlConnection connection, int datasetId, IEnumerable<CellRecord> cells, CancellationToken cancel)
+    {
+        await using var writer = await connection.BeginBinaryImportAsync(
+            "COPY cell (dataset_id, cell_id, grid_i, grid_j, geom, depth_m, wet, coast_distance_m) FROM STDIN (FORMAT BINARY)", cancel);
+        foreach (var cell in cells)
+        {
+            await writer.StartRowAsync(cancel);
+            await writer.WriteAsync(datasetId, NpgsqlDbType.Integer, cancel);
+            await writer.WriteAsync(cell.CellId, NpgsqlDbType.Integer, cancel);
+            await WriteNullableAsync(writer, cell.GridI, NpgsqlDbType.Integer, cancel);
+            await WriteNullableAsync(writer, cell.GridJ, NpgsqlDbType.Integer, cancel);
+            await writer.WriteAsync((Geometry)Wgs84.CreatePoint(new Coordinate(cell.Longitude, cell.Latitude)), NpgsqlDbType.Geometry, cancel);
+            await WriteNullableAsync(writer, cell.DepthMetres, NpgsqlDbType.Real, cancel);
+            await writer.WriteAsync(cell.Wet, NpgsqlDbType.Boolean, cancel);
+            await WriteNullableAsync(writer, cell.CoastDistanceMetres, NpgsqlDbType.Real, cancel);
+        }
+        await writer.CompleteAsync(cancel);
+    }
+
+    public static async Task InsertTrianglesAsync(NpgsqlConnection connection, int datasetId, IReadOnlyList<(int A, int B, int C)> triangles, CancellationToken cancel)
+    {
+        await using var writer = await connection.BeginBinaryImportAsync(
+            "COPY mesh_triangle (dataset_id, triangle_id, node_a, node_b, node_c) FROM STDIN (FORMAT BINARY)", cancel);
+        for (var i = 0; i < triangles.Count; i++)
+        {
+            await writer.StartRowAsync(cancel);
+            await writer.WriteAsync(datasetId, NpgsqlDbType.Integer, cancel);
+            await writer.WriteAsync(i, NpgsqlDbType.Integer, cancel);
+            await writer.WriteAsync(triangles[i].A, NpgsqlDbType.Integer, cancel);
+            await writer.WriteAsync(triangles[i].B, NpgsqlDbType.Integer, cancel);
+            await writer.WriteAsync(triangles[i].C, NpgsqlDbType.Integer, cancel);
+        }
+        await writer.CompleteAsync(cancel);
+    }
+
+    /// <summary>
+    /// Computes each wet cell's distance to the nearest dry cell (a coast proxy from the dataset's own land mask), in
+    /// metres on the spheroid. Leaves NULL where the dataset has no dry cell.
+    /// </summary>
+    public static async Task UpdateCoastDistanceAsync(NpgsqlConnection connection, NpgsqlTransaction transaction, int datasetId, CancellationToken cancel)
+    {
+        await using var command = new NpgsqlCommand("""
+            UPDATE cell c SET coast_distance_m = (
+                SELECT ST_Distance(c.geom::geography, d.geom::geography)
+                  FROM cell d WHERE d.dataset_id = c.dataset_id AND NOT d.wet
+                 ORDER BY d.geom <-> c.geom LIMIT 1)
+             WHERE c.dataset_id = $1 AND c.wet
+            """, connection, transaction);
+        command.Parameters.AddWithValue(datasetId);
+        await command.ExecuteNonQueryAsync(cancel);
+    }
+
+    /// <summary>The nearest wet cell to a position (KNN on the GIST index), or null when the dataset has none.</summary>
+    public async Task<NearestCell?> NearestWetAsync(int datasetId, double latitude, double longitude, CancellationToken cancel = default)
+    {
+        await using var command = dataSource.CreateCommand("""
+            SELECT cell_id, grid_i, grid_j, ST_X(geom), ST_Y(geom), depth_m, wet, coast_distance_m,
+                   ST_Distance(geom::geography, ST_SetSRID(ST_MakePoint($3, $2), 4326)::geography)
+              FROM cell WHERE dataset_id = $1 AND wet
+             ORDER BY geom <-> ST_SetSRID(ST_MakePoint($3, $2), 4326) LIMIT 1
+            """);
+        command.Parameters.AddWithValue(datasetId);
+        command.Parameters.AddWithValue(latitude);
+        command.Parameters.AddWithValue(longitude);
+        await using var reader = await command.ExecuteReaderAsync(cancel);
+        if (!await reader.ReadAsync(cancel)) return null;
+        return new NearestCell(Read(reader), reader.GetDouble(8));
+    }
+
+    public async Task<CellRecord?> FindAsync(int datasetId, int cellId, CancellationToken cancel = default)
+    {
+        await using var command = dataSource.CreateCommand($"SELECT {Columns} FROM cell WHERE dataset_id = $1 AND cell_id = $2");
+        command.Parameters.AddWithValue(datasetId);
+        command.Parameters.AddWithValue(cellId);
+        await using var reader = await command.ExecuteReaderAsync(cancel);
+        return await reader.ReadAsync(cancel) ? Read(reader) : null;
+    }
+
+    /// <summary>Every cell of a dataset (wet and dry), by cell id.</summary>
+    public async Task<IReadOnlyList<CellRecord>> AllAsync(int datasetId, CancellationToken cancel = default)
+    {
+        await using var command = dataSource.CreateCommand($"SELECT {Columns} FROM cell WHERE dataset_id = $1 ORDER BY cell_id");
+        command.Parameters.AddWithValue(datasetId);
+        var cells = new List<CellRecord>();
+        await using var reader = await command.ExecuteReaderAsync(cancel);
+        while (await reader.ReadAsync(cancel)) cells.Add(Read(reader));
+        return cells;
+    }
+
+    public async Task<IReadOnlyList<(int A, int B, int C)>> TrianglesAsync(int datasetId, CancellationToken cancel = default)
+    {
+        await using var command = dataSource.CreateCommand(
+            "SELECT node_a, node_b, node_c FROM mesh_triangle WHERE dataset_id = $1 ORDER BY triangle_id");
+        command.Parameters.AddWithValue(datasetId);
+        var list = new List<(int, int, int)>();
+        await using var reader = await command.ExecuteReaderAsync(cancel);
+        while (await reader.ReadAsync(cancel)) list.Add((reader.GetInt32(0), reader.GetInt32(1), reader.GetInt32(2)));
+        return list;
+    }
+
+    public static async Task<int> CountAsync(NpgsqlConnection connection, NpgsqlTransaction? transaction, int datasetId, CancellationToken cancel)
+    {
+        await using var command = new NpgsqlCommand("SELECT count(*)::int FROM cell WHERE dataset_id = $1", connection, transaction);
+        command.Parameters.AddWithValue(datasetId);
+        return (int)(await command.ExecuteScalarAsync(cancel))!;
+    }
+
+    /// <summary>The ids of the wet cells of a dataset, ascending.</summary>
+    public static async Task<int[]> WetCellIdsAsync(NpgsqlConnection connection, NpgsqlTransaction? transaction, int datasetId, CancellationToken cancel)
+    {
+        await using var command = new NpgsqlCommand("SELECT cell_id FROM cell WHERE dataset_id = $1 AND wet ORDER BY cell_id", connection, transaction);
+        command.Parameters.AddWithValue(datasetId);
+        var ids = new List<int>();
+        await using var reader = await command.ExecuteReaderAsync(cancel);
+        while (await reader.ReadAsync(cancel)) ids.Add(reader.GetInt32(0));
+        return ids.ToArray();
+    }
+
+    private const string Columns = "cell_id, grid_i, grid_j, ST_X(geom), ST_Y(geom), depth_m, wet, coast_distance_m";
+
+    private static CellRecord Read(NpgsqlDataReader reader) => new(
+        reader.GetInt32(0),
+        reader.IsDBNull(1) ? null : reader.GetInt32(1),
+        reader.IsDBNull(2) ? null : reader.GetInt32(2),
+        reader.GetDouble(3),
+        reader.GetDouble(4),
+        reader.IsDBNull(5) ? null : reader.GetFloat(5),
+        reader.GetBoolean(6),
+        reader.IsDBNull(7) ? null : reader.GetFloat(7));
+
+    private static async Task WriteNullableAsync<T>(NpgsqlBinaryImporter writer, T? value, NpgsqlDbType type, CancellationToken cancel) where T : struct
+    {
+        if (value is { } v) await writer.WriteAsync(v, type, cancel);
+        else await writer.WriteNullAsync(cancel);
+    }
+}

@@ -1,0 +1,215 @@
+using Npgsql;
+using NpgsqlTypes;
+
+namespace Atlas.Storage.Datasets;
+
+/// <summary>Datasets, their yearly time lines and their source files.</summary>
+public sealed class DatasetStore(NpgsqlDataSource dataSource)
+{
+    private const string Columns = "dataset_id, slug, title, grid_kind, nx, ny, point_count, grid::text, metadata::text, created_at";
+
+    public async Task<IReadOnlyList<DatasetRecord>> ListAsync(CancellationToken cancel = default)
+    {
+        await using var command = dataSource.CreateCommand($"SELECT {Columns} FROM dataset ORDER BY slug");
+        return await ReadAllAsync(command, cancel);
+    }
+
+    public async Task<DatasetRecord?> FindAsync(string slug, CancellationToken cancel = default)
+    {
+        await using var command = dataSource.CreateCommand($"SELECT {Columns} FROM dataset WHERE slug = $1");
+        command.Parameters.AddWithValue(slug);
+        var rows = await ReadAllAsync(command, cancel);
+        return rows.Count == 0 ? null : rows[0];
+    }
+
+    public static async Task<DatasetRecord?> FindAsync(NpgsqlConnection connection, NpgsqlTransaction? transaction, string slug, CancellationToken cancel)
+    {
+        await using var command = new NpgsqlCommand($"SELECT {Columns} FROM dataset WHERE slug = $1", connection, transaction);
+        command.Parameters.AddWithValue(slug);
+        var rows = await ReadAllAsync(command, cancel);
+        return rows.Count == 0 ? null : rows[0];
+    }
+
+    /// <summary>Inserts a dataset and returns its id. The caller's transaction makes it visible with its data.</summary>
+    public static async Task<int> InsertAsync(NpgsqlConnection connection, NpgsqlTransaction transaction, string slug, string title,
+        string gridKind, int? nx, int? ny, int pointCount, string gridJson, string metadataJson, CancellationToken cancel)
+    {
+        await using var command = new NpgsqlCommand("""
+            INSERT INTO dataset (slug, title, grid_kind, nx, ny, point_count, grid, metadata)
+            VALUES ($1, $2, $3, $4, $5, $6, $7::jsonb, $8::jsonb) RETURNING dataset_id
+            """, connection, transaction);
+        command.Parameters.AddWithValue(slug);
+        command.Parameters.AddWithValue(title);
+        command.Parameters.AddWithValue(gridKind);
+        command.Parameters.AddWithValue(NpgsqlDbType.Integer, (object?)nx ?? DBNull.Value);
+        command.Parameters.AddWithValue(NpgsqlDbType.Integer, (object?)ny ?? DBNull.Value);
+        command.Parameters.AddWithValue(pointCount);
+        command.Parameters.AddWithValue(gridJson);
+        command.Parameters.AddWithValue(metadataJson);
+        return (int)(await command.ExecuteScalarAsync(cancel))!;
+    }
+
+    /// <summary>Merges <paramref name="metadataJson"/> (a JSON object) into the dataset's metadata, key by key.</summary>
+    public static async Task MergeMetadataAsync(NpgsqlConnection connection, NpgsqlTransaction? transaction, int datasetId, string metadataJson, CancellationToken cancel)
+    {
+        await using var command = new NpgsqlCommand(
+            "UPDATE dataset SET metadata = metadata || $2::jsonb WHERE dataset_id = $1", connection, transaction);
+        command.Parameters.AddWithValue(datasetId);
+        command.Parameters.AddWithValue(metadataJson);
+        await command.ExecuteNonQueryAsync(cancel);
+    }
+
+    public async Task MergeMetadataAsync(int datasetId, string metadataJson, CancellationToken cancel = default)
+    {
+        await using var connection = await dataSource.OpenConnectionAsync(cancel);
+        await MergeMetadataAsync(connection, null, datasetId, metadataJson, cancel);
+    }
+
+    public static async Task UpdateExtentAsync(NpgsqlConnection connection, NpgsqlTransaction transaction, int datasetId, CancellationToken cancel)
+    {
+        await using var command = new NpgsqlCommand("""
+            UPDATE dataset d SET extent = (SELECT ST_Envelope(ST_Collect(geom))::geometry(Polygon, 4326)
+                                          FROM cell c WHERE c.dataset_id = d.dataset_id AND c.wet)
+            WHERE d.dataset_id = $1
+            """, connection, transaction);
+        command.Parameters.AddWithValue(datasetId);
+        await command.ExecuteNonQueryAsync(cancel);
+    }
+
+    /// <summary>Deletes a dataset and every row that belongs to it.</summary>
+    public async Task<bool> DeleteAsync(string slug, CancellationToken cancel = default)
+    {
+        await using var connection = await dataSource.OpenConnectionAsync(cancel);
+        await using var transaction = await connection.BeginTransactionAsync(cancel);
+        var dataset = await FindAsync(connection, transaction, slug, cancel);
+        if (dataset is null) return false;
+        foreach (var table in PerCellTables)
+        {
+            await using var delete = new NpgsqlCommand($"DELETE FROM {table} WHERE dataset_id = $1", connection, transaction);
+            delete.Parameters.AddWithValue(dataset.Id);
+            await delete.ExecuteNonQueryAsync(cancel);
+        }
+        await using (var command = new NpgsqlCommand("DELETE FROM dataset WHERE dataset_id = $1", connection, transaction))
+        {
+            command.Parameters.AddWithValue(dataset.Id);
+            await command.ExecuteNonQueryAsync(cancel);
+        }
+        await transaction.CommitAsync(cancel);
+        return true;
+    }
+
+    /// <summary>Tables keyed by cell, which carry no foreign key to dataset (so they can be distributed by cell).</summary>
+    public static readonly string[] PerCellTables = ["series_chunk", "cell_statistic", "cell_statistic_state", "mesh_triangle", "cell"];
+
+    public async Task<DatasetSummary?> SummariseAsync(string slug, CancellationToken cancel = default)
+    {
+        var dataset = await FindAsync(slug, cancel);
+        if (dataset is null) return null;
+        await using var command = dataSource.CreateCommand("""
+            SELECT (SELECT count(*) FROM cell WHERE dataset_id = $1 AND wet)::int,
+                   ST_XMin(d.extent), ST_YMin(d.extent), ST_XMax(d.extent), ST_YMax(d.extent),
+                   (SELECT to_timestamp(min(times[1])) FROM dataset_year WHERE dataset_id = $1),
+                   (SELECT to_timestamp(max(times[cardinality(times)])) FROM dataset_year WHERE dataset_id = $1),
+                   (SELECT coalesce(sum(cardinality(times)), 0) FROM dataset_year WHERE dataset_id = $1)::int,
+                   (SELECT percentile_disc(0.5) WITHIN GROUP (ORDER BY step)
+                      FROM (SELECT times[i + 1] - times[i] AS step
+                              FROM dataset_year y, generate_subscripts(y.times, 1) i
+                             WHERE y.dataset_id = $1 AND i < cardinality(y.times) LIMIT 10000) s)::int,
+                   (SELECT coalesce(array_agg(year ORDER BY year), '{}') FROM dataset_year WHERE dataset_id = $1),
+                   (SELECT count(*) FROM cell_statistic_state WHERE dataset_id = $1)::int
+              FROM dataset d WHERE d.dataset_id = $1
+            """);
+        command.Parameters.AddWithValue(dataset.Id);
+        await using var reader = await command.ExecuteReaderAsync(cancel);
+        await reader.ReadAsync(cancel);
+        double? Get(int i) => reader.IsDBNull(i) ? null : reader.GetDouble(i);
+        DateTime? Time(int i) => reader.IsDBNull(i) ? null : reader.GetDateTime(i).ToUniversalTime();
+        return new DatasetSummary(dataset, reader.GetInt32(0), Get(1), Get(2), Get(3), Get(4), Time(5), Time(6),
+            reader.GetInt32(7), reader.IsDBNull(8) ? null : reader.GetInt32(8),
+            reader.GetFieldValue<short[]>(9).Select(y => (int)y).ToArray(), reader.GetInt32(10));
+    }
+
+    public async Task<IReadOnlyList<SourceFileRecord>> SourceFilesAsync(int datasetId, CancellationToken cancel = default)
+    {
+        await using var command = dataSource.CreateCommand("""
+            SELECT file_name, sha256, size_bytes, time_start, time_end, step_count, job_id, loaded_at
+              FROM source_file WHERE dataset_id = $1 ORDER BY time_start, file_name
+            """);
+        command.Parameters.AddWithValue(datasetId);
+        var files = new List<SourceFileRecord>();
+        await using var reader = await command.ExecuteReaderAsync(cancel);
+        while (await reader.ReadAsync(cancel))
+            files.Add(new SourceFileRecord(reader.GetString(0), reader.GetString(1), reader.GetInt64(2),
+                reader.GetDateTime(3).ToUniversalTime(), reader.GetDateTime(4).ToUniversalTime(), reader.GetInt32(5),
+                reader.IsDBNull(6) ? null : reader.GetInt64(6), reader.GetDateTime(7).ToUniversalTime()));
+        return files;
+    }
+
+    public static async Task<HashSet<string>> LoadedChecksumsAsync(NpgsqlConnection connection, NpgsqlTransaction? transaction, int datasetId, CancellationToken cancel)
+    {
+        await using var command = new NpgsqlCommand("SELECT sha256 FROM source_file WHERE dataset_id = $1", connection, transaction);
+        command.Parameters.AddWithValue(datasetId);
+        var set = new HashSet<string>(StringComparer.OrdinalIgnoreCase);
+        await using var reader = await command.ExecuteReaderAsync(cancel);
+        while (await reader.ReadAsync(cancel)) set.Add(reader.GetString(0));
+        return set;
+    }
+
+    public static async Task InsertSourceFileAsync(NpgsqlConnection connection, NpgsqlTransaction transaction, int datasetId,
+        SourceFileRecord file, CancellationToken cancel)
+    {
+        await using var command = new NpgsqlCommand("""
+            INSERT INTO source_file (dataset_id, file_name, sha256, size_bytes, time_start, time_end, step_count, job_id)
+            VALUES ($1, $2, $3, $4, $5, $6, $7, $8)
+            """, connection, transaction);
+        command.Parameters.AddWithValue(datasetId);
+        command.Parameters.AddWithValue(file.FileName);
+        command.Parameters.AddWithValue(file.Sha256);
+        command.Parameters.AddWithValue(file.SizeBytes);
+        command.Parameters.AddWithValue(file.TimeStartUtc);
+        command.Parameters.AddWithValue(file.TimeEndUtc);
+        command.Parameters.AddWithValue(file.StepCount);
+        command.Parameters.AddWithValue(NpgsqlDbType.Bigint, (object?)file.JobId ?? DBNull.Value);
+        await command.ExecuteNonQueryAsync(cancel);
+    }
+
+    /// <summary>The stored time line of every year of a dataset (Unix seconds), by year.</summary>
+    public static async Task<SortedDictionary<int, long[]>> TimelinesAsync(NpgsqlConnection connection, NpgsqlTransaction? transaction, int datasetId, CancellationToken cancel)
+    {
+        await using var command = new NpgsqlCommand("SELECT year, times FROM dataset_year WHERE dataset_id = $1 ORDER BY year", connection, transaction);
+        command.Parameters.AddWithValue(datasetId);
+        var result = new SortedDictionary<int, long[]>();
+        await using var reader = await command.ExecuteReaderAsync(cancel);
+        while (await reader.ReadAsync(cancel)) result[reader.GetInt16(0)] = reader.GetFieldValue<long[]>(1);
+        return result;
+    }
+
+    public async Task<SortedDictionary<int, long[]>> TimelinesAsync(int datasetId, CancellationToken cancel = default)
+    {
+        await using var connection = await dataSource.OpenConnectionAsync(cancel);
+        return await TimelinesAsync(connection, null, datasetId, cancel);
+    }
+
+    public static async Task UpsertTimelineAsync(NpgsqlConnection connection, NpgsqlTransaction transaction, int datasetId, int year, long[] times, CancellationToken cancel)
+    {
+        await using var command = new NpgsqlCommand("""
+            INSERT INTO dataset_year (dataset_id, year, times) VALUES ($1, $2, $3)
+            ON CONFLICT (dataset_id, year) DO UPDATE SET times = excluded.times
+            """, connection, transaction);
+        command.Parameters.AddWithValue(datasetId);
+        command.Parameters.AddWithValue((short)year);
+        command.Parameters.AddWithValue(times);
+        await command.ExecuteNonQueryAsync(cancel);
+    }
+
+    private static async Task<IReadOnlyList<DatasetRecord>> ReadAllAsync(NpgsqlCommand command, CancellationToken cancel)
+    {
+        var rows = new List<DatasetRecord>();
+        await using var reader = await command.ExecuteReaderAsync(cancel);
+        while (await reader.ReadAsync(cancel))
+            rows.Add(new DatasetRecord(reader.GetInt32(0), reader.GetString(1), reader.GetString(2), reader.GetString(3),
+                reader.IsDBNull(4) ? null : reader.GetInt32(4), reader.IsDBNull(5) ? null : reader.GetInt32(5),
+                reader.GetInt32(6), reader.GetString(7), reader.GetString(8), reader.GetDateTime(9).ToUniversalTime()));
+        return rows;
+    }
+}

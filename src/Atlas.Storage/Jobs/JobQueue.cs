@@ -1,0 +1,122 @@
+using Npgsql;
+
+namespace Atlas.Storage.Jobs;
+
+/// <summary>
+/// The work queue in PostgreSQL. Workers claim the oldest queued job with FOR UPDATE SKIP LOCKED, so any number of
+/// workers on any number of machines share it without claiming the same job twice. A running job whose heartbeat is
+/// older than the stale limit (its worker died) is put back in the queue by <see cref="RequeueStaleAsync"/>.
+/// </summary>
+public sealed class JobQueue(NpgsqlDataSource dataSource)
+{
+    public async Task<long> EnqueueAsync(JobKind kind, string datasetSlug, string payloadJson = "{}", CancellationToken cancel = default)
+    {
+        await using var command = dataSource.CreateCommand(
+            "INSERT INTO job (kind, dataset_slug, payload) VALUES ($1, $2, $3::jsonb) RETURNING job_id");
+        command.Parameters.AddWithValue(KindName(kind));
+        command.Parameters.AddWithValue(datasetSlug);
+        command.Parameters.AddWithValue(payloadJson);
+        return (long)(await command.ExecuteScalarAsync(cancel))!;
+    }
+
+    /// <summary>Claims the oldest queued job for <paramref name="worker"/>, or returns null when none is queued.</summary>
+    public async Task<JobRecord?> ClaimAsync(string worker, CancellationToken cancel = default)
+    {
+        await using var command = dataSource.CreateCommand($"""
+            UPDATE job SET state = 'running', claimed_by = $1, claimed_at = now(), heartbeat_at = now(), attempts = attempts + 1
+             WHERE job_id = (SELECT job_id FROM job WHERE state = 'queued' ORDER BY created_at, job_id
+                              FOR UPDATE SKIP LOCKED LIMIT 1)
+            RETURNING {Columns}
+            """);
+        command.Parameters.AddWithValue(worker);
+        return await ReadOneAsync(command, cancel);
+    }
+
+    /// <summary>Claims one specific queued job (used by the command line, which runs its own job at once).</summary>
+    public async Task<JobRecord?> ClaimAsync(long jobId, string worker, CancellationToken cancel = default)
+    {
+        await using var command = dataSource.CreateCommand($"""
+            UPDATE job SET state = 'running', claimed_by = $1, claimed_at = now(), heartbeat_at = now(), attempts = attempts + 1
+             WHERE job_id = (SELECT job_id FROM job WHERE job_id = $2 AND state = 'queued' FOR UPDATE SKIP LOCKED)
+            RETURNING {Columns}
+            """);
+        command.Parameters.AddWithValue(worker);
+        command.Parameters.AddWithValue(jobId);
+        return await ReadOneAsync(command, cancel);
+    }
+
+    public async Task HeartbeatAsync(long jobId, string progressJson, CancellationToken cancel = default)
+    {
+        await using var command = dataSource.CreateCommand(
+            "UPDATE job SET heartbeat_at = now(), progress = $2::jsonb WHERE job_id = $1 AND state = 'running'");
+        command.Parameters.AddWithValue(jobId);
+        command.Parameters.AddWithValue(progressJson);
+        await command.ExecuteNonQueryAsync(cancel);
+    }
+
+    public Task CompleteAsync(long jobId, string summary, CancellationToken cancel = default) => FinishAsync(jobId, "done", null, summary, cancel);
+
+    public Task FailAsync(long jobId, string error, CancellationToken cancel = default) => FinishAsync(jobId, "failed", error, null, cancel);
+
+    /// <summary>Puts a job back in the queue (its worker is shutting down before finishing it).</summary>
+    public async Task ReleaseAsync(long jobId, CancellationToken cancel = default)
+    {
+        await using var command = dataSource.CreateCommand(
+            "UPDATE job SET state = 'queued', claimed_by = NULL, claimed_at = NULL, heartbeat_at = NULL WHERE job_id = $1 AND state = 'running'");
+        command.Parameters.AddWithValue(jobId);
+        await command.ExecuteNonQueryAsync(cancel);
+    }
+
+    /// <summary>Re-queues running jobs whose worker has not sent a heartbeat for <paramref name="staleAfter"/>.</summary>
+    public async Task<int> RequeueStaleAsync(TimeSpan staleAfter, CancellationToken cancel = default)
+    {
+        await using var command = dataSource.CreateCommand(
+            "UPDATE job SET state = 'queued', claimed_by = NULL WHERE state = 'running' AND heartbeat_at < now() - $1");
+        command.Parameters.AddWithValue(staleAfter);
+        return await command.ExecuteNonQueryAsync(cancel);
+    }
+
+    public async Task<JobRecord?> FindAsync(long jobId, CancellationToken cancel = default)
+    {
+        await using var command = dataSource.CreateCommand($"SELECT {Columns} FROM job WHERE job_id = $1");
+        command.Parameters.AddWithValue(jobId);
+        return await ReadOneAsync(command, cancel);
+    }
+
+    public async Task<IReadOnlyList<JobRecord>> RecentAsync(int limit, CancellationToken cancel = default)
+    {
+        await using var command = dataSource.CreateCommand($"SELECT {Columns} FROM job ORDER BY job_id DESC LIMIT $1");
+        command.Parameters.AddWithValue(limit);
+        var jobs = new List<JobRecord>();
+        await using var reader = await command.ExecuteReaderAsync(cancel);
+        while (await reader.ReadAsync(cancel)) jobs.Add(Read(reader));
+        return jobs;
+    }
+
+    private async Task FinishAsync(long jobId, string state, string? error, string? summary, CancellationToken cancel)
+    {
+        await using var command = dataSource.CreateCommand(
+            "UPDATE job SET state = $2, error = $3, summary = $4, finished_at = now() WHERE job_id = $1");
+        command.Parameters.AddWithValue(jobId);
+        command.Parameters.AddWithValue(state);
+        command.Parameters.AddWithValue((object?)error ?? DBNull.Value);
+        command.Parameters.AddWithValue((object?)summary ?? DBNull.Value);
+        await command.ExecuteNonQueryAsync(cancel);
+    }
+
+    private const string Columns = "job_id, kind, dataset_slug, state, payload::text, attempts, claimed_by, created_at, finished_at, progress::text, error, summary";
+
+    public static string KindName(JobKind kind) => kind == JobKind.Ingest ? "ingest" : "statistics";
+
+    private static async Task<JobRecord?> ReadOneAsync(NpgsqlCommand command, CancellationToken cancel)
+    {
+        await using var reader = await command.ExecuteReaderAsync(cancel);
+        return await reader.ReadAsync(cancel) ? Read(reader) : null;
+    }
+
+    private static JobRecord Read(NpgsqlDataReader r) => new(
+        r.GetInt64(0), r.GetString(1) == "ingest" ? JobKind.Ingest : JobKind.Statistics, r.GetString(2), r.GetString(3), r.GetString(4),
+        r.GetInt32(5), r.IsDBNull(6) ? null : r.GetString(6), r.GetDateTime(7).ToUniversalTime(),
+        r.IsDBNull(8) ? null : r.GetDateTime(8).ToUniversalTime(), r.IsDBNull(9) ? null : r.GetString(9),
+        r.IsDBNull(10) ? null : r.GetString(10), r.IsDBNull(11) ? null : r.GetString(11));
+}

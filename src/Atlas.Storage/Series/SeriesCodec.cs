@@ -1,0 +1,128 @@
+using System.Buffers.Binary;
+
+namespace Atlas.Storage.Series;
+
+/// <summary>
+/// Packs one cell-year of series into 16 bits per value. Each variable is rounded to a fixed step and stored as an
+/// unsigned little-endian 16-bit integer, 0xFFFF meaning missing:
+/// Hs 1 mm (0 to 65.534 m, error at most 0.5 mm); Te and Tp 0.01 s (to 655.34 s, error at most 0.005 s);
+/// direction 0.01 degree (0 to 359.99, error at most 0.005 degree); directional spread 0.01 degree.
+/// Layout: version byte, variable mask byte (bit n = <see cref="SeriesVariable"/> n), step count (int32), then the
+/// present variables in enum order, each a run of step-count values. 2 bytes per stored value plus a 6-byte header.
+/// </summary>
+public static class SeriesCodec
+{
+    public const byte FormatVersion = 1;
+    public const ushort Missing = 0xFFFF;
+    public const int HeaderBytes = 6;
+    public const int VariableCount = 5;
+
+    private static readonly double[] Steps = [0.001, 0.01, 0.01, 0.01, 0.01];
+
+    /// <summary>The quantisation step of a variable, in its SI unit.</summary>
+    public static double StepOf(SeriesVariable variable) => Steps[(int)variable];
+
+    /// <summary>The largest value a variable can hold.</summary>
+    public static double MaximumOf(SeriesVariable variable) => (Missing - 1) * Steps[(int)variable];
+
+    public static int EncodedLength(int stepCount, int variableCount) => HeaderBytes + 2 * stepCount * variableCount;
+
+    /// <summary>
+    /// Encodes the given variables (null or empty = absent). Every present span must have <paramref name="stepCount"/>
+    /// values; NaN is missing. Throws <see cref="ArgumentOutOfRangeException"/> naming the variable for a value below
+    /// zero or above the range (direction is wrapped into 0..360 first).
+    /// </summary>
+    public static byte[] Encode(int stepCount, ReadOnlySpan<float> hs, ReadOnlySpan<float> te, ReadOnlySpan<float> tp,
+        ReadOnlySpan<float> dir, ReadOnlySpan<float> spread)
+    {
+        int mask = 0, count = 0;
+        if (!hs.IsEmpty) { mask |= 1; count++; }
+        if (!te.IsEmpty) { mask |= 2; count++; }
+        if (!tp.IsEmpty) { mask |= 4; count++; }
+        if (!dir.IsEmpty) { mask |= 8; count++; }
+        if (!spread.IsEmpty) { mask |= 16; count++; }
+        var buffer = new byte[EncodedLength(stepCount, count)];
+        buffer[0] = FormatVersion;
+        buffer[1] = (byte)mask;
+        BinaryPrimitives.WriteInt32LittleEndian(buffer.AsSpan(2), stepCount);
+        var offset = HeaderBytes;
+        offset = Append(hs, SeriesVariable.Hs, stepCount, buffer, offset);
+        offset = Append(te, SeriesVariable.Te, stepCount, buffer, offset);
+        offset = Append(tp, SeriesVariable.Tp, stepCount, buffer, offset);
+        offset = Append(dir, SeriesVariable.Dir, stepCount, buffer, offset);
+        Append(spread, SeriesVariable.Spread, stepCount, buffer, offset);
+        return buffer;
+    }
+
+    private static int Append(ReadOnlySpan<float> values, SeriesVariable variable, int stepCount, byte[] buffer, int offset)
+    {
+        if (values.IsEmpty) return offset;
+        if (values.Length != stepCount)
+            throw new ArgumentException($"{variable} has {values.Length} values, expected {stepCount}.");
+        Quantise(values, variable, buffer.AsSpan(offset, 2 * stepCount));
+        return offset + 2 * stepCount;
+    }
+
+    private static void Quantise(ReadOnlySpan<float> values, SeriesVariable variable, Span<byte> destination)
+    {
+        var inverse = 1.0 / Steps[(int)variable];
+        var wrap = variable == SeriesVariable.Dir;
+        for (var i = 0; i < values.Length; i++)
+        {
+            double v = values[i];
+            ushort q;
+            if (double.IsNaN(v)) q = Missing;
+            else
+            {
+                if (wrap) { v %= 360.0; if (v < 0) v += 360.0; }
+                var scaled = Math.Round(v * inverse);
+                if (wrap && scaled >= 36000) scaled = 0;
+                if (scaled < 0 || scaled >= Missing || double.IsInfinity(v))
+                    throw new ArgumentOutOfRangeException(variable.ToString(), v,
+                        $"{variable} value {v} is outside the storable range 0 to {MaximumOf(variable)}.");
+                q = (ushort)scaled;
+            }
+            BinaryPrimitives.WriteUInt16LittleEndian(destination.Slice(2 * i), q);
+        }
+    }
+
+    public static int StepCountOf(ReadOnlySpan<byte> payload)
+    {
+        CheckHeader(payload);
+        return BinaryPrimitives.ReadInt32LittleEndian(payload.Slice(2));
+    }
+
+    public static bool Has(ReadOnlySpan<byte> payload, SeriesVariable variable) => (payload[1] & (1 << (int)variable)) != 0;
+
+    /// <summary>
+    /// Decodes one variable into <paramref name="destination"/> (length = step count), NaN for missing.
+    /// Returns false (and fills NaN) when the chunk does not hold the variable.
+    /// </summary>
+    public static bool Decode(ReadOnlySpan<byte> payload, SeriesVariable variable, Span<float> destination)
+    {
+        var steps = StepCountOf(payload);
+        if (destination.Length < steps) throw new ArgumentException($"Destination holds {destination.Length} values; the chunk has {steps}.");
+        var mask = payload[1];
+        if ((mask & (1 << (int)variable)) == 0)
+        {
+            destination[..steps].Fill(float.NaN);
+            return false;
+        }
+        var index = 0;
+        for (var v = 0; v < (int)variable; v++) if ((mask & (1 << v)) != 0) index++;
+        var source = payload.Slice(HeaderBytes + 2 * steps * index, 2 * steps);
+        var step = (float)Steps[(int)variable];
+        for (var i = 0; i < steps; i++)
+        {
+            var q = BinaryPrimitives.ReadUInt16LittleEndian(source.Slice(2 * i));
+            destination[i] = q == Missing ? float.NaN : (float)(q * (double)step);
+        }
+        return true;
+    }
+
+    private static void CheckHeader(ReadOnlySpan<byte> payload)
+    {
+        if (payload.Length < HeaderBytes || payload[0] != FormatVersion)
+            throw new InvalidDataException("A series chunk has an unknown format version or is truncated.");
+    }
+}

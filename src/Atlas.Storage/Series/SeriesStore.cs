@@ -1,0 +1,104 @@
+using Npgsql;
+using NpgsqlTypes;
+
+namespace Atlas.Storage.Series;
+
+/// <summary>Cell-major series chunks (one row per cell and year).</summary>
+public sealed class SeriesStore(NpgsqlDataSource dataSource)
+{
+    /// <summary>Bulk-writes chunks with binary COPY inside the caller's transaction (the rows must not exist yet).</summary>
+    public static async Task WriteAsync(NpgsqlConnection connection, int datasetId, IEnumerable<SeriesChunk> chunks, CancellationToken cancel)
+    {
+        await using var writer = await connection.BeginBinaryImportAsync(
+            "COPY series_chunk (dataset_id, cell_id, year, step_count, payload) FROM STDIN (FORMAT BINARY)", cancel);
+        foreach (var chunk in chunks)
+        {
+            await writer.StartRowAsync(cancel);
+            await writer.WriteAsync(datasetId, NpgsqlDbType.Integer, cancel);
+            await writer.WriteAsync(chunk.CellId, NpgsqlDbType.Integer, cancel);
+            await writer.WriteAsync((short)chunk.Year, NpgsqlDbType.Smallint, cancel);
+            await writer.WriteAsync(SeriesCodec.StepCountOf(chunk.Payload), NpgsqlDbType.Integer, cancel);
+            await writer.WriteAsync(chunk.Payload, NpgsqlDbType.Bytea, cancel);
+        }
+        await writer.CompleteAsync(cancel);
+    }
+
+    /// <summary>Deletes the chunks of the given years for cells in [firstCell, lastCell].</summary>
+    public static async Task DeleteAsync(NpgsqlConnection connection, NpgsqlTransaction transaction, int datasetId, int year,
+        int firstCell, int lastCell, CancellationToken cancel)
+    {
+        await using var command = new NpgsqlCommand(
+            "DELETE FROM series_chunk WHERE dataset_id = $1 AND year = $2 AND cell_id BETWEEN $3 AND $4", connection, transaction);
+        command.Parameters.AddWithValue(datasetId);
+        command.Parameters.AddWithValue((short)year);
+        command.Parameters.AddWithValue(firstCell);
+        command.Parameters.AddWithValue(lastCell);
+        await command.ExecuteNonQueryAsync(cancel);
+    }
+
+    /// <summary>The chunks of one year for cells in [firstCell, lastCell], by cell id.</summary>
+    public static async Task<Dictionary<int, byte[]>> ReadYearAsync(NpgsqlConnection connection, NpgsqlTransaction? transaction, int datasetId, int year,
+        int firstCell, int lastCell, CancellationToken cancel)
+    {
+        await using var command = new NpgsqlCommand(
+            "SELECT cell_id, payload FROM series_chunk WHERE dataset_id = $1 AND year = $2 AND cell_id BETWEEN $3 AND $4", connection, transaction);
+        command.Parameters.AddWithValue(datasetId);
+        command.Parameters.AddWithValue((short)year);
+        command.Parameters.AddWithValue(firstCell);
+        command.Parameters.AddWithValue(lastCell);
+        var result = new Dictionary<int, byte[]>();
+        await using var reader = await command.ExecuteReaderAsync(cancel);
+        while (await reader.ReadAsync(cancel)) result[reader.GetInt32(0)] = reader.GetFieldValue<byte[]>(1);
+        return result;
+    }
+
+    /// <summary>Every chunk of one cell, by year (optionally limited to a year range).</summary>
+    public async Task<IReadOnlyList<SeriesChunk>> ReadCellAsync(int datasetId, int cellId, int? fromYear = null, int? toYear = null, CancellationToken cancel = default)
+    {
+        await using var command = dataSource.CreateCommand("""
+            SELECT year, payload FROM series_chunk
+             WHERE dataset_id = $1 AND cell_id = $2 AND year BETWEEN $3 AND $4 ORDER BY year
+            """);
+        command.Parameters.AddWithValue(datasetId);
+        command.Parameters.AddWithValue(cellId);
+        command.Parameters.AddWithValue((short)(fromYear ?? short.MinValue));
+        command.Parameters.AddWithValue((short)(toYear ?? short.MaxValue));
+        var chunks = new List<SeriesChunk>();
+        await using var reader = await command.ExecuteReaderAsync(cancel);
+        while (await reader.ReadAsync(cancel)) chunks.Add(new SeriesChunk(cellId, reader.GetInt16(0), reader.GetFieldValue<byte[]>(1)));
+        return chunks;
+    }
+
+    /// <summary>
+    /// Streams every chunk of the given cells range, ordered by cell then year, through binary COPY (the fastest way
+    /// out of PostgreSQL). <paramref name="onlyCells"/> limits it to a set of cells when given.
+    /// </summary>
+    public async IAsyncEnumerable<SeriesChunk> StreamAsync(int datasetId, int[]? onlyCells = null,
+        [System.Runtime.CompilerServices.EnumeratorCancellation] CancellationToken cancel = default)
+    {
+        await using var connection = await dataSource.OpenConnectionAsync(cancel);
+        var filter = onlyCells is null ? "" : $" AND cell_id = ANY('{{{string.Join(',', onlyCells)}}}'::int[])";
+        await using var reader = await connection.BeginBinaryExportAsync(
+            $"COPY (SELECT cell_id, year, payload FROM series_chunk WHERE dataset_id = {datasetId:D}{filter} ORDER BY cell_id, year) TO STDOUT (FORMAT BINARY)", cancel);
+        while (await reader.StartRowAsync(cancel) != -1)
+        {
+            var cell = await reader.ReadAsync<int>(NpgsqlDbType.Integer, cancel);
+            var year = await reader.ReadAsync<short>(NpgsqlDbType.Smallint, cancel);
+            var payload = await reader.ReadAsync<byte[]>(NpgsqlDbType.Bytea, cancel);
+            yield return new SeriesChunk(cell, year, payload);
+        }
+    }
+
+    /// <summary>Bytes on disk of the chunk table (heap, TOAST and indexes), for storage reports.</summary>
+    public async Task<(long Bytes, long Values)> StorageAsync(int datasetId, CancellationToken cancel = default)
+    {
+        await using var command = dataSource.CreateCommand("""
+            SELECT pg_total_relation_size('series_chunk'),
+                   (SELECT coalesce(sum((length(payload) - 6) / 2), 0) FROM series_chunk WHERE dataset_id = $1)::bigint
+            """);
+        command.Parameters.AddWithValue(datasetId);
+        await using var reader = await command.ExecuteReaderAsync(cancel);
+        await reader.ReadAsync(cancel);
+        return (reader.GetInt64(0), reader.GetInt64(1));
+    }
+}

@@ -1,1 +1,0 @@
-namespace Atlas.Hindcast.Tests; public class Placeholder { [Fact] public void Builds() { } }
