@@ -1,0 +1,38 @@
+using Atlas.Storage.Jobs;
+using Atlas.TestSupport;
+
+namespace Atlas.Storage.Tests;
+
+public class JobQueueTests(TestDatabase database) : IClassFixture<TestDatabase>
+{
+    [Fact]
+    public async Task ConcurrentWorkersNeverClaimTheSameJob()
+    {
+        var queue = new JobQueue(database.DataSource);
+        var ids = new List<long>();
+        for (var i = 0; i < 20; i++) ids.Add(await queue.EnqueueAsync(JobKind.Statistics, "claims"));
+        var claimed = new System.Collections.Concurrent.ConcurrentBag<long>();
+        await Task.WhenAll(Enumerable.Range(0, 4).Select(w => Task.Run(async () =>
+        {
+            while (await queue.ClaimAsync($"worker-{w}") is { } job)
+            {
+                claimed.Add(job.Id);
+                await queue.CompleteAsync(job.Id, "ok");
+            }
+        })));
+        Assert.Equal(ids.Order(), claimed.Order());
+    }
+
+    [Fact]
+    public async Task AJobWhoseWorkerStoppedBeatingGoesBackToTheQueue()
+    {
+        var queue = new JobQueue(database.DataSource);
+        var id = await queue.EnqueueAsync(JobKind.Ingest, "stale");
+        Assert.NotNull(await queue.ClaimAsync(id, "gone"));
+        await Task.Delay(1100);
+        Assert.True(await queue.RequeueStaleAsync(TimeSpan.FromSeconds(1)) >= 1);
+        var again = await queue.ClaimAsync(id, "second");
+        Assert.NotNull(again);
+        Assert.Equal(2, again!.Attempts);
+    }
+}

@@ -1,1 +1,0 @@
-namespace Atlas.Storage.Tests; public class Placeholder { [Fact] public void Builds() { } }

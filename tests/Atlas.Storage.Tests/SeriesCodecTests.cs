@@ -1,0 +1,76 @@
+using Atlas.Storage.Series;
+
+namespace Atlas.Storage.Tests;
+
+public class SeriesCodecTests
+{
+    // Quantisation targets of the ingest contract: Hs below 1 mm, periods below 0.01 s, directions below 0.1 degree.
+    [Fact]
+    public void RoundTripStaysWithinTheStatedQuantisation()
+    {
+        var random = new Random(7);
+        const int n = 5000;
+        float[] hs = new float[n], te = new float[n], tp = new float[n], dir = new float[n], spread = new float[n];
+        for (var i = 0; i < n; i++)
+        {
+            hs[i] = (float)(random.NextDouble() * 20);
+            te[i] = (float)(2 + random.NextDouble() * 20);
+            tp[i] = (float)(2 + random.NextDouble() * 25);
+            dir[i] = (float)(random.NextDouble() * 360);
+            spread[i] = (float)(random.NextDouble() * 80);
+        }
+        hs[3] = float.NaN;
+        var payload = SeriesCodec.Encode(n, hs, te, tp, dir, spread);
+        Assert.Equal(SeriesCodec.HeaderBytes + 2 * 5 * n, payload.Length);
+        var back = new float[n];
+        Check(SeriesVariable.Hs, hs, 0.0005 + 1e-6);
+        Check(SeriesVariable.Te, te, 0.005 + 1e-5);
+        Check(SeriesVariable.Tp, tp, 0.005 + 1e-5);
+        Check(SeriesVariable.Spread, spread, 0.005 + 1e-5);
+        SeriesCodec.Decode(payload, SeriesVariable.Dir, back);
+        for (var i = 0; i < n; i++)
+        {
+            var d = Math.Abs(back[i] - dir[i]);
+            Assert.True(Math.Min(d, 360 - d) <= 0.005 + 1e-4, $"direction {dir[i]} came back as {back[i]}");
+        }
+
+        void Check(SeriesVariable variable, float[] expected, double tolerance)
+        {
+            SeriesCodec.Decode(payload, variable, back);
+            for (var i = 0; i < n; i++)
+            {
+                if (float.IsNaN(expected[i])) { Assert.True(float.IsNaN(back[i])); continue; }
+                Assert.True(Math.Abs(back[i] - expected[i]) <= tolerance, $"{variable} {expected[i]} came back as {back[i]}");
+            }
+        }
+    }
+
+    [Fact]
+    public void AbsentVariablesDecodeAsMissingAndTakeNoSpace()
+    {
+        var payload = SeriesCodec.Encode(3, [1f, 2f, 3f], [], [], [], []);
+        Assert.Equal(SeriesCodec.HeaderBytes + 6, payload.Length);
+        var te = new float[3];
+        Assert.False(SeriesCodec.Decode(payload, SeriesVariable.Te, te));
+        Assert.All(te, v => Assert.True(float.IsNaN(v)));
+    }
+
+    [Fact]
+    public void ValuesOutsideTheStorableRangeAreRefusedByName()
+    {
+        var error = Assert.Throws<ArgumentOutOfRangeException>(() => SeriesCodec.Encode(1, [-0.5f], [], [], [], []));
+        Assert.Contains("Hs", error.Message);
+        Assert.Throws<ArgumentOutOfRangeException>(() => SeriesCodec.Encode(1, [], [700f], [], [], []));
+    }
+
+    [Fact]
+    public void DirectionsWrapIntoZeroToThreeSixty()
+    {
+        var payload = SeriesCodec.Encode(3, [], [], [], [-10f, 370f, 359.999f], []);
+        var back = new float[3];
+        SeriesCodec.Decode(payload, SeriesVariable.Dir, back);
+        Assert.Equal(350f, back[0], 2);
+        Assert.Equal(10f, back[1], 2);
+        Assert.Equal(0f, back[2], 2);
+    }
+}
