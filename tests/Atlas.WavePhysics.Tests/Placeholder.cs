@@ -1,1 +1,0 @@
-namespace Atlas.WavePhysics.Tests; public class Placeholder { [Fact] public void Builds() { } }
