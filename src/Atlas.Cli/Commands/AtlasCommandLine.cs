@@ -8,6 +8,11 @@ public static class AtlasCommandLine
     public static RootCommand Build()
     {
         var root = new RootCommand("Wave-resource atlas: load hindcast fields, compute resource statistics, serve them.");
+        root.Subcommands.Add(DemoCommand.Build());
+        root.Subcommands.Add(IngestCommand.Build());
+        root.Subcommands.Add(StatsCommand.Build());
+        root.Subcommands.Add(ServeCommand.Build());
+        root.Subcommands.Add(WorkerCommand.Build());
         root.Subcommands.Add(DatabaseCommands.Build());
         return root;
     }

@@ -65,25 +65,45 @@ public static class SeriesCodec
 
     private static void Quantise(ReadOnlySpan<float> values, SeriesVariable variable, Span<byte> destination)
     {
-        var inverse = 1.0 / Steps[(int)variable];
-        var wrap = variable == SeriesVariable.Dir;
         for (var i = 0; i < values.Length; i++)
-        {
-            double v = values[i];
-            ushort q;
-            if (double.IsNaN(v)) q = Missing;
-            else
-            {
-                if (wrap) { v %= 360.0; if (v < 0) v += 360.0; }
-                var scaled = Math.Round(v * inverse);
-                if (wrap && scaled >= 36000) scaled = 0;
-                if (scaled < 0 || scaled >= Missing || double.IsInfinity(v))
-                    throw new ArgumentOutOfRangeException(variable.ToString(), v,
-                        $"{variable} value {v} is outside the storable range 0 to {MaximumOf(variable)}.");
-                q = (ushort)scaled;
-            }
-            BinaryPrimitives.WriteUInt16LittleEndian(destination.Slice(2 * i), q);
-        }
+            BinaryPrimitives.WriteUInt16LittleEndian(destination.Slice(2 * i), Quantise(variable, values[i]));
+    }
+
+    /// <summary>A payload of <paramref name="stepCount"/> steps holding the variables of <paramref name="mask"/>, all missing.</summary>
+    public static byte[] CreateEmpty(int stepCount, int mask)
+    {
+        var count = System.Numerics.BitOperations.PopCount((uint)mask);
+        var buffer = new byte[EncodedLength(stepCount, count)];
+        buffer[0] = FormatVersion;
+        buffer[1] = (byte)mask;
+        BinaryPrimitives.WriteInt32LittleEndian(buffer.AsSpan(2), stepCount);
+        buffer.AsSpan(HeaderBytes).Fill(0xFF);
+        return buffer;
+    }
+
+    /// <summary>Byte offset of a variable's first value in a payload with the given mask.</summary>
+    public static int OffsetOf(int mask, int stepCount, SeriesVariable variable)
+    {
+        var index = System.Numerics.BitOperations.PopCount((uint)(mask & ((1 << (int)variable) - 1)));
+        return HeaderBytes + 2 * stepCount * index;
+    }
+
+    /// <summary>
+    /// Quantises one value (NaN gives <see cref="Missing"/>). Throws <see cref="ArgumentOutOfRangeException"/> naming
+    /// the variable for a value below zero or above the range; direction is wrapped into 0..360 first.
+    /// </summary>
+    public static ushort Quantise(SeriesVariable variable, float value)
+    {
+        double v = value;
+        if (double.IsNaN(v)) return Missing;
+        var wrap = variable == SeriesVariable.Dir;
+        if (wrap) { v %= 360.0; if (v < 0) v += 360.0; }
+        var scaled = Math.Round(v / Steps[(int)variable]);
+        if (wrap && scaled >= 36000) scaled = 0;
+        if (scaled < 0 || scaled >= Missing || double.IsInfinity(v))
+            throw new ArgumentOutOfRangeException(variable.ToString(), value,
+                $"{variable} value {value} is outside the storable range 0 to {MaximumOf(variable)}.");
+        return (ushort)scaled;
     }
 
     public static int StepCountOf(ReadOnlySpan<byte> payload)

@@ -1,0 +1,53 @@
+using System.CommandLine;
+using System.Text.Json;
+using Atlas.Ingest.Progress;
+using Atlas.Ingest.Worker;
+using Atlas.Storage;
+using Atlas.Storage.Jobs;
+
+namespace Atlas.Cli.Commands;
+
+/// <summary><c>atlas ingest FILE... --dataset SLUG</c>: queue an ingest job and run it here at once.</summary>
+public static class IngestCommand
+{
+    public static Command Build()
+    {
+        var files = new Argument<string[]>("files") { Description = "CF-NetCDF hindcast files (classic, 64-bit offset, CDF5 or NetCDF-4)", Arity = ArgumentArity.OneOrMore };
+        var dataset = new Option<string>("--dataset") { Description = "Slug of the dataset to load into (created if new): lower-case letters, digits and dashes", Required = true };
+        var title = new Option<string?>("--title") { Description = "Title of a new dataset (default: the files' title attribute)" };
+        var replace = new Option<bool>("--replace") { Description = "Replace time steps that are already stored instead of refusing the file" };
+        var mapping = new Option<string?>("--mapping") { Description = "JSON file naming the variables of a model that does not use CF standard names" };
+        var noStats = new Option<bool>("--no-stats") { Description = "Do not compute statistics afterwards" };
+        var command = new Command("ingest", "Load hindcast fields from CF-NetCDF files into a dataset.") { files, dataset, title, replace, mapping, noStats };
+        command.SetAction(async (parse, cancel) =>
+        {
+            await using var dataSource = await AtlasDatabase.OpenMigratedAsync(cancel: cancel);
+            var queue = new JobQueue(dataSource);
+            var payload = new IngestPayload(parse.GetValue(files)!.Select(Path.GetFullPath).ToArray(), parse.GetValue(title),
+                parse.GetValue(replace), parse.GetValue(mapping) is { } m ? Path.GetFullPath(m) : null, QueueStatistics: false);
+            var slug = parse.GetValue(dataset)!;
+            var id = await queue.EnqueueAsync(JobKind.Ingest, slug, JsonSerializer.Serialize(payload), cancel);
+            var job = await queue.ClaimAsync(id, CommandWorker.Name, cancel) ?? throw new InvalidOperationException($"Job {id} was claimed by another worker.");
+            var runner = new JobRunner(dataSource);
+            try
+            {
+                Console.WriteLine(await runner.RunAsync(job, new ConsoleProgress(), cancel));
+            }
+            catch (Exception e) when (e is not OperationCanceledException)
+            {
+                Console.Error.WriteLine($"atlas ingest: {e.Message}");
+                Console.Error.WriteLine("Nothing was changed in the dataset.");
+                return 2;
+            }
+            if (!parse.GetValue(noStats)) return await StatsCommand.RunAsync(dataSource, slug, all: false, cancel);
+            return 0;
+        });
+        return command;
+    }
+}
+
+/// <summary>The worker name the command line claims its own jobs under.</summary>
+public static class CommandWorker
+{
+    public static string Name => $"cli:{Environment.MachineName}:{Environment.ProcessId}";
+}

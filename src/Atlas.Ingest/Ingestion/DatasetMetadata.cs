@@ -1,0 +1,49 @@
+using System.Text.Json.Nodes;
+using Atlas.Storage.Series;
+
+namespace Atlas.Ingest.Ingestion;
+
+/// <summary>The metadata an ingest records on its dataset: variables and units, storage scheme and source notes.</summary>
+public static class DatasetMetadata
+{
+    public static string Describe(IReadOnlyList<SourceFile> files, int mask, bool hasDepth)
+    {
+        var variables = new JsonObject();
+        foreach (SeriesVariable v in Enum.GetValues<SeriesVariable>())
+        {
+            if ((mask & (1 << (int)v)) == 0) continue;
+            variables[Symbol(v)] = new JsonObject
+            {
+                ["units"] = SeriesUnits.Of(v),
+                ["quantisation_step"] = SeriesCodec.StepOf(v),
+            };
+        }
+        if (hasDepth) variables["depth"] = new JsonObject { ["units"] = "m" };
+        var first = files[0].File;
+        var json = new JsonObject
+        {
+            ["variables"] = variables,
+            ["stored_variable_mask"] = mask,
+            ["storage"] = "16-bit fixed-step packing per value (Hs 1 mm; Te, Tp 0.01 s; direction and spread 0.01 degree), one row per cell and year",
+            ["source_title"] = first.Title,
+            ["source_institution"] = first.GlobalAttribute("institution"),
+            ["source_description"] = first.GlobalAttribute("source"),
+            ["source_comment"] = first.GlobalAttribute("comment"),
+            ["licence"] = first.GlobalAttribute("license") ?? first.GlobalAttribute("licence") ?? "not stated in the source files",
+            ["citation"] = first.GlobalAttribute("references") ?? first.GlobalAttribute("citation"),
+            ["depth_note"] = hasDepth
+                ? "finite-depth power from the cell depth"
+                : "the source has no depth: power is computed for deep water",
+        };
+        return json.ToJsonString();
+    }
+
+    public static string Symbol(SeriesVariable variable) => variable switch
+    {
+        SeriesVariable.Hs => "hs",
+        SeriesVariable.Te => "te",
+        SeriesVariable.Tp => "tp",
+        SeriesVariable.Dir => "dir",
+        _ => "spread",
+    };
+}

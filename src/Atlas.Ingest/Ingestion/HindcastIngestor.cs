@@ -1,0 +1,312 @@
+using System.Buffers;
+using System.Buffers.Binary;
+using System.Diagnostics;
+using Atlas.Hindcast;
+using Atlas.Ingest.Progress;
+using Atlas.Storage.Cells;
+using Atlas.Storage.Datasets;
+using Atlas.Storage.Series;
+using Npgsql;
+
+namespace Atlas.Ingest.Ingestion;
+
+/// <summary>
+/// Loads hindcast files into a dataset: transposes time-major fields into cell-major yearly chunks, packs them
+/// (<see cref="SeriesCodec"/>) and writes them with binary COPY. Everything happens in one transaction, so a failed
+/// or killed ingest leaves nothing visible and the same command can simply be run again. A file already loaded
+/// (same SHA-256) is skipped; time steps already stored are refused unless the request says to replace them.
+/// Memory stays within the request's budget: cells are processed in blocks, each read with hyperslab reads.
+/// </summary>
+public sealed class HindcastIngestor(NpgsqlDataSource dataSource)
+{
+    private static readonly (WaveVariable Source, SeriesVariable Target)[] Stored =
+    [
+        (WaveVariable.Hs, SeriesVariable.Hs), (WaveVariable.Te, SeriesVariable.Te), (WaveVariable.Tp, SeriesVariable.Tp),
+        (WaveVariable.Dir, SeriesVariable.Dir), (WaveVariable.Spread, SeriesVariable.Spread),
+    ];
+
+    /// <summary>Time steps read per hyperslab (bounded further by the float buffer size).</summary>
+    private const int MaxSlabBytes = 64 << 20;
+
+    public async Task<IngestSummary> RunAsync(IngestRequest request, IProgress<ProgressSnapshot>? progress = null, CancellationToken cancel = default)
+    {
+        var clock = Stopwatch.StartNew();
+        if (request.Files.Count == 0) throw new IngestException("No files were given to ingest.");
+        var files = new List<SourceFile>();
+        try
+        {
+            foreach (var path in request.Files.Distinct())
+            {
+                cancel.ThrowIfCancellationRequested();
+                files.Add(SourceFile.Open(path, request.Mapping));
+                progress?.Report(new ProgressSnapshot("opening files", files.Count, request.Files.Count, 0, clock.Elapsed, "files"));
+            }
+            return await LoadAsync(request, files, progress, clock, cancel);
+        }
+        finally
+        {
+            foreach (var file in files) file.Dispose();
+        }
+    }
+
+    private async Task<IngestSummary> LoadAsync(IngestRequest request, List<SourceFile> files, IProgress<ProgressSnapshot>? progress,
+        Stopwatch clock, CancellationToken cancel)
+    {
+        files.Sort((a, b) => a.Times[0].CompareTo(b.Times[0]));
+        CheckSameGrid(files);
+        await using var connection = await dataSource.OpenConnectionAsync(cancel);
+        await using var transaction = await connection.BeginTransactionAsync(cancel);
+        // One ingest per dataset at a time, whichever worker runs it; others wait here.
+        await using (var lockCommand = new NpgsqlCommand("SELECT pg_advisory_xact_lock(hashtext('atlas-ingest:' || $1))", connection, transaction))
+        {
+            lockCommand.Parameters.AddWithValue(request.DatasetSlug);
+            await lockCommand.ExecuteNonQueryAsync(cancel);
+        }
+
+        var dataset = await DatasetStore.FindAsync(connection, transaction, request.DatasetSlug, cancel);
+        var loaded = dataset is null ? [] : await DatasetStore.LoadedChecksumsAsync(connection, transaction, dataset.Id, cancel);
+        var seen = new HashSet<string>(loaded, StringComparer.OrdinalIgnoreCase);
+        var fresh = files.Where(f => seen.Add(f.Sha256)).ToList();
+        var skipped = files.Count - fresh.Count;
+        if (fresh.Count == 0)
+            return new IngestSummary(request.DatasetSlug, 0, skipped, 0, 0, 0, 0, clock.Elapsed, false);
+
+        CheckTimesAcrossFiles(fresh);
+        var grid = GridDescription.Of(fresh[0].File.Grid);
+        if (dataset is not null && !GridDescription.Matches(dataset, grid))
+            throw new IngestException($"{fresh[0].Name}: its grid ({grid.Describe()}) differs from the grid of dataset '{dataset.Slug}' " +
+                $"({dataset.GridKind}, {dataset.PointCount} points); files of one dataset must share one grid.");
+
+        var stored = dataset is null ? new SortedDictionary<int, long[]>() : await DatasetStore.TimelinesAsync(connection, transaction, dataset.Id, cancel);
+        CheckOverlap(request, fresh, stored);
+
+        var created = dataset is null;
+        var datasetId = dataset?.Id ?? await DatasetStore.InsertAsync(connection, transaction, request.DatasetSlug,
+            request.Title ?? fresh[0].File.Title ?? request.DatasetSlug, grid.Kind, grid.Nx, grid.Ny, grid.PointCount,
+            grid.ToJson(), "{}", cancel);
+
+        var depth = fresh[0].File.Has(WaveVariable.Depth) ? fresh[0].File.ReadDepth() : null;
+        var candidate = new bool[grid.PointCount];
+        for (var p = 0; p < candidate.Length; p++) candidate[p] = depth is null || depth[p] > 0;
+        var existingWet = created ? null : await CellStore.WetCellIdsAsync(connection, transaction, datasetId, cancel);
+        var hasData = new bool[grid.PointCount];
+
+        var mask = 0;
+        foreach (var file in fresh)
+            foreach (var (source, target) in Stored)
+                if (file.File.Has(source)) mask |= 1 << (int)target;
+        var storedMask = created ? 0 : MaskFromMetadata(dataset!.MetadataJson);
+        mask |= storedMask;
+
+        var years = fresh.SelectMany(f => f.Times.Select(YearTimeline.YearOf)).Distinct().Order().ToArray();
+        var stepsPerYear = years.ToDictionary(y => y, y => YearTimeline.Merge(stored.GetValueOrDefault(y, []), fresh.SelectMany(f => f.Times).Where(t => YearTimeline.YearOf(t) == y)));
+        var variableCount = System.Numerics.BitOperations.PopCount((uint)mask);
+        var freshSteps = fresh.Sum(f => f.Times.Length);
+        long totalWork = (long)freshSteps * grid.PointCount, doneWork = 0, bytesRead = 0;
+        var cellYears = 0;
+
+        foreach (var year in years)
+        {
+            var timeline = stepsPerYear[year];
+            var bytesPerCell = SeriesCodec.EncodedLength(timeline.Length, variableCount);
+            var blockSize = (int)Math.Clamp(request.MemoryBudgetBytes / Math.Max(1, bytesPerCell), 1, grid.PointCount);
+            var yearExisted = stored.ContainsKey(year);
+            for (var p0 = 0; p0 < grid.PointCount; p0 += blockSize)
+            {
+                cancel.ThrowIfCancellationRequested();
+                var count = Math.Min(blockSize, grid.PointCount - p0);
+                var payloads = new byte[count][];
+                for (var c = 0; c < count; c++) payloads[c] = SeriesCodec.CreateEmpty(timeline.Length, mask);
+                var blockHasData = new bool[count];
+                if (yearExisted)
+                {
+                    var old = await SeriesStore.ReadYearAsync(connection, transaction, datasetId, year, p0, p0 + count - 1, cancel);
+                    CopyStored(old, stored[year], timeline, p0, payloads, blockHasData);
+                    await SeriesStore.DeleteAsync(connection, transaction, datasetId, year, p0, p0 + count - 1, cancel);
+                }
+                foreach (var file in fresh)
+                {
+                    var (first, last) = YearRange(file.Times, year);
+                    if (first > last) continue;
+                    var positions = new int[last - first + 1];
+                    for (var k = first; k <= last; k++) positions[k - first] = Array.BinarySearch(timeline, file.Times[k]);
+                    var slab = (int)Math.Clamp(MaxSlabBytes / (4L * count), 1, positions.Length);
+                    var buffer = ArrayPool<float>.Shared.Rent(slab * count);
+                    try
+                    {
+                        for (var t0 = first; t0 <= last; t0 += slab)
+                        {
+                            var steps = Math.Min(slab, last - t0 + 1);
+                            foreach (var (source, target) in Stored)
+                            {
+                                if (!file.File.Has(source)) continue;
+                                file.File.ReadSteps(source, t0, steps, p0, count, buffer.AsSpan(0, steps * count));
+                                bytesRead += 4L * steps * count;
+                                Scatter(file, source, target, buffer, steps, count, p0, t0, t0 - first, positions, mask, timeline.Length,
+                                    payloads, blockHasData, candidate);
+                            }
+                            doneWork += (long)steps * count;
+                            progress?.Report(new ProgressSnapshot($"loading {year}", doneWork, totalWork, bytesRead, clock.Elapsed, "cell-steps"));
+                        }
+                    }
+                    finally
+                    {
+                        ArrayPool<float>.Shared.Return(buffer);
+                    }
+                }
+                var chunks = new List<SeriesChunk>();
+                for (var c = 0; c < count; c++)
+                {
+                    if (!blockHasData[c] || !candidate[p0 + c]) continue;
+                    hasData[p0 + c] = true;
+                    chunks.Add(new SeriesChunk(p0 + c, year, payloads[c]));
+                }
+                await SeriesStore.WriteAsync(connection, datasetId, chunks, cancel);
+                cellYears += chunks.Count;
+            }
+            await DatasetStore.UpsertTimelineAsync(connection, transaction, datasetId, year, timeline, cancel);
+        }
+
+        int wetCells;
+        if (created)
+        {
+            var cells = new CellRecord[grid.PointCount];
+            for (var p = 0; p < cells.Length; p++)
+            {
+                var (i, j) = grid.IndexOf(p);
+                cells[p] = new CellRecord(p, i, j, grid.Longitude(p), grid.Latitude(p),
+                    depth is null || float.IsNaN(depth[p]) ? null : depth[p], hasData[p] && candidate[p]);
+            }
+            await CellStore.InsertAsync(connection, datasetId, cells, cancel);
+            if (grid.Triangles is { } triangles) await CellStore.InsertTrianglesAsync(connection, datasetId, triangles, cancel);
+            await DatasetStore.UpdateExtentAsync(connection, transaction, datasetId, cancel);
+            progress?.Report(new ProgressSnapshot("distances to the coast", 0, 1, bytesRead, clock.Elapsed, "steps"));
+            await CellStore.UpdateCoastDistanceAsync(connection, transaction, datasetId, cancel);
+            wetCells = cells.Count(c => c.Wet);
+        }
+        else
+        {
+            var wet = new HashSet<int>(existingWet!);
+            var newlyWet = Enumerable.Range(0, grid.PointCount).Where(p => hasData[p] && !wet.Contains(p)).ToArray();
+            if (newlyWet.Length > 0)
+            {
+                await using var update = new NpgsqlCommand("UPDATE cell SET wet = true WHERE dataset_id = $1 AND cell_id = ANY($2)", connection, transaction);
+                update.Parameters.AddWithValue(datasetId);
+                update.Parameters.AddWithValue(newlyWet);
+                await update.ExecuteNonQueryAsync(cancel);
+            }
+            wetCells = wet.Count + newlyWet.Length;
+        }
+
+        foreach (var file in fresh)
+            await DatasetStore.InsertSourceFileAsync(connection, transaction, datasetId, new SourceFileRecord(file.Name, file.Sha256, file.SizeBytes,
+                DateTimeOffset.FromUnixTimeSeconds(file.Times[0]).UtcDateTime, DateTimeOffset.FromUnixTimeSeconds(file.Times[^1]).UtcDateTime,
+                file.Times.Length, request.JobId, DateTime.UtcNow), cancel);
+        await DatasetStore.MergeMetadataAsync(connection, transaction, datasetId, DatasetMetadata.Describe(fresh, mask, depth is not null), cancel);
+        await transaction.CommitAsync(cancel);
+        return new IngestSummary(request.DatasetSlug, fresh.Count, skipped, freshSteps, cellYears, wetCells, bytesRead, clock.Elapsed, created);
+    }
+
+    /// <summary>Transposes one slab [step][cell] into the cells' payloads at their time-line positions.</summary>
+    private static void Scatter(SourceFile file, WaveVariable source, SeriesVariable target, float[] buffer, int steps, int count, int p0,
+        int fileStep0, int positionOffset, int[] positions, int mask, int stepCount, byte[][] payloads, bool[] hasData, bool[] candidate)
+    {
+        var offset = SeriesCodec.OffsetOf(mask, stepCount, target);
+        var isHs = target == SeriesVariable.Hs;
+        for (var s = 0; s < steps; s++)
+        {
+            var at = offset + 2 * positions[positionOffset + s];
+            var row = s * count;
+            for (var c = 0; c < count; c++)
+            {
+                var value = buffer[row + c];
+                ushort q;
+                try
+                {
+                    q = SeriesCodec.Quantise(target, value);
+                }
+                catch (ArgumentOutOfRangeException)
+                {
+                    if (!candidate[p0 + c]) continue;
+                    throw new IngestException($"{file.Name}: variable '{source}': value {value} at {YearTimeline.Iso(file.Times[fileStep0 + s])}, point {p0 + c} " +
+                        $"is outside the physical range 0 to {SeriesCodec.MaximumOf(target)} ({SeriesUnits.Of(target)}); check the units and fill values.");
+                }
+                BinaryPrimitives.WriteUInt16LittleEndian(payloads[c].AsSpan(at), q);
+                if (isHs && q != SeriesCodec.Missing) hasData[c] = true;
+            }
+        }
+    }
+
+    private static void CopyStored(Dictionary<int, byte[]> old, long[] oldTimeline, long[] timeline, int p0, byte[][] payloads, bool[] hasData)
+    {
+        var positions = oldTimeline.Select(t => Array.BinarySearch(timeline, t)).ToArray();
+        foreach (var (cell, payload) in old)
+        {
+            var target = payloads[cell - p0];
+            var oldSteps = SeriesCodec.StepCountOf(payload);
+            for (var v = 0; v < SeriesCodec.VariableCount; v++)
+            {
+                var variable = (SeriesVariable)v;
+                if (!SeriesCodec.Has(payload, variable) || !SeriesCodec.Has(target, variable)) continue;
+                var from = SeriesCodec.OffsetOf(payload[1], oldSteps, variable);
+                var to = SeriesCodec.OffsetOf(target[1], timeline.Length, variable);
+                for (var i = 0; i < oldSteps; i++)
+                {
+                    target[to + 2 * positions[i]] = payload[from + 2 * i];
+                    target[to + 2 * positions[i] + 1] = payload[from + 2 * i + 1];
+                }
+            }
+            hasData[cell - p0] = true;
+        }
+    }
+
+    private static (int First, int Last) YearRange(long[] times, int year)
+    {
+        var start = new DateTimeOffset(year, 1, 1, 0, 0, 0, TimeSpan.Zero).ToUnixTimeSeconds();
+        var end = new DateTimeOffset(year + 1, 1, 1, 0, 0, 0, TimeSpan.Zero).ToUnixTimeSeconds();
+        var first = LowerBound(times, start);
+        var last = LowerBound(times, end) - 1;
+        return (first, last);
+    }
+
+    private static int LowerBound(long[] values, long key)
+    {
+        var index = Array.BinarySearch(values, key);
+        return index >= 0 ? index : ~index;
+    }
+
+    private static void CheckSameGrid(List<SourceFile> files)
+    {
+        for (var i = 1; i < files.Count; i++)
+            if (!files[i].File.Grid.IsSameAs(files[0].File.Grid))
+                throw new IngestException($"{files[i].Name}: its grid ({GridDescription.Of(files[i].File.Grid).Describe()}) differs from the grid of " +
+                    $"{files[0].Name} ({GridDescription.Of(files[0].File.Grid).Describe()}); files of one dataset must share one grid.");
+    }
+
+    private static void CheckTimesAcrossFiles(List<SourceFile> files)
+    {
+        for (var i = 1; i < files.Count; i++)
+            if (files[i].Times[0] <= files[i - 1].Times[^1])
+                throw new IngestException($"{files[i].Name}: its time steps ({YearTimeline.Iso(files[i].Times[0])} to {YearTimeline.Iso(files[i].Times[^1])}) " +
+                    $"overlap those of {files[i - 1].Name} (to {YearTimeline.Iso(files[i - 1].Times[^1])}); give each time step once.");
+    }
+
+    private static void CheckOverlap(IngestRequest request, List<SourceFile> fresh, SortedDictionary<int, long[]> stored)
+    {
+        if (request.ReplaceOverlap || stored.Count == 0) return;
+        foreach (var file in fresh)
+        {
+            var overlapping = file.Times.Where(t => stored.TryGetValue(YearTimeline.YearOf(t), out var line) && Array.BinarySearch(line, t) >= 0).ToArray();
+            if (overlapping.Length > 0)
+                throw new IngestException($"{file.Name}: {overlapping.Length} of its time steps ({YearTimeline.Iso(overlapping[0])} to {YearTimeline.Iso(overlapping[^1])}) " +
+                    $"are already stored in dataset '{request.DatasetSlug}' from another file; pass --replace to replace them, or leave the file out. Nothing was changed.");
+        }
+    }
+
+    private static int MaskFromMetadata(string metadataJson)
+    {
+        using var document = System.Text.Json.JsonDocument.Parse(metadataJson);
+        if (!document.RootElement.TryGetProperty("stored_variable_mask", out var value)) return 0;
+        return value.GetInt32();
+    }
+}

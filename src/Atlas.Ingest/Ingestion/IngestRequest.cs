@@ -1,0 +1,36 @@
+using Atlas.Hindcast;
+
+namespace Atlas.Ingest.Ingestion;
+
+/// <summary>What to load: files into a dataset, and how to treat time steps already stored.</summary>
+/// <param name="ReplaceOverlap">When false (the default) a file whose time steps are already stored is refused;
+/// when true its values replace the stored ones.</param>
+/// <param name="MemoryBudgetBytes">Bytes of series buffered at once; the cells are processed in blocks that fit.</param>
+public sealed record IngestRequest(
+    string DatasetSlug,
+    IReadOnlyList<string> Files,
+    string? Title = null,
+    bool ReplaceOverlap = false,
+    VariableMapping? Mapping = null,
+    long? JobId = null,
+    long MemoryBudgetBytes = 384L << 20);
+
+/// <summary>The one-line outcome of an ingest.</summary>
+public sealed record IngestSummary(
+    string DatasetSlug,
+    int FilesLoaded,
+    int FilesSkipped,
+    int StepsLoaded,
+    int CellsWritten,
+    int WetCells,
+    long BytesRead,
+    TimeSpan Elapsed,
+    bool DatasetCreated)
+{
+    public string Describe() => FilesLoaded == 0
+        ? $"ingest {DatasetSlug}: nothing new ({FilesSkipped} file(s) already loaded, unchanged)"
+        : $"ingest {DatasetSlug}: {FilesLoaded} file(s), {StepsLoaded:N0} time steps, {CellsWritten:N0} cell-years for {WetCells:N0} wet cells, " +
+          $"{BytesRead / 1e6:F0} MB in {Progress.ProgressSnapshot.FormatDuration(Elapsed)}" +
+          (FilesSkipped > 0 ? $"; {FilesSkipped} file(s) already loaded were skipped" : "") +
+          (DatasetCreated ? " (new dataset)" : "");
+}

@@ -1,0 +1,81 @@
+using System.Text.Json;
+using Atlas.Hindcast;
+using Atlas.Ingest.Ingestion;
+using Atlas.Ingest.Progress;
+using Atlas.Ingest.Statistics;
+using Atlas.Storage.Jobs;
+using Npgsql;
+
+namespace Atlas.Ingest.Worker;
+
+/// <summary>
+/// Runs one claimed job to its end: reports progress as heartbeats, marks it done with its summary or failed with
+/// the error's message. An ingest job queues a statistics job for its dataset when it loaded anything.
+/// </summary>
+public sealed class JobRunner(NpgsqlDataSource dataSource)
+{
+    private readonly JobQueue _queue = new(dataSource);
+
+    public async Task<string> RunAsync(JobRecord job, IProgress<ProgressSnapshot>? display, CancellationToken cancel)
+    {
+        var heartbeat = new HeartbeatProgress(_queue, job.Id, display);
+        try
+        {
+            string summary;
+            if (job.Kind == JobKind.Ingest)
+            {
+                var payload = JsonSerializer.Deserialize<IngestPayload>(job.PayloadJson) ?? throw new IngestException($"Job {job.Id} has no ingest payload.");
+                var mapping = payload.MappingFile is { } m ? VariableMapping.Load(m) : null;
+                var result = await new HindcastIngestor(dataSource).RunAsync(
+                    new IngestRequest(job.DatasetSlug, payload.Files, payload.Title, payload.Replace, mapping, job.Id), heartbeat, cancel);
+                summary = result.Describe();
+                if (result.FilesLoaded > 0 && payload.QueueStatistics)
+                    await _queue.EnqueueAsync(JobKind.Statistics, job.DatasetSlug, "{}", CancellationToken.None);
+            }
+            else
+            {
+                var payload = JsonSerializer.Deserialize<StatisticsPayload>(job.PayloadJson) ?? new StatisticsPayload();
+                var result = await new StatisticsService(dataSource).RunAsync(job.DatasetSlug, payload.All, heartbeat, cancel);
+                summary = result.Describe();
+            }
+            await _queue.CompleteAsync(job.Id, summary, CancellationToken.None);
+            return summary;
+        }
+        catch (OperationCanceledException) when (cancel.IsCancellationRequested)
+        {
+            // Shutting down: the transaction was rolled back, so the job can be run again from the start.
+            await _queue.ReleaseAsync(job.Id, CancellationToken.None);
+            throw;
+        }
+        catch (Exception e) when (e is not OperationCanceledException)
+        {
+            await _queue.FailAsync(job.Id, e.Message, CancellationToken.None);
+            throw;
+        }
+    }
+
+    private sealed class HeartbeatProgress(JobQueue queue, long jobId, IProgress<ProgressSnapshot>? display) : IProgress<ProgressSnapshot>
+    {
+        private DateTime _last = DateTime.MinValue;
+
+        public void Report(ProgressSnapshot value)
+        {
+            display?.Report(value);
+            if (DateTime.UtcNow - _last < TimeSpan.FromSeconds(5)) return;
+            _last = DateTime.UtcNow;
+            var json = JsonSerializer.Serialize(new { stage = value.Stage, done = value.Done, total = value.Total, fraction = value.Fraction, text = value.Describe() });
+            // Fire and forget on the pool: a heartbeat must never slow the job down or fail it.
+            _ = Task.Run(async () =>
+            {
+                try { await queue.HeartbeatAsync(jobId, json); }
+                catch (NpgsqlException) { }
+            });
+        }
+    }
+}
+
+/// <summary>The payload of an ingest job.</summary>
+public sealed record IngestPayload(string[] Files, string? Title = null, bool Replace = false, string? MappingFile = null, bool QueueStatistics = true);
+
+/// <summary>The payload of a statistics job.</summary>
+public sealed record StatisticsPayload(bool All = false);

@@ -1,0 +1,72 @@
+using Npgsql;
+
+namespace Atlas.Storage.Queries;
+
+/// <summary>When a dataset's statistics were last computed, and for how many cells.</summary>
+public sealed record StatisticsStamp(DateTime? ComputedAtUtc, int CellCount)
+{
+    /// <summary>A short token that changes whenever the statistics are recomputed (for cache keys).</summary>
+    public string Token => ComputedAtUtc is { } t ? $"{t.Ticks:x}-{CellCount:x}" : "none";
+}
+
+/// <summary>A (parameter, period) pair that has statistics rows in a dataset, with the number of cells that have it.</summary>
+public readonly record struct LayerCombination(short Parameter, short Period);
+
+/// <summary>Queries about a dataset as a whole: its typical cell spacing, statistics stamp and stored layers.</summary>
+public sealed class DatasetGeometryQueries(NpgsqlDataSource dataSource)
+{
+    /// <summary>
+    /// The median great-circle distance from a wet cell to its nearest wet neighbour, metres, over an even sample of
+    /// about 400 wet cells (KNN on the GIST index). Null when the dataset has fewer than two wet cells.
+    /// </summary>
+    public async Task<double?> TypicalSpacingMetresAsync(int datasetId, CancellationToken cancel = default)
+    {
+        await using var command = dataSource.CreateCommand("""
+            WITH sample AS (
+                SELECT c.cell_id, c.geom FROM cell c
+                 WHERE c.dataset_id = $1 AND c.wet
+                   AND c.cell_id % greatest(1, (SELECT count(*) FROM cell WHERE dataset_id = $1 AND wet) / 400) = 0)
+            SELECT percentile_cont(0.5) WITHIN GROUP (ORDER BY d) FROM (
+                SELECT (SELECT ST_Distance(s.geom::geography, o.geom::geography)
+                          FROM cell o WHERE o.dataset_id = $1 AND o.wet AND o.cell_id <> s.cell_id
+                         ORDER BY o.geom <-> s.geom LIMIT 1) AS d
+                  FROM sample s) n
+             WHERE d IS NOT NULL
+            """);
+        command.Parameters.AddWithValue(datasetId);
+        return await command.ExecuteScalarAsync(cancel) is double d ? d : null;
+    }
+
+    public async Task<StatisticsStamp> StatisticsStampAsync(int datasetId, CancellationToken cancel = default)
+    {
+        await using var command = dataSource.CreateCommand(
+            "SELECT max(computed_at), count(*)::int FROM cell_statistic_state WHERE dataset_id = $1");
+        command.Parameters.AddWithValue(datasetId);
+        await using var reader = await command.ExecuteReaderAsync(cancel);
+        await reader.ReadAsync(cancel);
+        return new StatisticsStamp(reader.IsDBNull(0) ? null : reader.GetDateTime(0).ToUniversalTime(), reader.GetInt32(1));
+    }
+
+    /// <summary>
+    /// The distinct (parameter, period) pairs that have statistics, found by skipping through the layer index
+    /// (one index probe per pair instead of a scan of every row).
+    /// </summary>
+    public async Task<IReadOnlyList<LayerCombination>> LayerCombinationsAsync(int datasetId, CancellationToken cancel = default)
+    {
+        await using var command = dataSource.CreateCommand("""
+            WITH RECURSIVE pairs AS (
+                (SELECT parameter, period FROM cell_statistic WHERE dataset_id = $1 ORDER BY parameter, period LIMIT 1)
+                UNION ALL
+                SELECT n.parameter, n.period FROM pairs p, LATERAL (
+                    SELECT parameter, period FROM cell_statistic
+                     WHERE dataset_id = $1 AND (parameter, period) > (p.parameter, p.period)
+                     ORDER BY parameter, period LIMIT 1) n)
+            SELECT parameter, period FROM pairs
+            """);
+        command.Parameters.AddWithValue(datasetId);
+        var pairs = new List<LayerCombination>();
+        await using var reader = await command.ExecuteReaderAsync(cancel);
+        while (await reader.ReadAsync(cancel)) pairs.Add(new LayerCombination(reader.GetInt16(0), reader.GetInt16(1)));
+        return pairs;
+    }
+}
