@@ -70,7 +70,8 @@ public static class CoastGeometry
     /// <summary>True when the point (km) is land: mainland, headland or island.</summary>
     public static bool IsLand(double xKm, double yKm)
     {
-        if (xKm >= MainlandShoreXKm(yKm)) return true;
+        // The mainland shore never runs west of 155 km, which spares most calls the trigonometry.
+        if (xKm >= 155.0 && xKm >= MainlandShoreXKm(yKm)) return true;
         if (xKm > 128.0 && xKm < 180.0 && yKm > 76.0 && yKm < 124.0 && IsHeadland(xKm, yKm)) return true;
         return IsIsland(xKm, yKm);
     }

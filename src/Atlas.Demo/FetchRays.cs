@@ -23,16 +23,22 @@ public sealed class FetchRays
     private const double MaximumMarchKm = 400.0;
 
     private readonly float[] _distanceKm;
+    private readonly float[] _cubeRootDistance;
 
     /// <summary>Marches the rays of every wet cell of <paramref name="grid"/>.</summary>
     public FetchRays(DemoGrid grid)
     {
         int n = grid.WetCount;
         _distanceKm = new float[n * SectorCount];
+        _cubeRootDistance = new float[n * SectorCount];
         Parallel.For(0, n, k =>
         {
             for (int s = 0; s < SectorCount; s++)
-                _distanceKm[k * SectorCount + s] = (float)March(grid.XKm[k], grid.YKm[k], s * SectorDegrees);
+            {
+                double d = March(grid.XKm[k], grid.YKm[k], s * SectorDegrees);
+                _distanceKm[k * SectorCount + s] = (float)d;
+                _cubeRootDistance[k * SectorCount + s] = (float)Math.Cbrt(d);
+            }
         });
     }
 
@@ -43,7 +49,12 @@ public sealed class FetchRays
     /// Distance to land of wet cell k towards <paramref name="fromDegrees"/>, interpolated
     /// linearly between the neighbouring sectors.
     /// </summary>
-    public double DistanceKm(int k, double fromDegrees)
+    public double DistanceKm(int k, double fromDegrees) => Interpolate(_distanceKm, k, fromDegrees);
+
+    /// <summary>Cube root of the distance (km) to land towards a direction, interpolated like <see cref="DistanceKm(int, double)"/>.</summary>
+    public double CubeRootDistanceKm(int k, double fromDegrees) => Interpolate(_cubeRootDistance, k, fromDegrees);
+
+    private static double Interpolate(float[] table, int k, double fromDegrees)
     {
         double position = fromDegrees / SectorDegrees;
         position -= SectorCount * Math.Floor(position / SectorCount);
@@ -52,7 +63,7 @@ public sealed class FetchRays
         double f = position - s0;
         int s1 = s0 + 1 == SectorCount ? 0 : s0 + 1;
         int row = k * SectorCount;
-        return _distanceKm[row + s0] + f * (_distanceKm[row + s1] - _distanceKm[row + s0]);
+        return table[row + s0] + f * (table[row + s1] - table[row + s0]);
     }
 
     private static double March(double x, double y, double azimuthDegrees)
