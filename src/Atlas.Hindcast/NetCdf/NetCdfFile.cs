@@ -47,13 +47,28 @@ public sealed unsafe class NetCdfFile : IDisposable
         var handle = new NetCdfHandle(ncid);
         try
         {
-            return new NetCdfFile(path, handle);
+            var file = new NetCdfFile(path, handle);
+            if (file.Format is NetCdfFormat.Classic or NetCdfFormat.Offset64 or NetCdfFormat.Cdf5) RequireComplete(path);
+            return file;
         }
         catch
         {
             handle.Dispose();
             throw;
         }
+    }
+
+    /// <summary>
+    /// netCDF-C reads the missing tail of a cut classic file as zeros, so compare the size the header needs with the
+    /// size on disk. (HDF5 checks this itself and refuses to open a cut NetCDF-4 file.)
+    /// </summary>
+    private static void RequireComplete(string path)
+    {
+        long? required = ClassicFileExtent.RequiredBytes(path);
+        long actual = new FileInfo(path).Length;
+        if (required > actual)
+            throw new HindcastFormatException(path, null,
+                $"truncated: the header describes {required} bytes of data but the file has {actual} bytes");
     }
 
     public string Path { get; }

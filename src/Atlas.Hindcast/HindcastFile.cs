@@ -1,0 +1,336 @@
+using System.Buffers;
+
+namespace Atlas.Hindcast;
+
+/// <summary>
+/// A hindcast file decoded for ingest: its grid, its UTC time axis and its wave variables as float32 SI values
+/// (metres, seconds, degrees the waves come from) with NaN for missing. Reads are hyperslabs, so files larger
+/// than memory stream through in blocks. Dispose to close the file.
+/// </summary>
+public sealed class HindcastFile : IDisposable
+{
+    /// <summary>Upper bound of the scratch buffer used when a point block does not cover whole grid rows.</summary>
+    private const long ScratchValues = 16 << 20;
+
+    private readonly NetCdfFile _file;
+    private readonly IReadOnlyDictionary<WaveVariable, ResolvedVariable> _variables;
+    private readonly Dictionary<WaveVariable, (CfValueDecoder Decoder, int[] Roles)> _decoding = [];
+    private readonly IReadOnlyList<NetCdfDimension> _spatial;
+    private readonly NetCdfDimension _time;
+
+    // Roles of a variable's dimensions in a slab read.
+    private const int TimeRole = -1, SingletonRole = -2;
+
+    private HindcastFile(NetCdfFile file, VariableMapping? mapping)
+    {
+        _file = file;
+        _variables = CfDecoder.Resolve(file, mapping);
+        var hs = _variables[WaveVariable.Hs].Source;
+        (_time, var timeVariable) = FindTime(file, hs, mapping);
+        TimesUtc = DecodeTimes(file, timeVariable);
+
+        var layout = CfGridReader.Read(file, hs, _time);
+        Grid = layout.Grid;
+        _spatial = layout.Dimensions;
+
+        foreach (var (wave, resolved) in _variables)
+        {
+            CfValueDecoder decoder;
+            try
+            {
+                decoder = resolved.CreateDecoder();
+            }
+            catch (FormatException e)
+            {
+                throw new HindcastFormatException(file.Path, resolved.Name, e.Message, e);
+            }
+            _decoding[wave] = (decoder, Roles(resolved.Source, timeRequired: wave != WaveVariable.Depth));
+            TuneChunkCache(resolved.Source);
+        }
+    }
+
+    /// <summary>
+    /// Opens and decodes the metadata of <paramref name="path"/>. Throws <see cref="HindcastFormatException"/>
+    /// (naming file, variable and problem) for unreadable or truncated files, a missing Hs or missing Te and Tp,
+    /// units that cannot be converted, unsupported grids and bad time axes.
+    /// </summary>
+    public static HindcastFile Open(string path, VariableMapping? mapping = null)
+    {
+        var file = NetCdfFile.Open(path);
+        try
+        {
+            return new HindcastFile(file, mapping);
+        }
+        catch
+        {
+            file.Dispose();
+            throw;
+        }
+    }
+
+    public string Path => _file.Path;
+
+    public NetCdfFormat Format => _file.Format;
+
+    public HindcastGrid Grid { get; }
+
+    /// <summary>The time of every step, UTC, strictly increasing.</summary>
+    public IReadOnlyList<DateTime> TimesUtc { get; }
+
+    public bool Has(WaveVariable v) => _variables.ContainsKey(v);
+
+    /// <summary>The file variable behind <paramref name="v"/> and how it was found; null when the file lacks it.</summary>
+    public ResolvedVariable? Source(WaveVariable v) => _variables.GetValueOrDefault(v);
+
+    /// <summary>
+    /// Reads steps [<paramref name="timeStart"/>, +<paramref name="timeCount"/>) of points
+    /// [<paramref name="pointStart"/>, +<paramref name="pointCount"/>) into <paramref name="destination"/> laid out
+    /// [time][point], decoded (SI units, directions "from" in [0, 360), NaN for missing). On a 2-D grid the point range
+    /// becomes one hyperslab of whole rows (or of part of one row), so blocks of whole rows read with no copy.
+    /// </summary>
+    public void ReadSteps(WaveVariable v, int timeStart, int timeCount, int pointStart, int pointCount, Span<float> destination)
+    {
+        if (v == WaveVariable.Depth) throw new ArgumentException("depth is static: use ReadDepth", nameof(v));
+        if (!_decoding.TryGetValue(v, out var decoding))
+            throw new InvalidOperationException($"{Path}: the file has no {v} (check Has before reading)");
+        int steps = TimesUtc.Count, points = Grid.PointCount;
+        if (timeStart < 0 || timeCount < 0 || timeStart + (long)timeCount > steps)
+            throw new ArgumentOutOfRangeException(nameof(timeStart), $"steps [{timeStart}, +{timeCount}) outside 0..{steps}");
+        if (pointStart < 0 || pointCount < 0 || pointStart + (long)pointCount > points)
+            throw new ArgumentOutOfRangeException(nameof(pointStart), $"points [{pointStart}, +{pointCount}) outside 0..{points}");
+        if (destination.Length < (long)timeCount * pointCount)
+            throw new ArgumentException($"destination holds {destination.Length} values; {(long)timeCount * pointCount} are needed", nameof(destination));
+        if (timeCount == 0 || pointCount == 0) return;
+
+        var source = _variables[v].Source;
+        if (Grid is not StructuredGrid grid)
+        {
+            ReadSlab(source, decoding, timeStart, timeCount, [pointStart], [pointCount], destination);
+            return;
+        }
+
+        int nx = grid.Nx;
+        int firstRow = pointStart / nx, firstColumn = pointStart % nx;
+        int rows = (pointStart + pointCount - 1) / nx - firstRow + 1;
+        if (rows == 1)
+        {
+            ReadSlab(source, decoding, timeStart, timeCount, [firstRow, firstColumn], [1, pointCount], destination);
+            return;
+        }
+        if (firstColumn == 0 && pointCount == rows * nx)
+        {
+            ReadSlab(source, decoding, timeStart, timeCount, [firstRow, 0], [rows, nx], destination);
+            return;
+        }
+
+        // The block starts or ends inside a row: read whole rows a few steps at a time and copy the wanted span.
+        int rowValues = rows * nx;
+        int stepsPerRead = (int)Math.Clamp(ScratchValues / rowValues, 1, timeCount);
+        var scratch = ArrayPool<float>.Shared.Rent(stepsPerRead * rowValues);
+        try
+        {
+            for (int t = 0; t < timeCount; t += stepsPerRead)
+            {
+                int n = Math.Min(stepsPerRead, timeCount - t);
+                ReadSlab(source, decoding, timeStart + t, n, [firstRow, 0], [rows, nx], scratch.AsSpan(0, n * rowValues));
+                for (int k = 0; k < n; k++)
+                    scratch.AsSpan(k * rowValues + firstColumn, pointCount).CopyTo(destination.Slice((t + k) * pointCount, pointCount));
+            }
+        }
+        finally
+        {
+            ArrayPool<float>.Shared.Return(scratch);
+        }
+    }
+
+    /// <summary>
+    /// Water depth of every point in metres, positive down, from the first step when the depth has a time dimension.
+    /// NaN where the file gives no value or the sea floor is at or above the surface (land), and everywhere when
+    /// the file has no depth variable.
+    /// </summary>
+    public float[] ReadDepth()
+    {
+        var depth = new float[Grid.PointCount];
+        if (!_decoding.TryGetValue(WaveVariable.Depth, out var decoding))
+        {
+            Array.Fill(depth, float.NaN);
+            return depth;
+        }
+        long[] start = _spatial.Select(_ => 0L).ToArray(), count = _spatial.Select(d => d.Length).ToArray();
+        ReadSlab(_variables[WaveVariable.Depth].Source, decoding, 0, 1, start, count, depth);
+        for (int p = 0; p < depth.Length; p++)
+            if (!(depth[p] > 0)) depth[p] = float.NaN;
+        return depth;
+    }
+
+    /// <summary>
+    /// The wet flag of every point by the <see cref="LandMask"/> rule, probing Hs over the first
+    /// <paramref name="probeSteps"/> steps (fewer when the file is shorter).
+    /// </summary>
+    public bool[] ReadWetMask(int probeSteps = 24)
+    {
+        ArgumentOutOfRangeException.ThrowIfLessThan(probeSteps, 1);
+        int points = Grid.PointCount;
+        int steps = Math.Min(probeSteps, TimesUtc.Count);
+        var seen = new bool[points];
+        int stepsPerRead = (int)Math.Clamp(ScratchValues / Math.Max(points, 1), 1, steps);
+        var buffer = ArrayPool<float>.Shared.Rent(stepsPerRead * points);
+        try
+        {
+            for (int t = 0; t < steps; t += stepsPerRead)
+            {
+                int n = Math.Min(stepsPerRead, steps - t);
+                var slab = buffer.AsSpan(0, n * points);
+                ReadSteps(WaveVariable.Hs, t, n, 0, points, slab);
+                LandMask.MarkHsSeen(slab, seen);
+            }
+        }
+        finally
+        {
+            ArrayPool<float>.Shared.Return(buffer);
+        }
+        return LandMask.Derive(Has(WaveVariable.Depth) ? ReadDepth() : [], seen);
+    }
+
+    public void Dispose() => _file.Dispose();
+
+    /// <summary>Reads one hyperslab (time range x spatial box) decoded into <paramref name="destination"/>.</summary>
+    private void ReadSlab(NetCdfVariable variable, (CfValueDecoder Decoder, int[] Roles) decoding, int timeStart, int timeCount,
+        ReadOnlySpan<long> spatialStart, ReadOnlySpan<long> spatialCount, Span<float> destination)
+    {
+        var roles = decoding.Roles;
+        Span<long> start = stackalloc long[roles.Length];
+        Span<long> count = stackalloc long[roles.Length];
+        long total = 1;
+        for (int d = 0; d < roles.Length; d++)
+        {
+            (start[d], count[d]) = roles[d] switch
+            {
+                TimeRole => (timeStart, timeCount),
+                SingletonRole => (0L, 1L),
+                var s => (spatialStart[s], spatialCount[s]),
+            };
+            total *= count[d];
+        }
+        var target = destination[..(int)total];
+        var decoder = decoding.Decoder;
+        switch (variable.Type)
+        {
+            case NetCdfType.Float:
+                _file.Read(variable, start, count, target);
+                decoder.DecodeInPlace(target);
+                break;
+            case NetCdfType.Double: ReadAndDecode<double>(variable, decoder, start, count, target); break;
+            case NetCdfType.Short: ReadAndDecode<short>(variable, decoder, start, count, target); break;
+            case NetCdfType.UShort: ReadAndDecode<ushort>(variable, decoder, start, count, target); break;
+            case NetCdfType.Int: ReadAndDecode<int>(variable, decoder, start, count, target); break;
+            case NetCdfType.UInt: ReadAndDecode<uint>(variable, decoder, start, count, target); break;
+            case NetCdfType.Byte: ReadAndDecode<sbyte>(variable, decoder, start, count, target); break;
+            case NetCdfType.UByte: ReadAndDecode<byte>(variable, decoder, start, count, target); break;
+            default: ReadAndDecode<double>(variable, decoder, start, count, target); break; // 64-bit integers
+        }
+    }
+
+    private void ReadAndDecode<T>(NetCdfVariable variable, CfValueDecoder decoder, ReadOnlySpan<long> start, ReadOnlySpan<long> count,
+        Span<float> destination) where T : unmanaged, System.Numerics.INumberBase<T>
+    {
+        var raw = ArrayPool<T>.Shared.Rent(destination.Length);
+        try
+        {
+            var span = raw.AsSpan(0, destination.Length);
+            _file.Read(variable, start, count, span);
+            decoder.Decode<T>(span, destination);
+        }
+        finally
+        {
+            ArrayPool<T>.Shared.Return(raw);
+        }
+    }
+
+    /// <summary>
+    /// Maps each dimension of <paramref name="variable"/> to time, a spatial axis or a length-1 extra dimension,
+    /// requiring time first and the spatial dimensions in the grid's order.
+    /// </summary>
+    private int[] Roles(NetCdfVariable variable, bool timeRequired)
+    {
+        var roles = new int[variable.Rank];
+        int nextSpatial = 0;
+        bool sawTime = false;
+        for (int d = 0; d < variable.Rank; d++)
+        {
+            var dim = variable.Dimensions[d];
+            if (dim == _time)
+            {
+                if (nextSpatial > 0)
+                    throw Problem(variable, $"has time after its horizontal dimensions ({Dims(variable)}); time must come first");
+                roles[d] = TimeRole;
+                sawTime = true;
+            }
+            else if (nextSpatial < _spatial.Count && dim == _spatial[nextSpatial]) roles[d] = nextSpatial++;
+            else if (dim.Length == 1) roles[d] = SingletonRole;
+            else throw Problem(variable, $"has dimensions ({Dims(variable)}); expected ({(timeRequired ? _time.Name + ", " : "")}{string.Join(", ", _spatial.Select(s => s.Name))}) like the Hs variable");
+        }
+        if (nextSpatial != _spatial.Count)
+            throw Problem(variable, $"has dimensions ({Dims(variable)}); it must span ({string.Join(", ", _spatial.Select(s => s.Name))}) like the Hs variable");
+        if (timeRequired && !sawTime) throw Problem(variable, $"has no '{_time.Name}' dimension; wave fields must be time series");
+        return roles;
+    }
+
+    /// <summary>
+    /// For uncompressed chunked NetCDF-4 data, turning HDF5's chunk cache off makes it read just the selected bytes
+    /// of each chunk instead of whole chunks, so point blocks that cut across time-step chunks read each byte once.
+    /// </summary>
+    private void TuneChunkCache(NetCdfVariable variable)
+    {
+        if (variable.Storage == NetCdfStorage.Chunked && variable.DeflateLevel == 0 && !variable.Shuffle)
+            _file.SetChunkCache(variable, 0, 0);
+    }
+
+    private static (NetCdfDimension Time, NetCdfVariable Variable) FindTime(NetCdfFile file, NetCdfVariable hs, VariableMapping? mapping)
+    {
+        if (mapping?.TimeVariable is { } name)
+        {
+            var mapped = file.FindVariable(name)
+                ?? throw new HindcastFormatException(file.Path, name, $"the mapping '{mapping.Source}' names it as time, but the file has no such variable");
+            if (mapped.Rank != 1 || !hs.Dimensions.Contains(mapped.Dimensions[0]))
+                throw new HindcastFormatException(file.Path, name, $"is not a 1-D time coordinate along a dimension of '{hs.Name}'");
+            return (mapped.Dimensions[0], mapped);
+        }
+        foreach (var dim in hs.Dimensions)
+        {
+            if (file.FindVariable(dim.Name) is not { Rank: 1 } coordinate || coordinate.Dimensions[0] != dim) continue;
+            bool isTime = (coordinate.TextAttribute("units") ?? "").Contains(" since ", StringComparison.OrdinalIgnoreCase)
+                          || coordinate.TextAttribute("standard_name") == "time" || coordinate.TextAttribute("axis") == "T";
+            if (isTime) return (dim, coordinate);
+        }
+        throw new HindcastFormatException(file.Path, hs.Name,
+            $"has no time dimension: none of ({Dims(hs)}) has a coordinate variable with units '<unit> since <date>'");
+    }
+
+    private static IReadOnlyList<DateTime> DecodeTimes(NetCdfFile file, NetCdfVariable time)
+    {
+        if (time.Dimensions[0].Length == 0) throw new HindcastFormatException(file.Path, time.Name, "has no time steps");
+        try
+        {
+            var parsed = CfTime.Parse(time.TextAttribute("units"), time.TextAttribute("calendar"));
+            var values = file.ReadAll<double>(time);
+            if (time.NumberAttribute("_FillValue") is { } fill)
+            {
+                double stored = time.Type == NetCdfType.Float ? (float)fill : fill;
+                int missing = Array.IndexOf(values, stored);
+                if (missing >= 0) throw new FormatException($"time[{missing}] is the fill value; every step needs a time");
+            }
+            var times = parsed.ToUtc(values);
+            CfTime.RequireStrictlyIncreasing(times);
+            return times;
+        }
+        catch (FormatException e)
+        {
+            throw new HindcastFormatException(file.Path, time.Name, e.Message, e);
+        }
+    }
+
+    private HindcastFormatException Problem(NetCdfVariable variable, string problem) => new(Path, variable.Name, problem);
+
+    private static string Dims(NetCdfVariable v) => string.Join(", ", v.Dimensions.Select(d => d.Name));
+}
