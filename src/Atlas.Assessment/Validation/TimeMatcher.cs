@@ -12,7 +12,12 @@ namespace Atlas.Assessment.Validation;
 /// </remarks>
 public sealed class TimeMatcher
 {
-    /// <summary>Default tolerance: 1.5 h, which accepts any observation between two steps of a 3-hourly model.</summary>
+    /// <summary>
+    /// Default tolerance: 1.5 h. Every observation between two steps at most 1.5 h apart is matched,
+    /// so hourly output with an occasional omitted step matches fully; for coarser output (e.g.
+    /// 3-hourly) pass a tolerance of at least the model step, or only observations near the middle
+    /// of each interval are matched.
+    /// </summary>
     public const double DefaultToleranceHours = 1.5;
 
     private readonly long _toleranceSeconds;
