@@ -21,7 +21,8 @@ public static class RunsDeclustering
     /// The peaks of the clusters of values strictly above <paramref name="threshold"/>. Two
     /// exceedances belong to different clusters when the steps between them (each lasting one
     /// step) add up to at least <paramref name="separationHours"/>. Missing steps count as not
-    /// exceeding, so a gap at least as long as the separation also splits a storm.
+    /// exceeding, so a gap at least as long as the separation also splits a storm. A separation of
+    /// 0 makes each unbroken run of exceedances its own cluster.
     /// </summary>
     /// <exception cref="ArgumentOutOfRangeException">The separation is negative or not finite, or the threshold is NaN.</exception>
     public static IReadOnlyList<StormPeak> Decluster(RegularSeries series, double threshold, double separationHours = DefaultSeparationHours)
@@ -39,7 +40,8 @@ public static class RunsDeclustering
         for (int i = 0; i < values.Length; i++)
         {
             if (!(values[i] > threshold)) continue;
-            if (start >= 0 && i - last - 1 >= separationSteps - 1e-9)
+            int stepsBetween = i - last - 1;
+            if (start >= 0 && stepsBetween > 0 && stepsBetween >= separationSteps - 1e-9)
             {
                 peaks.Add(Close(series, start, last, peakIndex, count));
                 start = -1;
