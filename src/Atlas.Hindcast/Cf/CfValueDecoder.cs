@@ -12,25 +12,22 @@ namespace Atlas.Hindcast;
 /// </summary>
 /// <remarks>
 /// As in netCDF4-python, 8-bit types have no default fill (their whole range is commonly data) and fill values are
-/// compared after casting them to the stored type. valid_* attributes are compared with the stored values when
-/// they have the stored type (CF's rule for packed data) and with the unpacked values when a packed variable
-/// gives them in another type (usually the type of scale_factor). _Unsigned = "true" makes integer data unsigned.
+/// compared after casting them to the stored type. valid_* attributes are compared with the stored (packed) values,
+/// as the netCDF attribute conventions define them and netCDF4-python applies them, whatever their own type.
+/// _Unsigned = "true" makes integer data unsigned.
 /// </remarks>
 public sealed class CfValueDecoder
 {
     private readonly double[] _rawMissing;
-    private readonly double _rawMin, _rawMax, _unpackedMin, _unpackedMax;
+    private readonly double _rawMin, _rawMax;
     private readonly double _scale, _offset, _factor, _unitOffset;
     private readonly bool _isDirection, _toFrom;
 
-    private CfValueDecoder(double[] rawMissing, double rawMin, double rawMax, double unpackedMin, double unpackedMax,
-        double scale, double offset, UnitConversion units, bool negate, bool isDirection, bool toFrom, NetCdfType readType)
+    private CfValueDecoder(double[] rawMissing, double rawMin, double rawMax, double scale, double offset, UnitConversion units, bool negate, bool isDirection, bool toFrom, NetCdfType readType)
     {
         _rawMissing = rawMissing;
         _rawMin = rawMin;
         _rawMax = rawMax;
-        _unpackedMin = unpackedMin;
-        _unpackedMax = unpackedMax;
         _scale = scale;
         _offset = offset;
         _factor = negate ? -units.Factor : units.Factor;
@@ -77,7 +74,6 @@ public sealed class CfValueDecoder
 
         double scale = variable.NumberAttribute("scale_factor") ?? 1;
         double offset = variable.NumberAttribute("add_offset") ?? 0;
-        bool packed = variable.Attribute("scale_factor") is not null || variable.Attribute("add_offset") is not null;
         if (!double.IsFinite(scale) || !double.IsFinite(offset)) throw new FormatException("scale_factor/add_offset is not finite");
 
         var missing = new List<double>();
@@ -87,31 +83,18 @@ public sealed class CfValueDecoder
         if (variable.Attribute("missing_value") is { IsText: false } mv) missing.AddRange(mv.Values.Select(v => CastToStored(v, readType)));
 
         double rawMin = double.NegativeInfinity, rawMax = double.PositiveInfinity;
-        double unpackedMin = double.NegativeInfinity, unpackedMax = double.PositiveInfinity;
-        void Limit(NetCdfAttribute attribute, bool isMin, double value)
-        {
-            bool unpacked = packed && attribute.Type != variable.Type;
-            if (unpacked)
-            {
-                if (isMin) unpackedMin = value;
-                else unpackedMax = value;
-            }
-            else if (isMin) rawMin = CastToStored(value, readType);
-            else rawMax = CastToStored(value, readType);
-        }
         if (variable.Attribute("valid_range") is { IsText: false } range)
         {
             if (range.Values.Count != 2) throw new FormatException($"valid_range has {range.Values.Count} values; two are required");
-            Limit(range, true, range.Values[0]);
-            Limit(range, false, range.Values[1]);
+            (rawMin, rawMax) = (CastToStored(range.Values[0], readType), CastToStored(range.Values[1], readType));
         }
         else
         {
-            if (variable.Attribute("valid_min") is { IsText: false, Values.Count: > 0 } vmin) Limit(vmin, true, vmin.Values[0]);
-            if (variable.Attribute("valid_max") is { IsText: false, Values.Count: > 0 } vmax) Limit(vmax, false, vmax.Values[0]);
+            if (variable.NumberAttribute("valid_min") is { } vmin) rawMin = CastToStored(vmin, readType);
+            if (variable.NumberAttribute("valid_max") is { } vmax) rawMax = CastToStored(vmax, readType);
         }
 
-        return new CfValueDecoder(missing.Distinct().ToArray(), rawMin, rawMax, unpackedMin, unpackedMax, scale, offset,
+        return new CfValueDecoder(missing.Distinct().ToArray(), rawMin, rawMax, scale, offset,
             conversion, negate, quantity == PhysicalQuantity.Angle, towards, readType);
     }
 
@@ -150,13 +133,7 @@ public sealed class CfValueDecoder
                 destination[i] = float.NaN;
                 continue;
             }
-            double u = r * _scale + _offset;
-            if (u < _unpackedMin || u > _unpackedMax)
-            {
-                destination[i] = float.NaN;
-                continue;
-            }
-            double v = u * _factor + _unitOffset;
+            double v = (r * _scale + _offset) * _factor + _unitOffset;
             if (_isDirection) v = WrapDegrees(_toFrom ? v + 180 : v);
             destination[i] = (float)v;
         }
