@@ -84,6 +84,24 @@ public sealed class RegularSeries
     public bool IsAlignedWith(RegularSeries other) =>
         other.StartUnixSeconds == StartUnixSeconds && other.StepSeconds == StepSeconds && other.Count == Count;
 
+    /// <summary>
+    /// Consecutive index ranges [Start, End) that fall in one calendar month (UTC), in time order.
+    /// </summary>
+    internal IEnumerable<(int Year, int Month, int Start, int End)> MonthBlocks()
+    {
+        int start = 0;
+        while (start < Count)
+        {
+            var time = UtcCalendar.ToDateTime(TimeAt(start));
+            var nextMonth = new DateTime(time.Year, time.Month, 1, 0, 0, 0, DateTimeKind.Utc).AddMonths(1);
+            long nextMonthSeconds = UtcCalendar.ToUnixSeconds(nextMonth);
+            long stepsToNextMonth = (nextMonthSeconds - TimeAt(start) + StepSeconds - 1) / StepSeconds;
+            int end = (int)Math.Min(Count, start + stepsToNextMonth);
+            yield return (time.Year, time.Month, start, end);
+            start = end;
+        }
+    }
+
     internal void RequireAlignedWith(RegularSeries other, string otherName)
     {
         if (!IsAlignedWith(other))
