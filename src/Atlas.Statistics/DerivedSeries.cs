@@ -1,0 +1,93 @@
+using Atlas.WavePhysics;
+
+namespace Atlas.Statistics;
+
+/// <summary>The series computed from a cell's stored ones: Te (given or from Tp), power and directionality per step.</summary>
+internal readonly ref struct DerivedSeries
+{
+    public ReadOnlySpan<float> Te { get; init; }
+    public ReadOnlySpan<float> Power { get; init; }
+    public ReadOnlySpan<float> Directionality { get; init; }
+    public EnergyPeriodSource EnergyPeriodSource { get; init; }
+    public bool DeepWaterAssumed { get; init; }
+}
+
+/// <summary>
+/// Reusable buffers that turn a <see cref="CellSeries"/> into its <see cref="DerivedSeries"/>; one per worker, no
+/// allocation once the buffers have grown to the timeline's length.
+/// </summary>
+internal sealed class DerivedSeriesBuffers
+{
+    private float[] _te = [];
+    private float[] _power = [];
+    private float[] _directionality = [];
+
+    /// <summary>
+    /// Te is the dataset's when it has any valid step; otherwise ratio x Tp when Tp is given (the ratio of
+    /// <see cref="StatisticsOptions.AssumedSpectrum"/>); otherwise unavailable. A step with Te present but missing stays
+    /// missing (Te and Tp are never mixed within one series). Power needs Hs and Te at the step and uses the group
+    /// velocity at the cell depth, deep water when the depth is unknown. The directionality coefficient comes from
+    /// the spread under the cosine-2s model.
+    /// </summary>
+    public DerivedSeries Derive(in CellSeries series, StatisticsOptions options)
+    {
+        int n = series.Times.Length;
+        Grow(ref _te, n);
+        Grow(ref _power, n);
+        Grow(ref _directionality, n);
+
+        ReadOnlySpan<float> te;
+        EnergyPeriodSource source;
+        if (HasValidStep(series.Te))
+        {
+            te = series.Te;
+            source = EnergyPeriodSource.Provided;
+        }
+        else if (series.Tp.Length == n && n > 0)
+        {
+            PeriodConversion.EnergyPeriodFromPeakPeriod(series.Tp, _te.AsSpan(0, n), options.AssumedSpectrum);
+            te = _te.AsSpan(0, n);
+            source = EnergyPeriodSource.DerivedFromPeakPeriod;
+        }
+        else
+        {
+            te = [];
+            source = EnergyPeriodSource.Unavailable;
+        }
+
+        ReadOnlySpan<float> power = [];
+        if (te.Length == n && n > 0)
+        {
+            WavePower.OmnidirectionalPower(series.Hs, te, new GroupVelocityTable(series.DepthMetres), _power.AsSpan(0, n));
+            power = _power.AsSpan(0, n);
+        }
+
+        ReadOnlySpan<float> directionality = [];
+        if (series.Spread.Length == n && n > 0)
+        {
+            WavePhysics.Directionality.Coefficients(series.Spread, _directionality.AsSpan(0, n));
+            directionality = _directionality.AsSpan(0, n);
+        }
+
+        return new DerivedSeries
+        {
+            Te = te,
+            Power = power,
+            Directionality = directionality,
+            EnergyPeriodSource = source,
+            DeepWaterAssumed = DispersionRelation.IsDeepWater(series.DepthMetres),
+        };
+    }
+
+    private static bool HasValidStep(ReadOnlySpan<float> values)
+    {
+        foreach (float v in values)
+            if (ParameterValidity.IsValid(WaveParameter.Te, v)) return true;
+        return false;
+    }
+
+    private static void Grow(ref float[] buffer, int length)
+    {
+        if (buffer.Length < length) buffer = new float[length];
+    }
+}

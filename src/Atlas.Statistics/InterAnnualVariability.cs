@@ -1,0 +1,33 @@
+using System.Text.Json.Serialization;
+
+namespace Atlas.Statistics;
+
+/// <summary>Means of one year (or one season of one year) at a point.</summary>
+/// <param name="Year">Calendar year; its seasons follow <see cref="AtlasPeriod"/> (DJF of 2010 is January, February and December 2010).</param>
+/// <param name="Hs">Mean Hs, m; NaN (null) when no step.</param>
+/// <param name="Te">Mean Te, s.</param>
+/// <param name="J">Mean of the per-step power, kW/m.</param>
+/// <param name="Coverage">Coverage of the core series (J when power can be computed, else Hs).</param>
+/// <param name="LowCoverage">Coverage below the threshold: the year is listed but left out of the coefficients of variation.</param>
+public sealed record YearlyMeans(
+    int Year,
+    [property: JsonConverter(typeof(NaNAsNullJsonConverter))] double Hs,
+    [property: JsonConverter(typeof(NaNAsNullJsonConverter))] double Te,
+    [property: JsonConverter(typeof(NaNAsNullJsonConverter))] double J,
+    double Coverage,
+    bool LowCoverage);
+
+/// <summary>Year-to-year variability of one period's mean.</summary>
+/// <param name="Period">annual, djf, mam, jja or son.</param>
+/// <param name="Years">One row per year of the window.</param>
+/// <param name="YearsUsed">Years with enough coverage, used for the coefficients.</param>
+/// <param name="HsCoefficientOfVariation">Sample standard deviation (n - 1) of the yearly means over their mean; NaN (null) with fewer than two years used.</param>
+/// <param name="TeCoefficientOfVariation">As for Hs, of Te.</param>
+/// <param name="JCoefficientOfVariation">As for Hs, of J.</param>
+public sealed record InterAnnualSeries(
+    AtlasPeriod Period,
+    IReadOnlyList<YearlyMeans> Years,
+    int YearsUsed,
+    [property: JsonConverter(typeof(NaNAsNullJsonConverter))] double HsCoefficientOfVariation,
+    [property: JsonConverter(typeof(NaNAsNullJsonConverter))] double TeCoefficientOfVariation,
+    [property: JsonConverter(typeof(NaNAsNullJsonConverter))] double JCoefficientOfVariation);
