@@ -2,8 +2,7 @@ namespace Atlas.Demo;
 
 /// <summary>
 /// The regular latitude/longitude grid laid over <see cref="CoastGeometry.Bounds"/>: cell centres,
-/// the land mask, and for each wet cell its depth, local position, distance to the shore and the
-/// direction the shore faces. Latitudes ascend (south to north), longitudes ascend (west to east);
+/// the land mask, and for each wet cell its depth, local position and distance to the shore. Latitudes ascend (south to north), longitudes ascend (west to east);
 /// a cell's flat index is <c>row * Columns + column</c>.
 /// </summary>
 public sealed class DemoGrid
@@ -13,7 +12,6 @@ public sealed class DemoGrid
     // north and south edges still counts as shore.
     private const double CoastRasterKm = 1.0;
     private const double CoastRasterMarginKm = 60.0;
-    private const double ShoreNormalSofteningKm = 3.0;
 
     /// <summary>Number of longitudes.</summary>
     public int Columns { get; }
@@ -44,12 +42,6 @@ public sealed class DemoGrid
 
     /// <summary>Distance of each wet cell to the nearest shore, km (at least 0.5).</summary>
     public double[] ShoreDistanceKm { get; }
-
-    /// <summary>
-    /// Direction, degrees true, from which a wave arriving square to the local shore comes: the
-    /// azimuth from the nearby shore towards the cell (offshore direction).
-    /// </summary>
-    public double[] ShoreNormalFromDegrees { get; }
 
     /// <summary>Builds the grid and its per-cell geometry.</summary>
     public DemoGrid(int columns, int rows)
@@ -85,7 +77,6 @@ public sealed class DemoGrid
         XKm = new double[n];
         YKm = new double[n];
         ShoreDistanceKm = new double[n];
-        ShoreNormalFromDegrees = new double[n];
         for (int k = 0; k < n; k++)
         {
             int cell = WetCells[k];
@@ -93,9 +84,8 @@ public sealed class DemoGrid
             double y = CoastGeometry.YKm(Latitudes[cell / columns]);
             XKm[k] = x;
             YKm[k] = y;
-            (double distance, double normal) = ShoreDistanceAndNormal(coast, x, y);
+            double distance = ShoreDistance(coast, x, y);
             ShoreDistanceKm[k] = distance;
-            ShoreNormalFromDegrees[k] = normal;
             DepthMetres[k] = Math.Round(CoastGeometry.DepthMetres(distance, x, y), 1);
         }
     }
@@ -141,7 +131,9 @@ public sealed class DemoGrid
         return points;
     }
 
-    private static (double DistanceKm, double NormalFromDegrees) ShoreDistanceAndNormal(List<(double X, double Y)> coast, double x, double y)
+    // Distance to the nearest sampled shore point, less half the raster step (the shore lies
+    // between the last sea and the first land sample).
+    private static double ShoreDistance(List<(double X, double Y)> coast, double x, double y)
     {
         double nearest = double.PositiveInfinity;
         foreach (var (px, py) in coast)
@@ -149,22 +141,6 @@ public sealed class DemoGrid
             double dx = x - px, dy = y - py;
             nearest = Math.Min(nearest, dx * dx + dy * dy);
         }
-        nearest = Math.Sqrt(nearest);
-        // Softened nearest-shore direction: unit vectors from shore points, weighted towards the
-        // nearest ones, so the normal turns smoothly round headlands instead of jumping.
-        double softening = Math.Max(ShoreNormalSofteningKm, 0.25 * nearest);
-        double sumX = 0, sumY = 0;
-        foreach (var (px, py) in coast)
-        {
-            double dx = x - px, dy = y - py, d = Math.Sqrt(dx * dx + dy * dy);
-            double excess = d - nearest;
-            if (excess > 8 * softening || d == 0) continue;
-            double w = Math.Exp(-excess / softening);
-            sumX += w * dx / d;
-            sumY += w * dy / d;
-        }
-        double azimuth = Math.Atan2(sumX, sumY) * 180.0 / Math.PI;
-        if (azimuth < 0) azimuth += 360.0;
-        return (Math.Max(0.5, nearest - 0.5 * CoastRasterKm), azimuth);
+        return Math.Max(0.5, Math.Sqrt(nearest) - 0.5 * CoastRasterKm);
     }
 }

@@ -56,8 +56,8 @@ public sealed class FetchRays
 
     private static double Interpolate(float[] table, int k, double fromDegrees)
     {
-        double position = fromDegrees / SectorDegrees;
-        position -= SectorCount * Math.Floor(position / SectorCount);
+        double position = fromDegrees * (1.0 / SectorDegrees);
+        position -= SectorCount * Math.Floor(position * (1.0 / SectorCount));
         int s0 = (int)position;
         if (s0 >= SectorCount) s0 = 0;
         double f = position - s0;

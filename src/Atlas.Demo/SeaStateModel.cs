@@ -3,8 +3,8 @@ namespace Atlas.Demo;
 /// <summary>
 /// The sea state at any wet cell and instant: the offshore forcing, delayed by its travel across
 /// the grid, is transformed at the cell. The swell is sheltered by land that blocks its
-/// directions (<see cref="ShelterTable"/>), refracted towards the shore normal by Snell's law over
-/// locally straight depth contours and shoaled (<see cref="ShoalingTable"/>); the wind sea grows
+/// directions (<see cref="ShelterTable"/>), refracted towards the open-water direction
+/// (<see cref="ShelterTable.OpenWaterFromDegrees"/>) by Snell's law over locally straight depth contours and shoaled (<see cref="ShoalingTable"/>); the wind sea grows
 /// over the cell's fetch in the wind direction (<see cref="WindSeaGrowth"/>) and shoals. The two
 /// systems are combined (<see cref="SeaStateMix"/>) and the height saturates smoothly below the
 /// depth limit: Hs = Hb tanh(Hs' / Hb), Hb = <see cref="BreakingIndex"/> h, so it never exceeds
@@ -55,7 +55,7 @@ public sealed class SeaStateModel
             _lagHours[k] = grid.XKm[k] / TravelSpeedKmPerHour;
             // Swell energy grows slightly to the north, towards the storm tracks.
             _swellScale[k] = 1.0 + 0.05 * (grid.YKm[k] / yMid - 1.0);
-            (_normalEast[k], _normalNorth[k]) = Math.SinCos(grid.ShoreNormalFromDegrees[k] * Math.PI / 180.0);
+            (_normalEast[k], _normalNorth[k]) = Math.SinCos(_shelter.OpenWaterFromDegrees(k) * Math.PI / 180.0);
         }
     }
 
@@ -88,7 +88,7 @@ public sealed class SeaStateModel
         double swellFrom = f.SwellFromDegrees[i] + w * (f.SwellFromDegrees[i + 1] - f.SwellFromDegrees[i]);
         double swellSpread = Lerp(f.SwellSpread, i, w);
         (double passed, double turn, double spreadRatio) = _shelter.Look(k, swellFrom, swellSpread);
-        double incidence = WrapSigned(swellFrom + turn - _grid.ShoreNormalFromDegrees[k]);
+        double incidence = WrapSigned(swellFrom + turn - _shelter.OpenWaterFromDegrees(k));
         // A swell running along or away from the shore never reaches the cell from deep water:
         // the refraction coefficient falls to zero as the incidence nears 90 degrees.
         if (Math.Abs(incidence) < 90.0)
@@ -129,15 +129,19 @@ public sealed class SeaStateModel
             return new SeaState(0.05, 2.1, 2.3, calmFrom >= 360.0 ? 0.0 : calmFrom, 40.0);
         }
         double limit = BreakingIndex * depth;
-        hs = limit * Math.Tanh(hs / limit);
+        hs = limit * Saturate(hs / limit);
         return new SeaState(hs, te, tp, from, spread);
     }
 
-    private static double WrapSigned(double degrees)
+    // Into [-180, 180]; rounding is an instruction where the remainder operator is a library call.
+    private static double WrapSigned(double degrees) => degrees - 360.0 * Math.Round(degrees * (1.0 / 360.0));
+
+    // tanh(x) for x >= 0; below 0.05 its series to x^5 is exact to double rounding level
+    // (the next term is 17 x^7 / 315 < 4e-11 x), and much cheaper than the library call.
+    private static double Saturate(double x)
     {
-        degrees %= 360.0;
-        if (degrees > 180.0) degrees -= 360.0;
-        else if (degrees <= -180.0) degrees += 360.0;
-        return degrees;
+        if (x >= 0.05) return Math.Tanh(x);
+        double x2 = x * x;
+        return x * (1.0 - x2 * (1.0 / 3.0 - x2 * (2.0 / 15.0)));
     }
 }

@@ -18,7 +18,7 @@ public sealed class ShelterTable
     /// E-folding open-water distance of a blocked sector, km: energy from a direction blocked far
     /// away has partly regrown or wrapped round the obstacle, from one blocked close by it has not.
     /// </summary>
-    public const double RecoveryDistanceKm = 60.0;
+    public const double RecoveryDistanceKm = 150.0;
 
     /// <summary>Smallest energy fraction any direction passes (diffraction round obstacles).</summary>
     public const double DiffractionFloor = 0.01;
@@ -30,11 +30,13 @@ public sealed class ShelterTable
     // Interleaved per entry: energy fraction, turn (degrees), spread ratio; entries ordered by
     // cell, spread class, direction bin, so one look touches four neighbouring triples.
     private readonly float[] _table;
+    private readonly double[] _openWaterFrom;
 
     /// <summary>Builds the table for every wet cell of the fetch rays.</summary>
     public ShelterTable(FetchRays rays, int wetCount)
     {
         _table = new float[wetCount * Stride * 3];
+        _openWaterFrom = new double[wetCount];
         var sinOffset = new double[Bins];
         var cosOffset = new double[Bins];
         for (int s = 0; s < Bins; s++) { sinOffset[s] = Math.Sin(Offset(s)); cosOffset[s] = Math.Cos(Offset(s)); }
@@ -51,13 +53,16 @@ public sealed class ShelterTable
         Parallel.For(0, wetCount, k =>
         {
             Span<double> passed = stackalloc double[Bins];
+            double openEast = 0, openNorth = 0;
             for (int s = 0; s < Bins; s++)
             {
-                double d = rays.DistanceKm(k, s);
-                passed[s] = d >= FetchRays.OpenOceanKm
-                    ? 1.0
-                    : Math.Max(DiffractionFloor, 1.0 - Math.Exp(-d / RecoveryDistanceKm));
+                passed[s] = PassedFraction(rays.DistanceKm(k, s));
+                double azimuth = s * FetchRays.SectorDegrees * Math.PI / 180.0;
+                openEast += passed[s] * Math.Sin(azimuth);
+                openNorth += passed[s] * Math.Cos(azimuth);
             }
+            double open = Math.Atan2(openEast, openNorth) * 180.0 / Math.PI;
+            _openWaterFrom[k] = open < 0 ? open + 360.0 : open;
             for (int c = 0; c < Classes; c++)
             {
                 double[] w = weights[c];
@@ -90,8 +95,8 @@ public sealed class ShelterTable
     /// </summary>
     public (double EnergyFraction, double TurnDegrees, double SpreadRatio) Look(int k, double fromDegrees, double spreadDegrees)
     {
-        double position = fromDegrees / FetchRays.SectorDegrees;
-        position -= Bins * Math.Floor(position / Bins);
+        double position = fromDegrees * (1.0 / FetchRays.SectorDegrees);
+        position -= Bins * Math.Floor(position * (1.0 / Bins));
         int b0 = (int)position;
         if (b0 >= Bins) b0 = 0;
         double f = position - b0;
@@ -108,6 +113,24 @@ public sealed class ShelterTable
         }
         return (Blend(0), Blend(1), Blend(2));
     }
+
+    /// <summary>
+    /// The energy fraction a direction sector passes when land lies <paramref name="distanceKm"/>
+    /// away along it: 1 for open ocean, otherwise 1 - exp(-d / <see cref="RecoveryDistanceKm"/>),
+    /// never below <see cref="DiffractionFloor"/>.
+    /// </summary>
+    public static double PassedFraction(double distanceKm) =>
+        distanceKm >= FetchRays.OpenOceanKm
+            ? 1.0
+            : Math.Max(DiffractionFloor, 1.0 - Math.Exp(-distanceKm / RecoveryDistanceKm));
+
+    /// <summary>
+    /// The direction (degrees true, coming from) of the open water in front of wet cell k: the
+    /// mean of all directions weighted by the energy each passes. Deep water lies that way, so it
+    /// stands for the normal of the depth contours that refract the swell, also in channels and
+    /// bays where the nearest shore would point the wrong way.
+    /// </summary>
+    public double OpenWaterFromDegrees(int k) => _openWaterFrom[k];
 
     private static double Offset(int s) => (s - Bins / 2) * FetchRays.SectorDegrees * Math.PI / 180.0;
 

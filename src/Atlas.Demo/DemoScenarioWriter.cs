@@ -1,0 +1,100 @@
+using System.Diagnostics;
+using System.Threading.Channels;
+
+namespace Atlas.Demo;
+
+/// <summary>
+/// Generates the whole demo into a folder: one CF NetCDF-4 hindcast file per calendar month
+/// (<c>skelvane-reach-YYYY-MM.nc</c>), the two buoy records (CSV), the device power matrix (CSV),
+/// the station list (<c>stations.csv</c>) and the manifest (<c>scenario.json</c>). Existing files
+/// of the same names are replaced; nothing else in the folder is touched. Months are generated in
+/// parallel over cells while the previous month is being written, and netCDF-C writes one file at
+/// a time.
+/// </summary>
+public static class DemoScenarioWriter
+{
+    /// <summary>Writes the scenario <paramref name="options"/> select (the full demo when null) into <paramref name="outputFolder"/>.</summary>
+    public static DemoScenarioOutput Write(string outputFolder, DemoScenarioOptions? options = null, IProgress<DemoProgress>? progress = null)
+    {
+        ArgumentException.ThrowIfNullOrWhiteSpace(outputFolder);
+        options ??= DemoScenarioOptions.Full;
+        options.Validate();
+        var clock = Stopwatch.StartNew();
+        string folder = Path.GetFullPath(outputFolder);
+        Directory.CreateDirectory(folder);
+
+        var grid = new DemoGrid(options.Columns, options.Rows);
+        var scenario = DemoScenario.Describe(options, grid);
+        var model = new SeaStateModel(grid, new OffshoreForcing(options.Seed, options.Start, options.End));
+        int total = scenario.FieldFiles.Count + scenario.Buoys.Count + 3;
+        int done = 0;
+        var files = new List<DemoFile>();
+        void Report(string name)
+        {
+            files.Add(new DemoFile(name, new FileInfo(Path.Combine(folder, name)).Length));
+            progress?.Report(new DemoProgress(++done, total, name));
+        }
+
+        WriteFields(folder, options, scenario, grid, model, Report);
+
+        foreach (var (buoy, cell, stream) in DemoStations.Place(grid, options.BuoyIntervalMinutes))
+        {
+            var rows = BuoyRecordSimulator.Simulate(model, cell, buoy, options.Start, options.End, new Xoshiro256StarStar(options.Seed, stream));
+            BuoyRecordCsvWriter.Write(Path.Combine(folder, buoy.FileName), rows);
+            Report(buoy.FileName);
+        }
+        PowerMatrixCsvWriter.Write(Path.Combine(folder, scenario.Device.FileName), DemoStations.DevicePowerMatrix());
+        Report(scenario.Device.FileName);
+        DemoManifestWriter.WriteStationList(Path.Combine(folder, DemoScenario.StationListFileName), scenario);
+        Report(DemoScenario.StationListFileName);
+        DemoManifestWriter.WriteManifest(Path.Combine(folder, DemoScenario.ManifestFileName), scenario);
+        Report(DemoScenario.ManifestFileName);
+        return new DemoScenarioOutput(folder, scenario, files, clock.Elapsed);
+    }
+
+    private static void WriteFields(string folder, DemoScenarioOptions options, DemoScenario scenario, DemoGrid grid, SeaStateModel model, Action<string> report)
+    {
+        // One month waits while the previous one is written: two months in memory at most.
+        var queue = Channel.CreateBounded<MonthlyFields>(new BoundedChannelOptions(1) { SingleReader = true, SingleWriter = true });
+        var writing = Task.Run(async () =>
+        {
+            try
+            {
+                await foreach (var fields in queue.Reader.ReadAllAsync().ConfigureAwait(false))
+                {
+                    string name = DemoScenario.FieldFileName(fields.Month);
+                    MonthlyHindcastFileWriter.Write(Path.Combine(folder, name), scenario, grid, fields);
+                    report(name);
+                }
+            }
+            catch (Exception failure)
+            {
+                // Closing the channel releases a producer waiting for room.
+                queue.Writer.TryComplete(failure);
+                throw;
+            }
+        });
+        try
+        {
+            for (int m = 0; m < options.Months; m++)
+            {
+                var fields = MonthlyFields.Generate(model, options.Start.AddMonths(m), options.StepHours);
+                fields.RoundToSignificantBits(MonthlyHindcastFileWriter.KeptMantissaBits);
+                try
+                {
+                    queue.Writer.WriteAsync(fields).AsTask().GetAwaiter().GetResult();
+                }
+                catch (ChannelClosedException)
+                {
+                    // The writer failed; its own exception is rethrown below.
+                    break;
+                }
+            }
+        }
+        finally
+        {
+            queue.Writer.TryComplete();
+        }
+        writing.GetAwaiter().GetResult();
+    }
+}
