@@ -19,18 +19,18 @@ public static class DatasetMetadata
             };
         }
         if (hasDepth) variables["depth"] = new JsonObject { ["units"] = "m" };
-        var first = files[0].File;
+        var first = files[0];
         var json = new JsonObject
         {
             ["variables"] = variables,
             ["stored_variable_mask"] = mask,
             ["storage"] = "16-bit fixed-step packing per value (Hs 1 mm; Te, Tp 0.01 s; direction and spread 0.01 degree), one row per cell and year",
-            ["source_title"] = first.Title,
-            ["source_institution"] = first.GlobalAttribute("institution"),
-            ["source_description"] = first.GlobalAttribute("source"),
-            ["source_comment"] = first.GlobalAttribute("comment"),
-            ["licence"] = first.GlobalAttribute("license") ?? first.GlobalAttribute("licence") ?? "not stated in the source files",
-            ["citation"] = first.GlobalAttribute("references") ?? first.GlobalAttribute("citation"),
+            ["source_title"] = first.Attribute("title"),
+            ["source_institution"] = first.Attribute("institution"),
+            ["source_description"] = first.Attribute("source"),
+            ["source_comment"] = first.Attribute("comment"),
+            ["licence"] = first.Attribute("license") ?? first.Attribute("licence") ?? "not stated in the source files",
+            ["citation"] = first.Attribute("references") ?? first.Attribute("citation"),
             ["depth_note"] = hasDepth
                 ? "finite-depth power from the cell depth"
                 : "the source has no depth: power is computed for deep water",

@@ -82,7 +82,7 @@ public sealed class HindcastIngestor(NpgsqlDataSource dataSource)
 
         var created = dataset is null;
         var datasetId = dataset?.Id ?? await DatasetStore.InsertAsync(connection, transaction, request.DatasetSlug,
-            request.Title ?? fresh[0].File.Title ?? request.DatasetSlug, grid.Kind, grid.Nx, grid.Ny, grid.PointCount,
+            request.Title ?? fresh[0].Attribute("title") ?? request.DatasetSlug, grid.Kind, grid.Nx, grid.Ny, grid.PointCount,
             grid.ToJson(), "{}", cancel);
 
         var depth = fresh[0].File.Has(WaveVariable.Depth) ? fresh[0].File.ReadDepth() : null;

@@ -6,8 +6,9 @@ namespace Atlas.Ingest.Ingestion;
 /// <summary>An opened hindcast file with its checksum and time line (Unix seconds).</summary>
 public sealed class SourceFile : IDisposable
 {
-    private SourceFile(HindcastFile file, string sha256, long sizeBytes)
+    private SourceFile(HindcastFile file, string sha256, long sizeBytes, IReadOnlyDictionary<string, string> attributes)
     {
+        Attributes = attributes;
         File = file;
         Sha256 = sha256;
         SizeBytes = sizeBytes;
@@ -20,6 +21,11 @@ public sealed class SourceFile : IDisposable
     public long SizeBytes { get; }
     public long[] Times { get; }
 
+    /// <summary>The file's global text attributes (title, institution, source, history, license, ...).</summary>
+    public IReadOnlyDictionary<string, string> Attributes { get; }
+
+    public string? Attribute(string name) => Attributes.GetValueOrDefault(name);
+
     /// <summary>Opens and decodes a file, and checksums its bytes (SHA-256, streamed).</summary>
     public static SourceFile Open(string path, VariableMapping? mapping)
     {
@@ -28,12 +34,15 @@ public sealed class SourceFile : IDisposable
         using (var stream = new FileStream(path, FileMode.Open, FileAccess.Read, FileShare.Read, 1 << 20))
             sha = Convert.ToHexStringLower(SHA256.HashData(stream));
         var file = HindcastFile.Open(path, mapping);
+        Dictionary<string, string> attributes;
+        using (var raw = NetCdfFile.Open(path))
+            attributes = raw.GlobalAttributes.Where(a => a.IsText).ToDictionary(a => a.Name, a => a.Text!, StringComparer.OrdinalIgnoreCase);
         if (file.TimesUtc.Count == 0)
         {
             file.Dispose();
             throw new IngestException($"{Path.GetFileName(path)}: the time axis is empty; there is nothing to load.");
         }
-        return new SourceFile(file, sha, new FileInfo(path).Length);
+        return new SourceFile(file, sha, new FileInfo(path).Length, attributes);
     }
 
     public void Dispose() => File.Dispose();

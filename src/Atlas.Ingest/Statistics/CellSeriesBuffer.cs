@@ -1,0 +1,55 @@
+using Atlas.Statistics;
+using Atlas.Storage.Series;
+
+namespace Atlas.Ingest.Statistics;
+
+/// <summary>
+/// One cell's full series on the dataset time line, decoded from its yearly chunks into reusable arrays
+/// (NaN where a year has no chunk or a step is missing).
+/// </summary>
+public sealed class CellSeriesBuffer
+{
+    private readonly float[][] _values;
+    private readonly bool[] _present = new bool[SeriesCodec.VariableCount];
+
+    public CellSeriesBuffer(int stepCount)
+    {
+        _values = new float[SeriesCodec.VariableCount][];
+        for (var v = 0; v < _values.Length; v++) _values[v] = new float[stepCount];
+    }
+
+    public int CellId { get; private set; }
+    public double DepthMetres { get; private set; }
+
+    /// <summary>Fills the buffer from the cell's chunks; <paramref name="yearOffsets"/> gives each year's first step.</summary>
+    public void Fill(int cellId, double depthMetres, IReadOnlyList<SeriesChunk> chunks, IReadOnlyDictionary<int, (int Offset, int Count)> yearOffsets)
+    {
+        CellId = cellId;
+        DepthMetres = depthMetres;
+        Array.Clear(_present);
+        foreach (var values in _values) values.AsSpan().Fill(float.NaN);
+        foreach (var chunk in chunks)
+        {
+            if (!yearOffsets.TryGetValue(chunk.Year, out var place)) continue;
+            var steps = SeriesCodec.StepCountOf(chunk.Payload);
+            if (steps != place.Count)
+                throw new InvalidDataException($"Cell {cellId}, year {chunk.Year}: the chunk has {steps} steps but the year's time line has {place.Count}.");
+            for (var v = 0; v < SeriesCodec.VariableCount; v++)
+                if (SeriesCodec.Decode(chunk.Payload, (SeriesVariable)v, _values[v].AsSpan(place.Offset, steps)))
+                    _present[v] = true;
+        }
+    }
+
+    public CellSeries AsSeries(long[] times) => new()
+    {
+        Times = times,
+        Hs = _values[(int)SeriesVariable.Hs],
+        Te = _present[(int)SeriesVariable.Te] ? _values[(int)SeriesVariable.Te] : ReadOnlySpan<float>.Empty,
+        Tp = _present[(int)SeriesVariable.Tp] ? _values[(int)SeriesVariable.Tp] : ReadOnlySpan<float>.Empty,
+        Dir = _present[(int)SeriesVariable.Dir] ? _values[(int)SeriesVariable.Dir] : ReadOnlySpan<float>.Empty,
+        Spread = _present[(int)SeriesVariable.Spread] ? _values[(int)SeriesVariable.Spread] : ReadOnlySpan<float>.Empty,
+        DepthMetres = UsableDepth(DepthMetres),
+    };
+
+    private static double UsableDepth(double depth) => depth > 0 ? depth : double.NaN;
+}

@@ -1,0 +1,163 @@
+using System.Diagnostics;
+using System.Text.Json.Nodes;
+using System.Threading.Channels;
+using Atlas.Ingest.Ingestion;
+using Atlas.Ingest.Progress;
+using Atlas.Statistics;
+using Atlas.Storage.Cells;
+using Atlas.Storage.Datasets;
+using Atlas.Storage.Series;
+using Atlas.Storage.Statistics;
+using Npgsql;
+
+namespace Atlas.Ingest.Statistics;
+
+/// <summary>
+/// Computes and stores the statistics of a dataset's cells whose series changed since they were last computed
+/// (or of all cells). One streaming pass: chunks come out of PostgreSQL by binary COPY ordered by cell, each cell's
+/// series is assembled once, a calculator per core computes every period, and rows go back by binary COPY in
+/// batches. Memory is bounded by the number of cell buffers in flight, whatever the dataset size.
+/// </summary>
+public sealed class StatisticsService(NpgsqlDataSource dataSource, StatisticsOptions? options = null)
+{
+    private readonly StatisticsOptions _options = options ?? new StatisticsOptions();
+    private const int CellsPerBatch = 2000;
+
+    public async Task<StatisticsSummary> RunAsync(string slug, bool all, IProgress<ProgressSnapshot>? progress = null, CancellationToken cancel = default)
+    {
+        var clock = Stopwatch.StartNew();
+        var datasets = new DatasetStore(dataSource);
+        var dataset = await datasets.FindAsync(slug, cancel) ?? throw new IngestException($"There is no dataset '{slug}'.");
+        var statistics = new StatisticsStore(dataSource);
+        var cells = (await new CellStore(dataSource).AllAsync(dataset.Id, cancel)).Where(c => c.Wet).ToDictionary(c => c.CellId);
+        var targets = all ? cells.Keys.Order().ToArray() : await statistics.StaleCellsAsync(dataset.Id, cancel);
+        if (targets.Length == 0) return new StatisticsSummary(slug, 0, 0, 0, 0, clock.Elapsed);
+
+        var timelines = await datasets.TimelinesAsync(dataset.Id, cancel);
+        var times = timelines.Values.SelectMany(t => t).ToArray();
+        var offsets = new Dictionary<int, (int, int)>();
+        var offset = 0;
+        foreach (var (year, line) in timelines) { offsets[year] = (offset, line.Length); offset += line.Length; }
+
+        var workers = Math.Max(1, Environment.ProcessorCount);
+        var free = Channel.CreateUnbounded<CellSeriesBuffer>();
+        for (var i = 0; i < 2 * workers + 2; i++) free.Writer.TryWrite(new CellSeriesBuffer(times.Length));
+        var work = Channel.CreateBounded<CellSeriesBuffer>(workers * 2);
+        var results = Channel.CreateBounded<(int Cell, List<StatisticRow> Rows)>(workers * 4);
+        using var linked = CancellationTokenSource.CreateLinkedTokenSource(cancel);
+        var token = linked.Token;
+
+        var producer = Task.Run(async () =>
+        {
+            try
+            {
+                var onlyCells = targets.Length == cells.Count ? null : targets;
+                var pending = new List<SeriesChunk>();
+                var current = -1;
+                await foreach (var chunk in new SeriesStore(dataSource).StreamAsync(dataset.Id, onlyCells, token))
+                {
+                    if (chunk.CellId != current && pending.Count > 0)
+                        await DispatchAsync(current, pending);
+                    current = chunk.CellId;
+                    pending.Add(chunk);
+                }
+                if (pending.Count > 0) await DispatchAsync(current, pending);
+                work.Writer.Complete();
+            }
+            catch (Exception e)
+            {
+                work.Writer.Complete(e);
+                throw;
+            }
+
+            async Task DispatchAsync(int cellId, List<SeriesChunk> chunks)
+            {
+                if (cells.TryGetValue(cellId, out var cell))
+                {
+                    var buffer = await free.Reader.ReadAsync(token);
+                    buffer.Fill(cellId, cell.DepthMetres ?? double.NaN, chunks, offsets);
+                    await work.Writer.WriteAsync(buffer, token);
+                }
+                chunks.Clear();
+            }
+        }, token);
+
+        var calculators = Enumerable.Range(0, workers).Select(_ => Task.Run(async () =>
+        {
+            var calculator = new CellStatisticsCalculator(_options);
+            await foreach (var buffer in work.Reader.ReadAllAsync(token))
+            {
+                var rows = new List<StatisticRow>(160);
+                StatisticRows.Append(buffer.CellId, calculator.Compute(buffer.AsSeries(times)), rows);
+                var cellId = buffer.CellId;
+                free.Writer.TryWrite(buffer);
+                await results.Writer.WriteAsync((cellId, rows), token);
+            }
+        }, token)).ToArray();
+        var closer = Task.WhenAll(calculators).ContinueWith(t => results.Writer.Complete(t.Exception), TaskScheduler.Default);
+
+        var computedAt = DateTime.UtcNow;
+        var batchCells = new List<int>(CellsPerBatch);
+        var batchRows = new List<StatisticRow>(CellsPerBatch * 160);
+        long rowCount = 0;
+        var done = 0;
+        var periodCodes = new HashSet<short>();
+        try
+        {
+            await foreach (var (cell, rows) in results.Reader.ReadAllAsync(token))
+            {
+                batchCells.Add(cell);
+                batchRows.AddRange(rows);
+                foreach (var row in rows) periodCodes.Add(row.Period);
+                if (batchCells.Count >= CellsPerBatch) await FlushAsync();
+            }
+            await FlushAsync();
+            await producer;
+            await Task.WhenAll(calculators);
+            await closer;
+        }
+        catch
+        {
+            await linked.CancelAsync();
+            throw;
+        }
+
+        await datasets.MergeMetadataAsync(dataset.Id, MethodNotes(computedAt), cancel);
+        return new StatisticsSummary(slug, done, periodCodes.Count, rowCount, (long)done * times.Length, clock.Elapsed);
+
+        async Task FlushAsync()
+        {
+            if (batchCells.Count == 0) return;
+            await statistics.ReplaceAsync(dataset.Id, batchCells, batchRows, computedAt, token);
+            done += batchCells.Count;
+            rowCount += batchRows.Count;
+            batchCells.Clear();
+            batchRows.Clear();
+            progress?.Report(new ProgressSnapshot("statistics", done, targets.Length, 0, clock.Elapsed, "cells"));
+        }
+    }
+
+    private string MethodNotes(DateTime computedAt)
+    {
+        var notes = new JsonObject
+        {
+            ["statistics"] = new JsonObject
+            {
+                ["computed_at"] = computedAt.ToString("O"),
+                ["software_version"] = typeof(StatisticsService).Assembly.GetName().Version?.ToString(),
+                ["power"] = "omnidirectional power per time step from Hm0 and Te with the linear-theory group velocity at Te and the cell depth " +
+                            "(rho 1025 kg/m3, g 9.81 m/s2; deep water where the depth is unknown), then averaged; never from mean Hs and mean Te",
+                ["energy_period"] = $"Te from the source; where absent, Te = ratio x Tp for the assumed spectrum ({_options.AssumedSpectrum})",
+                ["direction"] = "power-weighted circular mean of the direction waves come from; 16-sector power rose",
+                ["percentiles_layers"] = $"from fixed-bin histograms: Hs {_options.HsBinning.BinWidth} m, Te/Tp {_options.PeriodBinning.BinWidth} s, " +
+                                         $"J {_options.PowerBinning.BinWidth} kW/m, spread {_options.SpreadBinning.BinWidth} degree, d {_options.DirectionalityBinning.BinWidth}",
+                ["percentiles_points"] = "exact, from the stored series (linear interpolation between order statistics, NumPy's default)",
+                ["coverage"] = $"valid steps over the steps of the period; periods below {_options.LowCoverageThreshold:P0} are flagged",
+                ["hs_thresholds_m"] = new JsonArray(_options.HsThresholdsMetres.Select(v => (JsonNode)JsonValue.Create(v)).ToArray()),
+                ["j_thresholds_kw_per_m"] = new JsonArray(_options.PowerThresholdsKilowattsPerMetre.Select(v => (JsonNode)JsonValue.Create(v)).ToArray()),
+                ["seasons"] = "DJF, MAM, JJA, SON gather their calendar months (UTC) across all years",
+            },
+        };
+        return notes.ToJsonString();
+    }
+}

@@ -1,0 +1,189 @@
+using Atlas.Hindcast;
+using Atlas.Ingest.Ingestion;
+using Atlas.Storage.Series;
+using Atlas.TestSupport;
+using Npgsql;
+
+namespace Atlas.Ingest.Tests;
+
+public class IngestTests(TestDatabase database) : IClassFixture<TestDatabase>
+{
+    private const int Nx = 6, Ny = 5;
+
+    private HindcastIngestor Ingestor => new(database.DataSource);
+
+    [Theory]
+    [InlineData("NETCDF4", "")]
+    [InlineData("NETCDF4", "--packed")]
+    [InlineData("NETCDF3_CLASSIC", "")]
+    [InlineData("NETCDF3_64BIT_OFFSET", "--packed")]
+    public async Task StoredValuesEqualTheFileWithinTheQuantisation(string format, string packing)
+    {
+        var slug = $"roundtrip-{format.ToLowerInvariant().Replace('_', '-')}{(packing.Length > 0 ? "-packed" : "")}";
+        var file = FixtureFiles.Make($"{slug}.nc", 0, 40, $"--format {format} {packing}");
+        var summary = await Ingestor.RunAsync(new IngestRequest(slug, [file]));
+        Assert.Equal(1, summary.FilesLoaded);
+        Assert.Equal(Nx * Ny - 1, summary.WetCells);
+
+        var dataset = (await new Storage.Datasets.DatasetStore(database.DataSource).FindAsync(slug))!;
+        var cells = await new Storage.Cells.CellStore(database.DataSource).AllAsync(dataset.Id);
+        Assert.False(cells.Single(c => c.CellId == 0).Wet);
+        var series = new SeriesStore(database.DataSource);
+        // Packed fixtures were themselves rounded to 0.001 m / 0.01 s / 0.01 degree by netCDF4-python.
+        var tolerance = packing.Length > 0 ? (hs: 0.0011, period: 0.011, dir: 0.011) : (hs: 0.0006, period: 0.0051, dir: 0.0051);
+        foreach (var (j, i) in new[] { (1, 0), (4, 5), (2, 3), (0, 1) })
+        {
+            var cell = cells.Single(c => c.CellId == j * Nx + i);
+            Assert.Equal(-20.0 + 0.1 * i, cell.Longitude, 5);
+            Assert.Equal(50.0 + 0.1 * j, cell.Latitude, 5);
+            Assert.Equal(5.0 + 10.0 * i, cell.DepthMetres!.Value, 3);
+            var chunk = (await series.ReadCellAsync(dataset.Id, cell.CellId)).Single();
+            var n = SeriesCodec.StepCountOf(chunk.Payload);
+            Assert.Equal(40, n);
+            float[] hs = new float[n], te = new float[n], tp = new float[n], dir = new float[n], spread = new float[n];
+            SeriesCodec.Decode(chunk.Payload, SeriesVariable.Hs, hs);
+            SeriesCodec.Decode(chunk.Payload, SeriesVariable.Te, te);
+            SeriesCodec.Decode(chunk.Payload, SeriesVariable.Tp, tp);
+            SeriesCodec.Decode(chunk.Payload, SeriesVariable.Dir, dir);
+            SeriesCodec.Decode(chunk.Payload, SeriesVariable.Spread, spread);
+            for (var s = 0; s < n; s++)
+            {
+                var e = FixtureFiles.Expected(3.0 * s, j, i);
+                Assert.InRange(hs[s], e.Hs - tolerance.hs, e.Hs + tolerance.hs);
+                Assert.InRange(te[s], e.Te - tolerance.period, e.Te + tolerance.period);
+                Assert.InRange(tp[s], e.Tp - tolerance.period, e.Tp + tolerance.period);
+                Assert.InRange(spread[s], e.Spread - tolerance.dir, e.Spread + tolerance.dir);
+                var d = Math.Abs(dir[s] - e.Dir);
+                Assert.True(Math.Min(d, 360 - d) <= tolerance.dir, $"direction {dir[s]} vs {e.Dir}");
+            }
+        }
+    }
+
+    [Fact]
+    public async Task IngestingTheSameFileAgainChangesNothing()
+    {
+        var file = FixtureFiles.Make("again.nc", 0, 16);
+        await Ingestor.RunAsync(new IngestRequest("again", [file]));
+        var before = await CountsAsync("again");
+        var second = await Ingestor.RunAsync(new IngestRequest("again", [file]));
+        Assert.Equal(0, second.FilesLoaded);
+        Assert.Equal(1, second.FilesSkipped);
+        Assert.Contains("nothing new", second.Describe());
+        Assert.Equal(before, await CountsAsync("again"));
+    }
+
+    [Fact]
+    public async Task MonthlyFilesOfOneYearJoinIntoOneChunkPerCell()
+    {
+        var january = FixtureFiles.Make("join-jan.nc", 0, 8);
+        var february = FixtureFiles.Make("join-feb.nc", 31 * 24, 8);
+        await Ingestor.RunAsync(new IngestRequest("join", [january]));
+        await Ingestor.RunAsync(new IngestRequest("join", [february]));
+        var dataset = (await new Storage.Datasets.DatasetStore(database.DataSource).FindAsync("join"))!;
+        var timeline = (await new Storage.Datasets.DatasetStore(database.DataSource).TimelinesAsync(dataset.Id))[2020];
+        Assert.Equal(16, timeline.Length);
+        var chunk = (await new SeriesStore(database.DataSource).ReadCellAsync(dataset.Id, 1 * Nx + 2)).Single();
+        var hs = new float[16];
+        SeriesCodec.Decode(chunk.Payload, SeriesVariable.Hs, hs);
+        Assert.Equal(FixtureFiles.Expected(0, 1, 2).Hs, hs[0], 3);
+        Assert.Equal(FixtureFiles.Expected(31 * 24 + 3, 1, 2).Hs, hs[9], 3);
+    }
+
+    [Fact]
+    public async Task AFileOverlappingStoredStepsIsRefusedUnlessReplacing()
+    {
+        var first = FixtureFiles.Make("overlap-a.nc", 0, 10);
+        var overlapping = FixtureFiles.Make("overlap-b.nc", 15, 10, "--lon0 -20");
+        await Ingestor.RunAsync(new IngestRequest("overlap", [first]));
+        var before = await CountsAsync("overlap");
+        var error = await Assert.ThrowsAsync<IngestException>(() => Ingestor.RunAsync(new IngestRequest("overlap", [overlapping])));
+        Assert.Contains("overlap-b.nc", error.Message);
+        Assert.Contains("--replace", error.Message);
+        Assert.Equal(before, await CountsAsync("overlap"));
+        var replaced = await Ingestor.RunAsync(new IngestRequest("overlap", [overlapping], ReplaceOverlap: true));
+        Assert.Equal(1, replaced.FilesLoaded);
+        var dataset = (await new Storage.Datasets.DatasetStore(database.DataSource).FindAsync("overlap"))!;
+        var timeline = (await new Storage.Datasets.DatasetStore(database.DataSource).TimelinesAsync(dataset.Id))[2020];
+        Assert.Equal(15, timeline.Length); // steps 0..27 h and 15..42 h at 3 h: 0,3,...,42
+    }
+
+    [Fact]
+    public async Task AMissingHsVariableIsNamedAndNothingIsStored()
+    {
+        var file = FixtureFiles.Make("no-hs.nc", 0, 4, "--no-hs");
+        var error = await Assert.ThrowsAnyAsync<Exception>(() => Ingestor.RunAsync(new IngestRequest("no-hs", [file])));
+        Assert.Contains("no-hs.nc", error.Message);
+        Assert.Contains("sea_surface_wave_significant_height", error.Message);
+        Assert.Null(await new Storage.Datasets.DatasetStore(database.DataSource).FindAsync("no-hs"));
+    }
+
+    [Fact]
+    public async Task AFileOnAnotherGridIsRefusedAndTheStoredDatasetIsUntouched()
+    {
+        await Ingestor.RunAsync(new IngestRequest("grids", [FixtureFiles.Make("grid-a.nc", 0, 4)]));
+        var before = await CountsAsync("grids");
+        var shifted = FixtureFiles.Make("grid-b.nc", 100, 4, "--lon0 -19");
+        var error = await Assert.ThrowsAsync<IngestException>(() => Ingestor.RunAsync(new IngestRequest("grids", [shifted])));
+        Assert.Contains("grid-b.nc", error.Message);
+        Assert.Contains("grid", error.Message);
+        Assert.Equal(before, await CountsAsync("grids"));
+    }
+
+    [Fact]
+    public async Task ATruncatedFileIsRefusedByName()
+    {
+        var good = FixtureFiles.Make("truncated.nc", 0, 50);
+        var bytes = await File.ReadAllBytesAsync(good);
+        await File.WriteAllBytesAsync(good, bytes[..(bytes.Length / 3)]);
+        var error = await Assert.ThrowsAnyAsync<Exception>(() => Ingestor.RunAsync(new IngestRequest("truncated", [good])));
+        Assert.Contains("truncated.nc", error.Message);
+        Assert.Null(await new Storage.Datasets.DatasetStore(database.DataSource).FindAsync("truncated"));
+    }
+
+    [Fact]
+    public async Task ANegativeWaveHeightFailsTheWholeFileAndStoresNothing()
+    {
+        var file = FixtureFiles.Make("negative.nc", 0, 4, "--negative-hs");
+        var error = await Assert.ThrowsAsync<IngestException>(() => Ingestor.RunAsync(new IngestRequest("negative", [file])));
+        Assert.Contains("negative.nc", error.Message);
+        Assert.Contains("Hs", error.Message);
+        Assert.Null(await new Storage.Datasets.DatasetStore(database.DataSource).FindAsync("negative"));
+    }
+
+    [Fact]
+    public async Task ACancelledIngestLeavesNothingVisibleAndCanBeRunAgain()
+    {
+        var file = FixtureFiles.Make("cancelled.nc", 0, 200);
+        using var cancel = new CancellationTokenSource();
+        var progress = new CancelOnStage("loading", cancel);
+        await Assert.ThrowsAnyAsync<OperationCanceledException>(() =>
+            Ingestor.RunAsync(new IngestRequest("cancelled", [file], MemoryBudgetBytes: 4096), progress, cancel.Token));
+        Assert.Null(await new Storage.Datasets.DatasetStore(database.DataSource).FindAsync("cancelled"));
+        var summary = await Ingestor.RunAsync(new IngestRequest("cancelled", [file]));
+        Assert.Equal(1, summary.FilesLoaded);
+        Assert.Equal(200, summary.StepsLoaded);
+    }
+
+    private sealed class CancelOnStage(string stage, CancellationTokenSource cancel) : IProgress<Progress.ProgressSnapshot>
+    {
+        public void Report(Progress.ProgressSnapshot value)
+        {
+            if (value.Stage.StartsWith(stage) && value.Done > 0) cancel.Cancel();
+        }
+    }
+
+    private async Task<(long Chunks, long Cells, long Files, string Payloads)> CountsAsync(string slug)
+    {
+        await using var command = database.DataSource.CreateCommand("""
+            SELECT (SELECT count(*) FROM series_chunk k WHERE k.dataset_id = d.dataset_id),
+                   (SELECT count(*) FROM cell c WHERE c.dataset_id = d.dataset_id),
+                   (SELECT count(*) FROM source_file f WHERE f.dataset_id = d.dataset_id),
+                   (SELECT md5(string_agg(md5(payload), '' ORDER BY cell_id, year)) FROM series_chunk k WHERE k.dataset_id = d.dataset_id)
+              FROM dataset d WHERE slug = $1
+            """);
+        command.Parameters.AddWithValue(slug);
+        await using var reader = await command.ExecuteReaderAsync();
+        await reader.ReadAsync();
+        return (reader.GetInt64(0), reader.GetInt64(1), reader.GetInt64(2), reader.GetString(3));
+    }
+}

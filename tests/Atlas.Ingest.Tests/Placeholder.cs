@@ -1,1 +1,0 @@
-namespace Atlas.Ingest.Tests; public class Placeholder { [Fact] public void Builds() { } }
