@@ -42,16 +42,20 @@ public sealed partial class NetCdfFixtures : IDisposable
     ];
 
     private readonly Lazy<JsonDocument> _readBack;
+    private readonly List<string> _generated = [];
 
     public NetCdfFixtures()
     {
         Directory = System.IO.Path.Combine(System.IO.Path.GetTempPath(), "atlas-hindcast-tests-" + Guid.NewGuid().ToString("N")[..12]);
         System.IO.Directory.CreateDirectory(Directory);
-        foreach (var (cdl, kinds) in Builds)
-            foreach (var kind in kinds) Compile(cdl, kind);
-        ExternalTool.Run(ExternalTool.Python, [Source("make_compressed.py"), Path("compressed"), CompressedSourceJson]);
+        var python = Task.Run(() => ExternalTool.Run(ExternalTool.Python, [Source("make_compressed.py"), Path("compressed"), CompressedSourceJson]));
+        var builds = Builds.SelectMany(b => b.Kinds.Select(kind => (b.Cdl, Kind: kind))).ToList();
+        Parallel.ForEach(builds, new ParallelOptions { MaxDegreeOfParallelism = 4 }, b => Compile(b.Cdl, b.Kind));
+        _generated.AddRange(builds.Select(b => Path($"{b.Cdl}.{b.Kind}")));
+        python.GetAwaiter().GetResult();
+        _generated.Add(Path("compressed"));
         _readBack = new Lazy<JsonDocument>(() => JsonDocument.Parse(
-            ExternalTool.Run(ExternalTool.Python, [Source("read_back.py"), .. System.IO.Directory.GetFiles(Directory, "*.nc")])));
+            ExternalTool.Run(ExternalTool.Python, [Source("read_back.py"), .. _generated])));
     }
 
     public string Directory { get; }
