@@ -1,1 +1,0 @@
-namespace Atlas.Statistics.Tests; public class Placeholder { [Fact] public void Builds() { } }
