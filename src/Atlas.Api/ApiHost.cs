@@ -1,12 +1,24 @@
+using Atlas.Api.Apis;
+using Atlas.Api.Infrastructure;
+
 namespace Atlas.Api;
 
+/// <summary>Builds the atlas web application: services, middleware, the endpoints and the map page.</summary>
 public static class ApiHost
 {
     public static WebApplication Build(string[] args)
     {
         var builder = WebApplication.CreateBuilder(args);
+        builder.AddAtlasApi();
         var app = builder.Build();
-        app.MapGet("/healthz", () => "ok");
+        app.UseAtlasPipeline();
+        app.MapHealthApi();
+        app.MapDatasetApi();
+        app.MapPointApi();
+        app.MapLayerApi();
+        app.MapAreaApi();
+        app.MapScreeningApi();
+        app.MapAdminApi();
         return app;
     }
 }

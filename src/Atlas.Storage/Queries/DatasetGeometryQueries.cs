@@ -37,6 +37,17 @@ public sealed class DatasetGeometryQueries(NpgsqlDataSource dataSource)
         return await command.ExecuteScalarAsync(cancel) is double d ? d : null;
     }
 
+    /// <summary>The envelope of the wet cells (dataset.extent), or null before any cell is loaded.</summary>
+    public async Task<(double West, double South, double East, double North)?> ExtentAsync(int datasetId, CancellationToken cancel = default)
+    {
+        await using var command = dataSource.CreateCommand(
+            "SELECT ST_XMin(extent), ST_YMin(extent), ST_XMax(extent), ST_YMax(extent) FROM dataset WHERE dataset_id = $1 AND extent IS NOT NULL");
+        command.Parameters.AddWithValue(datasetId);
+        await using var reader = await command.ExecuteReaderAsync(cancel);
+        if (!await reader.ReadAsync(cancel)) return null;
+        return (reader.GetDouble(0), reader.GetDouble(1), reader.GetDouble(2), reader.GetDouble(3));
+    }
+
     public async Task<StatisticsStamp> StatisticsStampAsync(int datasetId, CancellationToken cancel = default)
     {
         await using var command = dataSource.CreateCommand(

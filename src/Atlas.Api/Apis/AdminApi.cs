@@ -1,0 +1,58 @@
+using Atlas.Api.Infrastructure;
+using Atlas.Storage.Datasets;
+using Atlas.Storage.Jobs;
+using Microsoft.AspNetCore.Http.HttpResults;
+
+namespace Atlas.Api.Apis;
+
+public sealed record JobAccepted(long JobId, string Kind, string Dataset, string State, string Status);
+
+public sealed record JobStatus(long JobId, string Kind, string Dataset, string State, int Attempts, DateTime CreatedAtUtc,
+    DateTime? FinishedAtUtc, string? Progress, string? Error, string? Summary);
+
+/// <summary>The write endpoints: queue a statistics job, delete a dataset. Both need an API key.</summary>
+public static class AdminApi
+{
+    public static IEndpointRouteBuilder MapAdminApi(this IEndpointRouteBuilder routes)
+    {
+        var group = routes.MapGroup("/api/v1/datasets/{slug}").WithTags("Administration");
+        group.MapPost("/jobs", EnqueueStatisticsAsync).WithName("QueueStatisticsJob")
+            .WithSummary("Queue a statistics job for a dataset (needs X-Api-Key)")
+            .WithDescription("A worker (atlas serve or any worker sharing the database) claims the job and recomputes the statistics " +
+                             "of every cell whose series changed. Poll the returned status link for progress.")
+            .AddEndpointFilter<ApiKeyFilter>();
+        group.MapGet("/jobs/{jobId:long}", JobStatusAsync).WithName("JobStatus").WithSummary("The state of a queued job");
+        group.MapDelete("/", DeleteAsync).WithName("DeleteDataset")
+            .WithSummary("Delete a dataset and everything stored for it (needs X-Api-Key)")
+            .AddEndpointFilter<ApiKeyFilter>();
+        return routes;
+    }
+
+    public static async Task<Results<Accepted<JobAccepted>, ProblemHttpResult>> EnqueueStatisticsAsync(string slug, DatasetStore datasets,
+        JobQueue jobs, ILogger<JobQueue> logger, CancellationToken cancel)
+    {
+        if (await datasets.FindAsync(slug, cancel) is null) return ApiProblems.UnknownDataset(slug);
+        var id = await jobs.EnqueueAsync(JobKind.Statistics, slug, "{}", cancel);
+        ApiLog.JobQueued(logger, id, slug);
+        var status = $"/api/v1/datasets/{slug}/jobs/{id}";
+        return TypedResults.Accepted(status, new JobAccepted(id, "statistics", slug, "queued", status));
+    }
+
+    public static async Task<Results<Ok<JobStatus>, ProblemHttpResult>> JobStatusAsync(string slug, long jobId, JobQueue jobs, CancellationToken cancel)
+    {
+        var job = await jobs.FindAsync(jobId, cancel);
+        if (job is null || job.DatasetSlug != slug)
+            return ApiProblems.NotFound("Unknown job", $"Dataset '{slug}' has no job {jobId}.");
+        return TypedResults.Ok(new JobStatus(job.Id, JobQueue.KindName(job.Kind), job.DatasetSlug, job.State, job.Attempts, job.CreatedAtUtc,
+            job.FinishedAtUtc, job.ProgressJson, job.Error, job.Summary));
+    }
+
+    public static async Task<Results<NoContent, ProblemHttpResult>> DeleteAsync(string slug, DatasetStore datasets, DatasetCatalog catalog,
+        ILogger<DatasetStore> logger, CancellationToken cancel)
+    {
+        if (!await datasets.DeleteAsync(slug, cancel)) return ApiProblems.UnknownDataset(slug);
+        catalog.Forget(slug);
+        ApiLog.DatasetDeleted(logger, slug);
+        return TypedResults.NoContent();
+    }
+}

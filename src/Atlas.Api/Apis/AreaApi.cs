@@ -1,0 +1,108 @@
+using Atlas.Api.Areas;
+using Atlas.Api.Footprints;
+using Atlas.Api.Infrastructure;
+using Atlas.Api.Model;
+using Atlas.Api.Vocabulary;
+using Atlas.Statistics;
+using Atlas.Storage.Queries;
+using Atlas.Storage.Statistics;
+using Microsoft.AspNetCore.Http.HttpResults;
+using Microsoft.Extensions.Options;
+using NetTopologySuite.Geometries;
+using NetTopologySuite.Geometries.Prepared;
+
+namespace Atlas.Api.Apis;
+
+/// <summary><c>POST /api/v1/datasets/{slug}/area</c>: statistics of a layer over the cells inside a polygon.</summary>
+public static class AreaApi
+{
+    public const string Method =
+        "Cells count as inside when their centre lies in the interior of the area (centres on the boundary are outside, as " +
+        "PostGIS ST_Within). mean, min, max and the percentiles (Hyndman-Fan type 7, NumPy's default) are over the cells' values; " +
+        "area_weighted_mean weights each cell by its footprint area. Areas are on the WGS 84 spheroid: area_km2 of the polygon " +
+        "as sent, cell_area_km2 and area_above_threshold_km2 as the sum of the footprints of the cells inside (strictly above the threshold).";
+
+    public static IEndpointRouteBuilder MapAreaApi(this IEndpointRouteBuilder routes)
+    {
+        routes.MapPost("/api/v1/datasets/{slug}/area", AreaAsync).WithTags("Areas").WithName("AreaStatistics")
+            .WithSummary("Statistics of one layer over the wet cells inside a polygon")
+            .WithDescription(
+                "Body: a GeoJSON Polygon or MultiPolygon (or a Feature with one, or {\"bbox\": [west, south, east, north]}), degrees. " +
+                "Query: parameter (default j), statistic (default mean), period (default annual), threshold (optional, in the layer's unit). " +
+                "Rejected with a problem saying what to fix: invalid or self-intersecting rings (422), areas above the size limit (422), " +
+                "too many vertices or too large a body (413), areas holding no wet cell (422).")
+            .Accepts<object>("application/geo+json", "application/json")
+            .RequireRateLimiting(RateLimits.Expensive);
+        return routes;
+    }
+
+    public static async Task<Results<Ok<AreaStatistics>, ProblemHttpResult, ValidationProblem>> AreaAsync(
+        string slug, string? parameter, string? statistic, string? period, string? threshold,
+        HttpRequest request, DatasetCatalog catalog, StatisticsStore statistics, AreaQueries areas, CellFootprints footprints,
+        ProvenanceBuilder provenance, IOptions<AtlasApiOptions> options, CancellationToken cancel)
+    {
+        var limits = options.Value;
+        var errors = new Dictionary<string, string[]>();
+        var p = WaveParameter.J;
+        var s = StatisticKind.Mean;
+        var t = AtlasPeriod.Annual;
+        double? level = null;
+        if (parameter is not null && !WaveParameterNames.TryParse(parameter, out p))
+            errors["parameter"] = [$"'{parameter}' is not a parameter: use one of {string.Join(", ", WaveParameterNames.All.Select(x => x.Symbol()))}."];
+        if (statistic is not null && !StatisticKindNames.TryParse(statistic, out s))
+            errors["statistic"] = [$"'{statistic}' is not a statistic: use one of {string.Join(", ", StatisticKindNames.All.Select(x => x.Name()))}."];
+        if (period is not null && !AtlasPeriod.TryParse(period, out t))
+            errors["period"] = [$"'{period}' is not a period: use jan..dec, djf, mam, jja, son, annual or y2019."];
+        if (threshold is not null)
+        {
+            if (QueryNumbers.TryParse(threshold, out var v)) level = v;
+            else errors["threshold"] = [$"'{threshold}' is not a number; give the threshold in the layer's unit, e.g. threshold=20."];
+        }
+        if (errors.Count > 0) return TypedResults.ValidationProblem(errors, title: "The area request has invalid query values");
+
+        if (request.ContentLength > limits.MaxRequestBodyBytes)
+            return ApiProblems.TooLarge($"The body is {request.ContentLength} bytes; the limit is {limits.MaxRequestBodyBytes}. Simplify the polygon.");
+        var body = await RequestBody.ReadAsync(request, limits.MaxRequestBodyBytes, cancel);
+        if (body is null)
+            return ApiProblems.TooLarge($"The body exceeds the limit of {limits.MaxRequestBodyBytes} bytes. Simplify the polygon.");
+
+        var dataset = await catalog.FindAsync(slug, cancel);
+        if (dataset is null) return ApiProblems.UnknownDataset(slug);
+
+        var reading = AreaGeometryReader.Read(body, limits.AreaMaxVertices);
+        if (reading.Area is not { } area) return TypedResults.Problem(statusCode: reading.Status, title: reading.Title, detail: reading.Problem);
+        var areaKm2 = await areas.SpheroidAreaSquareMetresAsync(area, cancel) / 1e6;
+        if (areaKm2 > limits.AreaMaxSquareKilometres)
+            return ApiProblems.Unprocessable("The area is too large",
+                $"The polygon covers {areaKm2:0.#} km2; the limit is {limits.AreaMaxSquareKilometres:0.#} km2. Send a smaller area, or download the layer (GET .../layers) and summarise it locally.");
+
+        var cells = await footprints.ForAsync(dataset, cancel);
+        var prepared = PreparedGeometryFactory.Prepare(area);
+        var inside = cells.Values.Where(c => prepared.Contains(new Point(c.Longitude, c.Latitude))).ToArray();
+        if (inside.Length == 0)
+        {
+            var spacing = await catalog.TypicalSpacingMetresAsync(dataset, cancel);
+            return ApiProblems.Unprocessable("No cell inside the area",
+                $"No wet cell of '{slug}' has its centre inside the polygon ({areaKm2:0.###} km2). Cells are about " +
+                $"{(spacing ?? 0) / 1000:0.##} km apart: draw the area over the sea within the dataset extent, and larger than one cell.");
+        }
+
+        var values = (await statistics.LayerAsync(dataset.Id, (short)p, t.Code, ParameterCatalogue.Stored(s), cancel: cancel))
+            .ToDictionary(v => v.CellId, v => v.Value);
+        var withValue = inside.Where(c => values.ContainsKey(c.CellId)).ToArray();
+        var sorted = withValue.Select(c => values[c.CellId]).Order().ToArray();
+        double? Stat(Func<double> f) => sorted.Length == 0 ? null : f();
+        var weight = withValue.Sum(c => c.SquareKilometres);
+        var above = level is { } l ? withValue.Where(c => values[c.CellId] > l).ToArray() : null;
+
+        return TypedResults.Ok(new AreaStatistics(
+            slug, new LayerChoice(p.Symbol(), s.Name(), t.Name, ParameterCatalogue.UnitOf(p, s)),
+            areaKm2, inside.Length, withValue.Length, inside.Sum(c => c.SquareKilometres),
+            Stat(() => sorted.Average()),
+            Stat(() => withValue.Sum(c => values[c.CellId] * c.SquareKilometres) / weight),
+            Stat(() => sorted[0]), Stat(() => sorted[^1]),
+            Stat(() => ExactQuantile.OfSorted(sorted, 0.10)), Stat(() => ExactQuantile.OfSorted(sorted, 0.50)), Stat(() => ExactQuantile.OfSorted(sorted, 0.90)),
+            level, above?.Length, above?.Sum(c => c.SquareKilometres),
+            Method, await provenance.ForAsync(dataset, cancel), AtlasCaution.Text));
+    }
+}

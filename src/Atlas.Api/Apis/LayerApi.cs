@@ -1,0 +1,110 @@
+using Atlas.Api.Infrastructure;
+using Atlas.Api.Layers;
+using Atlas.Api.Model;
+using Atlas.Api.Vocabulary;
+using Atlas.Statistics;
+using Atlas.Storage.Queries;
+using Microsoft.AspNetCore.Http.HttpResults;
+using Microsoft.Extensions.Options;
+using Microsoft.Net.Http.Headers;
+
+namespace Atlas.Api.Apis;
+
+/// <summary><c>/api/v1/datasets/{slug}/layers</c>: the stored statistics as map layers and downloads.</summary>
+public static class LayerApi
+{
+    public static IEndpointRouteBuilder MapLayerApi(this IEndpointRouteBuilder routes)
+    {
+        var group = routes.MapGroup("/api/v1/datasets/{slug}/layers").WithTags("Layers");
+        group.MapGet("/", ListAsync).WithName("ListLayers")
+            .WithSummary("The parameter x statistic x period combinations a dataset has, with units and percentile bin widths");
+        group.MapGet("/{parameter}/{statistic}/{period}.{format}", DownloadAsync).WithName("DownloadLayer")
+            .WithSummary("One layer as GeoTIFF, CSV, GeoJSON, NetCDF or a PNG figure")
+            .WithDescription(
+                "parameter: hs, te, tp, j, dir, spread, d, depth. statistic: mean, sd, min, max, p10, p50, p90, p99, count, coverage. " +
+                "period: jan..dec, djf, mam, jja, son, annual, y2019. format: tif (Cloud Optimised GeoTIFF, Float32, EPSG:4326, " +
+                "nodata -9999, 256 x 256 tiles with overviews; provenance in the GDAL metadata), csv (cell_id,lon,lat,value after a # header), " +
+                "geojson (points, or cell footprints with ?geometry=polygon; provenance as a top-level member), nc (CF-1.8 NetCDF-4), " +
+                "png (a captioned map figure). Mesh and curvilinear datasets are drawn on a raster by linear interpolation in triangles. " +
+                "Responses carry an ETag and Cache-Control; send If-None-Match to revalidate.")
+            .Produces(200, contentType: "image/tiff")
+            .RequireRateLimiting(RateLimits.Expensive);
+        return routes;
+    }
+
+    public static async Task<Results<Ok<LayerCatalogue>, ProblemHttpResult>> ListAsync(string slug, DatasetCatalog catalog,
+        DatasetGeometryQueries geometry, CancellationToken cancel)
+    {
+        var dataset = await catalog.FindAsync(slug, cancel);
+        if (dataset is null) return ApiProblems.UnknownDataset(slug);
+        var combinations = await geometry.LayerCombinationsAsync(dataset.Id, cancel);
+        var options = new StatisticsOptions();
+        var parameters = combinations
+            .Where(c => Enum.IsDefined((WaveParameter)c.Parameter))
+            .GroupBy(c => (WaveParameter)c.Parameter)
+            .OrderBy(g => g.Key)
+            .Select(g =>
+            {
+                var periods = g.Select(c => AtlasPeriod.FromCode(c.Period)).Order().Select(p => p.Name).ToArray();
+                var statistics = StatisticsOf(g.Key).Select(s => s.Name()).ToArray();
+                double? binWidth = g.Key is WaveParameter.Dir or WaveParameter.Depth ? null : options.BinningFor(g.Key).BinWidth;
+                return new LayerParameterItem(g.Key.Symbol(), ParameterCatalogue.LongName(g.Key), g.Key.Unit(), statistics, periods, binWidth,
+                    $"/api/v1/datasets/{slug}/layers/{g.Key.Symbol()}/{statistics[0]}/{periods[0]}.tif");
+            })
+            .ToArray();
+        return TypedResults.Ok(new LayerCatalogue(
+            slug,
+            $"/api/v1/datasets/{slug}/layers/{{parameter}}/{{statistic}}/{{period}}.{{format}}",
+            LayerFormats.Extensions,
+            StatisticKindNames.All.Select(s => new LayerStatisticItem(s.Name(), ParameterCatalogue.StatisticLongName(s))).ToArray(),
+            parameters,
+            "Layer percentiles (p10, p50, p90, p99) come from fixed-bin histograms and lie within one bin width (percentile_bin_width, " +
+            "in the parameter's unit) of the exact percentiles; point requests compute them exactly from the series. count and coverage " +
+            "are dimensionless (unit 1). dir offers the power-weighted circular mean, count and coverage only.",
+            AtlasCaution.Text));
+    }
+
+    /// <summary>The statistics a parameter's layers have: all for summarised parameters; mean, count, coverage for dir; mean for depth.</summary>
+    public static IReadOnlyList<StatisticKind> StatisticsOf(WaveParameter parameter) => parameter switch
+    {
+        WaveParameter.Dir => [StatisticKind.Mean, StatisticKind.Count, StatisticKind.Coverage],
+        WaveParameter.Depth => [StatisticKind.Mean],
+        _ => StatisticKindNames.All,
+    };
+
+    public static async Task<Results<FileContentHttpResult, ProblemHttpResult, ValidationProblem>> DownloadAsync(
+        string slug, string parameter, string statistic, string period, string format, string? geometry,
+        HttpContext http, DatasetCatalog catalog, LayerRenderer renderer, IOptions<AtlasApiOptions> options, CancellationToken cancel)
+    {
+        var dataset = await catalog.FindAsync(slug, cancel);
+        if (dataset is null) return ApiProblems.UnknownDataset(slug);
+        if (!WaveParameterNames.TryParse(parameter, out var p))
+            return ApiProblems.NotFound("Unknown parameter", $"'{parameter}' is not a parameter: use one of {string.Join(", ", WaveParameterNames.All.Select(x => x.Symbol()))}.");
+        if (!StatisticKindNames.TryParse(statistic, out var s))
+            return ApiProblems.NotFound("Unknown statistic", $"'{statistic}' is not a statistic: use one of {string.Join(", ", StatisticKindNames.All.Select(x => x.Name()))}.");
+        if (!AtlasPeriod.TryParse(period, out var t))
+            return ApiProblems.NotFound("Unknown period", $"'{period}' is not a period: use jan..dec, djf, mam, jja, son, annual, or y followed by a year (y2019).");
+        if (!LayerFormats.TryParse(format, out var f))
+            return ApiProblems.NotFound("Unknown format", $"'.{format}' is not a layer format: use {string.Join(", ", LayerFormats.Extensions.Select(e => "." + e))}.");
+        if (!StatisticsOf(p).Contains(s))
+            return ApiProblems.NotFound("No such layer", $"{p.Symbol()} has no '{s.Name()}' layer: its layers are {string.Join(", ", StatisticsOf(p).Select(x => x.Name()))}.");
+        var polygons = false;
+        if (geometry is not null)
+        {
+            if (f != LayerFormat.GeoJson)
+                return TypedResults.ValidationProblem(new Dictionary<string, string[]> { ["geometry"] = ["geometry applies to .geojson downloads only; remove it."] });
+            if (geometry is not ("point" or "polygon"))
+                return TypedResults.ValidationProblem(new Dictionary<string, string[]> { ["geometry"] = [$"'{geometry}' is not a geometry: use point (cell centres, the default) or polygon (cell footprints)."] });
+            polygons = geometry == "polygon";
+        }
+
+        var request = new LayerRequest(p, s, t, f, polygons);
+        var layer = await renderer.RenderAsync(dataset, request, cancel);
+        if (layer is null)
+            return ApiProblems.NotFound("No statistics for this layer",
+                $"Dataset '{slug}' has no {s.Name()} of {p.Symbol()} for {t.Name}. GET /api/v1/datasets/{slug}/layers lists what it has; " +
+                "if it lists nothing, its statistics have not been computed yet (POST /api/v1/datasets/{slug}/jobs).");
+        http.Response.Headers.CacheControl = $"public, max-age={options.Value.LayerCacheSeconds}";
+        return TypedResults.File(layer.Content, layer.ContentType, request.FileName, entityTag: EntityTagHeaderValue.Parse(layer.ETag));
+    }
+}

@@ -1,0 +1,25 @@
+using Atlas.Api.Infrastructure;
+using Atlas.Api.Model;
+using Atlas.Api.Points;
+
+namespace Atlas.Api.Apis;
+
+/// <summary><c>/api/v1/datasets/{slug}/point</c>: statistics and series at the wet cell nearest a position.</summary>
+public static partial class PointApi
+{
+    public static IEndpointRouteBuilder MapPointApi(this IEndpointRouteBuilder routes)
+    {
+        var group = routes.MapGroup("/api/v1/datasets/{slug}").WithTags("Points");
+        group.MapPointSeries();
+        MapPointStatistics(group);
+        return routes;
+    }
+
+    public static PointCell CellOf(LocatedPoint point)
+    {
+        var c = point.Nearest.Cell;
+        return new PointCell(c.CellId, c.Latitude, c.Longitude, c.DepthMetres, Math.Round(point.Nearest.DistanceMetres, 1), c.CoastDistanceMetres);
+    }
+
+    static partial void MapPointStatistics(RouteGroupBuilder group);
+}

@@ -1,0 +1,139 @@
+using System.Globalization;
+using System.Text;
+using System.Text.Json;
+using Atlas.Api.Downloads;
+using Atlas.Api.Infrastructure;
+using Atlas.Api.Model;
+using Atlas.Api.Points;
+using Atlas.Storage.Series;
+using Microsoft.AspNetCore.Http.HttpResults;
+using Microsoft.Extensions.Options;
+
+namespace Atlas.Api.Apis;
+
+/// <summary><c>GET /api/v1/datasets/{slug}/point/series</c>: the time series of the nearest wet cell, streamed.</summary>
+public static class PointSeriesApi
+{
+    public static RouteHandlerBuilder MapPointSeries(this RouteGroupBuilder group) =>
+        group.MapGet("/point/series", SeriesAsync).WithName("PointSeries")
+            .WithSummary("The time series (time, hs, te, tp, dir, spread, j) of the wet cell nearest a position")
+            .WithDescription(
+                "lat, lon: degrees. from, to: calendar years, inclusive (default: the whole record when it is within the per-request " +
+                "limit of AtlasApiOptions:SeriesMaxYearsPerRequest years). format: csv (default; '#' header lines with provenance, units " +
+                "and the caution) or json. Missing steps are empty (csv) or null (json). j is computed per step at the cell depth.")
+            .Produces(200, contentType: "text/csv")
+            .RequireRateLimiting(RateLimits.Expensive);
+
+    public static async Task<Results<PushStreamHttpResult, ProblemHttpResult, ValidationProblem>> SeriesAsync(
+        string slug, string? lat, string? lon, string? from, string? to, string? format,
+        PointLocator locator, DatasetCatalog catalog, SeriesStore series, ProvenanceBuilder provenance,
+        IOptions<AtlasApiOptions> options, CancellationToken cancel)
+    {
+        var errors = new Dictionary<string, string[]>();
+        var position = PointLocator.ParsePosition(lat, lon, errors);
+        var window = YearWindow.Parse(from, to, null, errors);
+        var csv = format is null or "csv";
+        if (!csv && format != "json") errors["format"] = [$"'{format}' is not a series format: use csv or json."];
+        if (errors.Count > 0 || position is null || window is null)
+            return TypedResults.ValidationProblem(errors, title: "The series request has invalid query values");
+
+        var (point, problem) = await locator.LocateAsync(slug, position.Value.Latitude, position.Value.Longitude, cancel);
+        if (point is null) return problem!;
+        var timelines = await catalog.TimelinesAsync(point.Dataset, cancel);
+        if (timelines.Count == 0)
+            return ApiProblems.Unprocessable("No series stored", $"Dataset '{slug}' has no time line yet; ingest its files first.");
+        var limit = options.Value.SeriesMaxYearsPerRequest;
+        var first = window.FromYear ?? timelines.Keys.First();
+        var last = window.ToYear ?? (window.FromYear is { } f ? Math.Min(timelines.Keys.Last(), f + limit - 1) : timelines.Keys.Last());
+        if (last < first)
+            return TypedResults.ValidationProblem(new Dictionary<string, string[]> { ["from"] = [$"from={first} is after the last stored year {last}."] });
+        if (last - first + 1 > limit)
+            return ApiProblems.Unprocessable("The time range is too long",
+                $"{first}..{last} is {last - first + 1} years; one request may cover at most {limit}. Ask for from and to in several requests " +
+                $"(stored years: {timelines.Keys.First()}..{timelines.Keys.Last()}).");
+
+        var chunks = await series.ReadCellAsync(point.Dataset.Id, point.Nearest.Cell.CellId, first, last, cancel);
+        var depth = point.Nearest.Cell.DepthMetres is { } d ? d : double.NaN;
+        var decoded = PointSeriesReader.Decode(chunks, timelines, depth);
+        var source = await provenance.ForAsync(point.Dataset, cancel);
+        var cell = PointApi.CellOf(point);
+        var fileName = $"{slug}_series_{cell.Id}_{first}-{last}.{(csv ? "csv" : "json")}";
+        return TypedResults.Stream(
+            stream => csv ? WriteCsvAsync(stream, decoded, cell, source, first, last, cancel) : WriteJsonAsync(stream, decoded, cell, source, first, last, cancel),
+            csv ? "text/csv; charset=utf-8" : "application/json", fileName);
+    }
+
+    private const string Units = "time UTC (ISO 8601); hs m; te s; tp s; dir degree (true, direction waves come from); spread degree; j kW/m";
+
+    private static async Task WriteCsvAsync(Stream stream, PointSeries s, PointCell cell, Provenance source, int first, int last, CancellationToken cancel)
+    {
+        await using var writer = new StreamWriter(stream, new UTF8Encoding(false), 64 * 1024);
+        await writer.WriteAsync($"# series of cell {cell.Id} at lat {F(cell.Lat)} lon {F(cell.Lon)}, depth_m {(cell.DepthM is { } d ? F(d) : "unknown (deep water assumed)")}, " +
+                                $"{cell.DistanceM:0.#} m from the requested position; years {first}..{last}\n");
+        await writer.WriteAsync($"# units: {Units}\n");
+        if (s.EnergyPeriodFromPeak) await writer.WriteAsync("# te: derived as 0.9 tp (JONSWAP gamma 3.3), the dataset has no energy period\n");
+        foreach (var line in source.HeaderLines()) await writer.WriteAsync(line + "\n");
+        await writer.WriteAsync("time,hs,te,tp,dir,spread,j\n");
+        var line8 = new StringBuilder(96);
+        for (var i = 0; i < s.Times.Length; i++)
+        {
+            line8.Clear();
+            line8.Append(DateTimeOffset.FromUnixTimeSeconds(s.Times[i]).UtcDateTime.ToString("yyyy-MM-dd'T'HH:mm:ss'Z'", CultureInfo.InvariantCulture));
+            Append(line8, s.Hs[i], "0.###");
+            Append(line8, s.HasTe ? s.Te[i] : float.NaN, "0.###");
+            Append(line8, s.HasTp ? s.Tp[i] : float.NaN, "0.##");
+            Append(line8, s.HasDir ? s.Dir[i] : float.NaN, "0.##");
+            Append(line8, s.HasSpread ? s.Spread[i] : float.NaN, "0.##");
+            Append(line8, s.Power[i], "0.###");
+            line8.Append('\n');
+            await writer.WriteAsync(line8, cancel);
+        }
+        await writer.FlushAsync(cancel);
+    }
+
+    private static async Task WriteJsonAsync(Stream stream, PointSeries s, PointCell cell, Provenance source, int first, int last, CancellationToken cancel)
+    {
+        await using var json = new Utf8JsonWriter(stream);
+        json.WriteStartObject();
+        json.WritePropertyName("cell");
+        JsonSerializer.Serialize(json, cell, GeoJsonSerialisation.Options);
+        json.WriteNumber("from_year", first);
+        json.WriteNumber("to_year", last);
+        json.WriteString("units", Units);
+        json.WriteBoolean("te_from_tp", s.EnergyPeriodFromPeak);
+        json.WritePropertyName("provenance");
+        JsonSerializer.Serialize(json, source, GeoJsonSerialisation.Options);
+        json.WriteString("caution", AtlasCaution.Text);
+        json.WriteStartArray("steps");
+        for (var i = 0; i < s.Times.Length; i++)
+        {
+            json.WriteStartObject();
+            json.WriteString("time", DateTimeOffset.FromUnixTimeSeconds(s.Times[i]).UtcDateTime);
+            Write(json, "hs", s.Hs[i], 3);
+            Write(json, "te", s.HasTe ? s.Te[i] : float.NaN, 3);
+            Write(json, "tp", s.HasTp ? s.Tp[i] : float.NaN, 2);
+            Write(json, "dir", s.HasDir ? s.Dir[i] : float.NaN, 2);
+            Write(json, "spread", s.HasSpread ? s.Spread[i] : float.NaN, 2);
+            Write(json, "j", s.Power[i], 3);
+            json.WriteEndObject();
+            if (json.BytesPending > 32 * 1024) await json.FlushAsync(cancel);
+        }
+        json.WriteEndArray();
+        json.WriteEndObject();
+        await json.FlushAsync(cancel);
+    }
+
+    private static void Append(StringBuilder line, float value, string pattern)
+    {
+        line.Append(',');
+        if (!float.IsNaN(value)) line.Append(value.ToString(pattern, CultureInfo.InvariantCulture));
+    }
+
+    private static void Write(Utf8JsonWriter json, string name, float value, int digits)
+    {
+        if (float.IsNaN(value)) json.WriteNull(name);
+        else json.WriteNumber(name, Math.Round((double)value, digits));
+    }
+
+    private static string F(double v) => v.ToString("0.#####", CultureInfo.InvariantCulture);
+}

@@ -1,0 +1,130 @@
+using System.IO.Compression;
+using System.Text.Json;
+using Atlas.Api.Apis;
+using Atlas.Api.Footprints;
+using Atlas.Api.Infrastructure;
+using Atlas.Api.Layers;
+using Atlas.Api.Vocabulary;
+using Atlas.Api.Points;
+using Atlas.Storage;
+using Atlas.Storage.Cells;
+using Atlas.Storage.Datasets;
+using Atlas.Storage.Jobs;
+using Atlas.Storage.Queries;
+using Atlas.Storage.Series;
+using Atlas.Storage.Statistics;
+using Microsoft.AspNetCore.ResponseCompression;
+using Microsoft.Extensions.FileProviders;
+using Microsoft.Extensions.Options;
+using Microsoft.OpenApi;
+
+namespace Atlas.Api;
+
+/// <summary>The one place where the API's services and middleware are registered.</summary>
+public static class AtlasApiRegistration
+{
+    public static WebApplicationBuilder AddAtlasApi(this WebApplicationBuilder builder)
+    {
+        var services = builder.Services;
+        services.AddOptions<AtlasApiOptions>().BindConfiguration(nameof(AtlasApiOptions)).ValidateDataAnnotations().ValidateOnStart();
+        var options = builder.Configuration.GetSection(nameof(AtlasApiOptions)).Get<AtlasApiOptions>() ?? new AtlasApiOptions();
+
+        services.AddSingleton(sp => new DatabaseConnectionString(AtlasConnection.Resolve(sp.GetRequiredService<IConfiguration>())));
+        services.AddSingleton(sp => AtlasDatabase.CreateDataSource(sp.GetRequiredService<DatabaseConnectionString>().Value));
+        services.AddSingleton<DatasetStore>();
+        services.AddSingleton<CellStore>();
+        services.AddSingleton<SeriesStore>();
+        services.AddSingleton<StatisticsStore>();
+        services.AddSingleton<JobQueue>();
+        services.AddSingleton<LayerCacheStore>();
+        services.AddSingleton<AreaQueries>();
+        services.AddSingleton<ScreeningQueries>();
+        services.AddSingleton<DatasetGeometryQueries>();
+        services.AddSingleton<DatasetCatalog>();
+        services.AddSingleton<ProvenanceBuilder>();
+        services.AddSingleton<LayerRenderer>();
+        services.AddSingleton<CellFootprints>();
+        services.AddSingleton<PointLocator>();
+        services.AddSingleton<ApiKeyVerifier>();
+        services.AddHostedService<SchemaStartup>();
+        services.AddMemoryCache();
+
+        services.ConfigureHttpJsonOptions(json =>
+        {
+            json.SerializerOptions.PropertyNamingPolicy = JsonNamingPolicy.SnakeCaseLower;
+            json.SerializerOptions.NumberHandling = System.Text.Json.Serialization.JsonNumberHandling.AllowNamedFloatingPointLiterals;
+            json.SerializerOptions.Converters.Add(new NetTopologySuite.IO.Converters.GeoJsonConverterFactory());
+        });
+        services.AddProblemDetails(problem => problem.CustomizeProblemDetails = context =>
+        {
+            context.ProblemDetails.Instance ??= context.HttpContext.Request.Path;
+            context.ProblemDetails.Extensions["trace_id"] = context.HttpContext.TraceIdentifier;
+        });
+        services.AddExceptionHandler<ProblemExceptionHandler>();
+        services.AddRateLimiter(limiter => RateLimits.Configure(limiter, options));
+        services.AddResponseCompression(compression =>
+        {
+            compression.EnableForHttps = true;
+            compression.Providers.Add<BrotliCompressionProvider>();
+            compression.Providers.Add<GzipCompressionProvider>();
+            compression.MimeTypes = ResponseCompressionDefaults.MimeTypes.Concat(
+                ["text/csv", "application/geo+json", "application/problem+json", "image/tiff", "application/x-netcdf"]);
+        });
+        services.Configure<GzipCompressionProviderOptions>(gzip => gzip.Level = CompressionLevel.Fastest);
+        services.Configure<BrotliCompressionProviderOptions>(brotli => brotli.Level = CompressionLevel.Fastest);
+        services.AddCors(cors => cors.AddDefaultPolicy(policy =>
+            policy.WithOrigins(options.CorsOrigins).WithMethods("GET", "POST").WithHeaders("Content-Type", ApiKeyVerifier.HeaderName)));
+        builder.WebHost.ConfigureKestrel(kestrel => kestrel.Limits.MaxRequestBodySize = options.MaxRequestBodyBytes);
+
+        services.AddEndpointsApiExplorer();
+        services.AddSwaggerGen(swagger =>
+        {
+            swagger.SwaggerDoc("v1", new OpenApiInfo
+            {
+                Title = "Wave-resource atlas API",
+                Version = "v1",
+                Description = ApiDocumentation.Overview,
+            });
+            swagger.AddSecurityDefinition("ApiKey", new OpenApiSecurityScheme
+            {
+                Type = SecuritySchemeType.ApiKey,
+                In = ParameterLocation.Header,
+                Name = ApiKeyVerifier.HeaderName,
+                Description = "Needed by write endpoints only. The server stores SHA-256 digests of its keys.",
+            });
+        });
+        return builder;
+    }
+
+    /// <summary>Middleware order: errors first, then compression, CORS (only when origins are configured), limits, files.</summary>
+    public static WebApplication UseAtlasPipeline(this WebApplication app)
+    {
+        var options = app.Services.GetRequiredService<IOptions<AtlasApiOptions>>().Value;
+        app.UseExceptionHandler();
+        app.UseStatusCodePages();
+        app.UseResponseCompression();
+        if (options.CorsOrigins.Length > 0) app.UseCors();
+        app.UseRateLimiter();
+        app.UseSwagger();
+        app.UseSwaggerUI(ui =>
+        {
+            ui.RoutePrefix = "swagger";
+            ui.SwaggerEndpoint("/swagger/v1/swagger.json", "Wave-resource atlas API v1");
+        });
+
+        var webRoot = WebRootLocator.Locate(options, app.Environment.ContentRootPath);
+        var logger = app.Services.GetRequiredService<ILoggerFactory>().CreateLogger("Atlas.Api.WebRoot");
+        if (Directory.Exists(webRoot))
+        {
+            ApiLog.ServingWebRoot(logger, webRoot);
+            var files = new PhysicalFileProvider(webRoot);
+            app.UseDefaultFiles(new DefaultFilesOptions { FileProvider = files });
+            app.UseStaticFiles(new StaticFileOptions { FileProvider = files });
+        }
+        else
+        {
+            ApiLog.NoWebRoot(logger, webRoot);
+        }
+        return app;
+    }
+}

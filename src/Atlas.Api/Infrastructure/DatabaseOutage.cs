@@ -1,0 +1,28 @@
+using System.Net.Sockets;
+using Npgsql;
+
+namespace Atlas.Api.Infrastructure;
+
+/// <summary>Tells a database outage (no connection, server shutting down, pool exhausted) from other failures.</summary>
+public static class DatabaseOutage
+{
+    public static bool Is(Exception exception)
+    {
+        for (var e = exception; e is not null; e = e.InnerException)
+        {
+            switch (e)
+            {
+                case PostgresException p:
+                    // Class 08 connection exceptions, 53 insufficient resources, 57P operator intervention.
+                    return p.SqlState.StartsWith("08", StringComparison.Ordinal) || p.SqlState.StartsWith("53", StringComparison.Ordinal)
+                        || p.SqlState.StartsWith("57P", StringComparison.Ordinal);
+                case NpgsqlException:
+                case SocketException:
+                    return true;
+                case TimeoutException when e.Source?.StartsWith("Npgsql", StringComparison.Ordinal) == true:
+                    return true;
+            }
+        }
+        return false;
+    }
+}

@@ -1,0 +1,52 @@
+using Atlas.Storage.Datasets;
+using Atlas.Storage.Queries;
+using Microsoft.Extensions.Caching.Memory;
+
+namespace Atlas.Api.Infrastructure;
+
+/// <summary>
+/// Dataset look-ups shared by every endpoint, cached briefly in memory: a point request must not pay for the
+/// dataset row, its time lines and its cell spacing each time. Entries expire on their own (another process may
+/// ingest or recompute), and a delete through this API forgets the dataset at once.
+/// </summary>
+public sealed class DatasetCatalog(DatasetStore datasets, DatasetGeometryQueries geometry, IMemoryCache cache)
+{
+    private static readonly TimeSpan RowLifetime = TimeSpan.FromSeconds(5);
+    private static readonly TimeSpan TimelineLifetime = TimeSpan.FromSeconds(30);
+    private static readonly TimeSpan StampLifetime = TimeSpan.FromSeconds(2);
+    private static readonly TimeSpan SpacingLifetime = TimeSpan.FromMinutes(10);
+
+    public async Task<DatasetRecord?> FindAsync(string slug, CancellationToken cancel)
+    {
+        var key = ("dataset", slug);
+        if (cache.TryGetValue(key, out DatasetRecord? known)) return known;
+        var found = await datasets.FindAsync(slug, cancel);
+        if (found is not null) cache.Set(key, found, RowLifetime);
+        return found;
+    }
+
+    /// <summary>The time line (Unix seconds) of every stored year, by year.</summary>
+    public Task<SortedDictionary<int, long[]>> TimelinesAsync(DatasetRecord dataset, CancellationToken cancel) =>
+        CachedAsync(("timelines", dataset.Id, dataset.CreatedAtUtc), TimelineLifetime, () => datasets.TimelinesAsync(dataset.Id, cancel));
+
+    public Task<StatisticsStamp> StatisticsStampAsync(DatasetRecord dataset, CancellationToken cancel) =>
+        CachedAsync(("stamp", dataset.Id, dataset.CreatedAtUtc), StampLifetime, () => geometry.StatisticsStampAsync(dataset.Id, cancel));
+
+    /// <summary>The median distance between neighbouring wet cells, metres (null with fewer than two wet cells).</summary>
+    public Task<double?> TypicalSpacingMetresAsync(DatasetRecord dataset, CancellationToken cancel) =>
+        CachedAsync(("spacing", dataset.Id, dataset.CreatedAtUtc), SpacingLifetime, () => geometry.TypicalSpacingMetresAsync(dataset.Id, cancel));
+
+    /// <summary>The envelope of the wet cells, or null when the dataset has none.</summary>
+    public Task<(double West, double South, double East, double North)?> ExtentAsync(DatasetRecord dataset, CancellationToken cancel) =>
+        CachedAsync(("extent", dataset.Id, dataset.CreatedAtUtc), TimelineLifetime, () => geometry.ExtentAsync(dataset.Id, cancel));
+
+    public void Forget(string slug) => cache.Remove(("dataset", slug));
+
+    private async Task<T> CachedAsync<T>(object key, TimeSpan lifetime, Func<Task<T>> load)
+    {
+        if (cache.TryGetValue(key, out T? value)) return value!;
+        value = await load();
+        cache.Set(key, value, lifetime);
+        return value;
+    }
+}

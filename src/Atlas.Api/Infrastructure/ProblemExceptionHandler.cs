@@ -1,0 +1,57 @@
+using Microsoft.AspNetCore.Diagnostics;
+using Microsoft.AspNetCore.Mvc;
+
+namespace Atlas.Api.Infrastructure;
+
+/// <summary>
+/// Turns exceptions into problem details: a database outage is 503 with Retry-After, a malformed request that the
+/// framework rejected keeps its status, anything else is 500 without internals.
+/// </summary>
+public sealed class ProblemExceptionHandler(IProblemDetailsService problems, ILogger<ProblemExceptionHandler> logger) : IExceptionHandler
+{
+    public const int RetryAfterSeconds = 10;
+
+    public async ValueTask<bool> TryHandleAsync(HttpContext context, Exception exception, CancellationToken cancel)
+    {
+        ProblemDetails problem;
+        if (DatabaseOutage.Is(exception))
+        {
+            ApiLog.DatabaseUnavailable(logger, context.Request.Path, exception);
+            context.Response.StatusCode = StatusCodes.Status503ServiceUnavailable;
+            context.Response.Headers.RetryAfter = RetryAfterSeconds.ToString(System.Globalization.CultureInfo.InvariantCulture);
+            problem = new ProblemDetails
+            {
+                Status = 503,
+                Title = "The database is unavailable",
+                Detail = $"The atlas database cannot be reached just now. Retry in {RetryAfterSeconds} seconds; if this persists, " +
+                         "the operator should check that the database server is running (atlas db status).",
+            };
+        }
+        else if (exception is BadHttpRequestException bad)
+        {
+            context.Response.StatusCode = bad.StatusCode;
+            problem = new ProblemDetails
+            {
+                Status = bad.StatusCode,
+                Title = bad.StatusCode == 413 ? "The request body is too large" : "The request could not be read",
+                Detail = bad.Message,
+            };
+        }
+        else if (exception is OperationCanceledException && context.RequestAborted.IsCancellationRequested)
+        {
+            return true;
+        }
+        else
+        {
+            ApiLog.UnhandledError(logger, context.Request.Path, exception);
+            context.Response.StatusCode = 500;
+            problem = new ProblemDetails
+            {
+                Status = 500,
+                Title = "Internal error",
+                Detail = "The server failed while answering this request; the error is logged with the trace id below.",
+            };
+        }
+        return await problems.TryWriteAsync(new ProblemDetailsContext { HttpContext = context, ProblemDetails = problem, Exception = exception });
+    }
+}

@@ -1,0 +1,50 @@
+using System.Reflection;
+using System.Text.Json;
+using Atlas.Api.Model;
+using Atlas.Storage.Datasets;
+using Microsoft.Extensions.Caching.Memory;
+
+namespace Atlas.Api.Infrastructure;
+
+/// <summary>Assembles the provenance of a dataset's figures: source files and checksums, software, dates, method.</summary>
+public sealed class ProvenanceBuilder(DatasetStore datasets, DatasetCatalog catalog, IMemoryCache cache)
+{
+    public const string Software = "atlas";
+
+    public static readonly string SoftwareVersion =
+        typeof(ProvenanceBuilder).Assembly.GetCustomAttribute<AssemblyInformationalVersionAttribute>()?.InformationalVersion.Split('+')[0]
+        ?? typeof(ProvenanceBuilder).Assembly.GetName().Version?.ToString() ?? "unknown";
+
+    /// <summary>How the served figures are computed, in one paragraph.</summary>
+    public const string Method =
+        "Wave power is computed at every time step from Hm0 and the energy period Te with the group velocity of linear wave " +
+        "theory at the cell depth (the deep-water limit where the depth is unknown), and only then averaged; the mean direction " +
+        "is the power-weighted circular mean of the direction waves come from; missing steps are skipped and counted " +
+        "(count and coverage accompany every statistic); point statistics are computed from the exact stored series, " +
+        "layer percentiles from fixed-bin histograms; months and seasons are UTC calendar months gathered across all years.";
+
+    public async Task<Provenance> ForAsync(DatasetRecord dataset, CancellationToken cancel)
+    {
+        var files = await cache.GetOrCreateAsync(("files", dataset.Id, dataset.CreatedAtUtc), async entry =>
+        {
+            entry.AbsoluteExpirationRelativeToNow = TimeSpan.FromSeconds(30);
+            return await datasets.SourceFilesAsync(dataset.Id, cancel);
+        });
+        var stamp = await catalog.StatisticsStampAsync(dataset, cancel);
+        using var metadata = JsonDocument.Parse(dataset.MetadataJson);
+        var root = metadata.RootElement;
+        var method = Method;
+        if (Text(root, "depth_note") is { } depthNote) method += " Depth: " + depthNote + ".";
+        if (Text(root, "statistics_method") is { } statisticsNote) method += " " + statisticsNote;
+        return new Provenance(dataset.Slug, dataset.Title,
+            files!.Select(f => new ProvenanceFile(f.FileName, f.Sha256, f.TimeStartUtc, f.TimeEndUtc)).ToArray(),
+            Software, SoftwareVersion, stamp.ComputedAtUtc, DateTime.UtcNow, method,
+            Text(root, "licence"), Text(root, "citation"), AtlasCaution.Text);
+    }
+
+    /// <summary>A string member of a JSON object, or null when absent, null or not a string.</summary>
+    public static string? Text(JsonElement element, string name) =>
+        element.ValueKind == JsonValueKind.Object && element.TryGetProperty(name, out var value) && value.ValueKind == JsonValueKind.String
+            ? value.GetString()
+            : null;
+}

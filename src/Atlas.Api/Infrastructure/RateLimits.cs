@@ -1,0 +1,43 @@
+using System.Globalization;
+using System.Threading.RateLimiting;
+using Microsoft.AspNetCore.Mvc;
+using Microsoft.AspNetCore.RateLimiting;
+
+namespace Atlas.Api.Infrastructure;
+
+/// <summary>The rate-limit policy of the expensive endpoints: a fixed one-minute window per client address.</summary>
+public static class RateLimits
+{
+    public const string Expensive = "expensive";
+
+    public static void Configure(RateLimiterOptions limiter, AtlasApiOptions options)
+    {
+        limiter.RejectionStatusCode = StatusCodes.Status429TooManyRequests;
+        limiter.AddPolicy(Expensive, http => RateLimitPartition.GetFixedWindowLimiter(
+            http.Connection.RemoteIpAddress?.ToString() ?? "unknown",
+            _ => new FixedWindowRateLimiterOptions
+            {
+                PermitLimit = options.ExpensiveRequestsPerMinute,
+                Window = TimeSpan.FromMinutes(1),
+                QueueLimit = 0,
+                AutoReplenishment = true,
+            }));
+        limiter.OnRejected = async (context, cancel) =>
+        {
+            var seconds = context.Lease.TryGetMetadata(MetadataName.RetryAfter, out var retry) ? (int)Math.Ceiling(retry.TotalSeconds) : 60;
+            context.HttpContext.Response.Headers.RetryAfter = seconds.ToString(CultureInfo.InvariantCulture);
+            var problems = context.HttpContext.RequestServices.GetRequiredService<IProblemDetailsService>();
+            await problems.WriteAsync(new ProblemDetailsContext
+            {
+                HttpContext = context.HttpContext,
+                ProblemDetails = new ProblemDetails
+                {
+                    Status = 429,
+                    Title = "Too many requests",
+                    Detail = $"This address has used its {options.ExpensiveRequestsPerMinute} requests per minute on the computing endpoints. " +
+                             $"Retry after {seconds} s, or fetch layer downloads once and compute locally.",
+                },
+            });
+        };
+    }
+}

@@ -1,0 +1,107 @@
+using System.Security.Cryptography;
+using Atlas.Api.Downloads;
+using Atlas.Api.Footprints;
+using Atlas.Api.Infrastructure;
+using Atlas.Api.Model;
+using Atlas.Api.Rasters;
+using Atlas.Api.Vocabulary;
+using Atlas.Statistics;
+using Atlas.Storage.Cells;
+using Atlas.Storage.Datasets;
+using Atlas.Storage.Queries;
+using Atlas.Storage.Statistics;
+using Microsoft.Extensions.Caching.Memory;
+using Microsoft.Extensions.Options;
+
+namespace Atlas.Api.Layers;
+
+/// <summary>A layer's values with what is needed to draw and describe them.</summary>
+public sealed record LayerData(DatasetRecord Dataset, LayerRequest Request, IReadOnlyList<LayerValue> Values, Provenance Provenance, string Units)
+{
+    public string Title => $"{ParameterCatalogue.LongName(Request.Parameter)}, {ParameterCatalogue.StatisticLongName(Request.Statistic)}, {Request.Period.Name}";
+}
+
+/// <summary>
+/// Renders layer downloads and keeps them in the layer cache. The cache key holds the statistics stamp, so a
+/// recomputation of the dataset's statistics makes new downloads (and new ETags) at once.
+/// </summary>
+public sealed class LayerRenderer(
+    DatasetCatalog catalog,
+    StatisticsStore statistics,
+    CellStore cells,
+    LayerCacheStore layerCache,
+    ProvenanceBuilder provenance,
+    CellFootprints footprints,
+    IMemoryCache memory,
+    IOptions<AtlasApiOptions> options)
+{
+    /// <summary>The rendered download, or null when the dataset has no values for this parameter, statistic and period.</summary>
+    public async Task<CachedLayer?> RenderAsync(DatasetRecord dataset, LayerRequest request, CancellationToken cancel)
+    {
+        var stamp = await catalog.StatisticsStampAsync(dataset, cancel);
+        var key = request.CacheKey(stamp.Token);
+        if (await layerCache.FindAsync(dataset.Id, key, cancel) is { } cached) return cached;
+
+        var data = await LoadAsync(dataset, request, cancel);
+        if (data is null) return null;
+        var content = request.Format switch
+        {
+            LayerFormat.Csv => LayerCsvWriter.Write(data),
+            LayerFormat.GeoJson => LayerGeoJsonWriter.Write(data, request.Polygons ? await footprints.ForAsync(dataset, cancel) : null),
+            LayerFormat.Tif => GeoTiffWriter.Write(await RasteriseAsync(data, cancel), GeoTiffMetadataOf(data), data.Provenance.GeneratedAtUtc),
+            LayerFormat.Nc => LayerNetCdfWriter.Write(await RasteriseAsync(data, cancel), data),
+            _ => LayerFigureRenderer.Render(await RasteriseAsync(data, cancel), data),
+        };
+        var etag = "\"" + Convert.ToHexStringLower(SHA256.HashData(content))[..32] + "\"";
+        var layer = new CachedLayer(etag, request.Format.ContentType(), content);
+        await layerCache.PutAsync(dataset.Id, key, layer, cancel);
+        return layer;
+    }
+
+    public async Task<LayerData?> LoadAsync(DatasetRecord dataset, LayerRequest request, CancellationToken cancel)
+    {
+        var values = await statistics.LayerAsync(dataset.Id, (short)request.Parameter, request.Period.Code,
+            ParameterCatalogue.Stored(request.Statistic), cancel: cancel);
+        if (values.Count == 0) return null;
+        return new LayerData(dataset, request, values, await provenance.ForAsync(dataset, cancel),
+            ParameterCatalogue.UnitOf(request.Parameter, request.Statistic));
+    }
+
+    /// <summary>The layer on a longitude/latitude raster: one pixel per cell on an even regular grid, else by triangles.</summary>
+    public async Task<LayerRaster> RasteriseAsync(LayerData data, CancellationToken cancel)
+    {
+        var dataset = data.Dataset;
+        if (dataset.GridKind == "regular" && GridAxes.From(dataset.GridJson) is { IsUniform: true } axes)
+            return LayerRasteriser.OnRegularGrid(axes, data.Values);
+        var triangles = dataset.GridKind == "mesh"
+            ? await memory.GetOrCreateAsync(("triangles", dataset.Id, dataset.CreatedAtUtc), async entry =>
+            {
+                entry.AbsoluteExpirationRelativeToNow = TimeSpan.FromMinutes(10);
+                return await cells.TrianglesAsync(dataset.Id, cancel);
+            }) ?? []
+            : LayerRasteriser.GridTriangles(data.Values);
+        return LayerRasteriser.OnTriangles(data.Values, triangles, options.Value.LayerMaxPixels);
+    }
+
+    private static GeoTiffMetadata GeoTiffMetadataOf(LayerData data)
+    {
+        var p = data.Provenance;
+        var items = new List<KeyValuePair<string, string>>
+        {
+            new("dataset", $"{p.Dataset} ({p.Title})"),
+            new("parameter", data.Request.Parameter.Symbol()),
+            new("statistic", data.Request.Statistic.Name()),
+            new("period", data.Request.Period.Name),
+            new("units", data.Units),
+            new("source_files", string.Join("; ", p.SourceFiles.Select(f => $"{f.Name} sha256={f.Sha256}"))),
+            new("software", $"{p.Software} {p.SoftwareVersion}"),
+            new("statistics_computed_at", p.StatisticsComputedAtUtc?.ToString("O") ?? "not computed"),
+            new("generated_at", p.GeneratedAtUtc.ToString("O")),
+            new("method", p.MethodNotes),
+            new("caution", p.Caution),
+        };
+        if (p.Citation is { } citation) items.Add(new("citation", citation));
+        return new GeoTiffMetadata($"{data.Title} ({data.Units}); dataset {p.Dataset}. {p.Caution}", items,
+            $"{data.Request.Parameter.Symbol()} {data.Request.Statistic.Name()} {data.Request.Period.Name}", data.Units, p.Licence);
+    }
+}

@@ -1,0 +1,71 @@
+using System.Globalization;
+using Atlas.Api.Infrastructure;
+using Atlas.Storage.Cells;
+using Atlas.Storage.Datasets;
+using Microsoft.AspNetCore.Http.HttpResults;
+using Microsoft.Extensions.Options;
+
+namespace Atlas.Api.Points;
+
+/// <summary>A position resolved to its dataset and nearest wet cell.</summary>
+public sealed record LocatedPoint(DatasetRecord Dataset, NearestCell Nearest, double LimitKilometres);
+
+/// <summary>
+/// Turns lat and lon query values into the nearest wet cell of a dataset, or into the problem that says what to
+/// fix: a missing or non-numeric coordinate, one off the globe, a position outside the dataset's extent, or one
+/// farther from every wet cell than the distance limit (a fixed km, or a multiple of the typical cell spacing).
+/// </summary>
+public sealed class PointLocator(DatasetCatalog catalog, CellStore cells, IOptions<AtlasApiOptions> options)
+{
+    /// <summary>Parses lat and lon into <paramref name="errors"/>; returns null when either is unusable.</summary>
+    public static (double Latitude, double Longitude)? ParsePosition(string? lat, string? lon, Dictionary<string, string[]> errors)
+    {
+        var latitude = Coordinate("lat", lat, 90, "latitude in degrees north, -90..90", errors);
+        var longitude = Coordinate("lon", lon, 180, "longitude in degrees east, -180..180", errors);
+        return latitude is { } y && longitude is { } x ? (y, x) : null;
+    }
+
+    public async Task<(LocatedPoint? Point, ProblemHttpResult? Problem)> LocateAsync(string slug, double latitude, double longitude, CancellationToken cancel)
+    {
+        var dataset = await catalog.FindAsync(slug, cancel);
+        if (dataset is null) return (null, ApiProblems.UnknownDataset(slug));
+        var limitKm = await LimitKilometresAsync(dataset, cancel);
+        if (await catalog.ExtentAsync(dataset, cancel) is not { } extent)
+            return (null, ApiProblems.Unprocessable("The dataset has no wet cells", $"Dataset '{slug}' has no wet cell loaded yet; ingest its files first."));
+        // Allow positions just outside the envelope of cell centres, as far as the distance limit reaches.
+        var marginLat = limitKm / 111.32;  // common practice: 111.32 km per degree of latitude
+        var marginLon = marginLat / Math.Max(0.05, Math.Cos(latitude * Math.PI / 180));
+        if (latitude < extent.South - marginLat || latitude > extent.North + marginLat
+            || longitude < extent.West - marginLon || longitude > extent.East + marginLon)
+            return (null, ApiProblems.Unprocessable("Outside the dataset extent",
+                $"({F(latitude)}, {F(longitude)}) lies outside dataset '{slug}', which covers longitudes {F(extent.West)}..{F(extent.East)} " +
+                $"and latitudes {F(extent.South)}..{F(extent.North)}. Choose a position inside it."));
+        var nearest = await cells.NearestWetAsync(dataset.Id, latitude, longitude, cancel);
+        if (nearest is null)
+            return (null, ApiProblems.Unprocessable("The dataset has no wet cells", $"Dataset '{slug}' has no wet cell."));
+        if (nearest.DistanceMetres > limitKm * 1000)
+            return (null, ApiProblems.Unprocessable("No wet cell near this position",
+                $"The nearest wet cell of '{slug}' (cell {nearest.Cell.CellId} at {F(nearest.Cell.Latitude)}, {F(nearest.Cell.Longitude)}) is " +
+                $"{nearest.DistanceMetres / 1000:0.###} km away; the limit is {limitKm:0.###} km. The position is probably on land or beyond the " +
+                "model's wet area: move it over the sea."));
+        return (new LocatedPoint(dataset, nearest, limitKm), null);
+    }
+
+    private async Task<double> LimitKilometresAsync(DatasetRecord dataset, CancellationToken cancel)
+    {
+        var settings = options.Value;
+        if (settings.PointMaxDistanceKm is { } fixedKm) return fixedKm;
+        var spacing = await catalog.TypicalSpacingMetresAsync(dataset, cancel) ?? 10_000;
+        return settings.PointMaxDistanceGridSpacings * spacing / 1000;
+    }
+
+    private static double? Coordinate(string name, string? text, double bound, string meaning, Dictionary<string, string[]> errors)
+    {
+        if (string.IsNullOrWhiteSpace(text)) { errors[name] = [$"{name} is required: the {meaning}."]; return null; }
+        if (!QueryNumbers.TryParse(text, out var value)) { errors[name] = [$"{name} '{text}' is not a number: give the {meaning}, with a decimal point."]; return null; }
+        if (value < -bound || value > bound) { errors[name] = [$"{name} {F(value)} is out of range: give the {meaning}."]; return null; }
+        return value;
+    }
+
+    private static string F(double v) => v.ToString("0.#####", CultureInfo.InvariantCulture);
+}

@@ -1,1 +1,0 @@
-namespace Atlas.Api.Tests; public class Placeholder { [Fact] public void Builds() { } }
