@@ -26,7 +26,7 @@ h = np.clip(season[:, None, None] * storm[:, None, None] * (0.6 + 0.8 * base)[No
 h = np.round(h, 3).astype(np.float32)
 p = np.round(5.0 + 1.7 * np.sqrt(h) + 0.3 * rng.random(h.shape), 2).astype(np.float32)
 # A gap: one cell missing for ten days, to exercise the missing-value handling of both tools.
-h[200:280, 1, 1] = np.ma.masked if False else -999.0
+h[200:280, 1, 1] = -999.0
 p[200:280, 1, 1] = -999.0
 hs[:] = np.ma.masked_equal(h, -999.0)
 te[:] = np.ma.masked_equal(p, -999.0)

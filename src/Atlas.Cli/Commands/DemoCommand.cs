@@ -1,0 +1,67 @@
+using System.CommandLine;
+using System.Text.Json;
+using Atlas.Demo;
+using Atlas.Ingest.Progress;
+using Atlas.Ingest.Worker;
+using Atlas.Storage;
+using Atlas.Storage.Jobs;
+
+namespace Atlas.Cli.Commands;
+
+/// <summary>
+/// <c>atlas demo</c>: generate the invented demo scenario (once), ingest it (files already loaded are skipped by
+/// checksum, so re-running duplicates nothing), compute the statistics of changed cells, and optionally serve.
+/// </summary>
+public static class DemoCommand
+{
+    public const string DatasetSlug = "skelvane-reach";
+
+    public static Command Build()
+    {
+        var serve = new Option<bool>("--serve") { Description = "Serve the atlas when the demo is loaded" };
+        var regenerate = new Option<bool>("--regenerate") { Description = "Write the demo files again even if they exist" };
+        var command = new Command("demo", "Generate, load and (with --serve) serve the invented demo coast.") { serve, regenerate };
+        command.SetAction(async (parse, cancel) =>
+        {
+            var folder = Path.Combine(AtlasHome.Resolve(), "demo");
+            var scenario = DemoScenario.Describe(DemoScenarioOptions.Full);
+            var files = scenario.FieldFiles.Select(f => Path.Combine(folder, f)).ToArray();
+            if (parse.GetValue(regenerate) || !files.All(File.Exists) || !File.Exists(Path.Combine(folder, DemoScenario.ManifestFileName)))
+            {
+                Console.WriteLine($"atlas demo: generating {scenario.Name} into {folder}");
+                var display = new ConsoleProgress();
+                var started = DateTime.UtcNow;
+                var output = DemoScenarioWriter.Write(folder, DemoScenarioOptions.Full,
+                    new Progress<DemoProgress>(p => display.Report(new ProgressSnapshot("generating", p.Done, p.Total, 0, DateTime.UtcNow - started, "files"))));
+                Console.WriteLine($"atlas demo: wrote {output.Files.Count} files ({output.TotalBytes / 1e6:F0} MB) in {ProgressSnapshot.FormatDuration(output.Elapsed)}");
+            }
+            else Console.WriteLine($"atlas demo: using the files already generated in {folder}");
+            foreach (var line in scenario.DescribeLines()) Console.WriteLine("  " + line);
+
+            await using var dataSource = await AtlasDatabase.OpenMigratedAsync(cancel: cancel);
+            var queue = new JobQueue(dataSource);
+            var payload = new IngestPayload(files, $"{scenario.Name} (invented demo coast)", QueueStatistics: false);
+            var id = await queue.EnqueueAsync(JobKind.Ingest, DatasetSlug, JsonSerializer.Serialize(payload), cancel);
+            var job = await queue.ClaimAsync(id, CommandWorker.Name, cancel) ?? throw new InvalidOperationException($"Job {id} was claimed by another worker.");
+            try
+            {
+                Console.WriteLine(await new JobRunner(dataSource).RunAsync(job, new ConsoleProgress(), cancel));
+            }
+            catch (Exception e) when (e is not OperationCanceledException)
+            {
+                Console.Error.WriteLine($"atlas demo: {e.Message}");
+                return 2;
+            }
+            var stats = await StatsCommand.RunAsync(dataSource, DatasetSlug, all: false, cancel);
+            if (stats != 0) return stats;
+            if (!parse.GetValue(serve))
+            {
+                Console.WriteLine($"atlas demo: loaded; run 'atlas serve' and open {ServeCommand.Url}/");
+                return 0;
+            }
+            await ServeCommand.RunAsync(url => Console.WriteLine($"atlas demo: ready at {url}/ (dataset '{DatasetSlug}': {url}/api/v1/datasets/{DatasetSlug})"), cancel);
+            return 0;
+        });
+        return command;
+    }
+}
