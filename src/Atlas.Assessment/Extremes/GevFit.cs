@@ -53,9 +53,7 @@ public sealed class GevFit
         double logY = Math.Log(-Math.Log(1 - 1 / returnPeriodYears));
         var (lower, upper) = ProfileLikelihoodInterval.Find(
             ProfileAt(logY), level, LogLikelihood, confidenceLevel, 0.2 * Distribution.Scale, double.NegativeInfinity);
-        string? note = double.IsPositiveInfinity(upper)
-            ? "The profile likelihood does not bound the level from above: the data are consistent with arbitrarily large values."
-            : null;
+        string? note = ProfileLikelihoodInterval.Describe(lower, upper);
         return new ReturnLevel(returnPeriodYears, level, lower, upper, confidenceLevel, longExtrapolation, note);
     }
 

@@ -62,9 +62,7 @@ public sealed class GpdFit
         double level = Threshold + ReducedLevel(Distribution.Scale, Distribution.Shape, logPeaks);
         var (lower, upper) = ProfileLikelihoodInterval.Find(
             ProfileAt(logPeaks), level, LogLikelihood, confidenceLevel, 0.2 * Distribution.Scale, Threshold);
-        string? note = double.IsPositiveInfinity(upper)
-            ? "The profile likelihood does not bound the level from above: the data are consistent with arbitrarily large values."
-            : null;
+        string? note = ProfileLikelihoodInterval.Describe(lower, upper);
         return new ReturnLevel(returnPeriodYears, level, lower, upper, confidenceLevel, longExtrapolation, note);
     }
 

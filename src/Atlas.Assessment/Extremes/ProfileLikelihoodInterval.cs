@@ -18,7 +18,36 @@ internal static class ProfileLikelihoodInterval
     /// <param name="initialStep">First trial distance from the estimate, in the quantity's units.</param>
     /// <param name="lowerLimit">Values at or below this are impossible (−∞ for none).</param>
     /// <returns>Bounds; the upper is +∞ when the profile does not fall far enough within 2^40 steps.</returns>
+    /// <remarks>When a nested maximisation fails to converge both bounds come back NaN; the caller notes it.</remarks>
     public static (double Lower, double Upper) Find(
+        Func<double, double> profileLogLikelihood,
+        double estimate,
+        double maximumLogLikelihood,
+        double confidenceLevel,
+        double initialStep,
+        double lowerLimit)
+    {
+        try
+        {
+            return Search(profileLogLikelihood, estimate, maximumLogLikelihood, confidenceLevel, initialStep, lowerLimit);
+        }
+        catch (InvalidOperationException)
+        {
+            return (double.NaN, double.NaN);
+        }
+    }
+
+    /// <summary>Text for a result whose interval could not be found or is open above; null when neither.</summary>
+    public static string? Describe(double lower, double upper)
+    {
+        if (double.IsNaN(lower) || double.IsNaN(upper))
+            return "The profile likelihood could not be maximised near this level, so no confidence interval is given.";
+        if (double.IsPositiveInfinity(upper))
+            return "The profile likelihood does not bound the level from above: the data are consistent with arbitrarily large values.";
+        return null;
+    }
+
+    private static (double Lower, double Upper) Search(
         Func<double, double> profileLogLikelihood,
         double estimate,
         double maximumLogLikelihood,
