@@ -53,6 +53,7 @@ public static class AtlasApiRegistration
         {
             json.SerializerOptions.PropertyNamingPolicy = JsonNamingPolicy.SnakeCaseLower;
             json.SerializerOptions.NumberHandling = System.Text.Json.Serialization.JsonNumberHandling.AllowNamedFloatingPointLiterals;
+            json.SerializerOptions.Converters.Add(new System.Text.Json.Serialization.JsonStringEnumConverter(JsonNamingPolicy.SnakeCaseLower));
             json.SerializerOptions.Converters.Add(new NetTopologySuite.IO.Converters.GeoJsonConverterFactory());
         });
         services.AddProblemDetails(problem => problem.CustomizeProblemDetails = context =>

@@ -5,13 +5,13 @@ using Atlas.Api.Points;
 namespace Atlas.Api.Apis;
 
 /// <summary><c>/api/v1/datasets/{slug}/point</c>: statistics and series at the wet cell nearest a position.</summary>
-public static partial class PointApi
+public static class PointApi
 {
     public static IEndpointRouteBuilder MapPointApi(this IEndpointRouteBuilder routes)
     {
         var group = routes.MapGroup("/api/v1/datasets/{slug}").WithTags("Points");
         group.MapPointSeries();
-        MapPointStatistics(group);
+        group.MapPointStatistics();
         return routes;
     }
 
@@ -20,6 +20,4 @@ public static partial class PointApi
         var c = point.Nearest.Cell;
         return new PointCell(c.CellId, c.Latitude, c.Longitude, c.DepthMetres, Math.Round(point.Nearest.DistanceMetres, 1), c.CoastDistanceMetres);
     }
-
-    static partial void MapPointStatistics(RouteGroupBuilder group);
 }

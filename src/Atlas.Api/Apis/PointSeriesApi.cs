@@ -67,11 +67,12 @@ public static class PointSeriesApi
 
     private static async Task WriteCsvAsync(Stream stream, PointSeries s, PointCell cell, Provenance source, int first, int last, CancellationToken cancel)
     {
+        var (te, power, teFromTp) = s.Derived();
         await using var writer = new StreamWriter(stream, new UTF8Encoding(false), 64 * 1024);
         await writer.WriteAsync($"# series of cell {cell.Id} at lat {F(cell.Lat)} lon {F(cell.Lon)}, depth_m {(cell.DepthM is { } d ? F(d) : "unknown (deep water assumed)")}, " +
                                 $"{cell.DistanceM:0.#} m from the requested position; years {first}..{last}\n");
         await writer.WriteAsync($"# units: {Units}\n");
-        if (s.EnergyPeriodFromPeak) await writer.WriteAsync("# te: derived as 0.9 tp (JONSWAP gamma 3.3), the dataset has no energy period\n");
+        if (teFromTp) await writer.WriteAsync("# te: derived as 0.9 tp (JONSWAP gamma 3.3), the dataset has no energy period\n");
         foreach (var line in source.HeaderLines()) await writer.WriteAsync(line + "\n");
         await writer.WriteAsync("time,hs,te,tp,dir,spread,j\n");
         var line8 = new StringBuilder(96);
@@ -80,11 +81,11 @@ public static class PointSeriesApi
             line8.Clear();
             line8.Append(DateTimeOffset.FromUnixTimeSeconds(s.Times[i]).UtcDateTime.ToString("yyyy-MM-dd'T'HH:mm:ss'Z'", CultureInfo.InvariantCulture));
             Append(line8, s.Hs[i], "0.###");
-            Append(line8, s.HasTe ? s.Te[i] : float.NaN, "0.###");
+            Append(line8, te[i], "0.###");
             Append(line8, s.HasTp ? s.Tp[i] : float.NaN, "0.##");
             Append(line8, s.HasDir ? s.Dir[i] : float.NaN, "0.##");
             Append(line8, s.HasSpread ? s.Spread[i] : float.NaN, "0.##");
-            Append(line8, s.Power[i], "0.###");
+            Append(line8, power[i], "0.###");
             line8.Append('\n');
             await writer.WriteAsync(line8, cancel);
         }
@@ -93,6 +94,7 @@ public static class PointSeriesApi
 
     private static async Task WriteJsonAsync(Stream stream, PointSeries s, PointCell cell, Provenance source, int first, int last, CancellationToken cancel)
     {
+        var (te, power, teFromTp) = s.Derived();
         await using var json = new Utf8JsonWriter(stream);
         json.WriteStartObject();
         json.WritePropertyName("cell");
@@ -100,7 +102,7 @@ public static class PointSeriesApi
         json.WriteNumber("from_year", first);
         json.WriteNumber("to_year", last);
         json.WriteString("units", Units);
-        json.WriteBoolean("te_from_tp", s.EnergyPeriodFromPeak);
+        json.WriteBoolean("te_from_tp", teFromTp);
         json.WritePropertyName("provenance");
         JsonSerializer.Serialize(json, source, GeoJsonSerialisation.Options);
         json.WriteString("caution", AtlasCaution.Text);
@@ -110,11 +112,11 @@ public static class PointSeriesApi
             json.WriteStartObject();
             json.WriteString("time", DateTimeOffset.FromUnixTimeSeconds(s.Times[i]).UtcDateTime);
             Write(json, "hs", s.Hs[i], 3);
-            Write(json, "te", s.HasTe ? s.Te[i] : float.NaN, 3);
+            Write(json, "te", te[i], 3);
             Write(json, "tp", s.HasTp ? s.Tp[i] : float.NaN, 2);
             Write(json, "dir", s.HasDir ? s.Dir[i] : float.NaN, 2);
             Write(json, "spread", s.HasSpread ? s.Spread[i] : float.NaN, 2);
-            Write(json, "j", s.Power[i], 3);
+            Write(json, "j", power[i], 3);
             json.WriteEndObject();
             if (json.BytesPending > 32 * 1024) await json.FlushAsync(cancel);
         }

@@ -1,17 +1,46 @@
+using Atlas.Statistics;
 using Atlas.Storage.Series;
 using Atlas.WavePhysics;
 
 namespace Atlas.Api.Points;
 
-/// <summary>One cell's series over whole years, decoded, with power per step.</summary>
-public sealed record PointSeries(long[] Times, float[] Hs, float[] Te, float[] Tp, float[] Dir, float[] Spread, float[] Power,
-    bool EnergyPeriodFromPeak, bool HasTe, bool HasTp, bool HasDir, bool HasSpread);
+/// <summary>One cell's stored series over whole years, decoded onto the dataset's time lines (NaN = missing).</summary>
+public sealed record PointSeries(long[] Times, float[] Hs, float[] Te, float[] Tp, float[] Dir, float[] Spread,
+    bool HasTe, bool HasTp, bool HasDir, bool HasSpread, double DepthMetres)
+{
+    /// <summary>The series as the statistics library takes it: absent variables as empty spans.</summary>
+    public CellSeries ToCellSeries() => new()
+    {
+        Times = Times,
+        Hs = Hs,
+        Te = HasTe ? Te : default,
+        Tp = HasTp ? Tp : default,
+        Dir = HasDir ? Dir : default,
+        Spread = HasSpread ? Spread : default,
+        DepthMetres = DepthMetres,
+    };
 
-/// <summary>
-/// Decodes a cell's stored chunks onto the dataset's time lines. Years without a chunk are left out. Te is the
-/// stored one when the dataset has it; otherwise it is 0.9 Tp (JONSWAP, gamma 3.3; common practice) and the series
-/// says so. Power per step comes from the group velocity at the cell depth (deep water when the depth is unknown).
-/// </summary>
+    /// <summary>
+    /// Te per step (the stored one, or 0.9 Tp for JONSWAP gamma 3.3 when the dataset has only Tp, as the statistics
+    /// library assumes by default) and power per step from the group velocity at the cell depth.
+    /// </summary>
+    public (float[] Te, float[] Power, bool TeFromTp) Derived()
+    {
+        var te = Te;
+        var fromTp = !HasTe && HasTp;
+        if (fromTp)
+        {
+            te = new float[Tp.Length];
+            PeriodConversion.EnergyPeriodFromPeakPeriod(Tp, te, new StatisticsOptions().AssumedSpectrum);
+        }
+        var table = new GroupVelocityTable(DepthMetres);
+        var power = new float[Hs.Length];
+        for (var i = 0; i < power.Length; i++) power[i] = HasTe || fromTp ? (float)table.Power(Hs[i], te[i]) : float.NaN;
+        return (te, power, fromTp);
+    }
+}
+
+/// <summary>Decodes a cell's stored chunks (see <see cref="SeriesCodec"/>); years without a chunk or time line are left out.</summary>
 public static class PointSeriesReader
 {
     public static PointSeries Decode(IReadOnlyList<SeriesChunk> chunks, IReadOnlyDictionary<int, long[]> timelines, double depthMetres)
@@ -37,11 +66,7 @@ public static class PointSeriesReader
             hasSpread |= SeriesCodec.Decode(chunk.Payload, SeriesVariable.Spread, spread.AsSpan(offset, n));
             offset += n;
         }
-        var fromPeak = !hasTe && hasTp;
-        if (fromPeak) PeriodConversion.EnergyPeriodFromPeakPeriod(tp, te);
-        var table = new GroupVelocityTable(depthMetres is > 0 ? depthMetres : double.NaN);
-        var power = new float[total];
-        for (var i = 0; i < total; i++) power[i] = (float)table.Power(hs[i], te[i]);
-        return new PointSeries(times, hs, te, tp, dir, spread, power, fromPeak, hasTe || fromPeak, hasTp, hasDir, hasSpread);
+        var depth = depthMetres > 0 ? depthMetres : double.NaN;
+        return new PointSeries(times, hs, te, tp, dir, spread, hasTe, hasTp, hasDir, hasSpread, depth);
     }
 }

@@ -1,0 +1,150 @@
+using System.Globalization;
+using System.Text;
+using Atlas.Api.Infrastructure;
+using Atlas.Api.Model;
+using Atlas.Api.Points;
+using Atlas.Statistics;
+using Atlas.Storage.Series;
+using Microsoft.AspNetCore.Http.HttpResults;
+
+namespace Atlas.Api.Apis;
+
+/// <summary><c>GET /api/v1/datasets/{slug}/point</c>: exact statistics from the stored series of the nearest wet cell.</summary>
+public static class PointStatisticsApi
+{
+    public static readonly string[] Parts = ["exceedance", "joint", "rose", "interannual"];
+
+    public static RouteHandlerBuilder MapPointStatistics(this RouteGroupBuilder group) =>
+        group.MapGet("/point", PointAsync).WithName("PointStatistics")
+            .WithSummary("Exact statistics of every parameter at the wet cell nearest a position")
+            .WithDescription(
+                "lat, lon: degrees. period: one of jan..dec, djf, mam, jja, son, annual, y2019, or all (default). from, to: calendar " +
+                "years (inclusive) and months: calendar months 1..12 (comma separated) restrict the series used; the annual period is " +
+                "then the whole window. include: comma-separated parts among exceedance (Hs and J exceedance curves over the window), " +
+                "joint (Hm0 x Te occurrence, 0.5 m x 1 s bins, with mean power and share of energy per bin), rose (16-sector power rose), " +
+                "interannual (yearly annual and seasonal means and coefficients of variation); all by default, none for summaries only. " +
+                "Statistics are computed exactly from the stored series (percentiles Hyndman-Fan type 7); the cell (id, lat, lon, depth_m, " +
+                "distance_m) is the nearest wet cell, refused (422) beyond the distance limit or outside the extent. " +
+                "format=csv gives the period table after '#' lines of provenance, units and the caution.")
+            .RequireRateLimiting(RateLimits.Expensive);
+
+    public static async Task<Results<Ok<PointStatistics>, FileContentHttpResult, ProblemHttpResult, ValidationProblem>> PointAsync(
+        string slug, string? lat, string? lon, string? period, string? from, string? to, string? months, string? include, string? format,
+        PointLocator locator, DatasetCatalog catalog, SeriesStore series, ProvenanceBuilder provenance, CancellationToken cancel)
+    {
+        var errors = new Dictionary<string, string[]>();
+        var position = PointLocator.ParsePosition(lat, lon, errors);
+        var window = YearWindow.Parse(from, to, months, errors);
+        AtlasPeriod? onlyPeriod = null;
+        if (period is not null && period != "all")
+        {
+            if (AtlasPeriod.TryParse(period, out var p)) onlyPeriod = p;
+            else errors["period"] = [$"'{period}' is not a period: use jan..dec, djf, mam, jja, son, annual, y followed by a year (y2019), or all."];
+        }
+        var parts = ParseParts(include, errors);
+        var csv = format == "csv";
+        if (format is not (null or "json" or "csv")) errors["format"] = [$"'{format}' is not a point format: use json or csv."];
+        if (errors.Count > 0 || position is null || window is null || parts is null)
+            return TypedResults.ValidationProblem(errors, title: "The point request has invalid query values");
+
+        var (point, problem) = await locator.LocateAsync(slug, position.Value.Latitude, position.Value.Longitude, cancel);
+        if (point is null) return problem!;
+        var timelines = await catalog.TimelinesAsync(point.Dataset, cancel);
+        var chunks = await series.ReadCellAsync(point.Dataset.Id, point.Nearest.Cell.CellId, window.FromYear, window.ToYear, cancel);
+        if (chunks.Count == 0)
+            return ApiProblems.Unprocessable("No series in the window",
+                $"Cell {point.Nearest.Cell.CellId} of '{slug}' has no stored series{WindowText(window)}; stored years are " +
+                $"{(timelines.Count == 0 ? "none" : $"{timelines.Keys.First()}..{timelines.Keys.Last()}")}.");
+        var decoded = PointSeriesReader.Decode(chunks, timelines, point.Nearest.Cell.DepthMetres is { } d ? d : double.NaN);
+        var result = PointAnalysis.Analyse(decoded.ToCellSeries(), new PointAnalysisOptions
+        {
+            Window = new AnalysisWindow(window.FromYear, window.ToYear, window.Months),
+        });
+        var periods = result.Periods.Where(p => onlyPeriod is not { } only || p.Period == only).ToArray();
+        if (periods.Length == 0)
+            return ApiProblems.Unprocessable("The period has no steps in the window",
+                $"{onlyPeriod!.Value.Name} has no step{WindowText(window)} at cell {point.Nearest.Cell.CellId}; widen the window or choose another period.");
+
+        var source = await provenance.ForAsync(point.Dataset, cancel);
+        var cell = PointApi.CellOf(point);
+        var units = WaveParameterNames.All.ToDictionary(p => p.Symbol(), p => p.Unit());
+        if (csv) return TypedResults.File(Csv(slug, cell, window, periods, source), "text/csv; charset=utf-8", $"{slug}_point_{cell.Id}.csv");
+
+        var annual = result.Find(AtlasPeriod.Annual);
+        return TypedResults.Ok(new PointStatistics(
+            slug, cell, new PointWindow(window.FromYear, window.ToYear, window.Months), result.StepsInWindow, result.DeepWaterAssumed,
+            result.EnergyPeriodSource, result.QuantileDefinition, units, periods,
+            parts.Contains("exceedance") ? new PointExceedance(result.HsExceedance, result.PowerExceedance) : null,
+            parts.Contains("joint") ? result.JointOccurrence : null,
+            parts.Contains("rose") && annual is not null ? RoseOf(annual.Direction) : null,
+            parts.Contains("interannual") ? result.InterAnnual : null,
+            source, AtlasCaution.Text));
+    }
+
+    private static PowerRose RoseOf(DirectionStatistics direction) => new(
+        DirectionStatistics.Sectors, DirectionStatistics.SectorWidthDegrees,
+        Enumerable.Range(0, DirectionStatistics.Sectors).Select(k => k * DirectionStatistics.SectorWidthDegrees).ToArray(),
+        direction.PowerRose);
+
+    private static HashSet<string>? ParseParts(string? include, Dictionary<string, string[]> errors)
+    {
+        if (include is null || include == "all") return [.. Parts];
+        if (include == "none") return [];
+        var parts = new HashSet<string>();
+        foreach (var part in include.Split(',', StringSplitOptions.TrimEntries | StringSplitOptions.RemoveEmptyEntries))
+        {
+            if (!Parts.Contains(part))
+            {
+                errors["include"] = [$"'{part}' is not a part: include takes {string.Join(", ", Parts)} (comma separated), all, or none."];
+                return null;
+            }
+            parts.Add(part);
+        }
+        return parts;
+    }
+
+    private static readonly WaveParameter[] Summarised = [WaveParameter.Hs, WaveParameter.Te, WaveParameter.Tp, WaveParameter.J, WaveParameter.Spread, WaveParameter.D];
+
+    private static byte[] Csv(string slug, PointCell cell, YearWindow window, IReadOnlyList<PeriodStatistics> periods, Provenance source)
+    {
+        var text = new StringBuilder();
+        text.Append(CultureInfo.InvariantCulture, $"# point statistics of dataset {slug}, cell {cell.Id} at lat {cell.Lat:0.#####} lon {cell.Lon:0.#####}, ")
+            .Append(CultureInfo.InvariantCulture, $"depth_m {(cell.DepthM is { } d ? d.ToString("0.##", CultureInfo.InvariantCulture) : "unknown (deep water assumed)")}, ")
+            .Append(CultureInfo.InvariantCulture, $"distance_m {cell.DistanceM:0.#}\n");
+        text.Append("# window: ").Append(window.FromYear?.ToString(CultureInfo.InvariantCulture) ?? "first year").Append("..")
+            .Append(window.ToYear?.ToString(CultureInfo.InvariantCulture) ?? "last year")
+            .Append(window.Months is { } m ? "; months " + string.Join(' ', m) : "; all months").Append('\n');
+        text.Append("# units: hs m; te s; tp s; j kW/m; spread degree; d 1; dir degree true (power-weighted mean of the direction waves come from); count steps; coverage 1\n");
+        text.Append("# percentiles exact from the series (Hyndman-Fan type 7); sd is the population standard deviation\n");
+        foreach (var line in source.HeaderLines()) text.Append(line).Append('\n');
+        text.Append("period,parameter,mean,sd,min,max,p10,p50,p90,p99,count,coverage,low_coverage\n");
+        foreach (var p in periods)
+        {
+            foreach (var parameter in Summarised)
+            {
+                var s = p.Summary(parameter);
+                text.Append(p.Period.Name).Append(',').Append(parameter.Symbol());
+                foreach (var v in new[] { s.Mean, s.Sd, s.Min, s.Max, s.P10, s.P50, s.P90, s.P99 }) Number(text, v);
+                text.Append(',').Append(s.Count.ToString(CultureInfo.InvariantCulture));
+                Number(text, s.Coverage);
+                text.Append(',').Append(p.LowCoverage ? "true" : "false").Append('\n');
+            }
+            text.Append(p.Period.Name).Append(",dir");
+            Number(text, p.Direction.Mean);
+            text.Append(",,,,,,,");
+            text.Append(',').Append(p.Direction.Count.ToString(CultureInfo.InvariantCulture));
+            Number(text, p.Direction.Coverage);
+            text.Append(',').Append(p.LowCoverage ? "true" : "false").Append('\n');
+        }
+        return new UTF8Encoding(false).GetBytes(text.ToString());
+    }
+
+    private static void Number(StringBuilder text, double value)
+    {
+        text.Append(',');
+        if (!double.IsNaN(value)) text.Append(value.ToString("R", CultureInfo.InvariantCulture));
+    }
+
+    private static string WindowText(YearWindow w) =>
+        w.FromYear is null && w.ToYear is null && w.Months is null ? "" : $" in the window {w.FromYear?.ToString(CultureInfo.InvariantCulture) ?? "..."}-{w.ToYear?.ToString(CultureInfo.InvariantCulture) ?? "..."}" + (w.Months is { } m ? $" months {string.Join(',', m)}" : "");
+}
