@@ -31,7 +31,7 @@ public static class DeviceYield
     /// back, before calling).</param>
     /// <param name="options">Interpolation and year coverage.</param>
     /// <exception cref="ArgumentException">The period kinds differ or the series are not aligned.</exception>
-    public static SeriesYield FromSeries(PowerMatrix matrix, RegularSeries hs, RegularSeries period, PeriodKind periodKind, YieldOptions? options = null)
+    public static SeriesYield FromSeries(PowerMatrix matrix, RegularSeries hs, RegularSeries period, WavePeriodKind periodKind, YieldOptions? options = null)
     {
         ArgumentNullException.ThrowIfNull(matrix);
         ArgumentNullException.ThrowIfNull(hs);
@@ -129,12 +129,12 @@ public static class DeviceYield
         return new TableYield(meanPower, meanPower * UtcCalendar.HoursPerMeanYear / 1000.0, meanPower / matrix.RatedPowerKw, outside / table.Total);
     }
 
-    private static void RequireKind(PowerMatrix matrix, PeriodKind given, string what)
+    private static void RequireKind(PowerMatrix matrix, WavePeriodKind given, string what)
     {
         if (given != matrix.PeriodKind)
             throw new ArgumentException(
                 $"Power matrix '{matrix.Name}' is over {Describe(matrix.PeriodKind)} but the {what} holds {Describe(given)}; convert the period first.");
     }
 
-    private static string Describe(PeriodKind kind) => kind == PeriodKind.EnergyPeriod ? "Te (energy period)" : "Tp (peak period)";
+    private static string Describe(WavePeriodKind kind) => kind == WavePeriodKind.EnergyPeriod ? "Te (energy period)" : "Tp (peak period)";
 }

@@ -16,7 +16,7 @@ public sealed class JointOccurrenceTable
     /// <param name="periodCentresSeconds">Period bin centres (columns).</param>
     /// <param name="occurrence">Counts or fractions, [Hs index, period index], finite and at or above 0, with a positive sum.</param>
     /// <exception cref="ArgumentException">Shapes disagree, a value is negative or not finite, or every value is 0.</exception>
-    public JointOccurrenceTable(PeriodKind periodKind, ReadOnlySpan<double> hsCentresMetres, ReadOnlySpan<double> periodCentresSeconds, double[,] occurrence)
+    public JointOccurrenceTable(WavePeriodKind periodKind, ReadOnlySpan<double> hsCentresMetres, ReadOnlySpan<double> periodCentresSeconds, double[,] occurrence)
     {
         ArgumentNullException.ThrowIfNull(occurrence);
         if (occurrence.GetLength(0) != hsCentresMetres.Length || occurrence.GetLength(1) != periodCentresSeconds.Length)
@@ -40,7 +40,7 @@ public sealed class JointOccurrenceTable
     }
 
     /// <summary>The period of the columns.</summary>
-    public PeriodKind PeriodKind { get; }
+    public WavePeriodKind PeriodKind { get; }
 
     /// <summary>Hs bin centres, m.</summary>
     public IReadOnlyList<double> HsCentresMetres => _hs;

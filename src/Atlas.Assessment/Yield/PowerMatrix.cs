@@ -24,7 +24,7 @@ public sealed class PowerMatrix
     /// <param name="powerKw">Power, [Hs index, period index], finite and at or above 0, not all 0.</param>
     /// <param name="ratedPowerKw">Rated power; defaults to the largest matrix value and may not be below it.</param>
     /// <exception cref="ArgumentException">Any of the conditions above fails.</exception>
-    public PowerMatrix(string name, PeriodKind periodKind, ReadOnlySpan<double> hsCentresMetres, ReadOnlySpan<double> periodCentresSeconds,
+    public PowerMatrix(string name, WavePeriodKind periodKind, ReadOnlySpan<double> hsCentresMetres, ReadOnlySpan<double> periodCentresSeconds,
         double[,] powerKw, double? ratedPowerKw = null)
     {
         ArgumentNullException.ThrowIfNull(powerKw);
@@ -60,7 +60,7 @@ public sealed class PowerMatrix
     public string Name { get; }
 
     /// <summary>The period of the columns.</summary>
-    public PeriodKind PeriodKind { get; }
+    public WavePeriodKind PeriodKind { get; }
 
     /// <summary>Hs bin centres, m.</summary>
     public IReadOnlyList<double> HsCentresMetres => _hs;

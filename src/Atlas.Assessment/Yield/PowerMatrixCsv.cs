@@ -40,9 +40,9 @@ public static class PowerMatrixCsv
         if (!lines.TryReadRecord(out int headerLine, out string[] header))
             throw new CsvInputException(name, [new CsvInputError(headerLine, null, "the input is empty: a header line is required")]);
 
-        PeriodKind kind = PeriodKind.EnergyPeriod;
+        WavePeriodKind kind = WavePeriodKind.EnergyPeriod;
         if (header[0] == PeakPeriodAxes)
-            kind = PeriodKind.PeakPeriod;
+            kind = WavePeriodKind.PeakPeriod;
         else if (header[0] != EnergyPeriodAxes)
             errors.Add(new CsvInputError(headerLine, 1,
                 $"first header cell '{header[0]}' must name the axes: '{EnergyPeriodAxes}' (Te columns) or '{PeakPeriodAxes}' (Tp columns)"));

@@ -80,7 +80,7 @@ public class DeviceYieldTests(InterpolationReference reference) : IClassFixture<
             { 0, 1, 1, 0 },
             { 0, 0, 2, 0 }, // Hs 4 m: beyond the matrix's 3.5 m edge
         };
-        var table = new JointOccurrenceTable(PeriodKind.EnergyPeriod, [1.0, 2.0, 3.0, 4.0], [6.0, 8.0, 10.0, 12.0], counts);
+        var table = new JointOccurrenceTable(WavePeriodKind.EnergyPeriod, [1.0, 2.0, 3.0, 4.0], [6.0, 8.0, 10.0, 12.0], counts);
 
         var yield = DeviceYield.ProductionFromJointTable(reference.Matrix, table);
 
@@ -95,16 +95,16 @@ public class DeviceYieldTests(InterpolationReference reference) : IClassFixture<
     [Fact]
     public void ConstantMatrixGivesCapacityFactorOfConstantOverRated()
     {
-        var constant = new PowerMatrix("constant", PeriodKind.EnergyPeriod, [0.5, 5.0], [4.0, 16.0], new double[,] { { 200, 200 }, { 200, 200 } }, ratedPowerKw: 500);
+        var constant = new PowerMatrix("constant", WavePeriodKind.EnergyPeriod, [0.5, 5.0], [4.0, 16.0], new double[,] { { 200, 200 }, { 200, 200 } }, ratedPowerKw: 500);
         var hs = new RegularSeries(January2021, Hour, SeededSamples.Uniform(61, 2000, 0.5, 5.0));
         var te = new RegularSeries(January2021, Hour, SeededSamples.Uniform(62, 2000, 4.0, 16.0));
 
-        var yield = DeviceYield.FromSeries(constant, hs, te, PeriodKind.EnergyPeriod);
+        var yield = DeviceYield.FromSeries(constant, hs, te, WavePeriodKind.EnergyPeriod);
 
         Assert.Equal(200.0 / 500.0, yield.CapacityFactor, 1e-12);
         Assert.Equal(200.0, yield.MeanPowerKw, 1e-10);
         Assert.Equal(0, yield.OutsideMatrixSteps);
-        var table = new JointOccurrenceTable(PeriodKind.EnergyPeriod, [1.0, 2.0], [6.0, 9.0], new double[,] { { 0.3, 0.2 }, { 0.1, 0.4 } });
+        var table = new JointOccurrenceTable(WavePeriodKind.EnergyPeriod, [1.0, 2.0], [6.0, 9.0], new double[,] { { 0.3, 0.2 }, { 0.1, 0.4 } });
         Assert.Equal(0.4, DeviceYield.ProductionFromJointTable(constant, table).CapacityFactor, 1e-12);
     }
 
@@ -116,7 +116,7 @@ public class DeviceYieldTests(InterpolationReference reference) : IClassFixture<
         var hs = new RegularSeries(January2021, Hour, [1, 3, 1, 3]);
         var te = new RegularSeries(January2021, Hour, [6, 10, 6, 10]);
 
-        var yield = DeviceYield.FromSeries(reference.Matrix, hs, te, PeriodKind.EnergyPeriod);
+        var yield = DeviceYield.FromSeries(reference.Matrix, hs, te, WavePeriodKind.EnergyPeriod);
 
         Assert.Equal(140.0, yield.MeanPowerKw, 1e-12);
         Assert.Equal(80.0, reference.Matrix.PowerKw(2, 8, PowerMatrixInterpolation.Bilinear), 1e-12);
@@ -128,7 +128,7 @@ public class DeviceYieldTests(InterpolationReference reference) : IClassFixture<
         var hs = new RegularSeries(January2021, Hour, [2, 2, 5, 2, double.NaN]);
         var te = new RegularSeries(January2021, Hour, [8, 4, 8, 8, 8]);
 
-        var yield = DeviceYield.FromSeries(reference.Matrix, hs, te, PeriodKind.EnergyPeriod);
+        var yield = DeviceYield.FromSeries(reference.Matrix, hs, te, WavePeriodKind.EnergyPeriod);
 
         Assert.Equal(4, yield.ValidSteps);
         Assert.Equal(1, yield.MissingSteps);
@@ -141,7 +141,7 @@ public class DeviceYieldTests(InterpolationReference reference) : IClassFixture<
     public void MonthlyProductionUsesEachMonthsMeanLength()
     {
         int steps = 2 * 8760; // 2021 and 2022, hourly
-        var yield = DeviceYield.FromSeries(reference.Matrix, Constant(January2021, steps, 2.0), Constant(January2021, steps, 10.0), PeriodKind.EnergyPeriod);
+        var yield = DeviceYield.FromSeries(reference.Matrix, Constant(January2021, steps, 2.0), Constant(January2021, steps, 10.0), WavePeriodKind.EnergyPeriod);
 
         // 120 kW throughout. January: 120 kW x 744 h; February: 120 kW x 28.25 days x 24 h (mean February).
         Assert.Equal(120 * 744 / 1000.0, yield.Months[0].MeanEnergyMwh, 1e-9);
@@ -164,7 +164,7 @@ public class DeviceYieldTests(InterpolationReference reference) : IClassFixture<
         var hs = new RegularSeries(January2021, Hour, hsValues.ToArray());
         var te = Constant(January2021, hsValues.Count, 10.0);
 
-        var yield = DeviceYield.FromSeries(reference.Matrix, hs, te, PeriodKind.EnergyPeriod);
+        var yield = DeviceYield.FromSeries(reference.Matrix, hs, te, WavePeriodKind.EnergyPeriod);
 
         double[] energies = [30 * 8.760, 120 * 8.760, 270 * 8.760]; // MWh, by hand
         double mean = energies.Average();
@@ -181,7 +181,7 @@ public class DeviceYieldTests(InterpolationReference reference) : IClassFixture<
     {
         var series = Constant(January2021, 10, 2.0);
 
-        var failure = Assert.Throws<ArgumentException>(() => DeviceYield.FromSeries(reference.Matrix, series, series, PeriodKind.PeakPeriod));
+        var failure = Assert.Throws<ArgumentException>(() => DeviceYield.FromSeries(reference.Matrix, series, series, WavePeriodKind.PeakPeriod));
         Assert.Contains("convert the period first", failure.Message);
     }
 }

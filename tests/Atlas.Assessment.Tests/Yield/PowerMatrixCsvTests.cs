@@ -26,7 +26,7 @@ public class PowerMatrixCsvTests
     {
         var matrix = ParseFile("power_matrix_te.csv");
 
-        Assert.Equal(PeriodKind.EnergyPeriod, matrix.PeriodKind);
+        Assert.Equal(WavePeriodKind.EnergyPeriod, matrix.PeriodKind);
         Assert.Equal([1.0, 2.0, 3.0], matrix.HsCentresMetres);
         Assert.Equal([6.0, 8.0, 10.0, 12.0], matrix.PeriodCentresSeconds);
         Assert.Equal(120.0, matrix.PowerAtBinKw(1, 2));
@@ -78,7 +78,7 @@ public class PowerMatrixCsvTests
     {
         var matrix = PowerMatrixCsv.Parse(new StringReader("hs_m\\tp_s,8,10\n1,5,6\n2,7,8\n"), "tp.csv");
 
-        Assert.Equal(PeriodKind.PeakPeriod, matrix.PeriodKind);
+        Assert.Equal(WavePeriodKind.PeakPeriod, matrix.PeriodKind);
     }
 
     [Fact]
