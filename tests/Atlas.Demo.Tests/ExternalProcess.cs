@@ -1,0 +1,36 @@
+using System.Diagnostics;
+
+namespace Atlas.Demo.Tests;
+
+/// <summary>Runs a reference tool (ncdump, the Debian Python) and returns its standard output.</summary>
+internal static class ExternalProcess
+{
+    /// <summary>The Debian interpreter, which carries NumPy and netCDF4-python (another python3 may come first on PATH).</summary>
+    public const string DebianPython = "/usr/bin/python3";
+
+    public static string Run(string fileName, params string[] arguments)
+    {
+        var start = new ProcessStartInfo(fileName)
+        {
+            RedirectStandardOutput = true,
+            RedirectStandardError = true,
+            UseShellExecute = false,
+        };
+        foreach (var a in arguments) start.ArgumentList.Add(a);
+        using var process = Process.Start(start) ?? throw new InvalidOperationException($"could not start {fileName}");
+        var stderr = process.StandardError.ReadToEndAsync();
+        string stdout = process.StandardOutput.ReadToEnd();
+        if (!process.WaitForExit(TimeSpan.FromSeconds(60)))
+        {
+            process.Kill(entireProcessTree: true);
+            throw new TimeoutException($"{fileName} {string.Join(' ', arguments)} did not finish within 60 s");
+        }
+        if (process.ExitCode != 0)
+            throw new InvalidOperationException($"{fileName} {string.Join(' ', arguments)} exited with {process.ExitCode}: {stderr.Result}");
+        return stdout;
+    }
+
+    /// <summary>Runs one of the scripts under Python/ with the Debian interpreter.</summary>
+    public static string RunPythonScript(string script, params string[] arguments) =>
+        Run(DebianPython, [Path.Combine(AppContext.BaseDirectory, "Python", script), .. arguments]);
+}

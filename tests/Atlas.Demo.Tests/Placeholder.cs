@@ -1,1 +1,0 @@
-namespace Atlas.Demo.Tests; public class Placeholder { [Fact] public void Builds() { } }
