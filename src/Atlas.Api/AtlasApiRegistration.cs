@@ -13,7 +13,10 @@ using Atlas.Storage.Jobs;
 using Atlas.Storage.Queries;
 using Atlas.Storage.Series;
 using Atlas.Storage.Statistics;
+using Microsoft.AspNetCore.Cors.Infrastructure;
+using Microsoft.AspNetCore.RateLimiting;
 using Microsoft.AspNetCore.ResponseCompression;
+using Microsoft.AspNetCore.Server.Kestrel.Core;
 using Microsoft.Extensions.FileProviders;
 using Microsoft.Extensions.Options;
 using Microsoft.OpenApi;
@@ -27,7 +30,6 @@ public static class AtlasApiRegistration
     {
         var services = builder.Services;
         services.AddOptions<AtlasApiOptions>().BindConfiguration(nameof(AtlasApiOptions)).ValidateDataAnnotations().ValidateOnStart();
-        var options = builder.Configuration.GetSection(nameof(AtlasApiOptions)).Get<AtlasApiOptions>() ?? new AtlasApiOptions();
 
         services.AddSingleton(sp => new DatabaseConnectionString(AtlasConnection.Resolve(sp.GetRequiredService<IConfiguration>())));
         services.AddSingleton(sp => AtlasDatabase.CreateDataSource(sp.GetRequiredService<DatabaseConnectionString>().Value));
@@ -62,7 +64,9 @@ public static class AtlasApiRegistration
             context.ProblemDetails.Extensions["trace_id"] = context.HttpContext.TraceIdentifier;
         });
         services.AddExceptionHandler<ProblemExceptionHandler>();
-        services.AddRateLimiter(limiter => RateLimits.Configure(limiter, options));
+        // Options are read when first needed (not here), so that settings added after this call, as tests do, apply.
+        services.AddRateLimiter(_ => { });
+        services.AddOptions<RateLimiterOptions>().Configure<IOptions<AtlasApiOptions>>((limiter, options) => RateLimits.Configure(limiter, options.Value));
         services.AddResponseCompression(compression =>
         {
             compression.EnableForHttps = true;
@@ -73,9 +77,11 @@ public static class AtlasApiRegistration
         });
         services.Configure<GzipCompressionProviderOptions>(gzip => gzip.Level = CompressionLevel.Fastest);
         services.Configure<BrotliCompressionProviderOptions>(brotli => brotli.Level = CompressionLevel.Fastest);
-        services.AddCors(cors => cors.AddDefaultPolicy(policy =>
-            policy.WithOrigins(options.CorsOrigins).WithMethods("GET", "POST").WithHeaders("Content-Type", ApiKeyVerifier.HeaderName)));
-        builder.WebHost.ConfigureKestrel(kestrel => kestrel.Limits.MaxRequestBodySize = options.MaxRequestBodyBytes);
+        services.AddCors();
+        services.AddOptions<CorsOptions>().Configure<IOptions<AtlasApiOptions>>((cors, options) => cors.AddDefaultPolicy(policy =>
+            policy.WithOrigins(options.Value.CorsOrigins).WithMethods("GET", "POST").WithHeaders("Content-Type", ApiKeyVerifier.HeaderName)));
+        services.AddOptions<KestrelServerOptions>().Configure<IOptions<AtlasApiOptions>>((kestrel, options) =>
+            kestrel.Limits.MaxRequestBodySize = options.Value.MaxRequestBodyBytes);
 
         services.AddEndpointsApiExplorer();
         services.AddSwaggerGen(swagger =>
