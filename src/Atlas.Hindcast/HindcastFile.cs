@@ -103,9 +103,10 @@ public sealed class HindcastFile : IDisposable
         if (timeCount == 0 || pointCount == 0) return;
 
         var source = _variables[v].Source;
+        int stepsPerCall = StepsPerCall(source, decoding.Roles, timeCount);
         if (Grid is not StructuredGrid grid)
         {
-            ReadSlab(source, decoding, timeStart, timeCount, [pointStart], [pointCount], destination);
+            ReadDirect(source, decoding, timeStart, timeCount, stepsPerCall, [pointStart], [pointCount], destination);
             return;
         }
 
@@ -114,18 +115,18 @@ public sealed class HindcastFile : IDisposable
         int rows = (pointStart + pointCount - 1) / nx - firstRow + 1;
         if (rows == 1)
         {
-            ReadSlab(source, decoding, timeStart, timeCount, [firstRow, firstColumn], [1, pointCount], destination);
+            ReadDirect(source, decoding, timeStart, timeCount, stepsPerCall, [firstRow, firstColumn], [1, pointCount], destination);
             return;
         }
         if (firstColumn == 0 && pointCount == rows * nx)
         {
-            ReadSlab(source, decoding, timeStart, timeCount, [firstRow, 0], [rows, nx], destination);
+            ReadDirect(source, decoding, timeStart, timeCount, stepsPerCall, [firstRow, 0], [rows, nx], destination);
             return;
         }
 
         // The block starts or ends inside a row: read whole rows a few steps at a time and copy the wanted span.
         int rowValues = rows * nx;
-        int stepsPerRead = (int)Math.Clamp(ScratchValues / rowValues, 1, timeCount);
+        int stepsPerRead = (int)Math.Clamp(ScratchValues / rowValues, 1, stepsPerCall);
         var scratch = ArrayPool<float>.Shared.Rent(stepsPerRead * rowValues);
         try
         {
@@ -193,6 +194,34 @@ public sealed class HindcastFile : IDisposable
     }
 
     public void Dispose() => _file.Dispose();
+
+    /// <summary>
+    /// Reads a slab whose memory layout is the destination's ([time][point]) in calls of at most
+    /// <paramref name="stepsPerCall"/> steps, each into its own part of the destination.
+    /// </summary>
+    private void ReadDirect(NetCdfVariable variable, (CfValueDecoder Decoder, int[] Roles) decoding, int timeStart, int timeCount,
+        int stepsPerCall, ReadOnlySpan<long> spatialStart, ReadOnlySpan<long> spatialCount, Span<float> destination)
+    {
+        long perStep = 1;
+        foreach (long c in spatialCount) perStep *= c;
+        for (int t = 0; t < timeCount; t += stepsPerCall)
+        {
+            int n = Math.Min(stepsPerCall, timeCount - t);
+            ReadSlab(variable, decoding, timeStart + t, n, spatialStart, spatialCount, destination.Slice((int)(t * perStep), (int)(n * perStep)));
+        }
+    }
+
+    /// <summary>
+    /// Steps per native read. HDF5's cost per chunk grows with the number of chunks one read selects (measured on the
+    /// 1.05 GB benchmark file: one read across 8760 time chunks took about twice the CPU of 35 reads of 256), so
+    /// reads of chunked data are cut into runs of at most 256 chunks along time. Other layouts read in one call.
+    /// </summary>
+    private static int StepsPerCall(NetCdfVariable variable, int[] roles, int timeCount)
+    {
+        int timeDim = Array.IndexOf(roles, TimeRole);
+        if (variable.ChunkSizes is not { } chunks || timeDim < 0) return Math.Max(timeCount, 1);
+        return (int)Math.Clamp(chunks[timeDim] * 256, 1, Math.Max(timeCount, 1));
+    }
 
     /// <summary>Reads one hyperslab (time range x spatial box) decoded into <paramref name="destination"/>.</summary>
     private void ReadSlab(NetCdfVariable variable, (CfValueDecoder Decoder, int[] Roles) decoding, int timeStart, int timeCount,
