@@ -8,9 +8,10 @@ namespace Atlas.Statistics;
 /// <remarks>
 /// Quantiles follow Hyndman and Fan's type 7 (NumPy's default): the order statistics at ranks floor(h) and
 /// floor(h) + 1, h = (n - 1) p, interpolated linearly. Each order statistic is estimated by spreading its bin's
-/// count evenly across the bin and clamped to the recorded minimum and maximum, so the estimate is within one bin
-/// width of the exact quantile (the overflow bin, at and above the upper bound, reaches to the maximum). Clearing
-/// touches only the blocks that were used.
+/// count evenly across the bin and clamped to the recorded minimum and maximum, so below the upper bound the
+/// estimate is within one bin width of the exact quantile. A quantile in the overflow bin (at and above the upper
+/// bound, which the default bounds put beyond any physical value) is only known to lie between the bound and the
+/// maximum; the maximum itself is exact. Clearing touches only the blocks that were used.
 /// </remarks>
 public sealed class FixedBinHistogram
 {
@@ -146,7 +147,7 @@ public sealed class FixedBinHistogram
             return;
         }
 
-        var walk = new OrderStatisticWalk(parts, lowBlock, minimum, maximum);
+        var walk = new OrderStatisticWalk(parts, lowBlock, n, minimum, maximum);
         for (int q = 0; q < probabilities.Length; q++)
         {
             double h = (n - 1) * probabilities[q];
@@ -165,15 +166,17 @@ public sealed class FixedBinHistogram
     {
         private readonly ReadOnlySpan<FixedBinHistogram> _parts;
         private readonly double _minimum, _maximum, _width;
+        private readonly long _count;
         private readonly int _lastBin;
         private int _block;
         private long _beforeBlock, _blockCount;
         private int _bin;
         private long _beforeBin, _binCount;
 
-        public OrderStatisticWalk(ReadOnlySpan<FixedBinHistogram> parts, int lowBlock, double minimum, double maximum)
+        public OrderStatisticWalk(ReadOnlySpan<FixedBinHistogram> parts, int lowBlock, long count, double minimum, double maximum)
         {
             _parts = parts;
+            _count = count;
             _minimum = minimum;
             _maximum = maximum;
             _width = parts[0].Binning.BinWidth;
@@ -189,6 +192,9 @@ public sealed class FixedBinHistogram
         /// <summary>Estimated value of the order statistic of 0-based rank (ranks must not decrease between calls).</summary>
         public double Estimate(long rank)
         {
+            // The extremes are known exactly.
+            if (rank == 0) return _minimum;
+            if (rank == _count - 1) return _maximum;
             if (rank >= _beforeBlock + _blockCount)
             {
                 do

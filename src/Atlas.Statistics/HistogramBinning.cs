@@ -3,7 +3,7 @@ namespace Atlas.Statistics;
 /// <summary>
 /// The fixed bins of a histogram: equal bins of <see cref="BinWidth"/> from 0 to <see cref="UpperBound"/>, and one
 /// overflow bin for everything at or above the upper bound. Percentiles from it are within one bin width of the
-/// exact ones (the overflow bin spans up to the largest value).
+/// exact ones below the upper bound (see <see cref="FixedBinHistogram"/>).
 /// </summary>
 /// <param name="BinWidth">Bin width in the parameter's unit, positive.</param>
 /// <param name="UpperBound">Upper end of the equal bins, a whole number of bin widths above 0.</param>

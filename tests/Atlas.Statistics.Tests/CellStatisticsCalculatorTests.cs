@@ -4,6 +4,12 @@ using Atlas.WavePhysics;
 namespace Atlas.Statistics.Tests;
 
 /// <summary>Runs reference_statistics.py once for the standard invented series (finite depth, all parameters).</summary>
+[CollectionDefinition(Name)]
+public sealed class InventedSeriesCollection : ICollectionFixture<InventedSeriesReference>
+{
+    public const string Name = "Invented series and its NumPy reference";
+}
+
 public sealed class InventedSeriesReference
 {
     public InventedSeriesReference()
@@ -17,7 +23,8 @@ public sealed class InventedSeriesReference
     public JsonNode Expected { get; }
 }
 
-public class CellStatisticsCalculatorTests(InventedSeriesReference reference) : IClassFixture<InventedSeriesReference>
+[Collection(InventedSeriesCollection.Name)]
+public class CellStatisticsCalculatorTests(InventedSeriesReference reference)
 {
     private static JsonObject Periods(JsonNode expected) => expected["periods"]!.AsObject();
 

@@ -134,6 +134,7 @@ if power is not None:
     result["joint"] = {"hsEdges": hs_edges[:-1].tolist(), "teEdges": te_edges[:-1].tolist(), "counts": counts.astype(int).tolist(),
                        "fractionOfEnergy": (energy / j.sum()).tolist(), "total": int(ok.sum())}
     inter = {}
+    te_clean = positive(te64)
     for name, member in [("annual", np.ones(len(times), bool))] + [(n, np.isin(months, m)) for n, m in seasons.items()]:
         rows_ = []
         for y in np.unique(years[in_window]):
@@ -142,7 +143,7 @@ if power is not None:
                 continue
             okj = mask & np.isfinite(power)
             rows_.append({"year": int(y), "hs": float(np.nanmean(hs_clean[mask])) if np.isfinite(hs_clean[mask]).any() else None,
-                          "te": float(np.mean(te64[okj])) if okj.any() else None,
+                          "te": float(np.nanmean(te_clean[mask])) if np.isfinite(te_clean[mask]).any() else None,
                           "j": float(np.mean(power[okj])) if okj.any() else None, "coverage": okj.sum() / mask.sum()})
         used = [r for r in rows_ if r["coverage"] >= settings["lowCoverage"]]
         def cov(key):

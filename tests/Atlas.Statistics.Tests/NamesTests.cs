@@ -1,0 +1,31 @@
+namespace Atlas.Statistics.Tests;
+
+public class NamesTests
+{
+    // Trade symbols and units of DESIGN.md (units spelled as UDUNITS / CF conventions: degree, 1).
+    [Theory]
+    [InlineData(WaveParameter.Hs, "hs", "m")]
+    [InlineData(WaveParameter.Te, "te", "s")]
+    [InlineData(WaveParameter.Tp, "tp", "s")]
+    [InlineData(WaveParameter.J, "j", "kW/m")]
+    [InlineData(WaveParameter.Dir, "dir", "degree")]
+    [InlineData(WaveParameter.Spread, "spread", "degree")]
+    [InlineData(WaveParameter.D, "d", "1")]
+    [InlineData(WaveParameter.Depth, "depth", "m")]
+    public void ParametersHaveTheirTradeSymbolsAndUnits(WaveParameter parameter, string symbol, string unit)
+    {
+        Assert.Equal(symbol, parameter.Symbol());
+        Assert.Equal(unit, parameter.Unit());
+        Assert.Equal(parameter, WaveParameterNames.Parse(symbol.ToUpperInvariant()));
+    }
+
+    [Fact]
+    public void StatisticNamesRoundTripAndUnknownNamesAreListedInTheError()
+    {
+        Assert.Equal("mean sd min max p10 p50 p90 p99 count coverage", string.Join(' ', StatisticKindNames.All.Select(k => k.Name())));
+        foreach (StatisticKind kind in StatisticKindNames.All) Assert.Equal(kind, StatisticKindNames.Parse(kind.Name()));
+        Assert.Contains("p99", Assert.Throws<FormatException>(() => StatisticKindNames.Parse("median")).Message);
+        Assert.Contains("spread", Assert.Throws<FormatException>(() => WaveParameterNames.Parse("hm0")).Message);
+        Assert.False(WaveParameterNames.TryParse(null, out _));
+    }
+}

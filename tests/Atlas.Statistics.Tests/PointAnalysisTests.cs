@@ -1,0 +1,177 @@
+using System.Text.Json;
+using System.Text.Json.Nodes;
+
+namespace Atlas.Statistics.Tests;
+
+[Collection(InventedSeriesCollection.Name)]
+public class PointAnalysisTests(InventedSeriesReference reference)
+{
+    private static JsonObject Periods(JsonNode expected) => expected["periods"]!.AsObject();
+
+    // numpy.percentile (default 'linear' = Hyndman-Fan type 7) and float64 means per period (reference_statistics.py):
+    // exact percentiles agree to rounding (1e-12 relative; power 3e-7, stored in single precision per step).
+    [Fact]
+    public void PeriodStatisticsWithExactPercentilesMatchNumPy()
+    {
+        PointAnalysisResult result = PointAnalysis.Analyse(reference.Data.Series());
+        Assert.Equal(20, result.Periods.Count);
+        foreach (PeriodStatistics period in result.Periods)
+        {
+            JsonNode e = Periods(reference.Expected)[period.Period.Name]!;
+            string name = period.Period.Name;
+            ReferenceAssert.Summary(e["hs"], period.Hs, $"{name} hs", 1e-12, 0, 1e-12 * 20);
+            ReferenceAssert.Summary(e["te"], period.Te, $"{name} te", 1e-12, 0, 1e-12 * 20);
+            ReferenceAssert.Summary(e["tp"], period.Tp, $"{name} tp", 1e-12, 0, 1e-12 * 20);
+            ReferenceAssert.Summary(e["spread"], period.Spread, $"{name} spread", 1e-12, 0, 1e-12 * 50);
+            ReferenceAssert.Summary(e["j"], period.J, $"{name} j", 3e-7, 3e-7, 3e-7 * 200);
+            for (int t = 0; t < period.HsExceedance.Count; t++)
+                Assert.Equal(ReferenceAssert.Number(e["hsExceedance"]![t]), period.HsExceedance[t].Fraction, 1e-15);
+        }
+    }
+
+    // The chosen definition reaches the percentiles: type 8 against numpy's 'median_unbiased', with a window of two
+    // years and the summer months, where annual means the whole window (reference_statistics.py applies the same window).
+    [Fact]
+    public void WindowAndQuantileDefinitionAreApplied()
+    {
+        var window = new AnalysisWindow(2002, 2003, [6, 7, 8]);
+        JsonNode expected = reference.Data.Reference(reference.Options, method: "median_unbiased", window: window);
+        PointAnalysisResult result = PointAnalysis.Analyse(reference.Data.Series(),
+            new PointAnalysisOptions { QuantileDefinition = QuantileDefinition.HyndmanFanType8, Window = window });
+        Assert.Equal("jun jul aug jja annual y2002 y2003", string.Join(' ', result.Periods.Select(p => p.Period.Name)));
+        Assert.Equal(2 * (30 + 31 + 31) * 8, result.StepsInWindow);
+        foreach (PeriodStatistics period in result.Periods)
+        {
+            JsonNode e = Periods(expected)[period.Period.Name]!;
+            Assert.Equal(e["expected"]!.GetValue<long>(), period.ExpectedSteps);
+            ReferenceAssert.Summary(e["hs"], period.Hs, $"{period.Period} hs", 1e-12, 0, 1e-12 * 20);
+            ReferenceAssert.Summary(e["j"], period.J, $"{period.Period} j", 3e-7, 3e-7, 3e-7 * 200);
+        }
+        Assert.Equal(result.Find(AtlasPeriod.Jja)!.Hs, result.Find(AtlasPeriod.Annual)!.Hs);
+    }
+
+    // Exceedance curves at 0, 0.1, 0.2 ... m and 0, 1, 2 ... kW/m (numpy mean of v > t in float32), the joint Hs-Te
+    // table against numpy.histogram2d on 0.5 m x 1 s bins, and yearly and seasonal means with the coefficient of
+    // variation (ddof = 1) of the years with enough coverage.
+    [Fact]
+    public void CurvesJointTableAndInterAnnualVariabilityMatchNumPy()
+    {
+        PointAnalysisResult result = PointAnalysis.Analyse(reference.Data.Series());
+        JsonNode e = reference.Expected;
+
+        Assert.Equal(e["hsCurve"]!["thresholds"]!.AsArray().Count, result.HsExceedance.Thresholds.Count);
+        for (int k = 0; k < result.HsExceedance.Thresholds.Count; k++)
+        {
+            Assert.Equal(ReferenceAssert.Number(e["hsCurve"]!["thresholds"]![k]), result.HsExceedance.Thresholds[k], 1e-12);
+            Assert.Equal(ReferenceAssert.Number(e["hsCurve"]!["fractions"]![k]), result.HsExceedance.Fractions[k], 1e-15);
+        }
+        Assert.Equal(0, result.HsExceedance.Fractions[^1]);
+        Assert.Equal(e["jCurve"]!["thresholds"]!.AsArray().Count, result.PowerExceedance.Thresholds.Count);
+        for (int k = 0; k < result.PowerExceedance.Thresholds.Count; k++)
+            Assert.Equal(ReferenceAssert.Number(e["jCurve"]!["fractions"]![k]), result.PowerExceedance.Fractions[k], 2.0 / result.PowerExceedance.Count);
+
+        JointOccurrenceTable joint = result.JointOccurrence;
+        JsonNode ej = e["joint"]!;
+        Assert.Equal(ej["total"]!.GetValue<long>(), joint.TotalCount);
+        Assert.Equal(ej["hsEdges"]!.AsArray().Select(x => x!.GetValue<double>()), joint.HsBinLowerEdges);
+        Assert.Equal(ej["teEdges"]!.AsArray().Select(x => x!.GetValue<double>()), joint.TeBinLowerEdges);
+        double fractionOfTime = 0, fractionOfEnergy = 0;
+        for (int r = 0; r < joint.Counts.Length; r++)
+            for (int c = 0; c < joint.Counts[r].Length; c++)
+            {
+                Assert.Equal(ej["counts"]![r]![c]!.GetValue<long>(), joint.Counts[r][c]);
+                Assert.Equal(ReferenceAssert.Number(ej["fractionOfEnergy"]![r]![c]), joint.FractionOfEnergy[r][c], 1e-6);
+                Assert.Equal(joint.Counts[r][c] == 0, joint.MeanPowerKilowattsPerMetre[r][c] is null);
+                fractionOfTime += joint.FractionOfTime[r][c];
+                fractionOfEnergy += joint.FractionOfEnergy[r][c];
+            }
+        Assert.Equal(1, fractionOfTime, 1e-12);
+        Assert.Equal(1, fractionOfEnergy, 1e-12);
+
+        Assert.Equal("annual djf mam jja son", string.Join(' ', result.InterAnnual.Select(s => s.Period.Name)));
+        foreach (InterAnnualSeries series in result.InterAnnual)
+        {
+            JsonNode es = e["interAnnual"]![series.Period.Name]!;
+            Assert.Equal(es["years"]!.AsArray().Count, series.Years.Count);
+            for (int y = 0; y < series.Years.Count; y++)
+            {
+                JsonNode ey = es["years"]![y]!;
+                Assert.Equal(ey["year"]!.GetValue<int>(), series.Years[y].Year);
+                ReferenceAssert.Close(ReferenceAssert.Number(ey["hs"]), series.Years[y].Hs, 1e-12, $"{series.Period} {series.Years[y].Year} hs");
+                ReferenceAssert.Close(ReferenceAssert.Number(ey["te"]), series.Years[y].Te, 1e-12, $"{series.Period} {series.Years[y].Year} te");
+                ReferenceAssert.Close(ReferenceAssert.Number(ey["j"]), series.Years[y].J, 3e-7, $"{series.Period} {series.Years[y].Year} j");
+                Assert.Equal(ReferenceAssert.Number(ey["coverage"]), series.Years[y].Coverage, 1e-15);
+            }
+            ReferenceAssert.Close(ReferenceAssert.Number(es["hsCov"]), series.HsCoefficientOfVariation, 1e-9, $"{series.Period} hs cv");
+            ReferenceAssert.Close(ReferenceAssert.Number(es["teCov"]), series.TeCoefficientOfVariation, 1e-9, $"{series.Period} te cv");
+            ReferenceAssert.Close(ReferenceAssert.Number(es["jCov"]), series.JCoefficientOfVariation, 1e-5, $"{series.Period} j cv");
+        }
+    }
+
+    // Every implementation of the same quantity against the same reference (STYLE.md): the layer pass and the point
+    // analysis agree on counts, means and exceedance exactly or to rounding, and on percentiles within a bin width.
+    [Fact]
+    public void PointAnalysisAndLayerPassAgree()
+    {
+        CellStatistics layer = new CellStatisticsCalculator().Compute(reference.Data.Series());
+        PointAnalysisResult point = PointAnalysis.Analyse(reference.Data.Series());
+        Assert.Equal(layer.Periods.Select(p => p.Period), point.Periods.Select(p => p.Period));
+        for (int i = 0; i < layer.Periods.Count; i++)
+        {
+            PeriodStatistics a = layer.Periods[i], b = point.Periods[i];
+            Assert.Equal(a.ExpectedSteps, b.ExpectedSteps);
+            Assert.Equal(a.LowCoverage, b.LowCoverage);
+            foreach (var (parameter, width) in new[] { (WaveParameter.Hs, 0.01), (WaveParameter.Te, 0.01), (WaveParameter.J, 0.1), (WaveParameter.D, 0.001) })
+            {
+                SummaryStatistics x = a.Summary(parameter), y = b.Summary(parameter);
+                Assert.Equal(x.Count, y.Count);
+                ReferenceAssert.Close(y.Mean, x.Mean, 1e-12, $"{a.Period} {parameter} mean");
+                Assert.Equal(y.Max, x.Max);
+                Assert.True(Math.Abs(x.P90 - y.P90) <= width + 1e-9, $"{a.Period} {parameter} p90 {x.P90} vs {y.P90}");
+            }
+            Assert.Equal(a.HsExceedance, b.HsExceedance);
+            Assert.Equal(a.PowerExceedance, b.PowerExceedance);
+            Assert.Equal(a.Direction.Count, b.Direction.Count);
+        }
+    }
+
+    // The results go out as JSON (RFC 8259 has no NaN): missing values become null, periods their names.
+    [Fact]
+    public void ResultsSerialiseToJsonWithoutNaN()
+    {
+        var data = new InventedSeries(years: 1);
+        float[] nothing = [.. data.Hs.Select(_ => float.NaN)];
+        var empty = new CellSeries { Times = data.Times, Hs = nothing, Te = nothing, DepthMetres = double.NaN };
+        foreach (string json in new[]
+                 {
+                     JsonSerializer.Serialize(PointAnalysis.Analyse(data.Series())),
+                     JsonSerializer.Serialize(PointAnalysis.Analyse(empty)),
+                     JsonSerializer.Serialize(new CellStatisticsCalculator().Compute(empty)),
+                 })
+        {
+            Assert.DoesNotContain("NaN", json);
+            Assert.DoesNotContain("Infinity", json);
+            JsonNode parsed = JsonNode.Parse(json)!;
+            Assert.Equal("jan", parsed["Periods"]![0]!["Period"]!.GetValue<string>());
+        }
+        string emptyJson = JsonSerializer.Serialize(PointAnalysis.Analyse(empty));
+        Assert.Contains("\"Mean\":null", emptyJson);
+        Assert.Contains("\"DepthMetres\":null", emptyJson);
+        Assert.Contains("\"QuantileDefinition\":\"HyndmanFanType7\"", emptyJson);
+
+        PointAnalysisResult? back = JsonSerializer.Deserialize<PointAnalysisResult>(JsonSerializer.Serialize(PointAnalysis.Analyse(empty)));
+        Assert.NotNull(back);
+        Assert.True(double.IsNaN(back.Periods[0].Hs.Mean));
+        Assert.Equal(AtlasPeriod.Month(1), back.Periods[0].Period);
+    }
+
+    [Fact]
+    public void UnusableWindowThrowsSayingWhy()
+    {
+        var error = Assert.Throws<ArgumentException>(() =>
+            PointAnalysis.Analyse(reference.Data.Series(), new PointAnalysisOptions { Window = new AnalysisWindow(2003, 2001) }));
+        Assert.Contains("first year 2003 is after its last year 2001", error.Message);
+        Assert.Throws<ArgumentException>(() =>
+            PointAnalysis.Analyse(reference.Data.Series(), new PointAnalysisOptions { Window = new AnalysisWindow(Months: [13]) }));
+    }
+}
