@@ -145,6 +145,28 @@ public sealed class HindcastFile : IDisposable
     }
 
     /// <summary>
+    /// A number of points per <see cref="ReadSteps"/> block that reads every step within
+    /// <paramref name="valueBudget"/> floats: whole grid rows, and whole bands of chunk rows when the Hs data are
+    /// chunked in space (so each compressed chunk is inflated once per pass rather than once per block). Never less
+    /// than one row (one node on a mesh); all points when they fit.
+    /// </summary>
+    public int PointBlockSize(long valueBudget)
+    {
+        ArgumentOutOfRangeException.ThrowIfLessThan(valueBudget, 1);
+        var hs = _variables[WaveVariable.Hs].Source;
+        var roles = _decoding[WaveVariable.Hs].Roles;
+        long steps = TimesUtc.Count;
+        int rowLength = Grid is StructuredGrid g ? g.Nx : 1;
+        int rowCount = Grid.PointCount / rowLength;
+        long rows = Math.Clamp(valueBudget / (steps * rowLength), 1, rowCount);
+        // The slower spatial dimension is role 0: rows of a 2-D grid, nodes of a mesh.
+        int rowDim = Array.IndexOf(roles, 0);
+        if (rows < rowCount && hs.ChunkSizes is { } chunks && rowDim >= 0 && rows >= chunks[rowDim])
+            rows -= rows % chunks[rowDim];
+        return (int)(rows * rowLength);
+    }
+
+    /// <summary>
     /// Water depth of every point in metres, positive down, from the first step when the depth has a time dimension.
     /// NaN where the file gives no value or the sea floor is at or above the surface (land), and everywhere when
     /// the file has no depth variable.

@@ -39,6 +39,16 @@ public sealed class GridTests(NetCdfFixtures fixtures)
         Assert.Equal(50.0, grid.Latitude(grid.PointIndex(3, 1)));
     }
 
+    [Fact]
+    public void OneDimensionalLatLonNamedByTheCoordinatesAttributeMakeARegularGrid()
+    {
+        using var file = HindcastFile.Open(fixtures.Path("regular_auxiliary.classic"));
+        var grid = Assert.IsType<RegularLatLonGrid>(file.Grid);
+        // regular_auxiliary.cdl: lat = 30, 29.5; lon = 359, 359.5, 0 degrees east.
+        Assert.Equal([30.0, 29.5], grid.LatitudeAxis);
+        Assert.Equal([-1.0, -0.5, 0], grid.LongitudeAxis);
+    }
+
     [Theory]
     [InlineData(180, -180)]
     [InlineData(350, -10)]

@@ -83,6 +83,18 @@ public sealed class HindcastFileTests(NetCdfFixtures fixtures)
             }
     }
 
+    [Theory]
+    [InlineData(48 * 30 * 10, 300)] // ten rows fit: one band of chunk rows (make_compressed.py chunks 6 x 10 x 15)
+    [InlineData(48 * 30 * 15, 300)] // fifteen rows fit: cut back to whole chunk bands
+    [InlineData(48 * 30 * 5, 150)]  // fewer rows than a chunk band: whole rows within the budget
+    [InlineData(10, 30)]            // never less than one row
+    [InlineData(1L << 30, 600)]     // everything fits
+    public void PointBlocksAreWholeRowsAlignedWithChunkRows(long budget, int expected)
+    {
+        using var file = HindcastFile.Open(fixtures.Path("compressed"));
+        Assert.Equal(expected, file.PointBlockSize(budget));
+    }
+
     [Fact]
     public void DepthIsPositiveDownWithLandAndMissingAsNaN()
     {

@@ -38,6 +38,7 @@ public sealed partial class NetCdfFixtures : IDisposable
         ("projected_without_latlon", ["classic"]),
         ("ugrid_mesh", ["nc4classic"]),
         ("regular_shifted", ["classic"]),
+        ("regular_auxiliary", ["classic"]),
         ("mapped_names", ["classic"]),
     ];
 

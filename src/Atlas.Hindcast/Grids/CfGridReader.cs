@@ -37,6 +37,12 @@ internal static class CfGridReader
                     "only (…, latitude, longitude) order is supported (reorder the dimensions of the file)");
         }
 
+        // 1-D latitude/longitude named in the coordinates attribute rather than as coordinate variables.
+        var named = Named(file, data).Where(v => v.Rank == 1).ToList();
+        if (named.FirstOrDefault(v => IsLatitude(v) && v.Dimensions[0] == ydim) is { } lat1d &&
+            named.FirstOrDefault(v => IsLongitude(v) && v.Dimensions[0] == xdim) is { } lon1d)
+            return new SpatialLayout(new RegularLatLonGrid(ReadCoordinate(file, lon1d), ReadCoordinate(file, lat1d)), [ydim, xdim]);
+
         var mapping = GridMapping(file, data);
         var (lon2d, lat2d) = AuxiliaryLatLon(file, data, ydim, xdim);
         bool projectedAxes = ycoord is not null && xcoord is not null && (IsProjectionAxis(xcoord) || IsProjectionAxis(ycoord) ||
@@ -73,8 +79,8 @@ internal static class CfGridReader
 
         var nodeCoordinates = (mesh.TextAttribute("node_coordinates") ?? "")
             .Split(' ', StringSplitOptions.RemoveEmptyEntries)
-            .Concat((data.TextAttribute("coordinates") ?? "").Split(' ', StringSplitOptions.RemoveEmptyEntries))
-            .Select(file.FindVariable).OfType<NetCdfVariable>().Where(v => v.Rank == 1).ToList();
+            .Select(file.FindVariable).OfType<NetCdfVariable>()
+            .Concat(Named(file, data)).Where(v => v.Rank == 1).ToList();
         var lon = nodeCoordinates.FirstOrDefault(IsLongitude);
         var lat = nodeCoordinates.FirstOrDefault(IsLatitude);
         if (lon is null || lat is null)
@@ -139,8 +145,7 @@ internal static class CfGridReader
 
     private static (NetCdfVariable? Lon, NetCdfVariable? Lat) AuxiliaryLatLon(NetCdfFile file, NetCdfVariable data, NetCdfDimension ydim, NetCdfDimension xdim)
     {
-        var named = (data.TextAttribute("coordinates") ?? "").Split(' ', StringSplitOptions.RemoveEmptyEntries)
-            .Select(file.FindVariable).OfType<NetCdfVariable>().Where(v => v.Rank == 2).ToList();
+        var named = Named(file, data).Where(v => v.Rank == 2).ToList();
         // Files that omit the coordinates attribute but carry exactly one 2-D latitude and longitude are accepted too.
         var pool = named.Count > 0 ? named : file.Variables.Where(v => v.Rank == 2).ToList();
         var lons = pool.Where(IsLongitude).ToList();
@@ -156,6 +161,11 @@ internal static class CfGridReader
         }
         return (lons[0], lats[0]);
     }
+
+    /// <summary>The variables the data's coordinates attribute names (names not in the file are ignored).</summary>
+    private static IEnumerable<NetCdfVariable> Named(NetCdfFile file, NetCdfVariable data) =>
+        (data.TextAttribute("coordinates") ?? "").Split(' ', StringSplitOptions.RemoveEmptyEntries)
+            .Select(file.FindVariable).OfType<NetCdfVariable>();
 
     private static (string Name, IReadOnlyList<NetCdfAttribute> Attributes)? GridMapping(NetCdfFile file, NetCdfVariable data)
     {
