@@ -16,6 +16,24 @@ public static class DemoCommand
 {
     public const string DatasetSlug = "skelvane-reach";
 
+    private static async Task<FileStream> AcquireLockAsync(string path, CancellationToken cancel)
+    {
+        var announced = false;
+        while (true)
+        {
+            try
+            {
+                return new FileStream(path, FileMode.OpenOrCreate, FileAccess.ReadWrite, FileShare.None);
+            }
+            catch (IOException)
+            {
+                if (!announced) Console.WriteLine("atlas demo: another demo run is in progress; waiting for it to finish");
+                announced = true;
+                await Task.Delay(1000, cancel);
+            }
+        }
+    }
+
     public static Command Build()
     {
         var serve = new Option<bool>("--serve") { Description = "Serve the atlas when the demo is loaded" };
@@ -24,6 +42,9 @@ public static class DemoCommand
         command.SetAction(async (parse, cancel) =>
         {
             var folder = Path.Combine(AtlasHome.Resolve(), "demo");
+            Directory.CreateDirectory(folder);
+            // One demo run at a time per home: two runs writing the same files would corrupt them.
+            using var demoLock = await AcquireLockAsync(Path.Combine(AtlasHome.Resolve(), "demo.lock"), cancel);
             var scenario = DemoScenario.Describe(DemoScenarioOptions.Full);
             var files = scenario.FieldFiles.Select(f => Path.Combine(folder, f)).ToArray();
             if (parse.GetValue(regenerate) || !files.All(File.Exists) || !File.Exists(Path.Combine(folder, DemoScenario.ManifestFileName)))
