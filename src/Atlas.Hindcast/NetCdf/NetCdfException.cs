@@ -4,7 +4,8 @@ namespace Atlas.Hindcast;
 
 /// <summary>
 /// A call into netCDF-C returned an error status. The problem text is the library's own nc_strerror
-/// text, prefixed by the operation that failed.
+/// text, prefixed by the operation that failed. It is a <see cref="HindcastFormatException"/> so that a reader
+/// catches one type for every unusable file; writers raise it too (a full disk, a missing folder).
 /// </summary>
 public sealed class NetCdfException : HindcastFormatException
 {
