@@ -8,8 +8,8 @@ namespace Atlas.Demo;
 /// (<c>skelvane-reach-YYYY-MM.nc</c>), the two buoy records (CSV), the device power matrix (CSV),
 /// the station list (<c>stations.csv</c>) and the manifest (<c>scenario.json</c>). Existing files
 /// of the same names are replaced; nothing else in the folder is touched. Months are generated in
-/// parallel over cells while the previous month is being written, and netCDF-C writes one file at
-/// a time.
+/// parallel over cells while the previous month is being written (netCDF-C writes one file at a
+/// time), with two month-sized buffers in turn.
 /// </summary>
 public static class DemoScenarioWriter
 {
@@ -54,23 +54,30 @@ public static class DemoScenarioWriter
 
     private static void WriteFields(string folder, DemoScenarioOptions options, DemoScenario scenario, DemoGrid grid, SeaStateModel model, Action<string> report)
     {
-        // One month waits while the previous one is written: two months in memory at most.
-        var queue = Channel.CreateBounded<MonthlyFields>(new BoundedChannelOptions(1) { SingleReader = true, SingleWriter = true });
+        // Two sets of buffers take turns: one is filled while the other is written, so memory
+        // stays at two months whatever the length of the run.
+        var toWrite = Channel.CreateBounded<MonthlyFields>(new BoundedChannelOptions(1) { SingleReader = true, SingleWriter = true });
+        var free = Channel.CreateUnbounded<MonthlyFields>();
+        int cells = grid.Columns * grid.Rows;
+        free.Writer.TryWrite(new MonthlyFields(cells, options.StepHours));
+        free.Writer.TryWrite(new MonthlyFields(cells, options.StepHours));
         var writing = Task.Run(async () =>
         {
             try
             {
-                await foreach (var fields in queue.Reader.ReadAllAsync().ConfigureAwait(false))
+                await foreach (var fields in toWrite.Reader.ReadAllAsync().ConfigureAwait(false))
                 {
                     string name = DemoScenario.FieldFileName(fields.Month);
                     MonthlyHindcastFileWriter.Write(Path.Combine(folder, name), scenario, grid, fields);
                     report(name);
+                    free.Writer.TryWrite(fields);
                 }
             }
             catch (Exception failure)
             {
-                // Closing the channel releases a producer waiting for room.
-                queue.Writer.TryComplete(failure);
+                // Closing the channels releases the producer, whichever it waits on.
+                toWrite.Writer.TryComplete(failure);
+                free.Writer.TryComplete(failure);
                 throw;
             }
         });
@@ -78,11 +85,12 @@ public static class DemoScenarioWriter
         {
             for (int m = 0; m < options.Months; m++)
             {
-                var fields = MonthlyFields.Generate(model, options.Start.AddMonths(m), options.StepHours);
-                fields.RoundToSignificantBits(MonthlyHindcastFileWriter.KeptMantissaBits);
                 try
                 {
-                    queue.Writer.WriteAsync(fields).AsTask().GetAwaiter().GetResult();
+                    var fields = free.Reader.ReadAsync().AsTask().GetAwaiter().GetResult();
+                    fields.Fill(model, options.Start.AddMonths(m), options.StepHours);
+                    fields.RoundToSignificantBits(MonthlyHindcastFileWriter.KeptMantissaBits);
+                    toWrite.Writer.WriteAsync(fields).AsTask().GetAwaiter().GetResult();
                 }
                 catch (ChannelClosedException)
                 {
@@ -93,7 +101,7 @@ public static class DemoScenarioWriter
         }
         finally
         {
-            queue.Writer.TryComplete();
+            toWrite.Writer.TryComplete();
         }
         writing.GetAwaiter().GetResult();
     }

@@ -3,8 +3,8 @@ namespace Atlas.Demo;
 /// <summary>
 /// Draws the storms of a scenario: arrivals are a Poisson process whose rate follows the season
 /// (about 3.5 a month in midwinter, under 1 a month in midsummer), each with a duration of one to
-/// three days and a peak added wind that, on top of the background wind and swell, gives offshore Hs peaks of roughly 7 to 12 m in winter and 4 to
-/// 7 m in summer.
+/// three days and a peak added wind that, on top of the background wind and swell, gives offshore
+/// Hs peaks of roughly 7 to 12 m in winter and 4 to 7 m in summer.
 /// </summary>
 public static class StormCatalogue
 {

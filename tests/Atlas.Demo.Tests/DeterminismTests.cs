@@ -34,8 +34,8 @@ public class DeterminismTests(WrittenScenarioFixture written)
         var a = Generate(options.Seed);
         var b = Generate(options.Seed);
         var c = Generate(options.Seed + 1);
-        Assert.True(a.Hs.AsSpan().SequenceEqual(b.Hs) && a.Tp.AsSpan().SequenceEqual(b.Tp) && a.Direction.AsSpan().SequenceEqual(b.Direction));
-        Assert.False(a.Hs.AsSpan().SequenceEqual(c.Hs));
+        Assert.True(a.Hs.SequenceEqual(b.Hs) && a.Tp.SequenceEqual(b.Tp) && a.Direction.SequenceEqual(b.Direction));
+        Assert.False(a.Hs.SequenceEqual(c.Hs));
     }
 
     [Fact]

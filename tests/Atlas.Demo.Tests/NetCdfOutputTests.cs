@@ -1,4 +1,6 @@
+using System.Globalization;
 using System.Text.Json;
+using Atlas.Hindcast;
 
 namespace Atlas.Demo.Tests;
 
@@ -65,13 +67,11 @@ public class NetCdfOutputTests(WrittenScenarioFixture written)
         var root = summary.RootElement;
         Assert.Equal("NETCDF4", root.GetProperty("data_model").GetString());
 
-        var options = WrittenScenarioFixture.Options;
-        var grid = new DemoGrid(options.Columns, options.Rows);
-        var fields = MonthlyFields.Generate(new SeaStateModel(grid, new OffshoreForcing(options.Seed, options.Start, options.End)), options.Start, options.StepHours);
-        fields.RoundToSignificantBits(MonthlyHindcastFileWriter.KeptMantissaBits);
+        var fields = GenerateFirstMonth(out var grid);
         var expected = new Dictionary<string, float[]>
         {
-            ["hs"] = fields.Hs, ["te"] = fields.Te, ["tp"] = fields.Tp, ["dir"] = fields.Direction, ["spread"] = fields.Spread,
+            ["hs"] = fields.Hs.ToArray(), ["te"] = fields.Te.ToArray(), ["tp"] = fields.Tp.ToArray(),
+            ["dir"] = fields.Direction.ToArray(), ["spread"] = fields.Spread.ToArray(),
             ["depth"] = MonthlyHindcastFileWriter.DepthGrid(grid),
         };
         foreach (var (name, values) in expected)
@@ -97,5 +97,60 @@ public class NetCdfOutputTests(WrittenScenarioFixture written)
         var latitudes = variables.GetProperty("latitude").GetProperty("values").EnumerateArray().Select(v => v.GetDouble()).ToArray();
         Assert.Equal(grid.Latitudes, latitudes);
         Assert.All(latitudes, lat => Assert.InRange(lat, 49.3, 50.7));
+    }
+
+    [Fact]
+    public void CdoTimeMeanAgreesWithTheGeneratedFieldsAndSkipsLand()
+    {
+        // CDO (timmean) reads the file independently; its mean of every cell must match the mean
+        // of the generated values to float precision (relative 1e-5), and land stays missing.
+        string output = ExternalProcess.Run("cdo", "-s", "-outputf,%.8g,1", "-timmean", "-selname,hs", FirstFile);
+        double[] cdo = [.. output.Split('\n', StringSplitOptions.RemoveEmptyEntries).Select(v => double.Parse(v, CultureInfo.InvariantCulture))];
+        var fields = GenerateFirstMonth(out var grid);
+        int cells = grid.Columns * grid.Rows, steps = fields.Times.Length;
+        Assert.Equal(cells, cdo.Length);
+        for (int c = 0; c < cells; c++)
+        {
+            if (grid.IsLand[c])
+            {
+                Assert.Equal(MonthlyFields.FillValue, cdo[c]);
+                continue;
+            }
+            double mean = 0;
+            for (int s = 0; s < steps; s++) mean += fields.Hs[s * cells + c];
+            mean /= steps;
+            Assert.Equal(mean, cdo[c], mean * 1e-5);
+        }
+    }
+
+    [Fact]
+    public void AtlasHindcastReaderDecodesEveryDemoVariable()
+    {
+        // The ingest side's reader must find all six variables by standard name, the grid and the times.
+        using var file = HindcastFile.Open(FirstFile);
+        var fields = GenerateFirstMonth(out var grid);
+        foreach (var v in Enum.GetValues<WaveVariable>()) Assert.True(file.Has(v), $"{v} not found");
+        Assert.Equal(GridKind.Regular, file.Grid.Kind);
+        Assert.Equal(grid.Columns * grid.Rows, file.Grid.PointCount);
+        Assert.Equal(fields.Times, file.TimesUtc);
+        int cells = grid.Columns * grid.Rows;
+        var hs = new float[fields.Times.Length * cells];
+        file.ReadSteps(WaveVariable.Hs, 0, fields.Times.Length, 0, cells, hs);
+        for (int i = 0; i < hs.Length; i++)
+        {
+            if (grid.IsLand[i % cells]) Assert.True(float.IsNaN(hs[i]));
+            else Assert.Equal(fields.Hs[i], hs[i]);
+        }
+        var depth = file.ReadDepth();
+        for (int k = 0; k < grid.WetCount; k++) Assert.Equal((float)grid.DepthMetres[k], depth[grid.WetCells[k]]);
+    }
+
+    private static MonthlyFields GenerateFirstMonth(out DemoGrid grid)
+    {
+        var options = WrittenScenarioFixture.Options;
+        grid = new DemoGrid(options.Columns, options.Rows);
+        var fields = MonthlyFields.Generate(new SeaStateModel(grid, new OffshoreForcing(options.Seed, options.Start, options.End)), options.Start, options.StepHours);
+        fields.RoundToSignificantBits(MonthlyHindcastFileWriter.KeptMantissaBits);
+        return fields;
     }
 }
