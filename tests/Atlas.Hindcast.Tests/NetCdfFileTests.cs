@@ -144,6 +144,23 @@ public sealed class NetCdfFileTests(NetCdfFixtures fixtures)
     }
 
     [Fact]
+    public void LibraryVersionIsTheOneNcdumpReports()
+    {
+        // Reference: the last line of `ncdump` usage text, "netcdf library version 4.9.0 of ...".
+        string usage;
+        try
+        {
+            usage = ExternalTool.Run("ncdump", []);
+        }
+        catch (InvalidOperationException e)
+        {
+            usage = e.Message;
+        }
+        string version = NetCdfFile.LibraryVersion.Split(' ')[0];
+        Assert.Contains($"netcdf library version {version}", usage);
+    }
+
+    [Fact]
     public void MissingFileIsAFileNotFoundError()
     {
         string path = fixtures.Scratch("absent.nc");

@@ -26,7 +26,6 @@ internal static unsafe class NetCdfNative
     public const int NC_GLOBAL = -1;
     public const int NC_MAX_NAME = 256;
     public const int NC_NOWRITE = 0x0000;
-    public const int NC_WRITE = 0x0001;
     public const int NC_CLOBBER = 0x0000;
     public const int NC_NOCLOBBER = 0x0004;
     public const int NC_64BIT_DATA = 0x0020;
@@ -34,14 +33,7 @@ internal static unsafe class NetCdfNative
     public const int NC_64BIT_OFFSET = 0x0200;
     public const int NC_NETCDF4 = 0x1000;
     public const int NC_CHUNKED = 0;
-    public const int NC_CONTIGUOUS = 1;
     public const int NC_COMPACT = 2;
-    public const int NC_FORMAT_CLASSIC = 1;
-    public const int NC_FORMAT_64BIT_OFFSET = 2;
-    public const int NC_FORMAT_NETCDF4 = 3;
-    public const int NC_FORMAT_NETCDF4_CLASSIC = 4;
-    public const int NC_FORMAT_64BIT_DATA = 5;
-    public const int NC_ENOTATT = -43;
 
     static NetCdfNative()
     {
@@ -76,9 +68,6 @@ internal static unsafe class NetCdfNative
     public static extern int nc_create([MarshalAs(UnmanagedType.LPUTF8Str)] string path, int cmode, out int ncid);
     [DllImport(Library, ExactSpelling = true)] public static extern int nc_close(int ncid);
     [DllImport(Library, ExactSpelling = true)] public static extern int nc_enddef(int ncid);
-    [DllImport(Library, ExactSpelling = true)] public static extern int nc_redef(int ncid);
-    [DllImport(Library, ExactSpelling = true)] public static extern int nc_sync(int ncid);
-    [DllImport(Library, ExactSpelling = true)] public static extern int nc_set_fill(int ncid, int fillmode, out int oldMode);
 
     // Inquiry
     [DllImport(Library, ExactSpelling = true)]
@@ -89,8 +78,6 @@ internal static unsafe class NetCdfNative
     [DllImport(Library, ExactSpelling = true)] public static extern int nc_inq_dim(int ncid, int dimid, byte* name, out nuint length);
     [DllImport(Library, ExactSpelling = true)]
     public static extern int nc_inq_var(int ncid, int varid, byte* name, out int xtype, out int ndims, int* dimids, out int natts);
-    [DllImport(Library, ExactSpelling = true)]
-    public static extern int nc_inq_varid(int ncid, [MarshalAs(UnmanagedType.LPUTF8Str)] string name, out int varid);
     [DllImport(Library, ExactSpelling = true)]
     public static extern int nc_inq_var_deflate(int ncid, int varid, out int shuffle, out int deflate, out int level);
     [DllImport(Library, ExactSpelling = true)] public static extern int nc_inq_var_chunking(int ncid, int varid, out int storage, nuint* chunksizes);
@@ -116,12 +103,6 @@ internal static unsafe class NetCdfNative
     public static extern int nc_put_att_text(int ncid, int varid, [MarshalAs(UnmanagedType.LPUTF8Str)] string name, nuint length, byte* value);
     [DllImport(Library, ExactSpelling = true)]
     public static extern int nc_put_att_double(int ncid, int varid, [MarshalAs(UnmanagedType.LPUTF8Str)] string name, int xtype, nuint length, double* value);
-    [DllImport(Library, ExactSpelling = true)]
-    public static extern int nc_put_att_float(int ncid, int varid, [MarshalAs(UnmanagedType.LPUTF8Str)] string name, int xtype, nuint length, float* value);
-    [DllImport(Library, ExactSpelling = true)]
-    public static extern int nc_put_att_int(int ncid, int varid, [MarshalAs(UnmanagedType.LPUTF8Str)] string name, int xtype, nuint length, int* value);
-    [DllImport(Library, ExactSpelling = true)]
-    public static extern int nc_put_att_short(int ncid, int varid, [MarshalAs(UnmanagedType.LPUTF8Str)] string name, int xtype, nuint length, short* value);
 
     // Definitions
     [DllImport(Library, ExactSpelling = true)]
@@ -131,7 +112,6 @@ internal static unsafe class NetCdfNative
     [DllImport(Library, ExactSpelling = true)]
     public static extern int nc_def_var_deflate(int ncid, int varid, int shuffle, int deflate, int level);
     [DllImport(Library, ExactSpelling = true)] public static extern int nc_def_var_chunking(int ncid, int varid, int storage, nuint* chunksizes);
-    [DllImport(Library, ExactSpelling = true)] public static extern int nc_def_var_fill(int ncid, int varid, int noFill, void* fillValue);
 
     // Hyperslab reads in the caller's memory type; netCDF-C converts from the file type.
     [DllImport(Library, ExactSpelling = true)] public static extern int nc_get_vara_float(int ncid, int varid, nuint* start, nuint* count, float* data);

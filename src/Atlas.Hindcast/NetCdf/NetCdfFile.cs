@@ -71,6 +71,15 @@ public sealed unsafe class NetCdfFile : IDisposable
                 $"truncated: the header describes {required} bytes of data but the file has {actual} bytes");
     }
 
+    /// <summary>The netCDF-C version in use (nc_inq_libvers), for provenance records.</summary>
+    public static string LibraryVersion
+    {
+        get
+        {
+            lock (NetCdfNative.Gate) return NetCdfNative.LibraryVersion;
+        }
+    }
+
     public string Path { get; }
     public NetCdfFormat Format { get; }
     public IReadOnlyList<NetCdfDimension> Dimensions { get; }
