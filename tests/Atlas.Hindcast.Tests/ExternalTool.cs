@@ -8,7 +8,23 @@ internal static class ExternalTool
     /// <summary>Debian's interpreter, which has NumPy, netCDF4 and cftime; another python3 may be first on PATH.</summary>
     public const string Python = "/usr/bin/python3";
 
+    /// <summary>Standard output of a run that must succeed.</summary>
     public static string Run(string executable, IEnumerable<string> arguments, string? standardInput = null)
+    {
+        var (code, stdout, stderr) = Start(executable, arguments, standardInput);
+        if (code != 0)
+            throw new InvalidOperationException($"{executable} {string.Join(' ', arguments)} exited {code}: {stderr}");
+        return stdout;
+    }
+
+    /// <summary>Standard output and error of a run, whatever its exit code (usage texts, refusals).</summary>
+    public static string Output(string executable, IEnumerable<string> arguments)
+    {
+        var (_, stdout, stderr) = Start(executable, arguments, null);
+        return stdout + stderr;
+    }
+
+    private static (int Code, string Stdout, string Stderr) Start(string executable, IEnumerable<string> arguments, string? standardInput)
     {
         var start = new ProcessStartInfo(executable)
         {
@@ -27,8 +43,6 @@ internal static class ExternalTool
         var stdout = process.StandardOutput.ReadToEndAsync();
         var stderr = process.StandardError.ReadToEndAsync();
         process.WaitForExit();
-        if (process.ExitCode != 0)
-            throw new InvalidOperationException($"{executable} {string.Join(' ', arguments)} exited {process.ExitCode}: {stderr.Result}");
-        return stdout.Result;
+        return (process.ExitCode, stdout.Result, stderr.Result);
     }
 }
