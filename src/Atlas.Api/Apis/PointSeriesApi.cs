@@ -95,7 +95,9 @@ public static class PointSeriesApi
     private static async Task WriteJsonAsync(Stream stream, PointSeries s, PointCell cell, Provenance source, int first, int last, CancellationToken cancel)
     {
         var (te, power, teFromTp) = s.Derived();
-        await using var json = new Utf8JsonWriter(stream);
+        // The writer fills a buffer that is copied to the response asynchronously (the server forbids synchronous writes).
+        var buffer = new System.Buffers.ArrayBufferWriter<byte>(64 * 1024);
+        await using var json = new Utf8JsonWriter(buffer);
         json.WriteStartObject();
         json.WritePropertyName("cell");
         JsonSerializer.Serialize(json, cell, GeoJsonSerialisation.Options);
@@ -118,11 +120,18 @@ public static class PointSeriesApi
             Write(json, "spread", s.HasSpread ? s.Spread[i] : float.NaN, 2);
             Write(json, "j", power[i], 3);
             json.WriteEndObject();
-            if (json.BytesPending > 32 * 1024) await json.FlushAsync(cancel);
+            if (json.BytesPending + buffer.WrittenCount > 32 * 1024) await DrainAsync(json, buffer, stream, cancel);
         }
         json.WriteEndArray();
         json.WriteEndObject();
-        await json.FlushAsync(cancel);
+        await DrainAsync(json, buffer, stream, cancel);
+    }
+
+    private static async Task DrainAsync(Utf8JsonWriter json, System.Buffers.ArrayBufferWriter<byte> buffer, Stream stream, CancellationToken cancel)
+    {
+        json.Flush();
+        await stream.WriteAsync(buffer.WrittenMemory, cancel);
+        buffer.ResetWrittenCount();
     }
 
     private static void Append(StringBuilder line, float value, string pattern)

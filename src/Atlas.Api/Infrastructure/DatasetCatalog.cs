@@ -36,9 +36,9 @@ public sealed class DatasetCatalog(DatasetStore datasets, DatasetGeometryQueries
     public Task<double?> TypicalSpacingMetresAsync(DatasetRecord dataset, CancellationToken cancel) =>
         CachedAsync(("spacing", dataset.Id, dataset.CreatedAtUtc), SpacingLifetime, () => geometry.TypicalSpacingMetresAsync(dataset.Id, cancel));
 
-    /// <summary>The envelope of the wet cells, or null when the dataset has none.</summary>
+    /// <summary>The envelope of the grid (wet and dry cell centres), or null when the dataset has no cell.</summary>
     public Task<(double West, double South, double East, double North)?> ExtentAsync(DatasetRecord dataset, CancellationToken cancel) =>
-        CachedAsync(("extent", dataset.Id, dataset.CreatedAtUtc), TimelineLifetime, () => geometry.ExtentAsync(dataset.Id, cancel));
+        CachedAsync(("extent", dataset.Id, dataset.CreatedAtUtc), TimelineLifetime, () => geometry.GridExtentAsync(dataset.Id, cancel));
 
     public void Forget(string slug) => cache.Remove(("dataset", slug));
 

@@ -32,13 +32,13 @@ public sealed class PointLocator(DatasetCatalog catalog, CellStore cells, IOptio
         var limitKm = await LimitKilometresAsync(dataset, cancel);
         if (await catalog.ExtentAsync(dataset, cancel) is not { } extent)
             return (null, ApiProblems.Unprocessable("The dataset has no wet cells", $"Dataset '{slug}' has no wet cell loaded yet; ingest its files first."));
-        // Allow positions just outside the envelope of cell centres, as far as the distance limit reaches.
+        // Allow positions just outside the envelope of the grid's cell centres, as far as the distance limit reaches.
         var marginLat = limitKm / 111.32;  // common practice: 111.32 km per degree of latitude
         var marginLon = marginLat / Math.Max(0.05, Math.Cos(latitude * Math.PI / 180));
         if (latitude < extent.South - marginLat || latitude > extent.North + marginLat
             || longitude < extent.West - marginLon || longitude > extent.East + marginLon)
             return (null, ApiProblems.Unprocessable("Outside the dataset extent",
-                $"({F(latitude)}, {F(longitude)}) lies outside dataset '{slug}', which covers longitudes {F(extent.West)}..{F(extent.East)} " +
+                $"({F(latitude)}, {F(longitude)}) lies outside dataset '{slug}', whose grid covers longitudes {F(extent.West)}..{F(extent.East)} " +
                 $"and latitudes {F(extent.South)}..{F(extent.North)}. Choose a position inside it."));
         var nearest = await cells.NearestWetAsync(dataset.Id, latitude, longitude, cancel);
         if (nearest is null)

@@ -37,11 +37,13 @@ public sealed class DatasetGeometryQueries(NpgsqlDataSource dataSource)
         return await command.ExecuteScalarAsync(cancel) is double d ? d : null;
     }
 
-    /// <summary>The envelope of the wet cells (dataset.extent), or null before any cell is loaded.</summary>
-    public async Task<(double West, double South, double East, double North)?> ExtentAsync(int datasetId, CancellationToken cancel = default)
+    /// <summary>The envelope of every cell centre of the grid, wet and dry, or null before any cell is loaded.</summary>
+    public async Task<(double West, double South, double East, double North)?> GridExtentAsync(int datasetId, CancellationToken cancel = default)
     {
-        await using var command = dataSource.CreateCommand(
-            "SELECT ST_XMin(extent), ST_YMin(extent), ST_XMax(extent), ST_YMax(extent) FROM dataset WHERE dataset_id = $1 AND extent IS NOT NULL");
+        await using var command = dataSource.CreateCommand("""
+            SELECT ST_XMin(e), ST_YMin(e), ST_XMax(e), ST_YMax(e)
+              FROM (SELECT ST_Extent(geom)::geometry AS e FROM cell WHERE dataset_id = $1) s WHERE e IS NOT NULL
+            """);
         command.Parameters.AddWithValue(datasetId);
         await using var reader = await command.ExecuteReaderAsync(cancel);
         if (!await reader.ReadAsync(cancel)) return null;

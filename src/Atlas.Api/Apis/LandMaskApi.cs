@@ -1,0 +1,108 @@
+using System.Text.Json;
+using Atlas.Api.Downloads;
+using Atlas.Api.Footprints;
+using Atlas.Api.Infrastructure;
+using Atlas.Api.Rasters;
+using Atlas.Storage.Cells;
+using Microsoft.AspNetCore.Http.HttpResults;
+using Microsoft.Extensions.Caching.Memory;
+using NetTopologySuite.Geometries;
+using NetTopologySuite.Operation.Union;
+
+namespace Atlas.Api.Apis;
+
+/// <summary>
+/// <c>GET /api/v1/datasets/{slug}/land</c>: the dataset's own land mask, the footprints of its dry cells merged into
+/// polygons, so that a map can draw the coast the hindcast saw without any outside coastline.
+/// </summary>
+public static class LandMaskApi
+{
+    public const string RouteName = "LandMask";
+
+    public static IEndpointRouteBuilder MapLandMaskApi(this IEndpointRouteBuilder routes)
+    {
+        routes.MapGet("/api/v1/datasets/{slug}/land", LandAsync).WithTags("Datasets").WithName(RouteName)
+            .WithSummary("The dataset's land mask: its dry cells merged into GeoJSON polygons")
+            .WithDescription(
+                "A GeoJSON FeatureCollection with one MultiPolygon feature (EPSG:4326 degrees) covering the dry cells: on a regular " +
+                "grid each dry cell is the rectangle halfway to its neighbouring grid lines (as the wet cells' footprints are); elsewhere " +
+                "it is its Voronoi region among all cells, clipped to one typical spacing. dry_cell_count says how many cells it holds; " +
+                "a dataset with no dry cell (a mesh of wet nodes only) gives an empty collection.")
+            .Produces(200, contentType: "application/geo+json");
+        return routes;
+    }
+
+    public static async Task<Results<FileContentHttpResult, ProblemHttpResult>> LandAsync(
+        string slug, HttpContext http, DatasetCatalog catalog, CellStore cells, IMemoryCache cache, CancellationToken cancel)
+    {
+        var dataset = await catalog.FindAsync(slug, cancel);
+        if (dataset is null) return ApiProblems.UnknownDataset(slug);
+        var body = await cache.GetOrCreateAsync(("land", dataset.Id, dataset.CreatedAtUtc), async entry =>
+        {
+            entry.AbsoluteExpirationRelativeToNow = TimeSpan.FromMinutes(30);
+            var all = await cells.AllAsync(dataset.Id, cancel);
+            var dry = all.Where(c => !c.Wet).ToArray();
+            IEnumerable<Polygon> footprints;
+            if (dry.Length == 0) footprints = [];
+            else if (dataset.GridKind == "regular" && GridAxes.From(dataset.GridJson) is { } axes)
+                footprints = CellFootprints.OnRegularGrid(axes, dry).Values.Select(f => f.Polygon);
+            else
+            {
+                var spacing = await catalog.TypicalSpacingMetresAsync(dataset, cancel) ?? 1000;
+                var dryIds = dry.Select(c => c.CellId).ToHashSet();
+                footprints = CellFootprints.Voronoi(all, spacing).Values.Where(f => dryIds.Contains(f.CellId)).Select(f => f.Polygon);
+            }
+            var polygons = footprints.ToArray();
+            var land = polygons.Length == 0 ? null : UnaryUnionOp.Union(polygons);
+            return Write(land, dry.Length);
+        });
+        http.Response.Headers.CacheControl = "public, max-age=3600";
+        return TypedResults.File(body!, "application/geo+json");
+    }
+
+    private static byte[] Write(Geometry? land, int dryCells)
+    {
+        using var buffer = new MemoryStream();
+        using (var json = new Utf8JsonWriter(buffer))
+        {
+            json.WriteStartObject();
+            json.WriteString("type", "FeatureCollection");
+            json.WriteNumber("dry_cell_count", dryCells);
+            json.WriteStartArray("features");
+            var parts = Enumerable.Range(0, land?.NumGeometries ?? 0).Select(k => land!.GetGeometryN(k)).OfType<Polygon>().ToArray();
+            if (parts.Length > 0)
+            {
+                json.WriteStartObject();
+                json.WriteString("type", "Feature");
+                json.WriteStartObject("properties");
+                json.WriteString("kind", "land (dry cells)");
+                json.WriteEndObject();
+                json.WriteStartObject("geometry");
+                json.WriteString("type", "MultiPolygon");
+                json.WriteStartArray("coordinates");
+                foreach (var polygon in parts)
+                {
+                    json.WriteStartArray();
+                    // RFC 7946: exterior rings counter-clockwise, holes clockwise.
+                    WriteRing(json, polygon.Shell, counterClockwise: true);
+                    foreach (var hole in polygon.Holes) WriteRing(json, hole, counterClockwise: false);
+                    json.WriteEndArray();
+                }
+                json.WriteEndArray();
+                json.WriteEndObject();
+                json.WriteEndObject();
+            }
+            json.WriteEndArray();
+            json.WriteEndObject();
+        }
+        return buffer.ToArray();
+    }
+
+    private static void WriteRing(Utf8JsonWriter json, LinearRing ring, bool counterClockwise)
+    {
+        var points = ring.IsCCW == counterClockwise ? ring.Coordinates : ring.Coordinates.Reverse().ToArray();
+        json.WriteStartArray();
+        foreach (var p in points) LayerGeoJsonWriter.WritePosition(json, p.X, p.Y);
+        json.WriteEndArray();
+    }
+}
