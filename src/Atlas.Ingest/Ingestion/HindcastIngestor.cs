@@ -38,7 +38,9 @@ public sealed class HindcastIngestor(NpgsqlDataSource dataSource)
             foreach (var path in request.Files.Distinct())
             {
                 cancel.ThrowIfCancellationRequested();
-                files.Add(SourceFile.Open(path, request.Mapping));
+                var opened = SourceFile.Open(path, request.Mapping);
+                opened.Release();
+                files.Add(opened);
                 progress?.Report(new ProgressSnapshot("opening files", files.Count, request.Files.Count, 0, clock.Elapsed, "files"));
             }
             return await LoadAsync(request, files, progress, clock, cancel);
@@ -72,7 +74,7 @@ public sealed class HindcastIngestor(NpgsqlDataSource dataSource)
             return new IngestSummary(request.DatasetSlug, 0, skipped, 0, 0, 0, 0, clock.Elapsed, false);
 
         CheckTimesAcrossFiles(fresh);
-        var grid = GridDescription.Of(fresh[0].File.Grid);
+        var grid = GridDescription.Of(fresh[0].Grid);
         if (dataset is not null && !GridDescription.Matches(dataset, grid))
             throw new IngestException($"{fresh[0].Name}: its grid ({grid.Describe()}) differs from the grid of dataset '{dataset.Slug}' " +
                 $"({dataset.GridKind}, {dataset.PointCount} points); files of one dataset must share one grid.");
@@ -85,7 +87,8 @@ public sealed class HindcastIngestor(NpgsqlDataSource dataSource)
             request.Title ?? fresh[0].Attribute("title") ?? request.DatasetSlug, grid.Kind, grid.Nx, grid.Ny, grid.PointCount,
             grid.ToJson(), "{}", cancel);
 
-        var depth = fresh[0].File.Has(WaveVariable.Depth) ? fresh[0].File.ReadDepth() : null;
+        var depth = fresh[0].Has(WaveVariable.Depth) ? fresh[0].File.ReadDepth() : null;
+        fresh[0].Release();
         var candidate = new bool[grid.PointCount];
         for (var p = 0; p < candidate.Length; p++) candidate[p] = depth is null || depth[p] > 0;
         var existingWet = created ? null : await CellStore.WetCellIdsAsync(connection, transaction, datasetId, cancel);
@@ -94,7 +97,7 @@ public sealed class HindcastIngestor(NpgsqlDataSource dataSource)
         var mask = 0;
         foreach (var file in fresh)
             foreach (var (source, target) in Stored)
-                if (file.File.Has(source)) mask |= 1 << (int)target;
+                if (file.Has(source)) mask |= 1 << (int)target;
         var storedMask = created ? 0 : MaskFromMetadata(dataset!.MetadataJson);
         mask |= storedMask;
 
@@ -139,7 +142,7 @@ public sealed class HindcastIngestor(NpgsqlDataSource dataSource)
                             var steps = Math.Min(slab, last - t0 + 1);
                             foreach (var (source, target) in Stored)
                             {
-                                if (!file.File.Has(source)) continue;
+                                if (!file.Has(source)) continue;
                                 file.File.ReadSteps(source, t0, steps, p0, count, buffer.AsSpan(0, steps * count));
                                 bytesRead += 4L * steps * count;
                                 Scatter(file, source, target, buffer, steps, count, p0, t0, t0 - first, positions, mask, timeline.Length,
@@ -152,6 +155,7 @@ public sealed class HindcastIngestor(NpgsqlDataSource dataSource)
                     finally
                     {
                         ArrayPool<float>.Shared.Return(buffer);
+                        if (p0 + count >= grid.PointCount && YearTimeline.YearOf(file.Times[^1]) <= year) file.Release();
                     }
                 }
                 var chunks = new List<SeriesChunk>();
@@ -278,9 +282,9 @@ public sealed class HindcastIngestor(NpgsqlDataSource dataSource)
     private static void CheckSameGrid(List<SourceFile> files)
     {
         for (var i = 1; i < files.Count; i++)
-            if (!files[i].File.Grid.IsSameAs(files[0].File.Grid))
-                throw new IngestException($"{files[i].Name}: its grid ({GridDescription.Of(files[i].File.Grid).Describe()}) differs from the grid of " +
-                    $"{files[0].Name} ({GridDescription.Of(files[0].File.Grid).Describe()}); files of one dataset must share one grid.");
+            if (!files[i].Grid.IsSameAs(files[0].Grid))
+                throw new IngestException($"{files[i].Name}: its grid ({GridDescription.Of(files[i].Grid).Describe()}) differs from the grid of " +
+                    $"{files[0].Name} ({GridDescription.Of(files[0].Grid).Describe()}); files of one dataset must share one grid.");
     }
 
     private static void CheckTimesAcrossFiles(List<SourceFile> files)

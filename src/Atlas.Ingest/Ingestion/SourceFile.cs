@@ -6,17 +6,33 @@ namespace Atlas.Ingest.Ingestion;
 /// <summary>An opened hindcast file with its checksum and time line (Unix seconds).</summary>
 public sealed class SourceFile : IDisposable
 {
-    private SourceFile(HindcastFile file, string sha256, long sizeBytes, IReadOnlyDictionary<string, string> attributes)
+    private readonly VariableMapping? _mapping;
+    private HindcastFile? _file;
+
+    private SourceFile(HindcastFile file, VariableMapping? mapping, string sha256, long sizeBytes, IReadOnlyDictionary<string, string> attributes)
     {
         Attributes = attributes;
-        File = file;
+        _file = file;
+        _mapping = mapping;
+        Path = file.Path;
+        Grid = file.Grid;
+        Variables = Enum.GetValues<WaveVariable>().Where(file.Has).ToHashSet();
         Sha256 = sha256;
         SizeBytes = sizeBytes;
         Times = file.TimesUtc.Select(t => new DateTimeOffset(DateTime.SpecifyKind(t, DateTimeKind.Utc)).ToUnixTimeSeconds()).ToArray();
     }
 
-    public HindcastFile File { get; }
-    public string Name => Path.GetFileName(File.Path);
+    /// <summary>
+    /// The open file, opened again on demand after <see cref="Release"/>. Files are released as soon as the ingest
+    /// is done with them, so that netCDF-C's per-variable chunk caches of many files never pile up in memory.
+    /// </summary>
+    public HindcastFile File => _file ??= HindcastFile.Open(Path, _mapping);
+
+    public string Path { get; }
+    public HindcastGrid Grid { get; }
+    public IReadOnlySet<WaveVariable> Variables { get; }
+    public bool Has(WaveVariable variable) => Variables.Contains(variable);
+    public string Name => System.IO.Path.GetFileName(Path);
     public string Sha256 { get; }
     public long SizeBytes { get; }
     public long[] Times { get; }
@@ -40,10 +56,17 @@ public sealed class SourceFile : IDisposable
         if (file.TimesUtc.Count == 0)
         {
             file.Dispose();
-            throw new IngestException($"{Path.GetFileName(path)}: the time axis is empty; there is nothing to load.");
+            throw new IngestException($"{System.IO.Path.GetFileName(path)}: the time axis is empty; there is nothing to load.");
         }
-        return new SourceFile(file, sha, new FileInfo(path).Length, attributes);
+        return new SourceFile(file, mapping, sha, new FileInfo(path).Length, attributes);
     }
 
-    public void Dispose() => File.Dispose();
+    /// <summary>Closes the file (and frees its caches) until it is next needed.</summary>
+    public void Release()
+    {
+        _file?.Dispose();
+        _file = null;
+    }
+
+    public void Dispose() => Release();
 }
