@@ -3,9 +3,10 @@ using System.Text.Json;
 
 namespace Atlas.Hindcast.Tests;
 
-[Collection(NetCdfCollection.Name)]
-public sealed class CfTimeTests(NetCdfFixtures fixtures)
+public sealed class CfTimeTests
 {
+    private readonly NetCdfFixtures _fixtures = NetCdfFixtures.Shared;
+
     private static readonly (string Units, string Calendar, double[] Values)[] Cases =
     [
         ("seconds since 1970-01-01 00:00:00", "standard", [0, 86399.5, 1e9]),
@@ -49,8 +50,8 @@ public sealed class CfTimeTests(NetCdfFixtures fixtures)
     [Fact]
     public void NoleapFileDecodesToTheDatesCftimeGivesAndSkipsTheLeapDay()
     {
-        using var file = HindcastFile.Open(fixtures.Path("calendar_noleap.classic"));
-        var cftime = fixtures.ReadBack("calendar_noleap.classic").GetProperty("times").EnumerateArray()
+        using var file = HindcastFile.Open(_fixtures.Path("calendar_noleap.classic"));
+        var cftime = _fixtures.ReadBack("calendar_noleap.classic").GetProperty("times").EnumerateArray()
             .Select(d => DateTime.Parse(d.GetString()!, CultureInfo.InvariantCulture, DateTimeStyles.AdjustToUniversal | DateTimeStyles.AssumeUniversal)).ToArray();
         Assert.Equal(cftime, file.TimesUtc);
         Assert.Equal(new DateTime(2000, 3, 1, 0, 0, 0, DateTimeKind.Utc), file.TimesUtc[2]);
@@ -69,7 +70,7 @@ public sealed class CfTimeTests(NetCdfFixtures fixtures)
     [Fact]
     public void AllLeapTwentyNinthOfFebruaryInACommonYearIsRejectedWithItsIndex()
     {
-        string path = fixtures.Path("calendar_all_leap.classic");
+        string path = _fixtures.Path("calendar_all_leap.classic");
         var e = Assert.Throws<HindcastFormatException>(() => HindcastFile.Open(path));
         Assert.Equal("time", e.Variable);
         Assert.Contains("time[2]", e.Problem);
@@ -79,7 +80,7 @@ public sealed class CfTimeTests(NetCdfFixtures fixtures)
     [Fact]
     public void ThreeHundredSixtyDayCalendarIsRejected()
     {
-        string path = fixtures.Path("calendar_360_day.classic");
+        string path = _fixtures.Path("calendar_360_day.classic");
         var e = Assert.Throws<HindcastFormatException>(() => HindcastFile.Open(path));
         Assert.Equal("time", e.Variable);
         Assert.Contains("calendar '360_day'", e.Message);
@@ -89,7 +90,7 @@ public sealed class CfTimeTests(NetCdfFixtures fixtures)
     [Fact]
     public void OutOfOrderStepIsRejectedNamingItsIndexAndTime()
     {
-        var e = Assert.Throws<HindcastFormatException>(() => HindcastFile.Open(fixtures.Path("time_nonmonotonic.classic")));
+        var e = Assert.Throws<HindcastFormatException>(() => HindcastFile.Open(_fixtures.Path("time_nonmonotonic.classic")));
         Assert.Equal("time", e.Variable);
         Assert.Equal("time[3] = 2001-01-01T02:00:00Z is before time[2] = 2001-01-01T03:00:00Z; times must increase strictly", e.Problem);
     }
@@ -97,7 +98,7 @@ public sealed class CfTimeTests(NetCdfFixtures fixtures)
     [Fact]
     public void RepeatedStepIsRejectedNamingItsIndex()
     {
-        var e = Assert.Throws<HindcastFormatException>(() => HindcastFile.Open(fixtures.Path("time_duplicate.classic")));
+        var e = Assert.Throws<HindcastFormatException>(() => HindcastFile.Open(_fixtures.Path("time_duplicate.classic")));
         Assert.Equal("time[2] = 2001-01-01T01:00:00Z repeats time[1] = 2001-01-01T01:00:00Z; times must increase strictly", e.Problem);
     }
 

@@ -1,25 +1,26 @@
 namespace Atlas.Hindcast.Tests;
 
 /// <summary>Packing, fill values, valid ranges, units and direction conventions, checked against netCDF4-python's reading.</summary>
-[Collection(NetCdfCollection.Name)]
-public sealed class CfValueDecodingTests(NetCdfFixtures fixtures)
+public sealed class CfValueDecodingTests
 {
+    private readonly NetCdfFixtures _fixtures = NetCdfFixtures.Shared;
+
     [Theory]
     [InlineData("packed.classic")]
     [InlineData("packed.nc4")]
     public void PackedIntegersDecodeAsNetCdf4PythonReadsThem(string name)
     {
-        using var file = HindcastFile.Open(fixtures.Path(name));
+        using var file = HindcastFile.Open(_fixtures.Path(name));
         // Reference: netCDF4-python with auto mask and scale (read_back.py). Tolerance 2e-6: it unpacks in float32
         // when scale_factor is float32, this reader in double, rounding once to float32.
         foreach (var (wave, variable) in new[] { (WaveVariable.Hs, "hs"), (WaveVariable.Te, "te"), (WaveVariable.Dir, "dir"), (WaveVariable.Tp, "tp") })
-            FloatAssert.Close(fixtures.ReferenceValues(name, variable), ReadAll(file, wave), 2e-6 * 40, $"{name} {variable}");
+            FloatAssert.Close(_fixtures.ReferenceValues(name, variable), ReadAll(file, wave), 2e-6 * 40, $"{name} {variable}");
     }
 
     [Fact]
     public void Int16FillValueAndValidMinAreMissing()
     {
-        using var file = HindcastFile.Open(fixtures.Path("packed.classic"));
+        using var file = HindcastFile.Open(_fixtures.Path("packed.classic"));
         var hs = ReadAll(file, WaveVariable.Hs);
         // packed.cdl: stored -32767 is _FillValue; -600 and -499 lie below valid_min = 0 (compared with the
         // stored values, as netCDF4-python does); stored 0 is valid and decodes to add_offset 0.5 m.
@@ -33,7 +34,7 @@ public sealed class CfValueDecodingTests(NetCdfFixtures fixtures)
     [Fact]
     public void Int32WithoutFillValueTreatsTheNetCdfDefaultFillAsMissing()
     {
-        using var file = HindcastFile.Open(fixtures.Path("packed.classic"));
+        using var file = HindcastFile.Open(_fixtures.Path("packed.classic"));
         var te = ReadAll(file, WaveVariable.Te);
         // netcdf.h NC_FILL_INT = -2147483647 stored at indices 5 and 19 of packed.cdl.
         Assert.True(float.IsNaN(te[5]));
@@ -44,7 +45,7 @@ public sealed class CfValueDecodingTests(NetCdfFixtures fixtures)
     [Fact]
     public void Int8DirectionWithItsFillValueDecodesIntoDegrees()
     {
-        using var file = HindcastFile.Open(fixtures.Path("packed.classic"));
+        using var file = HindcastFile.Open(_fixtures.Path("packed.classic"));
         var dir = ReadAll(file, WaveVariable.Dir);
         Assert.Equal(0f, dir[0]);      // -120 * 1.5 + 180
         Assert.Equal(358.5f, dir[4]);  // 119 * 1.5 + 180
@@ -54,7 +55,7 @@ public sealed class CfValueDecodingTests(NetCdfFixtures fixtures)
     [Fact]
     public void NaNFillValueLeavesMissingValuesMissing()
     {
-        using var file = HindcastFile.Open(fixtures.Path("packed.classic"));
+        using var file = HindcastFile.Open(_fixtures.Path("packed.classic"));
         var tp = ReadAll(file, WaveVariable.Tp);
         Assert.True(float.IsNaN(tp[5]));
         Assert.Equal(8f, tp[0]);
@@ -64,21 +65,21 @@ public sealed class CfValueDecodingTests(NetCdfFixtures fixtures)
     public void CentimetresAndSecondsAreConvertedToMetresAndSeconds()
     {
         const string name = "units_to_direction.offset64";
-        using var file = HindcastFile.Open(fixtures.Path(name));
+        using var file = HindcastFile.Open(_fixtures.Path(name));
         // 1 cm = 0.01 m (SI Brochure, BIPM). Reference values: netCDF4-python, which does not convert units.
-        FloatAssert.Close(FloatAssert.Map(fixtures.ReferenceValues(name, "hs"), v => v / 100), ReadAll(file, WaveVariable.Hs), 1e-6, "hs");
-        FloatAssert.Close(fixtures.ReferenceValues(name, "te"), ReadAll(file, WaveVariable.Te), 0, "te (units 'second')");
+        FloatAssert.Close(FloatAssert.Map(_fixtures.ReferenceValues(name, "hs"), v => v / 100), ReadAll(file, WaveVariable.Hs), 1e-6, "hs");
+        FloatAssert.Close(_fixtures.ReferenceValues(name, "te"), ReadAll(file, WaveVariable.Te), 0, "te (units 'second')");
     }
 
     [Fact]
     public void ToDirectionInRadiansBecomesFromDirectionInDegrees()
     {
         const string name = "units_to_direction.offset64";
-        using var file = HindcastFile.Open(fixtures.Path(name));
+        using var file = HindcastFile.Open(_fixtures.Path(name));
         Assert.True(file.Source(WaveVariable.Dir)!.Towards);
         // 1 rad = 180/pi degrees; waves travelling to theta come from theta + 180 (CF standard names
         // sea_surface_wave_to_direction / _from_direction); wrapped into [0, 360). Tolerance 1e-4 degree.
-        var expected = FloatAssert.Map(fixtures.ReferenceValues(name, "dirto"),
+        var expected = FloatAssert.Map(_fixtures.ReferenceValues(name, "dirto"),
             v => (float)(((v * 180 / Math.PI + 180) % 360 + 360) % 360));
         var dir = ReadAll(file, WaveVariable.Dir);
         FloatAssert.Close(expected, dir, 1e-4, "dir");
@@ -93,15 +94,15 @@ public sealed class CfValueDecodingTests(NetCdfFixtures fixtures)
     public void SpreadInRadiansBecomesDegrees()
     {
         const string name = "units_to_direction.offset64";
-        using var file = HindcastFile.Open(fixtures.Path(name));
-        var expected = FloatAssert.Map(fixtures.ReferenceValues(name, "spread"), v => (float)(v * 180 / Math.PI));
+        using var file = HindcastFile.Open(_fixtures.Path(name));
+        var expected = FloatAssert.Map(_fixtures.ReferenceValues(name, "spread"), v => (float)(v * 180 / Math.PI));
         FloatAssert.Close(expected, ReadAll(file, WaveVariable.Spread), 1e-4, "spread");
     }
 
     [Fact]
     public void AltitudeBecomesDepthWithLandMissing()
     {
-        using var file = HindcastFile.Open(fixtures.Path("units_to_direction.offset64"));
+        using var file = HindcastFile.Open(_fixtures.Path("units_to_direction.offset64"));
         Assert.True(file.Source(WaveVariable.Depth)!.PositiveUp);
         // units_to_direction.cdl: elevation -20, -15.5, 3, -100, 0, -0.5 (positive up); a sea floor at or above
         // the surface is land.
@@ -111,7 +112,7 @@ public sealed class CfValueDecodingTests(NetCdfFixtures fixtures)
     [Fact]
     public void UnitsThatCannotBeConvertedNameFileVariableAndUnits()
     {
-        string path = fixtures.Path("regular_float.classic");
+        string path = _fixtures.Path("regular_float.classic");
         var mapping = new VariableMapping(new Dictionary<WaveVariable, string>(),
             units: new Dictionary<WaveVariable, string> { [WaveVariable.Hs] = "m s-1" });
         var e = Assert.Throws<HindcastFormatException>(() => HindcastFile.Open(path, mapping));

@@ -2,9 +2,10 @@ using System.Text.Json;
 
 namespace Atlas.Hindcast.Tests;
 
-[Collection(NetCdfCollection.Name)]
-public sealed class HindcastFileTests(NetCdfFixtures fixtures)
+public sealed class HindcastFileTests
 {
+    private readonly NetCdfFixtures _fixtures = NetCdfFixtures.Shared;
+
     private static readonly (WaveVariable Wave, string Name)[] RegularVariables =
         [(WaveVariable.Hs, "hs"), (WaveVariable.Te, "te"), (WaveVariable.Tp, "tp"), (WaveVariable.Dir, "mwd"), (WaveVariable.Spread, "spr")];
 
@@ -17,7 +18,7 @@ public sealed class HindcastFileTests(NetCdfFixtures fixtures)
     public void EveryFormatDecodesTheValuesNetCdf4PythonReads(string kind)
     {
         string name = "regular_float." + kind;
-        using var file = HindcastFile.Open(fixtures.Path(name));
+        using var file = HindcastFile.Open(_fixtures.Path(name));
         Assert.Equal(4, file.TimesUtc.Count);
         Assert.Equal(new DateTime(2001, 1, 1, 3, 0, 0, DateTimeKind.Utc), file.TimesUtc[3]);
         foreach (var (wave, variable) in RegularVariables)
@@ -25,14 +26,14 @@ public sealed class HindcastFileTests(NetCdfFixtures fixtures)
             Assert.True(file.Has(wave));
             Assert.Equal(VariableMatch.StandardName, file.Source(wave)!.MatchedBy);
             // Reference: netCDF4-python (read_back.py); float data pass through unchanged, so exact.
-            FloatAssert.Close(fixtures.ReferenceValues(name, variable), ReadAll(file, wave), 0, $"{name} {variable}");
+            FloatAssert.Close(_fixtures.ReferenceValues(name, variable), ReadAll(file, wave), 0, $"{name} {variable}");
         }
     }
 
     [Fact]
     public void DecodedFloatValuesEqualNcdumpText()
     {
-        string path = fixtures.Path("regular_float.nc4");
+        string path = _fixtures.Path("regular_float.nc4");
         using var file = HindcastFile.Open(path);
         // Reference: `ncdump -v te`; "_" is the fill value, decoded as missing.
         FloatAssert.Close(NetCdfFileTests.NcdumpValues(path, "te"), ReadAll(file, WaveVariable.Te), 0, "te");
@@ -41,21 +42,21 @@ public sealed class HindcastFileTests(NetCdfFixtures fixtures)
     [Fact]
     public void CompressedChunkedPackedFileDecodesAsNetCdf4PythonReadsIt()
     {
-        using var file = HindcastFile.Open(fixtures.Path("compressed"));
+        using var file = HindcastFile.Open(_fixtures.Path("compressed"));
         Assert.Equal(NetCdfFormat.NetCdf4, file.Format);
         Assert.Equal(48 * 600, file.TimesUtc.Count * file.Grid.PointCount);
         // Reference: netCDF4-python. Hs is int16 unpacked by it in float32 (scale_factor is float32): 2e-6 m.
-        FloatAssert.Close(fixtures.ReferenceValues("compressed", "hs"), ReadAll(file, WaveVariable.Hs), 2e-6, "hs");
-        FloatAssert.Close(fixtures.ReferenceValues("compressed", "te"), ReadAll(file, WaveVariable.Te), 0, "te");
-        FloatAssert.Close(fixtures.ReferenceValues("compressed", "tp"), ReadAll(file, WaveVariable.Tp), 1e-6, "tp (float64 rounded to float32)");
-        FloatAssert.Close(fixtures.ReferenceValues("compressed", "mwd"), ReadAll(file, WaveVariable.Dir), 0, "mwd");
+        FloatAssert.Close(_fixtures.ReferenceValues("compressed", "hs"), ReadAll(file, WaveVariable.Hs), 2e-6, "hs");
+        FloatAssert.Close(_fixtures.ReferenceValues("compressed", "te"), ReadAll(file, WaveVariable.Te), 0, "te");
+        FloatAssert.Close(_fixtures.ReferenceValues("compressed", "tp"), ReadAll(file, WaveVariable.Tp), 1e-6, "tp (float64 rounded to float32)");
+        FloatAssert.Close(_fixtures.ReferenceValues("compressed", "mwd"), ReadAll(file, WaveVariable.Dir), 0, "mwd");
     }
 
     [Fact]
     public void PackedHsLiesWithinHalfAPackingStepOfTheValuesBeforePacking()
     {
-        using var file = HindcastFile.Open(fixtures.Path("compressed"));
-        using var source = JsonDocument.Parse(File.ReadAllText(fixtures.CompressedSourceJson));
+        using var file = HindcastFile.Open(_fixtures.Path("compressed"));
+        using var source = JsonDocument.Parse(File.ReadAllText(_fixtures.CompressedSourceJson));
         var expected = source.RootElement.GetProperty("hs").EnumerateArray()
             .Select(v => v.ValueKind == JsonValueKind.Null ? float.NaN : (float)v.GetDouble()).ToArray();
         // make_compressed.py packs with scale_factor 0.0005: rounding error at most half a step, plus float32 rounding.
@@ -71,7 +72,7 @@ public sealed class HindcastFileTests(NetCdfFixtures fixtures)
     [InlineData(47, 1, 1, 599)]   // last step, all but the first point
     public void PointBlocksReadTheSameValuesAsTheWholeField(int timeStart, int timeCount, int pointStart, int pointCount)
     {
-        using var file = HindcastFile.Open(fixtures.Path("compressed"));
+        using var file = HindcastFile.Open(_fixtures.Path("compressed"));
         var all = ReadAll(file, WaveVariable.Hs);
         var block = new float[timeCount * pointCount];
         file.ReadSteps(WaveVariable.Hs, timeStart, timeCount, pointStart, pointCount, block);
@@ -91,14 +92,14 @@ public sealed class HindcastFileTests(NetCdfFixtures fixtures)
     [InlineData(1L << 30, 600)]     // everything fits
     public void PointBlocksAreWholeRowsAlignedWithChunkRows(long budget, int expected)
     {
-        using var file = HindcastFile.Open(fixtures.Path("compressed"));
+        using var file = HindcastFile.Open(_fixtures.Path("compressed"));
         Assert.Equal(expected, file.PointBlockSize(budget));
     }
 
     [Fact]
     public void DepthIsPositiveDownWithLandAndMissingAsNaN()
     {
-        using var file = HindcastFile.Open(fixtures.Path("regular_float.classic"));
+        using var file = HindcastFile.Open(_fixtures.Path("regular_float.classic"));
         // regular_float.cdl dpt: point 0 is _FillValue, point 5 is -2 m (above the surface).
         Assert.Equal([float.NaN, 12.5f, 20, 35, 8, float.NaN, 40, 55.5f, 30, 45, 60, 80], file.ReadDepth());
     }
@@ -106,10 +107,10 @@ public sealed class HindcastFileTests(NetCdfFixtures fixtures)
     [Fact]
     public void WetMaskDriesPointsWithoutDepthOrWithoutHs()
     {
-        using var file = HindcastFile.Open(fixtures.Path("regular_float.classic"));
+        using var file = HindcastFile.Open(_fixtures.Path("regular_float.classic"));
         var wet = file.ReadWetMask();
         Assert.Equal(Enumerable.Range(0, 12).Select(p => p is not (0 or 5)), wet);
-        using var noDepth = HindcastFile.Open(fixtures.Path("curvilinear.cdf5"));
+        using var noDepth = HindcastFile.Open(_fixtures.Path("curvilinear.cdf5"));
         Assert.False(noDepth.Has(WaveVariable.Depth));
         Assert.All(noDepth.ReadDepth(), d => Assert.True(float.IsNaN(d)));
         Assert.Equal([true, true, true, true, true, false], noDepth.ReadWetMask());
@@ -118,7 +119,7 @@ public sealed class HindcastFileTests(NetCdfFixtures fixtures)
     [Fact]
     public void WetMaskOfTheCompressedFileFollowsItsLandBlock()
     {
-        using var file = HindcastFile.Open(fixtures.Path("compressed"));
+        using var file = HindcastFile.Open(_fixtures.Path("compressed"));
         var wet = file.ReadWetMask(probeSteps: 6);
         // make_compressed.py: land where column < 4 and row < 6.
         for (int j = 0; j < 20; j++)
@@ -129,7 +130,7 @@ public sealed class HindcastFileTests(NetCdfFixtures fixtures)
     [Fact]
     public void MissingHsIsRefusedWithAHintAtALookalikeName()
     {
-        string path = fixtures.Path("missing_hs.classic");
+        string path = _fixtures.Path("missing_hs.classic");
         var e = Assert.Throws<HindcastFormatException>(() => HindcastFile.Open(path));
         Assert.Equal(path, e.File);
         Assert.Contains("Hs is required", e.Problem);
@@ -140,7 +141,7 @@ public sealed class HindcastFileTests(NetCdfFixtures fixtures)
     [Fact]
     public void FirstAndSecondMomentPeriodsAreNotTakenForTe()
     {
-        var e = Assert.Throws<HindcastFormatException>(() => HindcastFile.Open(fixtures.Path("tm01_only.classic")));
+        var e = Assert.Throws<HindcastFormatException>(() => HindcastFile.Open(_fixtures.Path("tm01_only.classic")));
         Assert.Contains("neither an energy period Te", e.Problem);
         Assert.Contains("'t01' is Tm01", e.Problem);
         Assert.Contains("'t02' is Tm02", e.Problem);
@@ -150,7 +151,7 @@ public sealed class HindcastFileTests(NetCdfFixtures fixtures)
     public void MappingThatNamesTm01ForTeIsRefused()
     {
         var mapping = VariableMapping.Parse("""{ "te": "t01" }""", "tm01.json");
-        var e = Assert.Throws<HindcastFormatException>(() => HindcastFile.Open(fixtures.Path("tm01_only.classic"), mapping));
+        var e = Assert.Throws<HindcastFormatException>(() => HindcastFile.Open(_fixtures.Path("tm01_only.classic"), mapping));
         Assert.Equal("t01", e.Variable);
         Assert.Contains("mapping 'tm01.json'", e.Problem);
         Assert.Contains("Tm01, which is not Te", e.Problem);
@@ -161,12 +162,12 @@ public sealed class HindcastFileTests(NetCdfFixtures fixtures)
     {
         var mapping = VariableMapping.Load(NetCdfFixtures.Source("mapped_names.json"));
         const string name = "mapped_names.classic";
-        using var file = HindcastFile.Open(fixtures.Path(name), mapping);
+        using var file = HindcastFile.Open(_fixtures.Path(name), mapping);
         Assert.True(file.Has(WaveVariable.Hs) && file.Has(WaveVariable.Te) && file.Has(WaveVariable.Dir) && file.Has(WaveVariable.Depth));
         Assert.False(file.Has(WaveVariable.Tp));
         Assert.Equal(VariableMatch.Mapping, file.Source(WaveVariable.Hs)!.MatchedBy);
         Assert.Equal("swh", file.Source(WaveVariable.Hs)!.Name);
-        FloatAssert.Close(fixtures.ReferenceValues(name, "swh"), ReadAll(file, WaveVariable.Hs), 0, "hs");
+        FloatAssert.Close(_fixtures.ReferenceValues(name, "swh"), ReadAll(file, WaveVariable.Hs), 0, "hs");
         // "dir_to": waves travelling to theta come from theta + 180, wrapped into [0, 360).
         Assert.Equal([180f, 270f, 90f, 0f, 179f, 225f], ReadAll(file, WaveVariable.Dir));
         // "depth_positive": "up" and units supplied by the mapping: bathy -50, -12.5, 4.
@@ -177,7 +178,7 @@ public sealed class HindcastFileTests(NetCdfFixtures fixtures)
     [Fact]
     public void WithoutItsMappingAFileWithModelNamesIsRefused()
     {
-        var e = Assert.Throws<HindcastFormatException>(() => HindcastFile.Open(fixtures.Path("mapped_names.classic")));
+        var e = Assert.Throws<HindcastFormatException>(() => HindcastFile.Open(_fixtures.Path("mapped_names.classic")));
         Assert.Contains("Hs is required", e.Problem);
         Assert.Contains("'swh'", e.Problem);
     }
@@ -186,7 +187,7 @@ public sealed class HindcastFileTests(NetCdfFixtures fixtures)
     public void MappingThatNamesAnAbsentVariableIsRefused()
     {
         var mapping = VariableMapping.Parse("""{ "hs": "hsig" }""", "site.json");
-        var e = Assert.Throws<HindcastFormatException>(() => HindcastFile.Open(fixtures.Path("regular_float.classic"), mapping));
+        var e = Assert.Throws<HindcastFormatException>(() => HindcastFile.Open(_fixtures.Path("regular_float.classic"), mapping));
         Assert.Equal("hsig", e.Variable);
         Assert.Equal("the mapping 'site.json' names it for Hs, but the file has no such variable", e.Problem);
     }
@@ -194,7 +195,7 @@ public sealed class HindcastFileTests(NetCdfFixtures fixtures)
     [Fact]
     public void PeakPeriodAloneIsEnough()
     {
-        using var file = HindcastFile.Open(fixtures.Path("calendar_noleap.classic"));
+        using var file = HindcastFile.Open(_fixtures.Path("calendar_noleap.classic"));
         Assert.True(file.Has(WaveVariable.Tp));
         Assert.False(file.Has(WaveVariable.Te));
         var e = Assert.Throws<InvalidOperationException>(() => file.ReadSteps(WaveVariable.Te, 0, 1, 0, 1, new float[1]));
@@ -204,7 +205,7 @@ public sealed class HindcastFileTests(NetCdfFixtures fixtures)
     [Fact]
     public void ReadsOutsideTheFileOrIntoAShortBufferAreMisuse()
     {
-        using var file = HindcastFile.Open(fixtures.Path("regular_float.classic"));
+        using var file = HindcastFile.Open(_fixtures.Path("regular_float.classic"));
         Assert.Throws<ArgumentOutOfRangeException>(() => file.ReadSteps(WaveVariable.Hs, 3, 2, 0, 1, new float[2]));
         Assert.Throws<ArgumentOutOfRangeException>(() => file.ReadSteps(WaveVariable.Hs, 0, 1, 10, 3, new float[3]));
         Assert.Throws<ArgumentException>(() => file.ReadSteps(WaveVariable.Hs, 0, 2, 0, 3, new float[5]));

@@ -3,9 +3,10 @@ using System.Text.Json;
 
 namespace Atlas.Hindcast.Tests;
 
-[Collection(NetCdfCollection.Name)]
-public sealed class HindcastWriterTests(NetCdfFixtures fixtures)
+public sealed class HindcastWriterTests
 {
+    private readonly NetCdfFixtures _fixtures = NetCdfFixtures.Shared;
+
     private static readonly double[] Latitudes = [50.0, 50.5];
     private static readonly double[] Longitudes = [-6.0, -5.5, -5.0];
     private static readonly DateTime Origin = new(2001, 1, 1, 0, 0, 0, DateTimeKind.Utc);
@@ -85,7 +86,7 @@ public sealed class HindcastWriterTests(NetCdfFixtures fixtures)
     [Fact]
     public void LayerFileHoldsOneStaticFieldAndNoTime()
     {
-        string path = fixtures.Scratch("layer.nc");
+        string path = _fixtures.Scratch("layer.nc");
         float[] values = [10.5f, float.NaN, 12f, 13.25f, 14f, 15f];
         HindcastWriter.WriteLayer(path, Options() with { Comment = "annual mean wave power" },
             new CfField("j_mean", "kW m-1") { LongName = "mean omnidirectional wave power", Attributes = new Dictionary<string, string> { ["cell_methods"] = "time: mean" } },
@@ -102,7 +103,7 @@ public sealed class HindcastWriterTests(NetCdfFixtures fixtures)
     [Fact]
     public void MisuseOfTheWriterIsRefused()
     {
-        string path = fixtures.Scratch("misuse.nc");
+        string path = _fixtures.Scratch("misuse.nc");
         Assert.Throws<ArgumentException>(() => HindcastWriter.Create(path, Options() with { Longitudes = [1.0, 0.5] }));
         using var writer = HindcastWriter.Create(path, Options() with { Time = null });
         Assert.Throws<InvalidOperationException>(() => writer.DefineField(new CfField("hs", "m")));
@@ -113,7 +114,7 @@ public sealed class HindcastWriterTests(NetCdfFixtures fixtures)
 
     private string WriteHindcast(NetCdfFormat format, bool unlimited)
     {
-        string path = fixtures.Scratch("hindcast.nc");
+        string path = _fixtures.Scratch("hindcast.nc");
         using var writer = HindcastWriter.Create(path, Options() with
         {
             Format = format,

@@ -3,9 +3,10 @@ using System.Text.RegularExpressions;
 
 namespace Atlas.Hindcast.Tests;
 
-[Collection(NetCdfCollection.Name)]
-public sealed class NetCdfFileTests(NetCdfFixtures fixtures)
+public sealed class NetCdfFileTests
 {
+    private readonly NetCdfFixtures _fixtures = NetCdfFixtures.Shared;
+
     [Theory]
     [InlineData("classic", NetCdfFormat.Classic)]
     [InlineData("offset64", NetCdfFormat.Offset64)]
@@ -14,7 +15,7 @@ public sealed class NetCdfFileTests(NetCdfFixtures fixtures)
     [InlineData("nc4classic", NetCdfFormat.NetCdf4Classic)]
     public void EveryFormatOpensAndReportsTheFormatNcdumpReports(string kind, NetCdfFormat format)
     {
-        string path = fixtures.Path("regular_float." + kind);
+        string path = _fixtures.Path("regular_float." + kind);
         using var file = NetCdfFile.Open(path);
         Assert.Equal(format, file.Format);
         // Reference: `ncdump -k` prints the kind name ncgen -k was given.
@@ -26,7 +27,7 @@ public sealed class NetCdfFileTests(NetCdfFixtures fixtures)
     [InlineData("nc4")]
     public void DimensionsVariablesAndAttributesAreThoseTheCdlDefines(string kind)
     {
-        using var file = NetCdfFile.Open(fixtures.Path("regular_float." + kind));
+        using var file = NetCdfFile.Open(_fixtures.Path("regular_float." + kind));
         // Reference: regular_float.cdl as compiled by ncgen.
         Assert.Equal(["time", "latitude", "longitude"], file.Dimensions.Select(d => d.Name));
         Assert.Equal([4L, 3L, 4L], file.Dimensions.Select(d => d.Length));
@@ -44,7 +45,7 @@ public sealed class NetCdfFileTests(NetCdfFixtures fixtures)
     [Fact]
     public void NetCdf4VariablesAreChunkedAndCompressedAsNcdumpShows()
     {
-        string path = fixtures.Path("regular_float.nc4");
+        string path = _fixtures.Path("regular_float.nc4");
         using var file = NetCdfFile.Open(path);
         var hs = file.Variable("hs");
         Assert.Equal(NetCdfStorage.Chunked, hs.Storage);
@@ -66,7 +67,7 @@ public sealed class NetCdfFileTests(NetCdfFixtures fixtures)
     [InlineData("nc4classic")]
     public void HyperslabReadsMatchNcdumpValues(string kind)
     {
-        string path = fixtures.Path("regular_float." + kind);
+        string path = _fixtures.Path("regular_float." + kind);
         // Reference: the data section of `ncdump -v hs` (exact float text; "_" marks the fill value).
         var dumped = NcdumpValues(path, "hs");
         using var file = NetCdfFile.Open(path);
@@ -86,7 +87,7 @@ public sealed class NetCdfFileTests(NetCdfFixtures fixtures)
     [Fact]
     public void SlabsConvertToTheRequestedMemoryType()
     {
-        using var file = NetCdfFile.Open(fixtures.Path("packed.classic"));
+        using var file = NetCdfFile.Open(_fixtures.Path("packed.classic"));
         var hs = file.Variable("hs");
         var raw = new short[5];
         file.Read<short>(hs, [0, 0, 0], [1, 1, 5], raw);
@@ -100,7 +101,7 @@ public sealed class NetCdfFileTests(NetCdfFixtures fixtures)
     [Fact]
     public void ReadOutsideTheVariableIsRefusedBeforeCallingTheLibrary()
     {
-        using var file = NetCdfFile.Open(fixtures.Path("regular_float.classic"));
+        using var file = NetCdfFile.Open(_fixtures.Path("regular_float.classic"));
         var e = Assert.Throws<ArgumentOutOfRangeException>(() => file.Read<float>(file.Variable("hs"), [3, 0, 0], [2, 1, 1], new float[2]));
         Assert.Contains("'time'", e.Message);
     }
@@ -111,7 +112,7 @@ public sealed class NetCdfFileTests(NetCdfFixtures fixtures)
     [InlineData("cdf5", 100)]
     public void CutClassicFileIsRefusedAsTruncated(string kind, int cutBytes)
     {
-        string path = Cut(fixtures.Path("regular_float." + kind), cutBytes);
+        string path = Cut(_fixtures.Path("regular_float." + kind), cutBytes);
         // netCDF-C itself opens such a file and reads the lost tail as zeros (seen with ncdump), so the size check is ours.
         var e = Assert.Throws<HindcastFormatException>(() => NetCdfFile.Open(path));
         Assert.Equal(path, e.File);
@@ -123,7 +124,7 @@ public sealed class NetCdfFileTests(NetCdfFixtures fixtures)
     [Fact]
     public void CutNetCdf4FileIsRefusedWithTheLibraryError()
     {
-        string path = Cut(fixtures.Path("compressed"), 4096);
+        string path = Cut(_fixtures.Path("compressed"), 4096);
         var e = Assert.Throws<NetCdfException>(() => HindcastFile.Open(path));
         Assert.Equal("nc_open", e.Operation);
         Assert.StartsWith(path + ": nc_open failed: NetCDF: ", e.Message);
@@ -133,7 +134,7 @@ public sealed class NetCdfFileTests(NetCdfFixtures fixtures)
     [Fact]
     public void GarbageFileIsRefusedAsAnUnknownFormat()
     {
-        string path = fixtures.Scratch("garbage.nc");
+        string path = _fixtures.Scratch("garbage.nc");
         var bytes = new byte[2000];
         new Random(5).NextBytes(bytes);
         File.WriteAllBytes(path, bytes);
@@ -155,13 +156,13 @@ public sealed class NetCdfFileTests(NetCdfFixtures fixtures)
     [Fact]
     public void MissingFileIsAFileNotFoundError()
     {
-        string path = fixtures.Scratch("absent.nc");
+        string path = _fixtures.Scratch("absent.nc");
         Assert.Throws<FileNotFoundException>(() => NetCdfFile.Open(path));
     }
 
     private string Cut(string source, int bytes)
     {
-        string path = fixtures.Scratch("cut-" + System.IO.Path.GetFileName(source));
+        string path = _fixtures.Scratch("cut-" + System.IO.Path.GetFileName(source));
         var all = File.ReadAllBytes(source);
         File.WriteAllBytes(path, all[..^bytes]);
         return path;

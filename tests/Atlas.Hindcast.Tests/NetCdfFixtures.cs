@@ -8,9 +8,20 @@ namespace Atlas.Hindcast.Tests;
 /// ncgen compiles the CDL sources of tests/data/netcdf in the formats each test needs, and netCDF4-python
 /// (Debian's /usr/bin/python3) writes the compressed, packed NetCDF-4 fixture. netCDF4-python also reads every
 /// generated file back (read_back.py), giving the reference values the decoded values are checked against.
+/// One instance serves the whole test run (<see cref="Shared"/>), so test classes can run in parallel; its folder is
+/// removed when the test process exits.
 /// </summary>
 public sealed partial class NetCdfFixtures : IDisposable
 {
+    private static readonly Lazy<NetCdfFixtures> Instance = new(() =>
+    {
+        var fixtures = new NetCdfFixtures();
+        AppDomain.CurrentDomain.ProcessExit += (_, _) => fixtures.Dispose();
+        return fixtures;
+    });
+
+    public static NetCdfFixtures Shared => Instance.Value;
+
     /// <summary>ncgen -k names of the formats, by the short name used in fixture names.</summary>
     public static readonly IReadOnlyDictionary<string, string> Kinds = new Dictionary<string, string>
     {
@@ -45,7 +56,7 @@ public sealed partial class NetCdfFixtures : IDisposable
     private readonly Lazy<JsonDocument> _readBack;
     private readonly List<string> _generated = [];
 
-    public NetCdfFixtures()
+    private NetCdfFixtures()
     {
         Directory = System.IO.Path.Combine(System.IO.Path.GetTempPath(), "atlas-hindcast-tests-" + Guid.NewGuid().ToString("N")[..12]);
         System.IO.Directory.CreateDirectory(Directory);
@@ -110,10 +121,4 @@ public sealed partial class NetCdfFixtures : IDisposable
 
     [GeneratedRegex(@":_(DeflateLevel|Shuffle|ChunkSizes|Storage|Endianness)\s*=")]
     private static partial Regex StorageAttribute();
-}
-
-[CollectionDefinition(Name)]
-public sealed class NetCdfCollection : ICollectionFixture<NetCdfFixtures>
-{
-    public const string Name = "netcdf fixtures";
 }
