@@ -7,7 +7,9 @@ namespace Atlas.Demo;
 /// Generates the whole demo into a folder: one CF NetCDF-4 hindcast file per calendar month
 /// (<c>skelvane-reach-YYYY-MM.nc</c>), the two buoy records (CSV), the device power matrix (CSV),
 /// the station list (<c>stations.csv</c>) and the manifest (<c>scenario.json</c>). Existing files
-/// of the same names are replaced; nothing else in the folder is touched. Months are generated in
+/// of the same names are replaced, and hindcast files of this demo left by an earlier, longer run
+/// (<c>skelvane-reach-*.nc</c> not in this scenario) are deleted so that a folder never mixes two
+/// runs; nothing else in the folder is touched. Months are generated in
 /// parallel over cells while the previous month is being written (netCDF-C writes one file at a
 /// time), with two month-sized buffers in turn.
 /// </summary>
@@ -26,6 +28,7 @@ public static class DemoScenarioWriter
         var grid = new DemoGrid(options.Columns, options.Rows);
         var scenario = DemoScenario.Describe(options, grid);
         var model = new SeaStateModel(grid, new OffshoreForcing(options.Seed, options.Start, options.End));
+        RemoveStaleFieldFiles(folder, scenario);
         int total = scenario.FieldFiles.Count + scenario.Buoys.Count + 3;
         int done = 0;
         var files = new List<DemoFile>();
@@ -104,5 +107,13 @@ public static class DemoScenarioWriter
             toWrite.Writer.TryComplete();
         }
         writing.GetAwaiter().GetResult();
+    }
+
+    private static void RemoveStaleFieldFiles(string folder, DemoScenario scenario)
+    {
+        var current = new HashSet<string>(scenario.FieldFiles, StringComparer.Ordinal);
+        foreach (string path in Directory.EnumerateFiles(folder, DemoScenario.FieldFileStem + "-*.nc"))
+            if (!current.Contains(Path.GetFileName(path)))
+                File.Delete(path);
     }
 }

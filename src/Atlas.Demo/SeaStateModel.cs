@@ -4,8 +4,9 @@ namespace Atlas.Demo;
 /// The sea state at any wet cell and instant: the offshore forcing, delayed by its travel across
 /// the grid, is transformed at the cell. The swell is sheltered by land that blocks its
 /// directions (<see cref="ShelterTable"/>), refracted towards the open-water direction
-/// (<see cref="ShelterTable.OpenWaterFromDegrees"/>) by Snell's law over locally straight depth contours and shoaled (<see cref="ShoalingTable"/>); the wind sea grows
-/// over the cell's fetch in the wind direction (<see cref="WindSeaGrowth"/>) and shoals. The two
+/// (<see cref="ShelterTable.OpenWaterFromDegrees"/>) by Snell's law over locally straight depth
+/// contours, and shoaled (<see cref="ShoalingTable"/>); the wind sea grows over the cell's fetch
+/// in the wind direction (<see cref="WindSeaGrowth"/>) and shoals. The two
 /// systems are combined (<see cref="SeaStateMix"/>) and the height saturates smoothly below the
 /// depth limit: Hs = Hb tanh(Hs' / Hb), Hb = <see cref="BreakingIndex"/> h, so it never exceeds
 /// that fraction of the depth.
@@ -58,9 +59,6 @@ public sealed class SeaStateModel
             (_normalEast[k], _normalNorth[k]) = Math.SinCos(_shelter.OpenWaterFromDegrees(k) * Math.PI / 180.0);
         }
     }
-
-    /// <summary>Distance to land of wet cell k towards a direction, km (the fetch).</summary>
-    public double FetchKm(int k, double fromDegrees) => _rays.DistanceKm(k, fromDegrees);
 
     /// <summary>The sea state of wet cell k at <paramref name="utc"/>.</summary>
     public SeaState Evaluate(int k, DateTime utc) => Evaluate(k, (utc - Forcing.Origin).TotalHours);

@@ -43,10 +43,8 @@ public class CsvOutputTests(WrittenScenarioFixture written)
         // Against the model's truth at the buoy cell: the mean log ratio is ln(1 + bias) and its
         // spread the stated sampling noise. ~1400 good rows: standard error 0.06 / sqrt(1400) =
         // 0.0016, tolerance 0.01 on both.
-        var options = WrittenScenarioFixture.Options;
-        var grid = new DemoGrid(options.Columns, options.Rows);
-        var model = new SeaStateModel(grid, new OffshoreForcing(options.Seed, options.Start, options.End));
-        foreach (var (buoy, cell, _) in DemoStations.Place(grid, options.BuoyIntervalMinutes))
+        var (grid, model) = (written.Grid, written.Model);
+        foreach (var (buoy, cell, _) in DemoStations.Place(grid, WrittenScenarioFixture.Options.BuoyIntervalMinutes))
         {
             var logRatios = new List<double>();
             foreach (string line in File.ReadLines(written.PathOf(buoy.FileName)).Skip(1))
@@ -98,7 +96,7 @@ public class CsvOutputTests(WrittenScenarioFixture written)
         var stations = doc.RootElement.EnumerateArray().ToArray();
         Assert.Equal(2, stations.Length);
         Assert.Equal(["calibration", "validation"], stations.Select(s => s.GetProperty("role").GetString()).Order());
-        var grid = new DemoGrid(WrittenScenarioFixture.Options.Columns, WrittenScenarioFixture.Options.Rows);
+        var grid = written.Grid;
         foreach (var s in stations)
         {
             double lat = double.Parse(s.GetProperty("lat").GetString()!, CultureInfo.InvariantCulture);

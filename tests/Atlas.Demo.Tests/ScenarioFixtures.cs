@@ -18,7 +18,29 @@ public sealed class WrittenScenarioFixture : IDisposable
 
     public DemoScenarioOutput Output { get; }
 
-    public WrittenScenarioFixture() => Output = DemoScenarioWriter.Write(Folder, Options);
+    public WrittenScenarioFixture()
+    {
+        Output = DemoScenarioWriter.Write(Folder, Options);
+        Grid = new DemoGrid(Options.Columns, Options.Rows);
+        Model = new SeaStateModel(Grid, new OffshoreForcing(Options.Seed, Options.Start, Options.End));
+        _firstMonth = new Lazy<MonthlyFields>(() =>
+        {
+            var fields = MonthlyFields.Generate(Model, Options.Start, Options.StepHours);
+            fields.RoundToSignificantBits(MonthlyHindcastFileWriter.KeptMantissaBits);
+            return fields;
+        });
+    }
+
+    /// <summary>The reduced grid, rebuilt independently of the writer.</summary>
+    public DemoGrid Grid { get; }
+
+    /// <summary>The reduced scenario's model, rebuilt independently of the writer.</summary>
+    public SeaStateModel Model { get; }
+
+    private readonly Lazy<MonthlyFields> _firstMonth;
+
+    /// <summary>The first month regenerated and rounded as the writer does, to compare files against.</summary>
+    public MonthlyFields FirstMonth => _firstMonth.Value;
 
     public string PathOf(string name) => Path.Combine(Folder, name);
 
