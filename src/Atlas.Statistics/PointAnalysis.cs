@@ -282,6 +282,11 @@ public static class PointAnalysis
         }
 
         /// <summary>The valid values inside the window, sorted, for each period; null when the series is absent.</summary>
+        /// <remarks>
+        /// Every parameter sorted here is non-negative, and the bits of a non-negative float order like the float, so
+        /// each step becomes one 64-bit key (value bits above, slot below) and a primitive sort orders values and
+        /// carries their slots at once (several times faster than sorting keys with an items array).
+        /// </remarks>
         public double[][]? SortedPerPeriod(ReadOnlySpan<float> values, WaveParameter parameter)
         {
             if (values.Length == 0) return null;
@@ -289,15 +294,21 @@ public static class PointAnalysis
             int valid = 0;
             for (int i = 0; i < values.Length; i++)
                 if (_included[stepSlots[i]] && ParameterValidity.IsValid(parameter, values[i])) valid++;
-            var keys = new double[valid];
-            var slots = new int[valid];
+            var packed = new long[valid];
             for (int i = 0, k = 0; i < values.Length; i++)
             {
                 if (!_included[stepSlots[i]] || !ParameterValidity.IsValid(parameter, values[i])) continue;
-                keys[k] = values[i];
-                slots[k++] = stepSlots[i];
+                float value = values[i] + 0f; // -0 becomes +0, whose bits sort first
+                packed[k++] = (long)BitConverter.SingleToInt32Bits(value) << 32 | (uint)stepSlots[i];
             }
-            Array.Sort(keys, slots);
+            Array.Sort(packed);
+            var keys = new double[valid];
+            var slots = new int[valid];
+            for (int k = 0; k < valid; k++)
+            {
+                keys[k] = BitConverter.Int32BitsToSingle((int)(packed[k] >> 32));
+                slots[k] = (int)(packed[k] & 0xFFFF_FFFF);
+            }
 
             var counts = new int[Periods.Count];
             foreach (int s in slots)
