@@ -105,6 +105,15 @@ public sealed class HindcastFileTests
     }
 
     [Fact]
+    public void DepthWithATimeDimensionIsTakenFromTheFirstStep()
+    {
+        using var file = HindcastFile.Open(_fixtures.Path("depth_with_time.classic"));
+        Assert.Equal("wd", file.Source(WaveVariable.Depth)!.Name);
+        // depth_with_time.cdl, first step: 10.5, 0 (dry), 30.
+        Assert.Equal([10.5f, float.NaN, 30f], file.ReadDepth());
+    }
+
+    [Fact]
     public void WetMaskDriesPointsWithoutDepthOrWithoutHs()
     {
         using var file = HindcastFile.Open(_fixtures.Path("regular_float.classic"));

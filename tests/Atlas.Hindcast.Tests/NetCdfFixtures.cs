@@ -50,6 +50,7 @@ public sealed partial class NetCdfFixtures : IDisposable
         ("ugrid_mesh", ["nc4classic"]),
         ("regular_shifted", ["classic"]),
         ("regular_auxiliary", ["classic"]),
+        ("depth_with_time", ["classic"]),
         ("mapped_names", ["classic"]),
     ];
 
