@@ -121,10 +121,5 @@ public sealed class CfValueDecodingTests
         Assert.Equal($"{path}: variable 'hs': units 'm s-1' cannot be converted to metres", e.Message);
     }
 
-    private static float[] ReadAll(HindcastFile file, WaveVariable v)
-    {
-        var values = new float[file.TimesUtc.Count * file.Grid.PointCount];
-        file.ReadSteps(v, 0, file.TimesUtc.Count, 0, file.Grid.PointCount, values);
-        return values;
-    }
+    private static float[] ReadAll(HindcastFile file, WaveVariable v) => HindcastFileTests.ReadAll(file, v);
 }
