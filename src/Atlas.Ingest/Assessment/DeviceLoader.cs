@@ -1,0 +1,58 @@
+using System.Globalization;
+using System.Security.Cryptography;
+using Atlas.Assessment.Yield;
+using Atlas.Storage.Devices;
+using Atlas.Storage.Stations;
+using Npgsql;
+
+namespace Atlas.Ingest.Assessment;
+
+/// <summary>The outcome of a device load.</summary>
+public sealed record DeviceLoadResult(StoredDeviceMatrix Device, bool AlreadyRegistered)
+{
+    public string Describe()
+    {
+        var d = Device;
+        return AlreadyRegistered
+            ? $"device {d.Name}: already stored from {d.SourceFile} (unchanged)"
+            : string.Create(CultureInfo.InvariantCulture,
+                $"device {d.Name}: {d.HsCentresMetres.Length} Hs x {d.PeriodCentresSeconds.Length} {DeviceStore.AxisName(d.AxisKind)} bins " +
+                $"(Hs {d.HsCentresMetres[0]:0.##}..{d.HsCentresMetres[^1]:0.##} m, {DeviceStore.AxisName(d.AxisKind)} {d.PeriodCentresSeconds[0]:0.##}..{d.PeriodCentresSeconds[^1]:0.##} s), " +
+                $"rated {d.RatedPowerKw:0.###} kW, from {d.SourceFile}");
+    }
+}
+
+/// <summary>
+/// Reads a power-matrix CSV (layout of <see cref="PowerMatrixCsv"/>), checks it whole, and stores it under a name; a bad
+/// matrix stores nothing, and loading the same file under the same name again changes nothing.
+/// </summary>
+public sealed class DeviceLoader(NpgsqlDataSource dataSource)
+{
+    /// <param name="ratedPowerKw">Rated power; null to take the largest matrix value.</param>
+    /// <exception cref="ArgumentException">The name is unusable, or the rated power is below the largest matrix value.</exception>
+    /// <exception cref="Atlas.Assessment.CsvInputException">The matrix is invalid; every problem with line and column.</exception>
+    /// <exception cref="DuplicateDeviceException">The name or the file is stored differently.</exception>
+    public async Task<DeviceLoadResult> LoadAsync(string name, string filePath, double? ratedPowerKw = null, CancellationToken cancel = default)
+    {
+        name = name.Trim();
+        var slug = ReferenceSlug.From(name) ?? throw new ArgumentException($"Device name '{name}' needs at least one letter or digit.", nameof(name));
+        if (!File.Exists(filePath)) throw new FileNotFoundException($"{filePath}: no such file", filePath);
+        var bytes = await File.ReadAllBytesAsync(filePath, cancel);
+        var fileName = Path.GetFileName(filePath);
+        using var reader = new StreamReader(new MemoryStream(bytes), detectEncodingFromByteOrderMarks: true);
+        var matrix = PowerMatrixCsv.Parse(reader, fileName, ratedPowerKw);
+        var definition = DefinitionOf(matrix, slug, name, fileName, Convert.ToHexStringLower(SHA256.HashData(bytes)));
+        var registration = await new DeviceStore(dataSource).RegisterAsync(definition, cancel);
+        return new DeviceLoadResult(registration.Device, registration.AlreadyRegistered);
+    }
+
+    private static DeviceMatrixDefinition DefinitionOf(PowerMatrix matrix, string slug, string name, string fileName, string sha256)
+    {
+        var power = new double[matrix.HsCentresMetres.Count, matrix.PeriodCentresSeconds.Count];
+        for (int i = 0; i < power.GetLength(0); i++)
+            for (int j = 0; j < power.GetLength(1); j++)
+                power[i, j] = matrix.PowerAtBinKw(i, j);
+        return new DeviceMatrixDefinition(slug, name, matrix.PeriodKind == WavePeriodKind.EnergyPeriod ? DeviceAxisKind.Te : DeviceAxisKind.Tp,
+            [.. matrix.HsCentresMetres], [.. matrix.PeriodCentresSeconds], power, matrix.RatedPowerKw, fileName, sha256);
+    }
+}
