@@ -13,6 +13,9 @@ internal static class CompassTable
 
     /// <summary>cos and sin of the direction, and its sector of <see cref="DirectionStatistics.Sectors"/> (0 centred on north).</summary>
     /// <param name="degrees">A finite direction, degrees (any turn).</param>
+    /// <param name="cos">Its cosine.</param>
+    /// <param name="sin">Its sine.</param>
+    /// <param name="sector">Its rose sector, 0..15, 0 centred on north, clockwise.</param>
     public static void Lookup(double degrees, out double cos, out double sin, out int sector)
     {
         double d = degrees - 360.0 * Math.Floor(degrees * (1 / 360.0));

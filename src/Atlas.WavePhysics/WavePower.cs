@@ -32,7 +32,7 @@ public static class WavePower
         return EnergyDensity(hm0Metres) * cg / 1000.0;
     }
 
-    /// <summary>Deep-water power J = 0.4906 Hm0^2 Te (kW/m): the deep limit of <see cref="OmnidirectionalPower"/>.</summary>
+    /// <summary>Deep-water power J = 0.4906 Hm0^2 Te (kW/m): the deep limit of <see cref="OmnidirectionalPower(double, double, double)"/>.</summary>
     public static double DeepWaterPower(double hm0Metres, double energyPeriodSeconds) =>
         DeepWaterCoefficient * hm0Metres * hm0Metres * energyPeriodSeconds;
 
