@@ -43,12 +43,32 @@ internal static unsafe class NetCdfNative
     private static IntPtr Resolve(string libraryName, Assembly assembly, DllImportSearchPath? searchPath)
     {
         if (libraryName != Library) return IntPtr.Zero;
-        if (NativeLibrary.TryLoad(libraryName, assembly, searchPath, out var handle)) return handle;
+        if (NativeLibrary.TryLoad(libraryName, assembly, searchPath, out var handle)) return Quieten(handle);
         foreach (var name in FallbackNames)
-            if (NativeLibrary.TryLoad(name, assembly, searchPath, out handle)) return handle;
+            if (NativeLibrary.TryLoad(name, assembly, searchPath, out handle)) return Quieten(handle);
         throw new DllNotFoundException(
             "netCDF-C was not found: tried 'netcdf' and " + string.Join(", ", FallbackNames) +
             ". Install the Debian package libnetcdf19 (or libnetcdf-dev).");
+    }
+
+    /// <summary>Sonames of the HDF5 library netCDF-C sits on (Debian builds it as the serial flavour).</summary>
+    private static readonly string[] Hdf5Names = ["libhdf5_serial.so.103", "libhdf5.so.103", "libhdf5_serial.so", "libhdf5.so", "libhdf5.dylib"];
+
+    /// <summary>
+    /// Turns off HDF5's automatic printing of its error stack. netCDF-C probes optional attributes (quantisation
+    /// settings, for one) that are usually absent; HDF5 would print a page of diagnostics to stderr for each probe,
+    /// although netCDF-C handles the miss and reports real errors through its own status codes.
+    /// </summary>
+    private static IntPtr Quieten(IntPtr netcdf)
+    {
+        foreach (var name in Hdf5Names)
+        {
+            if (!NativeLibrary.TryLoad(name, out var hdf5)) continue;
+            if (NativeLibrary.TryGetExport(hdf5, "H5Eset_auto2", out var setAuto))
+                ((delegate* unmanaged<long, IntPtr, IntPtr, int>)setAuto)(0, IntPtr.Zero, IntPtr.Zero);
+            break;
+        }
+        return netcdf;
     }
 
     /// <summary>Text of a netCDF status code, from nc_strerror.</summary>
