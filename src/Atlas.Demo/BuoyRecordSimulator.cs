@@ -3,9 +3,11 @@ namespace Atlas.Demo;
 /// <summary>
 /// Turns the model's truth at a buoy's cell into what a buoy would have logged: independent
 /// sampling noise on each record (a half-hour record of a random sea estimates Hs to about 5-8 %,
-/// Tp worse; common practice, from memory), the buoy's known Hs bias, the peak period quantised to
-/// the 0.005 Hz frequency resolution of a typical on-board spectrum, values rounded to the logged
-/// resolution, a few gaps (mooring and service outages, rows absent) and a handful of flagged
+/// Tp worse; common practice, from memory), slowly varying local departures the 2 km cells do not
+/// resolve (red noise with an 18 h memory), so that the hindcast meets the buoys with the scatter
+/// index of about 0.1-0.15 of a well-calibrated regional model, the buoy's known Hs bias, the peak
+/// period quantised to the 0.005 Hz frequency resolution of a typical on-board spectrum, values
+/// rounded to the logged resolution, a few gaps (mooring and service outages, rows absent) and a handful of flagged
 /// rows: suspect spikes (qc 1) and dropouts with no values (qc 2).
 /// </summary>
 public static class BuoyRecordSimulator
@@ -18,6 +20,18 @@ public static class BuoyRecordSimulator
 
     /// <summary>Relative noise of Tp before quantisation.</summary>
     public const double TpNoise = 0.05;
+
+    /// <summary>Relative (log-normal) size of the unresolved local departures of Hs.</summary>
+    public const double HsLocalVariability = 0.07;
+
+    /// <summary>Relative size of the unresolved local departures of Te.</summary>
+    public const double TeLocalVariability = 0.03;
+
+    /// <summary>Size of the unresolved local departures of the direction, degrees.</summary>
+    public const double DirectionLocalVariabilityDegrees = 5.0;
+
+    /// <summary>Memory of the unresolved local departures, hours.</summary>
+    public const double LocalVariabilityHours = 18.0;
 
     /// <summary>Noise of the mean direction, degrees.</summary>
     public const double DirectionNoiseDegrees = 7.0;
@@ -66,12 +80,19 @@ public static class BuoyRecordSimulator
             quality[at] = f < SpikeCount ? 1 : 2;
         }
 
+        // Red noise advances hourly; at other intervals it is drawn once per record with the
+        // memory scaled to keep the same e-folding time.
+        double memory = LocalVariabilityHours * 60.0 / buoy.IntervalMinutes;
+        var localHs = new RedNoise(random, memory);
+        var localTe = new RedNoise(random, memory);
+        var localDirection = new RedNoise(random, memory);
         var rows = new List<BuoyObservation>(count);
         double originHours = (start - model.Forcing.Origin).TotalHours;
         for (int i = 0; i < count; i++)
         {
             // Draw the noise for every slot, delivered or not, so a gap leaves the rest unchanged.
             double eHs = random.NextGaussian(), eTe = random.NextGaussian(), eTp = random.NextGaussian(), eDir = random.NextGaussian();
+            double lHs = localHs.Next(), lTe = localTe.Next(), lDir = localDirection.Next();
             if (absent[i]) continue;
             var time = start + i * interval;
             if (quality[i] == 2)
@@ -80,11 +101,11 @@ public static class BuoyRecordSimulator
                 continue;
             }
             var truth = model.Evaluate(cell, originHours + i * interval.TotalHours);
-            double hs = truth.Hs * (1 + buoy.HsBiasFraction) * Math.Exp(HsNoise * eHs);
+            double hs = truth.Hs * (1 + buoy.HsBiasFraction) * Math.Exp(HsNoise * eHs + HsLocalVariability * lHs);
             if (quality[i] == 1) hs *= 1.8 + 0.4 * random.NextDouble();
-            double te = truth.Te * Math.Exp(TeNoise * eTe);
+            double te = truth.Te * Math.Exp(TeNoise * eTe + TeLocalVariability * lTe);
             double tp = QuantisePeakPeriod(truth.Tp * Math.Exp(TpNoise * eTp));
-            double direction = truth.FromDegrees + DirectionNoiseDegrees * eDir;
+            double direction = truth.FromDegrees + DirectionNoiseDegrees * eDir + DirectionLocalVariabilityDegrees * lDir;
             direction -= 360.0 * Math.Floor(direction / 360.0);
             direction = Math.Round(direction, 1);
             if (direction >= 360.0) direction = 0.0;

@@ -38,32 +38,6 @@ public class CsvOutputTests(WrittenScenarioFixture written)
     }
 
     [Fact]
-    public void BuoyNoiseAndBiasMatchWhatTheManifestStates()
-    {
-        // Against the model's truth at the buoy cell: the mean log ratio is ln(1 + bias) and its
-        // spread the stated sampling noise. ~1400 good rows: standard error 0.06 / sqrt(1400) =
-        // 0.0016, tolerance 0.01 on both.
-        var (grid, model) = (written.Grid, written.Model);
-        foreach (var (buoy, cell, _) in DemoStations.Place(grid, WrittenScenarioFixture.Options.BuoyIntervalMinutes))
-        {
-            var logRatios = new List<double>();
-            foreach (string line in File.ReadLines(written.PathOf(buoy.FileName)).Skip(1))
-            {
-                string[] f = line.Split(',');
-                if (f[5] != "0") continue;
-                var time = DateTime.ParseExact(f[0], "yyyy-MM-dd'T'HH:mm:ss'Z'", CultureInfo.InvariantCulture, DateTimeStyles.AdjustToUniversal | DateTimeStyles.AssumeUniversal);
-                double truth = model.Evaluate(cell, time).Hs;
-                if (truth < 0.5) continue; // the 0.01 m logging resolution would dominate
-                logRatios.Add(Math.Log(double.Parse(f[1], CultureInfo.InvariantCulture) / truth));
-            }
-            double mean = logRatios.Average();
-            double sd = Math.Sqrt(logRatios.Sum(x => (x - mean) * (x - mean)) / (logRatios.Count - 1));
-            Assert.Equal(Math.Log(1 + buoy.HsBiasFraction), mean, 0.01);
-            Assert.Equal(BuoyRecordSimulator.HsNoise, sd, 0.01);
-        }
-    }
-
-    [Fact]
     public void PowerMatrixParsesWithNumpyAndHasAPlausibleShape()
     {
         var device = written.Output.Scenario.Device;

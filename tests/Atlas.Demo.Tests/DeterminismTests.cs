@@ -4,12 +4,18 @@ namespace Atlas.Demo.Tests;
 public class DeterminismTests(WrittenScenarioFixture written)
 {
     [Fact]
-    public void SameSeedWritesByteIdenticalFiles()
+    public void SameSeedWritesByteIdenticalFilesAndDropsStaleMonths()
     {
         string again = Path.Combine(Path.GetTempPath(), "atlas-demo-again-" + Guid.NewGuid().ToString("N"));
         try
         {
+            // A month file of an earlier, longer run goes; files that are not the demo's stay.
+            Directory.CreateDirectory(again);
+            File.WriteAllText(Path.Combine(again, "skelvane-reach-2030-01.nc"), "stale");
+            File.WriteAllText(Path.Combine(again, "notes.txt"), "keep");
             var second = DemoScenarioWriter.Write(again, WrittenScenarioFixture.Options);
+            Assert.False(File.Exists(Path.Combine(again, "skelvane-reach-2030-01.nc")));
+            Assert.True(File.Exists(Path.Combine(again, "notes.txt")));
             Assert.Equal(written.Output.Files.Select(f => f.Name), second.Files.Select(f => f.Name));
             foreach (var file in written.Output.Files)
             {
