@@ -94,9 +94,12 @@ public sealed class DemoGrid
     public int WetCount => WetCells.Length;
 
     /// <summary>Index k into the wet-cell arrays of the wet cell nearest (in km) to a point.</summary>
-    public int NearestWetCell(double latitude, double longitude)
+    public int NearestWetCell(double latitude, double longitude) =>
+        NearestWetCellKm(CoastGeometry.XKm(longitude), CoastGeometry.YKm(latitude));
+
+    /// <summary>Index k of the wet cell nearest to a point of the local frame (km).</summary>
+    public int NearestWetCellKm(double x, double y)
     {
-        double x = CoastGeometry.XKm(longitude), y = CoastGeometry.YKm(latitude);
         int best = -1;
         double bestDistance = double.PositiveInfinity;
         for (int k = 0; k < WetCells.Length; k++)

@@ -40,13 +40,7 @@ public static class DemoStations
         var placed = new List<(DemoBuoy, int, ulong)>();
         foreach (var m in Moorings)
         {
-            int best = -1;
-            double bestDistance = double.PositiveInfinity;
-            for (int k = 0; k < grid.WetCount; k++)
-            {
-                double dx = grid.XKm[k] - m.XKm, dy = grid.YKm[k] - m.YKm, d = dx * dx + dy * dy;
-                if (d < bestDistance) { bestDistance = d; best = k; }
-            }
+            int best = grid.NearestWetCellKm(m.XKm, m.YKm);
             var buoy = new DemoBuoy(m.Name, m.FileName, m.Role, m.Instrument,
                 grid.LatitudeOf(best), grid.LongitudeOf(best), grid.DepthMetres[best], m.HsBias, intervalMinutes);
             placed.Add((buoy, best, m.Stream));

@@ -54,14 +54,23 @@ public sealed class FetchRays
     /// <summary>Cube root of the distance (km) to land towards a direction, interpolated like <see cref="DistanceKm(int, double)"/>.</summary>
     public double CubeRootDistanceKm(int k, double fromDegrees) => Interpolate(_cubeRootDistance, k, fromDegrees);
 
-    private static double Interpolate(float[] table, int k, double fromDegrees)
+    /// <summary>
+    /// The two sectors either side of <paramref name="fromDegrees"/> (any angle, reduced modulo
+    /// 360) and the interpolation weight of the second.
+    /// </summary>
+    public static double SectorsAround(double fromDegrees, out int first, out int second)
     {
         double position = fromDegrees * (1.0 / SectorDegrees);
         position -= SectorCount * Math.Floor(position * (1.0 / SectorCount));
-        int s0 = (int)position;
-        if (s0 >= SectorCount) s0 = 0;
-        double f = position - s0;
-        int s1 = s0 + 1 == SectorCount ? 0 : s0 + 1;
+        first = (int)position;
+        if (first >= SectorCount) first = 0;
+        second = first + 1 == SectorCount ? 0 : first + 1;
+        return position - first;
+    }
+
+    private static double Interpolate(float[] table, int k, double fromDegrees)
+    {
+        double f = SectorsAround(fromDegrees, out int s0, out int s1);
         int row = k * SectorCount;
         return table[row + s0] + f * (table[row + s1] - table[row + s0]);
     }

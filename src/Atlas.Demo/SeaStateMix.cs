@@ -47,8 +47,11 @@ public struct SeaStateMix
         double direction = Math.Atan2(_east, _north) * 180.0 / Math.PI;
         if (direction < 0) direction += 360.0;
         if (direction >= 360.0) direction -= 360.0;
-        double r = Math.Sqrt(_east * _east + _north * _north) / _energy;
-        double spread = Math.Sqrt(2.0 * Math.Max(0.0, 1.0 - r)) * 180.0 / Math.PI;
+        double spread = SpreadFromResultant(Math.Sqrt(_east * _east + _north * _north) / _energy);
         return (Math.Sqrt(_energy), _peakPeriod, _energyTimesTe / _energy, direction, spread);
     }
+
+    /// <summary>The circular spread sigma = sqrt(2 (1 - R)), degrees, of a mean resultant length R (0 for R at or above 1).</summary>
+    public static double SpreadFromResultant(double resultant) =>
+        Math.Sqrt(2.0 * Math.Max(0.0, 1.0 - resultant)) * 180.0 / Math.PI;
 }

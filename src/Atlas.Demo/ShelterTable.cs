@@ -66,7 +66,7 @@ public sealed class ShelterTable
             for (int c = 0; c < Classes; c++)
             {
                 double[] w = weights[c];
-                double openSpread = SpreadFromResultant(openResultant[c]);
+                double openSpread = SeaStateMix.SpreadFromResultant(openResultant[c]);
                 for (int b = 0; b < Bins; b++)
                 {
                     double energy = 0, sx = 0, sy = 0;
@@ -82,7 +82,7 @@ public sealed class ShelterTable
                     _table[at] = (float)energy;
                     _table[at + 1] = (float)(Math.Atan2(sx, sy) * 180.0 / Math.PI);
                     double resultant = Math.Sqrt(sx * sx + sy * sy) / energy;
-                    _table[at + 2] = (float)(SpreadFromResultant(resultant) / openSpread);
+                    _table[at + 2] = (float)(SeaStateMix.SpreadFromResultant(resultant) / openSpread);
                 }
             }
         });
@@ -95,12 +95,7 @@ public sealed class ShelterTable
     /// </summary>
     public (double EnergyFraction, double TurnDegrees, double SpreadRatio) Look(int k, double fromDegrees, double spreadDegrees)
     {
-        double position = fromDegrees * (1.0 / FetchRays.SectorDegrees);
-        position -= Bins * Math.Floor(position * (1.0 / Bins));
-        int b0 = (int)position;
-        if (b0 >= Bins) b0 = 0;
-        double f = position - b0;
-        int b1 = b0 + 1 == Bins ? 0 : b0 + 1;
+        double f = FetchRays.SectorsAround(fromDegrees, out int b0, out int b1);
         double g = Math.Clamp((spreadDegrees - SpreadClassesDegrees[0]) / (SpreadClassesDegrees[1] - SpreadClassesDegrees[0]), 0.0, 1.0);
         int n0 = 3 * (k * Stride + b0), n1 = 3 * (k * Stride + b1);
         int w0 = n0 + 3 * Bins, w1 = n1 + 3 * Bins;
@@ -148,7 +143,4 @@ public sealed class ShelterTable
         return w;
     }
 
-    // Circular spread sigma = sqrt(2 (1 - R)) in degrees, R the mean resultant length.
-    private static double SpreadFromResultant(double resultant) =>
-        Math.Sqrt(2.0 * Math.Max(0.0, 1.0 - resultant)) * 180.0 / Math.PI;
 }
