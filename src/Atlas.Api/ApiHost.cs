@@ -19,6 +19,7 @@ public static class ApiHost
         app.MapAreaApi();
         app.MapScreeningApi();
         app.MapAdminApi();
+        app.MapAssessmentApis();
         return app;
     }
 }

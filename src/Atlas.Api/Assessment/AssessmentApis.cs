@@ -1,0 +1,18 @@
+using Atlas.Api.Assessment;
+
+// In the Atlas.Api namespace so that the host maps these endpoints with one line and no extra using.
+namespace Atlas.Api;
+
+/// <summary>The assessment endpoints: stations and validation, devices and yield, weather windows, extremes, assessment layers.</summary>
+public static class AssessmentApis
+{
+    public static IEndpointRouteBuilder MapAssessmentApis(this IEndpointRouteBuilder routes)
+    {
+        routes.MapStationApi();
+        routes.MapValidationApi();
+        routes.MapDeviceApi();
+        routes.MapPointAssessmentApi();
+        routes.MapAssessmentLayerApi();
+        return routes;
+    }
+}

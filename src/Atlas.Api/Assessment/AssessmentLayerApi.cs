@@ -1,0 +1,82 @@
+using Atlas.Api.Infrastructure;
+using Atlas.Assessment.Yield;
+using Atlas.Storage.Cells;
+using Atlas.Storage.Devices;
+using Microsoft.AspNetCore.Http.HttpResults;
+using Npgsql;
+
+namespace Atlas.Api.Assessment;
+
+/// <summary>
+/// <c>/api/v1/datasets/{slug}/layers/yield/{device}.{format}</c> and <c>/layers/accessibility.{format}</c>: device
+/// production and accessibility over every wet cell, for the map and for download.
+/// </summary>
+public static class AssessmentLayerApi
+{
+    public static IEndpointRouteBuilder MapAssessmentLayerApi(this IEndpointRouteBuilder routes)
+    {
+        var group = routes.MapGroup("/api/v1/datasets/{slug}/layers").WithTags("Layers");
+        group.MapGet("/yield/{device}.{format}", YieldAsync).WithName("YieldLayer")
+            .WithSummary("Mean annual energy of a device at every wet cell (MWh/yr), with capacity factor and share outside the matrix")
+            .WithDescription("device: a stored device's slug. format: json, csv, geojson or tif (the annual energy on the grid). interpolation: " +
+                             "bilinear (default) or nearest. Computed from every cell's exact series on first request (this takes a while for a " +
+                             "large dataset), then served from the layer cache until the dataset's statistics are recomputed.")
+            .RequireRateLimiting(RateLimits.Expensive);
+        group.MapGet("/accessibility.{format}", AccessibilityAsync).WithName("AccessibilityLayer")
+            .WithSummary("Share of time within access limits at every wet cell, or the probability of a window of a given length")
+            .WithDescription("hs_max: the Hs limit, m. tp_max (optional): the Tp limit, s. hours (optional): a required window length; the value is " +
+                             "then the probability that such a window starts at a random time. format: json, csv, geojson or tif. Cached like the yield layer.")
+            .RequireRateLimiting(RateLimits.Expensive);
+        return routes;
+    }
+
+    public static async Task<Results<FileContentHttpResult, ProblemHttpResult, ValidationProblem>> YieldAsync(
+        string slug, string device, string format, string? interpolation, DatasetCatalog catalog, CellStore cells, NpgsqlDataSource dataSource,
+        ProvenanceBuilder provenance, CancellationToken cancel)
+    {
+        var errors = new Dictionary<string, string[]>();
+        var reading = PowerMatrixInterpolation.Bilinear;
+        if (interpolation is "nearest") reading = PowerMatrixInterpolation.NearestBin;
+        else if (interpolation is not (null or "bilinear")) errors["interpolation"] = [$"'{interpolation}' is not a matrix interpolation: use bilinear or nearest."];
+        if (errors.Count > 0) return TypedResults.ValidationProblem(errors);
+        if (!AssessmentLayerWriter.Formats.Contains(format)) return UnknownFormat(format);
+        var dataset = await catalog.FindAsync(slug, cancel);
+        if (dataset is null) return ApiProblems.UnknownDataset(slug);
+        if (await new DeviceStore(dataSource).FindAsync(device, cancel) is not { } stored) return DeviceApi.UnknownDevice(device);
+        var layer = await new AssessmentLayerBuilder(dataSource).YieldAsync(dataset, stored, reading, cancel);
+        return await RenderAsync(format, dataset, layer, $"{slug}_yield_{stored.Slug}.{format}", cells, provenance, cancel);
+    }
+
+    public static async Task<Results<FileContentHttpResult, ProblemHttpResult, ValidationProblem>> AccessibilityAsync(
+        string slug, string format, string? hs_max, string? tp_max, string? hours, DatasetCatalog catalog, CellStore cells, NpgsqlDataSource dataSource,
+        ProvenanceBuilder provenance, CancellationToken cancel)
+    {
+        var errors = new Dictionary<string, string[]>();
+        var limits = PointAssessmentApi.ParseLimits(hs_max, tp_max, errors);
+        var duration = PointAssessmentApi.Positive("hours", hours, "the window length in hours", errors, required: false);
+        if (errors.Count > 0 || limits is null) return TypedResults.ValidationProblem(errors, title: "The accessibility layer request has invalid query values");
+        if (!AssessmentLayerWriter.Formats.Contains(format)) return UnknownFormat(format);
+        var dataset = await catalog.FindAsync(slug, cancel);
+        if (dataset is null) return ApiProblems.UnknownDataset(slug);
+        var layer = await new AssessmentLayerBuilder(dataSource).AccessibilityAsync(dataset, limits, duration, cancel);
+        return await RenderAsync(format, dataset, layer, $"{slug}_accessibility.{format}", cells, provenance, cancel);
+    }
+
+    private static async Task<Results<FileContentHttpResult, ProblemHttpResult, ValidationProblem>> RenderAsync(string format, Atlas.Storage.Datasets.DatasetRecord dataset,
+        AssessmentLayer layer, string fileName, CellStore cells, ProvenanceBuilder provenance, CancellationToken cancel)
+    {
+        var cellMap = (await cells.AllAsync(dataset.Id, cancel)).ToDictionary(c => c.CellId);
+        try
+        {
+            var content = AssessmentLayerWriter.Write(format, dataset, layer, cellMap, await provenance.ForAsync(dataset, cancel));
+            return TypedResults.File(content, AssessmentLayerWriter.ContentType(format), fileName);
+        }
+        catch (NotSupportedException e)
+        {
+            return ApiProblems.Unprocessable("No GeoTIFF for this grid", e.Message);
+        }
+    }
+
+    private static ProblemHttpResult UnknownFormat(string format) =>
+        ApiProblems.NotFound("Unknown format", $"'.{format}' is not an assessment layer format: use {string.Join(", ", AssessmentLayerWriter.Formats.Select(f => "." + f))}.");
+}

@@ -1,0 +1,178 @@
+using System.Security.Cryptography;
+using System.Text.Json;
+using Atlas.Assessment;
+using Atlas.Assessment.Access;
+using Atlas.Assessment.Yield;
+using Atlas.Storage.Datasets;
+using Atlas.Storage.Devices;
+using Atlas.Storage.Queries;
+using Atlas.Storage.Series;
+using Atlas.WavePhysics;
+using Npgsql;
+
+namespace Atlas.Api.Assessment;
+
+/// <summary>A named column of per-cell values.</summary>
+public sealed record LayerColumn(string Name, string Unit, double[] Values);
+
+/// <summary>
+/// A whole-dataset assessment layer: one value per wet cell (NaN where the cell has no valid step), the primary column
+/// first, and what produced it.
+/// </summary>
+public sealed record AssessmentLayer(string Kind, string Title, string Description, int[] CellIds, IReadOnlyList<LayerColumn> Columns, DateTime ComputedAtUtc)
+{
+    public LayerColumn Primary => Columns[0];
+}
+
+/// <summary>
+/// Computes the device-yield and accessibility layers over every wet cell of a dataset, on request: the needed variables
+/// are streamed once (<see cref="CellVariableStream"/>), each cell's series is put on the dataset's regular steps and
+/// analysed by the same library calls as a point request, so a layer value equals the point value at that cell. Results are
+/// kept in the layer cache under the statistics stamp (a recomputation clears them).
+/// </summary>
+public sealed class AssessmentLayerBuilder(NpgsqlDataSource dataSource)
+{
+    private readonly LayerCacheStore _cache = new(dataSource);
+
+    /// <summary>Annual energy (MWh/yr) per cell for a device, with capacity factor, share outside the matrix and mean power.</summary>
+    public Task<AssessmentLayer> YieldAsync(DatasetRecord dataset, StoredDeviceMatrix device, PowerMatrixInterpolation interpolation, CancellationToken cancel)
+    {
+        var matrix = DeviceMatrices.ToPowerMatrix(device);
+        var reading = interpolation == PowerMatrixInterpolation.Bilinear ? "bilinear" : "nearest";
+        var key = $"assessment/yield/{device.Slug}-{device.Id}-{device.CreatedAtUtc.Ticks:x}/{reading}";
+        return CachedAsync(dataset, key, async () =>
+        {
+            var (ids, rows) = await ComputeAsync(dataset, [SeriesVariable.Hs, SeriesVariable.Te, SeriesVariable.Tp], 4, (hs, te, tp, output) =>
+            {
+                var period = device.AxisKind == DeviceAxisKind.Te ? te ?? Convert(tp, p => PeriodConversion.EnergyPeriodFromPeakPeriod(p))
+                                                                  : tp ?? Convert(te, p => PeriodConversion.PeakPeriodFromEnergyPeriod(p));
+                if (period is null) { output.Fill(double.NaN); return; }
+                var y = DeviceYield.FromSeries(matrix, hs, period, matrix.PeriodKind, new YieldOptions { Interpolation = interpolation });
+                output[0] = y.AnnualEnergyMwh;
+                output[1] = y.CapacityFactor;
+                output[2] = y.OutsideMatrixFraction;
+                output[3] = y.MeanPowerKw;
+            }, cancel);
+            return new AssessmentLayer("yield", $"Mean annual energy of {device.Name}",
+                $"annual energy production of device {device.Name} ({DeviceStore.AxisName(device.AxisKind)} matrix, rated {device.RatedPowerKw:0.###} kW, " +
+                $"{reading} interpolation), power per step then averaged, x 8766 h; " + PointYield.YieldMethod,
+                ids, [new("annual_energy_mwh", "MWh/yr", rows[0]), new("capacity_factor", "1", rows[1]),
+                      new("outside_matrix_fraction", "1", rows[2]), new("mean_power_kw", "kW", rows[3])], DateTime.UtcNow);
+        }, cancel);
+    }
+
+    /// <summary>
+    /// The share of time within access limits per cell; with <paramref name="requiredHours"/>, also the probability that a
+    /// window of that length starts at a random time (all months together), which then becomes the primary value.
+    /// </summary>
+    public Task<AssessmentLayer> AccessibilityAsync(DatasetRecord dataset, AccessLimits limits, double? requiredHours, CancellationToken cancel)
+    {
+        var key = FormattableString.Invariant($"assessment/accessibility/hs{limits.HsLimitMetres:R}-tp{limits.TpLimitSeconds:R}-h{requiredHours:R}");
+        return CachedAsync(dataset, key, async () =>
+        {
+            var variables = limits.TpLimitSeconds is null ? new[] { SeriesVariable.Hs } : [SeriesVariable.Hs, SeriesVariable.Tp];
+            var (ids, rows) = await ComputeAsync(dataset, variables, requiredHours is null ? 1 : 2, (hs, _, tp, output) =>
+            {
+                if (limits.TpLimitSeconds is not null && tp is null) { output.Fill(double.NaN); return; }
+                var fraction = Accessibility.Of(hs.Values, tp is null ? default : tp.Values, limits).Fraction;
+                if (requiredHours is not { } hours) { output[0] = fraction; return; }
+                var windows = WeatherWindowAnalysis.Analyse(hs, tp, limits, hours);
+                int starts = windows.Months.Sum(m => m.WindowStartSteps), determined = windows.Months.Sum(m => m.DeterminedSteps);
+                output[0] = determined > 0 ? (double)starts / determined : double.NaN;
+                output[1] = fraction;
+            }, cancel);
+            var limitText = FormattableString.Invariant($"Hs <= {limits.HsLimitMetres:0.###} m{(limits.TpLimitSeconds is { } t ? $" and Tp <= {t:0.###} s" : "")}");
+            IReadOnlyList<LayerColumn> columns = requiredHours is { } h
+                ? [new("window_start_probability", "1", rows[0]), new("accessible_fraction", "1", rows[1])]
+                : [new("accessible_fraction", "1", rows[0])];
+            return new AssessmentLayer("accessibility",
+                requiredHours is { } r ? FormattableString.Invariant($"Probability of a {r:0.##} h window with {limitText}") : $"Share of time with {limitText}",
+                (requiredHours is { } d
+                    ? FormattableString.Invariant($"probability that a window of at least {d:0.##} h with {limitText} starts at a random time (all months); ")
+                    : "") + $"accessible_fraction: share of non-missing steps with {limitText}. " + PointWindows.WindowMethod,
+                ids, columns, DateTime.UtcNow);
+        }, cancel);
+    }
+
+    private delegate void CellAnalysis(RegularSeries hs, RegularSeries? te, RegularSeries? tp, Span<double> output);
+
+    /// <summary>Runs <paramref name="analyse"/> on every wet cell with its Hs, Te and Tp (null where not stored).</summary>
+    private async Task<(int[] CellIds, double[][] Rows)> ComputeAsync(DatasetRecord dataset, SeriesVariable[] variables, int columns, CellAnalysis analyse,
+        CancellationToken cancel)
+    {
+        var timelines = await new DatasetStore(dataSource).TimelinesAsync(dataset.Id, cancel);
+        var times = timelines.Values.SelectMany(t => t).ToArray();
+        var offsets = new Dictionary<int, (int Offset, int Count)>();
+        var offset = 0;
+        foreach (var (year, line) in timelines) { offsets[year] = (offset, line.Length); offset += line.Length; }
+        // Where each stored step falls on the regular step (FromTimes checks the time line once for all cells).
+        var template = RegularSeries.FromTimes(times, [.. Enumerable.Range(0, times.Length).Select(i => (double)i)]);
+        var place = new int[times.Length];
+        for (var k = 0; k < template.Count; k++) if (!double.IsNaN(template.Values[k])) place[(int)template.Values[k]] = k;
+
+        var wet = (await new Storage.Cells.CellStore(dataSource).AllAsync(dataset.Id, cancel)).Where(c => c.Wet).Select(c => c.CellId).ToHashSet();
+        var ids = new List<int>();
+        var rows = Enumerable.Range(0, columns).Select(_ => new List<double>()).ToArray();
+        var decoded = variables.Select(_ => new float[times.Length]).ToArray();
+        var present = new bool[variables.Length];
+        var regular = new double[template.Count];
+        var output = new double[columns];
+        var current = -1;
+
+        void Finish()
+        {
+            if (current < 0 || !wet.Contains(current)) return;
+            RegularSeries? Series(SeriesVariable v)
+            {
+                var k = Array.IndexOf(variables, v);
+                if (k < 0 || !present[k]) return null;
+                Array.Fill(regular, double.NaN);
+                for (var i = 0; i < times.Length; i++) regular[place[i]] = decoded[k][i];
+                return new RegularSeries(template.StartUnixSeconds, template.StepSeconds, regular);
+            }
+            analyse(Series(SeriesVariable.Hs)!, Series(SeriesVariable.Te), Series(SeriesVariable.Tp), output);
+            ids.Add(current);
+            for (var c = 0; c < columns; c++) rows[c].Add(output[c]);
+        }
+
+        await foreach (var chunk in new CellVariableStream(dataSource).StreamAsync(dataset.Id, variables, cancel))
+        {
+            if (chunk.CellId != current)
+            {
+                Finish();
+                current = chunk.CellId;
+                foreach (var values in decoded) values.AsSpan().Fill(float.NaN);
+                Array.Clear(present);
+            }
+            if (!offsets.TryGetValue(chunk.Year, out var at)) continue;
+            for (var k = 0; k < variables.Length; k++)
+                if (chunk.Payloads[k] is { } payload && SeriesCodec.StepCountOf(payload) == at.Count)
+                    present[k] |= SeriesCodec.Decode(payload, variables[k], decoded[k].AsSpan(at.Offset, at.Count));
+        }
+        Finish();
+        return ([.. ids], [.. rows.Select(r => r.ToArray())]);
+    }
+
+    private static RegularSeries? Convert(RegularSeries? source, Func<double, double> convert)
+    {
+        if (source is null) return null;
+        var values = new double[source.Count];
+        for (var i = 0; i < values.Length; i++) values[i] = double.IsNaN(source.Values[i]) ? double.NaN : convert(source.Values[i]);
+        return new RegularSeries(source.StartUnixSeconds, source.StepSeconds, values);
+    }
+
+    private async Task<AssessmentLayer> CachedAsync(DatasetRecord dataset, string key, Func<Task<AssessmentLayer>> compute, CancellationToken cancel)
+    {
+        var stamp = await new DatasetGeometryQueries(dataSource).StatisticsStampAsync(dataset.Id, cancel);
+        var fullKey = $"{key}@{stamp.Token}";
+        if (await _cache.FindAsync(dataset.Id, fullKey, cancel) is { } cached)
+            return JsonSerializer.Deserialize<AssessmentLayer>(cached.Content, CacheJson)!;
+        var layer = await compute();
+        var content = JsonSerializer.SerializeToUtf8Bytes(layer, CacheJson);
+        await _cache.PutAsync(dataset.Id, fullKey, new CachedLayer("\"" + System.Convert.ToHexStringLower(SHA256.HashData(content))[..32] + "\"", "application/json", content), cancel);
+        return layer;
+    }
+
+    /// <summary>NaN survives the cache as a named literal.</summary>
+    private static readonly JsonSerializerOptions CacheJson = new() { NumberHandling = System.Text.Json.Serialization.JsonNumberHandling.AllowNamedFloatingPointLiterals };
+}

@@ -1,0 +1,266 @@
+using Atlas.Api.Apis;
+using Atlas.Api.Infrastructure;
+using Atlas.Api.Model;
+using Atlas.Api.Points;
+using Atlas.Assessment;
+using Atlas.Assessment.Access;
+using Atlas.Assessment.Extremes;
+using Atlas.Assessment.Yield;
+using Atlas.Storage.Devices;
+using Atlas.Storage.Series;
+using Atlas.WavePhysics;
+using Microsoft.AspNetCore.Http.HttpResults;
+using Npgsql;
+
+namespace Atlas.Api.Assessment;
+
+/// <summary>
+/// <c>/api/v1/datasets/{slug}/point/yield</c>, <c>/point/windows</c>, <c>/point/extremes</c>: device production, weather
+/// windows and extreme Hs from the exact series of the wet cell nearest a position.
+/// </summary>
+public static class PointAssessmentApi
+{
+    public static IEndpointRouteBuilder MapPointAssessmentApi(this IEndpointRouteBuilder routes)
+    {
+        var group = routes.MapGroup("/api/v1/datasets/{slug}/point").WithTags("Points");
+        group.MapGet("/yield", YieldAsync).WithName("PointYield")
+            .WithSummary("A device's energy production at the wet cell nearest a position")
+            .WithDescription(
+                "lat, lon: degrees. device: a stored device's name or slug. interpolation: bilinear (default) or nearest. from, to: calendar years " +
+                "(inclusive). Mean annual energy (MWh/yr), capacity factor, production per calendar month and per year with the inter-annual " +
+                "coefficient of variation, and the share of time the sea state lies outside the matrix (counted at 0 kW).")
+            .RequireRateLimiting(RateLimits.Expensive);
+        group.MapGet("/windows", WindowsAsync).WithName("PointWindows")
+            .WithSummary("Weather windows for access limits at the wet cell nearest a position")
+            .WithDescription(
+                "lat, lon: degrees. hs_max: the Hs limit, m. tp_max (optional): the Tp limit, s. hours: the duration an operation needs. from, to: " +
+                "calendar years. Per calendar month: the probability that a window starts at a random time, the mean number of windows, the mean " +
+                "waiting time for the next window start; calm and storm spell persistence; the share of time within limits.")
+            .RequireRateLimiting(RateLimits.Expensive);
+        group.MapGet("/extremes", ExtremesAsync).WithName("PointExtremes")
+            .WithSummary("Extreme Hs return levels at the wet cell nearest a position")
+            .WithDescription(
+                "lat, lon: degrees. method: annual-maxima (Gumbel and GEV by maximum likelihood), peaks-over-threshold (GPD on runs-declustered " +
+                "storm peaks), or both when left out. threshold (m) or threshold_quantile (default 0.99) and separation_hours (default 48) for " +
+                "peaks over threshold. Return levels for 1, 5, 10, 50 and 100 years with 95 % profile-likelihood intervals, the fit against the " +
+                "data (probability-plot points) and cautions, strongest first in strong_caution when the record is short for the return period.")
+            .RequireRateLimiting(RateLimits.Expensive);
+        return routes;
+    }
+
+    /// <summary>A located point with its series over the asked years.</summary>
+    private sealed record PointContext(LocatedPoint Point, PointCell Cell, PointSeries Series, YearWindow Window);
+
+    private static async Task<(PointContext? Context, ProblemHttpResult? Problem)> ReadAsync(string slug, (double Latitude, double Longitude) position,
+        YearWindow window, PointLocator locator, DatasetCatalog catalog, SeriesStore series, CancellationToken cancel)
+    {
+        var (point, problem) = await locator.LocateAsync(slug, position.Latitude, position.Longitude, cancel);
+        if (point is null) return (null, problem);
+        var timelines = await catalog.TimelinesAsync(point.Dataset, cancel);
+        var decoded = await AssessmentSeries.ReadAsync(series, timelines, point.Dataset.Id, point.Nearest.Cell, window.FromYear, window.ToYear, cancel);
+        if (decoded.Times.Length < 2)
+            return (null, ApiProblems.Unprocessable("Too little series in the window",
+                $"Cell {point.Nearest.Cell.CellId} of '{slug}' has {decoded.Times.Length} stored step(s) in the years asked; stored years are " +
+                $"{(timelines.Count == 0 ? "none" : $"{timelines.Keys.First()}..{timelines.Keys.Last()}")}."));
+        return (new PointContext(point, PointApi.CellOf(point), decoded, window), null);
+    }
+
+    /// <summary>The values on regular steps, or the problem when the dataset's time line has no common step.</summary>
+    private static (RegularSeries? Series, ProblemHttpResult? Problem) Regular(PointContext context, float[] values)
+    {
+        try
+        {
+            return (AssessmentSeries.Regular(context.Series.Times, values), null);
+        }
+        catch (ArgumentException e)
+        {
+            return (null, ApiProblems.Unprocessable("The time line is not regular",
+                $"The analyses need steps on a common interval, but the time line of '{context.Point.Dataset.Slug}' is not: {e.Message.Split(" (Parameter")[0]}"));
+        }
+    }
+
+    public static async Task<Results<Ok<PointYield>, ProblemHttpResult, ValidationProblem>> YieldAsync(
+        string slug, string? lat, string? lon, string? device, string? interpolation, string? from, string? to,
+        PointLocator locator, DatasetCatalog catalog, SeriesStore series, NpgsqlDataSource dataSource, ProvenanceBuilder provenance, CancellationToken cancel)
+    {
+        var errors = new Dictionary<string, string[]>();
+        var position = PointLocator.ParsePosition(lat, lon, errors);
+        var window = YearWindow.Parse(from, to, null, errors);
+        if (string.IsNullOrWhiteSpace(device)) errors["device"] = ["device is required: a stored device's name or slug (GET /api/v1/devices)."];
+        var reading = PowerMatrixInterpolation.Bilinear;
+        if (interpolation is "nearest") reading = PowerMatrixInterpolation.NearestBin;
+        else if (interpolation is not (null or "bilinear")) errors["interpolation"] = [$"'{interpolation}' is not a matrix interpolation: use bilinear or nearest."];
+        if (errors.Count > 0 || position is null || window is null) return TypedResults.ValidationProblem(errors, title: "The yield request has invalid query values");
+
+        if (await new DeviceStore(dataSource).FindAsync(device!, cancel) is not { } stored) return DeviceApi.UnknownDevice(device!);
+        var (context, problem) = await ReadAsync(slug, position.Value, window, locator, catalog, series, cancel);
+        if (context is null) return problem!;
+        var (period, periodSource) = PeriodFor(stored.AxisKind, context.Series);
+        if (period is null) return ApiProblems.Unprocessable("No wave period stored", $"Dataset '{slug}' stores neither Te nor Tp, so no device production can be computed.");
+        var (hs, hsProblem) = Regular(context, context.Series.Hs);
+        if (hs is null) return hsProblem!;
+        var (regularPeriod, _) = Regular(context, period);
+        var matrix = DeviceMatrices.ToPowerMatrix(stored);
+        var result = DeviceYield.FromSeries(matrix, hs, regularPeriod!, matrix.PeriodKind, new YieldOptions { Interpolation = reading });
+        var summary = new DeviceSummary(stored.Name, stored.Slug, DeviceStore.AxisName(stored.AxisKind), stored.RatedPowerKw);
+        return TypedResults.Ok(PointYield.From(slug, context.Cell, summary, periodSource, window.FromYear, window.ToYear, result,
+            await provenance.ForAsync(context.Point.Dataset, cancel)));
+    }
+
+    /// <summary>
+    /// The period series a matrix needs: the stored one, or converted from the other period for a JONSWAP spectrum with
+    /// gamma 3.3 (Te = 0.9 Tp), as the statistics do; null when the dataset stores neither.
+    /// </summary>
+    public static (float[]? Period, string Source) PeriodFor(DeviceAxisKind axis, PointSeries s)
+    {
+        if (axis == DeviceAxisKind.Te)
+        {
+            if (s.HasTe) return (s.Te, "te as stored");
+            if (!s.HasTp) return (null, "");
+            var te = new float[s.Tp.Length];
+            PeriodConversion.EnergyPeriodFromPeakPeriod(s.Tp, te, SpectrumShape.JonswapGamma33);
+            return (te, "te derived as 0.9 tp (JONSWAP gamma 3.3): the dataset stores no energy period");
+        }
+        if (s.HasTp) return (s.Tp, "tp as stored");
+        if (!s.HasTe) return (null, "");
+        var tp = new float[s.Te.Length];
+        for (var i = 0; i < tp.Length; i++) tp[i] = (float)PeriodConversion.PeakPeriodFromEnergyPeriod(s.Te[i], SpectrumShape.JonswapGamma33);
+        return (tp, "tp derived as te / 0.9 (JONSWAP gamma 3.3): the dataset stores no peak period");
+    }
+
+    public static async Task<Results<Ok<PointWindows>, ProblemHttpResult, ValidationProblem>> WindowsAsync(
+        string slug, string? lat, string? lon, string? hs_max, string? tp_max, string? hours, string? from, string? to,
+        PointLocator locator, DatasetCatalog catalog, SeriesStore series, ProvenanceBuilder provenance, CancellationToken cancel)
+    {
+        var errors = new Dictionary<string, string[]>();
+        var position = PointLocator.ParsePosition(lat, lon, errors);
+        var window = YearWindow.Parse(from, to, null, errors);
+        var limits = ParseLimits(hs_max, tp_max, errors);
+        var duration = Positive("hours", hours, "the duration the operation needs, in hours", errors, required: true);
+        if (errors.Count > 0 || position is null || window is null || limits is null || duration is null)
+            return TypedResults.ValidationProblem(errors, title: "The windows request has invalid query values");
+
+        var (context, problem) = await ReadAsync(slug, position.Value, window, locator, catalog, series, cancel);
+        if (context is null) return problem!;
+        if (limits.TpLimitSeconds is not null && !context.Series.HasTp)
+            return ApiProblems.Unprocessable("No Tp stored", $"Dataset '{slug}' stores no peak period, so a Tp limit cannot be applied; leave tp_max out.");
+        var (hs, hsProblem) = Regular(context, context.Series.Hs);
+        if (hs is null) return hsProblem!;
+        var tp = limits.TpLimitSeconds is null ? null : Regular(context, context.Series.Tp).Series;
+        var result = WeatherWindowAnalysis.Analyse(hs, tp, limits, duration.Value);
+        return TypedResults.Ok(PointWindows.From(slug, context.Cell, window.FromYear, window.ToYear, result, await provenance.ForAsync(context.Point.Dataset, cancel)));
+    }
+
+    /// <summary>Access limits from hs_max (required) and tp_max (optional), or null with errors.</summary>
+    public static AccessLimits? ParseLimits(string? hsMax, string? tpMax, Dictionary<string, string[]> errors)
+    {
+        var hs = Positive("hs_max", hsMax, "the Hs limit in metres", errors, required: true);
+        var tp = Positive("tp_max", tpMax, "the Tp limit in seconds", errors, required: false);
+        return hs is { } h && !errors.ContainsKey("tp_max") ? new AccessLimits(h, tp) : null;
+    }
+
+    public static double? Positive(string name, string? text, string meaning, Dictionary<string, string[]> errors, bool required)
+    {
+        if (string.IsNullOrWhiteSpace(text))
+        {
+            if (required) errors[name] = [$"{name} is required: {meaning}."];
+            return null;
+        }
+        if (!QueryNumbers.TryParse(text, out var value)) { errors[name] = [$"{name} '{text}' is not a number: give {meaning}, with a decimal point."]; return null; }
+        if (value <= 0) { errors[name] = [$"{name} {text} must be above 0: give {meaning}."]; return null; }
+        return value;
+    }
+
+    public static async Task<Results<Ok<PointExtremes>, ProblemHttpResult, ValidationProblem>> ExtremesAsync(
+        string slug, string? lat, string? lon, string? method, string? threshold, string? threshold_quantile, string? separation_hours,
+        string? from, string? to, PointLocator locator, DatasetCatalog catalog, SeriesStore series, ProvenanceBuilder provenance, CancellationToken cancel)
+    {
+        var errors = new Dictionary<string, string[]>();
+        var position = PointLocator.ParsePosition(lat, lon, errors);
+        var window = YearWindow.Parse(from, to, null, errors);
+        if (method is not (null or "annual-maxima" or "peaks-over-threshold"))
+            errors["method"] = [$"'{method}' is not an extremes method: use annual-maxima or peaks-over-threshold (or leave it out for both)."];
+        var pot = new PeaksOverThresholdOptions();
+        if (Positive("threshold", threshold, "the Hs threshold in metres", errors, required: false) is { } u) pot = pot with { Threshold = u };
+        if (Positive("threshold_quantile", threshold_quantile, "the threshold as a quantile of Hs, between 0 and 1", errors, required: false) is { } q)
+        {
+            if (q >= 1) errors["threshold_quantile"] = [$"threshold_quantile {threshold_quantile} must be below 1 (e.g. 0.99)."];
+            else pot = pot with { ThresholdQuantile = q };
+        }
+        if (separation_hours is not null)
+        {
+            if (!QueryNumbers.TryParse(separation_hours, out var s) || s < 0)
+                errors["separation_hours"] = [$"separation_hours '{separation_hours}' must be a number of hours at or above 0."];
+            else pot = pot with { SeparationHours = s };
+        }
+        if (errors.Count > 0 || position is null || window is null) return TypedResults.ValidationProblem(errors, title: "The extremes request has invalid query values");
+
+        var (context, problem) = await ReadAsync(slug, position.Value, window, locator, catalog, series, cancel);
+        if (context is null) return problem!;
+        var (hs, hsProblem) = Regular(context, context.Series.Hs);
+        if (hs is null) return hsProblem!;
+
+        AnnualMaximaExtremes? annual = null;
+        PeaksOverThresholdExtremes? peaks = null;
+        if (method is null or "annual-maxima")
+        {
+            annual = AnnualMaximaOf(hs);
+            if (!annual.Available && method is not null) return ApiProblems.Unprocessable("Annual maxima cannot be fitted", annual.Reason!);
+        }
+        if (method is null or "peaks-over-threshold")
+        {
+            peaks = PeaksOf(hs, pot);
+            if (!peaks.Available && method is not null) return ApiProblems.Unprocessable("Peaks over threshold cannot be fitted", peaks.Reason!);
+        }
+        var valid = 0;
+        foreach (var v in hs.Values) if (!double.IsNaN(v)) valid++;
+        var recordYears = valid * hs.StepHours / UtcCalendar.HoursPerMeanYear;
+        var cautions = (annual?.Cautions ?? []).Concat(peaks?.Cautions ?? []).ToArray();
+        var strong = cautions.Where(c => c.Kind is "long_extrapolation").Concat(cautions.Where(c => c.Kind is "small_sample")).Select(c => c.Text).Distinct().ToArray();
+        return TypedResults.Ok(new PointExtremes(slug, context.Cell, "hs", "m", recordYears, window.FromYear, window.ToYear, annual, peaks,
+            strong.Length == 0 ? null : string.Join(" ", strong), await provenance.ForAsync(context.Point.Dataset, cancel), AtlasCaution.Text));
+    }
+
+    private static AnnualMaximaExtremes AnnualMaximaOf(RegularSeries hs)
+    {
+        var sample = AnnualMaxima.Extract(hs);
+        var maxima = sample.Maxima.Select(m => new AnnualMaximumRow(m.Year, m.Value, DateTime.UnixEpoch.AddSeconds(m.TimeUnixSeconds), m.Coverage)).ToArray();
+        var rejected = sample.RejectedYears.Select(r => new RejectedYearRow(r.Year, r.Coverage)).ToArray();
+        if (sample.Maxima.Count < GevMaximumLikelihood.MinimumSampleSize)
+            return new AnnualMaximaExtremes(false,
+                $"Only {sample.Maxima.Count} calendar year(s) have at least {sample.MinimumCoverage:P0} coverage; an annual-maxima fit needs " +
+                $"{GevMaximumLikelihood.MinimumSampleSize}. Use peaks over threshold for a short record.",
+                sample.MinimumCoverage, maxima, rejected, null, null, []);
+        var result = AnnualMaximaAnalysis.Run(sample);
+        return new AnnualMaximaExtremes(true, null, sample.MinimumCoverage, maxima, rejected,
+            Fit("gumbel", result.Gumbel, result.GumbelReturnLevels, result.GumbelDiagnostics),
+            Fit("gev", result.Gev, result.GevReturnLevels, result.GevDiagnostics),
+            [.. result.Cautions.Select(CautionRow.From)]);
+    }
+
+    private static DistributionFit Fit(string name, GevFit fit, IReadOnlyList<ReturnLevel> levels, IReadOnlyList<ProbabilityPlotPoint> diagnostics) =>
+        new(name, fit.Distribution.Location, fit.Distribution.Scale, fit.Distribution.Shape, fit.Distribution.ScipyShapeC, fit.LogLikelihood,
+            [.. levels.Select(ReturnLevelRow.From)], [.. diagnostics.Select(PlotPointRow.From)]);
+
+    private static PeaksOverThresholdExtremes PeaksOf(RegularSeries hs, PeaksOverThresholdOptions options)
+    {
+        PeaksOverThresholdResult result;
+        try
+        {
+            result = PeaksOverThresholdAnalysis.Run(hs, options);
+        }
+        catch (ArgumentException e)
+        {
+            return new PeaksOverThresholdExtremes(false, e.Message.Split(" (Parameter")[0], null, null, options.SeparationHours, null, null, [], null, []);
+        }
+        var fit = result.Fit;
+        return new PeaksOverThresholdExtremes(true, null, result.Threshold, SkillRow.Finite(result.ThresholdQuantile), result.SeparationHours, result.RecordYears,
+            result.ExceedancesPerYear,
+            [.. result.Peaks.Select(p => new StormPeakRow(At(p.StartUnixSeconds), At(p.EndUnixSeconds), At(p.PeakUnixSeconds), p.PeakValue, p.StepsAboveThreshold))],
+            new DistributionFit("gpd", null, fit.Distribution.Scale, fit.Distribution.Shape, null, fit.LogLikelihood,
+                [.. result.ReturnLevels.Select(ReturnLevelRow.From)], [.. result.Diagnostics.Select(PlotPointRow.From)]),
+            [.. result.Cautions.Select(CautionRow.From)]);
+    }
+
+    private static DateTime At(long unixSeconds) => DateTime.UnixEpoch.AddSeconds(unixSeconds);
+}

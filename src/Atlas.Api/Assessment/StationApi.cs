@@ -1,0 +1,110 @@
+using System.Security.Cryptography;
+using Atlas.Api.Infrastructure;
+using Atlas.Assessment;
+using Atlas.Assessment.Validation;
+using Atlas.Storage.Stations;
+using Microsoft.AspNetCore.Http.HttpResults;
+using Npgsql;
+
+namespace Atlas.Api.Assessment;
+
+/// <summary><c>/api/v1/stations</c>: the measuring stations whose records validate the hindcasts.</summary>
+public static class StationApi
+{
+    public static IEndpointRouteBuilder MapStationApi(this IEndpointRouteBuilder routes)
+    {
+        var group = routes.MapGroup("/api/v1/stations").WithTags("Stations");
+        group.MapGet("/", ListAsync).WithName("ListStations").WithSummary("The registered measuring stations");
+        group.MapGet("/{station}", DescribeAsync).WithName("DescribeStation").WithSummary("One station, by name or slug");
+        group.MapPost("/", AddAsync).WithName("AddStation")
+            .WithSummary("Register a station with its record (needs X-Api-Key)")
+            .WithDescription(
+                "multipart/form-data with the record in the part 'file', or the record as a text/csv body; the description in form fields or " +
+                "query values: name, lat, lon (degrees), depth_m (optional), instrument, role (calibration or validation), file_name (body uploads). " +
+                "The record is CSV with the header time,hs_m[,tp_s][,te_s][,dir_deg][,qc] in any order: time ISO 8601 UTC (2021-01-01T03:00:00Z), " +
+                "Hs in m, periods in s, the direction waves come from in degrees true, qc 0 for a good row (other values are kept and counted " +
+                "as flagged). Every bad row is reported with its line number and nothing is stored. Loading the same file under the same name " +
+                "again changes nothing (200); a new station answers 201.")
+            .Accepts<IFormFile>("multipart/form-data", "text/csv")
+            .AddEndpointFilter<ApiKeyFilter>();
+        group.MapDelete("/{station}", DeleteAsync).WithName("DeleteStation")
+            .WithSummary("Remove a station and its record (needs X-Api-Key)")
+            .AddEndpointFilter<ApiKeyFilter>();
+        return routes;
+    }
+
+    public static async Task<Ok<StationList>> ListAsync(NpgsqlDataSource dataSource, CancellationToken cancel) =>
+        TypedResults.Ok(new StationList([.. (await new StationStore(dataSource).ListAsync(cancel)).Select(StationItem.From)], AtlasCaution.Text));
+
+    public static async Task<Results<Ok<StationItem>, ProblemHttpResult>> DescribeAsync(string station, NpgsqlDataSource dataSource, CancellationToken cancel) =>
+        await new StationStore(dataSource).FindAsync(station, cancel) is { } found ? TypedResults.Ok(StationItem.From(found)) : ValidationApi.UnknownStation(station);
+
+    public static async Task<IResult> AddAsync(HttpRequest request, NpgsqlDataSource dataSource, CancellationToken cancel)
+    {
+        var (upload, problem) = await UploadReader.ReadAsync(request, "station.csv", cancel);
+        if (upload is null) return problem!;
+
+        var errors = new Dictionary<string, string[]>();
+        var name = upload.Field("name")?.Trim();
+        var slug = name is null ? null : ReferenceSlug.From(name);
+        if (name is null) errors["name"] = ["name is required: the station's name, your own."];
+        else if (slug is null) errors["name"] = [$"name '{name}' needs at least one letter or digit."];
+        var latitude = Number(upload, "lat", -90, 90, "the latitude in degrees north, -90..90", errors, required: true);
+        var longitude = Number(upload, "lon", -180, 180, "the longitude in degrees east, -180..180", errors, required: true);
+        var depth = Number(upload, "depth_m", 0, 12_000, "the water depth in metres, above 0", errors, required: false);
+        if (depth is 0) errors["depth_m"] = ["depth_m must be above 0 m; leave it out when unknown."];
+        var instrument = upload.Field("instrument")?.Trim();
+        if (instrument is null) errors["instrument"] = ["instrument is required: the kind of instrument (e.g. directional wave buoy)."];
+        if (!StationStore.TryParseRole(upload.Field("role"), out var role))
+            errors["role"] = [$"role {(upload.Field("role") is { } r ? $"'{r}' " : "")}must be calibration (used to tune the hindcast) or validation (kept aside)."];
+        if (errors.Count > 0) return TypedResults.ValidationProblem(errors, title: "The station description has invalid fields");
+
+        StationRecord record;
+        try
+        {
+            using var reader = new StreamReader(new MemoryStream(upload.Content), detectEncodingFromByteOrderMarks: true);
+            record = StationRecordCsv.Parse(reader, upload.FileName);
+        }
+        catch (CsvInputException e)
+        {
+            return TypedResults.ValidationProblem(new Dictionary<string, string[]> { ["file"] = [.. e.Errors.Select(x => x.ToString())] },
+                title: $"The station record {upload.FileName} has {e.Errors.Count} {(e.Errors.Count == 1 ? "error" : "errors")}; nothing was stored");
+        }
+        var outOfRange = record.Observations.Where(o => o.QualityFlag is < short.MinValue or > short.MaxValue).Select(o => $"line {o.LineNumber}: qc {o.QualityFlag} is outside the stored range {short.MinValue}..{short.MaxValue}").ToArray();
+        if (outOfRange.Length > 0)
+            return TypedResults.ValidationProblem(new Dictionary<string, string[]> { ["file"] = outOfRange }, title: $"The station record {upload.FileName} has errors; nothing was stored");
+
+        var rows = record.Observations
+            .Select(o => new StationObservationRow(o.TimeUnixSeconds, (float)o.HsMetres, (float)o.TpSeconds, (float)o.TeSeconds, (float)o.DirectionFromDegrees, (short)o.QualityFlag))
+            .ToArray();
+        var definition = new StationDefinition(slug!, name!, latitude!.Value, longitude!.Value, depth, instrument!, role, upload.FileName,
+            Convert.ToHexStringLower(SHA256.HashData(upload.Content)), "csv", record.HasTp, record.HasTe, record.HasDirection);
+        try
+        {
+            var registration = await new StationStore(dataSource).RegisterAsync(definition, rows, cancel);
+            var result = new StationRegistered(StationItem.From(registration.Station), registration.AlreadyRegistered, rows.Count(r => float.IsNaN(r.Hs)), AtlasCaution.Text);
+            return registration.AlreadyRegistered ? TypedResults.Ok(result) : TypedResults.Created($"/api/v1/stations/{registration.Station.Slug}", result);
+        }
+        catch (DuplicateStationException e)
+        {
+            return TypedResults.Problem(statusCode: 409, title: "The station conflicts with a registered one", detail: e.Message);
+        }
+    }
+
+    public static async Task<Results<NoContent, ProblemHttpResult>> DeleteAsync(string station, NpgsqlDataSource dataSource, CancellationToken cancel) =>
+        await new StationStore(dataSource).DeleteAsync(station, cancel) ? TypedResults.NoContent() : ValidationApi.UnknownStation(station);
+
+    /// <summary>A numeric field in [min, max]; null (with an error when required or unparsable) otherwise.</summary>
+    internal static double? Number(Upload upload, string name, double min, double max, string meaning, Dictionary<string, string[]> errors, bool required)
+    {
+        var text = upload.Field(name);
+        if (text is null)
+        {
+            if (required) errors[name] = [$"{name} is required: {meaning}."];
+            return null;
+        }
+        if (!QueryNumbers.TryParse(text, out var value)) { errors[name] = [$"{name} '{text}' is not a number: give {meaning}, with a decimal point."]; return null; }
+        if (value < min || value > max) { errors[name] = [$"{name} {text} is out of range: give {meaning}."]; return null; }
+        return value;
+    }
+}

@@ -1,0 +1,210 @@
+using System.Globalization;
+using System.Text;
+using Atlas.Api.Infrastructure;
+using Atlas.Api.Model;
+using Atlas.Api.Points;
+using Atlas.Assessment.Validation;
+using Atlas.Storage.Datasets;
+using Atlas.Storage.Series;
+using Atlas.Storage.Stations;
+using Microsoft.AspNetCore.Http.HttpResults;
+using Npgsql;
+
+namespace Atlas.Api.Assessment;
+
+/// <summary>
+/// <c>/api/v1/datasets/{slug}/validation</c> and <c>/api/v1/validation/compare</c>: how well a hindcast matches the
+/// registered measuring stations, computed from the stored records on each request.
+/// </summary>
+public static class ValidationApi
+{
+    public static IEndpointRouteBuilder MapValidationApi(this IEndpointRouteBuilder routes)
+    {
+        var dataset = routes.MapGroup("/api/v1/datasets/{slug}/validation").WithTags("Validation");
+        dataset.MapGet("/", TableAsync).WithName("ValidationTable")
+            .WithSummary("Skill of the dataset at each registered station: overall, by season and by Hs class")
+            .WithDescription(
+                "station: a station's name or slug (default: every station). format: json (default) or csv. For Hs, Tp, Te: N, mean observed " +
+                "and modelled, bias = mean(model - observed), RMSE, scatter index = RMSE / mean observed, bias-corrected scatter index, Pearson r, " +
+                "symmetric slope and the least-squares line; for direction the circular bias, circular RMSE and mean absolute difference. " +
+                "Each observation is paired with the nearest wet cell, linearly interpolated in time between the bracketing model steps within " +
+                "the tolerance (the larger of 1.5 h and the model step). role calibration/validation and independent say whether a station was " +
+                "used to tune the hindcast or kept aside. Stations outside the dataset are listed under not_covered.")
+            .RequireRateLimiting(RateLimits.Expensive);
+        dataset.MapGet("/{station}/pairs", PairsAsync).WithName("ValidationPairs")
+            .WithSummary("Plot data at one station: matched pairs (scatter and time series), the 1:1 line, quantile pairs and the model series")
+            .WithDescription("variable: hs (default), tp, te or dir. format: json (default) or csv (the pairs only, after '#' provenance lines). " +
+                             "Quantiles are matched at probabilities 0.01..0.99 (Hyndman-Fan type 7, observed and modelled sorted separately).")
+            .RequireRateLimiting(RateLimits.Expensive);
+        routes.MapGet("/api/v1/validation/compare", CompareAsync).WithTags("Validation").WithName("ValidationComparison")
+            .WithSummary("Several hindcast runs compared station by station, ranked by scatter index with bias shown")
+            .WithDescription("datasets: two or more dataset slugs, comma separated. variable: hs (default), tp or te. Per station the runs are ranked " +
+                             "by scatter index (1 = smallest); the ranking over all stations uses the mean scatter index of the stations each run covers.")
+            .RequireRateLimiting(RateLimits.Expensive);
+        return routes;
+    }
+
+    public static async Task<Results<Ok<ValidationTable>, FileContentHttpResult, ProblemHttpResult, ValidationProblem>> TableAsync(
+        string slug, string? station, string? format, DatasetCatalog catalog, PointLocator locator, SeriesStore series,
+        NpgsqlDataSource dataSource, ProvenanceBuilder provenance, CancellationToken cancel)
+    {
+        if (format is not (null or "json" or "csv"))
+            return TypedResults.ValidationProblem(new Dictionary<string, string[]> { ["format"] = [$"'{format}' is not a validation format: use json or csv."] });
+        var dataset = await catalog.FindAsync(slug, cancel);
+        if (dataset is null) return ApiProblems.UnknownDataset(slug);
+        var service = new ValidationService(locator, catalog, series, new StationStore(dataSource));
+        IReadOnlyList<StoredStation> stations;
+        if (station is not null)
+        {
+            if (await service.Stations.FindAsync(station, cancel) is not { } found) return UnknownStation(station);
+            stations = [found];
+        }
+        else stations = await service.Stations.ListAsync(cancel);
+        var (covered, notCovered) = await service.AtStationsAsync(dataset, stations, cancel);
+        var table = new ValidationTable(slug, covered, notCovered, await provenance.ForAsync(dataset, cancel), AtlasCaution.Text);
+        if (format == "csv") return TypedResults.File(ValidationReporting.Csv(table), "text/csv; charset=utf-8", $"{slug}_validation.csv");
+        return TypedResults.Ok(table);
+    }
+
+    public static async Task<Results<Ok<ValidationPlotData>, FileContentHttpResult, ProblemHttpResult, ValidationProblem>> PairsAsync(
+        string slug, string station, string? variable, string? format, DatasetCatalog catalog, PointLocator locator, SeriesStore series,
+        NpgsqlDataSource dataSource, ProvenanceBuilder provenance, CancellationToken cancel)
+    {
+        var errors = new Dictionary<string, string[]>();
+        var wanted = ValidatedVariable.Hs;
+        if (variable is not null && !StationValidator.TryParse(variable, out wanted))
+            errors["variable"] = [$"'{variable}' is not a station variable: use hs, tp, te or dir."];
+        if (format is not (null or "json" or "csv")) errors["format"] = [$"'{format}' is not a pairs format: use json or csv."];
+        if (errors.Count > 0) return TypedResults.ValidationProblem(errors, title: "The pairs request has invalid query values");
+
+        var dataset = await catalog.FindAsync(slug, cancel);
+        if (dataset is null) return ApiProblems.UnknownDataset(slug);
+        var service = new ValidationService(locator, catalog, series, new StationStore(dataSource));
+        if (await service.Stations.FindAsync(station, cancel) is not { } found) return UnknownStation(station);
+        var (validation, reason) = await service.AtStationAsync(dataset, found, cancel);
+        if (validation is null) return ApiProblems.Unprocessable("The dataset does not cover this station", reason!);
+        if (validation.Find(wanted) is not { } compared)
+            return ApiProblems.Unprocessable("Variable not compared",
+                $"{StationValidator.Symbol(wanted)} is not compared at '{found.Name}': {string.Join(" ", validation.Notes)}");
+
+        var pairs = compared.Pairs;
+        var list = new ValidationPair[pairs.Count];
+        for (var i = 0; i < pairs.Count; i++) list[i] = new ValidationPair(DateTime.UnixEpoch.AddSeconds(pairs.TimesUnixSeconds[i]), pairs.Observed[i], pairs.Modelled[i]);
+        var skill = ValidationReporting.Skill(validation);
+        var source = await provenance.ForAsync(dataset, cancel);
+        var symbol = StationValidator.Symbol(wanted);
+        if (format == "csv") return TypedResults.File(PairsCsv(slug, skill, symbol, list, source), "text/csv; charset=utf-8", $"{slug}_{found.Slug}_{symbol}_pairs.csv");
+
+        var quantiles = compared.Scalar is { } scalar
+            ? scalar.Quantiles.Select(q => new QuantileRow(q.Probability, SkillRow.Finite(q.ObservedQuantile), SkillRow.Finite(q.ModelledQuantile))).ToArray()
+            : [];
+        return TypedResults.Ok(new ValidationPlotData(slug, skill.Station, skill.Cell, symbol, StationValidator.UnitOf(wanted), MatchCountsRow.From(compared.Counts),
+            OneToOne(pairs, wanted), list, quantiles, ModelSeries(validation, wanted), source, AtlasCaution.Text));
+    }
+
+    public static async Task<Results<Ok<ValidationComparison>, ProblemHttpResult, ValidationProblem>> CompareAsync(
+        string? datasets, string? variable, DatasetCatalog catalog, PointLocator locator, SeriesStore series, NpgsqlDataSource dataSource,
+        ProvenanceBuilder provenance, CancellationToken cancel)
+    {
+        var errors = new Dictionary<string, string[]>();
+        var slugs = (datasets ?? "").Split(',', StringSplitOptions.TrimEntries | StringSplitOptions.RemoveEmptyEntries).Distinct().ToArray();
+        if (slugs.Length < 2) errors["datasets"] = ["datasets needs two or more dataset slugs, comma separated (datasets=run-a,run-b)."];
+        var wanted = ValidatedVariable.Hs;
+        if (variable is not null && (!StationValidator.TryParse(variable, out wanted) || wanted == ValidatedVariable.Dir))
+            errors["variable"] = [$"'{variable}' cannot be ranked by scatter index: use hs, tp or te."];
+        if (errors.Count > 0) return TypedResults.ValidationProblem(errors, title: "The comparison request has invalid query values");
+
+        var records = new List<DatasetRecord>();
+        foreach (var s in slugs)
+        {
+            if (await catalog.FindAsync(s, cancel) is not { } record) return ApiProblems.UnknownDataset(s);
+            records.Add(record);
+        }
+        var service = new ValidationService(locator, catalog, series, new StationStore(dataSource));
+        var stations = await service.Stations.ListAsync(cancel);
+        var symbol = StationValidator.Symbol(wanted);
+        var results = new Dictionary<(string Dataset, string Station), (SkillRow? Skill, string? Missing)>();
+        foreach (var record in records)
+        {
+            var (covered, notCovered) = await service.AtStationsAsync(record, stations, cancel);
+            foreach (var c in covered)
+                results[(record.Slug, c.Station.Name)] = c.Find(symbol)?.Overall is { } o ? (o, null) : (null, $"{symbol} is not compared: {string.Join(" ", c.Notes)}");
+            foreach (var n in notCovered) results[(record.Slug, n.Station)] = (null, n.Reason);
+        }
+
+        var byStation = stations.Select(st =>
+        {
+            var runs = records.Select(r => (Dataset: r.Slug, Result: results[(r.Slug, st.Name)])).ToArray();
+            var ranked = runs.Where(r => r.Result.Skill?.ScatterIndex is not null).OrderBy(r => r.Result.Skill!.ScatterIndex).Select(r => r.Dataset).ToList();
+            int? RankOf(string dataset) => ranked.IndexOf(dataset) is var k and >= 0 ? k + 1 : null;
+            return new StationComparison(st.Name, StationStore.RoleName(st.Role), st.Role == StationRole.Validation,
+                [.. runs.OrderBy(r => RankOf(r.Dataset) ?? int.MaxValue).Select(r => new RunSkill(r.Dataset, RankOf(r.Dataset), r.Result.Skill, r.Result.Missing))]);
+        }).ToArray();
+
+        static double? MeanOf(IEnumerable<double?> values)
+        {
+            var known = values.Where(v => v is not null).Select(v => v!.Value).ToArray();
+            return known.Length == 0 ? null : known.Average();
+        }
+        var ranking = records
+            .Select(r =>
+            {
+                var skills = stations.Select(st => (Station: st, results[(r.Slug, st.Name)].Skill)).Where(x => x.Skill?.ScatterIndex is not null).ToArray();
+                return (Dataset: r.Slug, Covered: skills.Length, MeanSi: MeanOf(skills.Select(x => x.Skill!.ScatterIndex)), MeanBias: MeanOf(skills.Select(x => x.Skill!.Bias)),
+                    IndependentSi: MeanOf(skills.Where(x => x.Station.Role == StationRole.Validation).Select(x => x.Skill!.ScatterIndex)));
+            })
+            .OrderBy(x => x.MeanSi ?? double.PositiveInfinity)
+            .Select((x, i) => new RunSummary(x.Dataset, i + 1, x.Covered, x.MeanSi, x.MeanBias, x.IndependentSi))
+            .ToArray();
+
+        var sources = new List<Provenance>();
+        foreach (var record in records) sources.Add(await provenance.ForAsync(record, cancel));
+        return TypedResults.Ok(new ValidationComparison(symbol, ranking, byStation, sources, AtlasCaution.Text));
+    }
+
+    public static ProblemHttpResult UnknownStation(string station) =>
+        ApiProblems.NotFound("Unknown station", $"There is no station '{station}'. GET /api/v1/stations lists the registered stations.");
+
+    /// <summary>Ends of the 1:1 line spanning the pairs (0 to the largest value; 0 to 360 for directions).</summary>
+    private static double[] OneToOne(MatchedSeries pairs, ValidatedVariable variable)
+    {
+        if (variable == ValidatedVariable.Dir) return [0, 360];
+        double top = 0;
+        for (var i = 0; i < pairs.Count; i++) top = Math.Max(top, Math.Max(pairs.Observed[i], pairs.Modelled[i]));
+        return [0, top];
+    }
+
+    private static IReadOnlyList<ModelStep> ModelSeries(StationValidation validation, ValidatedVariable variable)
+    {
+        var model = validation.Model;
+        var values = variable switch
+        {
+            ValidatedVariable.Hs => model.Hs,
+            ValidatedVariable.Tp => model.Tp,
+            ValidatedVariable.Te => model.Te,
+            _ => model.Dir,
+        };
+        long start = ToUnix(validation.Station.TimeStartUtc), end = ToUnix(validation.Station.TimeEndUtc);
+        var steps = new List<ModelStep>();
+        for (var i = 0; i < model.Times.Length; i++)
+            if (model.Times[i] >= start && model.Times[i] <= end)
+                steps.Add(new ModelStep(DateTime.UnixEpoch.AddSeconds(model.Times[i]), float.IsNaN(values[i]) ? null : values[i]));
+        return steps;
+    }
+
+    private static long ToUnix(DateTime utc) => (long)(utc - DateTime.UnixEpoch).TotalSeconds;
+
+    private static byte[] PairsCsv(string slug, StationSkill skill, string symbol, IReadOnlyList<ValidationPair> pairs, Provenance source)
+    {
+        var c = CultureInfo.InvariantCulture;
+        var text = new StringBuilder();
+        text.Append(c, $"# matched {symbol} pairs of dataset {slug} at station {skill.Station.Name} ({skill.Station.Role}), cell {skill.Cell.Id}, {skill.Cell.DistanceM:0.#} m away\n");
+        text.Append("# matching: ").Append(ValidationReporting.MatchingMethod).Append('\n');
+        text.Append(c, $"# units: time UTC (ISO 8601); observed and modelled in {StationValidator.UnitOf(StationValidator.TryParse(symbol, out var v) ? v : ValidatedVariable.Hs)}\n");
+        foreach (var line in source.HeaderLines()) text.Append(line).Append('\n');
+        text.Append("time,observed,modelled\n");
+        foreach (var p in pairs)
+            text.Append(p.Time.ToString("yyyy-MM-dd'T'HH:mm:ss'Z'", c)).Append(',').Append(p.Observed.ToString("R", c)).Append(',').Append(p.Modelled.ToString("R", c)).Append('\n');
+        return new UTF8Encoding(false).GetBytes(text.ToString());
+    }
+}

@@ -1,0 +1,128 @@
+using System.Globalization;
+using System.Text;
+using System.Text.Json;
+using System.Text.Json.Nodes;
+using Atlas.Api.Model;
+using Atlas.Assessment;
+
+namespace Atlas.Api.Assessment;
+
+/// <summary>Turns station validations into the API's skill tables, their CSV form, and the dataset metadata summary.</summary>
+public static class ValidationReporting
+{
+    public const string MatchingMethod =
+        "nearest wet cell to the station (no spatial interpolation); in time, linear interpolation between the two model steps " +
+        "bracketing each observation, both within the tolerance (directions along the shorter arc); flagged rows, observation " +
+        "gaps, model gaps and missing values are counted and never paired";
+
+    public static StationSkill Skill(StationValidation validation)
+    {
+        var c = validation.Cell;
+        var cell = new ValidatedCell(c.Cell.CellId, c.Cell.Latitude, c.Cell.Longitude, c.Cell.DepthMetres, Math.Round(c.DistanceMetres, 1));
+        var variables = validation.Variables.Select(VariableOf).ToArray();
+        return new StationSkill(StationItem.From(validation.Station), cell, new MatchingNote(MatchingMethod, validation.ToleranceHours), variables, validation.Notes);
+    }
+
+    private static VariableSkill VariableOf(VariableValidation v)
+    {
+        var symbol = StationValidator.Symbol(v.Variable);
+        var byClass = v.ByHsClass.Select(k => new SkillGroup(null, k.LowerMetres, double.IsFinite(k.UpperMetres) ? k.UpperMetres : null,
+            k.Scalar is { } s ? SkillRow.From(s) : null, k.Directional is { } d ? DirectionalSkillRow.From(d) : null)).ToArray();
+        if (v.Scalar is { } scalar)
+            return new VariableSkill(symbol, StationValidator.UnitOf(v.Variable), MatchCountsRow.From(scalar.Counts), SkillRow.From(scalar.Overall), null,
+                scalar.BySeason.Select(s => new SkillGroup(SeasonName(s.Season), null, null, SkillRow.From(s.Scores), null)).ToArray(), byClass);
+        var direction = v.Directional!;
+        return new VariableSkill(symbol, StationValidator.UnitOf(v.Variable), MatchCountsRow.From(direction.Counts), null, DirectionalSkillRow.From(direction.Overall),
+            direction.BySeason.Select(s => new SkillGroup(SeasonName(s.Season), null, null, null, DirectionalSkillRow.From(s.Scores))).ToArray(), byClass);
+    }
+
+    public static string SeasonName(CalendarSeason season) => season.ToString().ToLowerInvariant();
+
+    /// <summary>
+    /// The skill table as CSV: '#' lines (what the columns mean, the provenance, the caution), then one row per station,
+    /// variable and group (overall, each season, each Hs class). Directions fill bias and rmse with the circular bias
+    /// and circular RMSE and leave the scalar-only columns empty.
+    /// </summary>
+    public static byte[] Csv(ValidationTable table)
+    {
+        var text = new StringBuilder();
+        text.Append("# validation of dataset ").Append(table.Dataset).Append(" against measuring stations\n");
+        text.Append("# matching: ").Append(MatchingMethod).Append('\n');
+        text.Append("# units: hs m; tp and te s; dir degree. bias = mean(model - observed); rmse; scatter_index = rmse / mean observed; ")
+            .Append("pearson_r; symmetric_slope = sqrt(sum model^2 / sum observed^2). dir: bias and rmse are the circular bias and RMSE.\n");
+        text.Append("# role: calibration stations were used to tune the hindcast; validation stations were kept aside (independent).\n");
+        foreach (var line in table.Provenance.HeaderLines()) text.Append(line).Append('\n');
+        foreach (var missing in table.NotCovered) text.Append("# not covered: ").Append(missing.Station).Append(": ").Append(missing.Reason).Append('\n');
+        text.Append("station,role,independent,cell_id,distance_m,variable,group,n,mean_observed,mean_modelled,bias,rmse,scatter_index,pearson_r,symmetric_slope\n");
+        foreach (var station in table.Stations)
+            foreach (var v in station.Variables)
+            {
+                Row(text, station, v, "overall", v.Overall, v.Directional);
+                foreach (var g in v.BySeason) Row(text, station, v, g.Season!, g.Skill, g.DirectionalSkill);
+                foreach (var g in v.ByHsClass) Row(text, station, v, ClassName(g), g.Skill, g.DirectionalSkill);
+            }
+        return new UTF8Encoding(false).GetBytes(text.ToString());
+    }
+
+    public static string ClassName(SkillGroup g) =>
+        string.Create(CultureInfo.InvariantCulture, $"hs_{g.HsLowerM:0.##}-{(g.HsUpperM is { } u ? u.ToString("0.##", CultureInfo.InvariantCulture) : "")}");
+
+    private static void Row(StringBuilder text, StationSkill station, VariableSkill v, string group, SkillRow? skill, DirectionalSkillRow? directional)
+    {
+        var c = CultureInfo.InvariantCulture;
+        text.Append(Field(station.Station.Name)).Append(',').Append(station.Station.Role).Append(',').Append(station.Station.Independent ? "true" : "false")
+            .Append(',').Append(station.Cell.Id.ToString(c)).Append(',').Append(station.Cell.DistanceM.ToString("0.#", c))
+            .Append(',').Append(v.Variable).Append(',').Append(group).Append(',');
+        if (skill is not null)
+        {
+            text.Append(skill.N.ToString(c));
+            foreach (var value in new[] { skill.MeanObserved, skill.MeanModelled, skill.Bias, skill.Rmse, skill.ScatterIndex, skill.PearsonR, skill.SymmetricSlope })
+                text.Append(',').Append(value?.ToString("R", c));
+        }
+        else if (directional is not null)
+        {
+            text.Append(directional.N.ToString(c));
+            foreach (var value in new[] { directional.CircularMeanObserved, directional.CircularMeanModelled, directional.CircularBias, directional.CircularRmse, null, null, null })
+                text.Append(',').Append(value?.ToString("R", c));
+        }
+        text.Append('\n');
+    }
+
+    private static string Field(string value) => value.Contains(',') || value.Contains('"') ? "\"" + value.Replace("\"", "\"\"") + "\"" : value;
+
+    /// <summary>
+    /// The <c>validation</c> member of the dataset metadata: when and how the dataset was validated, and the overall skill
+    /// of each variable at each covered station (per-season and per-class tables stay with the validation endpoint).
+    /// </summary>
+    public static string MetadataJson(IReadOnlyList<StationSkill> stations, IReadOnlyList<StationNotCovered> notCovered, DateTime computedAtUtc)
+    {
+        var list = new JsonArray();
+        foreach (var s in stations)
+        {
+            var variables = new JsonObject();
+            foreach (var v in s.Variables)
+                variables[v.Variable] = v.Overall is { } o
+                    ? new JsonObject
+                    {
+                        ["n"] = o.N, ["mean_observed"] = o.MeanObserved, ["bias"] = o.Bias, ["rmse"] = o.Rmse,
+                        ["scatter_index"] = o.ScatterIndex, ["pearson_r"] = o.PearsonR, ["symmetric_slope"] = o.SymmetricSlope,
+                    }
+                    : new JsonObject { ["n"] = v.Directional!.N, ["circular_bias"] = v.Directional.CircularBias, ["circular_rmse"] = v.Directional.CircularRmse };
+            list.Add(new JsonObject
+            {
+                ["station"] = s.Station.Name, ["slug"] = s.Station.Slug, ["role"] = s.Station.Role, ["independent"] = s.Station.Independent,
+                ["lat"] = s.Station.Lat, ["lon"] = s.Station.Lon, ["cell_id"] = s.Cell.Id, ["distance_m"] = s.Cell.DistanceM,
+                ["time_start"] = s.Station.TimeStartUtc, ["time_end"] = s.Station.TimeEndUtc, ["variables"] = variables,
+            });
+        }
+        var validation = new JsonObject
+        {
+            ["computed_at"] = computedAtUtc,
+            ["method"] = MatchingMethod,
+            ["stations"] = list,
+            ["not_covered"] = new JsonArray([.. notCovered.Select(n => (JsonNode)new JsonObject { ["station"] = n.Station, ["reason"] = n.Reason })]),
+            ["details"] = "/api/v1/datasets/{slug}/validation",
+        };
+        return new JsonObject { ["validation"] = validation }.ToJsonString(new JsonSerializerOptions { WriteIndented = false });
+    }
+}
