@@ -38,21 +38,29 @@ public static class DemoCommand
     {
         var serve = new Option<bool>("--serve") { Description = "Serve the atlas when the demo is loaded" };
         var regenerate = new Option<bool>("--regenerate") { Description = "Write the demo files again even if they exist" };
-        var command = new Command("demo", "Generate, load and (with --serve) serve the invented demo coast.") { serve, regenerate };
+        var months = new Option<int>("--months") { Description = "Months of hindcast to generate, from January 2021 (a shorter demo loads faster)", DefaultValueFactory = _ => DemoScenarioOptions.Full.Months };
+        var command = new Command("demo", "Generate, load and (with --serve) serve the invented demo coast.") { serve, regenerate, months };
         command.SetAction(async (parse, cancel) =>
         {
             var folder = Path.Combine(AtlasHome.Resolve(), "demo");
             Directory.CreateDirectory(folder);
             // One demo run at a time per home: two runs writing the same files would corrupt them.
             using var demoLock = await AcquireLockAsync(Path.Combine(AtlasHome.Resolve(), "demo.lock"), cancel);
-            var scenario = DemoScenario.Describe(DemoScenarioOptions.Full);
+            var options = DemoScenarioOptions.Full with { Months = parse.GetValue(months) };
+            try { options.Validate(); }
+            catch (ArgumentOutOfRangeException e)
+            {
+                Console.Error.WriteLine($"atlas demo: {e.Message}");
+                return 2;
+            }
+            var scenario = DemoScenario.Describe(options);
             var files = scenario.FieldFiles.Select(f => Path.Combine(folder, f)).ToArray();
             if (parse.GetValue(regenerate) || !files.All(File.Exists) || !File.Exists(Path.Combine(folder, DemoScenario.ManifestFileName)))
             {
                 Console.WriteLine($"atlas demo: generating {scenario.Name} into {folder}");
                 var display = new ConsoleProgress();
                 var started = DateTime.UtcNow;
-                var output = DemoScenarioWriter.Write(folder, DemoScenarioOptions.Full,
+                var output = DemoScenarioWriter.Write(folder, options,
                     new Progress<DemoProgress>(p => display.Report(new ProgressSnapshot("generating", p.Done, p.Total, 0, DateTime.UtcNow - started, "files"))));
                 Console.WriteLine($"atlas demo: wrote {output.Files.Count} files ({output.TotalBytes / 1e6:F0} MB) in {ProgressSnapshot.FormatDuration(output.Elapsed)}");
             }

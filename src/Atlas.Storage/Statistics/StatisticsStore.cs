@@ -25,22 +25,27 @@ public sealed class StatisticsStore(NpgsqlDataSource dataSource)
         await using (var writer = await connection.BeginBinaryImportAsync(
             "COPY cell_statistic (dataset_id, cell_id, period, parameter, mean, sd, min, max, p10, p50, p90, p99, count, coverage, extra) FROM STDIN (FORMAT BINARY)", cancel))
         {
+            // Synchronous writes: hundreds of thousands of rows of small fields, where per-field async overhead would dominate.
             foreach (var row in rows)
             {
-                await writer.StartRowAsync(cancel);
-                await writer.WriteAsync(datasetId, NpgsqlDbType.Integer, cancel);
-                await writer.WriteAsync(row.CellId, NpgsqlDbType.Integer, cancel);
-                await writer.WriteAsync(row.Period, NpgsqlDbType.Smallint, cancel);
-                await writer.WriteAsync(row.Parameter, NpgsqlDbType.Smallint, cancel);
-                foreach (var value in new[] { row.Mean, row.Sd, row.Min, row.Max, row.P10, row.P50, row.P90, row.P99 })
-                {
-                    if (value is { } v && float.IsFinite(v)) await writer.WriteAsync(v, NpgsqlDbType.Real, cancel);
-                    else await writer.WriteNullAsync(cancel);
-                }
-                await writer.WriteAsync(row.Count, NpgsqlDbType.Integer, cancel);
-                await writer.WriteAsync(row.Coverage, NpgsqlDbType.Real, cancel);
-                if (row.Extra is { } extra) await writer.WriteAsync(extra, NpgsqlDbType.Array | NpgsqlDbType.Real, cancel);
-                else await writer.WriteNullAsync(cancel);
+                cancel.ThrowIfCancellationRequested();
+                writer.StartRow();
+                writer.Write(datasetId, NpgsqlDbType.Integer);
+                writer.Write(row.CellId, NpgsqlDbType.Integer);
+                writer.Write(row.Period, NpgsqlDbType.Smallint);
+                writer.Write(row.Parameter, NpgsqlDbType.Smallint);
+                WriteReal(writer, row.Mean);
+                WriteReal(writer, row.Sd);
+                WriteReal(writer, row.Min);
+                WriteReal(writer, row.Max);
+                WriteReal(writer, row.P10);
+                WriteReal(writer, row.P50);
+                WriteReal(writer, row.P90);
+                WriteReal(writer, row.P99);
+                writer.Write(row.Count, NpgsqlDbType.Integer);
+                writer.Write(row.Coverage, NpgsqlDbType.Real);
+                if (row.Extra is { } extra) writer.Write(extra, NpgsqlDbType.Array | NpgsqlDbType.Real);
+                else writer.WriteNull();
             }
             await writer.CompleteAsync(cancel);
         }
@@ -62,6 +67,12 @@ public sealed class StatisticsStore(NpgsqlDataSource dataSource)
             await clear.ExecuteNonQueryAsync(cancel);
         }
         await transaction.CommitAsync(cancel);
+    }
+
+    private static void WriteReal(NpgsqlBinaryImporter writer, float? value)
+    {
+        if (value is { } v && float.IsFinite(v)) writer.Write(v, NpgsqlDbType.Real);
+        else writer.WriteNull();
     }
 
     /// <summary>Wet cells whose series were written after their statistics were computed (or never computed).</summary>

@@ -1,1 +1,0 @@
-namespace Atlas.Cli.Tests; public class Placeholder { [Fact] public void Builds() { } }
