@@ -28,7 +28,7 @@ public static class LayerFigureRenderer
         using var typeface = SKTypeface.FromFamilyName("DejaVu Sans") ?? SKTypeface.Default;
         using var small = new SKFont(typeface, 10.5f);
         var caption = Wrap(CaptionLines(data), small, width - 2 * 16).ToArray();
-        var height = (int)Math.Ceiling(Top + mapHeight + CaptionTop + caption.Length * CaptionLine);
+        var height = (int)Math.Ceiling(Top + mapHeight + CaptionTop + caption.Length * CaptionLine + 8);
         var map = new SKRect(Left, Top, (float)(Left + mapWidth), (float)(Top + mapHeight));
 
         var (min, max) = raster.Range();

@@ -5,7 +5,7 @@ namespace Atlas.Api.Infrastructure;
 /// <summary>
 /// Settings of the HTTP API, bound from the configuration section <c>AtlasApiOptions</c> and checked at start-up.
 /// </summary>
-public sealed class AtlasApiOptions
+public sealed class AtlasApiOptions : IValidatableObject
 {
     /// <summary>
     /// The farthest a point request may lie from the nearest wet cell, km. When unset, the limit is
@@ -57,4 +57,14 @@ public sealed class AtlasApiOptions
     /// <summary>Seconds a client may keep a layer download before revalidating it with its ETag.</summary>
     [Range(0, 31_536_000)]
     public int LayerCacheSeconds { get; set; } = 3600;
+
+    /// <summary>Checked at start-up: each configured digest must be 64 hex digits (blank entries are ignored).</summary>
+    public IEnumerable<ValidationResult> Validate(ValidationContext validationContext)
+    {
+        foreach (var digest in ApiKeySha256.Where(d => !string.IsNullOrWhiteSpace(d)))
+            if (digest.Trim().Length != 64 || !digest.Trim().All(Uri.IsHexDigit))
+                yield return new ValidationResult(
+                    $"AtlasApiOptions:ApiKeySha256 holds '{(digest.Length <= 8 ? digest : digest[..8] + "...")}', which is not a SHA-256 digest (64 hex digits). " +
+                    "Configure digests, never keys: printf %s \"$KEY\" | sha256sum", [nameof(ApiKeySha256)]);
+    }
 }

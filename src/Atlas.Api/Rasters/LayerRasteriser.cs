@@ -71,7 +71,7 @@ public static class LayerRasteriser
         if (usable.Count == 0) throw new ArgumentException("No triangle has values at all three corners.", nameof(triangles));
 
         double west = double.MaxValue, east = double.MinValue, south = double.MaxValue, north = double.MinValue;
-        var edges = new List<double>(usable.Count);
+        var edges = new List<double>(3 * usable.Count);
         foreach (var (a, b, c) in usable)
         {
             foreach (var p in new[] { a, b, c })
@@ -80,6 +80,8 @@ public static class LayerRasteriser
                 south = Math.Min(south, p.Y); north = Math.Max(north, p.Y);
             }
             edges.Add(a.Distance(b));
+            edges.Add(b.Distance(c));
+            edges.Add(c.Distance(a));
         }
         edges.Sort();
         var pixel = Math.Max(edges[edges.Count / 2] / 4, Math.Max(east - west, north - south) / maxPixels);

@@ -1,0 +1,61 @@
+#!/usr/bin/env bash
+# Point-statistics throughput of the API against a trivial endpoint of the same server (the ceiling), measured
+# with wrk on the loopback interface in the same run, reported as ratios.
+#
+# Assumes the demo is loaded (bash deploy/demo.sh, or atlas demo) and the database is up. Starts its own server on
+# 127.0.0.1:${PORT:-5091} with the rate limit lifted, runs each load for ${DURATION:-10s} at ${CONNECTIONS:-32}
+# connections and ${THREADS:-2} threads, and stops the server again.
+set -euo pipefail
+here=$(cd "$(dirname "$0")" && pwd)
+top=$(cd "$here/../../.." && pwd)
+port=${PORT:-5091}
+duration=${DURATION:-10s}
+connections=${CONNECTIONS:-32}
+threads=${THREADS:-2}
+base="http://127.0.0.1:$port"
+command -v wrk >/dev/null || { echo "bench: wrk is not installed (apt-get install -y wrk)" >&2; exit 2; }
+
+atlas="$top/src/Atlas.Cli/bin/Release/net10.0/atlas"
+if [ ! -x "$atlas" ]; then
+  dotnet build "$top/src/Atlas.Cli" -c Release -v quiet -nologo >/dev/null
+fi
+
+log=$(mktemp)
+ASPNETCORE_URLS="$base" AtlasApiOptions__ExpensiveRequestsPerMinute=100000000 Logging__LogLevel__Default=Warning \
+  "$atlas" serve >"$log" 2>&1 &
+server=$!
+trap 'kill "$server" 2>/dev/null || true; wait "$server" 2>/dev/null || true; rm -f "$log"' EXIT
+for _ in $(seq 1 120); do
+  curl -fsS "$base/healthz" >/dev/null 2>&1 && break
+  kill -0 "$server" 2>/dev/null || { echo "bench: the server exited:" >&2; cat "$log" >&2; exit 1; }
+  sleep 0.5
+done
+
+slug=${SLUG:-$(curl -fsS "$base/api/v1/datasets" | /usr/bin/python3 -c 'import json,sys; print(json.load(sys.stdin)["datasets"][0]["slug"])')}
+# A wet cell of the dataset: the first one the screening endpoint returns with no criteria.
+read -r lon lat < <(curl -fsS "$base/api/v1/datasets/$slug/screen" |
+  /usr/bin/python3 -c 'import json,sys; f=json.load(sys.stdin)["features"]; c=f[len(f)//2]["geometry"]["coordinates"]; print(c[0], c[1])')
+point="$base/api/v1/datasets/$slug/point?lat=$lat&lon=$lon"
+curl -fsS "$point&include=none" >/dev/null   # warm up the dataset caches once
+
+run() {  # name url -> "requests_per_second p99_ms"
+  local out
+  out=$(wrk -t"$threads" -c"$connections" -d"$duration" --latency "$2")
+  local rps p99
+  rps=$(awk '/^Requests\/sec:/ {print $2}' <<<"$out")
+  p99=$(awk '$1 == "99%" {v=$2; if (v ~ /us$/) {sub(/us$/,"",v); v=v/1000} else if (v ~ /ms$/) {sub(/ms$/,"",v)} else if (v ~ /s$/) {sub(/s$/,"",v); v=v*1000}; print v}' <<<"$out")
+  local errors
+  errors=$(awk '/Non-2xx or 3xx responses:/ {print $5}' <<<"$out")
+  [ -z "$errors" ] || { echo "bench: $1 had $errors non-2xx responses" >&2; echo "$out" >&2; exit 1; }
+  echo "$rps $p99"
+}
+
+read -r ceiling_rps ceiling_p99 < <(run healthz "$base/healthz")
+read -r summary_rps summary_p99 < <(run point-summary "$point&include=none")
+read -r full_rps full_p99 < <(run point-full "$point")
+
+printf 'dataset %s, cell near lat %s lon %s; %s connections, %s threads, %s each\n' "$slug" "$lat" "$lon" "$connections" "$threads" "$duration"
+printf '%-28s %12s %10s %18s\n' endpoint requests/s p99_ms share_of_ceiling
+printf '%-28s %12.1f %10.2f %18s\n' "healthz (ceiling)" "$ceiling_rps" "$ceiling_p99" "1.000"
+printf '%-28s %12.1f %10.2f %18.4f\n' "point, summaries only" "$summary_rps" "$summary_p99" "$(awk -v a="$summary_rps" -v b="$ceiling_rps" 'BEGIN {print a / b}')"
+printf '%-28s %12.1f %10.2f %18.4f\n' "point, all parts" "$full_rps" "$full_p99" "$(awk -v a="$full_rps" -v b="$ceiling_rps" 'BEGIN {print a / b}')"
