@@ -14,6 +14,7 @@ public static class ApiHost
         app.UseAtlasPipeline();
         app.MapHealthApi();
         app.MapDatasetApi();
+        app.MapLandMaskApi();
         app.MapPointApi();
         app.MapLayerApi();
         app.MapAreaApi();

@@ -50,4 +50,13 @@ public sealed class DatasetApiTests(AtlasApiFixture atlas)
         var response = await _client.GetAsync("/api/v1/datasets/no-such-coast");
         await Problems.AssertAsync(response, HttpStatusCode.NotFound, "GET /api/v1/datasets");
     }
+
+    [Fact]
+    public async Task LandMaskCoversTheDryCells()
+    {
+        var root = JsonDocument.Parse(await _client.GetStringAsync($"/api/v1/datasets/{SyntheticAtlas.CoastSlug}/land")).RootElement;
+        Assert.Equal("FeatureCollection", root.GetProperty("type").GetString());
+        Assert.Equal(20, root.GetProperty("dry_cell_count").GetInt32());  // the two dry columns of ten rows
+        Assert.Equal("MultiPolygon", root.GetProperty("features")[0].GetProperty("geometry").GetProperty("type").GetString());
+    }
 }

@@ -56,6 +56,31 @@ public sealed class PointApiTests(AtlasApiFixture atlas)
         }
     }
 
+    [Theory]
+    [InlineData(5, 4)]
+    [InlineData(3, 7)]
+    [InlineData(0, 0)]
+    public async Task PointMeansEqualTheStatisticsServiceRowsOfTheSameSeries(int i, int j)
+    {
+        // The same series with statistics from the layer pass: means, counts and coverage must agree with the exact
+        // point computation (float32 storage: 2e-6 relative); layer percentiles are histogram estimates, not compared.
+        var dataset = (await new Atlas.Storage.Datasets.DatasetStore(atlas.DataSource).FindAsync(SyntheticAtlas.ServiceSlug))!;
+        var stored = (await new StatisticsStore(atlas.DataSource).ForCellAsync(dataset.Id, SyntheticAtlas.CellId(i, j))).ToDictionary(r => (r.Period, r.Parameter));
+        var root = JsonDocument.Parse(await _client.GetStringAsync($"/api/v1/datasets/{SyntheticAtlas.ServiceSlug}/point?{At(i, j)}&include=none")).RootElement;
+        foreach (var period in root.GetProperty("periods").EnumerateArray())
+        {
+            var code = Atlas.Statistics.AtlasPeriod.Parse(period.GetProperty("period").GetString()!).Code;
+            foreach (var (symbol, parameter) in new[] { ("hs", (short)0), ("te", (short)1), ("tp", (short)2), ("j", (short)3), ("spread", (short)5), ("d", (short)6) })
+            {
+                var row = stored[(code, parameter)];
+                var got = period.GetProperty(symbol);
+                Assert.Equal(row.Mean!.Value, got.GetProperty("mean").GetDouble(), Math.Abs(row.Mean.Value) * 2e-6 + 1e-9);
+                Assert.Equal(row.Count, got.GetProperty("count").GetInt64());
+            }
+            Assert.Equal(stored[(code, 4)].Mean!.Value, period.GetProperty("direction").GetProperty("mean").GetDouble(), 1e-3);
+        }
+    }
+
     [Fact]
     public async Task WindowOfOneYearOrOneMonthMatchesThatPeriodsStoredStatistics()
     {

@@ -33,11 +33,13 @@ public static class LayerApi
     }
 
     public static async Task<Results<Ok<LayerCatalogue>, ProblemHttpResult>> ListAsync(string slug, DatasetCatalog catalog,
-        DatasetGeometryQueries geometry, CancellationToken cancel)
+        DatasetGeometryQueries geometry, LayerRenderer renderer, CancellationToken cancel)
     {
         var dataset = await catalog.FindAsync(slug, cancel);
         if (dataset is null) return ApiProblems.UnknownDataset(slug);
-        var combinations = await geometry.LayerCombinationsAsync(dataset.Id, cancel);
+        var combinations = (await geometry.LayerCombinationsAsync(dataset.Id, cancel)).ToList();
+        if (await renderer.HasDepthsAsync(dataset, cancel) && combinations.All(c => c.Parameter != (short)WaveParameter.Depth))
+            combinations.Add(new LayerCombination((short)WaveParameter.Depth, AtlasPeriod.Annual.Code));
         var options = new StatisticsOptions();
         var parameters = combinations
             .Where(c => Enum.IsDefined((WaveParameter)c.Parameter))
@@ -60,14 +62,18 @@ public static class LayerApi
             parameters,
             "Layer percentiles (p10, p50, p90, p99) come from fixed-bin histograms and lie within one bin width (percentile_bin_width, " +
             "in the parameter's unit) of the exact percentiles; point requests compute them exactly from the series. count and coverage " +
-            "are dimensionless (unit 1). dir offers the power-weighted circular mean, count and coverage only.",
+            "are dimensionless (unit 1). dir offers the power-weighted circular mean, the circular spread of directions (sd), count and " +
+            "coverage; depth is the cell depth (mean, annual).",
             AtlasCaution.Text));
     }
 
-    /// <summary>The statistics a parameter's layers have: all for summarised parameters; mean, count, coverage for dir; mean for depth.</summary>
+    /// <summary>
+    /// The statistics a parameter's layers have: all for summarised parameters; for dir the power-weighted mean, the
+    /// circular spread of directions (as sd), count and coverage; for depth the cell depth (as mean).
+    /// </summary>
     public static IReadOnlyList<StatisticKind> StatisticsOf(WaveParameter parameter) => parameter switch
     {
-        WaveParameter.Dir => [StatisticKind.Mean, StatisticKind.Count, StatisticKind.Coverage],
+        WaveParameter.Dir => [StatisticKind.Mean, StatisticKind.Sd, StatisticKind.Count, StatisticKind.Coverage],
         WaveParameter.Depth => [StatisticKind.Mean],
         _ => StatisticKindNames.All,
     };

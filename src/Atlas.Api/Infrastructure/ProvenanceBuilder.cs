@@ -35,7 +35,10 @@ public sealed class ProvenanceBuilder(DatasetStore datasets, DatasetCatalog cata
         var root = metadata.RootElement;
         var method = Method;
         if (Text(root, "depth_note") is { } depthNote) method += " Depth: " + depthNote + ".";
-        if (Text(root, "statistics_method") is { } statisticsNote) method += " " + statisticsNote;
+        // The statistics service records its own method notes (thresholds, bin widths) under "statistics".
+        if (root.ValueKind == JsonValueKind.Object && root.TryGetProperty("statistics", out var notes) && notes.ValueKind == JsonValueKind.Object)
+            foreach (var name in new[] { "energy_period", "percentiles_layers", "coverage" })
+                if (Text(notes, name) is { } note) method += $" {name.Replace('_', ' ')}: {note}.";
         return new Provenance(dataset.Slug, dataset.Title,
             files!.Select(f => new ProvenanceFile(f.FileName, f.Sha256, f.TimeStartUtc, f.TimeEndUtc)).ToArray(),
             Software, SoftwareVersion, stamp.ComputedAtUtc, DateTime.UtcNow, method,

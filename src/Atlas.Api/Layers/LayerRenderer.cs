@@ -62,10 +62,26 @@ public sealed class LayerRenderer(
     {
         var values = await statistics.LayerAsync(dataset.Id, (short)request.Parameter, request.Period.Code,
             ParameterCatalogue.Stored(request.Statistic), cancel: cancel);
+        // Depth is a property of the cell, not a statistic of the series: without stored rows it is the cell depth.
+        if (values.Count == 0 && request.Parameter == WaveParameter.Depth && request.Statistic == StatisticKind.Mean && request.Period == AtlasPeriod.Annual)
+            values = await DepthsAsync(dataset, cancel);
         if (values.Count == 0) return null;
         return new LayerData(dataset, request, values, await provenance.ForAsync(dataset, cancel),
             ParameterCatalogue.UnitOf(request.Parameter, request.Statistic));
     }
+
+    /// <summary>True when some wet cell of the dataset has a depth.</summary>
+    public async Task<bool> HasDepthsAsync(DatasetRecord dataset, CancellationToken cancel) => (await DepthsAsync(dataset, cancel)).Count > 0;
+
+    private async Task<IReadOnlyList<LayerValue>> DepthsAsync(DatasetRecord dataset, CancellationToken cancel) =>
+        (await memory.GetOrCreateAsync(("depths", dataset.Id, dataset.CreatedAtUtc), async entry =>
+        {
+            entry.AbsoluteExpirationRelativeToNow = TimeSpan.FromMinutes(10);
+            return (await cells.AllAsync(dataset.Id, cancel))
+                .Where(c => c.Wet && c.DepthMetres is not null)
+                .Select(c => new LayerValue(c.CellId, c.Longitude, c.Latitude, c.GridI, c.GridJ, c.DepthMetres, c.DepthMetres!.Value))
+                .ToArray();
+        }))!;
 
     /// <summary>The layer on a longitude/latitude raster: one pixel per cell on an even regular grid, else by triangles.</summary>
     public async Task<LayerRaster> RasteriseAsync(LayerData data, CancellationToken cancel)

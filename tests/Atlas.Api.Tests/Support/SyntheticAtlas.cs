@@ -20,6 +20,8 @@ public static class SyntheticAtlas
 {
     public const string CoastSlug = "test-coast";
     public const string MeshSlug = "test-mesh";
+    /// <summary>The same grid and series as <see cref="CoastSlug"/>, with its statistics computed by the statistics service.</summary>
+    public const string ServiceSlug = "test-coast-service";
     public const int Nx = 12, Ny = 10, FirstDryColumn = 10;
     public const double West = 20.0, South = 40.0, Step = 0.1;
     public static readonly int[] Years = [2019, 2020];
@@ -49,11 +51,17 @@ public static class SyntheticAtlas
 
     public static async Task SeedAsync(NpgsqlDataSource dataSource, string workFolder)
     {
-        await SeedCoastAsync(dataSource, workFolder);
+        var wet = await SeedCoastAsync(dataSource, CoastSlug);
+        var rows = await ReferenceRowsAsync(wet, workFolder);
+        await new StatisticsStore(dataSource).ReplaceAsync(await IdOfAsync(dataSource, CoastSlug), wet.Select(c => c.CellId).ToArray(), rows, DateTime.UtcNow);
+        await SeedCoastAsync(dataSource, ServiceSlug);
+        await new Atlas.Ingest.Statistics.StatisticsService(dataSource).RunAsync(ServiceSlug, all: true);
         await SeedMeshAsync(dataSource);
     }
 
-    private static async Task SeedCoastAsync(NpgsqlDataSource dataSource, string workFolder)
+    private static async Task<int> IdOfAsync(NpgsqlDataSource dataSource, string slug) => (await new DatasetStore(dataSource).FindAsync(slug))!.Id;
+
+    private static async Task<List<CellRecord>> SeedCoastAsync(NpgsqlDataSource dataSource, string slug)
     {
         var grid = JsonSerializer.Serialize(new
         {
@@ -74,7 +82,7 @@ public static class SyntheticAtlas
         await using (var connection = await dataSource.OpenConnectionAsync())
         await using (var transaction = await connection.BeginTransactionAsync())
         {
-            datasetId = await DatasetStore.InsertAsync(connection, transaction, CoastSlug, "Synthetic coast", "regular", Nx, Ny, Nx * Ny, grid, metadata, CancellationToken.None);
+            datasetId = await DatasetStore.InsertAsync(connection, transaction, slug, "Synthetic coast", "regular", Nx, Ny, Nx * Ny, grid, metadata, CancellationToken.None);
             var cells = new List<CellRecord>();
             for (var j = 0; j < Ny; j++)
             for (var i = 0; i < Nx; i++)
@@ -101,9 +109,7 @@ public static class SyntheticAtlas
             await CellStore.UpdateCoastDistanceAsync(connection, transaction, datasetId, CancellationToken.None);
             await transaction.CommitAsync();
         }
-
-        var rows = await ReferenceRowsAsync(wet, workFolder);
-        await new StatisticsStore(dataSource).ReplaceAsync(datasetId, wet.Select(c => c.CellId).ToArray(), rows, DateTime.UtcNow);
+        return wet;
     }
 
     /// <summary>One cell-year of invented series: a seasonal swell with noise; column 3 misses every 50th step.</summary>
