@@ -91,6 +91,24 @@ export const CellCanvasLayer = L.Layer.extend({
     return this;
   },
 
+  _landPattern(ctx) {
+    if (this._pattern) return this._pattern;
+    const tile = document.createElement('canvas');
+    tile.width = tile.height = 8;
+    const t = tile.getContext('2d');
+    t.fillStyle = this.options.landColour;
+    t.fillRect(0, 0, 8, 8);
+    t.strokeStyle = this.options.landHatch;
+    t.lineWidth = 1;
+    t.beginPath();
+    t.moveTo(-1, 9); t.lineTo(9, -1);
+    t.moveTo(-1, 1); t.lineTo(1, -1);
+    t.moveTo(7, 9); t.lineTo(9, 7);
+    t.stroke();
+    this._pattern = ctx.createPattern(tile, 'repeat');
+    return this._pattern;
+  },
+
   _paint() {
     const map = this._map;
     if (!map) return;
@@ -101,12 +119,16 @@ export const CellCanvasLayer = L.Layer.extend({
     this._projected ??= this._cells.map(c => ({ id: c.id, pts: projectRing(map, c.ring) }));
     this._projectedLand ??= this._land.map(r => projectRing(map, r));
 
-    // Land: one path, filled once, so neighbouring dry cells show no seams.
+    // Land: one path, filled once (so neighbouring dry cells show no seams), hatched so that it can never be
+    // mistaken for a colour of the scale, and outlined along the coast.
     if (this._projectedLand.length) {
       ctx.beginPath();
       for (const pts of this._projectedLand) tracePath(ctx, pts);
-      ctx.fillStyle = this.options.landColour;
+      ctx.fillStyle = this._landPattern(ctx);
       ctx.fill('nonzero');
+      ctx.strokeStyle = this.options.landEdge;
+      ctx.lineWidth = 1;
+      ctx.stroke();
     }
 
     const highlight = this._highlight;

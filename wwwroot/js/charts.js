@@ -21,7 +21,7 @@ function valuesTable(headers, rows) {
 /** A figure holding a uPlot chart; the chart is created once the figure is in the document (it needs a width). */
 function chartFigure(caption, build, table, note) {
   const target = el('div', { class: 'chart', role: 'img', 'aria-label': caption });
-  const figure = el('figure', { class: 'chart-figure' }, el('figcaption', {}, caption), target,
+  const figure = el('figure', { class: 'chart-figure' }, target, el('figcaption', {}, caption),
     note ? el('p', { class: 'chart-note' }, note) : null, table);
   figure.mount = () => {
     const plot = build(target, chartWidth(figure.parentElement || figure));

@@ -41,7 +41,7 @@ export function drawColourBar(container, { title, units, scale, lo, hi, cyclic, 
     'aria-label': `Colour scale from ${number(lo, 3)} to ${number(hi, 3)} ${units}` });
   bar.style.background = scale.gradient();
   const keys = el('ul', { class: 'legend-keys' });
-  if (land) keys.append(el('li', {}, el('span', { class: 'swatch', style: `background:${land}` }), 'land (dry cells)'));
+  if (land) keys.append(el('li', {}, el('span', { class: 'swatch land' }), 'land (dry cells)'));
   keys.append(el('li', {}, el('span', { class: 'swatch extent' }), 'dataset extent'));
   if (highlight) keys.append(el('li', {}, el('span', { class: 'swatch outline' }), 'meets the screening criteria'));
   container.replaceChildren(

@@ -1,8 +1,8 @@
 // Colour scales of the atlas, defined in OKLab (a perceptual colour space) and resampled so that equal steps of the
 // scale are equal perceived colour differences (equal Euclidean distance in OKLab, the space's ΔE).
 //
-// "seabed to foam" (sequential): lightness rises linearly from 0.22 to 0.95 while the hue turns from deep violet-blue
-// through teal and green to a pale straw yellow; chroma swells in the middle. Lightness is monotonic, so the order of
+// "seabed to foam" (sequential): lightness rises linearly from 0.20 to 0.93 while the hue turns from deep indigo
+// through blue and cyan to a pale sea-foam green and ends on sand; chroma swells in the middle. Lightness is monotonic, so the order of
 // values survives greyscale printing and the common colour-vision deficiencies.
 // "compass" (cyclic, for directions): constant lightness and chroma, hue once round the circle, so 359° and 1° meet.
 //
@@ -87,9 +87,9 @@ function equalDifferenceTable(path, closed) {
 }
 
 function seabedToFoam(t) {
-  const L = 0.22 + 0.73 * t;
-  const h = 285 - 195 * t;
-  const C = 0.075 + 0.085 * Math.sin(Math.PI * Math.min(1, t * 1.1));
+  const L = 0.20 + 0.73 * t;
+  const h = 290 - 215 * Math.pow(t, 1.4);
+  const C = 0.07 + 0.08 * Math.sin(Math.PI * t);
   return fitLch(L, C, h);
 }
 

@@ -17,6 +17,12 @@ const formats = [
 
 const parameterOrder = ['j', 'hs', 'te', 'tp', 'dir', 'spread', 'd', 'depth'];
 
+// Short labels for the selector; a parameter this list lacks is labelled from the catalogue.
+const parameterLabels = {
+  j: 'Wave power J', hs: 'Significant wave height Hs', te: 'Energy period Te', tp: 'Peak period Tp',
+  dir: 'Mean wave direction', spread: 'Directional spread', d: 'Directionality coefficient', depth: 'Depth',
+};
+
 function capitalised(text) {
   return text ? text[0].toUpperCase() + text.slice(1) : text;
 }
@@ -68,7 +74,7 @@ export class LayerView {
     this.parameters = [...catalogue.parameters].sort((a, b) => parameterOrder.indexOf(a.symbol) - parameterOrder.indexOf(b.symbol));
     this.statisticNames = Object.fromEntries(catalogue.statistics.map(s => [s.name, s.description]));
     this.parameterSelect.replaceChildren(...this.parameters.map(p =>
-      el('option', { value: p.symbol }, `${p.symbol} – ${capitalised(p.name)} (${p.units})`)));
+      el('option', { value: p.symbol, title: p.name }, `${parameterLabels[p.symbol] ?? capitalised(p.name)} (${p.units})`)));
     const choice = this.resolve(initial);
     this.parameterSelect.value = choice.parameter;
     this.fillStatisticAndPeriod(choice);
@@ -88,7 +94,7 @@ export class LayerView {
     const keepStatistic = choice?.statistic ?? this.statisticSelect.value;
     const keepPeriod = choice?.period ?? this.periodSelect.value;
     this.statisticSelect.replaceChildren(...parameter.statistics.map(s =>
-      el('option', { value: s }, `${s} – ${this.statisticNames[s] ?? s}`)));
+      el('option', { value: s }, !this.statisticNames[s] || this.statisticNames[s].startsWith(s) ? capitalised(this.statisticNames[s] ?? s) : `${capitalised(this.statisticNames[s])} (${s})`)));
     this.statisticSelect.value = parameter.statistics.includes(keepStatistic) ? keepStatistic : parameter.statistics.includes('mean') ? 'mean' : parameter.statistics[0];
     const groups = [
       ['Whole record', parameter.periods.filter(p => p === 'annual')],
@@ -135,6 +141,7 @@ export class LayerView {
     }
     this.halfSide = this.typicalHalfSide(cells);
     this.atlas.cells.setCells(cells);
+    this.atlas.showCellExtent(cells);
     this.apply(choice, values);
   }
 

@@ -12,7 +12,7 @@ import { PointPanel } from './point-panel.js';
 import { Screening } from './screening.js';
 
 const started = performance.now();
-const colours = { land: '#cdc5b4', landEdge: '#7d735f', extent: '#25323d', highlight: '#c8006f', highlightHalo: '#ffffff' };
+const colours = { land: '#d8d2c4', landHatch: '#a39a86', landEdge: '#6f6552', extent: '#25323d', highlight: '#c8006f', highlightHalo: '#ffffff' };
 
 function readHash() {
   const params = new URLSearchParams(location.hash.slice(1));
@@ -139,12 +139,12 @@ class Atlas {
       L.tileLayer(base.url, { attribution: base.attribution ?? '', maxZoom: base.maxZoom ?? 18, opacity: base.opacity ?? 1 }).addTo(map);
     }
     this.cells = new CellCanvasLayer({
-      landColour: colours.land, highlightColour: colours.highlight, highlightHalo: colours.highlightHalo, dimAlpha: 0.35,
+      landColour: colours.land, landHatch: colours.landHatch, landEdge: colours.landEdge, highlightColour: colours.highlight, highlightHalo: colours.highlightHalo, dimAlpha: 0.35,
     }).addTo(map);
     if (extent) {
       const bounds = L.latLngBounds([extent.south, extent.west], [extent.north, extent.east]);
       this.extentBounds = bounds;
-      L.rectangle(bounds, { color: colours.extent, weight: 1.5, dashArray: '6 4', fill: false, interactive: false }).addTo(map);
+      this.extentRectangle = L.rectangle(bounds, { color: colours.extent, weight: 1.5, dashArray: '6 4', fill: false, interactive: false }).addTo(map);
       map.fitBounds(bounds.pad(0.04));
     } else {
       map.setView([0, 0], 2);
@@ -164,10 +164,25 @@ class Atlas {
     });
   }
 
+  /** Moves the extent outline from the cell centres (the API's extent) to the outer edges of the cell footprints. */
+  showCellExtent(cells) {
+    if (!this.extentRectangle || !cells.length) return;
+    let west = Infinity, east = -Infinity, south = Infinity, north = -Infinity;
+    for (const { ring } of cells) for (let k = 0; k < ring.length; k += 2) {
+      west = Math.min(west, ring[k]); east = Math.max(east, ring[k]);
+      south = Math.min(south, ring[k + 1]); north = Math.max(north, ring[k + 1]);
+    }
+    this.extentRectangle.setBounds(L.latLngBounds([south, west], [north, east]));
+  }
+
   /** Shows or hides the point column (wide screens) and lets the map use the space. */
-  setPointPanelOpen(open) {
+  setPointPanelOpen(open, keepInView) {
     this.workspace.classList.toggle('with-point', open);
-    requestAnimationFrame(() => this.map.invalidateSize({ pan: false }));
+    requestAnimationFrame(() => {
+      this.map.invalidateSize({ pan: false });
+      // The map is narrower with the panel open: bring the read position back into view if it fell outside.
+      if (keepInView && !this.map.getBounds().pad(-0.05).contains(keepInView)) this.map.panTo(keepInView, { animate: false });
+    });
   }
 
   writeHash(layer, point = this.point?.position) {

@@ -57,7 +57,7 @@ export class PointPanel {
     const serial = ++this.serial;
     this.position = { lat, lon };
     this.panel.hidden = false;
-    this.atlas.setPointPanelOpen(true);
+    this.atlas.setPointPanelOpen(true, L.latLng(lat, lon));
     this.markers.clearLayers();
     L.circleMarker([lat, lon], { radius: 5, color: '#111', weight: 2, fillColor: '#fff', fillOpacity: 1, interactive: false }).addTo(this.markers);
     this.body.replaceChildren(el('p', { class: 'muted' }, `Reading ${position(lat, lon)}…`));
@@ -162,23 +162,25 @@ export class PointPanel {
 
   summaryTable(period) {
     if (!period) return el('p', { class: 'muted' }, 'No period.');
-    const head = ['', 'mean', 'p10', 'p50', 'p90', 'p99', 'max', 'coverage'];
+    const head = ['', 'mean', 'p10', 'p50', 'p90', 'p99', 'max'];
     const body = rows.map(([key, label, units]) => {
       const s = period[key];
       return el('tr', { 'data-parameter': key },
         el('th', { scope: 'row' }, `${label} (${units})`),
-        ...['mean', 'p10', 'p50', 'p90', 'p99', 'max'].map(k => el('td', { 'data-statistic': k }, number(s?.[k]))),
-        el('td', {}, percent(s?.coverage, 0)));
+        ...['mean', 'p10', 'p50', 'p90', 'p99', 'max'].map(k => el('td', { 'data-statistic': k }, number(s?.[k]))));
     });
     const d = period.direction;
     body.push(el('tr', { 'data-parameter': 'dir' },
       el('th', { scope: 'row' }, 'Direction (° from)'),
       el('td', { 'data-statistic': 'mean' }, fixed(d?.mean, 0)),
-      el('td', { colspan: '5', class: 'muted' }, d?.spread == null ? '' : `power-weighted; spread of directions ${fixed(d.spread, 0)}°`),
-      el('td', {}, percent(d?.coverage, 0))));
+      el('td', { colspan: '5', class: 'muted' }, d?.spread == null ? '' : `power-weighted mean; spread ${fixed(d.spread, 0)}°`)));
+    const coverages = [...rows.map(([key, label]) => [label, period[key]?.coverage]), ['Direction', d?.coverage]];
+    const same = coverages.every(([, c]) => c === coverages[0][1]);
+    const coverageText = same ? `coverage ${percent(coverages[0][1], 0)}`
+      : 'coverage ' + coverages.map(([label, c]) => `${label} ${percent(c, 0)}`).join(', ');
     return el('div', { class: 'table-scroll' }, el('table', { class: 'stats-table', id: 'point-stats' },
-      el('caption', {}, `${periodName(period.period)}: ${period.expected_steps.toLocaleString('en-GB')} steps expected` +
-        (period.low_coverage ? ' — low coverage, read with care' : '') + '. Percentiles exact from the series.'),
+      el('caption', {}, `${periodName(period.period)}: ${period.expected_steps.toLocaleString('en-GB')} steps expected, ${coverageText}` +
+        (period.low_coverage ? ' — low coverage, read with care' : '') + '. Percentiles are exact, from the series.'),
       el('thead', {}, el('tr', {}, head.map(h => el('th', { scope: 'col' }, h)))),
       el('tbody', {}, body)));
   }

@@ -1,0 +1,63 @@
+using Microsoft.Playwright;
+
+namespace Atlas.Browser.Tests;
+
+[Collection(AtlasSiteCollection.Name)]
+public class PageLoadTests(AtlasSite site)
+{
+    [Fact]
+    public async Task PageLoadsTheDemoWithoutConsoleErrors()
+    {
+        await using var session = await site.OpenAsync();
+        var page = session.Page;
+        await page.WaitForFunctionAsync("() => window.atlasPage.hasLand && Number(document.querySelector('canvas.cell-canvas').dataset.draws) > 0");
+
+        Assert.Empty(session.Errors);
+        Assert.Contains("Browser test coast", await page.TextContentAsync("#dataset-title"));
+        Assert.True(await page.Locator("canvas.cell-canvas").IsVisibleAsync());
+        Assert.Contains("kW/m", await page.TextContentAsync("#legend-title"));
+
+        // The page draws the sea cells in colour: an offshore cell is opaque on the canvas.
+        var cell = await SeaCells.OffshoreAsync(site.Http);
+        var rgba = await PageMap.CanvasColourAtAsync(page, cell.Lat, cell.Lon);
+        Assert.Equal(255, rgba[3]);
+
+        // Every sea cell of the API's layer is on the map, with the API's value.
+        var layer = await SeaCells.LayerAsync(site.Http, "j", "mean", "annual");
+        var drawn = await page.EvaluateAsync<int>("() => window.atlasPage.layers.current.values.size");
+        Assert.Equal(layer.Count, drawn);
+        var value = await page.EvaluateAsync<double>($"() => window.atlasPage.layers.current.values.get({cell.Id})");
+        Assert.Equal(cell.Value, value, 4);
+
+        await page.ScreenshotAsync(new PageScreenshotOptions { Path = Path.Combine(site.ScreenshotFolder, "wide-layer.png") });
+    }
+
+    [Fact]
+    public async Task CautionTextIsVisibleAndIsTheApisOwn()
+    {
+        await using var session = await site.OpenAsync();
+        var datasets = await PageMap.GetJsonAsync(site.Http, "/api/v1/datasets");
+        var caution = datasets.GetProperty("caution").GetString()!;
+        Assert.Contains("not a design basis", caution);
+        var shown = session.Page.Locator("#caution");
+        Assert.True(await shown.IsVisibleAsync());
+        Assert.Contains(caution, await shown.TextContentAsync());
+        var box = await shown.BoundingBoxAsync();
+        Assert.NotNull(box);
+        Assert.True(box.Y < 120, $"the caution sits {box.Y} px down; it belongs at the top of the page");
+    }
+
+    [Fact]
+    public async Task LandMaskIsTheDatasetsDryCells()
+    {
+        await using var session = await site.OpenAsync();
+        var page = session.Page;
+        await page.WaitForFunctionAsync("() => window.atlasPage.hasLand");
+        var land = await PageMap.GetJsonAsync(site.Http, $"/api/v1/datasets/{AtlasSite.Slug}/land");
+        var detail = await PageMap.GetJsonAsync(site.Http, $"/api/v1/datasets/{AtlasSite.Slug}");
+        // Every grid cell is either wet or dry: the land mask holds exactly the cells that are not sea.
+        Assert.Equal(detail.GetProperty("point_count").GetInt32() - detail.GetProperty("wet_cell_count").GetInt32(),
+            land.GetProperty("dry_cell_count").GetInt32());
+        Assert.Empty(session.Errors);
+    }
+}
