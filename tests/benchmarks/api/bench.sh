@@ -15,13 +15,13 @@ threads=${THREADS:-2}
 base="http://127.0.0.1:$port"
 command -v wrk >/dev/null || { echo "bench: wrk is not installed (apt-get install -y wrk)" >&2; exit 2; }
 
-atlas="$top/src/Atlas.Cli/bin/Release/net10.0/atlas"
-if [ ! -x "$atlas" ]; then
+atlas=${ATLAS_BIN:-"$top/src/Atlas.Cli/bin/Release/net10.0/atlas"}
+if [ -z "${ATLAS_BIN:-}" ]; then  # keep the Release build current
   dotnet build "$top/src/Atlas.Cli" -c Release -v quiet -nologo >/dev/null
 fi
 
 log=$(mktemp)
-ASPNETCORE_URLS="$base" AtlasApiOptions__ExpensiveRequestsPerMinute=100000000 Logging__LogLevel__Default=Warning \
+ASPNETCORE_URLS="$base" AtlasApiOptions__ExpensiveRequestsPerMinute=1000000 Logging__LogLevel__Default=Warning \
   "$atlas" serve >"$log" 2>&1 &
 server=$!
 trap 'kill "$server" 2>/dev/null || true; wait "$server" 2>/dev/null || true; rm -f "$log"' EXIT
@@ -31,10 +31,15 @@ for _ in $(seq 1 120); do
   sleep 0.5
 done
 
-slug=${SLUG:-$(curl -fsS "$base/api/v1/datasets" | /usr/bin/python3 -c 'import json,sys; print(json.load(sys.stdin)["datasets"][0]["slug"])')}
-# A wet cell of the dataset: the first one the screening endpoint returns with no criteria.
-read -r lon lat < <(curl -fsS "$base/api/v1/datasets/$slug/screen" |
-  /usr/bin/python3 -c 'import json,sys; f=json.load(sys.stdin)["features"]; c=f[len(f)//2]["geometry"]["coordinates"]; print(c[0], c[1])')
+# The dataset (SLUG, or the first with computed statistics) and a wet cell of it: the middle one the screening
+# endpoint returns with no criteria (it lists the cells that have an annual mean power).
+lon=""; lat=""
+for candidate in ${SLUG:-$(curl -fsS "$base/api/v1/datasets" | /usr/bin/python3 -c 'import json,sys; print(" ".join(d["slug"] for d in json.load(sys.stdin)["datasets"]))')}; do
+  read -r lon lat < <(curl -fsS "$base/api/v1/datasets/$candidate/screen" |
+    /usr/bin/python3 -c 'import json,sys; f=json.load(sys.stdin)["features"]; c=f[len(f)//2]["geometry"]["coordinates"] if f else ["",""]; print(c[0], c[1])') || true
+  if [ -n "$lon" ]; then slug=$candidate; break; fi
+done
+[ -n "$lon" ] || { echo "bench: no dataset with statistics; run bash deploy/demo.sh first" >&2; exit 1; }
 point="$base/api/v1/datasets/$slug/point?lat=$lat&lon=$lon"
 curl -fsS "$point&include=none" >/dev/null   # warm up the dataset caches once
 
