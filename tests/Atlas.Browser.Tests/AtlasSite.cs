@@ -3,6 +3,7 @@ using System.Net.Sockets;
 using Atlas.Api;
 using Atlas.Api.Apis;
 using Atlas.Demo;
+using Atlas.Ingest.Assessment;
 using Atlas.Ingest.Ingestion;
 using Atlas.Ingest.Statistics;
 using Atlas.Storage;
@@ -54,6 +55,12 @@ public sealed class AtlasSite : IAsyncLifetime
         var files = output.Scenario.FieldFiles.Select(f => Path.Combine(_demoFolder, f)).ToArray();
         await new HindcastIngestor(_database.DataSource).RunAsync(new IngestRequest(Slug, files, "Browser test coast (invented)"));
         await new StatisticsService(_database.DataSource).RunAsync(Slug, all: true);
+        // The demo's invented buoys and device, registered as 'atlas demo' does, so the point panel has validation and yield.
+        var (stations, device) = DemoReferenceFiles.Read(_demoFolder, DemoScenario.ManifestFileName);
+        foreach (var s in stations)
+            await new StationLoader(_database.DataSource).LoadAsync(
+                new StationLoadRequest(s.Name, s.Latitude, s.Longitude, s.DepthMetres, s.Instrument, s.Role, s.FilePath));
+        await new DeviceLoader(_database.DataSource).LoadAsync(device.Name, device.FilePath, device.RatedPowerKw);
 
         BaseUrl = $"http://127.0.0.1:{FreeLoopbackPort()}";
         _app = ApiHost.Build([

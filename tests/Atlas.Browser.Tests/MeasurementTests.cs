@@ -21,7 +21,14 @@ public class MeasurementTests(AtlasSite site, ITestOutputHelper output)
             await using var session = await site.OpenAsync();
             var page = session.Page;
             await page.WaitForFunctionAsync("() => document.body.dataset.firstLayerMs && window.atlasPage.hasLand");
-            await page.WaitForLoadStateAsync(Microsoft.Playwright.LoadState.NetworkIdle);
+            // Every request of the first view has ended when the list of finished resources stops growing for 400 ms.
+            await page.EvaluateAsync("""
+                () => new Promise(done => {
+                  let count = -1;
+                  const check = () => { const now = performance.getEntriesByType('resource').length; if (now === count) done(); else { count = now; setTimeout(check, 400); } };
+                  check();
+                })
+                """);
             var firstLayer = double.Parse((await page.GetAttributeAsync("body", "data-first-layer-ms"))!, CultureInfo.InvariantCulture);
             var bytes = await page.EvaluateAsync<double[]>("""
                 () => {

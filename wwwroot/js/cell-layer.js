@@ -119,6 +119,33 @@ export const CellCanvasLayer = L.Layer.extend({
     this._projected ??= this._cells.map(c => ({ id: c.id, pts: projectRing(map, c.ring) }));
     this._projectedLand ??= this._land.map(r => projectRing(map, r));
 
+    const highlight = this._highlight;
+    const paintCell = cell => {
+      const colour = this._colourOf(cell.id);
+      if (!colour) return;
+      ctx.beginPath();
+      tracePath(ctx, cell.pts);
+      ctx.fillStyle = colour;
+      ctx.fill();
+      // A hairline in the same colour closes the anti-aliasing gaps between neighbouring cells.
+      ctx.strokeStyle = colour;
+      ctx.lineWidth = 0.6;
+      ctx.stroke();
+    };
+    if (this._colourOf) {
+      for (const cell of this._projected) paintCell(cell);
+      if (highlight) {
+        // One pale veil over the whole sea, then the matching cells again at full colour: no seams between dimmed cells.
+        let x0 = Infinity, y0 = Infinity, x1 = -Infinity, y1 = -Infinity;
+        for (const { pts } of this._projected) for (let k = 0; k < pts.length; k += 2) {
+          x0 = Math.min(x0, pts[k]); x1 = Math.max(x1, pts[k]); y0 = Math.min(y0, pts[k + 1]); y1 = Math.max(y1, pts[k + 1]);
+        }
+        ctx.fillStyle = this.options.veil;
+        ctx.fillRect(x0, y0, x1 - x0, y1 - y0);
+        for (const cell of this._projected) if (highlight.has(cell.id)) paintCell(cell);
+      }
+    }
+
     // Land: one path, filled once (so neighbouring dry cells show no seams), hatched so that it can never be
     // mistaken for a colour of the scale, and outlined along the coast.
     if (this._projectedLand.length) {
@@ -129,25 +156,6 @@ export const CellCanvasLayer = L.Layer.extend({
       ctx.strokeStyle = this.options.landEdge;
       ctx.lineWidth = 1;
       ctx.stroke();
-    }
-
-    const highlight = this._highlight;
-    const dimmed = highlight ? this.options.dimAlpha : 1;
-    if (this._colourOf) {
-      for (const cell of this._projected) {
-        const colour = this._colourOf(cell.id);
-        if (!colour) continue;
-        ctx.globalAlpha = highlight && !highlight.has(cell.id) ? dimmed : 1;
-        ctx.beginPath();
-        tracePath(ctx, cell.pts);
-        ctx.fillStyle = colour;
-        ctx.fill();
-        // A hairline in the same colour closes the anti-aliasing gaps between neighbouring cells.
-        ctx.strokeStyle = colour;
-        ctx.lineWidth = 0.6;
-        ctx.stroke();
-      }
-      ctx.globalAlpha = 1;
     }
 
     if (highlight) {

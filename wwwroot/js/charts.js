@@ -45,7 +45,7 @@ export function monthlyMeansChart(periods) {
   const labels = months.map(m => m[0].toUpperCase() + m.slice(1));
   const build = (target, width) => new uPlot({
     width, height: 200,
-    legend: { show: true },
+    legend: { show: true, live: false },
     cursor: { drag: { x: false, y: false } },
     scales: { x: { time: false, range: [0.5, 12.5] }, j: { range: (u, lo, hi) => [0, hi * 1.08 || 1] }, hs: { range: (u, lo, hi) => [0, hi * 1.15 || 1] } },
     series: [
@@ -72,6 +72,7 @@ export function exceedanceChart(curve, { label, units, colour }) {
   const y = curve.fractions.slice(0, x.length).map(f => 100 * f);
   const build = (target, width) => new uPlot({
     width, height: 170,
+    legend: { show: false },
     cursor: { drag: { x: false, y: false } },
     scales: { x: { time: false }, y: { range: [0, 100] } },
     series: [
@@ -99,6 +100,7 @@ export function interAnnualChart(series) {
   const j = years.map(y => y.j), hs = years.map(y => y.hs);
   const build = (target, width) => new uPlot({
     width, height: 180,
+    legend: { show: true, live: false },
     cursor: { drag: { x: false, y: false } },
     scales: { x: { time: false, range: [x[0] - 0.6, x[x.length - 1] + 0.6] }, j: { range: (u, lo, hi) => [0, hi * 1.1 || 1] }, hs: { range: (u, lo, hi) => [0, hi * 1.2 || 1] } },
     series: [

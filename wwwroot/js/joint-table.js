@@ -26,9 +26,9 @@ export function jointOccurrenceTable(joint) {
 
   const hsW = joint.hs_bin_width_metres, teW = joint.te_bin_width_seconds;
   const table = el('table', { class: 'joint-table' });
-  table.append(el('caption', {},
+  const caption = el('p', { class: 'muted', id: 'joint-caption' },
     `Share of time (%) in each Hm0 × Te bin (${fixed(hsW, 1)} m × ${fixed(teW, 1)} s; a bin holds its lower edge), ` +
-    `${joint.total_count.toLocaleString('en-GB')} steps. Hover over a bin for its mean power and share of energy.`));
+    `${joint.total_count.toLocaleString('en-GB')} steps. Hover over a bin for its mean power and share of energy.`);
   const head = el('tr', {}, el('th', { scope: 'col', class: 'corner' }, 'Hs (m) \\ Te (s)'));
   for (let c = c0; c <= c1; c++) head.append(el('th', { scope: 'col' }, fixed(joint.te_bin_lower_edges[c], 0)));
   table.append(el('thead', {}, head));
@@ -54,5 +54,6 @@ export function jointOccurrenceTable(joint) {
     body.append(tr);
   }
   table.append(body);
-  return el('div', { class: 'table-scroll', tabindex: '0', role: 'region', 'aria-label': 'Joint occurrence of Hm0 and Te' }, table);
+  return el('div', {}, caption,
+    el('div', { class: 'table-scroll', tabindex: '0', role: 'region', 'aria-labelledby': 'joint-caption' }, table));
 }

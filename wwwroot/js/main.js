@@ -40,7 +40,8 @@ function landRings(geojson) {
 
 /** The API paths this server documents (its OpenAPI document), so optional endpoints are asked for only when present. */
 function documentedPaths() {
-  return getJson('/swagger/v1/swagger.json').then(d => new Set(Object.keys(d.paths ?? {}))).catch(() => new Set());
+  const document_ = window.atlasBoot?.openApi ?? getJson('/swagger/v1/swagger.json');
+  return document_.then(d => new Set(Object.keys(d.paths ?? {}))).catch(() => new Set());
 }
 
 class Atlas {
@@ -61,7 +62,10 @@ class Atlas {
 
   async start() {
     const hash = readHash();
-    const [config, list] = await Promise.all([getJson('/config.json').catch(() => ({})), getJson(`${apiRoot}/datasets`)]);
+    const boot = window.atlasBoot ?? {};
+    const [config, list] = await Promise.all([
+      (boot.config ?? getJson('/config.json')).catch(() => ({})), boot.datasets ?? getJson(`${apiRoot}/datasets`)]);
+    const early = await (boot.first ?? Promise.resolve(null)).catch(() => null);
     this.config = config;
     if (list.caution) document.getElementById('caution-text').textContent = list.caution;
     if (!list.datasets.length) {
@@ -84,11 +88,14 @@ class Atlas {
     // Everything the first picture needs, at once: the first layer (footprints and values in one document), the
     // layer catalogue, the dataset description and the land mask.
     const wish = { parameter: hash.parameter ?? 'j', statistic: hash.statistic ?? 'mean', period: hash.period ?? 'annual' };
-    const firstLayer = getJson(layerUrl(this.slug, wish.parameter, wish.statistic, wish.period, 'geojson') + '?geometry=polygon');
+    const fromBoot = early && early.slug === this.slug;
+    const firstLayer = fromBoot ? early.layerDocument
+      : getJson(layerUrl(this.slug, wish.parameter, wish.statistic, wish.period, 'geojson') + '?geometry=polygon');
     firstLayer.catch(() => {});
     this.endpoints = documentedPaths();
     const land = this.endpoints.then(paths => paths.has(`${apiRoot}/datasets/{slug}/land`) ? getJson(`${datasetUrl(this.slug)}/land`) : null);
-    const [catalogue, detail] = await Promise.all([getJson(`${datasetUrl(this.slug)}/layers`), getJson(datasetUrl(this.slug))]);
+    const [catalogue, detail] = await Promise.all([
+      fromBoot ? early.catalogue : getJson(`${datasetUrl(this.slug)}/layers`), fromBoot ? early.detail : getJson(datasetUrl(this.slug))]);
     this.detail = detail;
     this.catalogue = catalogue;
     if (detail.caution) document.getElementById('caution-text').textContent = detail.caution;
@@ -139,7 +146,7 @@ class Atlas {
       L.tileLayer(base.url, { attribution: base.attribution ?? '', maxZoom: base.maxZoom ?? 18, opacity: base.opacity ?? 1 }).addTo(map);
     }
     this.cells = new CellCanvasLayer({
-      landColour: colours.land, landHatch: colours.landHatch, landEdge: colours.landEdge, highlightColour: colours.highlight, highlightHalo: colours.highlightHalo, dimAlpha: 0.35,
+      landColour: colours.land, landHatch: colours.landHatch, landEdge: colours.landEdge, highlightColour: colours.highlight, highlightHalo: colours.highlightHalo, veil: 'rgba(243, 245, 246, 0.68)',
     }).addTo(map);
     if (extent) {
       const bounds = L.latLngBounds([extent.south, extent.west], [extent.north, extent.east]);
@@ -197,7 +204,7 @@ class Atlas {
     const list = document.getElementById('about-list');
     const time = detail.time ?? {};
     const years = time.years?.length ? `${time.years[0]}–${time.years[time.years.length - 1]}` : '–';
-    const step = time.step_seconds ? `${number(time.step_seconds / 3600)} h` : '–';
+    const step = time.step_seconds ? `${Number((time.step_seconds / 3600).toFixed(2))} h` : '–';
     const extent = detail.extent;
     const rows = [
       ['Grid', `${detail.grid_kind}${detail.nx ? ` ${detail.nx} × ${detail.ny}` : ''}`],

@@ -61,6 +61,7 @@ export class PointPanel {
     this.markers.clearLayers();
     L.circleMarker([lat, lon], { radius: 5, color: '#111', weight: 2, fillColor: '#fff', fillOpacity: 1, interactive: false }).addTo(this.markers);
     this.body.replaceChildren(el('p', { class: 'muted' }, `Reading ${position(lat, lon)}…`));
+    this.body.dataset.assessments = 'pending';
     this.atlas.writeHash(this.atlas.layers?.current, this.position);
     const urls = this.urls(lat, lon);
     try {
@@ -68,6 +69,8 @@ export class PointPanel {
       if (serial !== this.serial) return;
       this.render(point, urls, lat, lon);
       this.outlineCell(point.cell);
+      // On a narrow screen the panel lies under the map: bring its first lines into view.
+      if (window.matchMedia('(max-width: 900px)').matches) this.panel.querySelector('.point-head').scrollIntoView({ block: 'nearest' });
       const endpoints = await this.atlas.endpoints;
       if (serial === this.serial) await renderAssessments(this.body, this.atlas, point, endpoints, () => serial === this.serial);
     } catch (error) {

@@ -6,6 +6,14 @@ import { el, number, periodName } from './format.js';
 
 const fields = ['min_power_kw_m', 'min_depth_m', 'max_depth_m', 'max_coast_distance_km', 'max_hs_p90_m'];
 
+const criterionText = {
+  min_power_kw_m: v => `mean power ≥ ${v} kW/m`,
+  min_depth_m: v => `depth ≥ ${v} m`,
+  max_depth_m: v => `depth ≤ ${v} m`,
+  max_coast_distance_km: v => `≤ ${v} km from the coast`,
+  max_hs_p90_m: v => `Hs p90 ≤ ${v} m`,
+};
+
 export class Screening {
   constructor(atlas) {
     this.atlas = atlas;
@@ -49,7 +57,7 @@ export class Screening {
           ` cell${answer.count === 1 ? '' : 's'} meet${answer.count === 1 ? 's' : ''} every criterion, covering `,
           el('strong', { 'data-field': 'screen-area' }, `${number(answer.total_area_km2)} km²`), '.'),
         el('p', { class: 'muted' }, `${periodName(answer.criteria?.period ?? criteria.period)}; ` +
-          (stated.length ? stated.map(([k, v]) => `${k.replaceAll('_', ' ')} ${v}`).join(', ') : 'no criterion given: every wet cell with statistics') + '.'),
+          (stated.length ? stated.map(([k, v]) => criterionText[k]?.(v) ?? `${k} ${v}`).join(', ') : 'no criterion given: every wet cell with statistics') + '.'),
         el('a', { class: 'button-link', href: url, download: `${this.atlas.slug}_screening.geojson`, 'data-link': 'screen-geojson' },
           'Download these cells (GeoJSON)'));
     } catch (error) {
