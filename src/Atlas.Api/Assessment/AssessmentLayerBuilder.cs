@@ -42,11 +42,15 @@ public sealed class AssessmentLayerBuilder(NpgsqlDataSource dataSource)
         var key = $"assessment/yield/{device.Slug}-{device.Id}-{device.CreatedAtUtc.Ticks:x}/{reading}";
         return CachedAsync(dataset, key, async () =>
         {
-            var (ids, rows) = await ComputeAsync(dataset, [SeriesVariable.Hs, SeriesVariable.Te, SeriesVariable.Tp], 4, (hs, te, tp, output) =>
+            var stored = await StoredVariablesAsync(dataset, cancel);
+            var wanted = device.AxisKind == DeviceAxisKind.Te ? SeriesVariable.Te : SeriesVariable.Tp;
+            var other = wanted == SeriesVariable.Te ? SeriesVariable.Tp : SeriesVariable.Te;
+            SeriesVariable[] variables = stored.Contains(wanted) || !stored.Contains(other) ? [SeriesVariable.Hs, wanted] : [SeriesVariable.Hs, other];
+            var (ids, rows) = await ComputeAsync(dataset, variables, 4, (hs, te, tp, output) =>
             {
                 var period = device.AxisKind == DeviceAxisKind.Te ? te ?? Convert(tp, p => PeriodConversion.EnergyPeriodFromPeakPeriod(p))
                                                                   : tp ?? Convert(te, p => PeriodConversion.PeakPeriodFromEnergyPeriod(p));
-                if (period is null) { output.Fill(double.NaN); return; }
+                if (period is null) { Array.Fill(output, double.NaN); return; }
                 var y = DeviceYield.FromSeries(matrix, hs, period, matrix.PeriodKind, new YieldOptions { Interpolation = interpolation });
                 output[0] = y.AnnualEnergyMwh;
                 output[1] = y.CapacityFactor;
@@ -73,7 +77,7 @@ public sealed class AssessmentLayerBuilder(NpgsqlDataSource dataSource)
             var variables = limits.TpLimitSeconds is null ? new[] { SeriesVariable.Hs } : [SeriesVariable.Hs, SeriesVariable.Tp];
             var (ids, rows) = await ComputeAsync(dataset, variables, requiredHours is null ? 1 : 2, (hs, _, tp, output) =>
             {
-                if (limits.TpLimitSeconds is not null && tp is null) { output.Fill(double.NaN); return; }
+                if (limits.TpLimitSeconds is not null && tp is null) { Array.Fill(output, double.NaN); return; }
                 var fraction = Accessibility.Of(hs.Values, tp is null ? default : tp.Values, limits).Fraction;
                 if (requiredHours is not { } hours) { output[0] = fraction; return; }
                 var windows = WeatherWindowAnalysis.Analyse(hs, tp, limits, hours);
@@ -94,7 +98,7 @@ public sealed class AssessmentLayerBuilder(NpgsqlDataSource dataSource)
         }, cancel);
     }
 
-    private delegate void CellAnalysis(RegularSeries hs, RegularSeries? te, RegularSeries? tp, Span<double> output);
+    private delegate void CellAnalysis(RegularSeries hs, RegularSeries? te, RegularSeries? tp, double[] output);
 
     /// <summary>Runs <paramref name="analyse"/> on every wet cell with its Hs, Te and Tp (null where not stored).</summary>
     private async Task<(int[] CellIds, double[][] Rows)> ComputeAsync(DatasetRecord dataset, SeriesVariable[] variables, int columns, CellAnalysis analyse,
@@ -115,24 +119,41 @@ public sealed class AssessmentLayerBuilder(NpgsqlDataSource dataSource)
         var rows = Enumerable.Range(0, columns).Select(_ => new List<double>()).ToArray();
         var decoded = variables.Select(_ => new float[times.Length]).ToArray();
         var present = new bool[variables.Length];
-        var regular = new double[template.Count];
-        var output = new double[columns];
+        var pending = new List<(int CellId, RegularSeries Hs, RegularSeries? Te, RegularSeries? Tp)>(CellsPerBatch);
         var current = -1;
+
+        RegularSeries? Series(SeriesVariable v)
+        {
+            var k = Array.IndexOf(variables, v);
+            if (k < 0 || !present[k]) return null;
+            var regular = new double[template.Count];
+            Array.Fill(regular, double.NaN);
+            for (var i = 0; i < times.Length; i++) regular[place[i]] = decoded[k][i];
+            return new RegularSeries(template.StartUnixSeconds, template.StepSeconds, regular);
+        }
+
+        // The analyses are independent per cell: a batch is shared out over the cores while the next one is read.
+        void Analyse()
+        {
+            var outputs = new double[pending.Count][];
+            Parallel.For(0, pending.Count, new ParallelOptions { CancellationToken = cancel }, i =>
+            {
+                outputs[i] = new double[columns];
+                analyse(pending[i].Hs, pending[i].Te, pending[i].Tp, outputs[i]);
+            });
+            for (var i = 0; i < pending.Count; i++)
+            {
+                ids.Add(pending[i].CellId);
+                for (var c = 0; c < columns; c++) rows[c].Add(outputs[i][c]);
+            }
+            pending.Clear();
+        }
 
         void Finish()
         {
-            if (current < 0 || !wet.Contains(current)) return;
-            RegularSeries? Series(SeriesVariable v)
-            {
-                var k = Array.IndexOf(variables, v);
-                if (k < 0 || !present[k]) return null;
-                Array.Fill(regular, double.NaN);
-                for (var i = 0; i < times.Length; i++) regular[place[i]] = decoded[k][i];
-                return new RegularSeries(template.StartUnixSeconds, template.StepSeconds, regular);
-            }
-            analyse(Series(SeriesVariable.Hs)!, Series(SeriesVariable.Te), Series(SeriesVariable.Tp), output);
-            ids.Add(current);
-            for (var c = 0; c < columns; c++) rows[c].Add(output[c]);
+            if (current < 0 || !wet.Contains(current) || Series(SeriesVariable.Hs) is not { } hs) return;
+            pending.Add((current, hs, Series(SeriesVariable.Te), Series(SeriesVariable.Tp)));
+            if (pending.Count == CellsPerBatch) Analyse();
         }
 
         await foreach (var chunk in new CellVariableStream(dataSource).StreamAsync(dataset.Id, variables, cancel))
@@ -150,7 +171,24 @@ public sealed class AssessmentLayerBuilder(NpgsqlDataSource dataSource)
                     present[k] |= SeriesCodec.Decode(payload, variables[k], decoded[k].AsSpan(at.Offset, at.Count));
         }
         Finish();
+        Analyse();
         return ([.. ids], [.. rows.Select(r => r.ToArray())]);
+    }
+
+    private const int CellsPerBatch = 256;
+
+    /// <summary>The variables the dataset's chunks hold, judged by the first stored chunk (an ingest writes the same variables for every cell).</summary>
+    private async Task<HashSet<SeriesVariable>> StoredVariablesAsync(DatasetRecord dataset, CancellationToken cancel)
+    {
+        var chunks = await new SeriesStore(dataSource).ReadCellAsync(dataset.Id, await FirstWetCellAsync(dataset, cancel), cancel: cancel);
+        return chunks.Count == 0 ? [] : [.. Enum.GetValues<SeriesVariable>().Where(v => SeriesCodec.Has(chunks[0].Payload, v))];
+    }
+
+    private async Task<int> FirstWetCellAsync(DatasetRecord dataset, CancellationToken cancel)
+    {
+        await using var connection = await dataSource.OpenConnectionAsync(cancel);
+        var wet = await Storage.Cells.CellStore.WetCellIdsAsync(connection, null, dataset.Id, cancel);
+        return wet.Length > 0 ? wet[0] : -1;
     }
 
     private static RegularSeries? Convert(RegularSeries? source, Func<double, double> convert)

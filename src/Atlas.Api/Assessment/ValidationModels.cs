@@ -11,7 +11,9 @@ public sealed record StationItem(
     IReadOnlyList<string> Variables, DateTime TimeStartUtc, DateTime TimeEndUtc, DateTime LoadedAtUtc, string Links)
 {
     public static StationItem From(StoredStation s) => new(
-        s.Name, s.Slug, StationStore.RoleName(s.Role), s.Role == StationRole.Validation, s.Latitude, s.Longitude, s.DepthMetres, s.Instrument,
+        s.Name, s.Slug, StationStore.RoleName(s.Role), s.Role == StationRole.Validation, s.Latitude, s.Longitude,
+        // Depth is stored as float4: round away its binary tail (float precision is about 7 digits).
+        s.DepthMetres is { } depth ? Math.Round(depth, 3) : null, s.Instrument,
         s.SourceFile, s.SourceSha256, s.SourceFormat, s.ObservationCount, s.FlaggedCount,
         ["hs", .. s.HasTp ? new[] { "tp" } : [], .. s.HasTe ? new[] { "te" } : [], .. s.HasDirection ? new[] { "dir" } : []],
         s.TimeStartUtc, s.TimeEndUtc, s.LoadedAtUtc, $"/api/v1/datasets/{{slug}}/validation?station={s.Slug}");

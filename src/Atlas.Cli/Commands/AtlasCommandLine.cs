@@ -14,6 +14,9 @@ public static class AtlasCommandLine
         root.Subcommands.Add(ServeCommand.Build());
         root.Subcommands.Add(WorkerCommand.Build());
         root.Subcommands.Add(DatabaseCommands.Build());
+        root.Subcommands.Add(StationsCommand.Build());
+        root.Subcommands.Add(DevicesCommand.Build());
+        root.Subcommands.Add(ValidateCommand.Build());
         return root;
     }
 }

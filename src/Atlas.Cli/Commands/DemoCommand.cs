@@ -1,10 +1,18 @@
 using System.CommandLine;
 using System.Text.Json;
+using Atlas.Api.Assessment;
+using Atlas.Assessment.Access;
+using Atlas.Assessment.Yield;
 using Atlas.Demo;
+using Atlas.Ingest.Assessment;
 using Atlas.Ingest.Progress;
 using Atlas.Ingest.Worker;
 using Atlas.Storage;
+using Atlas.Storage.Datasets;
+using Atlas.Storage.Devices;
 using Atlas.Storage.Jobs;
+using Atlas.Storage.Stations;
+using Npgsql;
 
 namespace Atlas.Cli.Commands;
 
@@ -83,6 +91,8 @@ public static class DemoCommand
             }
             var stats = await StatsCommand.RunAsync(dataSource, DatasetSlug, all: false, cancel);
             if (stats != 0) return stats;
+            var assessment = await LoadAssessmentAsync(dataSource, folder, cancel);
+            if (assessment != 0) return assessment;
             if (!parse.GetValue(serve))
             {
                 Console.WriteLine($"atlas demo: loaded; run 'atlas serve' and open {ServeCommand.Url}/");
@@ -93,4 +103,44 @@ public static class DemoCommand
         });
         return command;
     }
+
+    /// <summary>
+    /// Registers the demo buoys and device from the manifest the generator wrote (matched by name and checksum, so a
+    /// re-run stores nothing twice), validates the demo dataset against the buoys (summary into its metadata), and
+    /// computes the device's yield layer and an accessibility layer so that the map shows them at once.
+    /// </summary>
+    private static async Task<int> LoadAssessmentAsync(NpgsqlDataSource dataSource, string folder, CancellationToken cancel)
+    {
+        try
+        {
+            var (stations, device) = DemoReferenceFiles.Read(folder, DemoScenario.ManifestFileName);
+            var loader = new StationLoader(dataSource);
+            foreach (var s in stations)
+                Console.WriteLine("atlas demo: " + (await loader.LoadAsync(
+                    new StationLoadRequest(s.Name, s.Latitude, s.Longitude, s.DepthMetres, s.Instrument, s.Role, s.FilePath), cancel)).Describe());
+            var loaded = await new DeviceLoader(dataSource).LoadAsync(device.Name, device.FilePath, device.RatedPowerKw, cancel);
+            Console.WriteLine("atlas demo: " + loaded.Describe());
+
+            var validated = await ValidateCommand.RunAsync(dataSource, DatasetSlug, null, cancel);
+            if (validated != 0) return validated;
+
+            var dataset = (await new DatasetStore(dataSource).FindAsync(DatasetSlug, cancel))!;
+            var layers = new AssessmentLayerBuilder(dataSource);
+            var clock = System.Diagnostics.Stopwatch.StartNew();
+            var yield = await layers.YieldAsync(dataset, loaded.Device, PowerMatrixInterpolation.Bilinear, cancel);
+            Console.WriteLine($"atlas demo: yield layer of {loaded.Device.Name}: {yield.CellIds.Length:N0} cells in {ProgressSnapshot.FormatDuration(clock.Elapsed)}");
+            clock.Restart();
+            var access = await layers.AccessibilityAsync(dataset, new AccessLimits(DemoAccessHsMetres), null, cancel);
+            Console.WriteLine($"atlas demo: accessibility layer (Hs <= {DemoAccessHsMetres} m): {access.CellIds.Length:N0} cells in {ProgressSnapshot.FormatDuration(clock.Elapsed)}");
+            return 0;
+        }
+        catch (Exception e) when (e is FormatException or ArgumentException or IOException or DuplicateStationException or DuplicateDeviceException)
+        {
+            Console.Error.WriteLine($"atlas demo: {e.Message}");
+            return 2;
+        }
+    }
+
+    /// <summary>The Hs limit of the accessibility layer the demo prepares, m (a typical crew-transfer limit, common practice).</summary>
+    public const double DemoAccessHsMetres = 1.5;
 }

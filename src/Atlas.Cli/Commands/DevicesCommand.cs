@@ -1,0 +1,82 @@
+using System.CommandLine;
+using System.Globalization;
+using Atlas.Ingest.Assessment;
+using Atlas.Storage;
+using Atlas.Storage.Devices;
+
+namespace Atlas.Cli.Commands;
+
+/// <summary><c>atlas devices add|list|remove</c>: wave-energy converters' power matrices.</summary>
+public static class DevicesCommand
+{
+    public static Command Build()
+    {
+        var command = new Command("devices", "Store device power matrices, list and remove them.");
+        command.Subcommands.Add(BuildAdd());
+        command.Subcommands.Add(BuildList());
+        command.Subcommands.Add(BuildRemove());
+        return command;
+    }
+
+    private static Command BuildAdd()
+    {
+        var file = new Argument<string>("file")
+        {
+            Description = "Power matrix CSV: first cell hs_m\\te_s or hs_m\\tp_s, then the period bin centres (s); one row per Hs bin centre (m) with power in kW",
+        };
+        var name = new Option<string>("--name") { Description = "The device's name (your own)", Required = true };
+        var rated = new Option<double?>("--rated-kw") { Description = "Rated power, kW (default: the largest matrix value)" };
+        var command = new Command("add", "Store a power matrix; a bad matrix is reported cell by cell and nothing is stored.") { file, name, rated };
+        command.SetAction(async (parse, cancel) =>
+        {
+            await using var dataSource = await AtlasDatabase.OpenMigratedAsync(cancel: cancel);
+            try
+            {
+                var result = await new DeviceLoader(dataSource).LoadAsync(parse.GetValue(name)!, parse.GetValue(file)!, parse.GetValue(rated), cancel);
+                Console.WriteLine(result.Describe());
+                return 0;
+            }
+            catch (Exception e) when (e is FormatException or ArgumentException or FileNotFoundException or DuplicateDeviceException)
+            {
+                Console.Error.WriteLine($"atlas devices add: {e.Message}");
+                Console.Error.WriteLine("Nothing was stored.");
+                return 2;
+            }
+        });
+        return command;
+    }
+
+    private static Command BuildList()
+    {
+        var command = new Command("list", "List the stored devices.");
+        command.SetAction(async (_, cancel) =>
+        {
+            await using var dataSource = await AtlasDatabase.OpenMigratedAsync(cancel: cancel);
+            var devices = await new DeviceStore(dataSource).ListAsync(cancel);
+            if (devices.Count == 0) Console.WriteLine("no devices stored (atlas devices add)");
+            foreach (var d in devices)
+                Console.WriteLine(string.Create(CultureInfo.InvariantCulture,
+                    $"{d.Name} [{d.Slug}]: {d.HsCentresMetres.Length} Hs x {d.PeriodCentresSeconds.Length} {DeviceStore.AxisName(d.AxisKind)} bins, rated {d.RatedPowerKw:0.###} kW, from {d.SourceFile}"));
+            return 0;
+        });
+        return command;
+    }
+
+    private static Command BuildRemove()
+    {
+        var name = new Argument<string>("name") { Description = "The device's name or slug" };
+        var command = new Command("remove", "Remove a stored device.") { name };
+        command.SetAction(async (parse, cancel) =>
+        {
+            await using var dataSource = await AtlasDatabase.OpenMigratedAsync(cancel: cancel);
+            if (await new DeviceStore(dataSource).DeleteAsync(parse.GetValue(name)!, cancel))
+            {
+                Console.WriteLine($"device {parse.GetValue(name)}: removed");
+                return 0;
+            }
+            Console.Error.WriteLine($"atlas devices remove: there is no device '{parse.GetValue(name)}' (atlas devices list)");
+            return 2;
+        });
+        return command;
+    }
+}

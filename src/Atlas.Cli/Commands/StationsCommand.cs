@@ -1,0 +1,94 @@
+using System.CommandLine;
+using System.Globalization;
+using Atlas.Ingest.Assessment;
+using Atlas.Storage;
+using Atlas.Storage.Stations;
+
+namespace Atlas.Cli.Commands;
+
+/// <summary><c>atlas stations add|list|remove</c>: the measuring stations whose records validate the hindcasts.</summary>
+public static class StationsCommand
+{
+    public static Command Build()
+    {
+        var command = new Command("stations", "Register measuring stations (buoys) with their records, list and remove them.");
+        command.Subcommands.Add(BuildAdd());
+        command.Subcommands.Add(BuildList());
+        command.Subcommands.Add(BuildRemove());
+        return command;
+    }
+
+    private static Command BuildAdd()
+    {
+        var file = new Argument<string>("file")
+        {
+            Description = "The record: CSV with the header time,hs_m[,tp_s][,te_s][,dir_deg][,qc] (times ISO 8601 UTC), or a CF-NetCDF point time series (featureType timeSeries)",
+        };
+        var name = new Option<string>("--name") { Description = "The station's name (your own)", Required = true };
+        var lat = new Option<double?>("--lat") { Description = "Latitude, degrees north (optional for a NetCDF file that states it)" };
+        var lon = new Option<double?>("--lon") { Description = "Longitude, degrees east (optional for a NetCDF file that states it)" };
+        var depth = new Option<double?>("--depth") { Description = "Water depth at the mooring, m (optional)" };
+        var instrument = new Option<string>("--instrument") { Description = "Kind of instrument, e.g. \"directional wave buoy\"", Required = true };
+        var role = new Option<string>("--role") { Description = "calibration (used to tune the hindcast) or validation (kept aside)", Required = true };
+        role.AcceptOnlyFromAmong("calibration", "validation");
+        var command = new Command("add", "Register a station and load its record; a bad record is reported line by line and nothing is stored.")
+        {
+            file, name, lat, lon, depth, instrument, role,
+        };
+        command.SetAction(async (parse, cancel) =>
+        {
+            StationStore.TryParseRole(parse.GetValue(role), out var stationRole);
+            var request = new StationLoadRequest(parse.GetValue(name)!, parse.GetValue(lat), parse.GetValue(lon), parse.GetValue(depth),
+                parse.GetValue(instrument)!, stationRole, parse.GetValue(file)!);
+            await using var dataSource = await AtlasDatabase.OpenMigratedAsync(cancel: cancel);
+            try
+            {
+                Console.WriteLine((await new StationLoader(dataSource).LoadAsync(request, cancel)).Describe());
+                return 0;
+            }
+            catch (Exception e) when (e is FormatException or ArgumentException or FileNotFoundException or DuplicateStationException)
+            {
+                Console.Error.WriteLine($"atlas stations add: {e.Message}");
+                Console.Error.WriteLine("Nothing was stored.");
+                return 2;
+            }
+        });
+        return command;
+    }
+
+    private static Command BuildList()
+    {
+        var command = new Command("list", "List the registered stations.");
+        command.SetAction(async (_, cancel) =>
+        {
+            await using var dataSource = await AtlasDatabase.OpenMigratedAsync(cancel: cancel);
+            var stations = await new StationStore(dataSource).ListAsync(cancel);
+            if (stations.Count == 0) Console.WriteLine("no stations registered (atlas stations add)");
+            var c = CultureInfo.InvariantCulture;
+            foreach (var s in stations)
+                Console.WriteLine(string.Create(c,
+                    $"{s.Name} [{s.Slug}] {StationStore.RoleName(s.Role)}: {s.Latitude:0.####} N {s.Longitude:0.####} E, depth {(s.DepthMetres is { } d ? $"{d:0.#} m" : "unknown")}, " +
+                    $"{s.Instrument}; {s.ObservationCount:N0} observations {s.TimeStartUtc:yyyy-MM-dd}..{s.TimeEndUtc:yyyy-MM-dd} ({s.FlaggedCount:N0} flagged) from {s.SourceFile}"));
+            return 0;
+        });
+        return command;
+    }
+
+    private static Command BuildRemove()
+    {
+        var name = new Argument<string>("name") { Description = "The station's name or slug" };
+        var command = new Command("remove", "Remove a station and its record.") { name };
+        command.SetAction(async (parse, cancel) =>
+        {
+            await using var dataSource = await AtlasDatabase.OpenMigratedAsync(cancel: cancel);
+            if (await new StationStore(dataSource).DeleteAsync(parse.GetValue(name)!, cancel))
+            {
+                Console.WriteLine($"station {parse.GetValue(name)}: removed with its record");
+                return 0;
+            }
+            Console.Error.WriteLine($"atlas stations remove: there is no station '{parse.GetValue(name)}' (atlas stations list)");
+            return 2;
+        });
+        return command;
+    }
+}
