@@ -73,7 +73,8 @@ public static class AtlasApiRegistration
             compression.Providers.Add<BrotliCompressionProvider>();
             compression.Providers.Add<GzipCompressionProvider>();
             compression.MimeTypes = ResponseCompressionDefaults.MimeTypes.Concat(
-                ["text/csv", "application/geo+json", "application/problem+json", "image/tiff", "application/x-netcdf"]);
+                // GeoTIFF tiles, NetCDF-4 variables and PNG are compressed already; GeoTIFF must also stay byte-addressable for range reads.
+                ["text/csv", "application/geo+json", "application/problem+json"]);
         });
         services.Configure<GzipCompressionProviderOptions>(gzip => gzip.Level = CompressionLevel.Fastest);
         services.Configure<BrotliCompressionProviderOptions>(brotli => brotli.Level = CompressionLevel.Fastest);

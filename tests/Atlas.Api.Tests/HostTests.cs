@@ -47,6 +47,13 @@ public sealed class HostTests(AtlasApiFixture atlas)
     }
 
     [Fact]
+    public async Task UnknownRoutesAndMethodsAreProblemsToo()
+    {
+        await Problems.AssertAsync(await _client.GetAsync("/api/v1/nothing-here"), HttpStatusCode.NotFound);
+        await Problems.AssertAsync(await _client.PutAsync("/api/v1/datasets", new StringContent("{}")), HttpStatusCode.MethodNotAllowed);
+    }
+
+    [Fact]
     public async Task MapPageIsServedAtTheRoot()
     {
         var page = await _client.GetStringAsync("/");

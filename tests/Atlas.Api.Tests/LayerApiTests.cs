@@ -187,6 +187,12 @@ public sealed class LayerApiTests(AtlasApiFixture atlas)
         var second = await _client.SendAsync(again);
         Assert.Equal(HttpStatusCode.NotModified, second.StatusCode);
         Assert.Equal(1, await atlas.CountAsync("SELECT count(*) FROM layer_cache WHERE cache_key LIKE 'j/mean/annual.tif@%'"));
+        // A Cloud Optimised GeoTIFF is read by range requests: the 8-byte TIFF header (RFC 9110 partial content).
+        using var range = new HttpRequestMessage(HttpMethod.Get, url);
+        range.Headers.Range = new RangeHeaderValue(0, 7);
+        var partial = await _client.SendAsync(range);
+        Assert.Equal(HttpStatusCode.PartialContent, partial.StatusCode);
+        Assert.Equal(new byte[] { (byte)'I', (byte)'I', 42, 0 }, (await partial.Content.ReadAsByteArrayAsync())[..4]);
     }
 
     [Theory]

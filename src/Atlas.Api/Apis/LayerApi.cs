@@ -26,7 +26,7 @@ public static class LayerApi
                 "nodata -9999, 256 x 256 tiles with overviews; provenance in the GDAL metadata), csv (cell_id,lon,lat,value after a # header), " +
                 "geojson (points, or cell footprints with ?geometry=polygon; provenance as a top-level member), nc (CF-1.8 NetCDF-4), " +
                 "png (a captioned map figure). Mesh and curvilinear datasets are drawn on a raster by linear interpolation in triangles. " +
-                "Responses carry an ETag and Cache-Control; send If-None-Match to revalidate.")
+                "Responses carry an ETag and Cache-Control; send If-None-Match to revalidate. GeoTIFF downloads answer Range requests.")
             .Produces(200, contentType: "image/tiff")
             .RequireRateLimiting(RateLimits.Expensive);
         return routes;
@@ -111,6 +111,8 @@ public static class LayerApi
                 $"Dataset '{slug}' has no {s.Name()} of {p.Symbol()} for {t.Name}. GET /api/v1/datasets/{slug}/layers lists what it has; " +
                 "if it lists nothing, its statistics have not been computed yet (POST /api/v1/datasets/{slug}/jobs).");
         http.Response.Headers.CacheControl = $"public, max-age={options.Value.LayerCacheSeconds}";
-        return TypedResults.File(layer.Content, layer.ContentType, request.FileName, entityTag: EntityTagHeaderValue.Parse(layer.ETag));
+        // Range requests let GIS clients read a Cloud Optimised GeoTIFF tile by tile.
+        return TypedResults.File(layer.Content, layer.ContentType, request.FileName, entityTag: EntityTagHeaderValue.Parse(layer.ETag),
+            enableRangeProcessing: f == LayerFormat.Tif);
     }
 }
