@@ -113,6 +113,8 @@ public sealed class HindcastIngestor(NpgsqlDataSource dataSource)
             var timeline = stepsPerYear[year];
             var bytesPerCell = SeriesCodec.EncodedLength(timeline.Length, variableCount);
             var blockSize = (int)Math.Clamp(request.MemoryBudgetBytes / Math.Max(1, bytesPerCell), 1, grid.PointCount);
+            // Whole grid rows per block: a hyperslab of whole rows is one contiguous read per chunk.
+            if (grid.Nx is { } nx && blockSize > nx && blockSize < grid.PointCount) blockSize -= blockSize % nx;
             var yearExisted = stored.ContainsKey(year);
             for (var p0 = 0; p0 < grid.PointCount; p0 += blockSize)
             {
