@@ -5,7 +5,7 @@
 /* global L */
 
 import { datasetUrl, postJson, query } from './api.js';
-import { el, number, periodName } from './format.js';
+import { el, number, periodPhrase } from './format.js';
 
 /** The polygon geometry to send from an uploaded GeoJSON document: a Polygon, a MultiPolygon, or several merged. */
 export function polygonOf(document_) {
@@ -158,7 +158,7 @@ export class AreaTool {
       if (a.threshold !== null && a.threshold !== undefined)
         rows.push([`Above ${number(a.threshold)} ${units}`, `${a.cells_above_threshold} cells, ${number(a.area_above_threshold_km2)} km²`]);
       this.result.replaceChildren(
-        el('p', {}, el('strong', {}, `${a.layer.parameter} ${a.layer.statistic}, ${periodName(a.layer.period).toLowerCase()}`)),
+        el('p', {}, el('strong', {}, `${a.layer.parameter} ${a.layer.statistic}, ${periodPhrase(a.layer.period)}`)),
         el('dl', { class: 'facts', 'data-field': 'area-stats' }, rows.flatMap(([k, v]) => [el('dt', {}, k), el('dd', {}, v)])),
         el('details', { class: 'muted' }, el('summary', {}, 'How these are computed'), el('p', {}, a.method)));
     } catch (error) {

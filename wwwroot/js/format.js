@@ -56,4 +56,10 @@ export function periodName(code) {
   return year ? `Year ${year[1]}` : code;
 }
 
+/** A period as it reads inside a sentence: "whole year", "winter (Dec–Feb)", "January", "Year 2021". */
+export function periodPhrase(code) {
+  const name = periodName(code);
+  return code === 'annual' || ['djf', 'mam', 'jja', 'son'].includes(code) ? name[0].toLowerCase() + name.slice(1) : name;
+}
+
 export const months = ['jan', 'feb', 'mar', 'apr', 'may', 'jun', 'jul', 'aug', 'sep', 'oct', 'nov', 'dec'];

@@ -5,7 +5,7 @@
 import { getJson, getText, layerUrl, parseLayerCsv } from './api.js';
 import { cyclicScale, sequentialScale } from './colour-scale.js';
 import { drawColourBar, niceRange } from './colour-bar.js';
-import { el, number, periodName } from './format.js';
+import { el, number, periodName, periodPhrase } from './format.js';
 
 const formats = [
   ['tif', 'GeoTIFF'],
@@ -120,7 +120,7 @@ export class LayerView {
 
   titleOf({ parameter, statistic, period }) {
     const p = this.parameters.find(x => x.symbol === parameter);
-    return `${capitalised(this.statisticNames[statistic] ?? statistic)} of ${p ? p.name : parameter}, ${periodName(period).toLowerCase()}`;
+    return `${capitalised(this.statisticNames[statistic] ?? statistic)} of ${p ? p.name : parameter}, ${periodPhrase(period)}`;
   }
 
   /**

@@ -152,7 +152,10 @@ class Atlas {
       const bounds = L.latLngBounds([extent.south, extent.west], [extent.north, extent.east]);
       this.extentBounds = bounds;
       this.extentRectangle = L.rectangle(bounds, { color: colours.extent, weight: 1.5, dashArray: '6 4', fill: false, interactive: false }).addTo(map);
-      map.fitBounds(bounds.pad(0.04));
+      // Leave room for the colour bar, which covers the foot of the map on a narrow screen.
+      const fit = () => map.fitBounds(bounds, { paddingTopLeft: [12, 12], paddingBottomRight: [12, window.innerWidth <= 900 ? 120 : 12] });
+      fit();
+      requestAnimationFrame(() => { map.invalidateSize({ pan: false }); fit(); });
     } else {
       map.setView([0, 0], 2);
     }
