@@ -48,11 +48,11 @@ public static class AreaApi
         var t = AtlasPeriod.Annual;
         double? level = null;
         if (parameter is not null && !WaveParameterNames.TryParse(parameter, out p))
-            errors["parameter"] = [$"'{parameter}' is not a parameter: use one of {string.Join(", ", WaveParameterNames.All.Select(x => x.Symbol()))}."];
+            errors["parameter"] = [VocabularyMessages.UnknownParameter(parameter)];
         if (statistic is not null && !StatisticKindNames.TryParse(statistic, out s))
-            errors["statistic"] = [$"'{statistic}' is not a statistic: use one of {string.Join(", ", StatisticKindNames.All.Select(x => x.Name()))}."];
+            errors["statistic"] = [VocabularyMessages.UnknownStatistic(statistic)];
         if (period is not null && !AtlasPeriod.TryParse(period, out t))
-            errors["period"] = [$"'{period}' is not a period: use jan..dec, djf, mam, jja, son, annual or y2019."];
+            errors["period"] = [VocabularyMessages.UnknownPeriod(period)];
         if (threshold is not null)
         {
             if (QueryNumbers.TryParse(threshold, out var v)) level = v;

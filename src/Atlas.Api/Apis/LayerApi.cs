@@ -85,11 +85,11 @@ public static class LayerApi
         var dataset = await catalog.FindAsync(slug, cancel);
         if (dataset is null) return ApiProblems.UnknownDataset(slug);
         if (!WaveParameterNames.TryParse(parameter, out var p))
-            return ApiProblems.NotFound("Unknown parameter", $"'{parameter}' is not a parameter: use one of {string.Join(", ", WaveParameterNames.All.Select(x => x.Symbol()))}.");
+            return ApiProblems.NotFound("Unknown parameter", VocabularyMessages.UnknownParameter(parameter));
         if (!StatisticKindNames.TryParse(statistic, out var s))
-            return ApiProblems.NotFound("Unknown statistic", $"'{statistic}' is not a statistic: use one of {string.Join(", ", StatisticKindNames.All.Select(x => x.Name()))}.");
+            return ApiProblems.NotFound("Unknown statistic", VocabularyMessages.UnknownStatistic(statistic));
         if (!AtlasPeriod.TryParse(period, out var t))
-            return ApiProblems.NotFound("Unknown period", $"'{period}' is not a period: use jan..dec, djf, mam, jja, son, annual, or y followed by a year (y2019).");
+            return ApiProblems.NotFound("Unknown period", VocabularyMessages.UnknownPeriod(period));
         if (!LayerFormats.TryParse(format, out var f))
             return ApiProblems.NotFound("Unknown format", $"'.{format}' is not a layer format: use {string.Join(", ", LayerFormats.Extensions.Select(e => "." + e))}.");
         if (!StatisticsOf(p).Contains(s))

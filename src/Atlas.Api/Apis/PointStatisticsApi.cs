@@ -4,6 +4,7 @@ using Atlas.Api.Infrastructure;
 using Atlas.Api.Model;
 using Atlas.Api.Points;
 using Atlas.Statistics;
+using Atlas.Api.Vocabulary;
 using Atlas.Storage.Series;
 using Microsoft.AspNetCore.Http.HttpResults;
 
@@ -39,7 +40,7 @@ public static class PointStatisticsApi
         if (period is not null && period != "all")
         {
             if (AtlasPeriod.TryParse(period, out var p)) onlyPeriod = p;
-            else errors["period"] = [$"'{period}' is not a period: use jan..dec, djf, mam, jja, son, annual, y followed by a year (y2019), or all."];
+            else errors["period"] = [VocabularyMessages.UnknownPeriod(period) + " all gives every period."];
         }
         var parts = ParseParts(include, errors);
         var csv = format == "csv";

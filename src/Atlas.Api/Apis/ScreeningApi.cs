@@ -3,6 +3,7 @@ using Atlas.Api.Downloads;
 using Atlas.Api.Footprints;
 using Atlas.Api.Infrastructure;
 using Atlas.Statistics;
+using Atlas.Api.Vocabulary;
 using Atlas.Storage.Queries;
 using Microsoft.AspNetCore.Http.HttpResults;
 
@@ -46,7 +47,7 @@ public static class ScreeningApi
         var maxHs = Bound("max_hs_p90_m", max_hs_p90_m, "m");
         var t = AtlasPeriod.Annual;
         if (period is not null && !AtlasPeriod.TryParse(period, out t))
-            errors["period"] = [$"'{period}' is not a period: use jan..dec, djf, mam, jja, son, annual or y2019."];
+            errors["period"] = [VocabularyMessages.UnknownPeriod(period)];
         if (minDepth is { } a && maxDepth is { } b && a > b)
             errors["max_depth_m"] = [$"The depth window is reversed: min_depth_m {a} is greater than max_depth_m {b}; swap them."];
         if (errors.Count > 0) return TypedResults.ValidationProblem(errors, title: "The screening criteria are invalid");
