@@ -119,8 +119,10 @@ export class LayerView {
   }
 
   titleOf({ parameter, statistic, period }) {
+    if (parameter === 'dir' && statistic === 'mean') return `Power-weighted mean direction the waves come from, ${periodPhrase(period)}`;
     const p = this.parameters.find(x => x.symbol === parameter);
-    return `${capitalised(this.statisticNames[statistic] ?? statistic)} of ${p ? p.name : parameter}, ${periodPhrase(period)}`;
+    const label = parameterLabels[parameter] ?? p?.name ?? parameter;
+    return `${capitalised(this.statisticNames[statistic] ?? statistic)} of ${label[0].toLowerCase() + label.slice(1)}, ${periodPhrase(period)}`;
   }
 
   /**

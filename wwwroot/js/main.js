@@ -85,8 +85,8 @@ class Atlas {
     document.getElementById('dataset-title').textContent = chosen.title;
 
     this.buildMap(chosen.extent);
-    // Everything the first picture needs, at once: the first layer (footprints and values in one document), the
-    // layer catalogue, the dataset description and the land mask.
+    // Everything the first picture needs, at once: the first layer (footprints and values in one document) and the
+    // layer catalogue; the land mask and the description follow.
     const wish = { parameter: hash.parameter ?? 'j', statistic: hash.statistic ?? 'mean', period: hash.period ?? 'annual' };
     const fromBoot = early && early.slug === this.slug;
     const firstLayer = fromBoot ? early.layerDocument
@@ -94,12 +94,14 @@ class Atlas {
     firstLayer.catch(() => {});
     this.endpoints = documentedPaths();
     const land = this.endpoints.then(paths => paths.has(`${apiRoot}/datasets/{slug}/land`) ? getJson(`${datasetUrl(this.slug)}/land`) : null);
-    const [catalogue, detail] = await Promise.all([
-      fromBoot ? early.catalogue : getJson(`${datasetUrl(this.slug)}/layers`), fromBoot ? early.detail : getJson(datasetUrl(this.slug))]);
-    this.detail = detail;
+    // The description (provenance, time coverage) is not needed for the first picture: shown when it arrives.
+    (fromBoot ? early.detail : getJson(datasetUrl(this.slug))).then(detail => {
+      this.detail = detail;
+      if (detail.caution) document.getElementById('caution-text').textContent = detail.caution;
+      this.describe(detail);
+    }).catch(error => this.status(`The dataset description could not be loaded. ${error.message}`, 'error'));
+    const catalogue = await (fromBoot ? early.catalogue : getJson(`${datasetUrl(this.slug)}/layers`));
     this.catalogue = catalogue;
-    if (detail.caution) document.getElementById('caution-text').textContent = detail.caution;
-    this.describe(detail);
     land.then(mask => {
       const rings = mask ? landRings(mask) : [];
       this.hasLand = rings.length > 0;
