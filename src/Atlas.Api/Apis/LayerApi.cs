@@ -105,7 +105,16 @@ public static class LayerApi
         }
 
         var request = new LayerRequest(p, s, t, f, polygons);
-        var layer = await renderer.RenderAsync(dataset, request, cancel);
+        Storage.Queries.CachedLayer? layer;
+        try
+        {
+            layer = await renderer.RenderAsync(dataset, request, cancel);
+        }
+        catch (ArgumentException e) when (f is LayerFormat.Tif or LayerFormat.Nc or LayerFormat.Png)
+        {
+            // A mesh whose valued nodes form no complete triangle cannot be drawn on a raster; the cell formats still work.
+            return ApiProblems.Unprocessable("The layer cannot be drawn as a raster", $"{e.Message} Download it as .csv or .geojson instead.");
+        }
         if (layer is null)
             return ApiProblems.NotFound("No statistics for this layer",
                 $"Dataset '{slug}' has no {s.Name()} of {p.Symbol()} for {t.Name}. GET /api/v1/datasets/{slug}/layers lists what it has; " +
