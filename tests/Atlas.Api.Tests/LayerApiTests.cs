@@ -170,7 +170,6 @@ public sealed class LayerApiTests(AtlasApiFixture atlas)
         Assert.Equal(new byte[] { 0x89, (byte)'P', (byte)'N', (byte)'G' }, bytes[..4]);
         using var image = SkiaSharp.SKBitmap.Decode(bytes);
         Assert.True(image.Width > 700 && image.Height > image.Width / 2, $"{image.Width} x {image.Height}");
-        File.WriteAllBytes(Path.Combine(Path.GetTempPath(), "atlas-api-test-figure.png"), bytes);
     }
 
     [Fact]
