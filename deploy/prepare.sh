@@ -9,6 +9,7 @@ runtime_packages=(postgresql-15 postgresql-15-postgis-3 postgresql-contrib libne
 test_packages=(libnetcdf-dev netcdf-bin cdo gdal-bin python3-numpy python3-scipy python3-netcdf4 python3-xarray chromium wrk docker-compose)
 
 want=("${runtime_packages[@]}")
+command -v npm > /dev/null || want+=(nodejs npm)
 [ "${1:-}" = "--with-test-tools" ] && want+=("${test_packages[@]}")
 missing=()
 for p in "${want[@]}"; do

@@ -9,10 +9,11 @@ nx=${1:-150}; ny=${2:-100}; nt=${3:-8760}
 shared="${ATLAS_SHARED:-$here/../shared}"
 atlas="$here/src/Atlas.Cli/bin/Release/net10.0/atlas"
 work="${ATLAS_BENCH_DIR:-/tmp/atlas-bench}"; mkdir -p "$work"
-file="$work/hindcast-${nx}x${ny}x${nt}.nc"
+file="${ATLAS_BENCH_FILE:-$work/hindcast-${nx}x${ny}x${nt}.nc}"
 out="$here/tests/artifacts/benchmarks"; mkdir -p "$out"
 report="$out/pipeline-${nx}x${ny}x${nt}.txt"
 slug="bench-${nx}x${ny}x${nt}"
+
 
 [ -f "$file" ] || /usr/bin/python3 "$shared/bench/make_hindcast.py" "$nx" "$ny" "$nt" "$file"
 cat "$file" > /dev/null   # page cache, for every contender alike
@@ -27,14 +28,17 @@ measure() { # name command...
 }
 seconds() { awk -F': ' '/Elapsed \(wall clock\)/ {n=split($2,a,":"); s=0; for(i=1;i<=n;i++) s=s*60+a[i]; print s}' "$work/$1.time"; }
 
-"$atlas" db start > /dev/null
-psql_cmd() { psql -h 127.0.0.1 -p 54329 -U atlas -d atlas -Atc "$1"; }
-if [ -n "${ATLAS_DB:-}" ]; then psql_cmd() { psql "$ATLAS_DB" -Atc "$1"; }; fi
-psql_cmd "DELETE FROM series_chunk WHERE dataset_id IN (SELECT dataset_id FROM dataset WHERE slug = '$slug');
-          DELETE FROM cell_statistic WHERE dataset_id IN (SELECT dataset_id FROM dataset WHERE slug = '$slug');
-          DELETE FROM cell_statistic_state WHERE dataset_id IN (SELECT dataset_id FROM dataset WHERE slug = '$slug');
-          DELETE FROM cell WHERE dataset_id IN (SELECT dataset_id FROM dataset WHERE slug = '$slug');
-          DELETE FROM dataset WHERE slug = '$slug'; VACUUM series_chunk;" > /dev/null
+# A database of its own, made afresh, so that sizes and timings belong to this run alone.
+if [ -z "${ATLAS_DB:-}" ]; then
+  "$atlas" db start > /dev/null
+  server="host=127.0.0.1 port=54329 user=atlas"
+else
+  server=$(sed -e 's/;/ /g' -e 's/Host=/host=/I; s/Port=/port=/I; s/Username=/user=/I; s/Password=/password=/I; s/Database=[^ ]*//I' <<<"$ATLAS_DB")
+fi
+psql "$server dbname=postgres" -qc "DROP DATABASE IF EXISTS atlas_bench WITH (FORCE)" -c "CREATE DATABASE atlas_bench"
+export ATLAS_DB="Host=127.0.0.1;Port=54329;Username=atlas;Database=atlas_bench"
+[ -n "${server##*host=127.0.0.1 port=54329*}" ] && ATLAS_DB="$(sed -e 's/ /;/g' <<<"$server");Database=atlas_bench"
+psql_cmd() { psql "$server dbname=atlas_bench" -Atc "$1"; }
 
 {
   echo "# pipeline benchmark $(date -u +%FT%TZ), $(nproc) cores, file $(du -h "$file" | cut -f1) (${nx}x${ny} cells x ${nt} steps)"
@@ -42,10 +46,10 @@ psql_cmd "DELETE FROM series_chunk WHERE dataset_id IN (SELECT dataset_id FROM d
   measure atlas_ingest "$atlas" ingest "$file" --dataset "$slug" --no-stats
   measure atlas_stats "$atlas" stats "$slug" --all
   id=$(psql_cmd "SELECT dataset_id FROM dataset WHERE slug = '$slug'")
-  measure db_stream_floor psql -h 127.0.0.1 -p 54329 -U atlas -d atlas -Atc \
+  measure db_stream_floor psql "$server dbname=atlas_bench" -Atc \
     "COPY (SELECT cell_id, year, payload FROM series_chunk WHERE dataset_id = $id ORDER BY cell_id, year) TO STDOUT (FORMAT BINARY)" \
     -o /dev/null
-  bytes=$(psql_cmd "SELECT pg_total_relation_size('series_chunk')")
+  bytes=$(psql_cmd "SELECT pg_total_relation_size('series_chunk')")   # the only dataset in this database
   values=$(psql_cmd "SELECT sum((length(payload) - 6) / 2) FROM series_chunk WHERE dataset_id = $id")
   cdo=$(seconds cdo_peer); ingest=$(seconds atlas_ingest); stats=$(seconds atlas_stats); floor=$(seconds db_stream_floor)
   awk -v c="$cdo" -v i="$ingest" -v s="$stats" -v f="$floor" -v b="$bytes" -v v="$values" 'BEGIN {
@@ -55,4 +59,5 @@ psql_cmd "DELETE FROM series_chunk WHERE dataset_id IN (SELECT dataset_id FROM d
     printf "storage = %.3f bytes per stored value (%d bytes for %d values; goal <= 2.5)\n", b / v, b, v }'
   echo "ingest summary: $(tail -1 "$work/atlas_ingest.out")"
   echo "stats summary: $(tail -1 "$work/atlas_stats.out")"
+  echo "incremental: $(cd "$here" && "$atlas" stats "$slug" | tail -1)"
 } | tee "$report"

@@ -64,11 +64,27 @@ internal static unsafe class NetCdfNative
         foreach (var name in Hdf5Names)
         {
             if (!NativeLibrary.TryLoad(name, out var hdf5)) continue;
-            if (NativeLibrary.TryGetExport(hdf5, "H5Eset_auto2", out var setAuto))
-                ((delegate* unmanaged<long, IntPtr, IntPtr, int>)setAuto)(0, IntPtr.Zero, IntPtr.Zero);
+            if (NativeLibrary.TryGetExport(hdf5, "H5Eset_auto2", out var setAuto)) _setAuto = setAuto;
             break;
         }
+        QuietenThisThread();
         return netcdf;
+    }
+
+    private static IntPtr _setAuto;
+
+    [ThreadStatic]
+    private static bool _quiet;
+
+    /// <summary>
+    /// HDF5 built thread-safe keeps its error-printing setting per thread, so each thread that opens or creates a
+    /// file turns it off once. Call inside <see cref="Gate"/>.
+    /// </summary>
+    public static void QuietenThisThread()
+    {
+        if (_quiet || _setAuto == IntPtr.Zero) return;
+        ((delegate* unmanaged<long, IntPtr, IntPtr, int>)_setAuto)(0, IntPtr.Zero, IntPtr.Zero);
+        _quiet = true;
     }
 
     /// <summary>Text of a netCDF status code, from nc_strerror.</summary>

@@ -42,7 +42,11 @@ public sealed unsafe class NetCdfFile : IDisposable
         ArgumentException.ThrowIfNullOrEmpty(path);
         if (!File.Exists(path)) throw new FileNotFoundException($"{path}: no such file", path);
         int status, ncid;
-        lock (NetCdfNative.Gate) status = NetCdfNative.nc_open(path, NetCdfNative.NC_NOWRITE, out ncid);
+        lock (NetCdfNative.Gate)
+        {
+            NetCdfNative.QuietenThisThread();
+            status = NetCdfNative.nc_open(path, NetCdfNative.NC_NOWRITE, out ncid);
+        }
         NetCdfException.Check(status, path, null, "nc_open");
         var handle = new NetCdfHandle(ncid);
         try

@@ -42,7 +42,11 @@ public sealed unsafe class NetCdfWriter : IDisposable
             _ => throw new ArgumentOutOfRangeException(nameof(format)),
         };
         int status, ncid;
-        lock (NetCdfNative.Gate) status = NetCdfNative.nc_create(path, mode, out ncid);
+        lock (NetCdfNative.Gate)
+        {
+            NetCdfNative.QuietenThisThread();
+            status = NetCdfNative.nc_create(path, mode, out ncid);
+        }
         NetCdfException.Check(status, path, null, "nc_create");
         return new NetCdfWriter(path, format, new NetCdfHandle(ncid));
     }

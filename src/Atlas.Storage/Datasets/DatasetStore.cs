@@ -111,10 +111,7 @@ public sealed class DatasetStore(NpgsqlDataSource dataSource)
                    (SELECT to_timestamp(min(times[1])) FROM dataset_year WHERE dataset_id = $1),
                    (SELECT to_timestamp(max(times[cardinality(times)])) FROM dataset_year WHERE dataset_id = $1),
                    (SELECT coalesce(sum(cardinality(times)), 0) FROM dataset_year WHERE dataset_id = $1)::int,
-                   (SELECT percentile_disc(0.5) WITHIN GROUP (ORDER BY step)
-                      FROM (SELECT times[i + 1] - times[i] AS step
-                              FROM dataset_year y, generate_subscripts(y.times, 1) i
-                             WHERE y.dataset_id = $1 AND i < cardinality(y.times) LIMIT 10000) s)::int,
+                   (SELECT times[1:least(cardinality(times), 2000)] FROM dataset_year WHERE dataset_id = $1 ORDER BY year LIMIT 1),
                    (SELECT coalesce(array_agg(year ORDER BY year), '{}') FROM dataset_year WHERE dataset_id = $1),
                    (SELECT count(*) FROM cell_statistic_state WHERE dataset_id = $1)::int
               FROM dataset d WHERE d.dataset_id = $1
@@ -125,8 +122,18 @@ public sealed class DatasetStore(NpgsqlDataSource dataSource)
         double? Get(int i) => reader.IsDBNull(i) ? null : reader.GetDouble(i);
         DateTime? Time(int i) => reader.IsDBNull(i) ? null : reader.GetDateTime(i).ToUniversalTime();
         return new DatasetSummary(dataset, reader.GetInt32(0), Get(1), Get(2), Get(3), Get(4), Time(5), Time(6),
-            reader.GetInt32(7), reader.IsDBNull(8) ? null : reader.GetInt32(8),
+            reader.GetInt32(7), reader.IsDBNull(8) ? null : MedianStep(reader.GetFieldValue<long[]>(8)),
             reader.GetFieldValue<short[]>(9).Select(y => (int)y).ToArray(), reader.GetInt32(10));
+    }
+
+    /// <summary>The median spacing of a time line's first steps, seconds; null for fewer than two steps.</summary>
+    private static int? MedianStep(long[] times)
+    {
+        if (times.Length < 2) return null;
+        var steps = new long[times.Length - 1];
+        for (var i = 1; i < times.Length; i++) steps[i - 1] = times[i] - times[i - 1];
+        Array.Sort(steps);
+        return (int)steps[steps.Length / 2];
     }
 
     public async Task<IReadOnlyList<SourceFileRecord>> SourceFilesAsync(int datasetId, CancellationToken cancel = default)
