@@ -97,44 +97,62 @@ public sealed class StatisticsService(NpgsqlDataSource dataSource, StatisticsOpt
         var closer = Task.WhenAll(calculators).ContinueWith(t => results.Writer.Complete(t.Exception), TaskScheduler.Default);
 
         var computedAt = DateTime.UtcNow;
-        var batchCells = new List<int>(CellsPerBatch);
-        var batchRows = new List<StatisticRow>(CellsPerBatch * 160);
+        // Batches are written by their own task, so the calculators keep computing while PostgreSQL stores rows.
+        var batches = Channel.CreateBounded<(List<int> Cells, List<StatisticRow> Rows)>(2);
         long rowCount = 0;
         var done = 0;
+        var writer = Task.Run(async () =>
+        {
+            try
+            {
+                await foreach (var (batchCells, batchRows) in batches.Reader.ReadAllAsync(token))
+                {
+                    await statistics.ReplaceAsync(dataset.Id, batchCells, batchRows, computedAt, token);
+                    done += batchCells.Count;
+                    rowCount += batchRows.Count;
+                    progress?.Report(new ProgressSnapshot("statistics", done, targets.Length, 0, clock.Elapsed, "cells"));
+                }
+            }
+            catch
+            {
+                await linked.CancelAsync();
+                throw;
+            }
+        }, token);
         var periodCodes = new HashSet<short>();
         try
         {
+            var cellsInBatch = new List<int>(CellsPerBatch);
+            var rowsInBatch = new List<StatisticRow>(CellsPerBatch * 160);
             await foreach (var (cell, rows) in results.Reader.ReadAllAsync(token))
             {
-                batchCells.Add(cell);
-                batchRows.AddRange(rows);
+                cellsInBatch.Add(cell);
+                rowsInBatch.AddRange(rows);
                 foreach (var row in rows) periodCodes.Add(row.Period);
-                if (batchCells.Count >= CellsPerBatch) await FlushAsync();
+                if (cellsInBatch.Count < CellsPerBatch) continue;
+                await batches.Writer.WriteAsync((cellsInBatch, rowsInBatch), token);
+                cellsInBatch = new List<int>(CellsPerBatch);
+                rowsInBatch = new List<StatisticRow>(CellsPerBatch * 160);
             }
-            await FlushAsync();
+            if (cellsInBatch.Count > 0) await batches.Writer.WriteAsync((cellsInBatch, rowsInBatch), token);
+            batches.Writer.Complete();
             await producer;
             await Task.WhenAll(calculators);
             await closer;
+            await writer;
         }
-        catch
+        catch (Exception e)
         {
             await linked.CancelAsync();
+            // Report the stage that failed first, not the cancellation it caused elsewhere.
+            var first = new[] { writer, producer }.Concat(calculators).FirstOrDefault(t => t.IsFaulted)?.Exception?.InnerException;
+            if (first is not null && e is OperationCanceledException && !cancel.IsCancellationRequested)
+                System.Runtime.ExceptionServices.ExceptionDispatchInfo.Throw(first);
             throw;
         }
 
         await datasets.MergeMetadataAsync(dataset.Id, MethodNotes(computedAt), cancel);
         return new StatisticsSummary(slug, done, periodCodes.Count, rowCount, (long)done * times.Length, clock.Elapsed);
-
-        async Task FlushAsync()
-        {
-            if (batchCells.Count == 0) return;
-            await statistics.ReplaceAsync(dataset.Id, batchCells, batchRows, computedAt, token);
-            done += batchCells.Count;
-            rowCount += batchRows.Count;
-            batchCells.Clear();
-            batchRows.Clear();
-            progress?.Report(new ProgressSnapshot("statistics", done, targets.Length, 0, clock.Elapsed, "cells"));
-        }
     }
 
     private string MethodNotes(DateTime computedAt)

@@ -57,6 +57,7 @@ public sealed class CellStore(NpgsqlDataSource dataSource)
                   FROM cell d WHERE d.dataset_id = c.dataset_id AND NOT d.wet
                  ORDER BY d.geom <-> c.geom LIMIT 1)
              WHERE c.dataset_id = $1 AND c.wet
+               AND EXISTS (SELECT 1 FROM cell d WHERE d.dataset_id = $1 AND NOT d.wet)
             """, connection, transaction);
         command.Parameters.AddWithValue(datasetId);
         await command.ExecuteNonQueryAsync(cancel);
