@@ -43,6 +43,8 @@ public static class AssessmentLayerApi
         var dataset = await catalog.FindAsync(slug, cancel);
         if (dataset is null) return ApiProblems.UnknownDataset(slug);
         if (await new DeviceStore(dataSource).FindAsync(device, cancel) is not { } stored) return DeviceApi.UnknownDevice(device);
+        if (AssessmentLayerBuilder.TimelineProblem(await catalog.TimelinesAsync(dataset, cancel)) is { } problem)
+            return ApiProblems.Unprocessable("No layer for this dataset", $"Dataset '{slug}' cannot carry an assessment layer: {problem}.");
         var layer = await new AssessmentLayerBuilder(dataSource).YieldAsync(dataset, stored, reading, cancel);
         return await RenderAsync(format, dataset, layer, $"{slug}_yield_{stored.Slug}.{format}", cells, provenance, cancel);
     }
@@ -58,7 +60,12 @@ public static class AssessmentLayerApi
         if (!AssessmentLayerWriter.Formats.Contains(format)) return UnknownFormat(format);
         var dataset = await catalog.FindAsync(slug, cancel);
         if (dataset is null) return ApiProblems.UnknownDataset(slug);
-        var layer = await new AssessmentLayerBuilder(dataSource).AccessibilityAsync(dataset, limits, duration, cancel);
+        if (AssessmentLayerBuilder.TimelineProblem(await catalog.TimelinesAsync(dataset, cancel)) is { } problem)
+            return ApiProblems.Unprocessable("No layer for this dataset", $"Dataset '{slug}' cannot carry an assessment layer: {problem}.");
+        var builder = new AssessmentLayerBuilder(dataSource);
+        if (limits.TpLimitSeconds is not null && !(await builder.StoredVariablesAsync(dataset, cancel)).Contains(Storage.Series.SeriesVariable.Tp))
+            return ApiProblems.Unprocessable("No Tp stored", $"Dataset '{slug}' stores no peak period, so a Tp limit cannot be applied; leave tp_max out.");
+        var layer = await builder.AccessibilityAsync(dataset, limits, duration, cancel);
         return await RenderAsync(format, dataset, layer, $"{slug}_accessibility.{format}", cells, provenance, cancel);
     }
 

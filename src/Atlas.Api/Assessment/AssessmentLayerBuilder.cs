@@ -98,6 +98,24 @@ public sealed class AssessmentLayerBuilder(NpgsqlDataSource dataSource)
         }, cancel);
     }
 
+    /// <summary>
+    /// Why a dataset's time line cannot carry a layer (fewer than two steps, or no common step), or null when it can.
+    /// </summary>
+    public static string? TimelineProblem(IReadOnlyDictionary<int, long[]> timelines)
+    {
+        var times = timelines.Values.SelectMany(t => t).ToArray();
+        if (times.Length < 2) return "it stores no series yet (fewer than two time steps); ingest its files first";
+        try
+        {
+            RegularSeries.FromTimes(times, new double[times.Length]);
+            return null;
+        }
+        catch (ArgumentException e)
+        {
+            return "its time line is not on a common step: " + e.Message.Split(" (Parameter")[0];
+        }
+    }
+
     private delegate void CellAnalysis(RegularSeries hs, RegularSeries? te, RegularSeries? tp, double[] output);
 
     /// <summary>Runs <paramref name="analyse"/> on every wet cell with its Hs, Te and Tp (null where not stored).</summary>
@@ -178,7 +196,7 @@ public sealed class AssessmentLayerBuilder(NpgsqlDataSource dataSource)
     private const int CellsPerBatch = 256;
 
     /// <summary>The variables the dataset's chunks hold, judged by the first stored chunk (an ingest writes the same variables for every cell).</summary>
-    private async Task<HashSet<SeriesVariable>> StoredVariablesAsync(DatasetRecord dataset, CancellationToken cancel)
+    public async Task<HashSet<SeriesVariable>> StoredVariablesAsync(DatasetRecord dataset, CancellationToken cancel)
     {
         var chunks = await new SeriesStore(dataSource).ReadCellAsync(dataset.Id, await FirstWetCellAsync(dataset, cancel), cancel: cancel);
         return chunks.Count == 0 ? [] : [.. Enum.GetValues<SeriesVariable>().Where(v => SeriesCodec.Has(chunks[0].Payload, v))];
