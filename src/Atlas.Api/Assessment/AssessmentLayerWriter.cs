@@ -29,10 +29,10 @@ public static class AssessmentLayerWriter
 
     public static byte[] Write(string format, DatasetRecord dataset, AssessmentLayer layer, IReadOnlyDictionary<int, CellRecord> cells, Provenance provenance) => format switch
     {
-        "csv" => Csv(layer, cells, provenance),
-        "geojson" => GeoJson(layer, cells, provenance, geo: true),
+        "csv" => Csv(layer, cells, provenance, ValidationReporting.SummaryLines(dataset.MetadataJson)),
+        "geojson" => GeoJson(layer, cells, provenance, ValidationReporting.SummaryLines(dataset.MetadataJson), geo: true),
         "tif" => GeoTiff(dataset, layer, cells, provenance),
-        _ => GeoJson(layer, cells, provenance, geo: false),
+        _ => GeoJson(layer, cells, provenance, ValidationReporting.SummaryLines(dataset.MetadataJson), geo: false),
     };
 
     private static IEnumerable<(int Index, CellRecord Cell)> Valued(AssessmentLayer layer, IReadOnlyDictionary<int, CellRecord> cells)
@@ -41,7 +41,7 @@ public static class AssessmentLayerWriter
             if (double.IsFinite(layer.Primary.Values[i]) && cells.TryGetValue(layer.CellIds[i], out var cell)) yield return (i, cell);
     }
 
-    private static byte[] Csv(AssessmentLayer layer, IReadOnlyDictionary<int, CellRecord> cells, Provenance provenance)
+    private static byte[] Csv(AssessmentLayer layer, IReadOnlyDictionary<int, CellRecord> cells, Provenance provenance, IReadOnlyList<string> validation)
     {
         var c = CultureInfo.InvariantCulture;
         var text = new StringBuilder();
@@ -50,6 +50,7 @@ public static class AssessmentLayerWriter
         text.Append("# units: ").Append(string.Join("; ", layer.Columns.Select(k => $"{k.Name} {k.Unit}"))).Append("; lon and lat in degrees (EPSG:4326)\n");
         text.Append("# computed_at: ").Append(layer.ComputedAtUtc.ToString("O", c)).Append('\n');
         foreach (var line in provenance.HeaderLines()) text.Append(line).Append('\n');
+        foreach (var line in validation) text.Append("# validation: ").Append(line).Append('\n');
         text.Append("cell_id,lon,lat,").Append(string.Join(',', layer.Columns.Select(k => k.Name))).Append('\n');
         foreach (var (i, cell) in Valued(layer, cells))
         {
@@ -60,7 +61,7 @@ public static class AssessmentLayerWriter
         return new UTF8Encoding(false).GetBytes(text.ToString());
     }
 
-    private static byte[] GeoJson(AssessmentLayer layer, IReadOnlyDictionary<int, CellRecord> cells, Provenance provenance, bool geo)
+    private static byte[] GeoJson(AssessmentLayer layer, IReadOnlyDictionary<int, CellRecord> cells, Provenance provenance, IReadOnlyList<string> validation, bool geo)
     {
         using var buffer = new MemoryStream();
         using (var json = new Utf8JsonWriter(buffer))
@@ -81,6 +82,9 @@ public static class AssessmentLayerWriter
             json.WritePropertyName("provenance");
             JsonSerializer.Serialize(json, provenance, GeoJsonSerialisation.Options);
             json.WriteString("caution", provenance.Caution);
+            json.WriteStartArray("validation");
+            foreach (var line in validation) json.WriteStringValue(line);
+            json.WriteEndArray();
             json.WriteStartArray(geo ? "features" : "cells");
             foreach (var (i, cell) in Valued(layer, cells))
             {
@@ -138,6 +142,8 @@ public static class AssessmentLayerWriter
             new("generated_at", provenance.GeneratedAtUtc.ToString("O", CultureInfo.InvariantCulture)),
             new("caution", provenance.Caution),
         };
+        var validation = ValidationReporting.SummaryLines(dataset.MetadataJson);
+        if (validation.Count > 0) items.Add(new("validation", string.Join("; ", validation)));
         var metadata = new GeoTiffMetadata($"{layer.Title} ({layer.Primary.Unit}); dataset {provenance.Dataset}. {provenance.Caution}", items,
             layer.Primary.Name, layer.Primary.Unit, provenance.Licence);
         return GeoTiffWriter.Write(raster, metadata, provenance.GeneratedAtUtc);

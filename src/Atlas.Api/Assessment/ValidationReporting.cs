@@ -91,6 +91,33 @@ public static class ValidationReporting
     private static string Field(string value) => value.Contains(',') || value.Contains('"') ? "\"" + value.Replace("\"", "\"\"") + "\"" : value;
 
     /// <summary>
+    /// One line per validated station from the <c>validation</c> member of a dataset's metadata (what <c>atlas validate</c>
+    /// stored), for the head of a download: "Name (role): hs N=..., bias=... m, RMSE=... m, SI=..., r=...". Empty when
+    /// the dataset has not been validated.
+    /// </summary>
+    public static IReadOnlyList<string> SummaryLines(string metadataJson)
+    {
+        using var document = JsonDocument.Parse(metadataJson);
+        if (!document.RootElement.TryGetProperty("validation", out var validation) || validation.ValueKind != JsonValueKind.Object
+            || !validation.TryGetProperty("stations", out var stations) || stations.ValueKind != JsonValueKind.Array)
+            return [];
+        var c = CultureInfo.InvariantCulture;
+        var lines = new List<string>();
+        foreach (var station in stations.EnumerateArray())
+        {
+            if (!station.TryGetProperty("variables", out var variables) || !variables.TryGetProperty("hs", out var hs)) continue;
+            string Number(string name, string format) => hs.TryGetProperty(name, out var v) && v.ValueKind == JsonValueKind.Number ? v.GetDouble().ToString(format, c) : "n/a";
+            lines.Add($"{Text(station, "station")} ({Text(station, "role")}): hs N={Number("n", "0")}, bias={Number("bias", "0.###")} m, " +
+                      $"RMSE={Number("rmse", "0.###")} m, SI={Number("scatter_index", "0.###")}, r={Number("pearson_r", "0.###")}");
+        }
+        if (lines.Count > 0 && validation.TryGetProperty("computed_at", out var at) && at.ValueKind == JsonValueKind.String)
+            lines.Add($"validated {at.GetString()} against the registered stations; details at /api/v1/datasets/{{slug}}/validation");
+        return lines;
+
+        static string Text(JsonElement e, string name) => e.TryGetProperty(name, out var v) && v.ValueKind == JsonValueKind.String ? v.GetString()! : "?";
+    }
+
+    /// <summary>
     /// The <c>validation</c> member of the dataset metadata: when and how the dataset was validated, and the overall skill
     /// of each variable at each covered station (per-season and per-class tables stay with the validation endpoint).
     /// </summary>

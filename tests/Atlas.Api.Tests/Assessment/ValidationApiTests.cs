@@ -6,6 +6,7 @@ using Atlas.Api.Assessment;
 using Atlas.Api.Tests.Support;
 using Atlas.Storage.Datasets;
 using Microsoft.Extensions.Caching.Memory;
+using Microsoft.Extensions.DependencyInjection;
 
 namespace Atlas.Api.Tests.Assessment;
 
@@ -278,5 +279,10 @@ public sealed class ValidationApiTests(AtlasApiFixture atlas)
         var expected = covered.Single(s => s.Station.Name == "Offset Buoy").Find("hs")!.Overall!;
         Assert.Equal(expected.ScatterIndex!.Value, offset.GetProperty("variables").GetProperty("hs").GetProperty("scatter_index").GetDouble(), 1e-12);
         Assert.Equal("validation", offset.GetProperty("role").GetString());
+        // ... and the head of the assessment downloads of that dataset (once the server's few-second row cache lets go,
+        // which the test does at once rather than wait).
+        atlas.Factory.Services.GetRequiredService<Atlas.Api.Infrastructure.DatasetCatalog>().Forget(AssessmentAtlas.ScaledSlug);
+        var csv = await _client.GetStringAsync($"/api/v1/datasets/{AssessmentAtlas.ScaledSlug}/layers/accessibility.csv?hs_max=2");
+        Assert.Contains(string.Create(CultureInfo.InvariantCulture, $"# validation: Offset Buoy (validation): hs N={expected.N}, bias={expected.Bias:0.###} m"), csv);
     }
 }
