@@ -169,6 +169,11 @@ public sealed class HindcastIngestor(NpgsqlDataSource dataSource)
                 }
                 await SeriesStore.WriteAsync(connection, datasetId, chunks, cancel);
                 cellYears += chunks.Count;
+                // The block's buffers are garbage now: collect them before the next block is filled, so that the
+                // process stays within the budget instead of holding several blocks' worth until the GC gets round to it.
+                chunks.Clear();
+                payloads = null!;
+                GC.Collect(2, GCCollectionMode.Forced, blocking: true, compacting: true);
             }
             await DatasetStore.UpsertTimelineAsync(connection, transaction, datasetId, year, timeline, cancel);
         }

@@ -13,7 +13,7 @@ public sealed record IngestRequest(
     bool ReplaceOverlap = false,
     VariableMapping? Mapping = null,
     long? JobId = null,
-    long MemoryBudgetBytes = 384L << 20);
+    long MemoryBudgetBytes = 256L << 20);
 
 /// <summary>The one-line outcome of an ingest.</summary>
 public sealed record IngestSummary(
