@@ -93,7 +93,7 @@ public static class ValidationApi
         var skill = ValidationReporting.Skill(validation);
         var source = await provenance.ForAsync(dataset, cancel);
         var symbol = StationValidator.Symbol(wanted);
-        if (format == "csv") return TypedResults.File(PairsCsv(slug, skill, symbol, list, source), "text/csv; charset=utf-8", $"{slug}_{found.Slug}_{symbol}_pairs.csv");
+        if (format == "csv") return TypedResults.File(PairsCsv(slug, skill, wanted, list, source), "text/csv; charset=utf-8", $"{slug}_{found.Slug}_{symbol}_pairs.csv");
 
         var quantiles = compared.Scalar is { } scalar
             ? scalar.Quantiles.Select(q => new QuantileRow(q.Probability, SkillRow.Finite(q.ObservedQuantile), SkillRow.Finite(q.ModelledQuantile))).ToArray()
@@ -194,13 +194,14 @@ public static class ValidationApi
 
     private static long ToUnix(DateTime utc) => (long)(utc - DateTime.UnixEpoch).TotalSeconds;
 
-    private static byte[] PairsCsv(string slug, StationSkill skill, string symbol, IReadOnlyList<ValidationPair> pairs, Provenance source)
+    private static byte[] PairsCsv(string slug, StationSkill skill, ValidatedVariable variable, IReadOnlyList<ValidationPair> pairs, Provenance source)
     {
+        var symbol = StationValidator.Symbol(variable);
         var c = CultureInfo.InvariantCulture;
         var text = new StringBuilder();
         text.Append(c, $"# matched {symbol} pairs of dataset {slug} at station {skill.Station.Name} ({skill.Station.Role}), cell {skill.Cell.Id}, {skill.Cell.DistanceM:0.#} m away\n");
         text.Append("# matching: ").Append(ValidationReporting.MatchingMethod).Append('\n');
-        text.Append(c, $"# units: time UTC (ISO 8601); observed and modelled in {StationValidator.UnitOf(StationValidator.TryParse(symbol, out var v) ? v : ValidatedVariable.Hs)}\n");
+        text.Append(c, $"# units: time UTC (ISO 8601); observed and modelled in {StationValidator.UnitOf(variable)}\n");
         foreach (var line in source.HeaderLines()) text.Append(line).Append('\n');
         text.Append("time,observed,modelled\n");
         foreach (var p in pairs)
