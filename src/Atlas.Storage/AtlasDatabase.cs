@@ -13,7 +13,9 @@ public static class AtlasDatabase
     public static string? ConfiguredConnectionString =>
         Environment.GetEnvironmentVariable(ConnectionVariable) is { Length: > 0 } s ? s : null;
 
-    public static EmbeddedCluster EmbeddedCluster() => new(AtlasHome.Resolve());
+    /// <summary>The embedded cluster of this home, on the port ATLAS_PG_PORT names (default 54329).</summary>
+    public static EmbeddedCluster EmbeddedCluster() =>
+        new(AtlasHome.Resolve(), int.TryParse(Environment.GetEnvironmentVariable("ATLAS_PG_PORT"), out var port) ? port : Storage.EmbeddedCluster.DefaultPort);
 
     /// <summary>The connection string to use, starting the embedded cluster first when none is configured.</summary>
     public static async Task<string> ResolveConnectionStringAsync(CancellationToken cancel = default)
