@@ -47,6 +47,7 @@ public static class AtlasApiRegistration
         services.AddSingleton<LayerRenderer>();
         services.AddSingleton<CellFootprints>();
         services.AddSingleton<PointLocator>();
+        services.AddSingleton<PointResponseCache>();
         services.AddSingleton<ApiKeyVerifier>();
         services.AddHostedService<SchemaStartup>();
         services.AddMemoryCache();

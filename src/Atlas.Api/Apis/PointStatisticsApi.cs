@@ -1,5 +1,6 @@
 using System.Globalization;
 using System.Text;
+using System.Text.Json;
 using Atlas.Api.Infrastructure;
 using Atlas.Api.Model;
 using Atlas.Api.Points;
@@ -7,6 +8,8 @@ using Atlas.Statistics;
 using Atlas.Api.Vocabulary;
 using Atlas.Storage.Series;
 using Microsoft.AspNetCore.Http.HttpResults;
+using Microsoft.AspNetCore.Http.Json;
+using Microsoft.Extensions.Options;
 
 namespace Atlas.Api.Apis;
 
@@ -27,11 +30,13 @@ public static class PointStatisticsApi
                 "Statistics are computed exactly from the stored series (percentiles Hyndman-Fan type 7); the cell (id, lat, lon, depth_m, " +
                 "distance_m) is the nearest wet cell, refused (422) beyond the distance limit or outside the extent. " +
                 "format=csv gives the period table after '#' lines of provenance, units and the caution.")
+            .Produces<PointStatistics>(StatusCodes.Status200OK, "application/json", "text/csv")
             .RequireRateLimiting(RateLimits.Expensive);
 
-    public static async Task<Results<Ok<PointStatistics>, FileContentHttpResult, ProblemHttpResult, ValidationProblem>> PointAsync(
+    public static async Task<Results<FileContentHttpResult, StatusCodeHttpResult, ProblemHttpResult, ValidationProblem>> PointAsync(
         string slug, string? lat, string? lon, string? period, string? from, string? to, string? months, string? include, string? format,
-        PointLocator locator, DatasetCatalog catalog, SeriesStore series, ProvenanceBuilder provenance, CancellationToken cancel)
+        PointLocator locator, DatasetCatalog catalog, SeriesStore series, ProvenanceBuilder provenance, PointResponseCache responses,
+        IOptions<JsonOptions> json, HttpContext http, CancellationToken cancel)
     {
         var errors = new Dictionary<string, string[]>();
         var position = PointLocator.ParsePosition(lat, lon, errors);
@@ -50,6 +55,9 @@ public static class PointStatisticsApi
 
         var (point, problem) = await locator.LocateAsync(slug, position.Value.Latitude, position.Value.Longitude, cancel);
         if (point is null) return problem!;
+        var key = await ResponseKeyAsync(point, position.Value, window, onlyPeriod, parts, csv, catalog, cancel);
+        if (responses.Find(key) is { } cached) return Respond(cached, http);
+
         var timelines = await catalog.TimelinesAsync(point.Dataset, cancel);
         var chunks = await series.ReadCellAsync(point.Dataset.Id, point.Nearest.Cell.CellId, window.FromYear, window.ToYear, cancel);
         if (chunks.Count == 0)
@@ -69,17 +77,44 @@ public static class PointStatisticsApi
         var source = await provenance.ForAsync(point.Dataset, cancel);
         var cell = PointApi.CellOf(point);
         var units = WaveParameterNames.All.ToDictionary(p => p.Symbol(), p => p.Unit());
-        if (csv) return TypedResults.File(Csv(slug, cell, window, periods, source), "text/csv; charset=utf-8", $"{slug}_point_{cell.Id}.csv");
+        if (csv)
+            return Respond(responses.Store(key, Csv(slug, cell, window, periods, source), "text/csv; charset=utf-8", $"{slug}_point_{cell.Id}.csv"), http);
 
         var annual = result.Find(AtlasPeriod.Annual);
-        return TypedResults.Ok(new PointStatistics(
+        var statistics = new PointStatistics(
             slug, cell, new PointWindow(window.FromYear, window.ToYear, window.Months), result.StepsInWindow, result.DeepWaterAssumed,
             result.EnergyPeriodSource, result.QuantileDefinition, units, periods,
             parts.Contains("exceedance") ? new PointExceedance(result.HsExceedance, result.PowerExceedance) : null,
             parts.Contains("joint") ? result.JointOccurrence : null,
             parts.Contains("rose") && annual is not null ? RoseOf(annual.Direction) : null,
             parts.Contains("interannual") ? result.InterAnnual : null,
-            source, AtlasCaution.Text));
+            source, AtlasCaution.Text);
+        var content = JsonSerializer.SerializeToUtf8Bytes(statistics, json.Value.SerializerOptions);
+        return Respond(responses.Store(key, content, "application/json; charset=utf-8", null), http);
+    }
+
+    /// <summary>
+    /// Everything that shapes a point response: the dataset and the stamps of its files and statistics, the asked
+    /// position (the cell's distance from it is part of the answer), the cell, the window, period, parts and format.
+    /// </summary>
+    private static async Task<string> ResponseKeyAsync(LocatedPoint point, (double Latitude, double Longitude) position, YearWindow window,
+        AtlasPeriod? onlyPeriod, HashSet<string> parts, bool csv, DatasetCatalog catalog, CancellationToken cancel)
+    {
+        var files = await catalog.SeriesStampAsync(point.Dataset, cancel);
+        var computed = await catalog.StatisticsStampAsync(point.Dataset, cancel);
+        return string.Join('|', "point", point.Dataset.Id, point.Dataset.CreatedAtUtc.Ticks, files.Token, computed.Token,
+            position.Latitude.ToString("R", CultureInfo.InvariantCulture), position.Longitude.ToString("R", CultureInfo.InvariantCulture),
+            point.Nearest.Cell.CellId, window.FromYear, window.ToYear, window.Months is { } m ? string.Join(',', m) : "",
+            onlyPeriod?.Name ?? "all", csv ? "csv" : string.Join(',', Parts.Where(parts.Contains)));
+    }
+
+    /// <summary>The response, or 304 when the client already holds it (If-None-Match); tagged for revalidation.</summary>
+    private static Results<FileContentHttpResult, StatusCodeHttpResult, ProblemHttpResult, ValidationProblem> Respond(PointResponse response, HttpContext http)
+    {
+        http.Response.Headers.ETag = response.ETag;
+        http.Response.Headers.CacheControl = "public, no-cache";
+        if (http.Request.Headers.IfNoneMatch.Contains(response.ETag)) return TypedResults.StatusCode(StatusCodes.Status304NotModified);
+        return TypedResults.File(response.Content, response.ContentType, response.FileName);
     }
 
     private static PowerRose RoseOf(DirectionStatistics direction) => new(

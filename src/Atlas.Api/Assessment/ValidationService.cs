@@ -20,8 +20,10 @@ public sealed class ValidationService(PointLocator locator, DatasetCatalog catal
     /// <summary>Builds the service on a data source, outside the web host (the command line).</summary>
     public static ValidationService Create(NpgsqlDataSource dataSource, IMemoryCache cache)
     {
-        var catalog = new DatasetCatalog(new DatasetStore(dataSource), new DatasetGeometryQueries(dataSource), cache);
-        var locator = new PointLocator(catalog, new CellStore(dataSource), Options.Create(new AtlasApiOptions()));
+        var options = Options.Create(new AtlasApiOptions());
+        var cells = new CellStore(dataSource);
+        var catalog = new DatasetCatalog(new DatasetStore(dataSource), new DatasetGeometryQueries(dataSource), cells, cache, options);
+        var locator = new PointLocator(catalog, cells, options);
         return new ValidationService(locator, catalog, new SeriesStore(dataSource), new StationStore(dataSource));
     }
 

@@ -58,6 +58,17 @@ public sealed class AtlasApiOptions : IValidatableObject
     [Range(0, 31_536_000)]
     public int LayerCacheSeconds { get; set; } = 3600;
 
+    /// <summary>
+    /// Datasets with at most this many wet cells keep them in memory for nearest-cell look-ups (about 100 bytes a
+    /// cell); larger ones are answered by the database's spatial index. 0 keeps none in memory.
+    /// </summary>
+    [Range(0, 100_000_000)]
+    public int PointIndexMaxCells { get; set; } = 5_000_000;
+
+    /// <summary>Memory for finished point responses (statistics by cell, window and format), MB; 0 turns the cache off.</summary>
+    [Range(0, 1 << 20)]
+    public int PointCacheMegabytes { get; set; } = 256;
+
     /// <summary>Checked at start-up: each configured digest must be 64 hex digits (blank entries are ignored).</summary>
     public IEnumerable<ValidationResult> Validate(ValidationContext validationContext)
     {

@@ -1,6 +1,9 @@
+using Atlas.Api.Points;
+using Atlas.Storage.Cells;
 using Atlas.Storage.Datasets;
 using Atlas.Storage.Queries;
 using Microsoft.Extensions.Caching.Memory;
+using Microsoft.Extensions.Options;
 
 namespace Atlas.Api.Infrastructure;
 
@@ -9,12 +12,14 @@ namespace Atlas.Api.Infrastructure;
 /// dataset row, its time lines and its cell spacing each time. Entries expire on their own (another process may
 /// ingest or recompute), and a delete through this API forgets the dataset at once.
 /// </summary>
-public sealed class DatasetCatalog(DatasetStore datasets, DatasetGeometryQueries geometry, IMemoryCache cache)
+public sealed class DatasetCatalog(DatasetStore datasets, DatasetGeometryQueries geometry, CellStore cells, IMemoryCache cache,
+    IOptions<AtlasApiOptions> options)
 {
     private static readonly TimeSpan RowLifetime = TimeSpan.FromSeconds(5);
     private static readonly TimeSpan TimelineLifetime = TimeSpan.FromSeconds(30);
     private static readonly TimeSpan StampLifetime = TimeSpan.FromSeconds(2);
     private static readonly TimeSpan SpacingLifetime = TimeSpan.FromMinutes(10);
+    private static readonly TimeSpan IndexIdleLifetime = TimeSpan.FromMinutes(10);
 
     public async Task<DatasetRecord?> FindAsync(string slug, CancellationToken cancel)
     {
@@ -31,6 +36,28 @@ public sealed class DatasetCatalog(DatasetStore datasets, DatasetGeometryQueries
 
     public Task<StatisticsStamp> StatisticsStampAsync(DatasetRecord dataset, CancellationToken cancel) =>
         CachedAsync(("stamp", dataset.Id, dataset.CreatedAtUtc), StampLifetime, () => geometry.StatisticsStampAsync(dataset.Id, cancel));
+
+    /// <summary>When the dataset's files were last loaded: a token that moves whenever series or wet cells may have changed.</summary>
+    public Task<SeriesStamp> SeriesStampAsync(DatasetRecord dataset, CancellationToken cancel) =>
+        CachedAsync(("series-stamp", dataset.Id, dataset.CreatedAtUtc), StampLifetime, () => geometry.SeriesStampAsync(dataset.Id, cancel));
+
+    /// <summary>
+    /// The dataset's wet cells indexed in memory for nearest-cell look-ups, rebuilt after each load of files; null
+    /// when the dataset has more wet cells than <see cref="AtlasApiOptions.PointIndexMaxCells"/> (the database's
+    /// spatial index answers then).
+    /// </summary>
+    public async Task<WetCellIndex?> WetCellsAsync(DatasetRecord dataset, CancellationToken cancel)
+    {
+        var stamp = await SeriesStampAsync(dataset, cancel);
+        var key = ("wet-cells", dataset.Id, dataset.CreatedAtUtc, stamp.Token);
+        if (cache.TryGetValue(key, out WetCellIndex? known)) return known;
+        var limit = options.Value.PointIndexMaxCells;
+        WetCellIndex? index = null;
+        if (limit > 0 && await cells.WetCountAsync(dataset.Id, cancel) <= limit)
+            index = new WetCellIndex(await cells.AllAsync(dataset.Id, cancel));
+        cache.Set(key, index, new MemoryCacheEntryOptions { SlidingExpiration = IndexIdleLifetime });
+        return index;
+    }
 
     /// <summary>The median distance between neighbouring wet cells, metres (null with fewer than two wet cells).</summary>
     public Task<double?> TypicalSpacingMetresAsync(DatasetRecord dataset, CancellationToken cancel) =>

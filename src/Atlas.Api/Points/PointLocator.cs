@@ -40,7 +40,9 @@ public sealed class PointLocator(DatasetCatalog catalog, CellStore cells, IOptio
             return (null, ApiProblems.Unprocessable("Outside the dataset extent",
                 $"({F(latitude)}, {F(longitude)}) lies outside dataset '{slug}', whose grid covers longitudes {F(extent.West)}..{F(extent.East)} " +
                 $"and latitudes {F(extent.South)}..{F(extent.North)}. Choose a position inside it."));
-        var nearest = await cells.NearestWetAsync(dataset.Id, latitude, longitude, cancel);
+        var nearest = await catalog.WetCellsAsync(dataset, cancel) is { } index
+            ? index.Nearest(latitude, longitude)
+            : await cells.NearestWetAsync(dataset.Id, latitude, longitude, cancel);
         if (nearest is null)
             return (null, ApiProblems.Unprocessable("The dataset has no wet cells", $"Dataset '{slug}' has no wet cell."));
         if (nearest.DistanceMetres > limitKm * 1000)

@@ -80,6 +80,14 @@ public sealed class CellStore(NpgsqlDataSource dataSource)
         return new NearestCell(Read(reader), reader.GetDouble(8));
     }
 
+    /// <summary>The number of wet cells of a dataset.</summary>
+    public async Task<int> WetCountAsync(int datasetId, CancellationToken cancel = default)
+    {
+        await using var command = dataSource.CreateCommand("SELECT count(*)::int FROM cell WHERE dataset_id = $1 AND wet");
+        command.Parameters.AddWithValue(datasetId);
+        return (int)(await command.ExecuteScalarAsync(cancel))!;
+    }
+
     public async Task<CellRecord?> FindAsync(int datasetId, int cellId, CancellationToken cancel = default)
     {
         await using var command = dataSource.CreateCommand($"SELECT {Columns} FROM cell WHERE dataset_id = $1 AND cell_id = $2");

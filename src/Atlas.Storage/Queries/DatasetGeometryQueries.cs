@@ -9,6 +9,14 @@ public sealed record StatisticsStamp(DateTime? ComputedAtUtc, int CellCount)
     public string Token => ComputedAtUtc is { } t ? $"{t.Ticks:x}-{CellCount:x}" : "none";
 }
 
+/// <summary>How many source files a dataset holds and when the last was loaded: it moves whenever series, time
+/// lines or wet cells may have changed (every ingest or replacement writes a source_file row).</summary>
+public sealed record SeriesStamp(int FileCount, DateTime? LastLoadedUtc)
+{
+    /// <summary>A short token that changes whenever a file is loaded or replaced (for cache keys).</summary>
+    public string Token => LastLoadedUtc is { } t ? $"{t.Ticks:x}-{FileCount:x}" : "none";
+}
+
 /// <summary>A (parameter, period) pair that has statistics rows in a dataset, with the number of cells that have it.</summary>
 public readonly record struct LayerCombination(short Parameter, short Period);
 
@@ -58,6 +66,15 @@ public sealed class DatasetGeometryQueries(NpgsqlDataSource dataSource)
         await using var reader = await command.ExecuteReaderAsync(cancel);
         await reader.ReadAsync(cancel);
         return new StatisticsStamp(reader.IsDBNull(0) ? null : reader.GetDateTime(0).ToUniversalTime(), reader.GetInt32(1));
+    }
+
+    public async Task<SeriesStamp> SeriesStampAsync(int datasetId, CancellationToken cancel = default)
+    {
+        await using var command = dataSource.CreateCommand("SELECT count(*)::int, max(loaded_at) FROM source_file WHERE dataset_id = $1");
+        command.Parameters.AddWithValue(datasetId);
+        await using var reader = await command.ExecuteReaderAsync(cancel);
+        await reader.ReadAsync(cancel);
+        return new SeriesStamp(reader.GetInt32(0), reader.IsDBNull(1) ? null : reader.GetDateTime(1).ToUniversalTime());
     }
 
     /// <summary>
