@@ -6,14 +6,15 @@ namespace Atlas.Statistics;
 /// variability, optionally restricted to a window of years and months.
 /// </summary>
 /// <remarks>
-/// Each parameter's valid steps inside the window are sorted once (with their (year, month) slot) and dealt out,
+/// Each parameter's valid steps inside the window are sorted once (a radix sort, with their (year, month) slot) and dealt out,
 /// still sorted, to every period they belong to; percentiles are then read exactly under the chosen
-/// <see cref="QuantileDefinition"/>, means are compensated sums in double, standard deviations the population ones.
+/// <see cref="QuantileDefinition"/>, means are sums in double, standard deviations the population ones.
 /// Te, power and the directionality coefficient are derived per step exactly as in the layer pass
 /// (<see cref="CellStatisticsCalculator"/>), so the two agree except for the histogram percentiles.
 /// </remarks>
 public static class PointAnalysis
 {
+    private const int ParallelSortSteps = 50_000;
     private static readonly AtlasPeriod[] InterAnnualPeriods = [AtlasPeriod.Annual, AtlasPeriod.Djf, AtlasPeriod.Mam, AtlasPeriod.Jja, AtlasPeriod.Son];
 
     /// <summary>Analyses one point.</summary>
@@ -33,12 +34,26 @@ public static class PointAnalysis
         bool hasPower = derived.Power.Length > 0;
         QuantileDefinition definition = options.QuantileDefinition;
 
-        double[][]? hs = window.SortedPerPeriod(series.Hs, WaveParameter.Hs);
-        double[][]? te = window.SortedPerPeriod(derived.Te, WaveParameter.Te);
-        double[][]? tp = window.SortedPerPeriod(series.Tp, WaveParameter.Tp);
-        double[][]? power = window.SortedPerPeriod(derived.Power, WaveParameter.J);
-        double[][]? spread = window.SortedPerPeriod(series.Spread, WaveParameter.Spread);
-        double[][]? directionality = window.SortedPerPeriod(derived.Directionality, WaveParameter.D);
+        long[]?[] packed =
+        [
+            window.Pack(series.Hs, WaveParameter.Hs), window.Pack(derived.Te, WaveParameter.Te), window.Pack(series.Tp, WaveParameter.Tp),
+            window.Pack(derived.Power, WaveParameter.J), window.Pack(series.Spread, WaveParameter.Spread),
+            window.Pack(derived.Directionality, WaveParameter.D),
+        ];
+        var sortedParameters = new double[][]?[packed.Length];
+        var summaries = new SummaryStatistics[packed.Length][];
+        void SortAndSummarise(int k)
+        {
+            double[][]? sorted = sortedParameters[k] = window.SortedPerPeriod(packed[k]);
+            summaries[k] = new SummaryStatistics[window.Periods.Count];
+            for (int i = 0; i < summaries[k].Length; i++)
+                summaries[k][i] = sorted is null ? SummaryStatistics.Empty : ExactSummary.Of(sorted[i], window.Periods[i].Expected, definition);
+        }
+        // A long series (decades of hourly steps) sorts and summarises its parameters on every core; a short one is
+        // not worth the hand-off.
+        if (series.Times.Length >= ParallelSortSteps) Parallel.For(0, packed.Length, SortAndSummarise);
+        else for (int k = 0; k < packed.Length; k++) SortAndSummarise(k);
+        double[][]? hs = sortedParameters[0], power = sortedParameters[3];
 
         var direction = new DirectionAccumulator();
         if (series.Dir.Length > 0 && hasPower)
@@ -51,10 +66,9 @@ public static class PointAnalysis
         for (int i = 0; i < periods.Length; i++)
         {
             (AtlasPeriod period, int[] slots, long expected) = window.Periods[i];
-            SummaryStatistics Summary(double[][]? sorted) => sorted is null ? SummaryStatistics.Empty : ExactSummary.Of(sorted[i], expected, definition);
-            SummaryStatistics hsSummary = Summary(hs), powerSummary = Summary(power);
+            SummaryStatistics hsSummary = summaries[0][i], powerSummary = summaries[3][i];
             periods[i] = new PeriodStatistics(
-                period, expected, hsSummary, Summary(te), Summary(tp), powerSummary, Summary(spread), Summary(directionality),
+                period, expected, hsSummary, summaries[1][i], summaries[2][i], powerSummary, summaries[4][i], summaries[5][i],
                 direction.Summarise(slots, expected),
                 Exceedances(hs?[i], settings.HsThresholdsMetres),
                 Exceedances(power?[i], settings.PowerThresholdsKilowattsPerMetre),
@@ -240,7 +254,10 @@ public static class PointAnalysis
     private sealed class WindowedPeriods
     {
         private readonly bool[] _included;
-        private readonly int[][] _periodsOfSlot;
+        // The periods a slot belongs to (its month, season, the whole window and its year: at most four), in rows of four.
+        private const int MaxPeriodsPerSlot = 4;
+        private readonly int[] _periodsOfSlot;
+        private readonly int[] _periodCountOfSlot;
 
         public WindowedPeriods(TimelineCalendar calendar, AnalysisWindow? window)
         {
@@ -264,7 +281,15 @@ public static class PointAnalysis
                 periods.Add((period, slots, expected));
             }
             Periods = periods;
-            _periodsOfSlot = [.. periodsOfSlot.Select(list => list.ToArray())];
+            _periodsOfSlot = new int[MaxPeriodsPerSlot * calendar.SlotCount];
+            _periodCountOfSlot = new int[calendar.SlotCount];
+            for (int s = 0; s < periodsOfSlot.Length; s++)
+            {
+                if (periodsOfSlot[s].Count > MaxPeriodsPerSlot)
+                    throw new InvalidOperationException($"A calendar slot belongs to {periodsOfSlot[s].Count} periods; at most {MaxPeriodsPerSlot} were expected.");
+                periodsOfSlot[s].CopyTo(_periodsOfSlot, MaxPeriodsPerSlot * s);
+                _periodCountOfSlot[s] = periodsOfSlot[s].Count;
+            }
         }
 
         public TimelineCalendar Calendar { get; }
@@ -281,13 +306,15 @@ public static class PointAnalysis
             return -1;
         }
 
-        /// <summary>The valid values inside the window, sorted, for each period; null when the series is absent.</summary>
+        /// <summary>
+        /// The valid values inside the window, each packed into one 64-bit key with its slot (value bits above, slot
+        /// below); null when the series is absent.
+        /// </summary>
         /// <remarks>
         /// Every parameter sorted here is non-negative, and the bits of a non-negative float order like the float, so
-        /// each step becomes one 64-bit key (value bits above, slot below) and a primitive sort orders values and
-        /// carries their slots at once (several times faster than sorting keys with an items array).
+        /// sorting the keys by their upper half orders the values and carries their slots along.
         /// </remarks>
-        public double[][]? SortedPerPeriod(ReadOnlySpan<float> values, WaveParameter parameter)
+        public long[]? Pack(ReadOnlySpan<float> values, WaveParameter parameter)
         {
             if (values.Length == 0) return null;
             ReadOnlySpan<int> stepSlots = Calendar.StepSlots;
@@ -301,23 +328,33 @@ public static class PointAnalysis
                 float value = values[i] + 0f; // -0 becomes +0, whose bits sort first
                 packed[k++] = (long)BitConverter.SingleToInt32Bits(value) << 32 | (uint)stepSlots[i];
             }
-            Array.Sort(packed);
-            var keys = new double[valid];
-            var slots = new int[valid];
-            for (int k = 0; k < valid; k++)
-            {
-                keys[k] = BitConverter.Int32BitsToSingle((int)(packed[k] >> 32));
-                slots[k] = (int)(packed[k] & 0xFFFF_FFFF);
-            }
+            return packed;
+        }
 
+        /// <summary>The packed values sorted and dealt out, still sorted, to every period they belong to; null when absent.</summary>
+        public double[][]? SortedPerPeriod(long[]? packed)
+        {
+            if (packed is null) return null;
+            ValueRadixSort.SortByUpperHalf(packed);
+            // Per period: the count of its steps, from the steps per slot.
+            var slotCounts = new int[_periodCountOfSlot.Length];
+            foreach (long key in packed) slotCounts[(int)(key & 0xFFFF_FFFF)]++;
             var counts = new int[Periods.Count];
-            foreach (int s in slots)
-                foreach (int p in _periodsOfSlot[s]) counts[p]++;
+            for (int s = 0; s < slotCounts.Length; s++)
+                for (int k = 0; k < _periodCountOfSlot[s]; k++) counts[_periodsOfSlot[MaxPeriodsPerSlot * s + k]] += slotCounts[s];
             var sorted = new double[Periods.Count][];
-            for (int p = 0; p < sorted.Length; p++) sorted[p] = new double[counts[p]];
+            for (int p = 0; p < sorted.Length; p++) sorted[p] = GC.AllocateUninitializedArray<double>(counts[p]);
             Array.Clear(counts);
-            for (int k = 0; k < keys.Length; k++)
-                foreach (int p in _periodsOfSlot[slots[k]]) sorted[p][counts[p]++] = keys[k];
+            foreach (long key in packed)
+            {
+                double value = BitConverter.Int32BitsToSingle((int)(key >> 32));
+                int slot = (int)(key & 0xFFFF_FFFF), row = MaxPeriodsPerSlot * slot;
+                for (int k = 0; k < _periodCountOfSlot[slot]; k++)
+                {
+                    int p = _periodsOfSlot[row + k];
+                    sorted[p][counts[p]++] = value;
+                }
+            }
             return sorted;
         }
     }

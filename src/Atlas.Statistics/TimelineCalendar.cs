@@ -26,9 +26,20 @@ public sealed class TimelineCalendar
         _stepSlots = new int[_times.Length];
         var yearMonth = new (int Year, int Month)[_times.Length];
         int firstYear = int.MaxValue, lastYear = int.MinValue;
+        // Steps are converted to a calendar month once per month, not once per step: a step inside the month of the
+        // previous one takes its year and month (decades of hourly steps would otherwise spend milliseconds here).
+        long monthStart = long.MaxValue, monthEnd = long.MinValue;
+        (int Year, int Month) current = default;
         for (int i = 0; i < _times.Length; i++)
         {
-            (int year, int month) = YearMonthOf(_times[i], i);
+            if (_times[i] < monthStart || _times[i] >= monthEnd)
+            {
+                current = YearMonthOf(_times[i], i);
+                var first = new DateTimeOffset(current.Year, current.Month, 1, 0, 0, 0, TimeSpan.Zero);
+                monthStart = first.ToUnixTimeSeconds();
+                monthEnd = first.AddMonths(1).ToUnixTimeSeconds();
+            }
+            (int year, int month) = current;
             yearMonth[i] = (year, month);
             firstYear = Math.Min(firstYear, year);
             lastYear = Math.Max(lastYear, year);
@@ -38,16 +49,19 @@ public sealed class TimelineCalendar
         _slotSteps = new long[12 * YearSpan];
 
         var runs = new List<StepRun>();
+        int runStart = 0;
         for (int i = 0; i < _times.Length; i++)
         {
             int slot = 12 * (yearMonth[i].Year - FirstYear) + yearMonth[i].Month - 1;
             _stepSlots[i] = slot;
             _slotSteps[slot]++;
-            if (runs.Count > 0 && runs[^1].Slot == slot && runs[^1].Start + runs[^1].Length == i)
-                runs[^1] = runs[^1] with { Length = runs[^1].Length + 1 };
-            else
-                runs.Add(new StepRun(i, 1, slot));
+            if (i > 0 && slot != _stepSlots[i - 1])
+            {
+                runs.Add(new StepRun(runStart, i - runStart, _stepSlots[i - 1]));
+                runStart = i;
+            }
         }
+        if (_times.Length > 0) runs.Add(new StepRun(runStart, _times.Length - runStart, _stepSlots[^1]));
         _runs = [.. runs];
 
         var years = new List<int>();

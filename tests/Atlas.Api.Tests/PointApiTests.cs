@@ -94,6 +94,51 @@ public sealed class PointApiTests(AtlasApiFixture atlas)
     }
 
     [Fact]
+    public async Task ARepeatedPointRequestIsRevalidatedByItsETagUntilTheDatasetChanges()
+    {
+        var url = $"{Point}?{At(4, 3)}&include=rose";
+        var first = await _client.GetAsync(url);
+        var etag = first.Headers.ETag!;
+        var body = await first.Content.ReadAsStringAsync();
+        Assert.Equal(body, await _client.GetStringAsync(url));
+
+        using var conditional = new HttpRequestMessage(HttpMethod.Get, url);
+        conditional.Headers.IfNoneMatch.Add(etag);
+        Assert.Equal(HttpStatusCode.NotModified, (await _client.SendAsync(conditional)).StatusCode);
+
+        // A file loaded later (another process's ingest) changes the dataset's stamp: the answer is made afresh and
+        // names the new file in its provenance, under a new tag.
+        var sql = $"INSERT INTO source_file (dataset_id, file_name, sha256, size_bytes, time_start, time_end, step_count) " +
+                  $"SELECT dataset_id, 'later-file.nc', repeat('ab', 32), 1, now(), now(), 1 FROM dataset WHERE slug = '{SyntheticAtlas.CoastSlug}'";
+        await atlas.CountAsync(sql + " RETURNING 1");
+        try
+        {
+            // The stamps are cached for two seconds; poll a little longer than that.
+            var changed = await _client.GetAsync(url);
+            for (var attempt = 0; attempt < 50 && changed.Headers.ETag!.Equals(etag); attempt++)
+            {
+                await Task.Delay(200);
+                changed = await _client.GetAsync(url);
+            }
+            Assert.NotEqual(etag, changed.Headers.ETag);
+            Assert.Contains("later-file.nc", await changed.Content.ReadAsStringAsync());
+        }
+        finally
+        {
+            await atlas.CountAsync("WITH gone AS (DELETE FROM source_file WHERE file_name = 'later-file.nc' RETURNING 1) SELECT count(*) FROM gone");
+        }
+    }
+
+    [Fact]
+    public async Task IdenticalConcurrentPointRequestsAllGetTheSameAnswer()
+    {
+        var url = $"{Point}?lat=40.51&lon=20.49&include=joint";
+        var bodies = await Task.WhenAll(Enumerable.Range(0, 16).Select(_ => _client.GetStringAsync(url)));
+        Assert.Single(bodies.Distinct());
+        Assert.Equal(SyntheticAtlas.CellId(5, 5), JsonDocument.Parse(bodies[0]).RootElement.GetProperty("cell").GetProperty("id").GetInt32());
+    }
+
+    [Fact]
     public async Task NearestWetCellAndItsGreatCircleDistanceAreReported()
     {
         var root = JsonDocument.Parse(await _client.GetStringAsync($"{Point}?lat=40.42&lon=20.33&include=none")).RootElement;

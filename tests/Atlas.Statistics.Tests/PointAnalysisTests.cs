@@ -50,6 +50,26 @@ public class PointAnalysisTests(InventedSeriesReference reference)
         Assert.Equal(result.Find(AtlasPeriod.Jja)!.Hs, result.Find(AtlasPeriod.Annual)!.Hs);
     }
 
+    // Seven years of hourly steps (61,368) take the path that radix-sorts the parameters on every core: the same
+    // NumPy reference (numpy.percentile 'linear', float64 means) to the same tolerances.
+    [Fact]
+    public void DecadesOfHourlyStepsMatchNumPyOnTheParallelPath()
+    {
+        var data = new InventedSeries(firstYear: 2010, years: 7, stepHours: 1, seed: 11);
+        JsonNode expected = data.Reference(reference.Options);
+        PointAnalysisResult result = PointAnalysis.Analyse(data.Series());
+        Assert.Equal(61_368, result.StepsInWindow);
+        foreach (PeriodStatistics period in result.Periods)
+        {
+            JsonNode e = Periods(expected)[period.Period.Name]!;
+            string name = period.Period.Name;
+            ReferenceAssert.Summary(e["hs"], period.Hs, $"{name} hs", 1e-12, 0, 1e-12 * 20);
+            ReferenceAssert.Summary(e["tp"], period.Tp, $"{name} tp", 1e-12, 0, 1e-12 * 20);
+            ReferenceAssert.Summary(e["spread"], period.Spread, $"{name} spread", 1e-12, 0, 1e-12 * 50);
+            ReferenceAssert.Summary(e["j"], period.J, $"{name} j", 3e-7, 3e-7, 3e-7 * 200);
+        }
+    }
+
     // Exceedance curves at 0, 0.1, 0.2 ... m and 0, 1, 2 ... kW/m (numpy mean of v > t in float32), the joint Hs-Te
     // table against numpy.histogram2d on 0.5 m x 1 s bins, and yearly and seasonal means with the coefficient of
     // variation (ddof = 1) of the years with enough coverage.

@@ -56,14 +56,22 @@ public static class PointStatisticsApi
         var (point, problem) = await locator.LocateAsync(slug, position.Value.Latitude, position.Value.Longitude, cancel);
         if (point is null) return problem!;
         var key = await ResponseKeyAsync(point, position.Value, window, onlyPeriod, parts, csv, catalog, cancel);
-        if (responses.Find(key) is { } cached) return Respond(cached, http);
+        // Computed without the request's cancellation: other requests for the same key may be waiting on it.
+        var (response, failure) = await responses.GetOrComputeAsync(key,
+            () => ComputeAsync(point, window, onlyPeriod, parts, csv, catalog, series, provenance, json.Value.SerializerOptions, CancellationToken.None));
+        return response is null ? failure! : Respond(response, http);
+    }
 
+    private static async Task<PointOutcome> ComputeAsync(LocatedPoint point, YearWindow window, AtlasPeriod? onlyPeriod, HashSet<string> parts,
+        bool csv, DatasetCatalog catalog, SeriesStore series, ProvenanceBuilder provenance, JsonSerializerOptions json, CancellationToken cancel)
+    {
+        var slug = point.Dataset.Slug;
         var timelines = await catalog.TimelinesAsync(point.Dataset, cancel);
         var chunks = await series.ReadCellAsync(point.Dataset.Id, point.Nearest.Cell.CellId, window.FromYear, window.ToYear, cancel);
         if (chunks.Count == 0)
-            return ApiProblems.Unprocessable("No series in the window",
+            return PointOutcome.Failed(ApiProblems.Unprocessable("No series in the window",
                 $"Cell {point.Nearest.Cell.CellId} of '{slug}' has no stored series{WindowText(window)}; stored years are " +
-                $"{(timelines.Count == 0 ? "none" : $"{timelines.Keys.First()}..{timelines.Keys.Last()}")}.");
+                $"{(timelines.Count == 0 ? "none" : $"{timelines.Keys.First()}..{timelines.Keys.Last()}")}."));
         var decoded = PointSeriesReader.Decode(chunks, timelines, point.Nearest.Cell.DepthMetres is { } d ? d : double.NaN);
         var result = PointAnalysis.Analyse(decoded.ToCellSeries(), new PointAnalysisOptions
         {
@@ -71,14 +79,13 @@ public static class PointStatisticsApi
         });
         var periods = result.Periods.Where(p => onlyPeriod is not { } only || p.Period == only).ToArray();
         if (periods.Length == 0)
-            return ApiProblems.Unprocessable("The period has no steps in the window",
-                $"{onlyPeriod!.Value.Name} has no step{WindowText(window)} at cell {point.Nearest.Cell.CellId}; widen the window or choose another period.");
+            return PointOutcome.Failed(ApiProblems.Unprocessable("The period has no steps in the window",
+                $"{onlyPeriod!.Value.Name} has no step{WindowText(window)} at cell {point.Nearest.Cell.CellId}; widen the window or choose another period."));
 
         var source = await provenance.ForAsync(point.Dataset, cancel);
         var cell = PointApi.CellOf(point);
         var units = WaveParameterNames.All.ToDictionary(p => p.Symbol(), p => p.Unit());
-        if (csv)
-            return Respond(responses.Store(key, Csv(slug, cell, window, periods, source), "text/csv; charset=utf-8", $"{slug}_point_{cell.Id}.csv"), http);
+        if (csv) return new PointOutcome(Csv(slug, cell, window, periods, source), "text/csv; charset=utf-8", $"{slug}_point_{cell.Id}.csv", null);
 
         var annual = result.Find(AtlasPeriod.Annual);
         var statistics = new PointStatistics(
@@ -89,8 +96,7 @@ public static class PointStatisticsApi
             parts.Contains("rose") && annual is not null ? RoseOf(annual.Direction) : null,
             parts.Contains("interannual") ? result.InterAnnual : null,
             source, AtlasCaution.Text);
-        var content = JsonSerializer.SerializeToUtf8Bytes(statistics, json.Value.SerializerOptions);
-        return Respond(responses.Store(key, content, "application/json; charset=utf-8", null), http);
+        return new PointOutcome(JsonSerializer.SerializeToUtf8Bytes(statistics, json), "application/json; charset=utf-8", null, null);
     }
 
     /// <summary>

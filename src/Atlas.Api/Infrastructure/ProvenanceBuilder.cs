@@ -25,9 +25,11 @@ public sealed class ProvenanceBuilder(DatasetStore datasets, DatasetCatalog cata
 
     public async Task<Provenance> ForAsync(DatasetRecord dataset, CancellationToken cancel)
     {
-        var files = await cache.GetOrCreateAsync(("files", dataset.Id, dataset.CreatedAtUtc), async entry =>
+        // Keyed by the files stamp, so the list follows every load at once (answers cached by that stamp must name their files).
+        var loaded = await catalog.SeriesStampAsync(dataset, cancel);
+        var files = await cache.GetOrCreateAsync(("files", dataset.Id, dataset.CreatedAtUtc, loaded.Token), async entry =>
         {
-            entry.AbsoluteExpirationRelativeToNow = TimeSpan.FromSeconds(30);
+            entry.AbsoluteExpirationRelativeToNow = TimeSpan.FromMinutes(10);
             return await datasets.SourceFilesAsync(dataset.Id, cancel);
         });
         var stamp = await catalog.StatisticsStampAsync(dataset, cancel);

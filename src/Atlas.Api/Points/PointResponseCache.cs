@@ -1,6 +1,8 @@
+using System.Collections.Concurrent;
 using System.Security.Cryptography;
 using System.Text;
 using Atlas.Api.Infrastructure;
+using Microsoft.AspNetCore.Http.HttpResults;
 using Microsoft.Extensions.Caching.Memory;
 using Microsoft.Extensions.Options;
 
@@ -8,6 +10,12 @@ namespace Atlas.Api.Points;
 
 /// <summary>A finished point response: its bytes, media type, download name (CSV) and entity tag.</summary>
 public sealed record PointResponse(byte[] Content, string ContentType, string? FileName, string ETag);
+
+/// <summary>What computing a point response gave: its content, or the problem that prevented it (never cached).</summary>
+public sealed record PointOutcome(byte[]? Content, string ContentType, string? FileName, ProblemHttpResult? Problem)
+{
+    public static PointOutcome Failed(ProblemHttpResult problem) => new(null, "", null, problem);
+}
 
 /// <summary>
 /// Finished point responses in memory, bounded by <see cref="AtlasApiOptions.PointCacheMegabytes"/>. A response is
@@ -19,6 +27,7 @@ public sealed record PointResponse(byte[] Content, string ContentType, string? F
 public sealed class PointResponseCache : IDisposable
 {
     private readonly MemoryCache? _cache;
+    private readonly ConcurrentDictionary<string, Lazy<Task<(PointResponse?, ProblemHttpResult?)>>> _inFlight = new();
 
     public PointResponseCache(IOptions<AtlasApiOptions> options)
     {
@@ -26,11 +35,27 @@ public sealed class PointResponseCache : IDisposable
         if (megabytes > 0) _cache = new MemoryCache(new MemoryCacheOptions { SizeLimit = megabytes * (1L << 20), CompactionPercentage = 0.25 });
     }
 
-    /// <summary>The cached response for the key, or null.</summary>
-    public PointResponse? Find(string key) => _cache is not null && _cache.TryGetValue(key, out PointResponse? found) ? found : null;
+    /// <summary>
+    /// The response for the key: the cached one, or the one <paramref name="compute"/> makes (then kept). Requests
+    /// for a key already being computed wait for that computation instead of repeating it, so a burst of identical
+    /// requests costs one computation. Returns the problem instead when the computation gave one.
+    /// </summary>
+    public async Task<(PointResponse? Response, ProblemHttpResult? Problem)> GetOrComputeAsync(string key, Func<Task<PointOutcome>> compute)
+    {
+        if (_cache is not null && _cache.TryGetValue(key, out PointResponse? found)) return (found, null);
+        var shared = _inFlight.GetOrAdd(key, k => new Lazy<Task<(PointResponse?, ProblemHttpResult?)>>(async () =>
+        {
+            try
+            {
+                var outcome = await compute();
+                return outcome.Content is null ? (null, outcome.Problem) : (Store(k, outcome.Content, outcome.ContentType, outcome.FileName), null);
+            }
+            finally { _inFlight.TryRemove(k, out _); }
+        }));
+        return await shared.Value;
+    }
 
-    /// <summary>Makes a response (with its entity tag, a digest of the key) and keeps it when the cache is on.</summary>
-    public PointResponse Store(string key, byte[] content, string contentType, string? fileName)
+    private PointResponse Store(string key, byte[] content, string contentType, string? fileName)
     {
         var digest = SHA256.HashData(Encoding.UTF8.GetBytes(key));
         var response = new PointResponse(content, contentType, fileName, $"\"p-{Convert.ToHexStringLower(digest, 0, 12)}\"");
