@@ -26,7 +26,9 @@ public sealed class LayerApiTests(AtlasApiFixture atlas)
     private async Task<Dictionary<int, LayerValue>> StoredLayerAsync(short parameter, short period, StoredStatistic statistic)
     {
         var dataset = (await new Atlas.Storage.Datasets.DatasetStore(atlas.DataSource).FindAsync(SyntheticAtlas.CoastSlug))!;
-        return (await new StatisticsStore(atlas.DataSource).LayerAsync(dataset.Id, parameter, period, statistic)).ToDictionary(v => v.CellId);
+        var cells = (await new Atlas.Storage.Cells.CellStore(atlas.DataSource).AllAsync(dataset.Id)).ToDictionary(c => c.CellId);
+        return (await new StatisticsStore(atlas.DataSource).LayerAsync(dataset.Id, parameter, period, statistic, cells.GetValueOrDefault))
+            .ToDictionary(v => v.CellId);
     }
 
     private static string Inv(double v) => v.ToString("R", CultureInfo.InvariantCulture);

@@ -87,7 +87,8 @@ public static class AreaApi
                 $"{(spacing ?? 0) / 1000:0.##} km apart: draw the area over the sea within the dataset extent, and larger than one cell.");
         }
 
-        var values = (await statistics.LayerAsync(dataset.Id, (short)p, t.Code, ParameterCatalogue.Stored(s), cancel: cancel))
+        var values = (await statistics.LayerAsync(dataset.Id, (short)p, t.Code, ParameterCatalogue.Stored(s),
+                (await catalog.CellsAsync(dataset, cancel)).Find, cancel: cancel))
             .ToDictionary(v => v.CellId, v => v.Value);
         var withValue = inside.Where(c => values.ContainsKey(c.CellId)).ToArray();
         var sorted = withValue.Select(c => values[c.CellId]).Order().ToArray();

@@ -19,7 +19,8 @@ public sealed class DatasetCatalog(DatasetStore datasets, DatasetGeometryQueries
     private static readonly TimeSpan TimelineLifetime = TimeSpan.FromSeconds(30);
     private static readonly TimeSpan StampLifetime = TimeSpan.FromSeconds(2);
     private static readonly TimeSpan SpacingLifetime = TimeSpan.FromMinutes(10);
-    private static readonly TimeSpan IndexIdleLifetime = TimeSpan.FromMinutes(10);
+    private static readonly TimeSpan LargeValueIdleLifetime = TimeSpan.FromMinutes(10);
+    private readonly Lock _gate = new();
 
     public async Task<DatasetRecord?> FindAsync(string slug, CancellationToken cancel)
     {
@@ -42,6 +43,17 @@ public sealed class DatasetCatalog(DatasetStore datasets, DatasetGeometryQueries
         CachedAsync(("series-stamp", dataset.Id, dataset.CreatedAtUtc), StampLifetime, () => geometry.SeriesStampAsync(dataset.Id, cancel));
 
     /// <summary>
+    /// Every cell of the dataset (wet and dry) by cell id, with positions, grid indices and depths, held in memory
+    /// and reloaded after each load of files: layers take positions from here instead of joining the cell table.
+    /// </summary>
+    public async Task<CellTable> CellsAsync(DatasetRecord dataset, CancellationToken cancel)
+    {
+        var stamp = await SeriesStampAsync(dataset, cancel);
+        return await SharedAsync(("cells", dataset.Id, dataset.CreatedAtUtc, stamp.Token),
+            async () => new CellTable(await cells.AllAsync(dataset.Id, CancellationToken.None)));
+    }
+
+    /// <summary>
     /// The dataset's wet cells indexed in memory for nearest-cell look-ups, rebuilt after each load of files; null
     /// when the dataset has more wet cells than <see cref="AtlasApiOptions.PointIndexMaxCells"/> (the database's
     /// spatial index answers then).
@@ -49,14 +61,12 @@ public sealed class DatasetCatalog(DatasetStore datasets, DatasetGeometryQueries
     public async Task<WetCellIndex?> WetCellsAsync(DatasetRecord dataset, CancellationToken cancel)
     {
         var stamp = await SeriesStampAsync(dataset, cancel);
-        var key = ("wet-cells", dataset.Id, dataset.CreatedAtUtc, stamp.Token);
-        if (cache.TryGetValue(key, out WetCellIndex? known)) return known;
         var limit = options.Value.PointIndexMaxCells;
-        WetCellIndex? index = null;
-        if (limit > 0 && await cells.WetCountAsync(dataset.Id, cancel) <= limit)
-            index = new WetCellIndex(await cells.AllAsync(dataset.Id, cancel));
-        cache.Set(key, index, new MemoryCacheEntryOptions { SlidingExpiration = IndexIdleLifetime });
-        return index;
+        if (limit <= 0) return null;
+        return await SharedAsync(("wet-cells", dataset.Id, dataset.CreatedAtUtc, stamp.Token), async () =>
+            await cells.WetCountAsync(dataset.Id, CancellationToken.None) <= limit
+                ? new WetCellIndex((await CellsAsync(dataset, CancellationToken.None)).All)
+                : null);
     }
 
     /// <summary>The median distance between neighbouring wet cells, metres (null with fewer than two wet cells).</summary>
@@ -68,6 +78,28 @@ public sealed class DatasetCatalog(DatasetStore datasets, DatasetGeometryQueries
         CachedAsync(("extent", dataset.Id, dataset.CreatedAtUtc), TimelineLifetime, () => geometry.GridExtentAsync(dataset.Id, cancel));
 
     public void Forget(string slug) => cache.Remove(("dataset", slug));
+
+    /// <summary>
+    /// A large value loaded once per key however many requests ask for it at the same moment, then kept while it is
+    /// used; a failed load is forgotten so that the next request tries again.
+    /// </summary>
+    private Task<T> SharedAsync<T>(object key, Func<Task<T>> load)
+    {
+        Lazy<Task<T>>? shared;
+        lock (_gate)
+        {
+            if (!cache.TryGetValue(key, out shared))
+            {
+                shared = new Lazy<Task<T>>(async () =>
+                {
+                    try { return await load(); }
+                    catch { cache.Remove(key); throw; }
+                });
+                cache.Set(key, shared, new MemoryCacheEntryOptions { SlidingExpiration = LargeValueIdleLifetime });
+            }
+        }
+        return shared!.Value;
+    }
 
     private async Task<T> CachedAsync<T>(object key, TimeSpan lifetime, Func<Task<T>> load)
     {

@@ -61,7 +61,7 @@ public sealed class LayerRenderer(
     public async Task<LayerData?> LoadAsync(DatasetRecord dataset, LayerRequest request, CancellationToken cancel)
     {
         var values = await statistics.LayerAsync(dataset.Id, (short)request.Parameter, request.Period.Code,
-            ParameterCatalogue.Stored(request.Statistic), cancel: cancel);
+            ParameterCatalogue.Stored(request.Statistic), (await catalog.CellsAsync(dataset, cancel)).Find, cancel: cancel);
         // Depth is a property of the cell, not a statistic of the series: without stored rows it is the cell depth.
         if (values.Count == 0 && request.Parameter == WaveParameter.Depth && request.Statistic == StatisticKind.Mean && request.Period == AtlasPeriod.Annual)
             values = await DepthsAsync(dataset, cancel);
@@ -77,7 +77,7 @@ public sealed class LayerRenderer(
         (await memory.GetOrCreateAsync(("depths", dataset.Id, dataset.CreatedAtUtc), async entry =>
         {
             entry.AbsoluteExpirationRelativeToNow = TimeSpan.FromMinutes(10);
-            return (await cells.AllAsync(dataset.Id, cancel))
+            return (await catalog.CellsAsync(dataset, cancel)).All
                 .Where(c => c.Wet && c.DepthMetres is not null)
                 .Select(c => new LayerValue(c.CellId, c.Longitude, c.Latitude, c.GridI, c.GridJ, c.DepthMetres, c.DepthMetres!.Value))
                 .ToArray();

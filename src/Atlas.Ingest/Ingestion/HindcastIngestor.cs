@@ -108,74 +108,91 @@ public sealed class HindcastIngestor(NpgsqlDataSource dataSource)
         long totalWork = (long)freshSteps * grid.PointCount, doneWork = 0, bytesRead = 0;
         var cellYears = 0;
 
-        foreach (var year in years)
+        // The COPY of one block runs while the next block is read and transposed (the connection serves one command at
+        // a time, so it is awaited before any other use of it). Two blocks are then in memory at once: each gets half
+        // the budget.
+        var pendingWrite = Task.CompletedTask;
+        try
         {
-            var timeline = stepsPerYear[year];
-            var bytesPerCell = SeriesCodec.EncodedLength(timeline.Length, variableCount);
-            var blockSize = (int)Math.Clamp(request.MemoryBudgetBytes / Math.Max(1, bytesPerCell), 1, grid.PointCount);
-            // Whole grid rows per block: a hyperslab of whole rows is one contiguous read per chunk.
-            if (grid.Nx is { } nx && blockSize > nx && blockSize < grid.PointCount) blockSize -= blockSize % nx;
-            var yearExisted = stored.ContainsKey(year);
-            for (var p0 = 0; p0 < grid.PointCount; p0 += blockSize)
+            foreach (var year in years)
             {
-                cancel.ThrowIfCancellationRequested();
-                var count = Math.Min(blockSize, grid.PointCount - p0);
-                var payloads = new byte[count][];
-                for (var c = 0; c < count; c++) payloads[c] = SeriesCodec.CreateEmpty(timeline.Length, mask);
-                var blockHasData = new bool[count];
-                if (yearExisted)
+                var timeline = stepsPerYear[year];
+                var bytesPerCell = SeriesCodec.EncodedLength(timeline.Length, variableCount);
+                var blockSize = (int)Math.Clamp(request.MemoryBudgetBytes / 2 / Math.Max(1, bytesPerCell), 1, grid.PointCount);
+                // Whole grid rows per block: a hyperslab of whole rows is one contiguous read per chunk.
+                if (grid.Nx is { } nx && blockSize > nx && blockSize < grid.PointCount) blockSize -= blockSize % nx;
+                var yearExisted = stored.ContainsKey(year);
+                for (var p0 = 0; p0 < grid.PointCount; p0 += blockSize)
                 {
-                    var old = await SeriesStore.ReadYearAsync(connection, transaction, datasetId, year, p0, p0 + count - 1, cancel);
-                    CopyStored(old, stored[year], timeline, p0, payloads, blockHasData);
-                    await SeriesStore.DeleteAsync(connection, transaction, datasetId, year, p0, p0 + count - 1, cancel);
-                }
-                foreach (var file in fresh)
-                {
-                    var (first, last) = YearRange(file.Times, year);
-                    if (first > last) continue;
-                    var positions = new int[last - first + 1];
-                    for (var k = first; k <= last; k++) positions[k - first] = Array.BinarySearch(timeline, file.Times[k]);
-                    var slab = (int)Math.Clamp(MaxSlabBytes / (4L * count), 1, positions.Length);
-                    var buffer = ArrayPool<float>.Shared.Rent(slab * count);
-                    try
+                    cancel.ThrowIfCancellationRequested();
+                    var count = Math.Min(blockSize, grid.PointCount - p0);
+                    var payloads = new byte[count][];
+                    for (var c = 0; c < count; c++) payloads[c] = SeriesCodec.CreateEmpty(timeline.Length, mask);
+                    var blockHasData = new bool[count];
+                    if (yearExisted)
                     {
-                        for (var t0 = first; t0 <= last; t0 += slab)
+                        await pendingWrite;
+                        var old = await SeriesStore.ReadYearAsync(connection, transaction, datasetId, year, p0, p0 + count - 1, cancel);
+                        CopyStored(old, stored[year], timeline, p0, payloads, blockHasData);
+                        await SeriesStore.DeleteAsync(connection, transaction, datasetId, year, p0, p0 + count - 1, cancel);
+                    }
+                    foreach (var file in fresh)
+                    {
+                        var (first, last) = YearRange(file.Times, year);
+                        if (first > last) continue;
+                        var positions = new int[last - first + 1];
+                        for (var k = first; k <= last; k++) positions[k - first] = Array.BinarySearch(timeline, file.Times[k]);
+                        var slab = (int)Math.Clamp(MaxSlabBytes / (4L * count), 1, positions.Length);
+                        var buffer = ArrayPool<float>.Shared.Rent(slab * count);
+                        try
                         {
-                            var steps = Math.Min(slab, last - t0 + 1);
-                            foreach (var (source, target) in Stored)
+                            for (var t0 = first; t0 <= last; t0 += slab)
                             {
-                                if (!file.Has(source)) continue;
-                                file.File.ReadSteps(source, t0, steps, p0, count, buffer.AsSpan(0, steps * count));
-                                bytesRead += 4L * steps * count;
-                                Scatter(file, source, target, buffer, steps, count, p0, t0, t0 - first, positions, mask, timeline.Length,
-                                    payloads, blockHasData, candidate);
+                                var steps = Math.Min(slab, last - t0 + 1);
+                                foreach (var (source, target) in Stored)
+                                {
+                                    if (!file.Has(source)) continue;
+                                    file.File.ReadSteps(source, t0, steps, p0, count, buffer.AsSpan(0, steps * count));
+                                    bytesRead += 4L * steps * count;
+                                    Scatter(file, source, target, buffer, steps, count, p0, t0, t0 - first, positions, mask, timeline.Length,
+                                        payloads, blockHasData, candidate);
+                                }
+                                doneWork += (long)steps * count;
+                                progress?.Report(new ProgressSnapshot($"loading {year}", doneWork, totalWork, bytesRead, clock.Elapsed, "cell-steps"));
                             }
-                            doneWork += (long)steps * count;
-                            progress?.Report(new ProgressSnapshot($"loading {year}", doneWork, totalWork, bytesRead, clock.Elapsed, "cell-steps"));
+                        }
+                        finally
+                        {
+                            ArrayPool<float>.Shared.Return(buffer);
+                            if (p0 + count >= grid.PointCount && YearTimeline.YearOf(file.Times[^1]) <= year) file.Release();
                         }
                     }
-                    finally
+                    var chunks = new List<SeriesChunk>();
+                    for (var c = 0; c < count; c++)
                     {
-                        ArrayPool<float>.Shared.Return(buffer);
-                        if (p0 + count >= grid.PointCount && YearTimeline.YearOf(file.Times[^1]) <= year) file.Release();
+                        if (!blockHasData[c] || !candidate[p0 + c]) continue;
+                        hasData[p0 + c] = true;
+                        chunks.Add(new SeriesChunk(p0 + c, year, payloads[c]));
                     }
+                    cellYears += chunks.Count;
+                    payloads = null!;
+                    // The previous block's buffers are garbage once its COPY is done: collect them before this block is
+                    // handed over, so that the process stays within the budget instead of holding several blocks' worth
+                    // until the GC gets round to it.
+                    await pendingWrite;
+                    GC.Collect(2, GCCollectionMode.Forced, blocking: true, compacting: true);
+                    // On a pool thread: the COPY's writes mostly complete synchronously and would otherwise run here.
+                    pendingWrite = Task.Run(() => SeriesStore.WriteAsync(connection, datasetId, chunks, cancel), cancel);
                 }
-                var chunks = new List<SeriesChunk>();
-                for (var c = 0; c < count; c++)
-                {
-                    if (!blockHasData[c] || !candidate[p0 + c]) continue;
-                    hasData[p0 + c] = true;
-                    chunks.Add(new SeriesChunk(p0 + c, year, payloads[c]));
-                }
-                await SeriesStore.WriteAsync(connection, datasetId, chunks, cancel);
-                cellYears += chunks.Count;
-                // The block's buffers are garbage now: collect them before the next block is filled, so that the
-                // process stays within the budget instead of holding several blocks' worth until the GC gets round to it.
-                chunks.Clear();
-                payloads = null!;
-                GC.Collect(2, GCCollectionMode.Forced, blocking: true, compacting: true);
+                await pendingWrite;
+                await DatasetStore.UpsertTimelineAsync(connection, transaction, datasetId, year, timeline, cancel);
             }
-            await DatasetStore.UpsertTimelineAsync(connection, transaction, datasetId, year, timeline, cancel);
+        }
+        catch
+        {
+            // Let a COPY in flight end before the transaction is rolled back on this connection.
+            try { await pendingWrite; } catch (Exception) { /* the first failure is the one reported */ }
+            throw;
         }
 
         int wetCells;

@@ -22,6 +22,7 @@ public sealed class StatisticsService(NpgsqlDataSource dataSource, StatisticsOpt
 {
     private readonly StatisticsOptions _options = options ?? new StatisticsOptions();
     private const int CellsPerBatch = 2000;
+    private const int WriterConnections = 2;
 
     public async Task<StatisticsSummary> RunAsync(string slug, bool all, IProgress<ProgressSnapshot>? progress = null, CancellationToken cancel = default)
     {
@@ -97,20 +98,22 @@ public sealed class StatisticsService(NpgsqlDataSource dataSource, StatisticsOpt
         var closer = Task.WhenAll(calculators).ContinueWith(t => results.Writer.Complete(t.Exception), TaskScheduler.Default);
 
         var computedAt = DateTime.UtcNow;
-        // Batches are written by their own task, so the calculators keep computing while PostgreSQL stores rows.
+        // Batches are written by tasks of their own, so the calculators keep computing while PostgreSQL stores rows,
+        // and on two connections at once: storing rows is the longest stage, and each backend takes a core. Batches
+        // hold disjoint cells, so their transactions never wait on each other.
         var batches = Channel.CreateBounded<(List<int> Cells, List<StatisticRow> Rows)>(2);
         long rowCount = 0;
         var done = 0;
-        var writer = Task.Run(async () =>
+        var writers = Enumerable.Range(0, WriterConnections).Select(_ => Task.Run(async () =>
         {
             try
             {
                 await foreach (var (batchCells, batchRows) in batches.Reader.ReadAllAsync(token))
                 {
                     await statistics.ReplaceAsync(dataset.Id, batchCells, batchRows, computedAt, token);
-                    done += batchCells.Count;
-                    rowCount += batchRows.Count;
-                    progress?.Report(new ProgressSnapshot("statistics", done, targets.Length, 0, clock.Elapsed, "cells"));
+                    var cellsDone = Interlocked.Add(ref done, batchCells.Count);
+                    Interlocked.Add(ref rowCount, batchRows.Count);
+                    progress?.Report(new ProgressSnapshot("statistics", cellsDone, targets.Length, 0, clock.Elapsed, "cells"));
                 }
             }
             catch
@@ -118,7 +121,8 @@ public sealed class StatisticsService(NpgsqlDataSource dataSource, StatisticsOpt
                 await linked.CancelAsync();
                 throw;
             }
-        }, token);
+        }, token)).ToArray();
+        var writer = Task.WhenAll(writers);
         var periodCodes = new HashSet<short>();
         try
         {
@@ -145,7 +149,7 @@ public sealed class StatisticsService(NpgsqlDataSource dataSource, StatisticsOpt
         {
             await linked.CancelAsync();
             // Report the stage that failed first, not the cancellation it caused elsewhere.
-            var first = new[] { writer, producer }.Concat(calculators).FirstOrDefault(t => t.IsFaulted)?.Exception?.InnerException;
+            var first = writers.Append(producer).Concat(calculators).FirstOrDefault(t => t.IsFaulted)?.Exception?.InnerException;
             if (first is not null && e is OperationCanceledException && !cancel.IsCancellationRequested)
                 System.Runtime.ExceptionServices.ExceptionDispatchInfo.Throw(first);
             throw;

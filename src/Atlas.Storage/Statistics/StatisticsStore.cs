@@ -1,3 +1,4 @@
+using Atlas.Storage.Cells;
 using Npgsql;
 using NpgsqlTypes;
 
@@ -115,19 +116,19 @@ public sealed class StatisticsStore(NpgsqlDataSource dataSource)
     }
 
     /// <summary>
-    /// One layer: the chosen statistic of a parameter over a period for every wet cell that has it, with positions.
-    /// <paramref name="extraIndex"/> reads element (1-based) of the extra array instead of a column (exceedance).
+    /// One layer: the chosen statistic of a parameter over a period for every wet cell that has it, with positions
+    /// taken from <paramref name="cellOf"/> (the caller's copy of the dataset's cells, by id: reading only the
+    /// statistics rows spares the database a join with every cell). <paramref name="extraIndex"/> reads element
+    /// (1-based) of the extra array instead of a column (exceedance). Rows of cells unknown to
+    /// <paramref name="cellOf"/> are left out.
     /// </summary>
     public async Task<IReadOnlyList<LayerValue>> LayerAsync(int datasetId, short parameter, short period, StoredStatistic statistic,
-        int? extraIndex = null, CancellationToken cancel = default)
+        Func<int, CellRecord?> cellOf, int? extraIndex = null, CancellationToken cancel = default)
     {
-        var column = extraIndex is { } k ? $"s.extra[{k:D}]" : statistic.ToString().ToLowerInvariant();
-        if (extraIndex is null) column = "s." + column;
+        var column = extraIndex is { } k ? $"extra[{k:D}]" : statistic.ToString().ToLowerInvariant();
         await using var command = dataSource.CreateCommand($"""
-            SELECT s.cell_id, ST_X(c.geom), ST_Y(c.geom), c.grid_i, c.grid_j, c.depth_m, {column}::float8
-              FROM cell_statistic s JOIN cell c ON c.dataset_id = s.dataset_id AND c.cell_id = s.cell_id
-             WHERE s.dataset_id = $1 AND s.parameter = $2 AND s.period = $3
-             ORDER BY s.cell_id
+            SELECT cell_id, {column}::float8 FROM cell_statistic
+             WHERE dataset_id = $1 AND parameter = $2 AND period = $3 AND {column} IS NOT NULL
             """);
         command.Parameters.AddWithValue(datasetId);
         command.Parameters.AddWithValue(parameter);
@@ -136,11 +137,11 @@ public sealed class StatisticsStore(NpgsqlDataSource dataSource)
         await using var reader = await command.ExecuteReaderAsync(cancel);
         while (await reader.ReadAsync(cancel))
         {
-            if (reader.IsDBNull(6)) continue;
-            values.Add(new LayerValue(reader.GetInt32(0), reader.GetDouble(1), reader.GetDouble(2),
-                reader.IsDBNull(3) ? null : reader.GetInt32(3), reader.IsDBNull(4) ? null : reader.GetInt32(4),
-                reader.IsDBNull(5) ? null : reader.GetFloat(5), reader.GetDouble(6)));
+            if (cellOf(reader.GetInt32(0)) is not { } c) continue;
+            values.Add(new LayerValue(c.CellId, c.Longitude, c.Latitude, c.GridI, c.GridJ, c.DepthMetres, reader.GetDouble(1)));
         }
+        // Ordered here rather than by the database, whose sort of a large layer costs more than the scan itself.
+        values.Sort((a, b) => a.CellId.CompareTo(b.CellId));
         return values;
     }
 
