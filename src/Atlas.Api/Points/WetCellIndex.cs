@@ -73,11 +73,33 @@ public sealed class WetCellIndex
         if (end - start <= LeafSize) return;
         int middle = (start + end) / 2;
         double[] axis = (depth % 3) switch { 0 => x, 1 => y, _ => z };
-        var keys = new double[end - start];
-        for (int k = start; k < end; k++) keys[k - start] = axis[_order[k]];
-        keys.AsSpan().Sort(_order.AsSpan(start, end - start));
+        SelectMedian(axis, start, end, middle);
         Build(x, y, z, start, middle, depth + 1);
         Build(x, y, z, middle + 1, end, depth + 1);
+    }
+
+    /// <summary>
+    /// Reorders _order[start..end) so that position <paramref name="middle"/> holds the cell whose coordinate on
+    /// <paramref name="axis"/> would be there if the range were sorted, with no larger coordinate before it and no
+    /// smaller one after (Hoare's selection: linear on average, so the whole tree builds in n log n).
+    /// </summary>
+    private void SelectMedian(double[] axis, int start, int end, int middle)
+    {
+        int low = start, high = end - 1;
+        while (low < high)
+        {
+            double pivot = axis[_order[(low + high) >>> 1]];
+            int i = low, j = high;
+            while (i <= j)
+            {
+                while (axis[_order[i]] < pivot) i++;
+                while (axis[_order[j]] > pivot) j--;
+                if (i <= j) { (_order[i], _order[j]) = (_order[j], _order[i]); i++; j--; }
+            }
+            if (middle <= j) high = j;
+            else if (middle >= i) low = i;
+            else return;
+        }
     }
 
     private double Axis(int position, int depth) => (depth % 3) switch { 0 => _x[position], 1 => _y[position], _ => _z[position] };

@@ -1,0 +1,67 @@
+#!/usr/bin/env bash
+# Single-request latencies of the API on the two large shapes of data the issue names, measured with curl on the
+# loopback interface, each against its own cached repeat in the same run:
+#  - a custom-window point request over 20 years of hourly data (a 8x8-cell, 175,320-step hindcast written by
+#    ../shared/bench/make_hindcast.py), each request at a position not asked before, so nothing is cached;
+#  - a seasonal GeoTIFF of a 300,000-cell dataset (600x500 cells x 240 hourly steps, same generator): cold (never
+#    rendered; the layer cache is emptied first) and cached.
+# Loads both datasets into the database ATLAS_DB names (default: the embedded cluster's atlas database) when missing.
+# Reports to tests/artifacts/benchmarks/latency.txt.
+set -euo pipefail
+here=$(cd "$(dirname "$0")" && pwd)
+top=$(cd "$here/../../.." && pwd)
+shared="${ATLAS_SHARED:-$top/../shared}"
+port=${PORT:-5092}
+base="http://127.0.0.1:$port"
+work="${ATLAS_BENCH_DIR:-/tmp/atlas-bench}"; mkdir -p "$work"
+out="$top/tests/artifacts/benchmarks"; mkdir -p "$out"
+atlas=${ATLAS_BIN:-"$top/src/Atlas.Cli/bin/Release/net10.0/atlas"}
+[ -n "${ATLAS_BIN:-}" ] || dotnet build "$top/src/Atlas.Cli" -c Release -v quiet -nologo >/dev/null
+[ -n "${ATLAS_DB:-}" ] || "$atlas" db start >/dev/null
+psql_url=${ATLAS_PSQL:-"host=127.0.0.1 port=${ATLAS_PG_PORT:-54329} user=atlas dbname=atlas"}
+
+ensure() { # slug nx ny nt
+  local file="$work/$1.nc"
+  if [ "$(psql "$psql_url" -Atc "SELECT count(*) FROM dataset WHERE slug = '$1'")" = "1" ]; then return; fi
+  [ -f "$file" ] || /usr/bin/python3 "$shared/bench/make_hindcast.py" "$2" "$3" "$4" "$file"
+  "$atlas" ingest "$file" --dataset "$1" | tail -1
+}
+ensure hourly-20y 8 8 175320
+ensure wide-300k 600 500 240
+
+log=$(mktemp)
+ASPNETCORE_URLS="$base" AtlasApiOptions__ExpensiveRequestsPerMinute=1000000 Logging__LogLevel__Default=Warning \
+  "$atlas" serve >"$log" 2>&1 &
+server=$!
+trap 'kill "$server" 2>/dev/null || true; wait "$server" 2>/dev/null || true; rm -f "$log"' EXIT
+for _ in $(seq 1 120); do
+  curl -fsS "$base/healthz" >/dev/null 2>&1 && break
+  kill -0 "$server" 2>/dev/null || { echo "latency: the server exited:" >&2; cat "$log" >&2; exit 1; }
+  sleep 0.5
+done
+
+ms() { curl -fsS -o /dev/null -w '%{time_total}\n' "$1" | awk '{printf "%.1f\n", $1 * 1000}'; }
+summary() { sort -n | awk '{v[NR] = $1} END {printf "median %.1f ms, max %.1f ms over %d requests", v[int((NR + 1) / 2)], v[NR], NR}'; }
+
+point="$base/api/v1/datasets/hourly-20y/point"
+ms "$point?lat=50&lon=-30&include=none" >/dev/null   # first touch of the dataset: cell table and time lines
+window=$(for k in $(seq 1 20); do ms "$point?lat=50.0$k&lon=-29.9$k&from=2001&to=2020&months=12,1,2"; done | summary)
+full=$(for k in $(seq 1 20); do ms "$point?lat=50.1$k&lon=-29.8$k&from=2003&to=2018"; done | summary)
+repeat=$(for k in $(seq 1 20); do ms "$point?lat=50.1$k&lon=-29.8$k&from=2003&to=2018"; done | summary)
+
+layers="$base/api/v1/datasets/wide-300k/layers"
+id=$(psql "$psql_url" -Atc "SELECT dataset_id FROM dataset WHERE slug = 'wide-300k'")
+first=$(ms "$layers/te/mean/annual.csv")   # first touch of the dataset: its 300,000-cell table
+cold=$(for s in mean p90 max sd p10; do
+  psql "$psql_url" -qc "DELETE FROM layer_cache WHERE dataset_id = $id"; ms "$layers/hs/$s/djf.tif"; done | summary)
+cached=$(for k in $(seq 1 20); do ms "$layers/hs/mean/djf.tif"; done | summary)
+size=$(curl -fsS "$layers/hs/mean/djf.tif" | wc -c)
+
+{
+  echo "# API latency benchmark $(date -u +%FT%TZ), $(nproc) cores, load average $(cut -d' ' -f1 /proc/loadavg)"
+  echo "point, 20 years hourly, window 2001-2020 months 12,1,2 (uncached): $window (goal: under 50 ms)"
+  echo "point, 20 years hourly, window 2003-2018 all parts (uncached): $full (goal: under 50 ms)"
+  echo "point, the same requests again (cached): $repeat"
+  echo "seasonal GeoTIFF, 300,000 cells, cold (layer cache emptied): $cold (goal: under 1 s); first request of the dataset after start $first ms"
+  echo "seasonal GeoTIFF, 300,000 cells, cached: $cached (goal: under 20 ms); $size bytes"
+} | tee "$out/latency.txt"
