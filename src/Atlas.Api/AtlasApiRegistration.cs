@@ -50,6 +50,7 @@ public static class AtlasApiRegistration
         services.AddSingleton<PointResponseCache>();
         services.AddSingleton<ApiKeyVerifier>();
         services.AddHostedService<SchemaStartup>();
+        services.AddHostedService<DatasetWarmup>();
         services.AddMemoryCache();
 
         services.ConfigureHttpJsonOptions(json =>

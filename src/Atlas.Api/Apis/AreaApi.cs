@@ -88,7 +88,7 @@ public static class AreaApi
         }
 
         var values = (await statistics.LayerAsync(dataset.Id, (short)p, t.Code, ParameterCatalogue.Stored(s),
-                (await catalog.CellsAsync(dataset, cancel)).Find, cancel: cancel))
+                await catalog.CellLookupAsync(dataset, cancel), cancel: cancel))
             .ToDictionary(v => v.CellId, v => v.Value);
         var withValue = inside.Where(c => values.ContainsKey(c.CellId)).ToArray();
         var sorted = withValue.Select(c => values[c.CellId]).Order().ToArray();

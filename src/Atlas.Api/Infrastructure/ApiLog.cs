@@ -26,4 +26,10 @@ public static partial class ApiLog
 
     [LoggerMessage(EventId = 8, Level = LogLevel.Information, Message = "Statistics job {JobId} queued for {Slug} through the API")]
     public static partial void JobQueued(ILogger logger, long jobId, string slug);
+
+    [LoggerMessage(EventId = 20, Level = LogLevel.Information, Message = "Cell tables and time lines of {Count} dataset(s) loaded into memory")]
+    public static partial void DatasetsWarmed(ILogger logger, int count);
+
+    [LoggerMessage(EventId = 21, Level = LogLevel.Warning, Message = "Datasets could not be loaded into memory at start-up; requests will load them")]
+    public static partial void WarmupFailed(ILogger logger, Exception exception);
 }

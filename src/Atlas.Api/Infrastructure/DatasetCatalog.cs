@@ -54,6 +54,13 @@ public sealed class DatasetCatalog(DatasetStore datasets, DatasetGeometryQueries
     }
 
     /// <summary>
+    /// Cells by id from the in-memory cell table, for datasets within <see cref="AtlasApiOptions.PointIndexMaxCells"/>
+    /// grid points; null for larger ones, whose positions the database joins in instead.
+    /// </summary>
+    public async Task<Func<int, CellRecord?>?> CellLookupAsync(DatasetRecord dataset, CancellationToken cancel) =>
+        dataset.PointCount <= options.Value.PointIndexMaxCells ? (await CellsAsync(dataset, cancel)).Find : null;
+
+    /// <summary>
     /// The dataset's wet cells indexed in memory for nearest-cell look-ups, rebuilt after each load of files; null
     /// when the dataset has more wet cells than <see cref="AtlasApiOptions.PointIndexMaxCells"/> (the database's
     /// spatial index answers then).

@@ -116,20 +116,26 @@ public sealed class StatisticsStore(NpgsqlDataSource dataSource)
     }
 
     /// <summary>
-    /// One layer: the chosen statistic of a parameter over a period for every wet cell that has it, with positions
-    /// taken from <paramref name="cellOf"/> (the caller's copy of the dataset's cells, by id: reading only the
-    /// statistics rows spares the database a join with every cell). <paramref name="extraIndex"/> reads element
-    /// (1-based) of the extra array instead of a column (exceedance). Rows of cells unknown to
-    /// <paramref name="cellOf"/> are left out.
+    /// One layer: the chosen statistic of a parameter over a period for every wet cell that has it, with positions,
+    /// by cell id. Positions come from <paramref name="cellOf"/> when given (the caller's copy of the dataset's
+    /// cells: reading only the statistics rows spares the database a join with every cell; rows of cells it does not
+    /// know are left out), else from the cell table by a join. <paramref name="extraIndex"/> reads element (1-based)
+    /// of the extra array instead of a column (exceedance).
     /// </summary>
     public async Task<IReadOnlyList<LayerValue>> LayerAsync(int datasetId, short parameter, short period, StoredStatistic statistic,
-        Func<int, CellRecord?> cellOf, int? extraIndex = null, CancellationToken cancel = default)
+        Func<int, CellRecord?>? cellOf, int? extraIndex = null, CancellationToken cancel = default)
     {
-        var column = extraIndex is { } k ? $"extra[{k:D}]" : statistic.ToString().ToLowerInvariant();
-        await using var command = dataSource.CreateCommand($"""
-            SELECT cell_id, {column}::float8 FROM cell_statistic
-             WHERE dataset_id = $1 AND parameter = $2 AND period = $3 AND {column} IS NOT NULL
-            """);
+        var column = extraIndex is { } k ? $"s.extra[{k:D}]" : "s." + statistic.ToString().ToLowerInvariant();
+        await using var command = dataSource.CreateCommand(cellOf is null
+            ? $"""
+              SELECT s.cell_id, {column}::float8, ST_X(c.geom), ST_Y(c.geom), c.grid_i, c.grid_j, c.depth_m
+                FROM cell_statistic s JOIN cell c ON c.dataset_id = s.dataset_id AND c.cell_id = s.cell_id
+               WHERE s.dataset_id = $1 AND s.parameter = $2 AND s.period = $3 AND {column} IS NOT NULL
+              """
+            : $"""
+              SELECT s.cell_id, {column}::float8 FROM cell_statistic s
+               WHERE s.dataset_id = $1 AND s.parameter = $2 AND s.period = $3 AND {column} IS NOT NULL
+              """);
         command.Parameters.AddWithValue(datasetId);
         command.Parameters.AddWithValue(parameter);
         command.Parameters.AddWithValue(period);
@@ -137,8 +143,13 @@ public sealed class StatisticsStore(NpgsqlDataSource dataSource)
         await using var reader = await command.ExecuteReaderAsync(cancel);
         while (await reader.ReadAsync(cancel))
         {
-            if (cellOf(reader.GetInt32(0)) is not { } c) continue;
-            values.Add(new LayerValue(c.CellId, c.Longitude, c.Latitude, c.GridI, c.GridJ, c.DepthMetres, reader.GetDouble(1)));
+            int cellId = reader.GetInt32(0);
+            double value = reader.GetDouble(1);
+            if (cellOf is null)
+                values.Add(new LayerValue(cellId, reader.GetDouble(2), reader.GetDouble(3), reader.IsDBNull(4) ? null : reader.GetInt32(4),
+                    reader.IsDBNull(5) ? null : reader.GetInt32(5), reader.IsDBNull(6) ? null : reader.GetFloat(6), value));
+            else if (cellOf(cellId) is { } c)
+                values.Add(new LayerValue(cellId, c.Longitude, c.Latitude, c.GridI, c.GridJ, c.DepthMetres, value));
         }
         // Ordered here rather than by the database, whose sort of a large layer costs more than the scan itself.
         values.Sort((a, b) => a.CellId.CompareTo(b.CellId));
