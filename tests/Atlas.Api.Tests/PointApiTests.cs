@@ -130,6 +130,25 @@ public sealed class PointApiTests(AtlasApiFixture atlas)
     }
 
     [Fact]
+    public async Task ClientsAcceptingGzipGetTheSameAnswerCompressed()
+    {
+        var url = $"{Point}?{At(4, 4)}&period=annual";
+        var identity = await _client.GetByteArrayAsync(url);
+        using var request = new HttpRequestMessage(HttpMethod.Get, url);
+        request.Headers.AcceptEncoding.ParseAdd("gzip, br;q=0.5");
+        var response = await _client.SendAsync(request);
+        Assert.Equal("gzip", Assert.Single(response.Content.Headers.ContentEncoding));
+        Assert.Contains("Accept-Encoding", response.Headers.Vary);
+        var compressed = await response.Content.ReadAsByteArrayAsync();
+        Assert.True(compressed.Length < identity.Length / 2);
+        // Decompressed by .NET's GZipStream (RFC 1952), byte for byte the identity answer.
+        using var gzip = new System.IO.Compression.GZipStream(new MemoryStream(compressed), System.IO.Compression.CompressionMode.Decompress);
+        using var plain = new MemoryStream();
+        await gzip.CopyToAsync(plain);
+        Assert.Equal(identity, plain.ToArray());
+    }
+
+    [Fact]
     public async Task IdenticalConcurrentPointRequestsAllGetTheSameAnswer()
     {
         var url = $"{Point}?lat=40.51&lon=20.49&include=joint";

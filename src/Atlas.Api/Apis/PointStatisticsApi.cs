@@ -114,13 +114,36 @@ public static class PointStatisticsApi
             onlyPeriod?.Name ?? "all", csv ? "csv" : string.Join(',', Parts.Where(parts.Contains)));
     }
 
-    /// <summary>The response, or 304 when the client already holds it (If-None-Match); tagged for revalidation.</summary>
+    /// <summary>
+    /// The response, or 304 when the client already holds it (If-None-Match); tagged for revalidation, and sent in
+    /// its stored gzip form to clients that accept it (the compression middleware leaves encoded responses alone).
+    /// </summary>
     private static Results<FileContentHttpResult, StatusCodeHttpResult, ProblemHttpResult, ValidationProblem> Respond(PointResponse response, HttpContext http)
     {
-        http.Response.Headers.ETag = response.ETag;
-        http.Response.Headers.CacheControl = "public, no-cache";
+        var headers = http.Response.Headers;
+        headers.ETag = response.ETag;
+        headers.CacheControl = "public, no-cache";
+        headers.Vary = "Accept-Encoding";
         if (http.Request.Headers.IfNoneMatch.Contains(response.ETag)) return TypedResults.StatusCode(StatusCodes.Status304NotModified);
+        if (response.Gzipped is { } gzipped && AcceptsGzip(http.Request))
+        {
+            headers.ContentEncoding = "gzip";
+            return TypedResults.File(gzipped, response.ContentType, response.FileName);
+        }
         return TypedResults.File(response.Content, response.ContentType, response.FileName);
+    }
+
+    private static bool AcceptsGzip(HttpRequest request)
+    {
+        foreach (var value in request.Headers.AcceptEncoding)
+            foreach (var coding in (value ?? "").Split(','))
+            {
+                var parts = coding.Split(';', StringSplitOptions.TrimEntries);
+                if (!parts[0].Equals("gzip", StringComparison.OrdinalIgnoreCase)) continue;
+                // "gzip;q=0" refuses it.
+                return !parts.Skip(1).Any(p => p.Replace(" ", "") is "q=0" or "q=0.0" or "q=0.00" or "q=0.000");
+            }
+        return false;
     }
 
     private static PowerRose RoseOf(DirectionStatistics direction) => new(

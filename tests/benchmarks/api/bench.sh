@@ -43,9 +43,9 @@ done
 point="$base/api/v1/datasets/$slug/point?lat=$lat&lon=$lon"
 curl -fsS "$point&include=none" >/dev/null   # warm up the dataset caches once
 
-run() {  # name url -> "requests_per_second p99_ms"
+run() {  # name url [wrk options] -> "requests_per_second p99_ms"
   local out
-  out=$(wrk -t"$threads" -c"$connections" -d"$duration" --latency "$2")
+  out=$(wrk -t"$threads" -c"$connections" -d"$duration" --latency "${@:3}" "$2")
   local rps p99
   rps=$(awk '/^Requests\/sec:/ {print $2}' <<<"$out")
   p99=$(awk '$1 == "99%" {v=$2; if (v ~ /us$/) {sub(/us$/,"",v); v=v/1000} else if (v ~ /ms$/) {sub(/ms$/,"",v)} else if (v ~ /s$/) {sub(/s$/,"",v); v=v*1000}; print v}' <<<"$out")
@@ -55,12 +55,20 @@ run() {  # name url -> "requests_per_second p99_ms"
   echo "$rps $p99"
 }
 
+# Most HTTP clients (browsers, curl --compressed, Python's requests) ask for gzip; the point answers are then sent in
+# the form compressed once when they were made. Both are measured.
+gzip=(-H "Accept-Encoding: gzip")
 read -r ceiling_rps ceiling_p99 < <(run healthz "$base/healthz")
-read -r summary_rps summary_p99 < <(run point-summary "$point&include=none")
-read -r full_rps full_p99 < <(run point-full "$point")
+read -r summary_rps summary_p99 < <(run point-summary "$point&include=none" "${gzip[@]}")
+read -r full_rps full_p99 < <(run point-full "$point" "${gzip[@]}")
+read -r summary_plain_rps summary_plain_p99 < <(run point-summary-identity "$point&include=none")
+read -r full_plain_rps full_plain_p99 < <(run point-full-identity "$point")
 
 printf 'dataset %s, cell near lat %s lon %s; %s connections, %s threads, %s each\n' "$slug" "$lat" "$lon" "$connections" "$threads" "$duration"
-printf '%-28s %12s %10s %18s\n' endpoint requests/s p99_ms share_of_ceiling
-printf '%-28s %12.1f %10.2f %18s\n' "healthz (ceiling)" "$ceiling_rps" "$ceiling_p99" "1.000"
-printf '%-28s %12.1f %10.2f %18.4f\n' "point, summaries only" "$summary_rps" "$summary_p99" "$(awk -v a="$summary_rps" -v b="$ceiling_rps" 'BEGIN {print a / b}')"
-printf '%-28s %12.1f %10.2f %18.4f\n' "point, all parts" "$full_rps" "$full_p99" "$(awk -v a="$full_rps" -v b="$ceiling_rps" 'BEGIN {print a / b}')"
+printf '%-34s %12s %10s %18s\n' endpoint requests/s p99_ms share_of_ceiling
+printf '%-34s %12.1f %10.2f %18s\n' "healthz (ceiling)" "$ceiling_rps" "$ceiling_p99" "1.000"
+row() { printf '%-34s %12.1f %10.2f %18.4f\n' "$1" "$2" "$3" "$(awk -v a="$2" -v b="$ceiling_rps" 'BEGIN {print a / b}')"; }
+row "point, summaries only (gzip)" "$summary_rps" "$summary_p99"
+row "point, all parts (gzip)" "$full_rps" "$full_p99"
+row "point, summaries only (identity)" "$summary_plain_rps" "$summary_plain_p99"
+row "point, all parts (identity)" "$full_plain_rps" "$full_plain_p99"
