@@ -26,4 +26,7 @@ public static partial class ApiLog
 
     [LoggerMessage(EventId = 8, Level = LogLevel.Information, Message = "Statistics job {JobId} queued for {Slug} through the API")]
     public static partial void JobQueued(ILogger logger, long jobId, string slug);
+
+    [LoggerMessage(EventId = 9, Level = LogLevel.Warning, Message = "The job queue could not be read for the metrics scrape: {Error}")]
+    public static partial void JobQueueUnreadable(ILogger logger, string error);
 }

@@ -93,6 +93,16 @@ public sealed class JobQueue(NpgsqlDataSource dataSource)
         return jobs;
     }
 
+    /// <summary>How many jobs are in each (kind, state); states with no job are absent.</summary>
+    public async Task<IReadOnlyList<(string Kind, string State, long Count)>> CountByStateAsync(CancellationToken cancel = default)
+    {
+        await using var command = dataSource.CreateCommand("SELECT kind, state, count(*) FROM job GROUP BY kind, state");
+        var counts = new List<(string, string, long)>();
+        await using var reader = await command.ExecuteReaderAsync(cancel);
+        while (await reader.ReadAsync(cancel)) counts.Add((reader.GetString(0), reader.GetString(1), reader.GetInt64(2)));
+        return counts;
+    }
+
     private async Task FinishAsync(long jobId, string state, string? error, string? summary, CancellationToken cancel)
     {
         await using var command = dataSource.CreateCommand(
