@@ -21,6 +21,7 @@ public sealed class JobRunner(NpgsqlDataSource dataSource)
         var heartbeat = new HeartbeatProgress(_queue, job.Id, display);
         var clock = System.Diagnostics.Stopwatch.StartNew();
         JobMetrics.RecordClaimed(job.Kind);
+        await using var lease = await JobLease.TakeAsync(dataSource, job.Id, cancel);
         try
         {
             string summary;
