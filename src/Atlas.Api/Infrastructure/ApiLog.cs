@@ -29,4 +29,7 @@ public static partial class ApiLog
 
     [LoggerMessage(EventId = 9, Level = LogLevel.Warning, Message = "The job queue could not be read for the metrics scrape: {Error}")]
     public static partial void JobQueueUnreadable(ILogger logger, string error);
+
+    [LoggerMessage(EventId = 10, Level = LogLevel.Information, Message = "Read endpoints use {Connection}")]
+    public static partial void ReadConnection(ILogger logger, string connection);
 }
