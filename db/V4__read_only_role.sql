@@ -1,5 +1,5 @@
 -- The group role atlas_reader may read every table of the atlas schema and change none. The API's public read
--- endpoints connect as a login role that is a member of it (ATLAS_DB_READ); see deploy/READ_ONLY_ROLE.md.
+-- endpoints connect as a login role that is a member of it (ATLAS_DB_READ); see deploy/OPERATIONS.md.
 -- Roles are cluster-wide while this script runs once per database, possibly in several databases at the same time:
 -- the role is created only when missing, and a concurrent creation elsewhere (duplicate_object, or unique_violation
 -- when both inserts raced) counts as success. A migrating user without CREATEROLE gets a notice and no grants.
