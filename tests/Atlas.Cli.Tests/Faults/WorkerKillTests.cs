@@ -7,7 +7,7 @@ namespace Atlas.Cli.Tests.Faults;
 
 /// <summary>
 /// A worker process killed with SIGKILL in the middle of a COPY (no shutdown code runs), and a new worker started:
-/// the file ends up loaded once and fully. Also scrapes the second worker's metrics.
+/// the file ends up loaded once and fully (the second worker's metrics are scraped too). And one stopped with SIGTERM.
 /// </summary>
 public sealed class WorkerKillTests(TestDatabase database) : IClassFixture<TestDatabase>, IDisposable
 {
@@ -54,6 +54,29 @@ public sealed class WorkerKillTests(TestDatabase database) : IClassFixture<TestD
         Assert.Contains("atlas_job_duration_seconds_bucket", metrics);
 
         Assert.Equal(0, second.Terminate());
+    }
+
+    [Fact]
+    public async Task AWorkerStoppedWithSigtermMidCopyPutsItsJobBackUnwrittenAndExitsCleanly()
+    {
+        var file = HindcastFixture.Make(_folder, "stopped.nc", Steps, Nx, Ny);
+        var queue = new JobQueue(database.DataSource);
+        var id = await queue.EnqueueAsync(JobKind.Ingest, "stopped",
+            JsonSerializer.Serialize(new IngestPayload([file], QueueStatistics: false)));
+        using (var worker = new RunningAtlas("worker", Environment))
+        {
+            await RunningAtlas.WaitUntilAsync(async () => await StoredHindcast.CopyBackendAsync(database.DataSource, database.Name) is not null,
+                90, $"the worker to start its COPY\n{worker.Output}");
+            // As systemd and docker stop a service; the unit allows 60 s, the worker's own limit is 30 s.
+            Assert.Equal(0, worker.Terminate(timeoutSeconds: 45));
+        }
+        var job = (await queue.FindAsync(id))!;
+        Assert.Equal("queued", job.State);
+        Assert.Null(job.ClaimedBy);
+        Assert.Null(await new Storage.Datasets.DatasetStore(database.DataSource).FindAsync("stopped"));
+        // Leave no queued job for the other test of this database.
+        await using var remove = database.DataSource.CreateCommand($"DELETE FROM job WHERE job_id = {id}");
+        await remove.ExecuteNonQueryAsync();
     }
 
     public void Dispose() => Directory.Delete(_folder, recursive: true);
