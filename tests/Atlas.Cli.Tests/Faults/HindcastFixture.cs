@@ -1,5 +1,3 @@
-using System.Diagnostics;
-
 namespace Atlas.Cli.Tests.Faults;
 
 /// <summary>
@@ -8,21 +6,8 @@ namespace Atlas.Cli.Tests.Faults;
 /// </summary>
 public static class HindcastFixture
 {
-    public static string Make(string folder, string name, int steps, int nx, int ny)
-    {
-        var path = Path.Combine(folder, name);
-        var script = Path.Combine(Storage.AtlasHome.FindCheckout(AppContext.BaseDirectory)!, "tests", "data", "ingest", "make_fixture.py");
-        var start = new ProcessStartInfo("/usr/bin/python3", $"\"{script}\" \"{path}\" 0 {steps} --nx {nx} --ny {ny}")
-        {
-            RedirectStandardError = true,
-            UseShellExecute = false,
-        };
-        using var process = Process.Start(start)!;
-        var error = process.StandardError.ReadToEnd();
-        process.WaitForExit();
-        if (process.ExitCode != 0) throw new InvalidOperationException($"make_fixture.py failed: {error}");
-        return path;
-    }
+    public static string Make(string folder, string name, int steps, int nx, int ny) =>
+        TestSupport.NetCdf4PythonFixture.Make(Path.Combine(folder, name), 0, steps, $"--nx {nx} --ny {ny}");
 
     /// <summary>Hs that make_fixture.py writes at hour <paramref name="hour"/> since 2020-01-01 and grid index (j, i).</summary>
     public static double Hs(double hour, int j, int i) => 1.0 + 0.5 * j + 0.25 * i + 0.001 * (hour % 97);

@@ -16,18 +16,23 @@ public sealed class WorkerKillTests(TestDatabase database) : IClassFixture<TestD
 
     private Dictionary<string, string> Environment => new() { ["ATLAS_DB"] = database.ConnectionString };
 
+    /// <summary>Queues the ingest of a fresh fixture into <paramref name="slug"/>; returns the job id.</summary>
+    private async Task<long> QueueIngestAsync(JobQueue queue, string slug) =>
+        await queue.EnqueueAsync(JobKind.Ingest, slug, JsonSerializer.Serialize(
+            new IngestPayload([HindcastFixture.Make(_folder, slug + ".nc", Steps, Nx, Ny)], QueueStatistics: false)));
+
+    private Task WaitForCopyAsync(RunningAtlas worker) =>
+        RunningAtlas.WaitUntilAsync(async () => await StoredHindcast.CopyBackendAsync(database.DataSource, database.Name) is not null,
+            90, $"the worker to start its COPY\n{worker.Output}");
+
     [Fact]
     public async Task AWorkerKilledMidCopyLeavesTheFileToTheNextWorkerWhichLoadsItOnceAndFully()
     {
-        var file = HindcastFixture.Make(_folder, "killed.nc", Steps, Nx, Ny);
         var queue = new JobQueue(database.DataSource);
-        var id = await queue.EnqueueAsync(JobKind.Ingest, "killed",
-            JsonSerializer.Serialize(new IngestPayload([file], QueueStatistics: false)));
-
+        var id = await QueueIngestAsync(queue, "killed");
         using (var first = new RunningAtlas("worker", Environment))
         {
-            await RunningAtlas.WaitUntilAsync(async () => await StoredHindcast.CopyBackendAsync(database.DataSource, database.Name) is not null,
-                90, $"the first worker to start its COPY\n{first.Output}");
+            await WaitForCopyAsync(first);
             first.Kill();
         }
         // Nothing of the dead worker's transaction is visible; its job still says running until someone notices.
@@ -59,14 +64,11 @@ public sealed class WorkerKillTests(TestDatabase database) : IClassFixture<TestD
     [Fact]
     public async Task AWorkerStoppedWithSigtermMidCopyPutsItsJobBackUnwrittenAndExitsCleanly()
     {
-        var file = HindcastFixture.Make(_folder, "stopped.nc", Steps, Nx, Ny);
         var queue = new JobQueue(database.DataSource);
-        var id = await queue.EnqueueAsync(JobKind.Ingest, "stopped",
-            JsonSerializer.Serialize(new IngestPayload([file], QueueStatistics: false)));
+        var id = await QueueIngestAsync(queue, "stopped");
         using (var worker = new RunningAtlas("worker", Environment))
         {
-            await RunningAtlas.WaitUntilAsync(async () => await StoredHindcast.CopyBackendAsync(database.DataSource, database.Name) is not null,
-                90, $"the worker to start its COPY\n{worker.Output}");
+            await WaitForCopyAsync(worker);
             // As systemd and docker stop a service; the unit allows 60 s, the worker's own limit is 30 s.
             Assert.Equal(0, worker.Terminate(timeoutSeconds: 45));
         }

@@ -14,23 +14,8 @@ duration=${DURATION:-60s}
 connections=${CONNECTIONS:-16}
 threads=${THREADS:-2}
 base="http://127.0.0.1:$port"
-command -v wrk >/dev/null || { echo "mixed: wrk is not installed (apt-get install -y wrk)" >&2; exit 2; }
-
-atlas=${ATLAS_BIN:-"$top/src/Atlas.Cli/bin/Release/net10.0/atlas"}
-if [ -z "${ATLAS_BIN:-}" ]; then  # keep the Release build current
-  dotnet build "$top/src/Atlas.Cli" -c Release -v quiet -nologo >/dev/null
-fi
-
-log=$(mktemp)
-ASPNETCORE_URLS="$base" AtlasApiOptions__ExpensiveRequestsPerMinute=1000000 Logging__LogLevel__Default=Warning \
-  "$atlas" serve >"$log" 2>&1 &
-server=$!
-trap 'kill "$server" 2>/dev/null || true; wait "$server" 2>/dev/null || true; rm -f "$log"' EXIT
-for _ in $(seq 1 120); do
-  curl -fsS "$base/healthz" >/dev/null 2>&1 && break
-  kill -0 "$server" 2>/dev/null || { echo "mixed: the server exited:" >&2; cat "$log" >&2; exit 1; }
-  sleep 0.5
-done
+name=mixed
+source "$here/serve.sh"
 rss_kb() { awk '/^VmRSS:/ {print $2}' "/proc/$server/status"; }
 rss_start=$(rss_kb)
 
@@ -72,8 +57,8 @@ requests=$(awk '/requests in/ {print $1}' <<<"$out")
 non2xx=$(awk '/Non-2xx or 3xx responses:/ {print $5}' <<<"$out")
 socket=$(awk '/Socket errors:/ {gsub(",", ""); print $4 + $6 + $8 + $10}' <<<"$out")
 errors=$(( ${non2xx:-0} + ${socket:-0} ))
-peak_kb=$(awk '/^VmHWM:/ {print $2}' "/proc/$server/status")
 rss_end=$(rss_kb)
+peak_kb=$(awk '/^VmHWM:/ {print $2}' "/proc/$server/status")
 
 printf 'dataset %s: %d paths (8 cells x point json, point csv, one-year series; 6 layers); %s connections, %s threads, %s\n' \
   "$slug" "${#paths[@]}" "$connections" "$threads" "$duration"
