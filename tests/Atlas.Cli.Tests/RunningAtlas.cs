@@ -46,7 +46,7 @@ public sealed class RunningAtlas : IDisposable
     public int Terminate(int timeoutSeconds = 30)
     {
         if (_process.HasExited) return _process.ExitCode;
-        using (var kill = Process.Start(new ProcessStartInfo("kill", $"-TERM {_process.Id}") { UseShellExecute = false })!) kill.WaitForExit();
+        if (SendSignal(_process.Id, SignalTerminate) != 0) throw new InvalidOperationException($"kill({_process.Id}, SIGTERM) failed");
         if (!_process.WaitForExit(timeoutSeconds * 1000))
         {
             _process.Kill(entireProcessTree: true);
@@ -62,6 +62,12 @@ public sealed class RunningAtlas : IDisposable
         catch (TimeoutException) { }
         _process.Dispose();
     }
+
+    private const int SignalTerminate = 15;
+
+    // .NET can handle POSIX signals but not send them; libc's kill(2) sends SIGTERM (Process.Kill sends SIGKILL).
+    [System.Runtime.InteropServices.DllImport("libc", EntryPoint = "kill", SetLastError = true)]
+    private static extern int SendSignal(int pid, int signal);
 
     /// <summary>A loopback port that was free a moment ago.</summary>
     public static int FreePort()
