@@ -13,6 +13,7 @@ public static class ApiHost
         var app = builder.Build();
         app.UseAtlasPipeline();
         app.MapHealthApi();
+        app.MapOperationsApi();
         app.MapDatasetApi();
         app.MapLandMaskApi();
         app.MapPointApi();

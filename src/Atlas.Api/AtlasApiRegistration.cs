@@ -31,14 +31,12 @@ public static class AtlasApiRegistration
         var services = builder.Services;
         services.AddOptions<AtlasApiOptions>().BindConfiguration(nameof(AtlasApiOptions)).ValidateDataAnnotations().ValidateOnStart();
 
-        services.AddSingleton(sp => new DatabaseConnectionString(AtlasConnection.Resolve(sp.GetRequiredService<IConfiguration>())));
-        services.AddSingleton(sp => AtlasDatabase.CreateDataSource(sp.GetRequiredService<DatabaseConnectionString>().Value));
+        services.AddAtlasDataSources();
+        builder.AddAtlasOperations();
         services.AddSingleton<DatasetStore>();
         services.AddSingleton<CellStore>();
         services.AddSingleton<SeriesStore>();
         services.AddSingleton<StatisticsStore>();
-        services.AddSingleton<JobQueue>();
-        services.AddSingleton<LayerCacheStore>();
         services.AddSingleton<AreaQueries>();
         services.AddSingleton<ScreeningQueries>();
         services.AddSingleton<DatasetGeometryQueries>();
@@ -110,6 +108,7 @@ public static class AtlasApiRegistration
     public static WebApplication UseAtlasPipeline(this WebApplication app)
     {
         var options = app.Services.GetRequiredService<IOptions<AtlasApiOptions>>().Value;
+        app.UseAtlasOperations();
         app.UseExceptionHandler();
         app.UseStatusCodePages();
         app.UseResponseCompression();

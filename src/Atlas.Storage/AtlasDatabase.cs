@@ -14,8 +14,17 @@ public static class AtlasDatabase
         Environment.GetEnvironmentVariable(ConnectionVariable) is { Length: > 0 } s ? s : null;
 
     /// <summary>The embedded cluster of this home, on the port ATLAS_PG_PORT names (default 54329).</summary>
-    public static EmbeddedCluster EmbeddedCluster() =>
-        new(AtlasHome.Resolve(), int.TryParse(Environment.GetEnvironmentVariable("ATLAS_PG_PORT"), out var port) ? port : Storage.EmbeddedCluster.DefaultPort);
+    public static EmbeddedCluster EmbeddedCluster() => new(AtlasHome.Resolve(), EmbeddedPort());
+
+    /// <summary>ATLAS_PG_PORT, refused with its value when it is not a port number (rather than silently ignored).</summary>
+    public static int EmbeddedPort()
+    {
+        var configured = Environment.GetEnvironmentVariable("ATLAS_PG_PORT");
+        if (string.IsNullOrWhiteSpace(configured)) return Storage.EmbeddedCluster.DefaultPort;
+        if (int.TryParse(configured, System.Globalization.NumberStyles.None, System.Globalization.CultureInfo.InvariantCulture, out var port) && port is >= 1024 and <= 65535)
+            return port;
+        throw new InvalidOperationException($"ATLAS_PG_PORT is '{configured}', which is not a port number from 1024 to 65535.");
+    }
 
     /// <summary>The connection string to use, starting the embedded cluster first when none is configured.</summary>
     public static async Task<string> ResolveConnectionStringAsync(CancellationToken cancel = default)

@@ -1,5 +1,3 @@
-using System.Diagnostics;
-
 namespace Atlas.Ingest.Tests;
 
 /// <summary>
@@ -10,21 +8,8 @@ public static class FixtureFiles
 {
     public static string Folder { get; } = Directory.CreateTempSubdirectory("atlas-ingest-").FullName;
 
-    public static string Make(string name, double startHours, int steps, string extra = "")
-    {
-        var path = Path.Combine(Folder, name);
-        var script = Path.Combine(Storage.AtlasHome.FindCheckout(AppContext.BaseDirectory)!, "tests", "data", "ingest", "make_fixture.py");
-        var start = new ProcessStartInfo("/usr/bin/python3", $"\"{script}\" \"{path}\" {startHours} {steps} {extra}")
-        {
-            RedirectStandardError = true,
-            UseShellExecute = false,
-        };
-        using var process = Process.Start(start)!;
-        var error = process.StandardError.ReadToEnd();
-        process.WaitForExit();
-        if (process.ExitCode != 0) throw new InvalidOperationException($"make_fixture.py failed: {error}");
-        return path;
-    }
+    public static string Make(string name, double startHours, int steps, string extra = "") =>
+        TestSupport.NetCdf4PythonFixture.Make(Path.Combine(Folder, name), startHours, steps, extra);
 
     /// <summary>The values make_fixture.py writes at hour <paramref name="hour"/> (since 2020-01-01) and grid index (j, i).</summary>
     public static (double Hs, double Te, double Tp, double Dir, double Spread) Expected(double hour, int j, int i)

@@ -35,4 +35,22 @@ public class JobQueueTests(TestDatabase database) : IClassFixture<TestDatabase>
         Assert.NotNull(again);
         Assert.Equal(2, again!.Attempts);
     }
+
+    [Fact]
+    public async Task ARunningJobIsRequeuedAsSoonAsItsLeaseIsGoneButNotWhileItIsHeld()
+    {
+        var queue = new JobQueue(database.DataSource);
+        var id = await queue.EnqueueAsync(JobKind.Ingest, "leased");
+        Assert.NotNull(await queue.ClaimAsync(id, "holder"));
+        var lease = await JobLease.TakeAsync(database.DataSource, id);
+        await Task.Delay(JobQueue.LeaseGrace + TimeSpan.FromMilliseconds(300));
+        // The heartbeat limit is an hour away: only the lease decides here.
+        await queue.RequeueStaleAsync(TimeSpan.FromHours(1));
+        Assert.Equal("running", (await queue.FindAsync(id))!.State);
+        await lease.DisposeAsync();
+        await queue.RequeueStaleAsync(TimeSpan.FromHours(1));
+        Assert.Equal("queued", (await queue.FindAsync(id))!.State);
+        // Leave no queued job behind for the other tests of this database.
+        await queue.CompleteAsync(id, "checked");
+    }
 }

@@ -2,6 +2,7 @@ using Atlas.Api.Infrastructure;
 using Atlas.Storage.Datasets;
 using Atlas.Storage.Jobs;
 using Microsoft.AspNetCore.Http.HttpResults;
+using Npgsql;
 
 namespace Atlas.Api.Apis;
 
@@ -47,10 +48,10 @@ public static class AdminApi
             job.FinishedAtUtc, job.ProgressJson, job.Error, job.Summary));
     }
 
-    public static async Task<Results<NoContent, ProblemHttpResult>> DeleteAsync(string slug, DatasetStore datasets, DatasetCatalog catalog,
-        ILogger<DatasetStore> logger, CancellationToken cancel)
+    public static async Task<Results<NoContent, ProblemHttpResult>> DeleteAsync(string slug,
+        [FromKeyedServices(AtlasDataSources.Writer)] NpgsqlDataSource writer, DatasetCatalog catalog, ILogger<DatasetStore> logger, CancellationToken cancel)
     {
-        if (!await datasets.DeleteAsync(slug, cancel)) return ApiProblems.UnknownDataset(slug);
+        if (!await new DatasetStore(writer).DeleteAsync(slug, cancel)) return ApiProblems.UnknownDataset(slug);
         catalog.Forget(slug);
         ApiLog.DatasetDeleted(logger, slug);
         return TypedResults.NoContent();

@@ -2,6 +2,7 @@ using Atlas.Api.Infrastructure;
 using Atlas.Assessment.Yield;
 using Atlas.Storage.Cells;
 using Atlas.Storage.Devices;
+using Atlas.Storage.Queries;
 using Microsoft.AspNetCore.Http.HttpResults;
 using Npgsql;
 
@@ -32,7 +33,7 @@ public static class AssessmentLayerApi
 
     public static async Task<Results<FileContentHttpResult, ProblemHttpResult, ValidationProblem>> YieldAsync(
         string slug, string device, string format, string? interpolation, DatasetCatalog catalog, CellStore cells, NpgsqlDataSource dataSource,
-        ProvenanceBuilder provenance, CancellationToken cancel)
+        LayerCacheStore cache, ProvenanceBuilder provenance, CancellationToken cancel)
     {
         var errors = new Dictionary<string, string[]>();
         var reading = PowerMatrixInterpolation.Bilinear;
@@ -45,13 +46,13 @@ public static class AssessmentLayerApi
         if (await new DeviceStore(dataSource).FindAsync(device, cancel) is not { } stored) return DeviceApi.UnknownDevice(device);
         if (AssessmentLayerBuilder.TimelineProblem(await catalog.TimelinesAsync(dataset, cancel)) is { } problem)
             return ApiProblems.Unprocessable("No layer for this dataset", $"Dataset '{slug}' cannot carry an assessment layer: {problem}.");
-        var layer = await new AssessmentLayerBuilder(dataSource).YieldAsync(dataset, stored, reading, cancel);
+        var layer = await new AssessmentLayerBuilder(dataSource, cache).YieldAsync(dataset, stored, reading, cancel);
         return await RenderAsync(format, dataset, layer, $"{slug}_yield_{stored.Slug}.{format}", cells, provenance, cancel);
     }
 
     public static async Task<Results<FileContentHttpResult, ProblemHttpResult, ValidationProblem>> AccessibilityAsync(
         string slug, string format, string? hs_max, string? tp_max, string? hours, DatasetCatalog catalog, CellStore cells, NpgsqlDataSource dataSource,
-        ProvenanceBuilder provenance, CancellationToken cancel)
+        LayerCacheStore cache, ProvenanceBuilder provenance, CancellationToken cancel)
     {
         var errors = new Dictionary<string, string[]>();
         var limits = PointAssessmentApi.ParseLimits(hs_max, tp_max, errors);
@@ -62,7 +63,7 @@ public static class AssessmentLayerApi
         if (dataset is null) return ApiProblems.UnknownDataset(slug);
         if (AssessmentLayerBuilder.TimelineProblem(await catalog.TimelinesAsync(dataset, cancel)) is { } problem)
             return ApiProblems.Unprocessable("No layer for this dataset", $"Dataset '{slug}' cannot carry an assessment layer: {problem}.");
-        var builder = new AssessmentLayerBuilder(dataSource);
+        var builder = new AssessmentLayerBuilder(dataSource, cache);
         if (limits.TpLimitSeconds is not null && !(await builder.StoredVariablesAsync(dataset, cancel)).Contains(Storage.Series.SeriesVariable.Tp))
             return ApiProblems.Unprocessable("No Tp stored", $"Dataset '{slug}' stores no peak period, so a Tp limit cannot be applied; leave tp_max out.");
         var layer = await builder.AccessibilityAsync(dataset, limits, duration, cancel);

@@ -30,9 +30,10 @@ public sealed record AssessmentLayer(string Kind, string Title, string Descripti
 /// analysed by the same library calls as a point request, so a layer value equals the point value at that cell. Results are
 /// kept in the layer cache under the statistics stamp (a recomputation clears them).
 /// </summary>
-public sealed class AssessmentLayerBuilder(NpgsqlDataSource dataSource)
+public sealed class AssessmentLayerBuilder(NpgsqlDataSource dataSource, LayerCacheStore? cache = null)
 {
-    private readonly LayerCacheStore _cache = new(dataSource);
+    // The API passes its cache store, which writes through the writer connection while dataSource may be read-only.
+    private readonly LayerCacheStore _cache = cache ?? new(dataSource);
 
     /// <summary>Annual energy (MWh/yr) per cell for a device, with capacity factor, share outside the matrix and mean power.</summary>
     public Task<AssessmentLayer> YieldAsync(DatasetRecord dataset, StoredDeviceMatrix device, PowerMatrixInterpolation interpolation, CancellationToken cancel)

@@ -45,7 +45,7 @@ public static class DeviceApi
     public static async Task<Results<Ok<DeviceItem>, ProblemHttpResult>> DescribeAsync(string device, NpgsqlDataSource dataSource, CancellationToken cancel) =>
         await new DeviceStore(dataSource).FindAsync(device, cancel) is { } found ? TypedResults.Ok(DeviceItem.From(found)) : UnknownDevice(device);
 
-    public static async Task<IResult> AddAsync(HttpRequest request, NpgsqlDataSource dataSource, CancellationToken cancel)
+    public static async Task<IResult> AddAsync(HttpRequest request, [FromKeyedServices(AtlasDataSources.Writer)] NpgsqlDataSource dataSource, CancellationToken cancel)
     {
         var (upload, problem) = await UploadReader.ReadAsync(request, "power-matrix.csv", cancel);
         if (upload is null) return problem!;
@@ -85,7 +85,7 @@ public static class DeviceApi
         }
     }
 
-    public static async Task<Results<NoContent, ProblemHttpResult>> DeleteAsync(string device, NpgsqlDataSource dataSource, CancellationToken cancel) =>
+    public static async Task<Results<NoContent, ProblemHttpResult>> DeleteAsync(string device, [FromKeyedServices(AtlasDataSources.Writer)] NpgsqlDataSource dataSource, CancellationToken cancel) =>
         await new DeviceStore(dataSource).DeleteAsync(device, cancel) ? TypedResults.NoContent() : UnknownDevice(device);
 
     public static ProblemHttpResult UnknownDevice(string device) =>

@@ -39,7 +39,7 @@ public static class StationApi
     public static async Task<Results<Ok<StationItem>, ProblemHttpResult>> DescribeAsync(string station, NpgsqlDataSource dataSource, CancellationToken cancel) =>
         await new StationStore(dataSource).FindAsync(station, cancel) is { } found ? TypedResults.Ok(StationItem.From(found)) : ValidationApi.UnknownStation(station);
 
-    public static async Task<IResult> AddAsync(HttpRequest request, NpgsqlDataSource dataSource, CancellationToken cancel)
+    public static async Task<IResult> AddAsync(HttpRequest request, [FromKeyedServices(AtlasDataSources.Writer)] NpgsqlDataSource dataSource, CancellationToken cancel)
     {
         var (upload, problem) = await UploadReader.ReadAsync(request, "station.csv", cancel);
         if (upload is null) return problem!;
@@ -91,7 +91,7 @@ public static class StationApi
         }
     }
 
-    public static async Task<Results<NoContent, ProblemHttpResult>> DeleteAsync(string station, NpgsqlDataSource dataSource, CancellationToken cancel) =>
+    public static async Task<Results<NoContent, ProblemHttpResult>> DeleteAsync(string station, [FromKeyedServices(AtlasDataSources.Writer)] NpgsqlDataSource dataSource, CancellationToken cancel) =>
         await new StationStore(dataSource).DeleteAsync(station, cancel) ? TypedResults.NoContent() : ValidationApi.UnknownStation(station);
 
     /// <summary>A numeric field in [min, max]; null (with an error when required or unparsable) otherwise.</summary>

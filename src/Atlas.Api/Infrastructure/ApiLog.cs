@@ -27,9 +27,15 @@ public static partial class ApiLog
     [LoggerMessage(EventId = 8, Level = LogLevel.Information, Message = "Statistics job {JobId} queued for {Slug} through the API")]
     public static partial void JobQueued(ILogger logger, long jobId, string slug);
 
-    [LoggerMessage(EventId = 20, Level = LogLevel.Information, Message = "Cell tables and time lines of {Count} dataset(s) loaded into memory")]
+    [LoggerMessage(EventId = 9, Level = LogLevel.Warning, Message = "The job queue could not be read for the metrics scrape: {Error}")]
+    public static partial void JobQueueUnreadable(ILogger logger, string error);
+
+    [LoggerMessage(EventId = 10, Level = LogLevel.Information, Message = "Read endpoints use {Connection}")]
+    public static partial void ReadConnection(ILogger logger, string connection);
+
+    [LoggerMessage(EventId = 11, Level = LogLevel.Information, Message = "Cell tables and time lines of {Count} dataset(s) loaded into memory")]
     public static partial void DatasetsWarmed(ILogger logger, int count);
 
-    [LoggerMessage(EventId = 21, Level = LogLevel.Warning, Message = "Datasets could not be loaded into memory at start-up; requests will load them")]
+    [LoggerMessage(EventId = 12, Level = LogLevel.Warning, Message = "Datasets could not be loaded into memory at start-up; requests will load them")]
     public static partial void WarmupFailed(ILogger logger, Exception exception);
 }

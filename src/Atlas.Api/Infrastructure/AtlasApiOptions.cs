@@ -69,9 +69,21 @@ public sealed class AtlasApiOptions : IValidatableObject
     [Range(0, 1 << 20)]
     public int PointCacheMegabytes { get; set; } = 256;
 
-    /// <summary>Checked at start-up: each configured digest must be 64 hex digits (blank entries are ignored).</summary>
+    /// <summary>
+    /// Checked at start-up: each configured digest must be 64 hex digits (blank entries are ignored), each CORS origin
+    /// a bare http(s) origin, and a configured web root must exist.
+    /// </summary>
     public IEnumerable<ValidationResult> Validate(ValidationContext validationContext)
     {
+        foreach (var origin in CorsOrigins)
+            if (!Uri.TryCreate(origin, UriKind.Absolute, out var uri) || uri.Scheme is not ("http" or "https") || uri.PathAndQuery != "/" || origin.EndsWith('/'))
+                yield return new ValidationResult(
+                    $"AtlasApiOptions:CorsOrigins holds '{origin}', which is not an origin: give scheme, host and port only, such as https://maps.example.org",
+                    [nameof(CorsOrigins)]);
+        if (!string.IsNullOrWhiteSpace(WebRootPath) && !Directory.Exists(WebRootPath))
+            yield return new ValidationResult(
+                $"AtlasApiOptions:WebRootPath is '{WebRootPath}', which is not a folder; point it at the map page (the checkout's wwwroot) or leave it unset",
+                [nameof(WebRootPath)]);
         foreach (var digest in ApiKeySha256.Where(d => !string.IsNullOrWhiteSpace(d)))
             if (digest.Trim().Length != 64 || !digest.Trim().All(Uri.IsHexDigit))
                 yield return new ValidationResult(

@@ -5,7 +5,8 @@ namespace Atlas.Api.Infrastructure;
 
 /// <summary>
 /// Turns exceptions into problem details: a database outage is 503 with Retry-After, a malformed request that the
-/// framework rejected keeps its status, anything else is 500 without internals.
+/// framework rejected keeps its status, a value the database cannot take as text (a NUL) is 400, anything else is 500
+/// without internals.
 /// </summary>
 public sealed class ProblemExceptionHandler(IProblemDetailsService problems, ILogger<ProblemExceptionHandler> logger) : IExceptionHandler
 {
@@ -35,6 +36,17 @@ public sealed class ProblemExceptionHandler(IProblemDetailsService problems, ILo
                 Status = bad.StatusCode,
                 Title = bad.StatusCode == 413 ? "The request body is too large" : "The request could not be read",
                 Detail = bad.Message,
+            };
+        }
+        else if (exception is Npgsql.PostgresException { SqlState: "22021" or "22P05" })
+        {
+            // A request value PostgreSQL cannot take as text, in practice a NUL character (%00) in a name or query value.
+            context.Response.StatusCode = StatusCodes.Status400BadRequest;
+            problem = new ProblemDetails
+            {
+                Status = 400,
+                Title = "The request holds a character that is not accepted",
+                Detail = "A value of this request contains a NUL character (%00) or another character that is not valid text; remove it and retry.",
             };
         }
         else if (exception is OperationCanceledException && context.RequestAborted.IsCancellationRequested)

@@ -1,5 +1,6 @@
 using System.CommandLine;
 using Atlas.Api;
+using Microsoft.Extensions.Options;
 
 namespace Atlas.Cli.Commands;
 
@@ -13,8 +14,17 @@ public static class ServeCommand
         var command = new Command("serve", "Serve the REST API and the map page.");
         command.SetAction(async (_, cancel) =>
         {
-            await RunAsync(null, cancel);
-            return 0;
+            try
+            {
+                await RunAsync(null, cancel);
+                return 0;
+            }
+            catch (Exception e) when (e is OptionsValidationException or InvalidOperationException && !cancel.IsCancellationRequested)
+            {
+                // Settings are checked at start-up; say which one is wrong, without a stack trace.
+                Console.Error.WriteLine($"atlas serve: not started: {e.Message}");
+                return 2;
+            }
         });
         return command;
     }

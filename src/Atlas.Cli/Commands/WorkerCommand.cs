@@ -1,28 +1,76 @@
 using System.CommandLine;
+using Atlas.Api.Infrastructure;
 using Atlas.Ingest.Worker;
 using Atlas.Storage;
+using Microsoft.AspNetCore.Builder;
+using Microsoft.AspNetCore.Hosting;
 using Microsoft.Extensions.DependencyInjection;
 using Microsoft.Extensions.Hosting;
 
 namespace Atlas.Cli.Commands;
 
-/// <summary><c>atlas worker</c>: run queued jobs until stopped (SIGTERM or Ctrl-C finish cleanly).</summary>
+/// <summary>
+/// <c>atlas worker</c>: run queued jobs until stopped (SIGTERM or Ctrl-C cancel the job in hand, which is rolled back
+/// and put back in the queue). With <c>--metrics-urls</c> it also serves its job metrics for Prometheus at
+/// <c>/metrics</c> there (and nothing else).
+/// </summary>
 public static class WorkerCommand
 {
+    public const string MetricsServiceName = "atlas-worker";
+
     public static Command Build()
     {
-        var command = new Command("worker", "Claim and run queued ingest and statistics jobs until stopped.");
-        command.SetAction(async (_, cancel) =>
+        var metricsUrls = new Option<string?>("--metrics-urls")
+        {
+            Description = "Serve the worker's job metrics at /metrics on these URLs (e.g. http://127.0.0.1:9464; ';' between several). Default: not served.",
+        };
+        var command = new Command("worker", "Claim and run queued ingest and statistics jobs until stopped.") { metricsUrls };
+        command.Validators.Add(result =>
+        {
+            if (result.GetValue(metricsUrls) is { } urls && MetricsUrlProblem(urls) is { } problem) result.AddError(problem);
+        });
+        command.SetAction(async (parse, cancel) =>
         {
             var dataSource = await AtlasDatabase.OpenMigratedAsync(cancel: cancel);
-            var builder = Host.CreateApplicationBuilder();
-            builder.Services.AddSingleton(dataSource);
-            builder.Services.AddHostedService<QueueWorker>();
-            builder.Services.Configure<HostOptions>(o => o.ShutdownTimeout = TimeSpan.FromSeconds(30));
-            using var host = builder.Build();
+            var urls = parse.GetValue(metricsUrls);
+            using IHost host = urls is null ? BuildPlain(dataSource) : BuildWithMetrics(dataSource, urls);
             await host.RunAsync(cancel);
             return 0;
         });
         return command;
+    }
+
+    /// <summary>Null when every URL is an absolute http URL with a host and port; otherwise what is wrong.</summary>
+    public static string? MetricsUrlProblem(string urls)
+    {
+        foreach (var url in urls.Split(';', StringSplitOptions.RemoveEmptyEntries | StringSplitOptions.TrimEntries))
+            if (!Uri.TryCreate(url, UriKind.Absolute, out var uri) || uri.Scheme != "http" || uri.AbsolutePath != "/")
+                return $"--metrics-urls: '{url}' is not an http URL of a host and port (such as http://127.0.0.1:9464).";
+        return null;
+    }
+
+    private static IHost BuildPlain(Npgsql.NpgsqlDataSource dataSource)
+    {
+        var builder = Host.CreateApplicationBuilder();
+        AddWorker(builder.Services, dataSource);
+        return builder.Build();
+    }
+
+    private static IHost BuildWithMetrics(Npgsql.NpgsqlDataSource dataSource, string urls)
+    {
+        var builder = WebApplication.CreateSlimBuilder();
+        builder.WebHost.UseUrls(urls);
+        AddWorker(builder.Services, dataSource);
+        builder.Services.AddAtlasMetrics(MetricsServiceName);
+        var app = builder.Build();
+        app.MapAtlasMetrics();
+        return app;
+    }
+
+    private static void AddWorker(IServiceCollection services, Npgsql.NpgsqlDataSource dataSource)
+    {
+        services.AddSingleton(dataSource);
+        services.AddHostedService<QueueWorker>();
+        services.Configure<HostOptions>(o => o.ShutdownTimeout = TimeSpan.FromSeconds(30));
     }
 }

@@ -19,6 +19,9 @@ public sealed class JobRunner(NpgsqlDataSource dataSource)
     public async Task<string> RunAsync(JobRecord job, IProgress<ProgressSnapshot>? display, CancellationToken cancel)
     {
         var heartbeat = new HeartbeatProgress(_queue, job.Id, display);
+        var clock = System.Diagnostics.Stopwatch.StartNew();
+        JobMetrics.RecordClaimed(job.Kind);
+        await using var lease = await JobLease.TakeAsync(dataSource, job.Id, cancel);
         try
         {
             string summary;
@@ -29,6 +32,7 @@ public sealed class JobRunner(NpgsqlDataSource dataSource)
                 var result = await new HindcastIngestor(dataSource).RunAsync(
                     new IngestRequest(job.DatasetSlug, payload.Files, payload.Title, payload.Replace, mapping, job.Id), heartbeat, cancel);
                 summary = result.Describe();
+                JobMetrics.RecordIngest(result);
                 if (result.FilesLoaded > 0 && payload.QueueStatistics)
                     await _queue.EnqueueAsync(JobKind.Statistics, job.DatasetSlug, "{}", CancellationToken.None);
             }
@@ -37,19 +41,23 @@ public sealed class JobRunner(NpgsqlDataSource dataSource)
                 var payload = JsonSerializer.Deserialize<StatisticsPayload>(job.PayloadJson) ?? new StatisticsPayload();
                 var result = await new StatisticsService(dataSource).RunAsync(job.DatasetSlug, payload.All, heartbeat, cancel);
                 summary = result.Describe();
+                JobMetrics.RecordStatistics(result);
             }
             await _queue.CompleteAsync(job.Id, summary, CancellationToken.None);
+            JobMetrics.RecordFinished(job.Kind, "done", clock.Elapsed);
             return summary;
         }
         catch (OperationCanceledException) when (cancel.IsCancellationRequested)
         {
             // Shutting down: the transaction was rolled back, so the job can be run again from the start.
             await _queue.ReleaseAsync(job.Id, CancellationToken.None);
+            JobMetrics.RecordFinished(job.Kind, "released", clock.Elapsed);
             throw;
         }
         catch (Exception e) when (e is not OperationCanceledException)
         {
             await _queue.FailAsync(job.Id, e.Message, CancellationToken.None);
+            JobMetrics.RecordFinished(job.Kind, "failed", clock.Elapsed);
             throw;
         }
     }

@@ -67,14 +67,27 @@ public sealed class JobQueue(NpgsqlDataSource dataSource)
         await command.ExecuteNonQueryAsync(cancel);
     }
 
-    /// <summary>Re-queues running jobs whose worker has not sent a heartbeat for <paramref name="staleAfter"/>.</summary>
+    /// <summary>
+    /// Re-queues running jobs whose process is gone: no <see cref="JobLease"/> holds their lock (checked once the
+    /// claim is a few seconds old, the time a claimer takes to lease it), or no heartbeat came for
+    /// <paramref name="staleAfter"/> (a process that hangs with its session still open).
+    /// </summary>
     public async Task<int> RequeueStaleAsync(TimeSpan staleAfter, CancellationToken cancel = default)
     {
-        await using var command = dataSource.CreateCommand(
-            "UPDATE job SET state = 'queued', claimed_by = NULL WHERE state = 'running' AND heartbeat_at < now() - $1");
+        // The try-lock is transaction-scoped, so a free lock taken here is released when this statement ends.
+        await using var command = dataSource.CreateCommand($"""
+            UPDATE job SET state = 'queued', claimed_by = NULL
+             WHERE state = 'running'
+               AND (heartbeat_at < now() - $1
+                    OR (claimed_at < now() - $2 AND pg_try_advisory_xact_lock({JobLease.LockSpace}, {JobLease.JobKeySql})))
+            """);
         command.Parameters.AddWithValue(staleAfter);
+        command.Parameters.AddWithValue(LeaseGrace);
         return await command.ExecuteNonQueryAsync(cancel);
     }
+
+    /// <summary>How long after its claim a running job without a lease counts as abandoned.</summary>
+    public static readonly TimeSpan LeaseGrace = TimeSpan.FromSeconds(5);
 
     public async Task<JobRecord?> FindAsync(long jobId, CancellationToken cancel = default)
     {
@@ -91,6 +104,16 @@ public sealed class JobQueue(NpgsqlDataSource dataSource)
         await using var reader = await command.ExecuteReaderAsync(cancel);
         while (await reader.ReadAsync(cancel)) jobs.Add(Read(reader));
         return jobs;
+    }
+
+    /// <summary>How many jobs are in each (kind, state); states with no job are absent.</summary>
+    public async Task<IReadOnlyList<(string Kind, string State, long Count)>> CountByStateAsync(CancellationToken cancel = default)
+    {
+        await using var command = dataSource.CreateCommand("SELECT kind, state, count(*) FROM job GROUP BY kind, state");
+        var counts = new List<(string, string, long)>();
+        await using var reader = await command.ExecuteReaderAsync(cancel);
+        while (await reader.ReadAsync(cancel)) counts.Add((reader.GetString(0), reader.GetString(1), reader.GetInt64(2)));
+        return counts;
     }
 
     private async Task FinishAsync(long jobId, string state, string? error, string? summary, CancellationToken cancel)

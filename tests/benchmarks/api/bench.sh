@@ -13,23 +13,8 @@ duration=${DURATION:-10s}
 connections=${CONNECTIONS:-32}
 threads=${THREADS:-2}
 base="http://127.0.0.1:$port"
-command -v wrk >/dev/null || { echo "bench: wrk is not installed (apt-get install -y wrk)" >&2; exit 2; }
-
-atlas=${ATLAS_BIN:-"$top/src/Atlas.Cli/bin/Release/net10.0/atlas"}
-if [ -z "${ATLAS_BIN:-}" ]; then  # keep the Release build current
-  dotnet build "$top/src/Atlas.Cli" -c Release -v quiet -nologo >/dev/null
-fi
-
-log=$(mktemp)
-ASPNETCORE_URLS="$base" AtlasApiOptions__ExpensiveRequestsPerMinute=1000000 Logging__LogLevel__Default=Warning \
-  "$atlas" serve >"$log" 2>&1 &
-server=$!
-trap 'kill "$server" 2>/dev/null || true; wait "$server" 2>/dev/null || true; rm -f "$log"' EXIT
-for _ in $(seq 1 120); do
-  curl -fsS "$base/healthz" >/dev/null 2>&1 && break
-  kill -0 "$server" 2>/dev/null || { echo "bench: the server exited:" >&2; cat "$log" >&2; exit 1; }
-  sleep 0.5
-done
+name=bench
+source "$here/serve.sh"
 
 # The dataset (SLUG, or the first with computed statistics) and a wet cell of it: the middle one the screening
 # endpoint returns with no criteria (it lists the cells that have an annual mean power).

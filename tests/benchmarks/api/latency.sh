@@ -17,6 +17,7 @@ work="${ATLAS_BENCH_DIR:-/tmp/atlas-bench}"; mkdir -p "$work"
 out="$top/tests/artifacts/benchmarks"; mkdir -p "$out"
 atlas=${ATLAS_BIN:-"$top/src/Atlas.Cli/bin/Release/net10.0/atlas"}
 [ -n "${ATLAS_BIN:-}" ] || dotnet build "$top/src/Atlas.Cli" -c Release -v quiet -nologo >/dev/null
+export ATLAS_BIN=$atlas   # serve.sh need not build again
 [ -n "${ATLAS_DB:-}" ] || "$atlas" db start >/dev/null
 psql_url=${ATLAS_PSQL:-"host=127.0.0.1 port=${ATLAS_PG_PORT:-54329} user=atlas dbname=atlas"}
 
@@ -29,16 +30,8 @@ ensure() { # slug nx ny nt
 ensure hourly-20y 8 8 175320
 ensure wide-300k 600 500 240
 
-log=$(mktemp)
-ASPNETCORE_URLS="$base" AtlasApiOptions__ExpensiveRequestsPerMinute=1000000 Logging__LogLevel__Default=Warning \
-  "$atlas" serve >"$log" 2>&1 &
-server=$!
-trap 'kill "$server" 2>/dev/null || true; wait "$server" 2>/dev/null || true; rm -f "$log"' EXIT
-for _ in $(seq 1 120); do
-  curl -fsS "$base/healthz" >/dev/null 2>&1 && break
-  kill -0 "$server" 2>/dev/null || { echo "latency: the server exited:" >&2; cat "$log" >&2; exit 1; }
-  sleep 0.5
-done
+name=latency
+source "$here/serve.sh"
 
 ms() { curl -fsS -o /dev/null -w '%{time_total}\n' "$1" | awk '{printf "%.1f\n", $1 * 1000}'; }
 summary() { sort -n | awk '{v[NR] = $1} END {printf "median %.1f ms, max %.1f ms over %d requests", v[int((NR + 1) / 2)], v[NR], NR}'; }

@@ -1,0 +1,130 @@
+using System.Collections.Concurrent;
+using System.Diagnostics;
+using System.Net;
+using System.Text.Json;
+using Atlas.Storage;
+
+namespace Atlas.Cli.Tests.Faults;
+
+/// <summary>
+/// PostgreSQL stopped and started again under a steady load on a running <c>atlas serve</c>. The database is a
+/// throwaway embedded cluster in a temp folder on a port of its own, so no other test sees the outage.
+/// </summary>
+public sealed class DatabaseRestartTests : IAsyncLifetime
+{
+    private readonly string _home = Directory.CreateTempSubdirectory("atlas-fault-restart-").FullName;
+    private EmbeddedCluster _cluster = null!;
+
+    public async Task InitializeAsync()
+    {
+        _cluster = new EmbeddedCluster(_home, RunningAtlas.FreePort());
+        await _cluster.EnsureRunningAsync();
+    }
+
+    public Task DisposeAsync()
+    {
+        try { _cluster.Stop(); }
+        finally { Directory.Delete(_home, recursive: true); }
+        return Task.CompletedTask;
+    }
+
+    private enum Phase { Up, Stopping, Down, Starting, After }
+
+    private sealed record Answer(Phase Began, Phase Ended, int Status, string? ContentType, bool RetryAfter, string Url, string Body);
+
+    [Fact]
+    public async Task RequestsAreServiceUnavailableProblemsWhileTheDatabaseIsDownAndSucceedAfterWithNoCrash()
+    {
+        var environment = new Dictionary<string, string>
+        {
+            ["ATLAS_DB"] = _cluster.ConnectionString.Replace("Timeout=15", "Timeout=3"),
+            ["ATLAS_HOME"] = _home,
+            ["Logging__Console__FormatterName"] = "json",
+            ["Logging__Console__FormatterOptions__IncludeScopes"] = "true",
+            // The steady load is one client address; keep the per-address limit out of the way.
+            ["AtlasApiOptions__ExpensiveRequestsPerMinute"] = "1000000",
+        };
+        var file = HindcastFixture.Make(_home, "restart.nc", 40, 6, 5);
+        var (code, output) = AtlasProcess.Run($"ingest \"{file}\" --dataset restart-coast", environment, 180);
+        Assert.True(code == 0, output);
+
+        var port = RunningAtlas.FreePort();
+        environment["ASPNETCORE_URLS"] = $"http://127.0.0.1:{port}";
+        using var server = new RunningAtlas("serve", environment);
+        using var http = new HttpClient { BaseAddress = new Uri($"http://127.0.0.1:{port}"), Timeout = TimeSpan.FromSeconds(20) };
+        await RunningAtlas.WaitUntilAsync(async () =>
+        {
+            try { return (await http.GetAsync("/readyz")).StatusCode == HttpStatusCode.OK; }
+            catch (HttpRequestException) { return false; }
+        }, 90, $"the server to be ready\n{server.Output}");
+
+        string[] urls =
+        [
+            "/api/v1/datasets", "/api/v1/datasets/restart-coast", "/api/v1/datasets/restart-coast/point?lat=50.2&lon=-19.7&period=annual",
+            "/api/v1/datasets/restart-coast/point/series?lat=50.2&lon=-19.7&format=csv", "/readyz",
+        ];
+        var phase = Phase.Up;
+        var answers = new ConcurrentQueue<Answer>();
+        var failures = new ConcurrentQueue<string>();
+        using var stopLoad = new CancellationTokenSource();
+        var load = Enumerable.Range(0, 3).Select(client => Task.Run(async () =>
+        {
+            for (var n = client; !stopLoad.IsCancellationRequested; n++)
+            {
+                var url = urls[n % urls.Length];
+                var began = phase;
+                try
+                {
+                    using var response = await http.GetAsync(url);
+                    var body = await response.Content.ReadAsStringAsync();
+                    answers.Enqueue(new Answer(began, phase, (int)response.StatusCode, response.Content.Headers.ContentType?.MediaType,
+                        response.Headers.RetryAfter is not null, url, body));
+                }
+                catch (Exception e) when (e is HttpRequestException or TaskCanceledException)
+                {
+                    failures.Enqueue($"{url}: {e.Message}");
+                }
+            }
+        })).ToArray();
+
+        await Task.Delay(1500);
+        phase = Phase.Stopping;
+        _cluster.Stop();
+        phase = Phase.Down;
+        await Task.Delay(3000);
+        phase = Phase.Starting;
+        _cluster.Start();
+        phase = Phase.After;
+        // The pool drops its dead connections as they are tried; give it a few seconds, then expect a clean run.
+        await Task.Delay(4000);
+        var cleanFrom = answers.Count;
+        await Task.Delay(1500);
+        await stopLoad.CancelAsync();
+        await Task.WhenAll(load);
+
+        Assert.False(server.HasExited, server.Output);
+        Assert.True(failures.IsEmpty, "the server stopped answering:\n" + string.Join('\n', failures.Take(5)) + "\n" + server.Output);
+        var all = answers.ToArray();
+        Assert.DoesNotContain(all, a => a.Status >= 500 && a.Status != 503);
+        Assert.All(all.Where(a => a.Began == Phase.Up && a.Ended == Phase.Up), a => Assert.True(a.Status == 200, $"{a.Url}: {a.Status} {a.Body}"));
+        var down = all.Where(a => a.Began == Phase.Down && a.Ended == Phase.Down).ToArray();
+        Assert.True(down.Length >= 10, $"only {down.Length} requests were answered while the database was down");
+        foreach (var a in down)
+        {
+            Assert.True(a.Status == 503, $"{a.Url} while down: {a.Status} {a.Body}");
+            Assert.Equal("application/problem+json", a.ContentType);
+            Assert.Equal(503, JsonDocument.Parse(a.Body).RootElement.GetProperty("status").GetInt32());
+            if (!a.Url.StartsWith("/readyz", StringComparison.Ordinal)) Assert.True(a.RetryAfter, $"{a.Url} has no Retry-After");
+        }
+        var settled = all.Skip(cleanFrom).ToArray();
+        Assert.NotEmpty(settled);
+        Assert.All(settled, a => Assert.True(a.Status == 200, $"{a.Url} after the restart: {a.Status} {a.Body}"));
+
+        // Structured logs: the outage warnings are JSON lines carrying the request id of the request they belong to.
+        var outageLine = server.Lines.FirstOrDefault(l => l.StartsWith('{') && l.Contains("Database unavailable", StringComparison.Ordinal));
+        Assert.True(outageLine is not null, server.Output);
+        var entry = JsonDocument.Parse(outageLine!).RootElement;
+        Assert.Contains(entry.GetProperty("Scopes").EnumerateArray(), s => s.ValueKind == JsonValueKind.Object && s.TryGetProperty("RequestId", out _));
+        Assert.Equal(0, server.Terminate());
+    }
+}
