@@ -1,0 +1,118 @@
+using System.Buffers.Binary;
+
+namespace Atlas.Storage.Copy;
+
+/// <summary>
+/// Writes PostgreSQL's binary COPY format (the "Binary Format" section of the COPY page of the PostgreSQL manual:
+/// signature, flags and extension length; per row a field count and length-prefixed big-endian fields; a -1
+/// trailer) for a raw binary COPY stream. Hundreds of thousands of small rows go out several times faster than
+/// through a typed importer's per-field calls; only the few column types the stores need are written.
+/// </summary>
+public sealed class BinaryCopyEncoder(Stream target)
+{
+    private const int Float4Oid = 700;  // pg_type oid of real
+    private static readonly byte[] Signature = [(byte)'P', (byte)'G', (byte)'C', (byte)'O', (byte)'P', (byte)'Y', 0x0A, 0xFF, 0x0D, 0x0A, 0x00];
+
+    private readonly byte[] _buffer = new byte[1 << 16];
+    private int _used;
+
+    /// <summary>The signature, no flags and an empty header extension.</summary>
+    public void WriteHeader()
+    {
+        Ensure(19);
+        Signature.CopyTo(_buffer, _used);
+        _used += Signature.Length;
+        Int32Raw(0);
+        Int32Raw(0);
+    }
+
+    public void StartRow(short fieldCount)
+    {
+        Ensure(2);
+        BinaryPrimitives.WriteInt16BigEndian(_buffer.AsSpan(_used), fieldCount);
+        _used += 2;
+    }
+
+    public void WriteInt32(int value)
+    {
+        Ensure(8);
+        Int32Raw(4);
+        Int32Raw(value);
+    }
+
+    public void WriteInt16(short value)
+    {
+        Ensure(6);
+        Int32Raw(2);
+        BinaryPrimitives.WriteInt16BigEndian(_buffer.AsSpan(_used), value);
+        _used += 2;
+    }
+
+    /// <summary>A real, as it is (NaN included): for NOT NULL columns.</summary>
+    public void WriteReal(float value)
+    {
+        Ensure(8);
+        Int32Raw(4);
+        BinaryPrimitives.WriteSingleBigEndian(_buffer.AsSpan(_used), value);
+        _used += 4;
+    }
+
+    /// <summary>A real, or NULL when the value is absent or not finite.</summary>
+    public void WriteReal(float? value)
+    {
+        Ensure(8);
+        if (value is { } v && float.IsFinite(v))
+        {
+            Int32Raw(4);
+            BinaryPrimitives.WriteSingleBigEndian(_buffer.AsSpan(_used), v);
+            _used += 4;
+        }
+        else Int32Raw(-1);
+    }
+
+    /// <summary>A one-dimensional real[] (lower bound 1), or NULL for null.</summary>
+    public void WriteRealArray(float[]? values)
+    {
+        if (values is null) { Ensure(4); Int32Raw(-1); return; }
+        Ensure(24 + 8 * values.Length);
+        Int32Raw(20 + 8 * values.Length);
+        Int32Raw(1);           // dimensions
+        Int32Raw(0);           // no NULL elements
+        Int32Raw(Float4Oid);
+        Int32Raw(values.Length);
+        Int32Raw(1);           // lower bound
+        foreach (var v in values)
+        {
+            Int32Raw(4);
+            BinaryPrimitives.WriteSingleBigEndian(_buffer.AsSpan(_used), v);
+            _used += 4;
+        }
+    }
+
+    /// <summary>The -1 trailer, then everything buffered goes to the stream.</summary>
+    public void WriteTrailer()
+    {
+        Ensure(2);
+        BinaryPrimitives.WriteInt16BigEndian(_buffer.AsSpan(_used), -1);
+        _used += 2;
+        Flush();
+    }
+
+    private void Int32Raw(int value)
+    {
+        BinaryPrimitives.WriteInt32BigEndian(_buffer.AsSpan(_used), value);
+        _used += 4;
+    }
+
+    private void Ensure(int bytes)
+    {
+        if (bytes > _buffer.Length) throw new ArgumentOutOfRangeException(nameof(bytes), bytes, "A field larger than the COPY buffer.");
+        if (_used + bytes > _buffer.Length) Flush();
+    }
+
+    private void Flush()
+    {
+        target.Write(_buffer, 0, _used);
+        _used = 0;
+    }
+}
