@@ -146,6 +146,19 @@ public sealed class NetCdfFileTests
     }
 
     [Fact]
+    public void ATextAttributeEndsAtItsFirstNulCharacter()
+    {
+        // Found by the ingest fuzz test: a NUL inside :title reached PostgreSQL's jsonb, which refuses it.
+        var bytes = File.ReadAllBytes(_fixtures.Path("regular_float.classic"));
+        var at = bytes.AsSpan().IndexOf("invented test grid"u8);
+        bytes[at + "invented".Length] = 0;
+        var path = _fixtures.Scratch("nul-in-title.nc");
+        File.WriteAllBytes(path, bytes);
+        using var file = NetCdfFile.Open(path);
+        Assert.Equal("invented", file.GlobalAttribute("title")!.Text);
+    }
+
+    [Fact]
     public void CutNetCdf4FileIsRefusedWithTheLibraryError()
     {
         string path = Cut(_fixtures.Path("compressed"), 4096);

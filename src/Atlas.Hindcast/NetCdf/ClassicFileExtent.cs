@@ -27,55 +27,59 @@ internal static class ClassicFileExtent
         long numrecs = reader.Size();
         if (numrecs == (version == 5 ? -1L : 0xFFFF_FFFFL)) return null;
 
-        var dims = new List<long>();
-        long recordDim = -1;
-        foreach (var _ in reader.List(NcDimension))
+        // Sizes multiply and add up from untrusted header fields: any overflow means a damaged header.
+        try
         {
-            reader.Name();
-            long length = reader.Size();
-            if (length == 0) recordDim = dims.Count;
-            dims.Add(length);
-        }
-        SkipAttributes(reader);
+            checked
+            {
+                var dims = new List<long>();
+                long recordDim = -1;
+                foreach (var _ in reader.List(NcDimension))
+                {
+                    reader.Name();
+                    long length = reader.Size();
+                    if (length == 0) recordDim = dims.Count;
+                    dims.Add(length);
+                }
+                SkipAttributes(reader);
 
-        long required = reader.Position;
-        long recordSize = 0;
-        var records = new List<(long Begin, long OneRecord)>();
-        foreach (var _ in reader.List(NcVariable))
-        {
-            reader.Name();
-            long rank = reader.Size();
-            if (rank > dims.Count) throw Corrupt(path, $"a variable with {rank} dimensions where {dims.Count} are defined");
-            var ids = new long[rank];
-            for (int d = 0; d < rank; d++)
-                if ((ids[d] = reader.Size()) >= dims.Count) throw Corrupt(path, $"dimension id {ids[d]} where {dims.Count} are defined");
-            SkipAttributes(reader);
-            int type = reader.Int32();
-            reader.VarSize();
-            long begin = reader.Offset();
-            long bytes = TypeSize(type, path);
-            bool isRecord = rank > 0 && ids[0] == recordDim;
-            try
-            {
-                for (int d = isRecord ? 1 : 0; d < rank; d++) bytes = checked(bytes * dims[(int)ids[d]]);
+                long required = reader.Position;
+                long recordSize = 0;
+                var records = new List<(long Begin, long OneRecord)>();
+                foreach (var _ in reader.List(NcVariable))
+                {
+                    reader.Name();
+                    long rank = reader.Size();
+                    if (rank < 0 || rank > dims.Count) throw Corrupt(path, $"a variable with {rank} dimensions where {dims.Count} are defined");
+                    var ids = new long[rank];
+                    for (int d = 0; d < rank; d++)
+                        if ((ids[d] = reader.Size()) < 0 || ids[d] >= dims.Count) throw Corrupt(path, $"dimension id {ids[d]} where {dims.Count} are defined");
+                    SkipAttributes(reader);
+                    int type = reader.Int32();
+                    reader.VarSize();
+                    long begin = reader.Offset();
+                    long bytes = TypeSize(type, path);
+                    bool isRecord = rank > 0 && ids[0] == recordDim;
+                    for (int d = isRecord ? 1 : 0; d < rank; d++) bytes *= dims[(int)ids[d]];
+                    if (isRecord)
+                    {
+                        records.Add((begin, bytes));
+                        recordSize += Pad4(bytes);
+                    }
+                    else required = Math.Max(required, begin + bytes);
+                }
+                // With a single record variable the records are not padded (the classic-format special case).
+                if (records.Count == 1) recordSize = records[0].OneRecord;
+                if (numrecs > 0)
+                    foreach (var (begin, one) in records)
+                        required = Math.Max(required, begin + (numrecs - 1) * recordSize + one);
+                return required;
             }
-            catch (OverflowException)
-            {
-                throw Corrupt(path, "a variable larger than any file can be");
-            }
-            if (isRecord)
-            {
-                records.Add((begin, bytes));
-                recordSize += Pad4(bytes);
-            }
-            else required = Math.Max(required, begin + bytes);
         }
-        // With a single record variable the records are not padded (the classic-format special case).
-        if (records.Count == 1) recordSize = records[0].OneRecord;
-        if (numrecs > 0)
-            foreach (var (begin, one) in records)
-                required = Math.Max(required, begin + (numrecs - 1) * recordSize + one);
-        return required;
+        catch (OverflowException)
+        {
+            throw Corrupt(path, "sizes that overflow");
+        }
     }
 
     private static void SkipAttributes(HeaderReader reader)

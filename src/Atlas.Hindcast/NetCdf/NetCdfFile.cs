@@ -272,7 +272,10 @@ public sealed unsafe class NetCdfFile : IDisposable
             {
                 var bytes = new byte[length + 1];
                 fixed (byte* p = bytes) Check(NetCdfNative.nc_get_att_text(ncid, varid, name, p), variable, $"nc_get_att_text({name})");
-                return new NetCdfAttribute(name, type, Encoding.UTF8.GetString(bytes, 0, length).TrimEnd('\0'), []);
+                // Text attributes are C strings to every writer: what follows a NUL is padding or damage, never text
+                // (and PostgreSQL refuses NUL in the metadata it is copied into).
+                var text = Encoding.UTF8.GetString(bytes, 0, length);
+                return new NetCdfAttribute(name, type, text.IndexOf('\0') is >= 0 and var nul ? text[..nul] : text, []);
             }
             case NetCdfType.String:
             {
