@@ -121,6 +121,43 @@ public sealed class NetCdfFileTests
         Assert.Throws<HindcastFormatException>(() => HindcastFile.Open(path));
     }
 
+    [Theory]
+    [InlineData("classic")]
+    [InlineData("offset64")]
+    public void AnAttributeWhoseHeaderClaimsMoreValuesThanTheFileHoldsIsRefusedBeforeItIsRead(string kind)
+    {
+        // Found by the ingest fuzz test: a flipped bit in a classic header's attribute count made the library fill
+        // gigabytes for a file of kilobytes. The classic header stores the global attribute :title as name length,
+        // name padded to 4 bytes, type, value count (big-endian, 4 bytes), values (the netCDF classic format spec);
+        // raising the count's first byte makes it claim 268 million values. (CDF5's 8-byte counts, raised alike, make
+        // nc_open itself fail to allocate them.)
+        var source = _fixtures.Path("regular_float." + kind);
+        var bytes = File.ReadAllBytes(source);
+        var name = System.Text.Encoding.ASCII.GetBytes("title");
+        var at = bytes.AsSpan().IndexOf(name);
+        Assert.True(at > 0, "no :title attribute in the fixture header");
+        bytes[at + 8 + 4] = 0x10;
+        var path = _fixtures.Scratch("huge-attribute-" + System.IO.Path.GetFileName(source));
+        File.WriteAllBytes(path, bytes);
+        var e = Assert.ThrowsAny<Exception>(() => NetCdfFile.Open(path));
+        Assert.Contains(path, e.Message);
+        // Refused by the project's own header walk, before nc_open could allocate for it.
+        Assert.True(e is HindcastFormatException { Problem: var p } && p.StartsWith("truncated or damaged: the header runs past"), e.ToString());
+    }
+
+    [Fact]
+    public void ATextAttributeEndsAtItsFirstNulCharacter()
+    {
+        // Found by the ingest fuzz test: a NUL inside :title reached PostgreSQL's jsonb, which refuses it.
+        var bytes = File.ReadAllBytes(_fixtures.Path("regular_float.classic"));
+        var at = bytes.AsSpan().IndexOf("invented test grid"u8);
+        bytes[at + "invented".Length] = 0;
+        var path = _fixtures.Scratch("nul-in-title.nc");
+        File.WriteAllBytes(path, bytes);
+        using var file = NetCdfFile.Open(path);
+        Assert.Equal("invented", file.GlobalAttribute("title")!.Text);
+    }
+
     [Fact]
     public void CutNetCdf4FileIsRefusedWithTheLibraryError()
     {

@@ -27,46 +27,59 @@ internal static class ClassicFileExtent
         long numrecs = reader.Size();
         if (numrecs == (version == 5 ? -1L : 0xFFFF_FFFFL)) return null;
 
-        var dims = new List<long>();
-        long recordDim = -1;
-        foreach (var _ in reader.List(NcDimension))
+        // Sizes multiply and add up from untrusted header fields: any overflow means a damaged header.
+        try
         {
-            reader.Name();
-            long length = reader.Size();
-            if (length == 0) recordDim = dims.Count;
-            dims.Add(length);
-        }
-        SkipAttributes(reader);
-
-        long required = reader.Position;
-        long recordSize = 0;
-        var records = new List<(long Begin, long OneRecord)>();
-        foreach (var _ in reader.List(NcVariable))
-        {
-            reader.Name();
-            long rank = reader.Size();
-            var ids = new long[rank];
-            for (int d = 0; d < rank; d++) ids[d] = reader.Size();
-            SkipAttributes(reader);
-            int type = reader.Int32();
-            reader.VarSize();
-            long begin = reader.Offset();
-            long bytes = TypeSize(type, path);
-            bool isRecord = rank > 0 && ids[0] == recordDim;
-            for (int d = isRecord ? 1 : 0; d < rank; d++) bytes *= dims[(int)ids[d]];
-            if (isRecord)
+            checked
             {
-                records.Add((begin, bytes));
-                recordSize += Pad4(bytes);
+                var dims = new List<long>();
+                long recordDim = -1;
+                foreach (var _ in reader.List(NcDimension))
+                {
+                    reader.Name();
+                    long length = reader.Size();
+                    if (length == 0) recordDim = dims.Count;
+                    dims.Add(length);
+                }
+                SkipAttributes(reader);
+
+                long required = reader.Position;
+                long recordSize = 0;
+                var records = new List<(long Begin, long OneRecord)>();
+                foreach (var _ in reader.List(NcVariable))
+                {
+                    reader.Name();
+                    long rank = reader.Size();
+                    if (rank < 0 || rank > dims.Count) throw Corrupt(path, $"a variable with {rank} dimensions where {dims.Count} are defined");
+                    var ids = new long[rank];
+                    for (int d = 0; d < rank; d++)
+                        if ((ids[d] = reader.Size()) < 0 || ids[d] >= dims.Count) throw Corrupt(path, $"dimension id {ids[d]} where {dims.Count} are defined");
+                    SkipAttributes(reader);
+                    int type = reader.Int32();
+                    reader.VarSize();
+                    long begin = reader.Offset();
+                    long bytes = TypeSize(type, path);
+                    bool isRecord = rank > 0 && ids[0] == recordDim;
+                    for (int d = isRecord ? 1 : 0; d < rank; d++) bytes *= dims[(int)ids[d]];
+                    if (isRecord)
+                    {
+                        records.Add((begin, bytes));
+                        recordSize += Pad4(bytes);
+                    }
+                    else required = Math.Max(required, begin + bytes);
+                }
+                // With a single record variable the records are not padded (the classic-format special case).
+                if (records.Count == 1) recordSize = records[0].OneRecord;
+                if (numrecs > 0)
+                    foreach (var (begin, one) in records)
+                        required = Math.Max(required, begin + (numrecs - 1) * recordSize + one);
+                return required;
             }
-            else required = Math.Max(required, begin + bytes);
         }
-        // With a single record variable the records are not padded (the classic-format special case).
-        if (records.Count == 1) recordSize = records[0].OneRecord;
-        if (numrecs > 0)
-            foreach (var (begin, one) in records)
-                required = Math.Max(required, begin + (numrecs - 1) * recordSize + one);
-        return required;
+        catch (OverflowException)
+        {
+            throw Corrupt(path, "sizes that overflow");
+        }
     }
 
     private static void SkipAttributes(HeaderReader reader)
@@ -76,7 +89,10 @@ internal static class ClassicFileExtent
             reader.Name();
             int type = reader.Int32();
             long count = reader.Size();
-            reader.Skip(Pad4(count * TypeSize(type, reader.Path)));
+            long size = TypeSize(type, reader.Path);
+            // A count past the end of the file is caught by Skip; one so large its byte size overflows, here.
+            if (count > long.MaxValue / 8) throw Corrupt(reader.Path, $"an attribute of {count} values");
+            reader.Skip(Pad4(count * size));
         }
     }
 
@@ -88,6 +104,8 @@ internal static class ClassicFileExtent
         6 or 10 or 11 => 8,
         _ => throw new HindcastFormatException(path, null, $"corrupt classic header: unknown type code {type}"),
     };
+
+    private static HindcastFormatException Corrupt(string path, string what) => new(path, null, $"corrupt classic header: {what}");
 
     private static long Pad4(long n) => (n + 3) & ~3L;
 
@@ -130,12 +148,13 @@ internal static class ClassicFileExtent
         public void Name()
         {
             long length = Size();
+            if (length > stream.Length) throw Cut();
             Skip(Pad4(length));
         }
 
         public void Skip(long bytes)
         {
-            if (stream.Position + bytes > stream.Length) throw Cut();
+            if (bytes < 0 || bytes > stream.Length - stream.Position) throw Cut();
             stream.Seek(bytes, SeekOrigin.Current);
         }
 
@@ -155,6 +174,7 @@ internal static class ClassicFileExtent
             if (stream.ReadAtLeast(_buffer.AsSpan(0, n), n, throwOnEndOfStream: false) < n) throw Cut();
         }
 
-        private HindcastFormatException Cut() => new(path, null, "truncated: the file ends inside its header");
+        private HindcastFormatException Cut() =>
+            new(path, null, "truncated or damaged: the header runs past the end of the file (cut short, or a count or length in it is wrong)");
     }
 }

@@ -16,9 +16,13 @@ public sealed unsafe class NetCdfFile : IDisposable
     private readonly Dictionary<string, NetCdfVariable> _byName;
     private readonly Dictionary<string, NetCdfAttribute> _globalByName;
 
+    /// <summary>The file's size when opened, the most any attribute can hold.</summary>
+    private long FileBytes { get; }
+
     private NetCdfFile(string path, NetCdfHandle handle)
     {
         Path = path;
+        FileBytes = new FileInfo(path).Length;
         _handle = handle;
         int ncid = handle.Id;
         lock (NetCdfNative.Gate)
@@ -41,6 +45,9 @@ public sealed unsafe class NetCdfFile : IDisposable
     {
         ArgumentException.ThrowIfNullOrEmpty(path);
         if (!File.Exists(path)) throw new FileNotFoundException($"{path}: no such file", path);
+        // Before the library sees a classic-model file: a damaged header count makes nc_open allocate and copy
+        // gigabytes for a file of kilobytes (found by the ingest fuzz test). An HDF5 file passes untouched.
+        RequireComplete(path);
         int status, ncid;
         lock (NetCdfNative.Gate)
         {
@@ -51,9 +58,7 @@ public sealed unsafe class NetCdfFile : IDisposable
         var handle = new NetCdfHandle(ncid);
         try
         {
-            var file = new NetCdfFile(path, handle);
-            if (file.Format is NetCdfFormat.Classic or NetCdfFormat.Offset64 or NetCdfFormat.Cdf5) RequireComplete(path);
-            return file;
+            return new NetCdfFile(path, handle);
         }
         catch
         {
@@ -64,7 +69,8 @@ public sealed unsafe class NetCdfFile : IDisposable
 
     /// <summary>
     /// netCDF-C reads the missing tail of a cut classic file as zeros, so compare the size the header needs with the
-    /// size on disk. (HDF5 checks this itself and refuses to open a cut NetCDF-4 file.)
+    /// size on disk; walking the header also refuses counts and lengths that run past the end of the file. (HDF5
+    /// checks this itself and refuses to open a cut NetCDF-4 file; anything but a classic file passes.)
     /// </summary>
     private static void RequireComplete(string path)
     {
@@ -248,6 +254,11 @@ public sealed unsafe class NetCdfFile : IDisposable
             Check(NetCdfNative.nc_inq_attname(ncid, varid, i, nameBuffer), variable, "nc_inq_attname");
             string name = Utf8(nameBuffer);
             Check(NetCdfNative.nc_inq_att(ncid, varid, name, out int xtype, out nuint length), variable, "nc_inq_att");
+            // Attribute values are stored uncompressed in every format, so a damaged header that claims more values than
+            // the file has bytes would otherwise make the library fill gigabytes from a file of kilobytes.
+            if (length > (nuint)Math.Min(FileBytes, int.MaxValue - 1))
+                throw new HindcastFormatException(Path, variable,
+                    $"attribute '{name}' claims {length} values, more than the file's {FileBytes} bytes can hold (a damaged header)");
             result.Add(ReadAttribute(ncid, varid, name, (NetCdfType)xtype, (int)length, variable));
         }
         return result;
@@ -261,7 +272,10 @@ public sealed unsafe class NetCdfFile : IDisposable
             {
                 var bytes = new byte[length + 1];
                 fixed (byte* p = bytes) Check(NetCdfNative.nc_get_att_text(ncid, varid, name, p), variable, $"nc_get_att_text({name})");
-                return new NetCdfAttribute(name, type, Encoding.UTF8.GetString(bytes, 0, length).TrimEnd('\0'), []);
+                // Text attributes are C strings to every writer: what follows a NUL is padding or damage, never text
+                // (and PostgreSQL refuses NUL in the metadata it is copied into).
+                var text = Encoding.UTF8.GetString(bytes, 0, length);
+                return new NetCdfAttribute(name, type, text.IndexOf('\0') is >= 0 and var nul ? text[..nul] : text, []);
             }
             case NetCdfType.String:
             {

@@ -76,6 +76,9 @@ public sealed class ReadOnlyRoleTests(AtlasApiFixture atlas) : IAsyncLifetime
                      $"{coast}/point/series?lat=40.45&lon=20.45&format=csv", $"{coast}/layers", $"{coast}/layers/hs/mean/annual.csv",
                      $"{coast}/layers/j/mean/djf.tif", $"{coast}/layers/hs/mean/annual.geojson", $"{coast}/land",
                      $"{coast}/screen?min_power_kw_m=1", "/api/v1/stations", "/api/v1/devices",
+                     $"{coast}/point/windows?lat=40.45&lon=20.45&hs_max=2&hours=12", $"{coast}/point/extremes?lat=40.45&lon=20.45",
+                     // Assessment layers are rendered on a read and cached through the writer.
+                     $"{coast}/layers/accessibility.csv?hs_max=2", $"{coast}/layers/accessibility.json?hs_max=1.5&hours=12",
                  })
         {
             var response = await client.GetAsync(url);

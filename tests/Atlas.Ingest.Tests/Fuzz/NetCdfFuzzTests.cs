@@ -25,6 +25,7 @@ public sealed class NetCdfFuzzTests(TestDatabase database, ITestOutputHelper out
             FixtureFiles.Make("fuzz-nc4-packed.nc", 0, Steps, "--format NETCDF4 --packed"),
             FixtureFiles.Make("fuzz-classic.nc", 0, Steps, "--format NETCDF3_CLASSIC"),
             FixtureFiles.Make("fuzz-64bit-packed.nc", 0, Steps, "--format NETCDF3_64BIT_OFFSET --packed"),
+            FixtureFiles.Make("fuzz-cdf5.nc", 0, Steps, "--format NETCDF3_64BIT_DATA"),
         }.Select(path => (Name: Path.GetFileNameWithoutExtension(path), Bytes: File.ReadAllBytes(path))).ToArray();
         await new HindcastIngestor(database.DataSource).RunAsync(new IngestRequest(Slug, [FixtureFiles.Make("fuzz-base.nc", 0, Steps)]));
 
