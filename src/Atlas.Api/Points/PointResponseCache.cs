@@ -77,7 +77,7 @@ public sealed class PointResponseCache : IDisposable
     {
         if (content.Length < 1024) return null;
         using var buffer = new MemoryStream(content.Length / 4);
-        using (var gzip = new GZipStream(buffer, CompressionLevel.Optimal, leaveOpen: true)) gzip.Write(content);
+        using (var gzip = new GZipStream(buffer, CompressionLevel.Fastest, leaveOpen: true)) gzip.Write(content);
         return buffer.ToArray();
     }
 

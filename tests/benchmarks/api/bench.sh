@@ -43,6 +43,9 @@ run() {  # name url [wrk options] -> "requests_per_second p99_ms"
 # Most HTTP clients (browsers, curl --compressed, Python's requests) ask for gzip; the point answers are then sent in
 # the form compressed once when they were made. Both are measured.
 gzip=(-H "Accept-Encoding: gzip")
+# A short load on both first, so that neither is measured while the JIT is still at work (the ceiling runs first).
+wrk -t"$threads" -c"$connections" -d3s "$base/healthz" >/dev/null
+wrk -t"$threads" -c"$connections" -d3s -H "Accept-Encoding: gzip" "$point" >/dev/null
 read -r ceiling_rps ceiling_p99 < <(run healthz "$base/healthz")
 read -r summary_rps summary_p99 < <(run point-summary "$point&include=none" "${gzip[@]}")
 read -r full_rps full_p99 < <(run point-full "$point" "${gzip[@]}")
