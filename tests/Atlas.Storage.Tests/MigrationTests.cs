@@ -17,22 +17,25 @@ public class MigrationTests(TestDatabase database) : IClassFixture<TestDatabase>
     }
 
     [Fact]
-    public async Task SchemaHasPostgisAndEveryPerCellTableKeyedByDatasetAndCell()
+    public async Task SchemaHasPostgisAndEveryPerCellTableKeyedByDatasetAndCellOrBlock()
     {
         await using var command = database.DataSource.CreateCommand("SELECT postgis_lib_version()");
         Assert.StartsWith("3.", (string)(await command.ExecuteScalarAsync())!);
         foreach (var table in Datasets.DatasetStore.PerCellTables.Where(t => t != "mesh_triangle"))
-        {
-            await using var key = database.DataSource.CreateCommand("""
-                SELECT string_agg(a.attname, ',' ORDER BY k.ord)
-                  FROM pg_index i CROSS JOIN LATERAL unnest(i.indkey) WITH ORDINALITY k(attnum, ord)
-                  JOIN pg_attribute a ON a.attrelid = i.indrelid AND a.attnum = k.attnum
-                 WHERE i.indrelid = $1::regclass AND i.indisprimary
-                """);
-            key.Parameters.AddWithValue(table);
-            var columns = (string)(await key.ExecuteScalarAsync())!;
-            Assert.StartsWith("dataset_id,cell_id", columns);
-        }
+            Assert.StartsWith("dataset_id,cell_id", await PrimaryKeyAsync(table));
+        Assert.Equal("dataset_id,parameter,period,block", await PrimaryKeyAsync(Datasets.DatasetStore.StatisticBlockTable));
+    }
+
+    private async Task<string> PrimaryKeyAsync(string table)
+    {
+        await using var key = database.DataSource.CreateCommand("""
+            SELECT string_agg(a.attname, ',' ORDER BY k.ord)
+              FROM pg_index i CROSS JOIN LATERAL unnest(i.indkey) WITH ORDINALITY k(attnum, ord)
+              JOIN pg_attribute a ON a.attrelid = i.indrelid AND a.attnum = k.attnum
+             WHERE i.indrelid = $1::regclass AND i.indisprimary
+            """);
+        key.Parameters.AddWithValue(table);
+        return (string)(await key.ExecuteScalarAsync())!;
     }
 
     private async Task<string> SchemaFingerprintAsync()

@@ -31,7 +31,7 @@ public sealed class StatisticsService(NpgsqlDataSource dataSource, StatisticsOpt
         var dataset = await datasets.FindAsync(slug, cancel) ?? throw new IngestException($"There is no dataset '{slug}'.");
         var statistics = new StatisticsStore(dataSource);
         var cells = (await new CellStore(dataSource).AllAsync(dataset.Id, cancel)).Where(c => c.Wet).ToDictionary(c => c.CellId);
-        var targets = all ? cells.Keys.Order().ToArray() : await statistics.StaleCellsAsync(dataset.Id, cancel);
+        var targets = all ? cells.Keys.Order().ToArray() : WholeBlocks(await statistics.StaleCellsAsync(dataset.Id, cancel), cells.Keys);
         if (targets.Length == 0) return new StatisticsSummary(slug, 0, 0, 0, 0, clock.Elapsed);
 
         var timelines = await datasets.TimelinesAsync(dataset.Id, cancel);
@@ -126,18 +126,35 @@ public sealed class StatisticsService(NpgsqlDataSource dataSource, StatisticsOpt
         var periodCodes = new HashSet<short>();
         try
         {
+            // Statistics are stored in blocks of cells, so a batch holds whole blocks: a block goes out once every target
+            // cell in it has come back (cells arrive nearly in order, so few blocks are open at a time). Blocks with a
+            // cell that had no series at all go out at the end.
+            var missing = targets.GroupBy(StatisticBlock.BlockOf).ToDictionary(g => g.Key, g => g.Count());
+            var open = new Dictionary<int, (List<int> Cells, List<StatisticRow> Rows)>();
             var cellsInBatch = new List<int>(CellsPerBatch);
             var rowsInBatch = new List<StatisticRow>(CellsPerBatch * 160);
-            await foreach (var (cell, rows) in results.Reader.ReadAllAsync(token))
+            async Task CloseAsync(int block)
             {
-                cellsInBatch.Add(cell);
-                rowsInBatch.AddRange(rows);
-                foreach (var row in rows) periodCodes.Add(row.Period);
-                if (cellsInBatch.Count < CellsPerBatch) continue;
+                var (blockCells, blockRows) = open[block];
+                open.Remove(block);
+                cellsInBatch.AddRange(blockCells);
+                rowsInBatch.AddRange(blockRows);
+                if (cellsInBatch.Count < CellsPerBatch) return;
                 await batches.Writer.WriteAsync((cellsInBatch, rowsInBatch), token);
                 cellsInBatch = new List<int>(CellsPerBatch);
                 rowsInBatch = new List<StatisticRow>(CellsPerBatch * 160);
             }
+            await foreach (var (cell, rows) in results.Reader.ReadAllAsync(token))
+            {
+                var block = StatisticBlock.BlockOf(cell);
+                if (!open.TryGetValue(block, out var pending))
+                    open[block] = pending = (new List<int>(StatisticBlock.CellsPerBlock), new List<StatisticRow>(StatisticBlock.CellsPerBlock * 160));
+                pending.Cells.Add(cell);
+                pending.Rows.AddRange(rows);
+                foreach (var row in rows) periodCodes.Add(row.Period);
+                if (--missing[block] == 0) await CloseAsync(block);
+            }
+            foreach (var block in open.Keys.Order().ToArray()) await CloseAsync(block);
             if (cellsInBatch.Count > 0) await batches.Writer.WriteAsync((cellsInBatch, rowsInBatch), token);
             batches.Writer.Complete();
             await producer;
@@ -157,6 +174,13 @@ public sealed class StatisticsService(NpgsqlDataSource dataSource, StatisticsOpt
 
         await datasets.MergeMetadataAsync(dataset.Id, MethodNotes(computedAt), cancel);
         return new StatisticsSummary(slug, done, periodCodes.Count, rowCount, (long)done * times.Length, clock.Elapsed);
+    }
+
+    /// <summary>The wet cells of every block that holds a stale cell: blocks are stored whole, so they are computed whole.</summary>
+    private static int[] WholeBlocks(int[] stale, IEnumerable<int> wetCells)
+    {
+        var blocks = stale.Select(StatisticBlock.BlockOf).ToHashSet();
+        return wetCells.Where(c => blocks.Contains(StatisticBlock.BlockOf(c))).Order().ToArray();
     }
 
     private string MethodNotes(DateTime computedAt)

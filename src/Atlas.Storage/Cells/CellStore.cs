@@ -102,6 +102,20 @@ public sealed class CellStore(NpgsqlDataSource dataSource)
     {
         await using var command = dataSource.CreateCommand($"SELECT {Columns} FROM cell WHERE dataset_id = $1 ORDER BY cell_id");
         command.Parameters.AddWithValue(datasetId);
+        return await ReadCellsAsync(command, cancel);
+    }
+
+    /// <summary>The cells of a dataset with the given ids (those that exist), by cell id.</summary>
+    public async Task<IReadOnlyList<CellRecord>> ManyAsync(int datasetId, int[] cellIds, CancellationToken cancel = default)
+    {
+        await using var command = dataSource.CreateCommand($"SELECT {Columns} FROM cell WHERE dataset_id = $1 AND cell_id = ANY($2) ORDER BY cell_id");
+        command.Parameters.AddWithValue(datasetId);
+        command.Parameters.AddWithValue(cellIds);
+        return await ReadCellsAsync(command, cancel);
+    }
+
+    private static async Task<IReadOnlyList<CellRecord>> ReadCellsAsync(NpgsqlCommand command, CancellationToken cancel)
+    {
         var cells = new List<CellRecord>();
         await using var reader = await command.ExecuteReaderAsync(cancel);
         while (await reader.ReadAsync(cancel)) cells.Add(Read(reader));

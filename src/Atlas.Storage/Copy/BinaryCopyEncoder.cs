@@ -11,6 +11,7 @@ namespace Atlas.Storage.Copy;
 public sealed class BinaryCopyEncoder(Stream target)
 {
     private const int Float4Oid = 700;  // pg_type oid of real
+    private const int Int4Oid = 23;     // pg_type oid of integer
     private static readonly byte[] Signature = [(byte)'P', (byte)'G', (byte)'C', (byte)'O', (byte)'P', (byte)'Y', 0x0A, 0xFF, 0x0D, 0x0A, 0x00];
 
     private readonly byte[] _buffer = new byte[1 << 16];
@@ -74,19 +75,45 @@ public sealed class BinaryCopyEncoder(Stream target)
     public void WriteRealArray(float[]? values)
     {
         if (values is null) { Ensure(4); Int32Raw(-1); return; }
-        Ensure(24 + 8 * values.Length);
-        Int32Raw(20 + 8 * values.Length);
-        Int32Raw(1);           // dimensions
-        Int32Raw(0);           // no NULL elements
-        Int32Raw(Float4Oid);
-        Int32Raw(values.Length);
-        Int32Raw(1);           // lower bound
+        WriteRealArray(values.AsSpan());
+    }
+
+    /// <summary>A one-dimensional real[] (lower bound 1) of any length; NaN elements stay NaN.</summary>
+    public void WriteRealArray(ReadOnlySpan<float> values)
+    {
+        ArrayHeader(Float4Oid, values.Length);
         foreach (var v in values)
         {
+            Ensure(8);
             Int32Raw(4);
             BinaryPrimitives.WriteSingleBigEndian(_buffer.AsSpan(_used), v);
             _used += 4;
         }
+    }
+
+    /// <summary>A one-dimensional integer[] (lower bound 1) of any length.</summary>
+    public void WriteInt32Array(ReadOnlySpan<int> values)
+    {
+        ArrayHeader(Int4Oid, values.Length);
+        foreach (var v in values)
+        {
+            Ensure(8);
+            Int32Raw(4);
+            Int32Raw(v);
+        }
+    }
+
+    // The field length, then the array header of the "array_send" layout: dimensions, has-nulls flag, element type,
+    // and per dimension its length and lower bound. Elements follow, each length-prefixed.
+    private void ArrayHeader(int elementOid, int length)
+    {
+        Ensure(24);
+        Int32Raw(20 + 8 * length);
+        Int32Raw(1);           // dimensions
+        Int32Raw(0);           // no NULL elements
+        Int32Raw(elementOid);
+        Int32Raw(length);
+        Int32Raw(1);           // lower bound
     }
 
     /// <summary>The -1 trailer, then everything buffered goes to the stream.</summary>

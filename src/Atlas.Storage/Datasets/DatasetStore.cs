@@ -83,7 +83,7 @@ public sealed class DatasetStore(NpgsqlDataSource dataSource)
         await using var transaction = await connection.BeginTransactionAsync(cancel);
         var dataset = await FindAsync(connection, transaction, slug, cancel);
         if (dataset is null) return false;
-        foreach (var table in PerCellTables)
+        foreach (var table in PerCellTables.Append(StatisticBlockTable))
         {
             await using var delete = new NpgsqlCommand($"DELETE FROM {table} WHERE dataset_id = $1", connection, transaction);
             delete.Parameters.AddWithValue(dataset.Id);
@@ -99,7 +99,13 @@ public sealed class DatasetStore(NpgsqlDataSource dataSource)
     }
 
     /// <summary>Tables keyed by cell, which carry no foreign key to dataset (so they can be distributed by cell).</summary>
-    public static readonly string[] PerCellTables = ["series_chunk", "cell_statistic", "cell_statistic_state", "mesh_triangle", "cell"];
+    public static readonly string[] PerCellTables = ["series_chunk", "cell_statistic_state", "mesh_triangle", "cell"];
+
+    /// <summary>
+    /// Statistics, keyed by dataset and block of cells (<see cref="Statistics.StatisticBlock"/>) rather than by cell;
+    /// like the per-cell tables it carries no foreign key to dataset.
+    /// </summary>
+    public const string StatisticBlockTable = "statistic_block";
 
     public async Task<DatasetSummary?> SummariseAsync(string slug, CancellationToken cancel = default)
     {

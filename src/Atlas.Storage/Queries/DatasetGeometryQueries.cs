@@ -85,10 +85,10 @@ public sealed class DatasetGeometryQueries(NpgsqlDataSource dataSource)
     {
         await using var command = dataSource.CreateCommand("""
             WITH RECURSIVE pairs AS (
-                (SELECT parameter, period FROM cell_statistic WHERE dataset_id = $1 ORDER BY parameter, period LIMIT 1)
+                (SELECT parameter, period FROM statistic_block WHERE dataset_id = $1 ORDER BY parameter, period LIMIT 1)
                 UNION ALL
                 SELECT n.parameter, n.period FROM pairs p, LATERAL (
-                    SELECT parameter, period FROM cell_statistic
+                    SELECT parameter, period FROM statistic_block
                      WHERE dataset_id = $1 AND (parameter, period) > (p.parameter, p.period)
                      ORDER BY parameter, period LIMIT 1) n)
             SELECT parameter, period FROM pairs

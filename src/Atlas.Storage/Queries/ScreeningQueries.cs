@@ -26,11 +26,19 @@ public sealed class ScreeningQueries(NpgsqlDataSource dataSource)
 {
     public async Task<IReadOnlyList<ScreenedCell>> MatchingCellsAsync(int datasetId, ScreeningCriteria criteria, CancellationToken cancel = default)
     {
+        // The two statistics are unpacked straight from their blocks (only the arrays needed); absent values are NaN
+        // there, which PostgreSQL orders above every number, so they become NULL before any comparison.
         await using var command = dataSource.CreateCommand("""
+            WITH j AS (SELECT u.cell_id, nullif(u.mean, 'NaN') AS mean
+                         FROM statistic_block b CROSS JOIN LATERAL unnest(b.cell_ids, b.mean) u(cell_id, mean)
+                        WHERE b.dataset_id = $1 AND b.period = $2 AND b.parameter = $3),
+                 h AS (SELECT u.cell_id, nullif(u.p90, 'NaN') AS p90
+                         FROM statistic_block b CROSS JOIN LATERAL unnest(b.cell_ids, b.p90) u(cell_id, p90)
+                        WHERE b.dataset_id = $1 AND b.period = $2 AND b.parameter = $4)
             SELECT c.cell_id, ST_X(c.geom), ST_Y(c.geom), c.depth_m, c.coast_distance_m, j.mean::float8, h.p90::float8
               FROM cell c
-              JOIN cell_statistic j ON j.dataset_id = c.dataset_id AND j.cell_id = c.cell_id AND j.period = $2 AND j.parameter = $3
-              LEFT JOIN cell_statistic h ON h.dataset_id = c.dataset_id AND h.cell_id = c.cell_id AND h.period = $2 AND h.parameter = $4
+              JOIN j ON j.cell_id = c.cell_id
+              LEFT JOIN h ON h.cell_id = c.cell_id
              WHERE c.dataset_id = $1 AND c.wet AND j.mean IS NOT NULL
                AND ($5::float8 IS NULL OR j.mean >= $5)
                AND ($6::float8 IS NULL OR c.depth_m >= $6)

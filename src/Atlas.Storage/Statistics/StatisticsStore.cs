@@ -5,51 +5,65 @@ using NpgsqlTypes;
 
 namespace Atlas.Storage.Statistics;
 
-/// <summary>Per-cell statistics by period and parameter, and the record of when each cell was computed.</summary>
+/// <summary>
+/// Per-cell statistics by period and parameter, stored period-major in blocks of cells (<see cref="StatisticBlock"/>;
+/// the view <c>cell_statistic</c> shows them one row per cell), and the record of when each cell was computed.
+/// </summary>
 public sealed class StatisticsStore(NpgsqlDataSource dataSource)
 {
+    private const string BlockColumns = "parameter, period, block, cell_ids, count, coverage, mean, sd, min, max, p10, p50, p90, p99, extra_width, extra";
+
     /// <summary>
-    /// Replaces the statistics of the given cells in one transaction: deletes their old rows, COPYs the new ones,
-    /// and stamps them computed at <paramref name="computedAtUtc"/>.
+    /// Replaces the statistics of the given cells in one transaction and stamps them computed at
+    /// <paramref name="computedAtUtc"/>. The blocks they fall in are rewritten whole: rows of other cells in those
+    /// blocks are kept (read back and packed again with the new rows), so callers that hand over whole blocks save
+    /// that read. Cells given without rows lose their statistics. Concurrent calls must hold disjoint blocks.
     /// </summary>
     public async Task ReplaceAsync(int datasetId, IReadOnlyList<int> cellIds, IReadOnlyList<StatisticRow> rows, DateTime computedAtUtc, CancellationToken cancel = default)
     {
         await using var connection = await dataSource.OpenConnectionAsync(cancel);
         await using var transaction = await connection.BeginTransactionAsync(cancel);
         var ids = cellIds.ToArray();
-        foreach (var table in new[] { "cell_statistic", "cell_statistic_state" })
+        var replaced = ids.ToHashSet();
+        foreach (var row in rows)
+            if (!replaced.Contains(row.CellId))
+                throw new ArgumentException($"Row for cell {row.CellId}, which is not among the cells being replaced.", nameof(rows));
+        var blocks = ids.Select(StatisticBlock.BlockOf).Distinct().Order().ToArray();
+
+        var kept = new List<StatisticRow>();
+        foreach (var partial in await BlocksWithOtherCellsAsync(connection, transaction, datasetId, blocks, replaced, cancel))
+            kept.AddRange(partial.Unpack().Where(r => !replaced.Contains(r.CellId)));
+
+        await using (var delete = new NpgsqlCommand("DELETE FROM statistic_block WHERE dataset_id = $1 AND block = ANY($2)", connection, transaction))
         {
-            await using var delete = new NpgsqlCommand($"DELETE FROM {table} WHERE dataset_id = $1 AND cell_id = ANY($2)", connection, transaction);
+            delete.Parameters.AddWithValue(datasetId);
+            delete.Parameters.AddWithValue(blocks);
+            await delete.ExecuteNonQueryAsync(cancel);
+        }
+        await using (var delete = new NpgsqlCommand("DELETE FROM cell_statistic_state WHERE dataset_id = $1 AND cell_id = ANY($2)", connection, transaction))
+        {
             delete.Parameters.AddWithValue(datasetId);
             delete.Parameters.AddWithValue(ids);
             await delete.ExecuteNonQueryAsync(cancel);
         }
-        await using (var copy = await connection.BeginRawBinaryCopyAsync(
-            "COPY cell_statistic (dataset_id, cell_id, period, parameter, mean, sd, min, max, p10, p50, p90, p99, count, coverage, extra) FROM STDIN (FORMAT BINARY)", cancel))
+        await using (var copy = await connection.BeginRawBinaryCopyAsync($"COPY statistic_block (dataset_id, {BlockColumns}) FROM STDIN (FORMAT BINARY)", cancel))
         {
-            // Encoded here rather than field by field through the typed importer: the rows are many and small, and
-            // per-field calls cost more than the database's own work on them.
             var encoder = new BinaryCopyEncoder(copy);
             encoder.WriteHeader();
-            foreach (var row in rows)
+            foreach (var block in StatisticBlock.Pack(kept.Count == 0 ? rows : kept.Concat(rows)))
             {
                 cancel.ThrowIfCancellationRequested();
-                encoder.StartRow(15);
+                encoder.StartRow(17);
                 encoder.WriteInt32(datasetId);
-                encoder.WriteInt32(row.CellId);
-                encoder.WriteInt16(row.Period);
-                encoder.WriteInt16(row.Parameter);
-                encoder.WriteReal(row.Mean);
-                encoder.WriteReal(row.Sd);
-                encoder.WriteReal(row.Min);
-                encoder.WriteReal(row.Max);
-                encoder.WriteReal(row.P10);
-                encoder.WriteReal(row.P50);
-                encoder.WriteReal(row.P90);
-                encoder.WriteReal(row.P99);
-                encoder.WriteInt32(row.Count);
-                encoder.WriteReal(row.Coverage);
-                encoder.WriteRealArray(row.Extra);
+                encoder.WriteInt16(block.Parameter);
+                encoder.WriteInt16(block.Period);
+                encoder.WriteInt32(block.Block);
+                encoder.WriteInt32Array(block.CellIds);
+                encoder.WriteInt32Array(block.Count);
+                foreach (var column in new[] { block.Coverage, block.Mean, block.Sd, block.Min, block.Max, block.P10, block.P50, block.P90, block.P99 })
+                    encoder.WriteRealArray(column.AsSpan());
+                encoder.WriteInt16((short)block.ExtraWidth);
+                encoder.WriteRealArray(block.Extra);
             }
             encoder.WriteTrailer();
         }
@@ -73,6 +87,45 @@ public sealed class StatisticsStore(NpgsqlDataSource dataSource)
         await transaction.CommitAsync(cancel);
     }
 
+    /// <summary>
+    /// The stored blocks among <paramref name="blocks"/> that hold a cell outside <paramref name="replaced"/>, locked for
+    /// update. Only their cell ids are read first, so replacing whole blocks reads no statistics back.
+    /// </summary>
+    private static async Task<IReadOnlyList<StatisticBlock>> BlocksWithOtherCellsAsync(NpgsqlConnection connection, NpgsqlTransaction transaction,
+        int datasetId, int[] blocks, HashSet<int> replaced, CancellationToken cancel)
+    {
+        var partial = new HashSet<int>();
+        await using (var command = new NpgsqlCommand(
+            "SELECT block, cell_ids FROM statistic_block WHERE dataset_id = $1 AND block = ANY($2) FOR UPDATE", connection, transaction))
+        {
+            command.Parameters.AddWithValue(datasetId);
+            command.Parameters.AddWithValue(blocks);
+            await using var reader = await command.ExecuteReaderAsync(cancel);
+            while (await reader.ReadAsync(cancel))
+                if (reader.GetFieldValue<int[]>(1).Any(id => !replaced.Contains(id)))
+                    partial.Add(reader.GetInt32(0));
+        }
+        if (partial.Count == 0) return [];
+        await using var read = new NpgsqlCommand($"SELECT {BlockColumns} FROM statistic_block WHERE dataset_id = $1 AND block = ANY($2)", connection, transaction);
+        read.Parameters.AddWithValue(datasetId);
+        read.Parameters.AddWithValue(partial.ToArray());
+        return await ReadBlocksAsync(read, cancel);
+    }
+
+    private static async Task<IReadOnlyList<StatisticBlock>> ReadBlocksAsync(NpgsqlCommand command, CancellationToken cancel)
+    {
+        var blocks = new List<StatisticBlock>();
+        await using var reader = await command.ExecuteReaderAsync(cancel);
+        while (await reader.ReadAsync(cancel))
+        {
+            float[] F(int i) => reader.GetFieldValue<float[]>(i);
+            blocks.Add(new StatisticBlock(reader.GetInt16(0), reader.GetInt16(1), reader.GetInt32(2), reader.GetFieldValue<int[]>(3),
+                reader.GetFieldValue<int[]>(4), F(5), F(6), F(7), F(8), F(9), F(10), F(11), F(12), F(13), reader.GetInt16(14),
+                reader.IsDBNull(15) ? null : F(15)));
+        }
+        return blocks;
+    }
+
     /// <summary>Wet cells whose series were written after their statistics were computed (or never computed).</summary>
     public async Task<int[]> StaleCellsAsync(int datasetId, CancellationToken cancel = default)
     {
@@ -92,72 +145,72 @@ public sealed class StatisticsStore(NpgsqlDataSource dataSource)
         return ids.ToArray();
     }
 
-    /// <summary>Every statistic row of one cell (all periods and parameters).</summary>
+    /// <summary>Every statistic row of one cell (all periods and parameters), by period and parameter.</summary>
     public async Task<IReadOnlyList<StatisticRow>> ForCellAsync(int datasetId, int cellId, CancellationToken cancel = default)
     {
-        await using var command = dataSource.CreateCommand($"""
-            SELECT cell_id, period, parameter, mean, sd, min, max, p10, p50, p90, p99, count, coverage, extra
-              FROM cell_statistic WHERE dataset_id = $1 AND cell_id = $2 ORDER BY period, parameter
-            """);
+        await using var command = dataSource.CreateCommand($"SELECT {BlockColumns} FROM statistic_block WHERE dataset_id = $1 AND block = $2");
         command.Parameters.AddWithValue(datasetId);
-        command.Parameters.AddWithValue(cellId);
-        var rows = new List<StatisticRow>();
-        await using var reader = await command.ExecuteReaderAsync(cancel);
-        while (await reader.ReadAsync(cancel))
-        {
-            float? F(int i) => reader.IsDBNull(i) ? null : reader.GetFloat(i);
-            rows.Add(new StatisticRow(reader.GetInt32(0), reader.GetInt16(1), reader.GetInt16(2), F(3), F(4), F(5), F(6), F(7), F(8), F(9), F(10),
-                reader.GetInt32(11), reader.GetFloat(12), reader.IsDBNull(13) ? null : reader.GetFieldValue<float[]>(13)));
-        }
-        return rows;
+        command.Parameters.AddWithValue(StatisticBlock.BlockOf(cellId));
+        return (await ReadBlocksAsync(command, cancel))
+            .SelectMany(b => b.Unpack().Where(r => r.CellId == cellId))
+            .OrderBy(r => r.Period).ThenBy(r => r.Parameter).ToList();
     }
 
     /// <summary>
     /// One layer: the chosen statistic of a parameter over a period for every wet cell that has it, with positions,
     /// by cell id. Positions come from <paramref name="cellOf"/> when given (the caller's copy of the dataset's
-    /// cells: reading only the statistics rows spares the database a join with every cell; rows of cells it does not
-    /// know are left out), else from the cell table by a join. <paramref name="extraIndex"/> reads element (1-based)
-    /// of the extra array instead of a column (exceedance).
+    /// cells; rows of cells it does not know are left out), else from the cell table. <paramref name="extraIndex"/>
+    /// reads element (1-based) of the extra values instead of a column (exceedance). Absent values are left out.
     /// </summary>
     public async Task<IReadOnlyList<LayerValue>> LayerAsync(int datasetId, short parameter, short period, StoredStatistic statistic,
         Func<int, CellRecord?>? cellOf, int? extraIndex = null, CancellationToken cancel = default)
     {
-        var column = extraIndex is { } k ? $"s.extra[{k:D}]" : "s." + statistic.ToString().ToLowerInvariant();
-        await using var command = dataSource.CreateCommand(cellOf is null
-            ? $"""
-              SELECT s.cell_id, {column}::float8, ST_X(c.geom), ST_Y(c.geom), c.grid_i, c.grid_j, c.depth_m
-                FROM cell_statistic s JOIN cell c ON c.dataset_id = s.dataset_id AND c.cell_id = s.cell_id
-               WHERE s.dataset_id = $1 AND s.parameter = $2 AND s.period = $3 AND {column} IS NOT NULL
-              """
-            : $"""
-              SELECT s.cell_id, {column}::float8 FROM cell_statistic s
-               WHERE s.dataset_id = $1 AND s.parameter = $2 AND s.period = $3 AND {column} IS NOT NULL
-              """);
+        // Only the two arrays the layer needs leave the database.
+        var column = extraIndex is not null ? "extra_width, extra" : statistic == StoredStatistic.Count ? "0::smallint, count" : "0::smallint, " + statistic.ToString().ToLowerInvariant();
+        await using var command = dataSource.CreateCommand(
+            $"SELECT cell_ids, {column} FROM statistic_block WHERE dataset_id = $1 AND parameter = $2 AND period = $3 ORDER BY block");
         command.Parameters.AddWithValue(datasetId);
         command.Parameters.AddWithValue(parameter);
         command.Parameters.AddWithValue(period);
-        var values = new List<LayerValue>();
-        await using var reader = await command.ExecuteReaderAsync(cancel);
-        while (await reader.ReadAsync(cancel))
+        var found = new List<(int CellId, double Value)>();
+        await using (var reader = await command.ExecuteReaderAsync(cancel))
         {
-            int cellId = reader.GetInt32(0);
-            double value = reader.GetDouble(1);
-            if (cellOf is null)
-                values.Add(new LayerValue(cellId, reader.GetDouble(2), reader.GetDouble(3), reader.IsDBNull(4) ? null : reader.GetInt32(4),
-                    reader.IsDBNull(5) ? null : reader.GetInt32(5), reader.IsDBNull(6) ? null : reader.GetFloat(6), value));
-            else if (cellOf(cellId) is { } c)
-                values.Add(new LayerValue(cellId, c.Longitude, c.Latitude, c.GridI, c.GridJ, c.DepthMetres, value));
+            while (await reader.ReadAsync(cancel))
+            {
+                if (reader.IsDBNull(2)) continue;
+                var ids = reader.GetFieldValue<int[]>(0);
+                int width = reader.GetInt16(1);
+                if (statistic == StoredStatistic.Count && extraIndex is null)
+                {
+                    var counts = reader.GetFieldValue<int[]>(2);
+                    for (var i = 0; i < ids.Length; i++) found.Add((ids[i], counts[i]));
+                    continue;
+                }
+                var values = reader.GetFieldValue<float[]>(2);
+                for (var i = 0; i < ids.Length; i++)
+                {
+                    if (extraIndex is { } k && (k < 1 || k > width)) break;
+                    var value = extraIndex is { } e ? values[i * width + e - 1] : values[i];
+                    if (!float.IsNaN(value)) found.Add((ids[i], value));
+                }
+            }
         }
-        // Ordered here rather than by the database, whose sort of a large layer costs more than the scan itself.
-        values.Sort((a, b) => a.CellId.CompareTo(b.CellId));
-        return values;
+        var positions = cellOf ?? (await CellPositionsAsync(datasetId, found.Select(f => f.CellId).ToArray(), cancel)).GetValueOrDefault;
+        var layer = new List<LayerValue>(found.Count);
+        foreach (var (cellId, value) in found)
+            if (positions(cellId) is { } c)
+                layer.Add(new LayerValue(cellId, c.Longitude, c.Latitude, c.GridI, c.GridJ, c.DepthMetres, value));
+        return layer;
     }
+
+    private async Task<Dictionary<int, CellRecord>> CellPositionsAsync(int datasetId, int[] cellIds, CancellationToken cancel) =>
+        (await new CellStore(dataSource).ManyAsync(datasetId, cellIds, cancel)).ToDictionary(c => c.CellId);
 
     /// <summary>The periods that have statistics in a dataset.</summary>
     public async Task<IReadOnlyList<short>> PeriodsAsync(int datasetId, CancellationToken cancel = default)
     {
         await using var command = dataSource.CreateCommand(
-            "SELECT DISTINCT period FROM cell_statistic WHERE dataset_id = $1 AND parameter = 0 ORDER BY period");
+            "SELECT DISTINCT period FROM statistic_block WHERE dataset_id = $1 AND parameter = 0 ORDER BY period");
         command.Parameters.AddWithValue(datasetId);
         var periods = new List<short>();
         await using var reader = await command.ExecuteReaderAsync(cancel);

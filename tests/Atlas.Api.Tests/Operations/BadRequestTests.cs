@@ -31,7 +31,7 @@ public sealed class BadRequestTests(AtlasApiFixture atlas, ITestOutputHelper out
     };
 
     private static readonly string[] DataTables =
-        ["dataset", "dataset_year", "cell", "series_chunk", "source_file", "cell_statistic", "job", "station", "station_observation", "device_matrix"];
+        ["dataset", "dataset_year", "cell", "series_chunk", "source_file", "statistic_block", "cell_statistic_state", "job", "station", "station_observation", "device_matrix"];
 
     [Fact]
     public async Task HostileValuesInEveryParameterOfEveryOperationAreNeverServerErrorsAndChangeNothing()

@@ -33,8 +33,8 @@ public sealed class BackupRestoreTests(TestDatabase database) : IClassFixture<Te
         var before = await TableFingerprintsAsync(database.DataSource);
         var after = await TableFingerprintsAsync(restored);
         Assert.Contains("series_chunk", before.Keys);
-        Assert.Contains("cell_statistic", before.Keys);
-        Assert.True(before["series_chunk"].Rows > 0 && before["cell_statistic"].Rows > 0);
+        Assert.Contains("statistic_block", before.Keys);
+        Assert.True(before["series_chunk"].Rows > 0 && before["statistic_block"].Rows > 0);
         Assert.Equal(before, after);
 
         // A second restore into the now full database is refused rather than mixed in.
