@@ -21,23 +21,28 @@ public sealed class CellSeriesBuffer
     public int CellId { get; private set; }
     public double DepthMetres { get; private set; }
 
-    /// <summary>Fills the buffer from the cell's chunks; <paramref name="yearOffsets"/> gives each year's first step.</summary>
-    public void Fill(int cellId, double depthMetres, IReadOnlyList<SeriesChunk> chunks, IReadOnlyDictionary<int, (int Offset, int Count)> yearOffsets)
+    /// <summary>Empties the buffer for a cell: every step missing until its chunks are added.</summary>
+    public void Begin(int cellId, double depthMetres)
     {
         CellId = cellId;
         DepthMetres = depthMetres;
         Array.Clear(_present);
         foreach (var values in _values) values.AsSpan().Fill(float.NaN);
-        foreach (var chunk in chunks)
-        {
-            if (!yearOffsets.TryGetValue(chunk.Year, out var place)) continue;
-            var steps = SeriesCodec.StepCountOf(chunk.Payload);
-            if (steps != place.Count)
-                throw new InvalidDataException($"Cell {cellId}, year {chunk.Year}: the chunk has {steps} steps but the year's time line has {place.Count}.");
-            for (var v = 0; v < SeriesCodec.VariableCount; v++)
-                if (SeriesCodec.Decode(chunk.Payload, (SeriesVariable)v, _values[v].AsSpan(place.Offset, steps)))
-                    _present[v] = true;
-        }
+    }
+
+    /// <summary>
+    /// Decodes one chunk of the cell into its place on the time line; <paramref name="yearOffsets"/> gives each year's
+    /// first step and step count. A year outside the time line is ignored.
+    /// </summary>
+    public void Add(int year, ReadOnlySpan<byte> payload, IReadOnlyDictionary<int, (int Offset, int Count)> yearOffsets)
+    {
+        if (!yearOffsets.TryGetValue(year, out var place)) return;
+        var steps = SeriesCodec.StepCountOf(payload);
+        if (steps != place.Count)
+            throw new InvalidDataException($"Cell {CellId}, year {year}: the chunk has {steps} steps but the year's time line has {place.Count}.");
+        for (var v = 0; v < SeriesCodec.VariableCount; v++)
+            if (SeriesCodec.Decode(payload, (SeriesVariable)v, _values[v].AsSpan(place.Offset, steps)))
+                _present[v] = true;
     }
 
     public CellSeries AsSeries(long[] times) => new()

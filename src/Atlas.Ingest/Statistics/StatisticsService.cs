@@ -53,33 +53,32 @@ public sealed class StatisticsService(NpgsqlDataSource dataSource, StatisticsOpt
             try
             {
                 var onlyCells = targets.Length == cells.Count ? null : targets;
-                var pending = new List<SeriesChunk>();
+                // Chunks arrive ordered by cell: each is decoded into the cell's buffer as it streams past (its payload
+                // is only a view of the reader's buffer), and the buffer goes to the calculators when the cell ends.
+                CellSeriesBuffer? buffer = null;
                 var current = -1;
                 await foreach (var chunk in new SeriesStore(dataSource).StreamAsync(dataset.Id, onlyCells, token))
                 {
-                    if (chunk.CellId != current && pending.Count > 0)
-                        await DispatchAsync(current, pending);
-                    current = chunk.CellId;
-                    pending.Add(chunk);
+                    if (chunk.CellId != current)
+                    {
+                        if (buffer is not null) await work.Writer.WriteAsync(buffer, token);
+                        buffer = null;
+                        current = chunk.CellId;
+                        if (cells.TryGetValue(current, out var cell))
+                        {
+                            buffer = await free.Reader.ReadAsync(token);
+                            buffer.Begin(current, cell.DepthMetres ?? double.NaN);
+                        }
+                    }
+                    buffer?.Add(chunk.Year, chunk.Payload.Span, offsets);
                 }
-                if (pending.Count > 0) await DispatchAsync(current, pending);
+                if (buffer is not null) await work.Writer.WriteAsync(buffer, token);
                 work.Writer.Complete();
             }
             catch (Exception e)
             {
                 work.Writer.Complete(e);
                 throw;
-            }
-
-            async Task DispatchAsync(int cellId, List<SeriesChunk> chunks)
-            {
-                if (cells.TryGetValue(cellId, out var cell))
-                {
-                    var buffer = await free.Reader.ReadAsync(token);
-                    buffer.Fill(cellId, cell.DepthMetres ?? double.NaN, chunks, offsets);
-                    await work.Writer.WriteAsync(buffer, token);
-                }
-                chunks.Clear();
             }
         }, token);
 
@@ -101,18 +100,17 @@ public sealed class StatisticsService(NpgsqlDataSource dataSource, StatisticsOpt
         // Batches are written by tasks of their own, so the calculators keep computing while PostgreSQL stores rows,
         // and on two connections at once: storing rows is the longest stage, and each backend takes a core. Batches
         // hold disjoint cells, so their transactions never wait on each other.
-        var batches = Channel.CreateBounded<(List<int> Cells, List<StatisticRow> Rows)>(2);
+        var batches = Channel.CreateBounded<(List<int> Cells, List<StatisticBlock> Blocks)>(2);
         long rowCount = 0;
         var done = 0;
         var writers = Enumerable.Range(0, WriterConnections).Select(_ => Task.Run(async () =>
         {
             try
             {
-                await foreach (var (batchCells, batchRows) in batches.Reader.ReadAllAsync(token))
+                await foreach (var (batchCells, batchBlocks) in batches.Reader.ReadAllAsync(token))
                 {
-                    await statistics.ReplaceAsync(dataset.Id, batchCells, batchRows, computedAt, token);
+                    await statistics.ReplaceBlocksAsync(dataset.Id, batchCells, batchBlocks, computedAt, token);
                     var cellsDone = Interlocked.Add(ref done, batchCells.Count);
-                    Interlocked.Add(ref rowCount, batchRows.Count);
                     progress?.Report(new ProgressSnapshot("statistics", cellsDone, targets.Length, 0, clock.Elapsed, "cells"));
                 }
             }
@@ -128,34 +126,39 @@ public sealed class StatisticsService(NpgsqlDataSource dataSource, StatisticsOpt
         {
             // Statistics are stored in blocks of cells, so a batch holds whole blocks: a block goes out once every target
             // cell in it has come back (cells arrive nearly in order, so few blocks are open at a time). Blocks with a
-            // cell that had no series at all go out at the end.
+            // cell that had no series at all go out at the end. Rows go into their block's columns as they come, so
+            // none outlives its cell.
             var missing = targets.GroupBy(StatisticBlock.BlockOf).ToDictionary(g => g.Key, g => g.Count());
-            var open = new Dictionary<int, (List<int> Cells, List<StatisticRow> Rows)>();
+            var open = new Dictionary<int, (List<int> Cells, StatisticBlockBuilder Builder)>();
             var cellsInBatch = new List<int>(CellsPerBatch);
-            var rowsInBatch = new List<StatisticRow>(CellsPerBatch * 160);
+            var blocksInBatch = new List<StatisticBlock>();
             async Task CloseAsync(int block)
             {
-                var (blockCells, blockRows) = open[block];
+                var (blockCells, builder) = open[block];
                 open.Remove(block);
                 cellsInBatch.AddRange(blockCells);
-                rowsInBatch.AddRange(blockRows);
+                blocksInBatch.AddRange(builder.Build());
                 if (cellsInBatch.Count < CellsPerBatch) return;
-                await batches.Writer.WriteAsync((cellsInBatch, rowsInBatch), token);
+                await batches.Writer.WriteAsync((cellsInBatch, blocksInBatch), token);
                 cellsInBatch = new List<int>(CellsPerBatch);
-                rowsInBatch = new List<StatisticRow>(CellsPerBatch * 160);
+                blocksInBatch = [];
             }
             await foreach (var (cell, rows) in results.Reader.ReadAllAsync(token))
             {
                 var block = StatisticBlock.BlockOf(cell);
                 if (!open.TryGetValue(block, out var pending))
-                    open[block] = pending = (new List<int>(StatisticBlock.CellsPerBlock), new List<StatisticRow>(StatisticBlock.CellsPerBlock * 160));
+                    open[block] = pending = (new List<int>(StatisticBlock.CellsPerBlock), new StatisticBlockBuilder(block));
                 pending.Cells.Add(cell);
-                pending.Rows.AddRange(rows);
-                foreach (var row in rows) periodCodes.Add(row.Period);
+                foreach (var row in rows)
+                {
+                    pending.Builder.Add(row);
+                    periodCodes.Add(row.Period);
+                }
+                rowCount += rows.Count;
                 if (--missing[block] == 0) await CloseAsync(block);
             }
             foreach (var block in open.Keys.Order().ToArray()) await CloseAsync(block);
-            if (cellsInBatch.Count > 0) await batches.Writer.WriteAsync((cellsInBatch, rowsInBatch), token);
+            if (cellsInBatch.Count > 0) await batches.Writer.WriteAsync((cellsInBatch, blocksInBatch), token);
             batches.Writer.Complete();
             await producer;
             await Task.WhenAll(calculators);

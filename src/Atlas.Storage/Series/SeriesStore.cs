@@ -70,22 +70,24 @@ public sealed class SeriesStore(NpgsqlDataSource dataSource)
     }
 
     /// <summary>
-    /// Streams every chunk of the given cells range, ordered by cell then year, through binary COPY (the fastest way
-    /// out of PostgreSQL). <paramref name="onlyCells"/> limits it to a set of cells when given.
+    /// Streams every chunk of the given cells, ordered by cell then year, through binary COPY (the fastest way out of
+    /// PostgreSQL). <paramref name="onlyCells"/> limits it to a set of cells when given. Each chunk's payload is a view
+    /// of a reused buffer, valid until the enumeration moves on: decode it before asking for the next chunk.
     /// </summary>
-    public async IAsyncEnumerable<SeriesChunk> StreamAsync(int datasetId, int[]? onlyCells = null,
+    public async IAsyncEnumerable<StreamedSeriesChunk> StreamAsync(int datasetId, int[]? onlyCells = null,
         [System.Runtime.CompilerServices.EnumeratorCancellation] CancellationToken cancel = default)
     {
         await using var connection = await dataSource.OpenConnectionAsync(cancel);
         var filter = onlyCells is null ? "" : $" AND cell_id = ANY('{{{string.Join(',', onlyCells)}}}'::int[])";
-        await using var reader = await connection.BeginBinaryExportAsync(
+        await using var copy = await connection.BeginRawBinaryCopyAsync(
             $"COPY (SELECT cell_id, year, payload FROM series_chunk WHERE dataset_id = {datasetId:D}{filter} ORDER BY cell_id, year) TO STDOUT (FORMAT BINARY)", cancel);
-        while (await reader.StartRowAsync(cancel) != -1)
+        var decoder = new Copy.BinaryCopyDecoder(copy);
+        await decoder.ReadHeaderAsync(cancel);
+        while (await decoder.StartRowAsync(3, cancel))
         {
-            var cell = await reader.ReadAsync<int>(NpgsqlDbType.Integer, cancel);
-            var year = await reader.ReadAsync<short>(NpgsqlDbType.Smallint, cancel);
-            var payload = await reader.ReadAsync<byte[]>(NpgsqlDbType.Bytea, cancel);
-            yield return new SeriesChunk(cell, year, payload);
+            var cell = await decoder.ReadInt32Async(cancel);
+            var year = await decoder.ReadInt16Async(cancel);
+            yield return new StreamedSeriesChunk(cell, year, await decoder.ReadBytesAsync(cancel));
         }
     }
 

@@ -32,53 +32,20 @@ public sealed record StatisticBlock(
     public static int BlockOf(int cellId) => cellId / CellsPerBlock;
 
     /// <summary>
-    /// Packs rows into blocks, one per parameter, period and block. A cell may appear once per parameter and period.
-    /// Not-finite optional values become NaN; a cell without extra values gets NaN in a block whose others have them.
+    /// Packs rows into blocks, one per parameter, period and block (see <see cref="StatisticBlockBuilder"/>). A cell may
+    /// appear once per parameter and period. Not-finite optional values become NaN; a cell without extra values gets
+    /// NaN in a block whose others have them.
     /// </summary>
     public static IReadOnlyList<StatisticBlock> Pack(IEnumerable<StatisticRow> rows)
     {
-        var groups = new Dictionary<(short Parameter, short Period, int Block), List<StatisticRow>>();
+        var builders = new SortedDictionary<int, StatisticBlockBuilder>();
         foreach (var row in rows)
         {
-            var key = (row.Parameter, row.Period, BlockOf(row.CellId));
-            if (!groups.TryGetValue(key, out var list)) groups[key] = list = [];
-            list.Add(row);
+            var block = BlockOf(row.CellId);
+            if (!builders.TryGetValue(block, out var builder)) builders[block] = builder = new StatisticBlockBuilder(block);
+            builder.Add(row);
         }
-        var blocks = new List<StatisticBlock>(groups.Count);
-        foreach (var ((parameter, period, block), list) in groups.OrderBy(g => g.Key))
-        {
-            list.Sort((a, b) => a.CellId.CompareTo(b.CellId));
-            var n = list.Count;
-            var width = 0;
-            foreach (var row in list) width = Math.Max(width, row.Extra?.Length ?? 0);
-            var packed = new StatisticBlock(parameter, period, block, new int[n], new int[n], new float[n], new float[n], new float[n],
-                new float[n], new float[n], new float[n], new float[n], new float[n], new float[n], width, width > 0 ? new float[n * width] : null);
-            for (var i = 0; i < n; i++)
-            {
-                var row = list[i];
-                if (i > 0 && row.CellId == list[i - 1].CellId)
-                    throw new ArgumentException($"Cell {row.CellId} has two rows for parameter {parameter} and period {period}.", nameof(rows));
-                packed.CellIds[i] = row.CellId;
-                packed.Count[i] = row.Count;
-                packed.Coverage[i] = row.Coverage;
-                packed.Mean[i] = Stored(row.Mean);
-                packed.Sd[i] = Stored(row.Sd);
-                packed.Min[i] = Stored(row.Min);
-                packed.Max[i] = Stored(row.Max);
-                packed.P10[i] = Stored(row.P10);
-                packed.P50[i] = Stored(row.P50);
-                packed.P90[i] = Stored(row.P90);
-                packed.P99[i] = Stored(row.P99);
-                if (packed.Extra is { } extra)
-                {
-                    var slice = extra.AsSpan(i * width, width);
-                    slice.Fill(float.NaN);
-                    row.Extra?.CopyTo(slice);
-                }
-            }
-            blocks.Add(packed);
-        }
-        return blocks;
+        return builders.Values.SelectMany(b => b.Build()).ToList();
     }
 
     /// <summary>The block's rows, by ascending cell id; NaN values come back as null.</summary>
@@ -104,8 +71,6 @@ public sealed record StatisticBlock(
         StoredStatistic.Coverage => Coverage,
         _ => throw new ArgumentOutOfRangeException(nameof(statistic), statistic, "Not a real-valued statistic column."),
     };
-
-    private static float Stored(float? value) => value is { } v && float.IsFinite(v) ? v : float.NaN;
 
     private static float? Read(float value) => float.IsNaN(value) ? null : value;
 }

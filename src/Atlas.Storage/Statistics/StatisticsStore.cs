@@ -16,28 +16,39 @@ public sealed class StatisticsStore(NpgsqlDataSource dataSource)
     /// <summary>
     /// Replaces the statistics of the given cells in one transaction and stamps them computed at
     /// <paramref name="computedAtUtc"/>. The blocks they fall in are rewritten whole: rows of other cells in those
-    /// blocks are kept (read back and packed again with the new rows), so callers that hand over whole blocks save
-    /// that read. Cells given without rows lose their statistics. Concurrent calls must hold disjoint blocks.
+    /// blocks are kept (read back and packed again with the new rows). Cells given without rows lose their statistics.
+    /// Concurrent calls must hold disjoint blocks.
     /// </summary>
-    public async Task ReplaceAsync(int datasetId, IReadOnlyList<int> cellIds, IReadOnlyList<StatisticRow> rows, DateTime computedAtUtc, CancellationToken cancel = default)
+    public Task ReplaceAsync(int datasetId, IReadOnlyList<int> cellIds, IReadOnlyList<StatisticRow> rows, DateTime computedAtUtc, CancellationToken cancel = default)
+    {
+        var replaced = cellIds.ToHashSet();
+        foreach (var row in rows)
+            if (!replaced.Contains(row.CellId))
+                throw new ArgumentException($"Row for cell {row.CellId}, which is not among the cells being replaced.", nameof(rows));
+        return ReplaceBlocksAsync(datasetId, cellIds, StatisticBlock.Pack(rows), computedAtUtc, cancel);
+    }
+
+    /// <summary>
+    /// <see cref="ReplaceAsync"/> with the new statistics already packed (every cell in <paramref name="blocks"/> must be
+    /// among <paramref name="cellIds"/>). Handing over whole blocks saves reading back the rows of other cells.
+    /// </summary>
+    public async Task ReplaceBlocksAsync(int datasetId, IReadOnlyList<int> cellIds, IReadOnlyList<StatisticBlock> blocks, DateTime computedAtUtc, CancellationToken cancel = default)
     {
         await using var connection = await dataSource.OpenConnectionAsync(cancel);
         await using var transaction = await connection.BeginTransactionAsync(cancel);
         var ids = cellIds.ToArray();
         var replaced = ids.ToHashSet();
-        foreach (var row in rows)
-            if (!replaced.Contains(row.CellId))
-                throw new ArgumentException($"Row for cell {row.CellId}, which is not among the cells being replaced.", nameof(rows));
-        var blocks = ids.Select(StatisticBlock.BlockOf).Distinct().Order().ToArray();
+        var touched = ids.Select(StatisticBlock.BlockOf).Distinct().Order().ToArray();
 
         var kept = new List<StatisticRow>();
-        foreach (var partial in await BlocksWithOtherCellsAsync(connection, transaction, datasetId, blocks, replaced, cancel))
+        foreach (var partial in await BlocksWithOtherCellsAsync(connection, transaction, datasetId, touched, replaced, cancel))
             kept.AddRange(partial.Unpack().Where(r => !replaced.Contains(r.CellId)));
+        if (kept.Count > 0) blocks = StatisticBlock.Pack(kept.Concat(blocks.SelectMany(b => b.Unpack())));
 
         await using (var delete = new NpgsqlCommand("DELETE FROM statistic_block WHERE dataset_id = $1 AND block = ANY($2)", connection, transaction))
         {
             delete.Parameters.AddWithValue(datasetId);
-            delete.Parameters.AddWithValue(blocks);
+            delete.Parameters.AddWithValue(touched);
             await delete.ExecuteNonQueryAsync(cancel);
         }
         await using (var delete = new NpgsqlCommand("DELETE FROM cell_statistic_state WHERE dataset_id = $1 AND cell_id = ANY($2)", connection, transaction))
@@ -50,7 +61,7 @@ public sealed class StatisticsStore(NpgsqlDataSource dataSource)
         {
             var encoder = new BinaryCopyEncoder(copy);
             encoder.WriteHeader();
-            foreach (var block in StatisticBlock.Pack(kept.Count == 0 ? rows : kept.Concat(rows)))
+            foreach (var block in blocks)
             {
                 cancel.ThrowIfCancellationRequested();
                 encoder.StartRow(17);
