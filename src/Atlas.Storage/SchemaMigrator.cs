@@ -15,8 +15,11 @@ public static class SchemaMigrator
             ? configured
             : Path.Combine(AppContext.BaseDirectory, "db");
 
-    /// <summary>Applies pending migrations; returns the number applied.</summary>
-    public static int Migrate(string connectionString, Action<string>? log = null)
+    /// <summary>
+    /// Applies pending migrations, up to <paramref name="targetVersion"/> when given (for tests of a migration on data
+    /// stored by the schema before it); returns the number applied.
+    /// </summary>
+    public static int Migrate(string connectionString, Action<string>? log = null, string? targetVersion = null)
     {
         if (!Directory.Exists(MigrationsFolder) || Directory.GetFiles(MigrationsFolder, "*.sql").Length == 0)
             throw new InvalidOperationException($"No migrations found in {MigrationsFolder}.");
@@ -29,6 +32,7 @@ public static class SchemaMigrator
             EnableClusterMode = true,
             CommandTimeout = 600,
         };
+        if (targetVersion is not null) evolve.TargetVersion = new EvolveDb.Migration.MigrationVersion(targetVersion);
         evolve.Migrate();
         return evolve.NbMigration;
     }
