@@ -74,10 +74,42 @@ public class BinaryCopyDecoderTests(TestDatabase database) : IClassFixture<TestD
         Assert.Contains("signature", (await Assert.ThrowsAsync<InvalidDataException>(async () => await notCopy.ReadHeaderAsync())).Message);
     }
 
-    private async Task<byte[]> CopyOutAsync()
+    [Fact]
+    public async Task ArraysComeBackWholeWithNaNAndNullArraysAndRefuseNullElements()
+    {
+        var bytes = await CopyOutAsync("""
+            COPY (SELECT ARRAY[1, -2, 2147483647]::int[], ARRAY[1.5, 'NaN', -0.25]::real[], NULL::real[], '{}'::int[],
+                         ARRAY[1, NULL]::int[], ARRAY[[1.0]]::real[]) TO STDOUT (FORMAT BINARY)
+            """);
+        var decoder = new BinaryCopyDecoder(new MemoryStream(bytes));
+        await decoder.ReadHeaderAsync();
+        Assert.True(await decoder.StartRowAsync(6));
+        var ints = await decoder.ReadInt32ArrayAsync();
+        Assert.Equal(new[] { 1, -2, int.MaxValue }, ints);
+        var reals = (await decoder.ReadRealArrayAsync())!;
+        Assert.Equal(3, reals.Length);
+        Assert.True(reals[0] == 1.5f && float.IsNaN(reals[1]) && reals[2] == -0.25f);
+        Assert.Null(await decoder.ReadRealArrayAsync());
+        Assert.Empty((await decoder.ReadInt32ArrayAsync())!);
+        Assert.Contains("NULL element", (await Assert.ThrowsAsync<InvalidDataException>(async () => await decoder.ReadInt32ArrayAsync())).Message);
+    }
+
+    [Theory]
+    [InlineData("ARRAY[[1.0, 2.0]]::real[]", "2 dimensions")]
+    [InlineData("ARRAY[1.0]::real[]", "of type 700 where one of type 23")]
+    public async Task AnArrayOfAnotherShapeOrTypeIsRefused(string array, string message)
+    {
+        var bytes = await CopyOutAsync($"COPY (SELECT {array}) TO STDOUT (FORMAT BINARY)");
+        var decoder = new BinaryCopyDecoder(new MemoryStream(bytes));
+        await decoder.ReadHeaderAsync();
+        Assert.True(await decoder.StartRowAsync(1));
+        Assert.Contains(message, (await Assert.ThrowsAsync<InvalidDataException>(async () => await decoder.ReadInt32ArrayAsync())).Message);
+    }
+
+    private async Task<byte[]> CopyOutAsync(string query = Query)
     {
         await using var connection = await database.DataSource.OpenConnectionAsync();
-        await using var copy = await connection.BeginRawBinaryCopyAsync(Query);
+        await using var copy = await connection.BeginRawBinaryCopyAsync(query);
         using var memory = new MemoryStream();
         await copy.CopyToAsync(memory);
         return memory.ToArray();

@@ -12,6 +12,8 @@ public sealed class BinaryCopyDecoder(Stream source)
 {
     private static readonly byte[] Signature = [(byte)'P', (byte)'G', (byte)'C', (byte)'O', (byte)'P', (byte)'Y', 0x0A, 0xFF, 0x0D, 0x0A, 0x00];
 
+    private const int Int4Oid = 23, Float4Oid = 700;   // pg_type oids of integer and real
+
     private byte[] _buffer = new byte[1 << 17];
     private int _start, _end;
 
@@ -64,6 +66,58 @@ public sealed class BinaryCopyDecoder(Stream source)
         var view = new ReadOnlyMemory<byte>(_buffer, _start, length);
         _start += length;
         return view;
+    }
+
+    /// <summary>A one-dimensional integer[] field without NULL elements, or null for a NULL field.</summary>
+    public async ValueTask<int[]?> ReadInt32ArrayAsync(CancellationToken cancel = default)
+    {
+        var length = await ArrayLengthAsync(Int4Oid, cancel);
+        if (length < 0) return null;
+        var values = new int[length];
+        for (var i = 0; i < length; i++)
+        {
+            if (BinaryPrimitives.ReadInt32BigEndian(_buffer.AsSpan(_start)) != 4) throw new InvalidDataException("An integer[] element is not 4 bytes long.");
+            values[i] = BinaryPrimitives.ReadInt32BigEndian(_buffer.AsSpan(_start + 4));
+            _start += 8;
+        }
+        return values;
+    }
+
+    /// <summary>A one-dimensional real[] field without NULL elements (NaN is a value), or null for a NULL field.</summary>
+    public async ValueTask<float[]?> ReadRealArrayAsync(CancellationToken cancel = default)
+    {
+        var length = await ArrayLengthAsync(Float4Oid, cancel);
+        if (length < 0) return null;
+        var values = new float[length];
+        for (var i = 0; i < length; i++)
+        {
+            if (BinaryPrimitives.ReadInt32BigEndian(_buffer.AsSpan(_start)) != 4) throw new InvalidDataException("A real[] element is not 4 bytes long.");
+            values[i] = BinaryPrimitives.ReadSingleBigEndian(_buffer.AsSpan(_start + 4));
+            _start += 8;
+        }
+        return values;
+    }
+
+    // Reads an array field's header ("array_send" layout: dimensions, has-nulls flag, element type, then per dimension
+    // length and lower bound) and makes its whole body available; returns the element count, or -1 for NULL.
+    private async ValueTask<int> ArrayLengthAsync(int elementOid, CancellationToken cancel)
+    {
+        await EnsureAsync(4, cancel);
+        var bytes = TakeInt32();
+        if (bytes < 0) return -1;
+        await EnsureAsync(bytes, cancel);
+        var end = _start + bytes;
+        var dimensions = TakeInt32();
+        var hasNulls = TakeInt32() != 0;
+        var oid = TakeInt32();
+        if (hasNulls) throw new InvalidDataException("An array field has a NULL element.");
+        if (dimensions == 0) { _start = end; return 0; }
+        if (dimensions != 1 || oid != elementOid)
+            throw new InvalidDataException($"An array field has {dimensions} dimensions of type {oid} where one of type {elementOid} was expected.");
+        var length = TakeInt32();
+        TakeInt32();   // lower bound
+        if (length < 0 || _start + 8L * length != end) throw new InvalidDataException("An array field's length disagrees with its size.");
+        return length;
     }
 
     private async ValueTask FieldAsync(int length, CancellationToken cancel)
