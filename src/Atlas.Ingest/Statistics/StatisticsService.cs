@@ -14,9 +14,10 @@ namespace Atlas.Ingest.Statistics;
 
 /// <summary>
 /// Computes and stores the statistics of a dataset's cells whose series changed since they were last computed
-/// (or of all cells). One streaming pass: chunks come out of PostgreSQL by binary COPY ordered by cell, each cell's
-/// series is assembled once, a calculator per core computes every period, and rows go back by binary COPY in
-/// batches. Memory is bounded by the number of cell buffers in flight, whatever the dataset size.
+/// (or of all cells; a changed cell's whole block of 1,024 cell ids is recomputed, since blocks are stored whole). One
+/// streaming pass: chunks come out of PostgreSQL by binary COPY ordered by cell, each cell's series is assembled
+/// once, a calculator per core computes every period, and the results, packed per block, go back by binary COPY in
+/// batches. Memory is bounded by the cell buffers and the few open blocks in flight, whatever the dataset size.
 /// </summary>
 public sealed class StatisticsService(NpgsqlDataSource dataSource, StatisticsOptions? options = null)
 {
@@ -97,9 +98,9 @@ public sealed class StatisticsService(NpgsqlDataSource dataSource, StatisticsOpt
         var closer = Task.WhenAll(calculators).ContinueWith(t => results.Writer.Complete(t.Exception), TaskScheduler.Default);
 
         var computedAt = DateTime.UtcNow;
-        // Batches are written by tasks of their own, so the calculators keep computing while PostgreSQL stores rows,
-        // and on two connections at once: storing rows is the longest stage, and each backend takes a core. Batches
-        // hold disjoint cells, so their transactions never wait on each other.
+        // Batches are written by tasks of their own, so the calculators keep computing while PostgreSQL stores them, on
+        // two connections so that one batch's COPY overlaps the other's commit. Batches hold disjoint blocks, so their
+        // transactions never wait on each other.
         var batches = Channel.CreateBounded<(List<int> Cells, List<StatisticBlock> Blocks)>(2);
         long rowCount = 0;
         var done = 0;
