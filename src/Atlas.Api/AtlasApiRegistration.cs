@@ -28,6 +28,13 @@ public static class AtlasApiRegistration
 {
     public static WebApplicationBuilder AddAtlasApi(this WebApplicationBuilder builder)
     {
+        // Defaults beneath every other source (appsettings, environment, command line), which may still lower them: a
+        // line per request at Information buries the start-up and warning lines in a terminal, and requests are
+        // counted at /metrics anyway.
+        builder.Configuration.Sources.Insert(0, new Microsoft.Extensions.Configuration.Memory.MemoryConfigurationSource
+        {
+            InitialData = new Dictionary<string, string?> { ["Logging:LogLevel:Microsoft.AspNetCore"] = "Warning" },
+        });
         var services = builder.Services;
         services.AddOptions<AtlasApiOptions>().BindConfiguration(nameof(AtlasApiOptions)).ValidateDataAnnotations().ValidateOnStart();
 
