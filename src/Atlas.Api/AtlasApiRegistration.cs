@@ -46,6 +46,7 @@ public static class AtlasApiRegistration
         services.AddSingleton<CellFootprints>();
         services.AddSingleton<PointLocator>();
         services.AddSingleton<PointResponseCache>();
+        services.AddSingleton<PointCalendars>();
         services.AddSingleton<ApiKeyVerifier>();
         services.AddHostedService<SchemaStartup>();
         services.AddHostedService<DatasetWarmup>();
