@@ -6,10 +6,10 @@ namespace Atlas.Statistics;
 internal sealed class WindowedPeriods
 {
     private readonly bool[] _included;
-    // The periods a slot belongs to (its month, season, the whole window and its year: at most four), in rows of four.
-    private const int MaxPeriodsPerSlot = 4;
-    private readonly int[] _periodsOfSlot;
-    private readonly int[] _periodCountOfSlot;
+    // Every slot inside the window belongs to four periods: its month, its season, its year and the whole window
+    // (annual). The first three by slot (-1 outside the window); annual holds every slot.
+    private readonly int[] _monthOfSlot, _seasonOfSlot, _yearOfSlot;
+    private readonly int _annual = -1;
 
     public WindowedPeriods(TimelineCalendar calendar, AnalysisWindow? window)
     {
@@ -22,26 +22,32 @@ internal sealed class WindowedPeriods
         }
 
         var periods = new List<(AtlasPeriod, int[], long)>();
-        var periodsOfSlot = new List<int>[calendar.SlotCount];
-        for (int s = 0; s < periodsOfSlot.Length; s++) periodsOfSlot[s] = [];
+        _monthOfSlot = new int[calendar.SlotCount];
+        _seasonOfSlot = new int[calendar.SlotCount];
+        _yearOfSlot = new int[calendar.SlotCount];
+        Array.Fill(_monthOfSlot, -1);
+        Array.Fill(_seasonOfSlot, -1);
+        Array.Fill(_yearOfSlot, -1);
         foreach (AtlasPeriod period in calendar.PeriodsPresent)
         {
             int[] slots = [.. calendar.SlotsOf(period).ToArray().Where(s => _included[s])];
             if (slots.Length == 0) continue;
             long expected = slots.Sum(calendar.StepsInSlot);
-            foreach (int s in slots) periodsOfSlot[s].Add(periods.Count);
+            int[]? ofSlot = period.Kind switch
+            {
+                PeriodKind.Month => _monthOfSlot,
+                PeriodKind.Season => _seasonOfSlot,
+                PeriodKind.Year => _yearOfSlot,
+                _ => null,
+            };
+            if (ofSlot is null) _annual = periods.Count;
+            else foreach (int s in slots) ofSlot[s] = periods.Count;
             periods.Add((period, slots, expected));
         }
         Periods = periods;
-        _periodsOfSlot = new int[MaxPeriodsPerSlot * calendar.SlotCount];
-        _periodCountOfSlot = new int[calendar.SlotCount];
-        for (int s = 0; s < periodsOfSlot.Length; s++)
-        {
-            if (periodsOfSlot[s].Count > MaxPeriodsPerSlot)
-                throw new InvalidOperationException($"A calendar slot belongs to {periodsOfSlot[s].Count} periods; at most {MaxPeriodsPerSlot} were expected.");
-            periodsOfSlot[s].CopyTo(_periodsOfSlot, MaxPeriodsPerSlot * s);
-            _periodCountOfSlot[s] = periodsOfSlot[s].Count;
-        }
+        for (int s = 0; s < _included.Length; s++)
+            if (_included[s] && (_annual < 0 || _monthOfSlot[s] < 0 || _seasonOfSlot[s] < 0 || _yearOfSlot[s] < 0))
+                throw new InvalidOperationException($"Slot {s} of the window lacks its month, season, year or annual period.");
     }
 
     public TimelineCalendar Calendar { get; }
@@ -103,19 +109,33 @@ internal sealed class WindowedPeriods
     private SortedPeriodValues Deal(ReadOnlySpan<long> sortedKeys)
     {
         // Per period: the count of its steps, from the steps per slot.
-        var slotCounts = new int[_periodCountOfSlot.Length];
+        var slotCounts = new int[_included.Length];
         foreach (long key in sortedKeys) slotCounts[(int)(key & 0xFFFF_FFFF)]++;
         var counts = new int[Periods.Count];
         for (int s = 0; s < slotCounts.Length; s++)
-            for (int k = 0; k < _periodCountOfSlot[s]; k++) counts[_periodsOfSlot[MaxPeriodsPerSlot * s + k]] += slotCounts[s];
+        {
+            if (slotCounts[s] == 0) continue;
+            counts[_monthOfSlot[s]] += slotCounts[s];
+            counts[_seasonOfSlot[s]] += slotCounts[s];
+            counts[_yearOfSlot[s]] += slotCounts[s];
+        }
+        if (sortedKeys.IsEmpty) return new SortedPeriodValues(counts); // also when the window holds no slot (and no annual)
+        counts[_annual] = sortedKeys.Length;
         var sorted = new SortedPeriodValues(counts);
         (double[] values, int[] starts) = sorted.Runs;
         int[] next = [.. starts];
-        foreach (long key in sortedKeys)
+        // The annual run is every value in order; the other three a stable scatter. A fixed four writes per value,
+        // with no loop over a slot's periods, runs about twice as fast as the general form.
+        Span<double> annual = values.AsSpan(starts[_annual], sortedKeys.Length);
+        for (int i = 0; i < sortedKeys.Length; i++)
         {
+            long key = sortedKeys[i];
             double value = BitConverter.Int32BitsToSingle((int)(key >> 32));
-            int slot = (int)(key & 0xFFFF_FFFF), row = MaxPeriodsPerSlot * slot;
-            for (int k = 0; k < _periodCountOfSlot[slot]; k++) values[next[_periodsOfSlot[row + k]]++] = value;
+            int slot = (int)(key & 0xFFFF_FFFF);
+            annual[i] = value;
+            values[next[_monthOfSlot[slot]]++] = value;
+            values[next[_seasonOfSlot[slot]]++] = value;
+            values[next[_yearOfSlot[slot]]++] = value;
         }
         return sorted;
     }

@@ -220,6 +220,23 @@ public class PointAnalysisTests(InventedSeriesReference reference)
         Assert.Equal(AtlasPeriod.Month(1), back.Periods[0].Period);
     }
 
+    // A window beside the record (years the series does not reach) leaves nothing to analyse: no period, empty
+    // curves and joint table, no inter-annual rows; on both paths.
+    [Fact]
+    public void WindowOutsideTheRecordGivesNoPeriods()
+    {
+        var data = new InventedSeries(firstYear: 2010, years: 7, stepHours: 1, seed: 11);
+        foreach (bool parallel in new[] { false, true })
+        {
+            PointAnalysisResult result = PointAnalysis.Analyse(data.Series(), new PointAnalysisOptions { Window = new AnalysisWindow(1990, 1999) }, null, parallel);
+            Assert.Empty(result.Periods);
+            Assert.Equal(0, result.StepsInWindow);
+            Assert.Empty(result.HsExceedance.Thresholds);
+            Assert.Equal(0, result.JointOccurrence.TotalCount);
+            Assert.Empty(result.InterAnnual);
+        }
+    }
+
     [Fact]
     public void UnusableWindowThrowsSayingWhy()
     {
