@@ -159,33 +159,53 @@ public static class PointAnalysis
     {
         double hsBin = options.JointHsBinMetres, teBin = options.JointTeBinSeconds;
         int rows = 0, firstColumn = int.MaxValue, lastColumn = -1;
-        long total = 0;
+        int total = 0;
         ReadOnlySpan<int> stepSlots = window.Calendar.StepSlots;
-        for (int i = 0; i < power.Length; i++)
+        // One pass finds each counted step's bin and the table's extent; the second fills the table from those
+        // bins, in step order as before, without dividing again.
+        int[] rowOf = ArrayPool<int>.Shared.Rent(power.Length), columnOf = ArrayPool<int>.Shared.Rent(power.Length);
+        float[] powerOf = ArrayPool<float>.Shared.Rent(power.Length);
+        try
         {
-            if (!window.Includes(stepSlots[i]) || !ParameterValidity.IsValid(WaveParameter.J, power[i])) continue;
-            rows = Math.Max(rows, (int)(hs[i] / hsBin) + 1);
-            int column = (int)(te[i] / teBin);
-            firstColumn = Math.Min(firstColumn, column);
-            lastColumn = Math.Max(lastColumn, column);
-            total++;
-        }
-        if (total == 0) return new JointOccurrenceTable(hsBin, teBin, [], [], [], [], [], [], 0);
+            for (int i = 0; i < power.Length; i++)
+            {
+                if (!window.Includes(stepSlots[i]) || !ParameterValidity.IsValid(WaveParameter.J, power[i])) continue;
+                int row = (int)(hs[i] / hsBin), column = (int)(te[i] / teBin);
+                rows = Math.Max(rows, row + 1);
+                firstColumn = Math.Min(firstColumn, column);
+                lastColumn = Math.Max(lastColumn, column);
+                rowOf[total] = row;
+                columnOf[total] = column;
+                powerOf[total++] = power[i];
+            }
+            if (total == 0) return new JointOccurrenceTable(hsBin, teBin, [], [], [], [], [], [], 0);
 
-        int columns = lastColumn - firstColumn + 1;
-        var counts = new long[rows][];
-        var energy = new double[rows][];
-        for (int r = 0; r < rows; r++) { counts[r] = new long[columns]; energy[r] = new double[columns]; }
-        double totalEnergy = 0;
-        for (int i = 0; i < power.Length; i++)
+            int columns = lastColumn - firstColumn + 1;
+            var counts = new long[rows][];
+            var energy = new double[rows][];
+            for (int r = 0; r < rows; r++) { counts[r] = new long[columns]; energy[r] = new double[columns]; }
+            double totalEnergy = 0;
+            for (int k = 0; k < total; k++)
+            {
+                int r = rowOf[k], c = columnOf[k] - firstColumn;
+                counts[r][c]++;
+                energy[r][c] += powerOf[k];
+                totalEnergy += powerOf[k];
+            }
+            return Fractions(hsBin, teBin, firstColumn, counts, energy, totalEnergy, total);
+        }
+        finally
         {
-            if (!window.Includes(stepSlots[i]) || !ParameterValidity.IsValid(WaveParameter.J, power[i])) continue;
-            int r = (int)(hs[i] / hsBin), c = (int)(te[i] / teBin) - firstColumn;
-            counts[r][c]++;
-            energy[r][c] += power[i];
-            totalEnergy += power[i];
+            ArrayPool<int>.Shared.Return(rowOf);
+            ArrayPool<int>.Shared.Return(columnOf);
+            ArrayPool<float>.Shared.Return(powerOf);
         }
+    }
 
+    private static JointOccurrenceTable Fractions(double hsBin, double teBin, int firstColumn, long[][] counts, double[][] energy,
+        double totalEnergy, long total)
+    {
+        int rows = counts.Length, columns = counts[0].Length;
         var fractionOfTime = new double[rows][];
         var meanPower = new double?[rows][];
         var fractionOfEnergy = new double[rows][];

@@ -73,11 +73,12 @@ public static class PointStatisticsApi
             return PointOutcome.Failed(ApiProblems.Unprocessable("No series in the window",
                 $"Cell {point.Nearest.Cell.CellId} of '{slug}' has no stored series{WindowText(window)}; stored years are " +
                 $"{(timelines.Count == 0 ? "none" : $"{timelines.Keys.First()}..{timelines.Keys.Last()}")}."));
-        var decoded = PointSeriesReader.Decode(chunks, timelines, point.Nearest.Cell.DepthMetres is { } d ? d : double.NaN);
-        var result = PointAnalysis.Analyse(decoded.ToCellSeries(), new PointAnalysisOptions
-        {
-            Window = new AnalysisWindow(window.FromYear, window.ToYear, window.Months),
-        }, calendars.For(decoded.Times));
+        PointAnalysisResult result;
+        using (var decoded = PointSeriesReader.DecodeRented(chunks, timelines, point.Nearest.Cell.DepthMetres is { } d ? d : double.NaN))
+            result = PointAnalysis.Analyse(decoded.ToCellSeries(), new PointAnalysisOptions
+            {
+                Window = new AnalysisWindow(window.FromYear, window.ToYear, window.Months),
+            }, calendars.For(decoded.Times));
         var periods = result.Periods.Where(p => onlyPeriod is not { } only || p.Period == only).ToArray();
         if (periods.Length == 0)
             return PointOutcome.Failed(ApiProblems.Unprocessable("The period has no steps in the window",

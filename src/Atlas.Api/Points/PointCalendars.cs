@@ -16,7 +16,7 @@ public sealed class PointCalendars
     private readonly Lock _gate = new();
 
     /// <summary>A kept calendar of exactly these times, or a new one (then kept in place of the oldest).</summary>
-    public TimelineCalendar For(long[] times)
+    public TimelineCalendar For(ReadOnlySpan<long> times)
     {
         TimelineCalendar?[] recent;
         lock (_gate) recent = [.. _recent];
