@@ -19,7 +19,8 @@ public static class PointAnalysis
 {
     private const int ParallelSteps = 50_000;
     private const int JointTask = 6, DirectionTask = 7;
-    // The parameters' sorts (0..5, power first: it is always present when Te is) before the lighter work.
+    // The sorts of the parameters every dataset has (power, Hs, Te) first, then the joint table, then the sorts of
+    // the often absent ones and the direction sums: the longest work starts first and the cores finish together.
     private static readonly int[] TaskOrder = [3, 0, 1, JointTask, 2, 4, 5, DirectionTask];
     private static readonly AtlasPeriod[] InterAnnualPeriods = [AtlasPeriod.Annual, AtlasPeriod.Djf, AtlasPeriod.Mam, AtlasPeriod.Jja, AtlasPeriod.Son];
 
@@ -61,7 +62,9 @@ public static class PointAnalysis
         const int hsIndex = 0, teIndex = 1, powerIndex = 3;
         // Hs, Te and J are also summed per slot while they are packed, for the inter-annual means.
         var sums = new SlotSums?[values.Length];
-        foreach (int k in (int[])[hsIndex, teIndex, powerIndex]) sums[k] = new SlotSums(calendar.SlotCount);
+        sums[hsIndex] = new SlotSums(calendar.SlotCount);
+        sums[teIndex] = new SlotSums(calendar.SlotCount);
+        sums[powerIndex] = new SlotSums(calendar.SlotCount);
 
         var sorted = new SortedPeriodValues?[values.Length];
         var summaries = new SummaryStatistics[values.Length][];
@@ -79,7 +82,7 @@ public static class PointAnalysis
             }
             else if (task == JointTask)
                 joint = JointOccurrence(Span(values[hsIndex], n), Span(values[teIndex], n), Span(values[powerIndex], n), window, options);
-            else if (directions is not null)
+            else if (task == DirectionTask && directions is not null)
             {
                 direction.Prepare(calendar);
                 direction.Accumulate(directions.AsSpan(0, n), Span(values[powerIndex], n));
