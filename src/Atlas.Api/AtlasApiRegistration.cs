@@ -53,6 +53,7 @@ public static class AtlasApiRegistration
         services.AddSingleton<CellFootprints>();
         services.AddSingleton<PointLocator>();
         services.AddSingleton<PointResponseCache>();
+        services.AddSingleton<PointCalendars>();
         services.AddSingleton<ApiKeyVerifier>();
         services.AddHostedService<SchemaStartup>();
         services.AddHostedService<DatasetWarmup>();

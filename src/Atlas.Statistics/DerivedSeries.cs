@@ -1,3 +1,4 @@
+using System.Buffers;
 using Atlas.WavePhysics;
 
 namespace Atlas.Statistics;
@@ -14,9 +15,10 @@ internal readonly ref struct DerivedSeries
 
 /// <summary>
 /// Reusable buffers that turn a <see cref="CellSeries"/> into its <see cref="DerivedSeries"/>; one per worker, no
-/// allocation once the buffers have grown to the timeline's length.
+/// allocation once the buffers have grown to the timeline's length. Built with a pool, the buffers are rented from
+/// it and given back on <see cref="Dispose"/> (for a single analysis, which would otherwise allocate them each time).
 /// </summary>
-internal sealed class DerivedSeriesBuffers
+internal sealed class DerivedSeriesBuffers(ArrayPool<float>? pool = null) : IDisposable
 {
     private float[] _te = [];
     private float[] _power = [];
@@ -86,8 +88,23 @@ internal sealed class DerivedSeriesBuffers
         return false;
     }
 
-    private static void Grow(ref float[] buffer, int length)
+    private void Grow(ref float[] buffer, int length)
     {
-        if (buffer.Length < length) buffer = new float[length];
+        if (buffer.Length >= length) return;
+        Return(buffer);
+        buffer = pool?.Rent(length) ?? new float[length];
+    }
+
+    private void Return(float[] buffer)
+    {
+        if (pool is not null && buffer.Length > 0) pool.Return(buffer);
+    }
+
+    public void Dispose()
+    {
+        Return(_te);
+        Return(_power);
+        Return(_directionality);
+        _te = _power = _directionality = [];
     }
 }

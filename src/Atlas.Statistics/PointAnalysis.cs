@@ -1,3 +1,6 @@
+using System.Buffers;
+using System.Collections.Concurrent;
+
 namespace Atlas.Statistics;
 
 /// <summary>
@@ -14,96 +17,135 @@ namespace Atlas.Statistics;
 /// </remarks>
 public static class PointAnalysis
 {
-    private const int ParallelSortSteps = 50_000;
+    private const int ParallelSteps = 50_000;
+    private const int JointTask = 6, DirectionTask = 7;
+    // The sorts of the parameters every dataset has (power, Hs, Te) first, then the joint table, then the sorts of
+    // the often absent ones and the direction sums: the longest work starts first and the cores finish together.
+    private static readonly int[] TaskOrder = [3, 0, 1, JointTask, 2, 4, 5, DirectionTask];
     private static readonly AtlasPeriod[] InterAnnualPeriods = [AtlasPeriod.Annual, AtlasPeriod.Djf, AtlasPeriod.Mam, AtlasPeriod.Jja, AtlasPeriod.Son];
 
     /// <summary>Analyses one point.</summary>
     /// <param name="series">The point's series on its timeline.</param>
     /// <param name="options">Settings; the defaults when null.</param>
+    /// <param name="calendar">
+    /// The calendar of an earlier analysis, used again when it is the calendar of the same timeline (built afresh
+    /// otherwise): cells of a dataset share their timeline, and building it costs a pass over every step.
+    /// </param>
     /// <returns>Results that serialise to JSON without NaN (missing values are null).</returns>
     /// <exception cref="ArgumentException">The series or a setting is not usable; the message names it.</exception>
-    public static PointAnalysisResult Analyse(in CellSeries series, PointAnalysisOptions? options = null)
+    public static PointAnalysisResult Analyse(in CellSeries series, PointAnalysisOptions? options = null, TimelineCalendar? calendar = null) =>
+        Analyse(series, options, calendar, series.Times.Length >= ParallelSteps);
+
+    /// <summary>As the public overload; <paramref name="parallel"/> chooses between every core and the calling thread alone.</summary>
+    internal static PointAnalysisResult Analyse(in CellSeries series, PointAnalysisOptions? options, TimelineCalendar? calendar, bool parallel)
     {
         options ??= new PointAnalysisOptions();
         options.Validate();
         series.Validate();
         StatisticsOptions settings = options.Statistics;
-        var calendar = new TimelineCalendar(series.Times);
+        if (calendar is null || !calendar.HasTimes(series.Times)) calendar = new TimelineCalendar(series.Times);
         var window = new WindowedPeriods(calendar, options.Window);
-        DerivedSeries derived = new DerivedSeriesBuffers().Derive(series, settings);
+        using var buffers = new DerivedSeriesBuffers(ArrayPool<float>.Shared);
+        DerivedSeries derived = buffers.Derive(series, settings);
         bool hasPower = derived.Power.Length > 0;
         QuantileDefinition definition = options.QuantileDefinition;
 
-        long[]?[] packed =
+        int n = series.Times.Length;
+        using var columns = new RentedColumns();
+        float[]?[] values =
         [
-            window.Pack(series.Hs, WaveParameter.Hs), window.Pack(derived.Te, WaveParameter.Te), window.Pack(series.Tp, WaveParameter.Tp),
-            window.Pack(derived.Power, WaveParameter.J), window.Pack(series.Spread, WaveParameter.Spread),
-            window.Pack(derived.Directionality, WaveParameter.D),
+            columns.Copy(series.Hs), columns.Copy(derived.Te), columns.Copy(series.Tp), columns.Copy(derived.Power),
+            columns.Copy(series.Spread), columns.Copy(derived.Directionality),
         ];
-        var sortedParameters = new double[][]?[packed.Length];
-        var summaries = new SummaryStatistics[packed.Length][];
-        void SortAndSummarise(int k)
-        {
-            double[][]? sorted = sortedParameters[k] = window.SortedPerPeriod(packed[k]);
-            summaries[k] = new SummaryStatistics[window.Periods.Count];
-            for (int i = 0; i < summaries[k].Length; i++)
-                summaries[k][i] = sorted is null ? SummaryStatistics.Empty : ExactSummary.Of(sorted[i], window.Periods[i].Expected, definition);
-        }
-        // A long series (decades of hourly steps) sorts and summarises its parameters on every core; a short one is
-        // not worth the hand-off.
-        if (series.Times.Length >= ParallelSortSteps) Parallel.For(0, packed.Length, SortAndSummarise);
-        else for (int k = 0; k < packed.Length; k++) SortAndSummarise(k);
-        double[][]? hs = sortedParameters[0], power = sortedParameters[3];
+        float[]? directions = hasPower ? columns.Copy(series.Dir) : null;
+        WaveParameter[] parameters = [WaveParameter.Hs, WaveParameter.Te, WaveParameter.Tp, WaveParameter.J, WaveParameter.Spread, WaveParameter.D];
+        const int hsIndex = 0, teIndex = 1, powerIndex = 3;
+        // Hs, Te and J are also summed per slot while they are packed, for the inter-annual means.
+        var sums = new SlotSums?[values.Length];
+        sums[hsIndex] = new SlotSums(calendar.SlotCount);
+        sums[teIndex] = new SlotSums(calendar.SlotCount);
+        sums[powerIndex] = new SlotSums(calendar.SlotCount);
 
+        var sorted = new SortedPeriodValues?[values.Length];
+        var summaries = new SummaryStatistics[values.Length][];
+        JointOccurrenceTable? joint = null;
         var direction = new DirectionAccumulator();
-        if (series.Dir.Length > 0 && hasPower)
+        void Run(int task)
         {
-            direction.Prepare(calendar);
-            direction.Accumulate(series.Dir, derived.Power);
+            if (task < values.Length)
+            {
+                float[]? v = values[task];
+                SortedPeriodValues? s = sorted[task] = v is null ? null : window.SortPerPeriod(v.AsSpan(0, n), parameters[task], sums[task]);
+                summaries[task] = new SummaryStatistics[window.Periods.Count];
+                for (int i = 0; i < summaries[task].Length; i++)
+                    summaries[task][i] = s is null ? SummaryStatistics.Empty : ExactSummary.Of(s.Of(i), window.Periods[i].Expected, definition);
+            }
+            else if (task == JointTask)
+                joint = JointOccurrence(Span(values[hsIndex], n), Span(values[teIndex], n), Span(values[powerIndex], n), window, options);
+            else if (task == DirectionTask && directions is not null)
+            {
+                direction.Prepare(calendar);
+                direction.Accumulate(directions.AsSpan(0, n), Span(values[powerIndex], n));
+            }
         }
-
-        var periods = new PeriodStatistics[window.Periods.Count];
-        for (int i = 0; i < periods.Length; i++)
+        try
         {
-            (AtlasPeriod period, int[] slots, long expected) = window.Periods[i];
-            SummaryStatistics hsSummary = summaries[0][i], powerSummary = summaries[3][i];
-            periods[i] = new PeriodStatistics(
-                period, expected, hsSummary, summaries[1][i], summaries[2][i], powerSummary, summaries[4][i], summaries[5][i],
-                direction.Summarise(slots, expected),
-                Exceedances(hs?[i], settings.HsThresholdsMetres),
-                Exceedances(power?[i], settings.PowerThresholdsKilowattsPerMetre),
-                (hasPower ? powerSummary.Coverage : hsSummary.Coverage) < settings.LowCoverageThreshold);
-        }
+            // A long series (decades of hourly steps) spreads the sorts, the joint table and the direction sums over
+            // every core, one task at a time so that a free core takes the next; a short one is not worth the hand-off.
+            if (parallel) Parallel.ForEach(Partitioner.Create(TaskOrder, EnumerablePartitionerOptions.NoBuffering), Run);
+            else foreach (int task in TaskOrder) Run(task);
 
-        int annual = window.IndexOf(AtlasPeriod.Annual);
-        return new PointAnalysisResult(
-            series.DepthMetres,
-            derived.DeepWaterAssumed,
-            derived.EnergyPeriodSource,
-            definition,
-            options.Window,
-            window.StepsInWindow,
-            periods,
-            Curve(WaveParameter.Hs, annual < 0 ? null : hs?[annual], options.HsCurveStepMetres),
-            Curve(WaveParameter.J, annual < 0 ? null : power?[annual], options.PowerCurveStepKilowattsPerMetre),
-            JointOccurrence(series.Hs, derived.Te, derived.Power, window, options),
-            InterAnnual(series.Hs, derived.Te, derived.Power, window, settings.LowCoverageThreshold));
+            var periods = new PeriodStatistics[window.Periods.Count];
+            for (int i = 0; i < periods.Length; i++)
+            {
+                (AtlasPeriod period, int[] slots, long expected) = window.Periods[i];
+                SummaryStatistics hsSummary = summaries[hsIndex][i], powerSummary = summaries[powerIndex][i];
+                periods[i] = new PeriodStatistics(
+                    period, expected, hsSummary, summaries[teIndex][i], summaries[2][i], powerSummary, summaries[4][i], summaries[5][i],
+                    direction.Summarise(slots, expected),
+                    Exceedances(sorted[hsIndex], i, settings.HsThresholdsMetres),
+                    Exceedances(sorted[powerIndex], i, settings.PowerThresholdsKilowattsPerMetre),
+                    (hasPower ? powerSummary.Coverage : hsSummary.Coverage) < settings.LowCoverageThreshold);
+            }
+
+            int annual = window.IndexOf(AtlasPeriod.Annual);
+            return new PointAnalysisResult(
+                series.DepthMetres,
+                derived.DeepWaterAssumed,
+                derived.EnergyPeriodSource,
+                definition,
+                options.Window,
+                window.StepsInWindow,
+                periods,
+                Curve(WaveParameter.Hs, sorted[hsIndex], annual, options.HsCurveStepMetres),
+                Curve(WaveParameter.J, sorted[powerIndex], annual, options.PowerCurveStepKilowattsPerMetre),
+                joint!,
+                InterAnnual(sums[hsIndex]!, sums[teIndex]!, sums[powerIndex]!, hasPower, window, settings.LowCoverageThreshold));
+        }
+        finally
+        {
+            foreach (SortedPeriodValues? s in sorted) s?.Dispose();
+        }
     }
 
-    private static ExceedanceFraction[] Exceedances(double[]? sorted, IReadOnlyList<double> thresholds)
+    private static ReadOnlySpan<float> Span(float[]? values, int length) => values is null ? [] : values.AsSpan(0, length);
+
+    private static ExceedanceFraction[] Exceedances(SortedPeriodValues? values, int period, IReadOnlyList<double> thresholds)
     {
+        ReadOnlySpan<double> sorted = values is null ? [] : values.Of(period);
         var result = new ExceedanceFraction[thresholds.Count];
         for (int t = 0; t < result.Length; t++)
         {
-            double fraction = sorted is { Length: > 0 } ? (double)ExactSummary.CountAbove(sorted, thresholds[t]) / sorted.Length : double.NaN;
+            double fraction = sorted.Length > 0 ? (double)ExactSummary.CountAbove(sorted, thresholds[t]) / sorted.Length : double.NaN;
             result[t] = new ExceedanceFraction(thresholds[t], fraction);
         }
         return result;
     }
 
-    private static ExceedanceCurve Curve(WaveParameter parameter, double[]? sorted, double step)
+    private static ExceedanceCurve Curve(WaveParameter parameter, SortedPeriodValues? values, int annual, double step)
     {
-        if (sorted is not { Length: > 0 }) return new ExceedanceCurve(parameter, step, [], [], 0);
+        ReadOnlySpan<double> sorted = values is null || annual < 0 ? [] : values.Of(annual);
+        if (sorted.Length == 0) return new ExceedanceCurve(parameter, step, [], [], 0);
         int points = (int)Math.Ceiling(sorted[^1] / step) + 1;
         var thresholds = new double[points];
         var fractions = new double[points];
@@ -120,33 +162,53 @@ public static class PointAnalysis
     {
         double hsBin = options.JointHsBinMetres, teBin = options.JointTeBinSeconds;
         int rows = 0, firstColumn = int.MaxValue, lastColumn = -1;
-        long total = 0;
+        int total = 0;
         ReadOnlySpan<int> stepSlots = window.Calendar.StepSlots;
-        for (int i = 0; i < power.Length; i++)
+        // One pass finds each counted step's bin and the table's extent; the second fills the table from those
+        // bins, in step order as before, without dividing again.
+        int[] rowOf = ArrayPool<int>.Shared.Rent(power.Length), columnOf = ArrayPool<int>.Shared.Rent(power.Length);
+        float[] powerOf = ArrayPool<float>.Shared.Rent(power.Length);
+        try
         {
-            if (!window.Includes(stepSlots[i]) || !ParameterValidity.IsValid(WaveParameter.J, power[i])) continue;
-            rows = Math.Max(rows, (int)(hs[i] / hsBin) + 1);
-            int column = (int)(te[i] / teBin);
-            firstColumn = Math.Min(firstColumn, column);
-            lastColumn = Math.Max(lastColumn, column);
-            total++;
-        }
-        if (total == 0) return new JointOccurrenceTable(hsBin, teBin, [], [], [], [], [], [], 0);
+            for (int i = 0; i < power.Length; i++)
+            {
+                if (!window.Includes(stepSlots[i]) || !ParameterValidity.IsValid(WaveParameter.J, power[i])) continue;
+                int row = (int)(hs[i] / hsBin), column = (int)(te[i] / teBin);
+                rows = Math.Max(rows, row + 1);
+                firstColumn = Math.Min(firstColumn, column);
+                lastColumn = Math.Max(lastColumn, column);
+                rowOf[total] = row;
+                columnOf[total] = column;
+                powerOf[total++] = power[i];
+            }
+            if (total == 0) return new JointOccurrenceTable(hsBin, teBin, [], [], [], [], [], [], 0);
 
-        int columns = lastColumn - firstColumn + 1;
-        var counts = new long[rows][];
-        var energy = new double[rows][];
-        for (int r = 0; r < rows; r++) { counts[r] = new long[columns]; energy[r] = new double[columns]; }
-        double totalEnergy = 0;
-        for (int i = 0; i < power.Length; i++)
+            int columns = lastColumn - firstColumn + 1;
+            var counts = new long[rows][];
+            var energy = new double[rows][];
+            for (int r = 0; r < rows; r++) { counts[r] = new long[columns]; energy[r] = new double[columns]; }
+            double totalEnergy = 0;
+            for (int k = 0; k < total; k++)
+            {
+                int r = rowOf[k], c = columnOf[k] - firstColumn;
+                counts[r][c]++;
+                energy[r][c] += powerOf[k];
+                totalEnergy += powerOf[k];
+            }
+            return Fractions(hsBin, teBin, firstColumn, counts, energy, totalEnergy, total);
+        }
+        finally
         {
-            if (!window.Includes(stepSlots[i]) || !ParameterValidity.IsValid(WaveParameter.J, power[i])) continue;
-            int r = (int)(hs[i] / hsBin), c = (int)(te[i] / teBin) - firstColumn;
-            counts[r][c]++;
-            energy[r][c] += power[i];
-            totalEnergy += power[i];
+            ArrayPool<int>.Shared.Return(rowOf);
+            ArrayPool<int>.Shared.Return(columnOf);
+            ArrayPool<float>.Shared.Return(powerOf);
         }
+    }
 
+    private static JointOccurrenceTable Fractions(double hsBin, double teBin, int firstColumn, long[][] counts, double[][] energy,
+        double totalEnergy, long total)
+    {
+        int rows = counts.Length, columns = counts[0].Length;
         var fractionOfTime = new double[rows][];
         var meanPower = new double?[rows][];
         var fractionOfEnergy = new double[rows][];
@@ -168,13 +230,10 @@ public static class PointAnalysis
             counts, fractionOfTime, meanPower, fractionOfEnergy, total);
     }
 
-    private static InterAnnualSeries[] InterAnnual(ReadOnlySpan<float> hs, ReadOnlySpan<float> te, ReadOnlySpan<float> power,
+    private static InterAnnualSeries[] InterAnnual(SlotSums hsSums, SlotSums teSums, SlotSums powerSums, bool hasPower,
         WindowedPeriods window, double lowCoverageThreshold)
     {
         TimelineCalendar calendar = window.Calendar;
-        SlotSums hsSums = SlotSums.Of(hs, WaveParameter.Hs, window), teSums = SlotSums.Of(te, WaveParameter.Te, window),
-                 powerSums = SlotSums.Of(power, WaveParameter.J, window);
-        bool hasPower = power.Length > 0;
         var result = new List<InterAnnualSeries>();
         foreach (AtlasPeriod period in InterAnnualPeriods)
         {
@@ -213,149 +272,5 @@ public static class PointAnalysis
         foreach (double v in values)
             if (!double.IsNaN(v)) moments.Add(v);
         return moments.SampleStandardDeviation / moments.Mean;
-    }
-
-    /// <summary>Count and double sum of valid steps per slot, inside the window.</summary>
-    private sealed class SlotSums
-    {
-        private readonly long[] _counts;
-        private readonly double[] _sums;
-
-        private SlotSums(int slots)
-        {
-            _counts = new long[slots];
-            _sums = new double[slots];
-        }
-
-        public static SlotSums Of(ReadOnlySpan<float> values, WaveParameter parameter, WindowedPeriods window)
-        {
-            var sums = new SlotSums(window.Calendar.SlotCount);
-            ReadOnlySpan<int> stepSlots = window.Calendar.StepSlots;
-            for (int i = 0; i < values.Length; i++)
-            {
-                int slot = stepSlots[i];
-                if (!window.Includes(slot) || !ParameterValidity.IsValid(parameter, values[i])) continue;
-                sums._counts[slot]++;
-                sums._sums[slot] += values[i];
-            }
-            return sums;
-        }
-
-        public (double Mean, long Count) Mean(List<int> slots)
-        {
-            long n = 0;
-            double sum = 0;
-            foreach (int s in slots) { n += _counts[s]; sum += _sums[s]; }
-            return (n > 0 ? sum / n : double.NaN, n);
-        }
-    }
-
-    /// <summary>The periods present in the window, the slots of each, and the sorted values of a parameter per period.</summary>
-    private sealed class WindowedPeriods
-    {
-        private readonly bool[] _included;
-        // The periods a slot belongs to (its month, season, the whole window and its year: at most four), in rows of four.
-        private const int MaxPeriodsPerSlot = 4;
-        private readonly int[] _periodsOfSlot;
-        private readonly int[] _periodCountOfSlot;
-
-        public WindowedPeriods(TimelineCalendar calendar, AnalysisWindow? window)
-        {
-            Calendar = calendar;
-            _included = new bool[calendar.SlotCount];
-            for (int s = 0; s < _included.Length; s++)
-            {
-                _included[s] = calendar.StepsInSlot(s) > 0 && (window?.Contains(calendar.YearOfSlot(s), TimelineCalendar.MonthOfSlot(s)) ?? true);
-                if (_included[s]) StepsInWindow += calendar.StepsInSlot(s);
-            }
-
-            var periods = new List<(AtlasPeriod, int[], long)>();
-            var periodsOfSlot = new List<int>[calendar.SlotCount];
-            for (int s = 0; s < periodsOfSlot.Length; s++) periodsOfSlot[s] = [];
-            foreach (AtlasPeriod period in calendar.PeriodsPresent)
-            {
-                int[] slots = [.. calendar.SlotsOf(period).ToArray().Where(s => _included[s])];
-                if (slots.Length == 0) continue;
-                long expected = slots.Sum(calendar.StepsInSlot);
-                foreach (int s in slots) periodsOfSlot[s].Add(periods.Count);
-                periods.Add((period, slots, expected));
-            }
-            Periods = periods;
-            _periodsOfSlot = new int[MaxPeriodsPerSlot * calendar.SlotCount];
-            _periodCountOfSlot = new int[calendar.SlotCount];
-            for (int s = 0; s < periodsOfSlot.Length; s++)
-            {
-                if (periodsOfSlot[s].Count > MaxPeriodsPerSlot)
-                    throw new InvalidOperationException($"A calendar slot belongs to {periodsOfSlot[s].Count} periods; at most {MaxPeriodsPerSlot} were expected.");
-                periodsOfSlot[s].CopyTo(_periodsOfSlot, MaxPeriodsPerSlot * s);
-                _periodCountOfSlot[s] = periodsOfSlot[s].Count;
-            }
-        }
-
-        public TimelineCalendar Calendar { get; }
-
-        public long StepsInWindow { get; }
-
-        public IReadOnlyList<(AtlasPeriod Period, int[] Slots, long Expected)> Periods { get; }
-
-        public bool Includes(int slot) => _included[slot];
-
-        public int IndexOf(AtlasPeriod period)
-        {
-            for (int i = 0; i < Periods.Count; i++) if (Periods[i].Period == period) return i;
-            return -1;
-        }
-
-        /// <summary>
-        /// The valid values inside the window, each packed into one 64-bit key with its slot (value bits above, slot
-        /// below); null when the series is absent.
-        /// </summary>
-        /// <remarks>
-        /// Every parameter sorted here is non-negative, and the bits of a non-negative float order like the float, so
-        /// sorting the keys by their upper half orders the values and carries their slots along.
-        /// </remarks>
-        public long[]? Pack(ReadOnlySpan<float> values, WaveParameter parameter)
-        {
-            if (values.Length == 0) return null;
-            ReadOnlySpan<int> stepSlots = Calendar.StepSlots;
-            int valid = 0;
-            for (int i = 0; i < values.Length; i++)
-                if (_included[stepSlots[i]] && ParameterValidity.IsValid(parameter, values[i])) valid++;
-            var packed = new long[valid];
-            for (int i = 0, k = 0; i < values.Length; i++)
-            {
-                if (!_included[stepSlots[i]] || !ParameterValidity.IsValid(parameter, values[i])) continue;
-                float value = values[i] + 0f; // -0 becomes +0, whose bits sort first
-                packed[k++] = (long)BitConverter.SingleToInt32Bits(value) << 32 | (uint)stepSlots[i];
-            }
-            return packed;
-        }
-
-        /// <summary>The packed values sorted and dealt out, still sorted, to every period they belong to; null when absent.</summary>
-        public double[][]? SortedPerPeriod(long[]? packed)
-        {
-            if (packed is null) return null;
-            ValueRadixSort.SortByUpperHalf(packed);
-            // Per period: the count of its steps, from the steps per slot.
-            var slotCounts = new int[_periodCountOfSlot.Length];
-            foreach (long key in packed) slotCounts[(int)(key & 0xFFFF_FFFF)]++;
-            var counts = new int[Periods.Count];
-            for (int s = 0; s < slotCounts.Length; s++)
-                for (int k = 0; k < _periodCountOfSlot[s]; k++) counts[_periodsOfSlot[MaxPeriodsPerSlot * s + k]] += slotCounts[s];
-            var sorted = new double[Periods.Count][];
-            for (int p = 0; p < sorted.Length; p++) sorted[p] = GC.AllocateUninitializedArray<double>(counts[p]);
-            Array.Clear(counts);
-            foreach (long key in packed)
-            {
-                double value = BitConverter.Int32BitsToSingle((int)(key >> 32));
-                int slot = (int)(key & 0xFFFF_FFFF), row = MaxPeriodsPerSlot * slot;
-                for (int k = 0; k < _periodCountOfSlot[slot]; k++)
-                {
-                    int p = _periodsOfSlot[row + k];
-                    sorted[p][counts[p]++] = value;
-                }
-            }
-            return sorted;
-        }
     }
 }

@@ -10,29 +10,45 @@ internal static class ValueRadixSort
 {
     private const int DigitBits = 11;
     private const int Buckets = 1 << DigitBits;
+    private const int Digits = 3; // bits 32..42, 43..53 and 54..63
 
-    /// <summary>Sorts <paramref name="keys"/> in place by their upper half; stable, so equal values keep their order.</summary>
-    public static void SortByUpperHalf(long[] keys)
+    /// <summary>
+    /// Sorts <paramref name="keys"/> in place by their upper half; stable, so equal values keep their order.
+    /// <paramref name="buffer"/> (at least as long as the keys) is scratch space; its contents are overwritten.
+    /// </summary>
+    public static void SortByUpperHalf(Span<long> keys, Span<long> buffer)
     {
         if (keys.Length < 2) return;
-        var buffer = new long[keys.Length];
-        var offsets = new int[Buckets];
-        long[] source = keys, target = buffer;
-        for (int shift = 32; shift < 64; shift += DigitBits)
+        if (buffer.Length < keys.Length) throw new ArgumentException($"The buffer holds {buffer.Length} keys; {keys.Length} are sorted.", nameof(buffer));
+        // The counts of every digit in one read of the keys: counting does not depend on the order the passes leave.
+        var offsets = new int[Digits * Buckets];
+        foreach (long key in keys)
         {
-            Array.Clear(offsets);
-            foreach (long key in source) offsets[(int)((ulong)key >> shift) & (Buckets - 1)]++;
-            // A digit shared by every key (the sign and most exponent bits, often) leaves the order as it is.
-            if (offsets[(int)((ulong)source[0] >> shift) & (Buckets - 1)] == source.Length) continue;
-            for (int b = 0, start = 0; b < Buckets; b++)
-            {
-                int count = offsets[b];
-                offsets[b] = start;
-                start += count;
-            }
-            foreach (long key in source) target[offsets[(int)((ulong)key >> shift) & (Buckets - 1)]++] = key;
-            (source, target) = (target, source);
+            ulong bits = (ulong)key;
+            offsets[(int)(bits >> 32) & (Buckets - 1)]++;
+            offsets[Buckets + ((int)(bits >> (32 + DigitBits)) & (Buckets - 1))]++;
+            offsets[2 * Buckets + ((int)(bits >> (32 + 2 * DigitBits)) & (Buckets - 1))]++;
         }
-        if (!ReferenceEquals(source, keys)) source.CopyTo(keys, 0);
+        Span<long> source = keys, target = buffer[..keys.Length];
+        bool inBuffer = false;
+        for (int digit = 0; digit < Digits; digit++)
+        {
+            int shift = 32 + digit * DigitBits;
+            Span<int> start = offsets.AsSpan(digit * Buckets, Buckets);
+            // A digit shared by every key (the sign and most exponent bits, often) leaves the order as it is.
+            if (start[(int)((ulong)source[0] >> shift) & (Buckets - 1)] == source.Length) continue;
+            for (int b = 0, next = 0; b < Buckets; b++)
+            {
+                int count = start[b];
+                start[b] = next;
+                next += count;
+            }
+            foreach (long key in source) target[start[(int)((ulong)key >> shift) & (Buckets - 1)]++] = key;
+            Span<long> sorted = target;
+            target = source;
+            source = sorted;
+            inBuffer = !inBuffer;
+        }
+        if (inBuffer) source.CopyTo(keys);
     }
 }

@@ -70,6 +70,41 @@ public class PointAnalysisTests(InventedSeriesReference reference)
         }
     }
 
+    // The parallel path (sorts, joint table and direction sums on every core) is a schedule, not a method: it must
+    // give the very same numbers, bit for bit, as the calling thread alone, with Te given or derived from Tp, and
+    // with or without a window.
+    [Fact]
+    public void ParallelPathGivesTheSameResultsAsTheSequentialOne()
+    {
+        var data = new InventedSeries(firstYear: 2010, years: 7, stepHours: 1, seed: 11);
+        var json = new JsonSerializerOptions { NumberHandling = System.Text.Json.Serialization.JsonNumberHandling.AllowNamedFloatingPointLiterals };
+        foreach (bool withTe in new[] { true, false })
+            foreach (AnalysisWindow? window in new[] { null, new AnalysisWindow(2011, 2015, [12, 1, 2]) })
+            {
+                var options = new PointAnalysisOptions { Window = window };
+                string sequential = JsonSerializer.Serialize(PointAnalysis.Analyse(data.Series(withTe), options, null, parallel: false), json);
+                string parallel = JsonSerializer.Serialize(PointAnalysis.Analyse(data.Series(withTe), options, null, parallel: true), json);
+                Assert.Equal(sequential, parallel);
+                Assert.Contains("\"Counts\":[[", parallel);
+            }
+    }
+
+    // A calendar kept from an earlier analysis is used only for the timeline it was built for: with another
+    // timeline the analysis builds the right one and gives what it gives without a kept calendar.
+    [Fact]
+    public void KeptCalendarServesOnlyItsOwnTimeline()
+    {
+        var data = new InventedSeries(years: 2);
+        var other = new InventedSeries(firstYear: 2005, years: 1);
+        var json = new JsonSerializerOptions { NumberHandling = System.Text.Json.Serialization.JsonNumberHandling.AllowNamedFloatingPointLiterals };
+        var kept = new TimelineCalendar(data.Times);
+        Assert.Equal(JsonSerializer.Serialize(PointAnalysis.Analyse(data.Series()), json),
+                     JsonSerializer.Serialize(PointAnalysis.Analyse(data.Series(), calendar: kept), json));
+        PointAnalysisResult elsewhere = PointAnalysis.Analyse(other.Series(), calendar: kept);
+        Assert.Equal(JsonSerializer.Serialize(PointAnalysis.Analyse(other.Series()), json), JsonSerializer.Serialize(elsewhere, json));
+        Assert.Equal("y2005", elsewhere.Periods[^1].Period.Name);
+    }
+
     // Exceedance curves at 0, 0.1, 0.2 ... m and 0, 1, 2 ... kW/m (numpy mean of v > t in float32), the joint Hs-Te
     // table against numpy.histogram2d on 0.5 m x 1 s bins, and yearly and seasonal means with the coefficient of
     // variation (ddof = 1) of the years with enough coverage.
@@ -183,6 +218,23 @@ public class PointAnalysisTests(InventedSeriesReference reference)
         Assert.NotNull(back);
         Assert.True(double.IsNaN(back.Periods[0].Hs.Mean));
         Assert.Equal(AtlasPeriod.Month(1), back.Periods[0].Period);
+    }
+
+    // A window beside the record (years the series does not reach) leaves nothing to analyse: no period, empty
+    // curves and joint table, no inter-annual rows; on both paths.
+    [Fact]
+    public void WindowOutsideTheRecordGivesNoPeriods()
+    {
+        var data = new InventedSeries(firstYear: 2010, years: 7, stepHours: 1, seed: 11);
+        foreach (bool parallel in new[] { false, true })
+        {
+            PointAnalysisResult result = PointAnalysis.Analyse(data.Series(), new PointAnalysisOptions { Window = new AnalysisWindow(1990, 1999) }, null, parallel);
+            Assert.Empty(result.Periods);
+            Assert.Equal(0, result.StepsInWindow);
+            Assert.Empty(result.HsExceedance.Thresholds);
+            Assert.Equal(0, result.JointOccurrence.TotalCount);
+            Assert.Empty(result.InterAnnual);
+        }
     }
 
     [Fact]

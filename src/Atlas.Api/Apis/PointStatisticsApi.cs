@@ -36,7 +36,7 @@ public static class PointStatisticsApi
     public static async Task<Results<FileContentHttpResult, StatusCodeHttpResult, ProblemHttpResult, ValidationProblem>> PointAsync(
         string slug, string? lat, string? lon, string? period, string? from, string? to, string? months, string? include, string? format,
         PointLocator locator, DatasetCatalog catalog, SeriesStore series, ProvenanceBuilder provenance, PointResponseCache responses,
-        IOptions<JsonOptions> json, HttpContext http, CancellationToken cancel)
+        PointCalendars calendars, IOptions<JsonOptions> json, HttpContext http, CancellationToken cancel)
     {
         var errors = new Dictionary<string, string[]>();
         var position = PointLocator.ParsePosition(lat, lon, errors);
@@ -58,12 +58,13 @@ public static class PointStatisticsApi
         var key = await ResponseKeyAsync(point, position.Value, window, onlyPeriod, parts, csv, catalog, cancel);
         // Computed without the request's cancellation: other requests for the same key may be waiting on it.
         var (response, failure) = await responses.GetOrComputeAsync(key,
-            () => ComputeAsync(point, window, onlyPeriod, parts, csv, catalog, series, provenance, json.Value.SerializerOptions, CancellationToken.None));
+            () => ComputeAsync(point, window, onlyPeriod, parts, csv, catalog, series, provenance, calendars, json.Value.SerializerOptions, CancellationToken.None));
         return response is null ? failure! : Respond(response, http);
     }
 
     private static async Task<PointOutcome> ComputeAsync(LocatedPoint point, YearWindow window, AtlasPeriod? onlyPeriod, HashSet<string> parts,
-        bool csv, DatasetCatalog catalog, SeriesStore series, ProvenanceBuilder provenance, JsonSerializerOptions json, CancellationToken cancel)
+        bool csv, DatasetCatalog catalog, SeriesStore series, ProvenanceBuilder provenance, PointCalendars calendars, JsonSerializerOptions json,
+        CancellationToken cancel)
     {
         var slug = point.Dataset.Slug;
         var timelines = await catalog.TimelinesAsync(point.Dataset, cancel);
@@ -72,11 +73,12 @@ public static class PointStatisticsApi
             return PointOutcome.Failed(ApiProblems.Unprocessable("No series in the window",
                 $"Cell {point.Nearest.Cell.CellId} of '{slug}' has no stored series{WindowText(window)}; stored years are " +
                 $"{(timelines.Count == 0 ? "none" : $"{timelines.Keys.First()}..{timelines.Keys.Last()}")}."));
-        var decoded = PointSeriesReader.Decode(chunks, timelines, point.Nearest.Cell.DepthMetres is { } d ? d : double.NaN);
-        var result = PointAnalysis.Analyse(decoded.ToCellSeries(), new PointAnalysisOptions
-        {
-            Window = new AnalysisWindow(window.FromYear, window.ToYear, window.Months),
-        });
+        PointAnalysisResult result;
+        using (var decoded = PointSeriesReader.DecodeRented(chunks, timelines, point.Nearest.Cell.DepthMetres is { } d ? d : double.NaN))
+            result = PointAnalysis.Analyse(decoded.ToCellSeries(), new PointAnalysisOptions
+            {
+                Window = new AnalysisWindow(window.FromYear, window.ToYear, window.Months),
+            }, calendars.For(decoded.Times));
         var periods = result.Periods.Where(p => onlyPeriod is not { } only || p.Period == only).ToArray();
         if (periods.Length == 0)
             return PointOutcome.Failed(ApiProblems.Unprocessable("The period has no steps in the window",

@@ -1,3 +1,4 @@
+using System.Buffers;
 using Atlas.Statistics;
 using Atlas.Storage.Series;
 using Atlas.WavePhysics;
@@ -43,10 +44,35 @@ public sealed record PointSeries(long[] Times, float[] Hs, float[] Te, float[] T
 /// <summary>Decodes a cell's stored chunks (see <see cref="SeriesCodec"/>); years without a chunk or time line are left out.</summary>
 public static class PointSeriesReader
 {
+    /// <summary>
+    /// As <see cref="Decode"/>, into arrays rented from the shared pool (see <see cref="RentedPointSeries"/>); Hs is
+    /// always decoded, as in <see cref="Decode"/>, and the other variables only when a chunk holds them.
+    /// </summary>
+    public static RentedPointSeries DecodeRented(IReadOnlyList<SeriesChunk> chunks, IReadOnlyDictionary<int, long[]> timelines, double depthMetres)
+    {
+        var (usable, total) = Usable(chunks, timelines);
+        var times = ArrayPool<long>.Shared.Rent(total);
+        var variables = new float[SeriesCodec.VariableCount][];
+        for (var v = 0; v < variables.Length; v++)
+        {
+            var variable = (SeriesVariable)v;
+            variables[v] = variable == SeriesVariable.Hs || usable.Any(c => SeriesCodec.Has(c.Payload, variable)) ? ArrayPool<float>.Shared.Rent(total) : [];
+        }
+        var offset = 0;
+        foreach (var chunk in usable)
+        {
+            var n = SeriesCodec.StepCountOf(chunk.Payload);
+            timelines[chunk.Year].CopyTo(times, offset);
+            for (var v = 0; v < variables.Length; v++)
+                if (variables[v].Length > 0) SeriesCodec.Decode(chunk.Payload, (SeriesVariable)v, variables[v].AsSpan(offset, n));
+            offset += n;
+        }
+        return new RentedPointSeries(times, variables, total, depthMetres > 0 ? depthMetres : double.NaN);
+    }
+
     public static PointSeries Decode(IReadOnlyList<SeriesChunk> chunks, IReadOnlyDictionary<int, long[]> timelines, double depthMetres)
     {
-        var usable = chunks.Where(c => timelines.TryGetValue(c.Year, out var t) && t.Length == SeriesCodec.StepCountOf(c.Payload)).ToArray();
-        var total = usable.Sum(c => SeriesCodec.StepCountOf(c.Payload));
+        var (usable, total) = Usable(chunks, timelines);
         var times = new long[total];
         var hs = new float[total];
         var te = new float[total];
@@ -68,5 +94,11 @@ public static class PointSeriesReader
         }
         var depth = depthMetres > 0 ? depthMetres : double.NaN;
         return new PointSeries(times, hs, te, tp, dir, spread, hasTe, hasTp, hasDir, hasSpread, depth);
+    }
+
+    private static (SeriesChunk[] Usable, int Steps) Usable(IReadOnlyList<SeriesChunk> chunks, IReadOnlyDictionary<int, long[]> timelines)
+    {
+        var usable = chunks.Where(c => timelines.TryGetValue(c.Year, out var t) && t.Length == SeriesCodec.StepCountOf(c.Payload)).ToArray();
+        return (usable, usable.Sum(c => SeriesCodec.StepCountOf(c.Payload)));
     }
 }
