@@ -9,7 +9,7 @@ namespace Atlas.Statistics;
 /// <param name="Periods">The standard periods present (jan..dec, djf, mam, jja, son, annual, in that order), then each year present.
 /// A period is present when at least one step of the timeline falls in it.</param>
 public sealed record CellStatistics(
-    [property: JsonConverter(typeof(NaNAsNullJsonConverter))] double DepthMetres,
+    [property: JsonConverter(typeof(DataPrecisionJsonConverter))] double DepthMetres,
     bool DeepWaterAssumed,
     EnergyPeriodSource EnergyPeriodSource,
     IReadOnlyList<PeriodStatistics> Periods)

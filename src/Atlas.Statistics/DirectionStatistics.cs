@@ -11,11 +11,11 @@ namespace Atlas.Statistics;
 /// <param name="Coverage">Count over expected steps.</param>
 /// <param name="PowerRose">Fraction of the energy flux coming from each of <see cref="Sectors"/> sectors of 22.5 degrees, sector 0 centred on north, clockwise; empty when no step counts or the power is all zero.</param>
 public sealed record DirectionStatistics(
-    [property: JsonConverter(typeof(NaNAsNullJsonConverter))] double Mean,
-    [property: JsonConverter(typeof(NaNAsNullJsonConverter))] double Spread,
+    [property: JsonConverter(typeof(DataPrecisionJsonConverter))] double Mean,
+    [property: JsonConverter(typeof(DataPrecisionJsonConverter))] double Spread,
     long Count,
     double Coverage,
-    IReadOnlyList<double> PowerRose)
+    [property: JsonConverter(typeof(DataPrecisionListJsonConverter))] IReadOnlyList<double> PowerRose)
 {
     /// <summary>Number of sectors of the power rose.</summary>
     public const int Sectors = 16;

@@ -9,4 +9,5 @@ namespace Atlas.Statistics;
 /// <param name="Thresholds">The thresholds.</param>
 /// <param name="Fractions">Fraction of valid steps strictly above each threshold (compared in single precision, like the data).</param>
 /// <param name="Count">Valid steps.</param>
-public sealed record ExceedanceCurve(WaveParameter Parameter, double Step, IReadOnlyList<double> Thresholds, IReadOnlyList<double> Fractions, long Count);
+public sealed record ExceedanceCurve(WaveParameter Parameter, double Step, IReadOnlyList<double> Thresholds,
+    [property: System.Text.Json.Serialization.JsonConverter(typeof(DataPrecisionListJsonConverter))] IReadOnlyList<double> Fractions, long Count);

@@ -7,4 +7,4 @@ namespace Atlas.Statistics;
 /// <param name="Fraction">Fraction of valid steps above it, 0..1.</param>
 public readonly record struct ExceedanceFraction(
     double Threshold,
-    [property: JsonConverter(typeof(NaNAsNullJsonConverter))] double Fraction);
+    [property: JsonConverter(typeof(DataPrecisionJsonConverter))] double Fraction);

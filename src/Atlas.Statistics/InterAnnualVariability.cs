@@ -11,9 +11,9 @@ namespace Atlas.Statistics;
 /// <param name="LowCoverage">Coverage below the threshold: the year is listed but left out of the coefficients of variation.</param>
 public sealed record YearlyMeans(
     int Year,
-    [property: JsonConverter(typeof(NaNAsNullJsonConverter))] double Hs,
-    [property: JsonConverter(typeof(NaNAsNullJsonConverter))] double Te,
-    [property: JsonConverter(typeof(NaNAsNullJsonConverter))] double J,
+    [property: JsonConverter(typeof(DataPrecisionJsonConverter))] double Hs,
+    [property: JsonConverter(typeof(DataPrecisionJsonConverter))] double Te,
+    [property: JsonConverter(typeof(DataPrecisionJsonConverter))] double J,
     double Coverage,
     bool LowCoverage);
 
@@ -28,6 +28,6 @@ public sealed record InterAnnualSeries(
     AtlasPeriod Period,
     IReadOnlyList<YearlyMeans> Years,
     int YearsUsed,
-    [property: JsonConverter(typeof(NaNAsNullJsonConverter))] double HsCoefficientOfVariation,
-    [property: JsonConverter(typeof(NaNAsNullJsonConverter))] double TeCoefficientOfVariation,
-    [property: JsonConverter(typeof(NaNAsNullJsonConverter))] double JCoefficientOfVariation);
+    [property: JsonConverter(typeof(DataPrecisionJsonConverter))] double HsCoefficientOfVariation,
+    [property: JsonConverter(typeof(DataPrecisionJsonConverter))] double TeCoefficientOfVariation,
+    [property: JsonConverter(typeof(DataPrecisionJsonConverter))] double JCoefficientOfVariation);

@@ -151,7 +151,8 @@ public static class PointAnalysis
         var fractions = new double[points];
         for (int k = 0; k < points; k++)
         {
-            thresholds[k] = k * step;
+            // Rounded so that the thresholds read 0.3 rather than 0.30000000000000004; compared in single precision anyway.
+            thresholds[k] = Math.Round(k * step, 9);
             fractions[k] = (double)ExactSummary.CountAbove(sorted, thresholds[k]) / sorted.Length;
         }
         return new ExceedanceCurve(parameter, step, thresholds, fractions, sorted.Length);

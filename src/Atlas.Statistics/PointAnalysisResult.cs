@@ -15,7 +15,7 @@ namespace Atlas.Statistics;
 /// <param name="JointOccurrence">Joint occurrence of Hm0 and Te over the window.</param>
 /// <param name="InterAnnual">Yearly annual and seasonal means of Hs, Te and J, and their coefficients of variation.</param>
 public sealed record PointAnalysisResult(
-    [property: JsonConverter(typeof(NaNAsNullJsonConverter))] double DepthMetres,
+    [property: JsonConverter(typeof(DataPrecisionJsonConverter))] double DepthMetres,
     bool DeepWaterAssumed,
     EnergyPeriodSource EnergyPeriodSource,
     QuantileDefinition QuantileDefinition,

@@ -17,14 +17,14 @@ namespace Atlas.Statistics;
 /// <param name="Count">Number of valid steps.</param>
 /// <param name="Coverage">Valid over expected steps, 0..1 (0 when the period expects no step).</param>
 public readonly record struct SummaryStatistics(
-    [property: JsonConverter(typeof(NaNAsNullJsonConverter))] double Mean,
-    [property: JsonConverter(typeof(NaNAsNullJsonConverter))] double Sd,
-    [property: JsonConverter(typeof(NaNAsNullJsonConverter))] double Min,
-    [property: JsonConverter(typeof(NaNAsNullJsonConverter))] double Max,
-    [property: JsonConverter(typeof(NaNAsNullJsonConverter))] double P10,
-    [property: JsonConverter(typeof(NaNAsNullJsonConverter))] double P50,
-    [property: JsonConverter(typeof(NaNAsNullJsonConverter))] double P90,
-    [property: JsonConverter(typeof(NaNAsNullJsonConverter))] double P99,
+    [property: JsonConverter(typeof(DataPrecisionJsonConverter))] double Mean,
+    [property: JsonConverter(typeof(DataPrecisionJsonConverter))] double Sd,
+    [property: JsonConverter(typeof(DataPrecisionJsonConverter))] double Min,
+    [property: JsonConverter(typeof(DataPrecisionJsonConverter))] double Max,
+    [property: JsonConverter(typeof(DataPrecisionJsonConverter))] double P10,
+    [property: JsonConverter(typeof(DataPrecisionJsonConverter))] double P50,
+    [property: JsonConverter(typeof(DataPrecisionJsonConverter))] double P90,
+    [property: JsonConverter(typeof(DataPrecisionJsonConverter))] double P99,
     long Count,
     double Coverage)
 {

@@ -18,6 +18,8 @@ public static class PointApi
     public static PointCell CellOf(LocatedPoint point)
     {
         var c = point.Nearest.Cell;
-        return new PointCell(c.CellId, c.Latitude, c.Longitude, c.DepthMetres, Math.Round(point.Nearest.DistanceMetres, 1), c.CoastDistanceMetres);
+        // Depth and coast distance are stored as floats: written at their own precision, not their double expansion.
+        return new PointCell(c.CellId, c.Latitude, c.Longitude, c.DepthMetres is { } d ? Statistics.DataPrecisionJsonConverter.Round(d) : null,
+            Math.Round(point.Nearest.DistanceMetres, 1), c.CoastDistanceMetres is { } k ? Math.Round(k, 1) : null);
     }
 }

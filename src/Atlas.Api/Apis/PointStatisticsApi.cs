@@ -209,7 +209,8 @@ public static class PointStatisticsApi
     private static void Number(StringBuilder text, double value)
     {
         text.Append(',');
-        if (!double.IsNaN(value)) text.Append(value.ToString("R", CultureInfo.InvariantCulture));
+        // At the precision of the single-precision data, as in the JSON answers.
+        if (double.IsFinite(value)) text.Append(DataPrecisionJsonConverter.Round(value).ToString("R", CultureInfo.InvariantCulture));
     }
 
     private static string WindowText(YearWindow w) =>

@@ -23,4 +23,5 @@ public sealed record PointStatistics(
 public sealed record PointExceedance(ExceedanceCurve Hs, ExceedanceCurve J);
 
 /// <summary>Share of the energy flux from each direction sector over the whole window (sector 0 centred on north, clockwise).</summary>
-public sealed record PowerRose(int Sectors, double SectorWidthDegrees, IReadOnlyList<double> SectorCentresDegrees, IReadOnlyList<double> Fractions);
+public sealed record PowerRose(int Sectors, double SectorWidthDegrees, IReadOnlyList<double> SectorCentresDegrees,
+    [property: System.Text.Json.Serialization.JsonConverter(typeof(Atlas.Statistics.DataPrecisionListJsonConverter))] IReadOnlyList<double> Fractions);
