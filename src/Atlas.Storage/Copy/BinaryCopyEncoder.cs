@@ -49,28 +49,6 @@ public sealed class BinaryCopyEncoder(Stream target)
         _used += 2;
     }
 
-    /// <summary>A real, as it is (NaN included): for NOT NULL columns.</summary>
-    public void WriteReal(float value)
-    {
-        Ensure(8);
-        Int32Raw(4);
-        BinaryPrimitives.WriteSingleBigEndian(_buffer.AsSpan(_used), value);
-        _used += 4;
-    }
-
-    /// <summary>A real, or NULL when the value is absent or not finite.</summary>
-    public void WriteReal(float? value)
-    {
-        Ensure(8);
-        if (value is { } v && float.IsFinite(v))
-        {
-            Int32Raw(4);
-            BinaryPrimitives.WriteSingleBigEndian(_buffer.AsSpan(_used), v);
-            _used += 4;
-        }
-        else Int32Raw(-1);
-    }
-
     /// <summary>A one-dimensional real[] (lower bound 1), or NULL for null.</summary>
     public void WriteRealArray(float[]? values)
     {
