@@ -33,14 +33,14 @@ public sealed class DatasetCatalog(DatasetStore datasets, DatasetGeometryQueries
 
     /// <summary>The time line (Unix seconds) of every stored year, by year.</summary>
     public Task<SortedDictionary<int, long[]>> TimelinesAsync(DatasetRecord dataset, CancellationToken cancel) =>
-        CachedAsync(("timelines", dataset.Id, dataset.CreatedAtUtc), TimelineLifetime, () => datasets.TimelinesAsync(dataset.Id, cancel));
+        CachedAsync(("timelines", dataset.Id, dataset.CreatedAtUtc), TimelineLifetime, () => datasets.TimelinesAsync(dataset.Id, CancellationToken.None), cancel);
 
     public Task<StatisticsStamp> StatisticsStampAsync(DatasetRecord dataset, CancellationToken cancel) =>
-        CachedAsync(("stamp", dataset.Id, dataset.CreatedAtUtc), StampLifetime, () => geometry.StatisticsStampAsync(dataset.Id, cancel));
+        CachedAsync(("stamp", dataset.Id, dataset.CreatedAtUtc), StampLifetime, () => geometry.StatisticsStampAsync(dataset.Id, CancellationToken.None), cancel);
 
     /// <summary>When the dataset's files were last loaded: a token that moves whenever series or wet cells may have changed.</summary>
     public Task<SeriesStamp> SeriesStampAsync(DatasetRecord dataset, CancellationToken cancel) =>
-        CachedAsync(("series-stamp", dataset.Id, dataset.CreatedAtUtc), StampLifetime, () => geometry.SeriesStampAsync(dataset.Id, cancel));
+        CachedAsync(("series-stamp", dataset.Id, dataset.CreatedAtUtc), StampLifetime, () => geometry.SeriesStampAsync(dataset.Id, CancellationToken.None), cancel);
 
     /// <summary>
     /// Every cell of the dataset (wet and dry) by cell id, with positions, grid indices and depths, held in memory
@@ -78,11 +78,11 @@ public sealed class DatasetCatalog(DatasetStore datasets, DatasetGeometryQueries
 
     /// <summary>The median distance between neighbouring wet cells, metres (null with fewer than two wet cells).</summary>
     public Task<double?> TypicalSpacingMetresAsync(DatasetRecord dataset, CancellationToken cancel) =>
-        CachedAsync(("spacing", dataset.Id, dataset.CreatedAtUtc), SpacingLifetime, () => geometry.TypicalSpacingMetresAsync(dataset.Id, cancel));
+        CachedAsync(("spacing", dataset.Id, dataset.CreatedAtUtc), SpacingLifetime, () => geometry.TypicalSpacingMetresAsync(dataset.Id, CancellationToken.None), cancel);
 
     /// <summary>The envelope of the grid (wet and dry cell centres), or null when the dataset has no cell.</summary>
     public Task<(double West, double South, double East, double North)?> ExtentAsync(DatasetRecord dataset, CancellationToken cancel) =>
-        CachedAsync(("extent", dataset.Id, dataset.CreatedAtUtc), TimelineLifetime, () => geometry.GridExtentAsync(dataset.Id, cancel));
+        CachedAsync(("extent", dataset.Id, dataset.CreatedAtUtc), TimelineLifetime, () => geometry.GridExtentAsync(dataset.Id, CancellationToken.None), cancel);
 
     public void Forget(string slug) => cache.Remove(("dataset", slug));
 
@@ -108,11 +108,27 @@ public sealed class DatasetCatalog(DatasetStore datasets, DatasetGeometryQueries
         return shared!.Value;
     }
 
-    private async Task<T> CachedAsync<T>(object key, TimeSpan lifetime, Func<Task<T>> load)
+    /// <summary>
+    /// A small value kept for <paramref name="lifetime"/>. When it lapses under load, the requests that arrive together
+    /// share one reload rather than each sending the same query (which queued them all for connections, every few
+    /// seconds, behind a burst of identical queries). The load runs to its end whoever waits; a caller that gives up
+    /// stops waiting only. A failed load is forgotten so that the next request tries again.
+    /// </summary>
+    private Task<T> CachedAsync<T>(object key, TimeSpan lifetime, Func<Task<T>> load, CancellationToken cancel)
     {
-        if (cache.TryGetValue(key, out T? value)) return value!;
-        value = await load();
-        cache.Set(key, value, lifetime);
-        return value;
+        Lazy<Task<T>>? entry;
+        lock (_gate)
+        {
+            if (!cache.TryGetValue(key, out entry))
+            {
+                entry = new Lazy<Task<T>>(async () =>
+                {
+                    try { return await load(); }
+                    catch { cache.Remove(key); throw; }
+                });
+                cache.Set(key, entry, lifetime);
+            }
+        }
+        return entry!.Value.WaitAsync(cancel);
     }
 }
