@@ -88,33 +88,22 @@ public sealed class DatasetCatalog(DatasetStore datasets, DatasetGeometryQueries
 
     /// <summary>
     /// A large value loaded once per key however many requests ask for it at the same moment, then kept while it is
-    /// used; a failed load is forgotten so that the next request tries again.
+    /// used.
     /// </summary>
-    private Task<T> SharedAsync<T>(object key, Func<Task<T>> load)
-    {
-        Lazy<Task<T>>? shared;
-        lock (_gate)
-        {
-            if (!cache.TryGetValue(key, out shared))
-            {
-                shared = new Lazy<Task<T>>(async () =>
-                {
-                    try { return await load(); }
-                    catch { cache.Remove(key); throw; }
-                });
-                cache.Set(key, shared, new MemoryCacheEntryOptions { SlidingExpiration = LargeValueIdleLifetime });
-            }
-        }
-        return shared!.Value;
-    }
+    private Task<T> SharedAsync<T>(object key, Func<Task<T>> load) =>
+        LoadOnceAsync(key, load, new MemoryCacheEntryOptions { SlidingExpiration = LargeValueIdleLifetime });
 
     /// <summary>
     /// A small value kept for <paramref name="lifetime"/>. When it lapses under load, the requests that arrive together
     /// share one reload rather than each sending the same query (which queued them all for connections, every few
     /// seconds, behind a burst of identical queries). The load runs to its end whoever waits; a caller that gives up
-    /// stops waiting only. A failed load is forgotten so that the next request tries again.
+    /// stops waiting only.
     /// </summary>
-    private Task<T> CachedAsync<T>(object key, TimeSpan lifetime, Func<Task<T>> load, CancellationToken cancel)
+    private Task<T> CachedAsync<T>(object key, TimeSpan lifetime, Func<Task<T>> load, CancellationToken cancel) =>
+        LoadOnceAsync(key, load, new MemoryCacheEntryOptions { AbsoluteExpirationRelativeToNow = lifetime }).WaitAsync(cancel);
+
+    /// <summary>One load per key for all the callers that ask while it runs or is kept; a failed load is forgotten so that the next request tries again.</summary>
+    private Task<T> LoadOnceAsync<T>(object key, Func<Task<T>> load, MemoryCacheEntryOptions keep)
     {
         Lazy<Task<T>>? entry;
         lock (_gate)
@@ -126,9 +115,9 @@ public sealed class DatasetCatalog(DatasetStore datasets, DatasetGeometryQueries
                     try { return await load(); }
                     catch { cache.Remove(key); throw; }
                 });
-                cache.Set(key, entry, lifetime);
+                cache.Set(key, entry, keep);
             }
         }
-        return entry!.Value.WaitAsync(cancel);
+        return entry!.Value;
     }
 }

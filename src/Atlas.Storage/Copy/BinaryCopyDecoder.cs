@@ -69,30 +69,22 @@ public sealed class BinaryCopyDecoder(Stream source)
     }
 
     /// <summary>A one-dimensional integer[] field without NULL elements, or null for a NULL field.</summary>
-    public async ValueTask<int[]?> ReadInt32ArrayAsync(CancellationToken cancel = default)
-    {
-        var length = await ArrayLengthAsync(Int4Oid, cancel);
-        if (length < 0) return null;
-        var values = new int[length];
-        for (var i = 0; i < length; i++)
-        {
-            if (BinaryPrimitives.ReadInt32BigEndian(_buffer.AsSpan(_start)) != 4) throw new InvalidDataException("An integer[] element is not 4 bytes long.");
-            values[i] = BinaryPrimitives.ReadInt32BigEndian(_buffer.AsSpan(_start + 4));
-            _start += 8;
-        }
-        return values;
-    }
+    public ValueTask<int[]?> ReadInt32ArrayAsync(CancellationToken cancel = default) => ReadWordArrayAsync<int>(Int4Oid, "integer[]", cancel);
 
     /// <summary>A one-dimensional real[] field without NULL elements (NaN is a value), or null for a NULL field.</summary>
-    public async ValueTask<float[]?> ReadRealArrayAsync(CancellationToken cancel = default)
+    public ValueTask<float[]?> ReadRealArrayAsync(CancellationToken cancel = default) => ReadWordArrayAsync<float>(Float4Oid, "real[]", cancel);
+
+    // Both element types are 4-byte big-endian words: each is read as an integer and stored bit for bit.
+    private async ValueTask<T[]?> ReadWordArrayAsync<T>(int elementOid, string typeName, CancellationToken cancel) where T : unmanaged
     {
-        var length = await ArrayLengthAsync(Float4Oid, cancel);
+        var length = await ArrayLengthAsync(elementOid, cancel);
         if (length < 0) return null;
-        var values = new float[length];
+        var values = new T[length];
+        var words = System.Runtime.InteropServices.MemoryMarshal.Cast<T, int>(values.AsSpan());
         for (var i = 0; i < length; i++)
         {
-            if (BinaryPrimitives.ReadInt32BigEndian(_buffer.AsSpan(_start)) != 4) throw new InvalidDataException("A real[] element is not 4 bytes long.");
-            values[i] = BinaryPrimitives.ReadSingleBigEndian(_buffer.AsSpan(_start + 4));
+            if (BinaryPrimitives.ReadInt32BigEndian(_buffer.AsSpan(_start)) != 4) throw new InvalidDataException($"An element of a {typeName} field is not 4 bytes long.");
+            words[i] = BinaryPrimitives.ReadInt32BigEndian(_buffer.AsSpan(_start + 4));
             _start += 8;
         }
         return values;

@@ -57,20 +57,5 @@ public sealed record StatisticBlock(
                 Extra is null ? null : Extra.AsSpan(i * ExtraWidth, ExtraWidth).ToArray());
     }
 
-    /// <summary>The array behind a stored statistic column.</summary>
-    public float[] Column(StoredStatistic statistic) => statistic switch
-    {
-        StoredStatistic.Mean => Mean,
-        StoredStatistic.Sd => Sd,
-        StoredStatistic.Min => Min,
-        StoredStatistic.Max => Max,
-        StoredStatistic.P10 => P10,
-        StoredStatistic.P50 => P50,
-        StoredStatistic.P90 => P90,
-        StoredStatistic.P99 => P99,
-        StoredStatistic.Coverage => Coverage,
-        _ => throw new ArgumentOutOfRangeException(nameof(statistic), statistic, "Not a real-valued statistic column."),
-    };
-
     private static float? Read(float value) => float.IsNaN(value) ? null : value;
 }
