@@ -21,8 +21,9 @@ namespace Atlas.Statistics;
 public sealed class CellStatisticsCalculator
 {
     private readonly DerivedSeriesBuffers _derived = new();
-    private readonly ParameterAccumulator _hs, _te, _tp, _power, _spread, _directionality;
+    private readonly ParameterAccumulator _hs, _te, _tp, _power, _spread;
     private readonly DirectionAccumulator _direction = new();
+    private readonly DirectionalityAccumulator _directionality = new();
     private TimelineCalendar? _calendar;
 
     /// <summary>A calculator with the given settings (the defaults when null).</summary>
@@ -36,7 +37,6 @@ public sealed class CellStatisticsCalculator
         _tp = new ParameterAccumulator(WaveParameter.Tp, Options.PeriodBinning, []);
         _power = new ParameterAccumulator(WaveParameter.J, Options.PowerBinning, Options.PowerThresholdsKilowattsPerMetre);
         _spread = new ParameterAccumulator(WaveParameter.Spread, Options.SpreadBinning, []);
-        _directionality = new ParameterAccumulator(WaveParameter.D, Options.DirectionalityBinning, []);
     }
 
     /// <summary>The settings.</summary>
@@ -59,11 +59,15 @@ public sealed class CellStatisticsCalculator
             Accumulate(_tp, calendar, series.Tp);
             Accumulate(_power, calendar, derived.Power);
             Accumulate(_spread, calendar, series.Spread);
-            Accumulate(_directionality, calendar, derived.Directionality);
             if (series.Dir.Length > 0 && derived.Power.Length > 0)
             {
                 _direction.Prepare(calendar);
                 _direction.Accumulate(series.Dir, derived.Power);
+                if (series.Spread.Length > 0)
+                {
+                    _directionality.Prepare(calendar);
+                    _directionality.Accumulate(series.Dir, series.Spread, derived.Power);
+                }
             }
 
             var periods = new PeriodStatistics[calendar.PeriodsPresent.Count];
@@ -88,6 +92,7 @@ public sealed class CellStatisticsCalculator
         SummaryStatistics hs = _hs.Summarise(period, expected);
         SummaryStatistics power = _power.Summarise(period, expected);
         double coreCoverage = hasPower ? power.Coverage : hs.Coverage;
+        PeriodDirectionality directionality = _directionality.Summarise(period, expected);
         return new PeriodStatistics(
             period,
             expected,
@@ -96,8 +101,12 @@ public sealed class CellStatisticsCalculator
             _tp.Summarise(period, expected),
             power,
             _spread.Summarise(period, expected),
-            _directionality.Summarise(period, expected),
-            _direction.Summarise(period, expected),
+            directionality.AsSummary(),
+            _direction.Summarise(period, expected) with
+            {
+                DirectionalityCoefficient = directionality.Coefficient,
+                MaxPowerFromDeg = directionality.MaxPowerFromDegrees,
+            },
             _hs.Exceedances(period, hs.Count),
             _power.Exceedances(period, power.Count),
             coreCoverage < Options.LowCoverageThreshold);

@@ -3,12 +3,11 @@ using Atlas.WavePhysics;
 
 namespace Atlas.Statistics;
 
-/// <summary>The series computed from a cell's stored ones: Te (given or from Tp), power and directionality per step.</summary>
+/// <summary>The series computed from a cell's stored ones: Te (given or from Tp) and power per step.</summary>
 internal readonly ref struct DerivedSeries
 {
     public ReadOnlySpan<float> Te { get; init; }
     public ReadOnlySpan<float> Power { get; init; }
-    public ReadOnlySpan<float> Directionality { get; init; }
     public EnergyPeriodSource EnergyPeriodSource { get; init; }
     public bool DeepWaterAssumed { get; init; }
 }
@@ -22,21 +21,18 @@ internal sealed class DerivedSeriesBuffers(ArrayPool<float>? pool = null) : IDis
 {
     private float[] _te = [];
     private float[] _power = [];
-    private float[] _directionality = [];
 
     /// <summary>
     /// Te is the dataset's when it has any valid step; otherwise ratio x Tp when Tp is given (the ratio of
     /// <see cref="StatisticsOptions.AssumedSpectrum"/>); otherwise unavailable. A step with Te present but missing stays
     /// missing (Te and Tp are never mixed within one series). Power needs Hs and Te at the step and uses the group
-    /// velocity at the cell depth, deep water when the depth is unknown. The directionality coefficient comes from
-    /// the spread under the cosine-2s model.
+    /// velocity at the cell depth, deep water when the depth is unknown.
     /// </summary>
     public DerivedSeries Derive(in CellSeries series, StatisticsOptions options)
     {
         int n = series.Times.Length;
         Grow(ref _te, n);
         Grow(ref _power, n);
-        Grow(ref _directionality, n);
 
         ReadOnlySpan<float> te;
         EnergyPeriodSource source;
@@ -64,18 +60,10 @@ internal sealed class DerivedSeriesBuffers(ArrayPool<float>? pool = null) : IDis
             power = _power.AsSpan(0, n);
         }
 
-        ReadOnlySpan<float> directionality = [];
-        if (series.Spread.Length == n && n > 0)
-        {
-            WavePhysics.Directionality.Coefficients(series.Spread, _directionality.AsSpan(0, n));
-            directionality = _directionality.AsSpan(0, n);
-        }
-
         return new DerivedSeries
         {
             Te = te,
             Power = power,
-            Directionality = directionality,
             EnergyPeriodSource = source,
             DeepWaterAssumed = DispersionRelation.IsDeepWater(series.DepthMetres),
         };
@@ -104,7 +92,6 @@ internal sealed class DerivedSeriesBuffers(ArrayPool<float>? pool = null) : IDis
     {
         Return(_te);
         Return(_power);
-        Return(_directionality);
-        _te = _power = _directionality = [];
+        _te = _power = [];
     }
 }

@@ -52,23 +52,40 @@ internal sealed class DirectionAccumulator
         }
     }
 
-    public DirectionStatistics Summarise(AtlasPeriod period, long expectedSteps) =>
-        HasSeries ? Summarise(_calendar!.SlotsOf(period), expectedSteps) : DirectionStatistics.Empty;
+    public DirectionStatistics Summarise(AtlasPeriod period, long expectedSteps)
+    {
+        if (!HasSeries) return DirectionStatistics.Empty;
+        TimelineCalendar calendar = _calendar!;
+        Span<long> expectedByMonth = stackalloc long[12];
+        foreach (int month in period.Months) expectedByMonth[month - 1] = calendar.ExpectedInCalendarMonth(month);
+        return Summarise(calendar.SlotsOf(period), expectedSteps, expectedByMonth, MonthBalance.Applies(period));
+    }
 
-    /// <summary>The statistics over a set of slots (a period restricted to a window, in the point analysis).</summary>
-    public DirectionStatistics Summarise(ReadOnlySpan<int> slots, long expectedSteps)
+    /// <summary>
+    /// The statistics over a set of slots (a period restricted to a window, in the point analysis), each calendar
+    /// month weighted by <see cref="MonthBalance"/> when <paramref name="balanced"/>.
+    /// </summary>
+    public DirectionStatistics Summarise(ReadOnlySpan<int> slots, long expectedSteps, ReadOnlySpan<long> expectedByMonth, bool balanced)
     {
         if (!HasSeries) return DirectionStatistics.Empty;
         double weight = 0, cosine = 0, sine = 0;
         long n = 0;
-        Span<double> sectors = stackalloc double[Sectors];
+        Span<long> valid = stackalloc long[12];
         foreach (int slot in slots)
         {
             n += _counts[slot];
-            weight += _sums[3 * slot];
-            cosine += _sums[3 * slot + 1];
-            sine += _sums[3 * slot + 2];
-            for (int k = 0; k < Sectors; k++) sectors[k] += _sectorSums[slot * Sectors + k];
+            valid[slot % 12] += _counts[slot];
+        }
+        Span<double> weights = stackalloc double[12];
+        bool weighted = balanced && MonthBalance.TryWeights(expectedByMonth, valid, weights);
+        Span<double> sectors = stackalloc double[Sectors];
+        foreach (int slot in slots)
+        {
+            double w = weighted ? weights[slot % 12] : 1;
+            weight += w * _sums[3 * slot];
+            cosine += w * _sums[3 * slot + 1];
+            sine += w * _sums[3 * slot + 2];
+            for (int k = 0; k < Sectors; k++) sectors[k] += w * _sectorSums[slot * Sectors + k];
         }
         return Build(n, expectedSteps, weight, cosine, sine, sectors);
     }

@@ -84,6 +84,23 @@ public static class ExactQuantile
         return t >= 0.5 ? b - difference * (1 - t) : a + difference * t;
     }
 
+    /// <summary>
+    /// The zero-based virtual index of a definition, as NumPy computes it: types 1 and 2 n p - 1, type 3 n p - 3/2,
+    /// types 4 to 9 n p + alpha + p (1 - alpha - beta) - 1 (type 7: (n - 1) p).
+    /// </summary>
+    internal static double VirtualIndexOf(QuantileDefinition definition, int n, double p) => definition switch
+    {
+        QuantileDefinition.HyndmanFanType1 or QuantileDefinition.HyndmanFanType2 => n * p - 1,
+        QuantileDefinition.HyndmanFanType3 => n * p - 1.5,
+        QuantileDefinition.HyndmanFanType4 => VirtualIndex(n, p, 0, 1),
+        QuantileDefinition.HyndmanFanType5 => VirtualIndex(n, p, 0.5, 0.5),
+        QuantileDefinition.HyndmanFanType6 => VirtualIndex(n, p, 0, 0),
+        QuantileDefinition.HyndmanFanType7 => (n - 1) * p,
+        QuantileDefinition.HyndmanFanType8 => VirtualIndex(n, p, 1 / 3.0, 1 / 3.0),
+        QuantileDefinition.HyndmanFanType9 => VirtualIndex(n, p, 3 / 8.0, 3 / 8.0),
+        _ => throw new ArgumentOutOfRangeException(nameof(definition), definition, "Unknown quantile definition."),
+    };
+
     private static double VirtualIndex(int n, double p, double alpha, double beta) => n * p + (alpha + p * (1 - alpha - beta)) - 1;
 
     private static (int Previous, int Next) Neighbours(double v, int n)

@@ -159,6 +159,156 @@ public sealed class FixedBinHistogram
     }
 
     /// <summary>
+    /// Estimated quantiles of several histograms on the same bins read as one, each value of part i weighing
+    /// <paramref name="weights"/>[i] (the month-balanced climatology), as the weighted type-7 quantile of
+    /// <see cref="MethodNotes.WeightedPercentiles"/>: the weighted rank p (W - w) is sought, W the total weight and w
+    /// the weight of the largest value, so that equal weights give the order statistics at (n - 1) p of
+    /// <see cref="EstimateQuantiles"/>. Inside a bin its values are taken as evenly spread across it, each carrying the
+    /// bin's mean weight; the two values whose weighted ranks enclose the sought one are estimated so and interpolated,
+    /// and clamped to the recorded minimum and maximum (p = 0 and p = 1 give them exactly). Probabilities must
+    /// increase; NaN when the parts hold no weighted value.
+    /// </summary>
+    /// <exception cref="ArgumentException">The parts have different bins, a weight is negative, or the probabilities are not increasing within 0..1.</exception>
+    public static void EstimateWeightedQuantiles(ReadOnlySpan<FixedBinHistogram> parts, ReadOnlySpan<double> weights,
+        ReadOnlySpan<double> probabilities, Span<double> results)
+    {
+        if (weights.Length < parts.Length) throw new ArgumentException($"{weights.Length} weights for {parts.Length} histograms.", nameof(weights));
+        if (results.Length < probabilities.Length)
+            throw new ArgumentException($"{results.Length} results for {probabilities.Length} probabilities.", nameof(results));
+        double total = 0, minimum = double.PositiveInfinity, maximum = double.NegativeInfinity, lastWeight = 0;
+        long count = 0;
+        int lowBlock = int.MaxValue, highBlock = -1;
+        for (int i = 0; i < parts.Length; i++)
+        {
+            FixedBinHistogram part = parts[i];
+            if (!ReferenceEquals(part.Binning, parts[0].Binning) && part.Binning != parts[0].Binning)
+                throw new ArgumentException("Histograms read together must share their bins.", nameof(parts));
+            if (!(weights[i] >= 0) || double.IsInfinity(weights[i]))
+                throw new ArgumentException($"Weight {i} is {weights[i]}; weights must be finite and not negative.", nameof(weights));
+            if (part.Count == 0 || weights[i] == 0) continue;
+            total += weights[i] * part.Count;
+            count += part.Count;
+            minimum = Math.Min(minimum, part.Minimum);
+            if (part.Maximum > maximum) { maximum = part.Maximum; lastWeight = weights[i]; }
+            lowBlock = Math.Min(lowBlock, part.LowBlock);
+            highBlock = Math.Max(highBlock, part.HighBlock);
+        }
+        for (int q = 0; q < probabilities.Length; q++)
+        {
+            if (!(probabilities[q] >= 0 && probabilities[q] <= 1) || (q > 0 && probabilities[q] < probabilities[q - 1]))
+                throw new ArgumentException($"Probability {q} is {probabilities[q]}; probabilities must increase within 0..1.", nameof(probabilities));
+        }
+        if (!(total > 0))
+        {
+            results[..probabilities.Length].Fill(double.NaN);
+            return;
+        }
+
+        var walk = new WeightedWalk(parts, weights, lowBlock, highBlock);
+        for (int q = 0; q < probabilities.Length; q++)
+        {
+            double p = probabilities[q];
+            if (p == 0) { results[q] = minimum; continue; }
+            if (p == 1 || count == 1) { results[q] = maximum; continue; }
+            // The weighted rank sought, in units of weight before the value.
+            double target = p * (total - lastWeight);
+            (double lower, double fraction) = walk.Estimate(target);
+            double upper = walk.EstimateNext();
+            results[q] = Math.Clamp(ExactQuantile.Interpolate(lower, upper, fraction), minimum, maximum);
+        }
+    }
+
+    /// <summary>A forward walk over the weighted bins of several histograms (see <see cref="EstimateWeightedQuantiles"/>).</summary>
+    private ref struct WeightedWalk
+    {
+        private readonly ReadOnlySpan<FixedBinHistogram> _parts;
+        private readonly ReadOnlySpan<double> _weights;
+        private readonly int _highBlock, _lastBin;
+        private readonly double _width;
+        private int _block, _bin, _index;
+        private double _beforeBlock, _blockMass, _beforeBin, _binMass;
+        private long _binCount;
+
+        public WeightedWalk(ReadOnlySpan<FixedBinHistogram> parts, ReadOnlySpan<double> weights, int lowBlock, int highBlock)
+        {
+            _parts = parts;
+            _weights = weights;
+            _highBlock = highBlock;
+            _lastBin = parts[0].LastBin;
+            _width = parts[0].Binning.BinWidth;
+            _block = lowBlock;
+            _blockMass = WeightedCount(parts, weights, lowBlock, coarse: true);
+            _bin = lowBlock << BlockShift;
+            LoadBin();
+        }
+
+        /// <summary>The estimated value whose weighted rank is at or below the target, the next one's fraction of the way.</summary>
+        public (double Value, double Fraction) Estimate(double target)
+        {
+            if (target >= _beforeBlock + _blockMass)
+            {
+                while (target >= _beforeBlock + _blockMass && _block < _highBlock)
+                {
+                    _beforeBlock += _blockMass;
+                    _block++;
+                    _blockMass = WeightedCount(_parts, _weights, _block, coarse: true);
+                }
+                _bin = _block << BlockShift;
+                _beforeBin = _beforeBlock;
+                LoadBin();
+            }
+            while ((target >= _beforeBin + _binMass || _binCount == 0) && _bin < Math.Min((_block + 1) << BlockShift, _lastBin + 1) - 1)
+            {
+                _beforeBin += _binMass;
+                _bin++;
+                LoadBin();
+            }
+            double each = _binMass / Math.Max(_binCount, 1);
+            double position = each > 0 ? (target - _beforeBin) / each : 0;
+            _index = (int)Math.Clamp(Math.Floor(position), 0, Math.Max(_binCount - 1, 0));
+            return (ValueAt(_bin, _index, _binCount), Math.Clamp(position - _index, 0, 1));
+        }
+
+        /// <summary>The estimated value after the last one estimated (in the same bin, or the first of the next bin with values).</summary>
+        public readonly double EstimateNext()
+        {
+            if (_index + 1 < _binCount) return ValueAt(_bin, _index + 1, _binCount);
+            int last = ((_highBlock + 1) << BlockShift) - 1;
+            for (int bin = _bin + 1; bin <= Math.Min(last, _lastBin); bin++)
+            {
+                long c = 0;
+                foreach (FixedBinHistogram part in _parts) c += part.Fine[bin];
+                if (c > 0) return ValueAt(bin, 0, c);
+            }
+            return ValueAt(_bin, _index, _binCount);
+        }
+
+        private readonly double ValueAt(int bin, long index, long binCount)
+        {
+            // The overflow bin's values lie between the bound and the maximum; the caller's clamp keeps them below it.
+            return bin * _width + _width * (index + 0.5) / Math.Max(binCount, 1);
+        }
+
+        private void LoadBin()
+        {
+            _binMass = WeightedCount(_parts, _weights, _bin, coarse: false);
+            _binCount = 0;
+            foreach (FixedBinHistogram part in _parts) _binCount += part.Fine[_bin];
+        }
+    }
+
+    private static double WeightedCount(ReadOnlySpan<FixedBinHistogram> parts, ReadOnlySpan<double> weights, int index, bool coarse)
+    {
+        double mass = 0;
+        for (int i = 0; i < parts.Length; i++)
+        {
+            int[] counts = coarse ? parts[i].Coarse : parts[i].Fine;
+            if (index < counts.Length) mass += weights[i] * counts[index];
+        }
+        return mass;
+    }
+
+    /// <summary>
     /// A forward walk over the combined bins that estimates order statistics of increasing rank, summing the parts'
     /// block counts to skip whole blocks and their bin counts only inside the block that holds the rank.
     /// </summary>

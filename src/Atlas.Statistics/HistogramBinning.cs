@@ -21,9 +21,6 @@ public sealed record HistogramBinning(double BinWidth, double UpperBound)
     /// <summary>Directional spread: 0.1 degree bins up to 180 degrees.</summary>
     public static HistogramBinning DefaultSpread { get; } = new(0.1, 180);
 
-    /// <summary>Directionality coefficient: 0.001 bins up to 1.</summary>
-    public static HistogramBinning DefaultDirectionality { get; } = new(0.001, 1);
-
     /// <summary>Number of equal bins below the upper bound.</summary>
     public int EqualBinCount => (int)Math.Round(UpperBound / BinWidth);
 

@@ -17,6 +17,7 @@ internal sealed class ParameterAccumulator
     private readonly Vector256<float>[] _thresholdVectors;
     private FixedBinHistogram[] _yearHistograms = [];
     private RunningMoments[] _slots = [];
+    private readonly RunningMoments[] _monthMoments = new RunningMoments[12];
     private long[] _slotExceedances = [];
     private TimelineCalendar? _calendar;
     private double _shift;
@@ -130,7 +131,11 @@ internal sealed class ParameterAccumulator
         }
     }
 
-    /// <summary>The summary of a period of the current cell; <see cref="SummaryStatistics.Empty"/>-like when absent.</summary>
+    /// <summary>
+    /// The summary of a period of the current cell; <see cref="SummaryStatistics.Empty"/>-like when absent. Seasons and
+    /// the annual period are month-balanced (<see cref="MonthBalance"/>): the mean is the expected-step-weighted mean
+    /// of the monthly means, the deviation that of the weighted mixture, the percentiles weighted histogram estimates.
+    /// </summary>
     public SummaryStatistics Summarise(AtlasPeriod period, long expectedSteps)
     {
         TimelineCalendar calendar = _calendar!;
@@ -142,23 +147,77 @@ internal sealed class ParameterAccumulator
         if (n == 0) return SummaryStatistics.Empty with { Coverage = coverage };
 
         Span<double> quantiles = stackalloc double[Probabilities.Length];
+        Span<double> weights = stackalloc double[12];
+        if (MonthBalance.Applies(period) && BalanceWeights(period, weights, out RunningMoments[] months))
+        {
+            double weightSum = 0, weightedMean = 0;
+            for (int m = 0; m < 12; m++)
+            {
+                if (weights[m] == 0) continue;
+                double share = weights[m] * months[m].Count;
+                weightSum += share;
+                weightedMean += share * months[m].Mean;
+            }
+            weightedMean /= weightSum;
+            double variance = 0;
+            for (int m = 0; m < 12; m++)
+            {
+                if (weights[m] == 0) continue;
+                double share = weights[m] * months[m].Count, offset = months[m].Mean - weightedMean;
+                variance += share * (months[m].PopulationVariance + offset * offset);
+            }
+            ReadOnlySpan<FixedBinHistogram> parts = HistogramsOf(period);
+            Span<double> partWeights = stackalloc double[parts.Length];
+            IReadOnlyList<int> periodMonths = period.Months;
+            for (int i = 0; i < parts.Length; i++) partWeights[i] = weights[periodMonths[i] - 1];
+            FixedBinHistogram.EstimateWeightedQuantiles(parts, partWeights, Probabilities, quantiles);
+            return new SummaryStatistics(weightedMean, Math.Sqrt(variance / weightSum), moments.Minimum, moments.Maximum,
+                quantiles[0], quantiles[1], quantiles[2], quantiles[3], n, coverage);
+        }
+
         FixedBinHistogram.EstimateQuantiles(HistogramsOf(period), Probabilities, quantiles);
         return new SummaryStatistics(moments.Mean, moments.PopulationStandardDeviation, moments.Minimum, moments.Maximum,
             quantiles[0], quantiles[1], quantiles[2], quantiles[3], n, coverage);
     }
 
-    /// <summary>Exceedance fractions of a period at the accumulator's thresholds (NaN fractions when no step is valid).</summary>
+    /// <summary>
+    /// Exceedance fractions of a period at the accumulator's thresholds (NaN fractions when no step is valid);
+    /// month-balanced for seasons and the annual period, as <see cref="Summarise"/>.
+    /// </summary>
     public ExceedanceFraction[] Exceedances(AtlasPeriod period, long validSteps)
     {
         var result = new ExceedanceFraction[_thresholds.Length];
         ReadOnlySpan<int> slots = HasSeries ? _calendar!.SlotsOf(period) : [];
+        Span<double> weights = stackalloc double[12];
+        bool balanced = HasSeries && validSteps > 0 && MonthBalance.Applies(period) && BalanceWeights(period, weights, out _);
+        double weightSum = 0;
+        if (balanced)
+            foreach (int slot in slots) weightSum += weights[slot % 12] * _slots[slot].Count;
         for (int t = 0; t < _thresholds.Length; t++)
         {
-            long above = 0;
-            foreach (int slot in slots) above += _slotExceedances[slot * _thresholds.Length + t];
-            result[t] = new ExceedanceFraction(_thresholds[t], HasSeries && validSteps > 0 ? (double)above / validSteps : double.NaN);
+            double above = 0;
+            foreach (int slot in slots)
+            {
+                long count = _slotExceedances[slot * _thresholds.Length + t];
+                above += balanced ? weights[slot % 12] * count : count;
+            }
+            double fraction = !HasSeries || validSteps <= 0 ? double.NaN : balanced ? above / weightSum : above / validSteps;
+            result[t] = new ExceedanceFraction(_thresholds[t], fraction);
         }
         return result;
+    }
+
+    /// <summary>The month weights of a climatological period and its moments per calendar month; false when they are equal.</summary>
+    private bool BalanceWeights(AtlasPeriod period, Span<double> weights, out RunningMoments[] months)
+    {
+        TimelineCalendar calendar = _calendar!;
+        months = _monthMoments;
+        for (int m = 0; m < 12; m++) months[m] = new RunningMoments(_shift);
+        foreach (int slot in calendar.SlotsOf(period)) months[slot % 12].Merge(_slots[slot]);
+        Span<long> expected = stackalloc long[12], valid = stackalloc long[12];
+        foreach (int month in period.Months) expected[month - 1] = calendar.ExpectedInCalendarMonth(month);
+        for (int m = 0; m < 12; m++) valid[m] = months[m].Count;
+        return MonthBalance.TryWeights(expected, valid, weights);
     }
 
     /// <summary>Forgets the current cell, touching only what it used.</summary>

@@ -32,18 +32,14 @@ public sealed record StatisticsOptions
     /// <summary>Histogram bins for spread percentiles in the layer pass.</summary>
     public HistogramBinning SpreadBinning { get; init; } = HistogramBinning.DefaultSpread;
 
-    /// <summary>Histogram bins for directionality-coefficient percentiles in the layer pass.</summary>
-    public HistogramBinning DirectionalityBinning { get; init; } = HistogramBinning.DefaultDirectionality;
-
     /// <summary>The bins used for a parameter's percentiles.</summary>
-    /// <exception cref="ArgumentException">dir and depth have no histogram.</exception>
+    /// <exception cref="ArgumentException">dir, d and depth have no histogram (d of a period is one value, from its mean resolved power).</exception>
     public HistogramBinning BinningFor(WaveParameter parameter) => parameter switch
     {
         WaveParameter.Hs => HsBinning,
         WaveParameter.Te or WaveParameter.Tp => PeriodBinning,
         WaveParameter.J => PowerBinning,
         WaveParameter.Spread => SpreadBinning,
-        WaveParameter.D => DirectionalityBinning,
         _ => throw new ArgumentException($"Parameter '{parameter.Symbol()}' has no histogram.", nameof(parameter)),
     };
 
@@ -59,7 +55,6 @@ public sealed record StatisticsOptions
         PeriodBinning.Validate(nameof(PeriodBinning));
         PowerBinning.Validate(nameof(PowerBinning));
         SpreadBinning.Validate(nameof(SpreadBinning));
-        DirectionalityBinning.Validate(nameof(DirectionalityBinning));
     }
 
     private static void CheckThresholds(IReadOnlyList<double> thresholds, string name)

@@ -5,9 +5,17 @@ namespace Atlas.Statistics;
 /// the same month, the years present, and how many steps each period expects.
 /// </summary>
 /// <remarks>
+/// <para>
 /// Steps are grouped into slots, one per (year, month) from the first year to the last: slot = 12 (year - first
 /// year) + month - 1. Every period is a union of slots, so statistics are accumulated per slot (or per calendar
 /// month) and merged. Built once per dataset timeline; the steps need not be sorted (runs are then shorter).
+/// </para>
+/// <para>
+/// Expected steps are counted against the calendar, not the timeline: a month expects its calendar length divided
+/// by the nominal step (the most frequent interval between consecutive steps, rounded to whole steps), and every
+/// month of the record's years counts, so the months before the record starts and after it ends are missing. A month
+/// holding more steps than that (an irregular timeline) expects the steps it holds.
+/// </para>
 /// </remarks>
 public sealed class TimelineCalendar
 {
@@ -15,6 +23,8 @@ public sealed class TimelineCalendar
     private readonly int[] _stepSlots;
     private readonly StepRun[] _runs;
     private readonly long[] _slotSteps;
+    private readonly long[] _slotExpected;
+    private readonly long[] _monthExpected = new long[12];
     private readonly Dictionary<AtlasPeriod, int[]> _periodSlots = [];
 
     /// <summary>Builds the calendar of a timeline.</summary>
@@ -64,6 +74,15 @@ public sealed class TimelineCalendar
         if (_times.Length > 0) runs.Add(new StepRun(runStart, _times.Length - runStart, _stepSlots[^1]));
         _runs = [.. runs];
 
+        NominalStepSeconds = ModalInterval(_times);
+        _slotExpected = new long[_slotSteps.Length];
+        for (int slot = 0; slot < _slotSteps.Length; slot++)
+        {
+            long calendar = ExpectedInMonth(FirstYear + slot / 12, slot % 12 + 1);
+            _slotExpected[slot] = Math.Max(calendar, _slotSteps[slot]);
+            _monthExpected[slot % 12] += _slotExpected[slot];
+        }
+
         var years = new List<int>();
         for (int y = 0; y < YearSpan; y++)
             if (_slotSteps.AsSpan(12 * y, 12).ContainsAnyExcept(0L)) years.Add(FirstYear + y);
@@ -107,12 +126,37 @@ public sealed class TimelineCalendar
     /// <summary>The calendar month (1 = January) of a slot.</summary>
     public static int MonthOfSlot(int slot) => slot % 12 + 1;
 
-    /// <summary>Steps of the timeline in the period (0 when it has none).</summary>
+    /// <summary>
+    /// The nominal step, s: the most frequent interval between consecutive steps (the shorter one on a tie); one hour
+    /// when the timeline has fewer than two steps.
+    /// </summary>
+    public long NominalStepSeconds { get; }
+
+    /// <summary>
+    /// Steps the period expects: the calendar length of its months within the record's years over the nominal step
+    /// (see remarks); 0 when the timeline is empty.
+    /// </summary>
     public long ExpectedSteps(AtlasPeriod period)
     {
         long n = 0;
-        foreach (int s in SlotsOf(period)) n += _slotSteps[s];
+        for (int slot = 0; slot < _slotExpected.Length; slot++)
+            if (period.Contains(FirstYear + slot / 12, slot % 12 + 1)) n += _slotExpected[slot];
         return n;
+    }
+
+    /// <summary>Steps a slot expects (its calendar length over the nominal step, or the steps it holds when more).</summary>
+    public long ExpectedInSlot(int slot) => _slotExpected[slot];
+
+    /// <summary>Steps a calendar month (1 = January) expects over all the record's years.</summary>
+    public long ExpectedInCalendarMonth(int month) => _monthExpected[month - 1];
+
+    /// <summary>Steps any calendar month expects at the nominal step, also outside the record (a winter's December before it starts).</summary>
+    public long ExpectedInMonth(int year, int month)
+    {
+        if (year < AtlasPeriod.FirstYear || year > AtlasPeriod.LastYear || _times.Length == 0) return 0;
+        var first = new DateTimeOffset(year, month, 1, 0, 0, 0, TimeSpan.Zero);
+        long seconds = (long)(first.AddMonths(1) - first).TotalSeconds;
+        return (seconds + NominalStepSeconds / 2) / NominalStepSeconds;
     }
 
     /// <summary>Steps of the timeline in a slot.</summary>
@@ -129,6 +173,26 @@ public sealed class TimelineCalendar
 
     /// <summary>True when the timeline is exactly this one (so a calendar can be reused from cell to cell).</summary>
     public bool HasTimes(ReadOnlySpan<long> unixSeconds) => unixSeconds.SequenceEqual(_times);
+
+    private static long ModalInterval(long[] times)
+    {
+        if (times.Length < 2) return 3600;
+        var counts = new Dictionary<long, int>();
+        long previous = times[0];
+        for (int i = 1; i < times.Length; i++)
+        {
+            long interval = times[i] - previous;
+            previous = times[i];
+            if (interval <= 0) continue;
+            counts[interval] = counts.GetValueOrDefault(interval) + 1;
+        }
+        if (counts.Count == 0) return 3600;
+        long best = 0;
+        int bestCount = 0;
+        foreach ((long interval, int count) in counts)
+            if (count > bestCount || (count == bestCount && interval < best)) { best = interval; bestCount = count; }
+        return best;
+    }
 
     private static (int Year, int Month) YearMonthOf(long unixSeconds, int index)
     {

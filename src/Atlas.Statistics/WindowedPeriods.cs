@@ -14,14 +14,17 @@ internal sealed class WindowedPeriods
     public WindowedPeriods(TimelineCalendar calendar, AnalysisWindow? window)
     {
         Calendar = calendar;
+        Window = window;
         _included = new bool[calendar.SlotCount];
+        // Every month of the record's years inside the window is included, with or without steps: the months without
+        // any are missing, and count as expected (calendar-true coverage).
         for (int s = 0; s < _included.Length; s++)
         {
-            _included[s] = calendar.StepsInSlot(s) > 0 && (window?.Contains(calendar.YearOfSlot(s), TimelineCalendar.MonthOfSlot(s)) ?? true);
+            _included[s] = window?.Contains(calendar.YearOfSlot(s), TimelineCalendar.MonthOfSlot(s)) ?? true;
             if (_included[s]) StepsInWindow += calendar.StepsInSlot(s);
         }
 
-        var periods = new List<(AtlasPeriod, int[], long)>();
+        var periods = new List<WindowPeriod>();
         _monthOfSlot = new int[calendar.SlotCount];
         _seasonOfSlot = new int[calendar.SlotCount];
         _yearOfSlot = new int[calendar.SlotCount];
@@ -32,7 +35,11 @@ internal sealed class WindowedPeriods
         {
             int[] slots = [.. calendar.SlotsOf(period).ToArray().Where(s => _included[s])];
             if (slots.Length == 0) continue;
-            long expected = slots.Sum(calendar.StepsInSlot);
+            var expectedByMonth = new long[12];
+            for (int s = 0; s < _included.Length; s++)
+                if (_included[s] && period.Contains(calendar.YearOfSlot(s), TimelineCalendar.MonthOfSlot(s)))
+                    expectedByMonth[s % 12] += calendar.ExpectedInSlot(s);
+            long expected = expectedByMonth.Sum();
             int[]? ofSlot = period.Kind switch
             {
                 PeriodKind.Month => _monthOfSlot,
@@ -42,20 +49,24 @@ internal sealed class WindowedPeriods
             };
             if (ofSlot is null) _annual = periods.Count;
             else foreach (int s in slots) ofSlot[s] = periods.Count;
-            periods.Add((period, slots, expected));
+            periods.Add(new WindowPeriod(period, slots, expected, expectedByMonth));
         }
         Periods = periods;
         for (int s = 0; s < _included.Length; s++)
-            if (_included[s] && (_annual < 0 || _monthOfSlot[s] < 0 || _seasonOfSlot[s] < 0 || _yearOfSlot[s] < 0))
+            if (_included[s] && calendar.StepsInSlot(s) > 0 && (_annual < 0 || _monthOfSlot[s] < 0 || _seasonOfSlot[s] < 0 || _yearOfSlot[s] < 0))
                 throw new InvalidOperationException($"Slot {s} of the window lacks its month, season, year or annual period.");
     }
 
     public TimelineCalendar Calendar { get; }
 
+    /// <summary>The window, or null for the whole record.</summary>
+    public AnalysisWindow? Window { get; }
+
     public long StepsInWindow { get; }
 
-    public IReadOnlyList<(AtlasPeriod Period, int[] Slots, long Expected)> Periods { get; }
+    public IReadOnlyList<WindowPeriod> Periods { get; }
 
+    /// <summary>True when the slot is inside the window (it may hold no step: a missing month).</summary>
     public bool Includes(int slot) => _included[slot];
 
     public int IndexOf(AtlasPeriod period)
@@ -112,31 +123,45 @@ internal sealed class WindowedPeriods
         var slotCounts = new int[_included.Length];
         foreach (long key in sortedKeys) slotCounts[(int)(key & 0xFFFF_FFFF)]++;
         var counts = new int[Periods.Count];
+        var monthCounts = new long[Periods.Count * 12];
         for (int s = 0; s < slotCounts.Length; s++)
         {
             if (slotCounts[s] == 0) continue;
             counts[_monthOfSlot[s]] += slotCounts[s];
             counts[_seasonOfSlot[s]] += slotCounts[s];
             counts[_yearOfSlot[s]] += slotCounts[s];
+            monthCounts[_monthOfSlot[s] * 12 + s % 12] += slotCounts[s];
+            monthCounts[_seasonOfSlot[s] * 12 + s % 12] += slotCounts[s];
+            monthCounts[_yearOfSlot[s] * 12 + s % 12] += slotCounts[s];
+            if (_annual >= 0) monthCounts[_annual * 12 + s % 12] += slotCounts[s];
         }
-        if (sortedKeys.IsEmpty) return new SortedPeriodValues(counts); // also when the window holds no slot (and no annual)
+        if (sortedKeys.IsEmpty) return new SortedPeriodValues(counts, monthCounts); // also when the window holds no slot (and no annual)
         counts[_annual] = sortedKeys.Length;
-        var sorted = new SortedPeriodValues(counts);
-        (double[] values, int[] starts) = sorted.Runs;
+        var sorted = new SortedPeriodValues(counts, monthCounts);
+        (double[] values, byte[] months, int[] starts) = sorted.Runs;
         int[] next = [.. starts];
         // The annual run is every value in order; the other three a stable scatter. A fixed four writes per value,
         // with no loop over a slot's periods, runs about twice as fast as the general form.
+        // Seasons and the annual run also keep each value's calendar month, for the month-balanced statistics.
         Span<double> annual = values.AsSpan(starts[_annual], sortedKeys.Length);
+        Span<byte> annualMonths = months.AsSpan(starts[_annual], sortedKeys.Length);
         for (int i = 0; i < sortedKeys.Length; i++)
         {
             long key = sortedKeys[i];
             double value = BitConverter.Int32BitsToSingle((int)(key >> 32));
             int slot = (int)(key & 0xFFFF_FFFF);
+            byte month = (byte)(slot % 12);
             annual[i] = value;
+            annualMonths[i] = month;
             values[next[_monthOfSlot[slot]]++] = value;
-            values[next[_seasonOfSlot[slot]]++] = value;
+            int season = next[_seasonOfSlot[slot]]++;
+            values[season] = value;
+            months[season] = month;
             values[next[_yearOfSlot[slot]]++] = value;
         }
         return sorted;
     }
 }
+
+/// <summary>A period of a point analysis window: its slots with steps, the steps it expects (calendar-true), and those per calendar month.</summary>
+internal sealed record WindowPeriod(AtlasPeriod Period, int[] Slots, long Expected, long[] ExpectedByMonth);

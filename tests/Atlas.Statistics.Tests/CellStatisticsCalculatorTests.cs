@@ -29,9 +29,12 @@ public class CellStatisticsCalculatorTests(InventedSeriesReference reference)
     private static JsonObject Periods(JsonNode expected) => expected["periods"]!.AsObject();
 
     // NumPy groupby by calendar month, season (by calendar month across years), annual and year, in float64
-    // (reference_statistics.py). Means of stored single-precision values are computed in double, so they agree to
-    // 1e-12; power is stored per step in single precision (and its group velocity tabulated to 1e-7), so 3e-7.
-    // Percentiles come from histograms: within one bin width (0.01 m, 0.01 s, 0.1 kW/m, 0.1 degree).
+    // (reference_statistics.py), seasons and annual month-balanced with numpy.average weights. Means of stored
+    // single-precision values are computed in double, so they agree to 1e-12; power is stored per step in single
+    // precision (and its group velocity tabulated to 1e-7), so 3e-7. Percentiles come from histograms: within one
+    // bin width (0.01 m, 0.01 s, 0.1 kW/m, 0.1 degree). The period directionality coefficient against the script's
+    // independent grid evaluation of the cosine-2s model (0.25-degree quadrature, 0.05-degree search): 1e-4 in d,
+    // 0.1 degree in its direction.
     [Fact]
     public void PeriodStatisticsMatchNumPyGroupByForMonthsSeasonsAnnualAndYears()
     {
@@ -49,11 +52,15 @@ public class CellStatisticsCalculatorTests(InventedSeriesReference reference)
             ReferenceAssert.Summary(e["tp"], period.Tp, $"{name} tp", 1e-12, 0, 0.01 + 1e-9);
             ReferenceAssert.Summary(e["spread"], period.Spread, $"{name} spread", 1e-12, 0, 0.1 + 1e-9);
             ReferenceAssert.Summary(e["j"], period.J, $"{name} j", 3e-7, 3e-7, 0.1 + 1e-4);
-            Assert.True(period.D.Count == period.Spread.Count, $"{name}: d needs a spread at each step");
+            Assert.Equal(e["dCount"]!.GetValue<long>(), period.D.Count);
+            Assert.Equal(ReferenceAssert.Number(e["d"]), period.Direction.DirectionalityCoefficient, 1e-4);
+            Assert.Equal(period.D.Mean, period.Direction.DirectionalityCoefficient);
+            Assert.Equal(0, Math.IEEERemainder(ReferenceAssert.Number(e["dMaxFrom"]) - period.Direction.MaxPowerFromDeg, 360), 0.1);
         }
     }
 
-    // Fractions of steps above the thresholds (numpy mean of v > t, compared in float32). Hs exactly; power may sit
+    // Fractions of steps above the thresholds (numpy mean of v > t, compared in float32; seasons and annual
+    // month-balanced, the weight above over the total). Hs to rounding (1e-12); power may sit
     // on the other side of a threshold at a step because of single-precision storage, so within 2 steps.
     [Fact]
     public void ExceedanceFractionsMatchNumPy()
@@ -63,7 +70,7 @@ public class CellStatisticsCalculatorTests(InventedSeriesReference reference)
         {
             JsonNode e = Periods(reference.Expected)[period.Period.Name]!;
             for (int t = 0; t < period.HsExceedance.Count; t++)
-                Assert.Equal(ReferenceAssert.Number(e["hsExceedance"]![t]), period.HsExceedance[t].Fraction, 1e-15);
+                Assert.Equal(ReferenceAssert.Number(e["hsExceedance"]![t]), period.HsExceedance[t].Fraction, 1e-12);
             for (int t = 0; t < period.PowerExceedance.Count; t++)
                 Assert.Equal(ReferenceAssert.Number(e["jExceedance"]![t]), period.PowerExceedance[t].Fraction, 2.0 / period.J.Count);
         }
@@ -108,7 +115,7 @@ public class CellStatisticsCalculatorTests(InventedSeriesReference reference)
         Assert.True(Math.Abs(january.J.Mean - ofMeans) > 0.3 * ofMeans);
     }
 
-    // Coverage is valid steps over the timeline's steps in the period (common practice): January complete, February
+    // Coverage is valid steps over the calendar's steps in the period: January complete, February
     // with every other step missing, March with nothing but NaN and negative heights. The default threshold 0.8 flags
     // February and March, not January.
     [Fact]
@@ -136,7 +143,10 @@ public class CellStatisticsCalculatorTests(InventedSeriesReference reference)
         Assert.True(feb.LowCoverage);
         Assert.True(mar.LowCoverage);
         PeriodStatistics annual = result.Find(AtlasPeriod.Annual)!;
-        Assert.Equal((744 + 336) / (double)n, annual.Hs.Coverage, 1e-15);
+        // Calendar-true: the annual period of a record of 2011 expects all 8,760 hours of 2011 (DESIGN.md coverage rule).
+        Assert.Equal(8760, annual.ExpectedSteps);
+        Assert.Equal((744 + 336) / 8760.0, annual.Hs.Coverage, 1e-15);
+        Assert.True(annual.LowCoverage);
         Assert.Null(result.Find(AtlasPeriod.Month(4)));
         Assert.Null(result.Find(AtlasPeriod.Jja));
     }
@@ -199,8 +209,11 @@ public class CellStatisticsCalculatorTests(InventedSeriesReference reference)
         }
     }
 
-    // CDO's yseasmean convention (from memory), as the atlas defines its seasons: DJF gathers every December,
-    // January and February by calendar month; December 2001 is not moved to the winter of 2002.
+    // CDO's yseasmean convention (from memory), as the atlas defines its climatological seasons: DJF gathers every
+    // December, January and February by calendar month; December 2001 is not moved to the winter of 2002. The season
+    // is month-balanced: one step a month at the nominal (31-day) step, so January and December each have both
+    // their steps, February one of its two, which then weighs twice: (1 + 4 + 2 x 2 + 3 + 6) / 6 = 3, where the pooled
+    // mean would be 16 / 5 = 3.2.
     [Fact]
     public void SeasonsGatherCalendarMonthsAcrossYears()
     {
@@ -208,7 +221,7 @@ public class CellStatisticsCalculatorTests(InventedSeriesReference reference)
         long[] times = [T(2001, 1), T(2001, 2), T(2001, 12), T(2002, 1), T(2002, 6), T(2002, 12)];
         float[] hs = [1f, 2f, 3f, 4f, 5f, 6f];
         CellStatistics result = new CellStatisticsCalculator().Compute(new CellSeries { Times = times, Hs = hs, DepthMetres = double.NaN });
-        Assert.Equal((1 + 2 + 3 + 4 + 6) / 5.0, result.Find(AtlasPeriod.Djf)!.Hs.Mean, 1e-15);
+        Assert.Equal((1 + 4 + 2 * 2 + 3 + 6) / 6.0, result.Find(AtlasPeriod.Djf)!.Hs.Mean, 1e-15);
         Assert.Equal(5.0, result.Find(AtlasPeriod.Jja)!.Hs.Mean);
         Assert.Equal((1 + 2 + 3) / 3.0, result.Find(AtlasPeriod.Year(2001))!.Hs.Mean, 1e-15);
         Assert.Equal((3 + 6) / 2.0, result.Find(AtlasPeriod.Month(12))!.Hs.Mean, 1e-15);
@@ -236,10 +249,15 @@ public class CellStatisticsCalculatorTests(InventedSeriesReference reference)
         }
     }
 
+    // A whole year without gaps: the month weights are equal, so the month-balanced annual period is the year itself.
     [Fact]
-    public void SingleYearTimelineGivesTheYearTheAnnualStatistics()
+    public void SingleWholeYearGivesTheYearTheAnnualStatistics()
     {
-        CellStatistics result = new CellStatisticsCalculator().Compute(new InventedSeries(years: 1).Series());
+        var data = new InventedSeries(years: 1);
+        foreach (float[] values in new[] { data.Hs, data.Te, data.Dir })
+            for (int k = 0; k < values.Length; k++)
+                if (!(values[k] > 0)) values[k] = 2f;
+        CellStatistics result = new CellStatisticsCalculator().Compute(data.Series());
         Assert.Equal(result.Find(AtlasPeriod.Annual)! with { Period = AtlasPeriod.Year(2001) }, result.Find(AtlasPeriod.Year(2001))! with
         {
             HsExceedance = result.Find(AtlasPeriod.Annual)!.HsExceedance,

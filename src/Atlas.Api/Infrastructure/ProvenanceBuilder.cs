@@ -23,6 +23,10 @@ public sealed class ProvenanceBuilder(DatasetStore datasets, DatasetCatalog cata
         "(count and coverage accompany every statistic); point statistics are computed from the exact stored series, " +
         "layer percentiles from fixed-bin histograms; months and seasons are UTC calendar months gathered across all years.";
 
+    /// <summary>The statistics service's method notes carried into provenance, in this order.</summary>
+    private static readonly string[] RecordedNotes =
+        ["energy_period", "percentiles_layers", "coverage", "climatology", "weighted_percentiles", "seasons", "inter_annual", "directionality"];
+
     public async Task<Provenance> ForAsync(DatasetRecord dataset, CancellationToken cancel)
     {
         // Keyed by the files stamp, so the list follows every load at once (answers cached by that stamp must name their files).
@@ -39,7 +43,7 @@ public sealed class ProvenanceBuilder(DatasetStore datasets, DatasetCatalog cata
         if (Text(root, "depth_note") is { } depthNote) method += " Depth: " + depthNote + ".";
         // The statistics service records its own method notes (thresholds, bin widths) under "statistics".
         if (root.ValueKind == JsonValueKind.Object && root.TryGetProperty("statistics", out var notes) && notes.ValueKind == JsonValueKind.Object)
-            foreach (var name in new[] { "energy_period", "percentiles_layers", "coverage" })
+            foreach (var name in RecordedNotes)
                 if (Text(notes, name) is { } note) method += $" {name.Replace('_', ' ')}: {note}.";
         return new Provenance(dataset.Slug, dataset.Title,
             files!.Select(f => new ProvenanceFile(f.FileName, f.Sha256, f.TimeStartUtc, f.TimeEndUtc)).ToArray(),

@@ -197,15 +197,19 @@ public sealed class StatisticsService(NpgsqlDataSource dataSource, StatisticsOpt
                 ["software_version"] = typeof(StatisticsService).Assembly.GetName().Version?.ToString(),
                 ["power"] = "omnidirectional power per time step from Hm0 and Te with the linear-theory group velocity at Te and the cell depth " +
                             "(rho 1025 kg/m3, g 9.81 m/s2; deep water where the depth is unknown), then averaged; never from mean Hs and mean Te",
-                ["energy_period"] = $"Te from the source; where absent, Te = ratio x Tp for the assumed spectrum ({_options.AssumedSpectrum})",
+                ["energy_period"] = $"Te from the source; where absent, assumed from Tp for the {Atlas.Statistics.MethodNotes.AssumedSpectrum(_options.AssumedSpectrum)}",
                 ["direction"] = "power-weighted circular mean of the direction waves come from; 16-sector power rose",
+                ["directionality"] = Atlas.Statistics.MethodNotes.Directionality,
                 ["percentiles_layers"] = $"from fixed-bin histograms: Hs {_options.HsBinning.BinWidth} m, Te/Tp {_options.PeriodBinning.BinWidth} s, " +
-                                         $"J {_options.PowerBinning.BinWidth} kW/m, spread {_options.SpreadBinning.BinWidth} degree, d {_options.DirectionalityBinning.BinWidth}",
+                                         $"J {_options.PowerBinning.BinWidth} kW/m, spread {_options.SpreadBinning.BinWidth} degree",
                 ["percentiles_points"] = "exact, from the stored series (linear interpolation between order statistics, NumPy's default)",
-                ["coverage"] = $"valid steps over the steps of the period; periods below {_options.LowCoverageThreshold:P0} are flagged",
+                ["coverage"] = Atlas.Statistics.MethodNotes.Coverage(_options.LowCoverageThreshold),
+                ["climatology"] = Atlas.Statistics.MethodNotes.Climatology,
+                ["weighted_percentiles"] = Atlas.Statistics.MethodNotes.WeightedPercentiles,
+                ["inter_annual"] = Atlas.Statistics.MethodNotes.InterAnnual,
                 ["hs_thresholds_m"] = new JsonArray(_options.HsThresholdsMetres.Select(v => (JsonNode)JsonValue.Create(v)).ToArray()),
                 ["j_thresholds_kw_per_m"] = new JsonArray(_options.PowerThresholdsKilowattsPerMetre.Select(v => (JsonNode)JsonValue.Create(v)).ToArray()),
-                ["seasons"] = "DJF, MAM, JJA, SON gather their calendar months (UTC) across all years",
+                ["seasons"] = Atlas.Statistics.MethodNotes.Seasons,
             },
         };
         return notes.ToJsonString();
