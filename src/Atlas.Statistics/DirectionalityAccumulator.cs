@@ -11,12 +11,12 @@ namespace Atlas.Statistics;
 /// </summary>
 internal sealed class DirectionalityAccumulator
 {
-    private const int Width = DirectionalHarmonics.SumLength;
+    // Per slot the sums in the wide layout of DirectionalHarmonics.AddTabulated (vectorised over the orders).
+    private const int Width = DirectionalHarmonics.WideLength;
     private double[] _sums = [];
     private long[] _counts = [];
     private TimelineCalendar? _calendar;
-    private readonly double[] _moments = new double[DirectionalHarmonics.Orders];
-    private readonly double[] _merged = new double[Width];
+    private readonly double[] _merged = new double[DirectionalHarmonics.SumLength];
 
     public bool HasSeries { get; private set; }
 
@@ -33,7 +33,6 @@ internal sealed class DirectionalityAccumulator
     {
         TimelineCalendar calendar = _calendar ?? throw new InvalidOperationException("Prepare the accumulator for a calendar first.");
         HasSeries = true;
-        Span<double> moments = _moments;
         foreach (StepRun run in calendar.Runs)
         {
             Span<double> sums = _sums.AsSpan(run.Slot * Width, Width);
@@ -43,9 +42,8 @@ internal sealed class DirectionalityAccumulator
             {
                 float j = power[i], theta = directionDegrees[i], spread = spreadDegrees[i];
                 if (!(j >= 0 && j <= float.MaxValue) || !float.IsFinite(theta) || !(spread >= 0 && spread <= float.MaxValue)) continue;
-                DirectionalHarmonics.SpreadingMomentsTabulated(spread, moments);
                 CompassTable.Lookup(theta, out double cos, out double sin, out _);
-                DirectionalHarmonics.Add(sums, j, cos, sin, moments);
+                DirectionalHarmonics.AddTabulated(sums, j, cos, sin, spread);
                 n++;
             }
             _counts[run.Slot] += n;
@@ -83,11 +81,7 @@ internal sealed class DirectionalityAccumulator
         Span<double> merged = _merged;
         merged.Clear();
         foreach (int slot in slots)
-        {
-            double weight = weighted ? weights[slot % 12] : 1;
-            ReadOnlySpan<double> sums = _sums.AsSpan(slot * Width, Width);
-            for (int k = 0; k < Width; k++) merged[k] += weight * sums[k];
-        }
+            DirectionalHarmonics.WideToSums(_sums.AsSpan(slot * Width, Width), weighted ? weights[slot % 12] : 1, merged);
         DirectionalPower maximum = DirectionalHarmonics.Maximum(merged);
         return new PeriodDirectionality(maximum.Coefficient, maximum.DirectionOfMaximumDegrees, n, coverage);
     }

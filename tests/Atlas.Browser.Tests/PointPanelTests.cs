@@ -39,6 +39,8 @@ public class PointPanelTests(AtlasSite site)
             }
         ShownNumber.Matches(annual.GetProperty("direction").GetProperty("mean").GetDouble(),
             (await page.TextContentAsync("#point-stats tr[data-parameter='dir'] td[data-statistic='mean']"))!, "direction");
+        ShownNumber.Matches(annual.GetProperty("direction").GetProperty("directionality_coefficient").GetDouble(),
+            (await page.TextContentAsync("#point-stats tr[data-parameter='d'] td[data-statistic='mean']"))!, "directionality coefficient");
 
         // The other periods of the same answer, through the period selector.
         await page.SelectOptionAsync("#point-period", "djf");

@@ -93,4 +93,25 @@ public class DirectionalHarmonicsTests
         Assert.True(double.IsNaN(nothing.Coefficient) && double.IsNaN(nothing.DirectionOfMaximumDegrees));
         Assert.Throws<ArgumentOutOfRangeException>(() => DirectionalHarmonics.SpreadingMoments(-1, new double[DirectionalHarmonics.Orders]));
     }
+
+    // The vectorised wide layout of the streaming pass adds what the plain one adds with the tabulated moments.
+    [Fact]
+    public void WideLayoutAddsWhatThePlainOneAdds()
+    {
+        var random = new Random(5);
+        var wide = new double[DirectionalHarmonics.WideLength];
+        var plain = new double[DirectionalHarmonics.SumLength];
+        var moments = new double[DirectionalHarmonics.Orders];
+        for (int k = 0; k < 500; k++)
+        {
+            double power = 40 * random.NextDouble(), direction = 360 * random.NextDouble(), spread = 90 * random.NextDouble();
+            (double sin, double cos) = Math.SinCos(direction * Math.PI / 180);
+            DirectionalHarmonics.AddTabulated(wide, power, cos, sin, spread);
+            DirectionalHarmonics.SpreadingMomentsTabulated(spread, moments);
+            DirectionalHarmonics.Add(plain, power, cos, sin, moments);
+        }
+        var converted = new double[DirectionalHarmonics.SumLength];
+        DirectionalHarmonics.WideToSums(wide, 1, converted);
+        for (int i = 0; i < plain.Length; i++) Assert.Equal(plain[i], converted[i], 1e-9 * Math.Abs(plain[0]));
+    }
 }

@@ -10,7 +10,7 @@ import { jointOccurrenceTable } from './joint-table.js';
 import { powerRoseSvg } from './power-rose.js';
 
 const rows = [
-  ['hs', 'Hs', 'm'], ['te', 'Te', 's'], ['tp', 'Tp', 's'], ['j', 'J', 'kW/m'], ['spread', 'Spread', '°'], ['d', 'Directionality', '1'],
+  ['hs', 'Hs', 'm'], ['te', 'Te', 's'], ['tp', 'Tp', 's'], ['j', 'J', 'kW/m'], ['spread', 'Spread', '°'],
 ];
 
 export class PointPanel {
@@ -177,6 +177,11 @@ export class PointPanel {
       el('th', { scope: 'row' }, 'Direction (° from)'),
       el('td', { 'data-statistic': 'mean' }, fixed(d?.mean, 0)),
       el('td', { colspan: '5', class: 'muted' }, d?.spread == null ? '' : `power-weighted mean; spread ${fixed(d.spread, 0)}°`)));
+    body.push(el('tr', { 'data-parameter': 'd' },
+      el('th', { scope: 'row' }, 'Directionality d (1)'),
+      el('td', { 'data-statistic': 'mean' }, number(d?.directionality_coefficient)),
+      el('td', { colspan: '5', class: 'muted' }, d?.max_power_from_deg == null ? '' :
+        `largest mean resolved power from ${fixed(d.max_power_from_deg, 0)}°; each step's spreading modelled (cosine-2s)`)));
     const coverages = [...rows.map(([key, label]) => [label, period[key]?.coverage]), ['Direction', d?.coverage]];
     const same = coverages.every(([, c]) => c === coverages[0][1]);
     const coverageText = same ? `coverage ${percent(coverages[0][1], 0)}`
@@ -190,11 +195,13 @@ export class PointPanel {
 
   variationTable(series) {
     return el('div', { class: 'table-scroll' }, el('table', { class: 'stats-table' },
-      el('caption', {}, 'Coefficient of variation of the yearly means (sample standard deviation over the mean), years with enough coverage.'),
-      el('thead', {}, el('tr', {}, ['Period', 'Years', 'Hs', 'Te', 'J'].map(h => el('th', { scope: 'col' }, h)))),
+      el('caption', {}, 'Coefficient of variation of the yearly means (sample standard deviation over the mean), years with enough coverage; ' +
+        'a winter is December with the January and February after it.'),
+      el('thead', {}, el('tr', {}, ['Period', 'Years', 'Left out', 'Hs', 'Te', 'J'].map(h => el('th', { scope: 'col' }, h)))),
       el('tbody', {}, series.map(s => el('tr', {},
         el('th', { scope: 'row' }, periodName(s.period)),
         el('td', {}, String(s.years_used)),
+        el('td', {}, (s.years_left_out ?? []).map(y => s.years.find(r => r.year === y)?.label ?? String(y)).join(', ') || 'none'),
         el('td', {}, percent(s.hs_coefficient_of_variation)),
         el('td', {}, percent(s.te_coefficient_of_variation)),
         el('td', {}, percent(s.j_coefficient_of_variation)))))));

@@ -63,17 +63,22 @@ public static class LayerApi
             "Layer percentiles (p10, p50, p90, p99) come from fixed-bin histograms and lie within one bin width (percentile_bin_width, " +
             "in the parameter's unit) of the exact percentiles; point requests compute them exactly from the series. count and coverage " +
             "are dimensionless (unit 1). dir offers the power-weighted circular mean, the circular spread of directions (sd), count and " +
-            "coverage; depth is the cell depth (mean, annual).",
+            "coverage; d offers the period directionality coefficient (as mean: the largest period-mean directionally resolved power over " +
+            "the period-mean power, IEC TS 62600-101, from a cosine-2s model of each step's directional distribution), count and coverage; " +
+            "depth is the cell depth (mean, annual). Coverage is counted against the calendar, and seasons and the annual period are " +
+            "month-balanced (see the dataset's method notes).",
             AtlasCaution.Text));
     }
 
     /// <summary>
     /// The statistics a parameter's layers have: all for summarised parameters; for dir the power-weighted mean, the
-    /// circular spread of directions (as sd), count and coverage; for depth the cell depth (as mean).
+    /// circular spread of directions (as sd), count and coverage; for d the period coefficient (as mean), count and
+    /// coverage; for depth the cell depth (as mean).
     /// </summary>
     public static IReadOnlyList<StatisticKind> StatisticsOf(WaveParameter parameter) => parameter switch
     {
         WaveParameter.Dir => [StatisticKind.Mean, StatisticKind.Sd, StatisticKind.Count, StatisticKind.Coverage],
+        WaveParameter.D => [StatisticKind.Mean, StatisticKind.Count, StatisticKind.Coverage],
         WaveParameter.Depth => [StatisticKind.Mean],
         _ => StatisticKindNames.All,
     };
