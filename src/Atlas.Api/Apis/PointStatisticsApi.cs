@@ -28,6 +28,10 @@ public static class PointStatisticsApi
                 "joint (Hm0 x Te occurrence, 0.5 m x 1 s bins, with mean power and share of energy per bin), rose (16-sector power rose), " +
                 "interannual (yearly annual and seasonal means and coefficients of variation); all by default, none for summaries only. " +
                 "Statistics are computed exactly from the stored series (percentiles Hyndman-Fan type 7); the cell (id, lat, lon, depth_m, " +
+                "distance_m) is the nearest wet cell. Coverage: " + MethodNotes.Coverage(StatisticsOptions.DefaultLowCoverageThreshold) + ". " +
+                "Seasons and the annual period: " + MethodNotes.Climatology + "; weighted percentiles: " + MethodNotes.WeightedPercentiles + ". " +
+                "Inter-annual: " + MethodNotes.Seasons + "; " + MethodNotes.InterAnnual + ". Each period's direction block carries " +
+                "directionality_coefficient and max_power_from_deg: " + MethodNotes.Directionality + ". The cell (id, lat, lon, depth_m, " +
                 "distance_m) is the nearest wet cell, refused (422) beyond the distance limit or outside the extent. " +
                 "format=csv gives the period table after '#' lines of provenance, units and the caution.")
             .Produces<PointStatistics>(StatusCodes.Status200OK, "application/json", "text/csv")
