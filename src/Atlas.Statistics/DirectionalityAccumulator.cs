@@ -11,7 +11,7 @@ namespace Atlas.Statistics;
 /// </summary>
 internal sealed class DirectionalityAccumulator
 {
-    // Per slot the sums in the wide layout of DirectionalHarmonics.AddTabulated (vectorised over the orders).
+    // Per slot the sums in the wide layout of HarmonicAccumulator (vectorised over the orders).
     private const int Width = DirectionalHarmonics.WideLength;
     private double[] _sums = [];
     private long[] _counts = [];
@@ -35,7 +35,7 @@ internal sealed class DirectionalityAccumulator
         HasSeries = true;
         foreach (StepRun run in calendar.Runs)
         {
-            Span<double> sums = _sums.AsSpan(run.Slot * Width, Width);
+            var harmonics = new HarmonicAccumulator();
             long n = 0;
             int end = run.Start + run.Length;
             for (int i = run.Start; i < end; i++)
@@ -43,9 +43,10 @@ internal sealed class DirectionalityAccumulator
                 float j = power[i], theta = directionDegrees[i], spread = spreadDegrees[i];
                 if (!(j >= 0 && j <= float.MaxValue) || !float.IsFinite(theta) || !(spread >= 0 && spread <= float.MaxValue)) continue;
                 CompassTable.Lookup(theta, out double cos, out double sin, out _);
-                DirectionalHarmonics.AddTabulated(sums, j, cos, sin, spread);
+                harmonics.Add(j, cos, sin, spread);
                 n++;
             }
+            harmonics.MoveTo(_sums.AsSpan(run.Slot * Width, Width));
             _counts[run.Slot] += n;
         }
     }

@@ -1,6 +1,3 @@
-using System.Runtime.InteropServices;
-using System.Runtime.Intrinsics;
-
 namespace Atlas.WavePhysics;
 
 /// <summary>
@@ -104,86 +101,39 @@ public static class DirectionalHarmonics
         return table;
     }
 
-    /// <summary>Orders padded to whole 256-bit vectors, in the wide layout of <see cref="AddTabulated"/>.</summary>
-    public const int PaddedOrders = (Orders + 3) / 4 * 4;
+    /// <summary>Doubles per row of the table behind <see cref="HarmonicAccumulator"/>: m_1, three unused, then m_2 .. m_32.</summary>
+    internal const int PaddedRow = 4 + HighestOrder / 2;
 
-    /// <summary>Doubles of the wide layout: the total power, then <see cref="PaddedOrders"/> A_k, then as many B_k.</summary>
-    public const int WideLength = 1 + 2 * PaddedOrders;
+    /// <summary>Doubles of the wide layout a <see cref="HarmonicAccumulator"/> stores: the total, A_1, B_1, A_2..A_32, B_2..B_32.</summary>
+    public const int WideLength = 3 + HighestOrder;
 
     private static readonly Lazy<double[]> PaddedMomentTable = new(BuildPaddedMomentTable);
 
-    /// <summary>
-    /// Adds one step to sums in the wide layout (for the streaming pass: vectorised over the orders, the moments read
-    /// from the table of <see cref="SpreadingMomentsTabulated"/>); <see cref="WideToSums"/> turns them into sums.
-    /// </summary>
-    /// <param name="wide">The sums, <see cref="WideLength"/> doubles.</param>
-    /// <param name="power">The step's power, not negative.</param>
-    /// <param name="cosDirection">Cosine of its mean direction.</param>
-    /// <param name="sinDirection">Sine of its mean direction.</param>
-    /// <param name="spreadDegrees">Its directional spread, degrees, finite and not negative (not checked).</param>
-    public static void AddTabulated(Span<double> wide, double power, double cosDirection, double sinDirection, double spreadDegrees)
-    {
-        wide[0] += power;
-        double sigma = spreadDegrees * (Math.PI / 180);
-        double position = sigma * sigma * (TableSteps / 2.0);
-        if (position >= TableSteps) return; // isotropic: every moment is 0
-        int j = (int)position;
-        double f = position - j;
+    internal static double[] PaddedMoments => PaddedMomentTable.Value;
 
-        // e^(i k phi) for k = 1, 2, 4, ..., 32: four chains stepping by e^(i 8 phi), so no product waits on the last.
-        Span<double> cos = stackalloc double[PaddedOrders], sin = stackalloc double[PaddedOrders];
-        double c1 = cosDirection, s1 = sinDirection;
-        double c2 = c1 * c1 - s1 * s1, s2 = 2 * c1 * s1;
-        double c4 = c2 * c2 - s2 * s2, s4 = 2 * c2 * s2;
-        double c6 = c4 * c2 - s4 * s2, s6 = s4 * c2 + c4 * s2;
-        double c8 = c4 * c4 - s4 * s4, s8 = 2 * c4 * s4;
-        cos[0] = c1; sin[0] = s1;
-        cos[1] = c2; sin[1] = s2;
-        cos[2] = c4; sin[2] = s4;
-        cos[3] = c6; sin[3] = s6;
-        cos[4] = c8; sin[4] = s8;
-        for (int i = 5; i < Orders; i++)
-        {
-            double c = cos[i - 4], s = sin[i - 4];
-            cos[i] = c * c8 - s * s8;
-            sin[i] = s * c8 + c * s8;
-        }
-
-        double[] table = PaddedMomentTable.Value;
-        ref double low = ref table[j * PaddedOrders];
-        ref double high = ref table[(j + 1) * PaddedOrders];
-        ref double a = ref wide[1];
-        ref double b = ref wide[1 + PaddedOrders];
-        ref double cosRef = ref MemoryMarshal.GetReference(cos);
-        ref double sinRef = ref MemoryMarshal.GetReference(sin);
-        var fraction = Vector256.Create(f);
-        var weight = Vector256.Create(power);
-        for (int i = 0; i < PaddedOrders; i += 4)
-        {
-            var lowMoments = Vector256.LoadUnsafe(ref low, (nuint)i);
-            var moments = lowMoments + fraction * (Vector256.LoadUnsafe(ref high, (nuint)i) - lowMoments);
-            var w = weight * moments;
-            (Vector256.LoadUnsafe(ref a, (nuint)i) + w * Vector256.LoadUnsafe(ref cosRef, (nuint)i)).StoreUnsafe(ref a, (nuint)i);
-            (Vector256.LoadUnsafe(ref b, (nuint)i) + w * Vector256.LoadUnsafe(ref sinRef, (nuint)i)).StoreUnsafe(ref b, (nuint)i);
-        }
-    }
-
-    /// <summary>Adds sums in the wide layout, times a weight, to sums in the layout of <see cref="Add"/>.</summary>
+    /// <summary>Adds sums in the wide layout of <see cref="HarmonicAccumulator"/>, times a weight, to sums in the layout of <see cref="Add"/>.</summary>
     public static void WideToSums(ReadOnlySpan<double> wide, double weight, Span<double> sums)
     {
         sums[0] += weight * wide[0];
-        for (int i = 0; i < Orders; i++)
+        sums[1] += weight * wide[1];
+        sums[2] += weight * wide[2];
+        const int even = HighestOrder / 2;
+        for (int i = 1; i < Orders; i++)
         {
-            sums[1 + 2 * i] += weight * wide[1 + i];
-            sums[2 + 2 * i] += weight * wide[1 + PaddedOrders + i];
+            sums[1 + 2 * i] += weight * wide[2 + i];
+            sums[2 + 2 * i] += weight * wide[2 + even + i];
         }
     }
 
     private static double[] BuildPaddedMomentTable()
     {
         double[] table = MomentTable.Value;
-        var padded = new double[(TableSteps + 1) * PaddedOrders];
-        for (int j = 0; j <= TableSteps; j++) table.AsSpan(j * Orders, Orders).CopyTo(padded.AsSpan(j * PaddedOrders));
+        var padded = new double[(TableSteps + 1) * PaddedRow];
+        for (int j = 0; j <= TableSteps; j++)
+        {
+            padded[j * PaddedRow] = table[j * Orders];
+            table.AsSpan(j * Orders + 1, Orders - 1).CopyTo(padded.AsSpan(j * PaddedRow + 4));
+        }
         return padded;
     }
 

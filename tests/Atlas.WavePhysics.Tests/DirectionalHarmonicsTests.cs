@@ -100,16 +100,19 @@ public class DirectionalHarmonicsTests
     {
         var random = new Random(5);
         var wide = new double[DirectionalHarmonics.WideLength];
+        var accumulator = new HarmonicAccumulator();
         var plain = new double[DirectionalHarmonics.SumLength];
         var moments = new double[DirectionalHarmonics.Orders];
         for (int k = 0; k < 500; k++)
         {
             double power = 40 * random.NextDouble(), direction = 360 * random.NextDouble(), spread = 90 * random.NextDouble();
             (double sin, double cos) = Math.SinCos(direction * Math.PI / 180);
-            DirectionalHarmonics.AddTabulated(wide, power, cos, sin, spread);
+            accumulator.Add(power, cos, sin, spread);
+            if (k % 97 == 0) accumulator.MoveTo(wide); // runs of several steps, stored and forgotten
             DirectionalHarmonics.SpreadingMomentsTabulated(spread, moments);
             DirectionalHarmonics.Add(plain, power, cos, sin, moments);
         }
+        accumulator.MoveTo(wide);
         var converted = new double[DirectionalHarmonics.SumLength];
         DirectionalHarmonics.WideToSums(wide, 1, converted);
         for (int i = 0; i < plain.Length; i++) Assert.Equal(plain[i], converted[i], 1e-9 * Math.Abs(plain[0]));
