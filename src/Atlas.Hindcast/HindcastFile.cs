@@ -167,24 +167,72 @@ public sealed class HindcastFile : IDisposable
     }
 
     /// <summary>
-    /// Water depth of every point in metres, positive down, from the first step when the depth has a time dimension.
-    /// NaN where the file gives no value or the sea floor is at or above the surface (land), and everywhere when
-    /// the file has no depth variable.
+    /// Water depth of every point in metres, positive down; the time mean over the file's steps when the depth has a
+    /// time dimension (<see cref="ReadDepthField"/>). NaN where the file gives no value or the sea floor is at or above
+    /// the surface (land), and everywhere when the file has no depth variable.
     /// </summary>
     public float[] ReadDepth()
     {
-        var depth = new float[Grid.PointCount];
-        if (!_decoding.TryGetValue(WaveVariable.Depth, out var decoding))
-        {
-            Array.Fill(depth, float.NaN);
-            return depth;
-        }
-        long[] start = _spatial.Select(_ => 0L).ToArray(), count = _spatial.Select(d => d.Length).ToArray();
-        ReadSlab(_variables[WaveVariable.Depth].Source, decoding, 0, 1, start, count, depth);
+        var depth = ReadDepthField().Metres;
         for (int p = 0; p < depth.Length; p++)
             if (!(depth[p] > 0)) depth[p] = float.NaN;
         return depth;
     }
+
+    /// <summary>
+    /// The decoded depth of every point, signs kept (negative where the sea floor is above the surface): a static depth
+    /// as it is, a time-varying one as the mean of its valid steps at each point (read in blocks of steps, so a long
+    /// file never sits in memory whole). All NaN with no steps when the file has no depth variable.
+    /// </summary>
+    public DepthField ReadDepthField()
+    {
+        int points = Grid.PointCount;
+        var mean = new float[points];
+        var valid = new int[points];
+        if (!_decoding.TryGetValue(WaveVariable.Depth, out var decoding))
+        {
+            Array.Fill(mean, float.NaN);
+            return new DepthField(mean, valid, 0, false);
+        }
+        var source = _variables[WaveVariable.Depth].Source;
+        long[] start = _spatial.Select(_ => 0L).ToArray(), count = _spatial.Select(d => d.Length).ToArray();
+        if (Array.IndexOf(decoding.Roles, TimeRole) < 0)
+        {
+            ReadSlab(source, decoding, 0, 1, start, count, mean);
+            for (int p = 0; p < points; p++) valid[p] = float.IsNaN(mean[p]) ? 0 : 1;
+            return new DepthField(mean, valid, 1, false);
+        }
+
+        int steps = TimesUtc.Count;
+        var sum = new double[points];
+        int stepsPerRead = (int)Math.Clamp(ScratchValues / Math.Max(points, 1), 1, steps);
+        var buffer = ArrayPool<float>.Shared.Rent(stepsPerRead * points);
+        try
+        {
+            for (int t = 0; t < steps; t += stepsPerRead)
+            {
+                int n = Math.Min(stepsPerRead, steps - t);
+                var slab = buffer.AsSpan(0, n * points);
+                ReadSlab(source, decoding, t, n, start, count, slab);
+                for (int k = 0; k < slab.Length; k++)
+                {
+                    float v = slab[k];
+                    if (float.IsNaN(v)) continue;
+                    sum[k % points] += v;
+                    valid[k % points]++;
+                }
+            }
+        }
+        finally
+        {
+            ArrayPool<float>.Shared.Return(buffer);
+        }
+        for (int p = 0; p < points; p++) mean[p] = valid[p] > 0 ? (float)(sum[p] / valid[p]) : float.NaN;
+        return new DepthField(mean, valid, steps, true);
+    }
+
+    /// <summary>The decoder of a variable the file has, e.g. to describe its conversion; null when it lacks it.</summary>
+    public CfValueDecoder? DecoderOf(WaveVariable v) => _decoding.TryGetValue(v, out var d) ? d.Decoder : null;
 
     /// <summary>
     /// The wet flag of every point by the <see cref="LandMask"/> rule, probing Hs over the first
