@@ -1,6 +1,9 @@
 namespace Atlas.Api.Model;
 
 /// <summary>Where a figure comes from: carried by every download and every computed response.</summary>
+/// <param name="Assumptions">Per wave variable, the file variable it came from, the conversion and what was assumed
+/// (the ingest's record in the dataset metadata); empty for a dataset loaded before it was kept.</param>
+/// <param name="Warnings">The ingest's warnings about the record (for instance shorter than one month).</param>
 public sealed record Provenance(
     string Dataset,
     string Title,
@@ -12,7 +15,9 @@ public sealed record Provenance(
     string MethodNotes,
     string? Licence,
     string? Citation,
-    string Caution)
+    string Caution,
+    IReadOnlyList<ProvenanceAssumption>? Assumptions = null,
+    IReadOnlyList<string>? Warnings = null)
 {
     /// <summary>The provenance as "# key: value" lines for the head of a text download.</summary>
     public IEnumerable<string> HeaderLines()
@@ -24,6 +29,8 @@ public sealed record Provenance(
         yield return $"# statistics_computed_at: {(StatisticsComputedAtUtc is { } t ? t.ToString("O") : "not computed")}";
         yield return $"# generated_at: {GeneratedAtUtc:O}";
         yield return $"# method: {MethodNotes}";
+        foreach (var a in Assumptions ?? []) yield return $"# assumed: {a.Describe()}";
+        foreach (var w in Warnings ?? []) yield return $"# warning: {w}";
         if (Licence is not null) yield return $"# licence: {Licence}";
         if (Citation is not null) yield return $"# citation: {Citation}";
         yield return $"# caution: {Caution}";
@@ -31,3 +38,16 @@ public sealed record Provenance(
 }
 
 public sealed record ProvenanceFile(string Name, string Sha256, DateTime TimeStartUtc, DateTime TimeEndUtc);
+
+/// <summary>What the ingest took for one wave variable: { variable, source, found_by, conversion, assumed }.</summary>
+public sealed record ProvenanceAssumption(string Variable, string? Source, string? FoundBy, string Conversion, string Assumed)
+{
+    /// <summary>One line, e.g. "depth: none found; deep water assumed in 1,086 cells".</summary>
+    public string Describe()
+    {
+        var text = Source is null ? $"{Variable}: none found" : $"{Variable}: from '{Source}' ({FoundBy})";
+        if (Conversion != "none") text += ", " + Conversion;
+        if (Assumed != "none") text += "; " + Assumed;
+        return text;
+    }
+}
