@@ -205,28 +205,16 @@ public sealed class HindcastFile : IDisposable
 
         int steps = TimesUtc.Count;
         var sum = new double[points];
-        int stepsPerRead = (int)Math.Clamp(ScratchValues / Math.Max(points, 1), 1, steps);
-        var buffer = ArrayPool<float>.Shared.Rent(stepsPerRead * points);
-        try
+        ForEachStepBlock(steps, (t, slab) => ReadSlab(source, decoding, t, slab.Length / points, start, count, slab), slab =>
         {
-            for (int t = 0; t < steps; t += stepsPerRead)
+            for (int k = 0; k < slab.Length; k++)
             {
-                int n = Math.Min(stepsPerRead, steps - t);
-                var slab = buffer.AsSpan(0, n * points);
-                ReadSlab(source, decoding, t, n, start, count, slab);
-                for (int k = 0; k < slab.Length; k++)
-                {
-                    float v = slab[k];
-                    if (float.IsNaN(v)) continue;
-                    sum[k % points] += v;
-                    valid[k % points]++;
-                }
+                float v = slab[k];
+                if (float.IsNaN(v)) continue;
+                sum[k % points] += v;
+                valid[k % points]++;
             }
-        }
-        finally
-        {
-            ArrayPool<float>.Shared.Return(buffer);
-        }
+        });
         for (int p = 0; p < points; p++) mean[p] = valid[p] > 0 ? (float)(sum[p] / valid[p]) : float.NaN;
         return new DepthField(mean, valid, steps, true);
     }
@@ -244,26 +232,36 @@ public sealed class HindcastFile : IDisposable
         int points = Grid.PointCount;
         int steps = Math.Min(probeSteps, TimesUtc.Count);
         var seen = new bool[points];
-        int stepsPerRead = (int)Math.Clamp(ScratchValues / Math.Max(points, 1), 1, steps);
+        ForEachStepBlock(steps, (t, slab) => ReadSteps(WaveVariable.Hs, t, slab.Length / points, 0, points, slab), slab => LandMask.MarkHsSeen(slab, seen));
+        return LandMask.Derive(Has(WaveVariable.Depth) ? ReadDepth() : [], seen);
+    }
+
+    public void Dispose() => _file.Dispose();
+
+    /// <summary>
+    /// Reads steps [0, <paramref name="steps"/>) of every point in blocks of whole steps that fit the scratch budget
+    /// (<paramref name="read"/> fills a [time][point] slab starting at a step) and hands each block to
+    /// <paramref name="consume"/>, so a long file never sits in memory whole.
+    /// </summary>
+    private void ForEachStepBlock(int steps, Action<int, Span<float>> read, Action<Span<float>> consume)
+    {
+        int points = Grid.PointCount;
+        int stepsPerRead = (int)Math.Clamp(ScratchValues / Math.Max(points, 1), 1, Math.Max(steps, 1));
         var buffer = ArrayPool<float>.Shared.Rent(stepsPerRead * points);
         try
         {
             for (int t = 0; t < steps; t += stepsPerRead)
             {
-                int n = Math.Min(stepsPerRead, steps - t);
-                var slab = buffer.AsSpan(0, n * points);
-                ReadSteps(WaveVariable.Hs, t, n, 0, points, slab);
-                LandMask.MarkHsSeen(slab, seen);
+                var slab = buffer.AsSpan(0, Math.Min(stepsPerRead, steps - t) * points);
+                read(t, slab);
+                consume(slab);
             }
         }
         finally
         {
             ArrayPool<float>.Shared.Return(buffer);
         }
-        return LandMask.Derive(Has(WaveVariable.Depth) ? ReadDepth() : [], seen);
     }
-
-    public void Dispose() => _file.Dispose();
 
     /// <summary>
     /// Reads a slab whose memory layout is the destination's ([time][point]) in calls of at most

@@ -44,19 +44,7 @@ public sealed class ProvenanceBuilder(DatasetStore datasets, DatasetCatalog cata
         return new Provenance(dataset.Slug, dataset.Title,
             files!.Select(f => new ProvenanceFile(f.FileName, f.Sha256, f.TimeStartUtc, f.TimeEndUtc)).ToArray(),
             Software, SoftwareVersion, stamp.ComputedAtUtc, DateTime.UtcNow, method,
-            Text(root, "licence"), Text(root, "citation"), AtlasCaution.Text, Assumptions(root), Warnings(root));
-    }
-
-    /// <summary>The ingest's "assumptions" array of the dataset metadata; empty when the dataset predates it.</summary>
-    public static IReadOnlyList<ProvenanceAssumption> Assumptions(JsonElement metadata)
-    {
-        if (metadata.ValueKind != JsonValueKind.Object || !metadata.TryGetProperty("assumptions", out var list) || list.ValueKind != JsonValueKind.Array)
-            return [];
-        return list.EnumerateArray()
-            .Where(e => Text(e, "variable") is not null)
-            .Select(e => new ProvenanceAssumption(Text(e, "variable")!, Text(e, "source"), Text(e, "found_by"),
-                Text(e, "conversion") ?? "none", Text(e, "assumed") ?? "none"))
-            .ToArray();
+            Text(root, "licence"), Text(root, "citation"), AtlasCaution.Text, VariableAssumption.ListFrom(root), Warnings(root));
     }
 
     /// <summary>The ingest's "warnings" array of the dataset metadata; empty when absent.</summary>

@@ -1,3 +1,5 @@
+using Atlas.Storage.Datasets;
+
 namespace Atlas.Api.Model;
 
 /// <summary>Where a figure comes from: carried by every download and every computed response.</summary>
@@ -16,7 +18,7 @@ public sealed record Provenance(
     string? Licence,
     string? Citation,
     string Caution,
-    IReadOnlyList<ProvenanceAssumption>? Assumptions = null,
+    IReadOnlyList<VariableAssumption>? Assumptions = null,
     IReadOnlyList<string>? Warnings = null)
 {
     /// <summary>The provenance as "# key: value" lines for the head of a text download.</summary>
@@ -39,15 +41,3 @@ public sealed record Provenance(
 
 public sealed record ProvenanceFile(string Name, string Sha256, DateTime TimeStartUtc, DateTime TimeEndUtc);
 
-/// <summary>What the ingest took for one wave variable: { variable, source, found_by, conversion, assumed }.</summary>
-public sealed record ProvenanceAssumption(string Variable, string? Source, string? FoundBy, string Conversion, string Assumed)
-{
-    /// <summary>One line, e.g. "depth: none found; deep water assumed in 1,086 cells".</summary>
-    public string Describe()
-    {
-        var text = Source is null ? $"{Variable}: none found" : $"{Variable}: from '{Source}' ({FoundBy})";
-        if (Conversion != "none") text += ", " + Conversion;
-        if (Assumed != "none") text += "; " + Assumed;
-        return text;
-    }
-}

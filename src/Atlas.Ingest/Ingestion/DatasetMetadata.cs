@@ -1,4 +1,5 @@
 using System.Text.Json.Nodes;
+using Atlas.Storage.Datasets;
 using Atlas.Storage.Series;
 
 namespace Atlas.Ingest.Ingestion;

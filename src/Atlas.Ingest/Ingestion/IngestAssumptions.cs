@@ -1,7 +1,8 @@
-using System.Text.Json;
 using System.Text.Json.Nodes;
+using System.Text.Json;
 using Atlas.Hindcast;
 using Atlas.Statistics;
+using Atlas.Storage.Datasets;
 using Atlas.WavePhysics;
 
 namespace Atlas.Ingest.Ingestion;
@@ -115,18 +116,8 @@ public static class IngestAssumptions
     {
         if (metadataJson is null) return null;
         using var document = JsonDocument.Parse(metadataJson);
-        if (!document.RootElement.TryGetProperty("assumptions", out var list) || list.ValueKind != JsonValueKind.Array) return null;
-        foreach (var entry in list.EnumerateArray())
-        {
-            if (Text(entry, "variable") != variable) continue;
-            return new VariableAssumption(variable, Text(entry, "source"), Text(entry, "found_by"), Text(entry, "conversion") ?? "none",
-                Text(entry, "assumed") ?? "none");
-        }
-        return null;
+        return VariableAssumption.ListFrom(document.RootElement).FirstOrDefault(a => a.Variable == variable);
     }
-
-    private static string? Text(JsonElement element, string name) =>
-        element.TryGetProperty(name, out var value) && value.ValueKind == JsonValueKind.String ? value.GetString() : null;
 
     /// <summary>The metadata array.</summary>
     public static JsonArray ToJson(IReadOnlyList<VariableAssumption> assumptions) => new([.. assumptions.Select(a => (JsonNode)a.ToJson())]);

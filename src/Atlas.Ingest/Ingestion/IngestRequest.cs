@@ -1,4 +1,5 @@
 using Atlas.Hindcast;
+using Atlas.Storage.Datasets;
 
 namespace Atlas.Ingest.Ingestion;
 
