@@ -28,6 +28,9 @@ public sealed class HindcastFile : IDisposable
         var hs = _variables[WaveVariable.Hs].Source;
         (_time, var timeVariable) = FindTime(file, hs, mapping);
         TimesUtc = DecodeTimes(file, timeVariable);
+        // A backwards step is refused at once; a repeated one once the values of both steps can be compared.
+        int repeated = FirstRepeat(TimesUtc);
+        if (repeated < 0) CheckIncreasing(file, timeVariable, TimesUtc);
 
         var layout = CfGridReader.Read(file, hs, _time);
         Grid = layout.Grid;
@@ -47,6 +50,7 @@ public sealed class HindcastFile : IDisposable
             _decoding[wave] = (decoder, Roles(resolved.Source, timeRequired: wave != WaveVariable.Depth));
             TuneChunkCache(resolved.Source);
         }
+        if (repeated > 0) CheckIncreasing(file, timeVariable, TimesUtc, RepeatNote(repeated));
     }
 
     /// <summary>
@@ -417,14 +421,70 @@ public sealed class HindcastFile : IDisposable
                 int missing = Array.IndexOf(values, stored);
                 if (missing >= 0) throw new FormatException($"time[{missing}] is the fill value; every step needs a time");
             }
-            var times = parsed.ToUtc(values);
-            CfTime.RequireStrictlyIncreasing(times);
-            return times;
+            return parsed.ToUtc(values);
         }
         catch (FormatException e)
         {
             throw new HindcastFormatException(file.Path, time.Name, e.Message, e);
         }
+    }
+
+    /// <summary>The index of the first step whose time equals the one before; -1 when none (or a backwards step comes first).</summary>
+    private static int FirstRepeat(IReadOnlyList<DateTime> times)
+    {
+        for (int i = 1; i < times.Count; i++)
+        {
+            if (times[i] > times[i - 1]) continue;
+            return times[i] == times[i - 1] ? i : -1;
+        }
+        return -1;
+    }
+
+    /// <summary>Refuses a time axis that does not increase strictly, naming the step index and both times.</summary>
+    private static void CheckIncreasing(NetCdfFile file, NetCdfVariable time, IReadOnlyList<DateTime> times, string note = "")
+    {
+        try
+        {
+            CfTime.RequireStrictlyIncreasing(times);
+        }
+        catch (FormatException e)
+        {
+            throw new HindcastFormatException(file.Path, time.Name, e.Message + note, e);
+        }
+    }
+
+    /// <summary>
+    /// How the two steps of a repeated time differ, per wave variable: the largest difference over the points (directions
+    /// the shorter way round), or a value against a missing one; says so when they are identical.
+    /// </summary>
+    private string RepeatNote(int step)
+    {
+        int points = Grid.PointCount;
+        var both = new float[2 * points];
+        var parts = new List<string>();
+        foreach (var (wave, resolved) in _variables)
+        {
+            if (wave == WaveVariable.Depth) continue;
+            ReadSteps(wave, step - 1, 2, 0, points, both);
+            double largest = 0;
+            int at = -1;
+            for (int p = 0; p < points; p++)
+            {
+                float a = both[p], b = both[points + p];
+                if (float.IsNaN(a) && float.IsNaN(b)) continue;
+                double d = float.IsNaN(a) || float.IsNaN(b) ? double.PositiveInfinity : Math.Abs(a - b);
+                if (wave is WaveVariable.Dir && d > 180) d = 360 - d;
+                if (d > largest) (largest, at) = (d, p);
+            }
+            if (at < 0) continue;
+            string units = CfStandardNames.QuantityOf(wave) switch { PhysicalQuantity.Length => "m", PhysicalQuantity.Time => "s", _ => "degree" };
+            parts.Add(double.IsPositiveInfinity(largest)
+                ? $"variable '{resolved.Name}' has a value in one and none in the other (point {at})"
+                : $"variable '{resolved.Name}' by up to {largest:G4} {units} (point {at})");
+        }
+        return parts.Count == 0
+            ? "; the two steps hold identical values: give each step once"
+            : "; the two steps differ: " + string.Join(", ", parts);
     }
 
     private HindcastFormatException Problem(NetCdfVariable variable, string problem) => new(Path, variable.Name, problem);

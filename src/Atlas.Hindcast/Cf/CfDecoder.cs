@@ -115,7 +115,8 @@ public static class CfDecoder
         if (!found.ContainsKey(WaveVariable.Te) && !found.ContainsKey(WaveVariable.Tp))
             throw new HindcastFormatException(file.Path, null,
                 $"neither an energy period Te (standard_name '{CfStandardNames.EnergyPeriod}') nor a peak period Tp " +
-                $"(standard_name '{CfStandardNames.PeakPeriod}') was found; one of them is required" +
+                $"(standard_name '{CfStandardNames.PeakPeriod}', or a peak frequency with standard_name '{CfStandardNames.PeakFrequency}') " +
+                "was found; one of them is required" +
                 OtherPeriodsNote(file) + Hint(file, WaveVariable.Te, "te") + Hint(file, WaveVariable.Tp, "tp"));
         return found;
     }

@@ -96,7 +96,7 @@ public static class CfStandardNames
     {
         WaveVariable.Hs => ["hs", "swh", "hm0", "vhm0", "hsig", "hsign"],
         WaveVariable.Te => ["te", "tm10", "tm_10", "tmm10", "t0m1", "vtm10"],
-        WaveVariable.Tp => ["tp", "tpeak", "vtpk", "tpk"],
+        WaveVariable.Tp => ["tp", "tpeak", "vtpk", "tpk", "fp", "fpeak"],
         WaveVariable.Dir => ["dir", "mwd", "vmdr", "dirm", "mdir", "theta"],
         WaveVariable.Spread => ["spr", "dspr", "spread", "vspr"],
         _ => ["depth", "dpt", "bathymetry", "deptho", "wdepth"],
