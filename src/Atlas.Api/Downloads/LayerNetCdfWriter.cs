@@ -30,9 +30,7 @@ public static class LayerNetCdfWriter
                 ["dataset"] = p.Dataset,
                 ["source_files"] = string.Join("; ", p.SourceFiles.Select(f => $"{f.Name} sha256={f.Sha256}")),
                 ["method"] = p.MethodNotes,
-                ["assumptions"] = p.Assumptions is { Count: > 0 } assumed
-                    ? string.Join("; ", assumed.Select(x => x.Describe()).Concat((p.Warnings ?? []).Select(w => "warning: " + w)))
-                    : "not recorded (loaded before the ingest kept them)",
+                ["assumptions"] = p.AssumptionsText(),
                 ["licence"] = p.Licence ?? "not stated",
                 ["caution"] = p.Caution,
                 ["period"] = request.Period.Name,

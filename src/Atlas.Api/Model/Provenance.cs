@@ -21,6 +21,14 @@ public sealed record Provenance(
     IReadOnlyList<VariableAssumption>? Assumptions = null,
     IReadOnlyList<string>? Warnings = null)
 {
+    /// <summary>
+    /// The assumptions and warnings in one line ("hs: from 'hs' (...); ...; warning: ..."), for the metadata of binary
+    /// downloads; says they were not recorded for a dataset loaded before the ingest kept them.
+    /// </summary>
+    public string AssumptionsText() => Assumptions is { Count: > 0 } assumed
+        ? string.Join("; ", assumed.Select(a => a.Describe()).Concat((Warnings ?? []).Select(w => "warning: " + w)))
+        : "not recorded (loaded before the ingest kept them)";
+
     /// <summary>The provenance as "# key: value" lines for the head of a text download.</summary>
     public IEnumerable<string> HeaderLines()
     {
