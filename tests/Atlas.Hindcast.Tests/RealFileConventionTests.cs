@@ -84,8 +84,9 @@ public sealed class RealFileConventionTests
         Assert.False(file.Has(WaveVariable.Depth));
         using var raw = NetCdfFile.Open(path);
         var lookalike = CfDecoder.WaterDepthLookalike(raw);
-        Assert.Equal("dpt", lookalike!.Value.Name);
-        Assert.Contains("no units", lookalike.Value.Reason);
+        Assert.Equal("dpt", lookalike!.Name);
+        Assert.Contains("no units", lookalike.Reason);
+        Assert.True(lookalike.OnTheWaveGrid);
     }
 
     [Theory]

@@ -220,17 +220,20 @@ public static class CfDecoder
     /// A variable that looks like the water depth by its name but was not taken (no length unit, or not a horizontal
     /// field), with the reason; null when there is none. For the "depth: none found" line of the ingest summary.
     /// </summary>
-    public static (string Name, string Reason)? WaterDepthLookalike(NetCdfFile file)
+    public static DepthLookalike? WaterDepthLookalike(NetCdfFile file)
     {
+        var hs = file.Variables.FirstOrDefault(v => v.TextAttribute("standard_name") == CfStandardNames.SignificantHeight);
         foreach (var v in file.Variables)
         {
             if (!CfStandardNames.WaterDepthNames.Contains(v.Name, StringComparer.OrdinalIgnoreCase) || IsCoordinateVariable(v)) continue;
             if (CfStandardNames.Identify(v.TextAttribute("standard_name")) is { } other && other != WaveVariable.Depth) continue;
+            bool onGrid = hs is null || IsHorizontalField(v, hs);
             string? units = v.TextAttribute("units");
-            string reason = UnitConversion.TryToSi(units, PhysicalQuantity.Length, out _)
-                ? "it is not a horizontal field like Hs"
-                : string.IsNullOrWhiteSpace(units) ? "it has no units" : $"its units '{units}' are not a length";
-            return (v.Name, reason);
+            string reason = !onGrid ? "it is not a horizontal field like Hs"
+                : string.IsNullOrWhiteSpace(units) ? "it has no units"
+                : UnitConversion.TryToSi(units, PhysicalQuantity.Length, out _) ? "it was not taken"
+                : $"its units '{units}' are not a length";
+            return new DepthLookalike(v.Name, reason, onGrid);
         }
         return null;
     }

@@ -80,10 +80,12 @@ public static class IngestAssumptions
             var assumed = deepWaterCells > 0 ? $"deep water assumed in {deepWaterCells:N0} wet cells where the depth is missing" : "none";
             return new VariableAssumption("depth", source.Name, source.FoundBy, conversion, assumed);
         }
-        var hint = files.Select(f => f.DepthLookalike).FirstOrDefault(h => h is not null) is { } lookalike
-            ? $" (variable '{lookalike.Name}' looks like depth but {lookalike.Reason}: map it with {{\"depth\": \"{lookalike.Name}\"}}" +
-              (lookalike.Reason.Contains("units") ? " and give its units under \"units\"" : "") + ")"
-            : "";
+        // A look-alike with unusable units can be mapped (with its units); one off the wave grid cannot be a cell depth.
+        var hint = files.Select(f => f.DepthLookalike).FirstOrDefault(h => h is not null) is not { } lookalike ? ""
+            : !lookalike.OnTheWaveGrid
+                ? $" (variable '{lookalike.Name}' looks like depth but {lookalike.Reason}, so it cannot be the cell depth)"
+                : $" (variable '{lookalike.Name}' looks like depth but {lookalike.Reason}: map it with {{\"depth\": \"{lookalike.Name}\"}} " +
+                  "and give its units under \"units\")";
         return new VariableAssumption("depth", null, null, "none", $"deep water assumed in {deepWaterCells:N0} cells{hint}");
     }
 

@@ -10,7 +10,7 @@ public sealed class SourceFile : IDisposable
     private HindcastFile? _file;
 
     private SourceFile(HindcastFile file, VariableMapping? mapping, string sha256, long sizeBytes, IReadOnlyDictionary<string, string> attributes,
-        (string Name, string Reason)? depthLookalike)
+        DepthLookalike? depthLookalike)
     {
         Attributes = attributes;
         DepthLookalike = depthLookalike;
@@ -53,7 +53,7 @@ public sealed class SourceFile : IDisposable
     public IReadOnlyDictionary<WaveVariable, VariableSource> Sources { get; }
 
     /// <summary>A variable named like the water depth that was not taken for it, and why; null when there is none.</summary>
-    public (string Name, string Reason)? DepthLookalike { get; }
+    public DepthLookalike? DepthLookalike { get; }
 
     /// <summary>Opens and decodes a file, and checksums its bytes (SHA-256, streamed).</summary>
     public static SourceFile Open(string path, VariableMapping? mapping)
@@ -64,7 +64,7 @@ public sealed class SourceFile : IDisposable
             sha = Convert.ToHexStringLower(SHA256.HashData(stream));
         var file = HindcastFile.Open(path, mapping);
         Dictionary<string, string> attributes;
-        (string Name, string Reason)? lookalike = null;
+        DepthLookalike? lookalike = null;
         using (var raw = NetCdfFile.Open(path))
         {
             attributes = raw.GlobalAttributes.Where(a => a.IsText).ToDictionary(a => a.Name, a => a.Text!, StringComparer.OrdinalIgnoreCase);
