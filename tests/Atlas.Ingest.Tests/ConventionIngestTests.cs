@@ -73,6 +73,20 @@ public class ConventionIngestTests(TestDatabase database) : IClassFixture<TestDa
     }
 
     [Fact]
+    public async Task TheMappingHintOfTheSummaryLoadsTheLookalikeDepth()
+    {
+        // The look-alike of the test above, named as the summary advises: {"depth": "dpt"} with its units.
+        var file = FixtureFiles.Make("conv-mapped.nc", 0, 4, "--depth-name dpt --depth-standard-name none --depth-units \"\"");
+        var mapping = Hindcast.VariableMapping.Parse("""{ "depth": "dpt", "units": { "depth": "m" } }""", "site.json");
+        var summary = await Ingestor.RunAsync(new IngestRequest("conv-mapped", [file], Mapping: mapping));
+        Assert.Contains("depth: from 'dpt' (the mapping file), static", summary.Describe());
+        var dataset = (await new Storage.Datasets.DatasetStore(database.DataSource).FindAsync("conv-mapped"))!;
+        var cells = await new Storage.Cells.CellStore(database.DataSource).AllAsync(dataset.Id);
+        // Closed form of make_fixture.py: 5 + 10 i m.
+        Assert.Equal(25.0, cells.Single(c => c.CellId == 1 * Nx + 2).DepthMetres!.Value, 3);
+    }
+
+    [Fact]
     public async Task WithoutTeTheSummaryStatesTheRatioTheStatisticsUse()
     {
         var file = FixtureFiles.Make("conv-note.nc", 0, 4, "--no-te");
