@@ -33,7 +33,7 @@ public static class IngestAssumptions
         {
             if (variable == WaveVariable.Depth)
             {
-                list.Add(deepWaterCells is null && StoredEntry(storedMetadataJson, "depth") is { } kept ? kept : Depth(files, depths, deepWaterCells ?? 0));
+                list.Add(deepWaterCells is null && StoredEntry(storedMetadataJson, "depth") is { } kept ? kept : Depth(files, depths, deepWaterCells));
                 continue;
             }
             var source = files.Select(f => f.Sources.GetValueOrDefault(variable)).FirstOrDefault(s => s is not null);
@@ -71,15 +71,24 @@ public static class IngestAssumptions
         return step == long.MaxValue ? 0 : step;
     }
 
-    private static VariableAssumption Depth(IReadOnlyList<SourceFile> files, CellDepths? depths, int deepWaterCells)
+    /// <param name="deepWaterCells">Wet cells written with no depth; null when this ingest did not write the cells (an
+    /// addition to a dataset loaded before the metadata kept its assumptions), whose stored depths then stand.</param>
+    private static VariableAssumption Depth(IReadOnlyList<SourceFile> files, CellDepths? depths, int? deepWaterCells)
     {
+        const string Kept = "the cells keep the depths stored when the dataset was first loaded (deep water where none was stored)";
         if (depths is not null)
         {
             var source = files.First(f => f.Has(WaveVariable.Depth)).Sources[WaveVariable.Depth];
             var conversion = source.Conversion == "none" ? depths.Describe() : $"{depths.Describe()}; {source.Conversion}";
-            var assumed = deepWaterCells > 0 ? $"deep water assumed in {deepWaterCells:N0} wet cells where the depth is missing" : "none";
+            var assumed = deepWaterCells switch
+            {
+                null => Kept,
+                > 0 => $"deep water assumed in {deepWaterCells:N0} wet cells where the depth is missing",
+                _ => "none",
+            };
             return new VariableAssumption("depth", source.Name, source.FoundBy, conversion, assumed);
         }
+        if (deepWaterCells is null) return new VariableAssumption("depth", null, null, "none", Kept);
         // A look-alike with unusable units can be mapped (with its units); one off the wave grid cannot be a cell depth.
         var hint = files.Select(f => f.DepthLookalike).FirstOrDefault(h => h is not null) is not { } lookalike ? ""
             : !lookalike.OnTheWaveGrid
