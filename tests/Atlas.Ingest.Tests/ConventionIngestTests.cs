@@ -60,6 +60,19 @@ public class ConventionIngestTests(TestDatabase database) : IClassFixture<TestDa
     }
 
     [Fact]
+    public async Task AnAdditionKeepsTheDepthEntryOfTheFirstLoad()
+    {
+        // Cell depths are written by the first load only; a later month must not restate them from its own file.
+        var january = FixtureFiles.Make("conv-keep-a.nc", 0, 8, "--depth-name dpt --depth-standard-name depth --depth-time");
+        var february = FixtureFiles.Make("conv-keep-b.nc", 31 * 24, 4, "--depth-name dpt --depth-standard-name depth --depth-time");
+        await Ingestor.RunAsync(new IngestRequest("conv-keep", [january]));
+        var added = await Ingestor.RunAsync(new IngestRequest("conv-keep", [february]));
+        Assert.Contains("depth: from 'dpt' (standard_name 'depth'), time-varying, time mean of 8 steps used", added.Describe());
+        var dataset = (await new Storage.Datasets.DatasetStore(database.DataSource).FindAsync("conv-keep"))!;
+        Assert.Contains("time mean of 8 steps", Assumption(dataset.MetadataJson, "depth").GetProperty("conversion").GetString());
+    }
+
+    [Fact]
     public async Task WithoutDepthTheSummaryCountsTheDeepWaterCellsAndNamesTheLookalike()
     {
         var file = FixtureFiles.Make("conv-nodepth.nc", 0, 4, "--depth-name dpt --depth-standard-name none --depth-units \"\"");
