@@ -28,6 +28,9 @@ public sealed class HindcastFile : IDisposable
         var hs = _variables[WaveVariable.Hs].Source;
         (_time, var timeVariable) = FindTime(file, hs, mapping);
         TimesUtc = DecodeTimes(file, timeVariable);
+        // A backwards step is refused at once; a repeated one once the values of both steps can be compared.
+        int repeated = FirstRepeat(TimesUtc);
+        if (repeated < 0) CheckIncreasing(file, timeVariable, TimesUtc);
 
         var layout = CfGridReader.Read(file, hs, _time);
         Grid = layout.Grid;
@@ -47,6 +50,7 @@ public sealed class HindcastFile : IDisposable
             _decoding[wave] = (decoder, Roles(resolved.Source, timeRequired: wave != WaveVariable.Depth));
             TuneChunkCache(resolved.Source);
         }
+        if (repeated > 0) CheckIncreasing(file, timeVariable, TimesUtc, RepeatNote(repeated));
     }
 
     /// <summary>
@@ -167,24 +171,60 @@ public sealed class HindcastFile : IDisposable
     }
 
     /// <summary>
-    /// Water depth of every point in metres, positive down, from the first step when the depth has a time dimension.
-    /// NaN where the file gives no value or the sea floor is at or above the surface (land), and everywhere when
-    /// the file has no depth variable.
+    /// Water depth of every point in metres, positive down; the time mean over the file's steps when the depth has a
+    /// time dimension (<see cref="ReadDepthField"/>). NaN where the file gives no value or the sea floor is at or above
+    /// the surface (land), and everywhere when the file has no depth variable.
     /// </summary>
     public float[] ReadDepth()
     {
-        var depth = new float[Grid.PointCount];
-        if (!_decoding.TryGetValue(WaveVariable.Depth, out var decoding))
-        {
-            Array.Fill(depth, float.NaN);
-            return depth;
-        }
-        long[] start = _spatial.Select(_ => 0L).ToArray(), count = _spatial.Select(d => d.Length).ToArray();
-        ReadSlab(_variables[WaveVariable.Depth].Source, decoding, 0, 1, start, count, depth);
+        var depth = ReadDepthField().Metres;
         for (int p = 0; p < depth.Length; p++)
             if (!(depth[p] > 0)) depth[p] = float.NaN;
         return depth;
     }
+
+    /// <summary>
+    /// The decoded depth of every point, signs kept (negative where the sea floor is above the surface): a static depth
+    /// as it is, a time-varying one as the mean of its valid steps at each point (read in blocks of steps, so a long
+    /// file never sits in memory whole). All NaN with no steps when the file has no depth variable.
+    /// </summary>
+    public DepthField ReadDepthField()
+    {
+        int points = Grid.PointCount;
+        var mean = new float[points];
+        var valid = new int[points];
+        if (!_decoding.TryGetValue(WaveVariable.Depth, out var decoding))
+        {
+            Array.Fill(mean, float.NaN);
+            return new DepthField(mean, valid, 0, false);
+        }
+        var source = _variables[WaveVariable.Depth].Source;
+        long[] start = _spatial.Select(_ => 0L).ToArray(), count = _spatial.Select(d => d.Length).ToArray();
+        if (Array.IndexOf(decoding.Roles, TimeRole) < 0)
+        {
+            ReadSlab(source, decoding, 0, 1, start, count, mean);
+            for (int p = 0; p < points; p++) valid[p] = float.IsNaN(mean[p]) ? 0 : 1;
+            return new DepthField(mean, valid, 1, false);
+        }
+
+        int steps = TimesUtc.Count;
+        var sum = new double[points];
+        ForEachStepBlock(steps, (t, slab) => ReadSlab(source, decoding, t, slab.Length / points, start, count, slab), slab =>
+        {
+            for (int k = 0; k < slab.Length; k++)
+            {
+                float v = slab[k];
+                if (float.IsNaN(v)) continue;
+                sum[k % points] += v;
+                valid[k % points]++;
+            }
+        });
+        for (int p = 0; p < points; p++) mean[p] = valid[p] > 0 ? (float)(sum[p] / valid[p]) : float.NaN;
+        return new DepthField(mean, valid, steps, true);
+    }
+
+    /// <summary>The decoder of a variable the file has, e.g. to describe its conversion; null when it lacks it.</summary>
+    public CfValueDecoder? DecoderOf(WaveVariable v) => _decoding.TryGetValue(v, out var d) ? d.Decoder : null;
 
     /// <summary>
     /// The wet flag of every point by the <see cref="LandMask"/> rule, probing Hs over the first
@@ -196,26 +236,36 @@ public sealed class HindcastFile : IDisposable
         int points = Grid.PointCount;
         int steps = Math.Min(probeSteps, TimesUtc.Count);
         var seen = new bool[points];
-        int stepsPerRead = (int)Math.Clamp(ScratchValues / Math.Max(points, 1), 1, steps);
+        ForEachStepBlock(steps, (t, slab) => ReadSteps(WaveVariable.Hs, t, slab.Length / points, 0, points, slab), slab => LandMask.MarkHsSeen(slab, seen));
+        return LandMask.Derive(Has(WaveVariable.Depth) ? ReadDepth() : [], seen);
+    }
+
+    public void Dispose() => _file.Dispose();
+
+    /// <summary>
+    /// Reads steps [0, <paramref name="steps"/>) of every point in blocks of whole steps that fit the scratch budget
+    /// (<paramref name="read"/> fills a [time][point] slab starting at a step) and hands each block to
+    /// <paramref name="consume"/>, so a long file never sits in memory whole.
+    /// </summary>
+    private void ForEachStepBlock(int steps, Action<int, Span<float>> read, Action<Span<float>> consume)
+    {
+        int points = Grid.PointCount;
+        int stepsPerRead = (int)Math.Clamp(ScratchValues / Math.Max(points, 1), 1, Math.Max(steps, 1));
         var buffer = ArrayPool<float>.Shared.Rent(stepsPerRead * points);
         try
         {
             for (int t = 0; t < steps; t += stepsPerRead)
             {
-                int n = Math.Min(stepsPerRead, steps - t);
-                var slab = buffer.AsSpan(0, n * points);
-                ReadSteps(WaveVariable.Hs, t, n, 0, points, slab);
-                LandMask.MarkHsSeen(slab, seen);
+                var slab = buffer.AsSpan(0, Math.Min(stepsPerRead, steps - t) * points);
+                read(t, slab);
+                consume(slab);
             }
         }
         finally
         {
             ArrayPool<float>.Shared.Return(buffer);
         }
-        return LandMask.Derive(Has(WaveVariable.Depth) ? ReadDepth() : [], seen);
     }
-
-    public void Dispose() => _file.Dispose();
 
     /// <summary>
     /// Reads a slab whose memory layout is the destination's ([time][point]) in calls of at most
@@ -371,14 +421,70 @@ public sealed class HindcastFile : IDisposable
                 int missing = Array.IndexOf(values, stored);
                 if (missing >= 0) throw new FormatException($"time[{missing}] is the fill value; every step needs a time");
             }
-            var times = parsed.ToUtc(values);
-            CfTime.RequireStrictlyIncreasing(times);
-            return times;
+            return parsed.ToUtc(values);
         }
         catch (FormatException e)
         {
             throw new HindcastFormatException(file.Path, time.Name, e.Message, e);
         }
+    }
+
+    /// <summary>The index of the first step whose time equals the one before; -1 when none (or a backwards step comes first).</summary>
+    private static int FirstRepeat(IReadOnlyList<DateTime> times)
+    {
+        for (int i = 1; i < times.Count; i++)
+        {
+            if (times[i] > times[i - 1]) continue;
+            return times[i] == times[i - 1] ? i : -1;
+        }
+        return -1;
+    }
+
+    /// <summary>Refuses a time axis that does not increase strictly, naming the step index and both times.</summary>
+    private static void CheckIncreasing(NetCdfFile file, NetCdfVariable time, IReadOnlyList<DateTime> times, string note = "")
+    {
+        try
+        {
+            CfTime.RequireStrictlyIncreasing(times);
+        }
+        catch (FormatException e)
+        {
+            throw new HindcastFormatException(file.Path, time.Name, e.Message + note, e);
+        }
+    }
+
+    /// <summary>
+    /// How the two steps of a repeated time differ, per wave variable: the largest difference over the points (directions
+    /// the shorter way round), or a value against a missing one; says so when they are identical.
+    /// </summary>
+    private string RepeatNote(int step)
+    {
+        int points = Grid.PointCount;
+        var both = new float[2 * points];
+        var parts = new List<string>();
+        foreach (var (wave, resolved) in _variables)
+        {
+            if (wave == WaveVariable.Depth) continue;
+            ReadSteps(wave, step - 1, 2, 0, points, both);
+            double largest = 0;
+            int at = -1;
+            for (int p = 0; p < points; p++)
+            {
+                float a = both[p], b = both[points + p];
+                if (float.IsNaN(a) && float.IsNaN(b)) continue;
+                double d = float.IsNaN(a) || float.IsNaN(b) ? double.PositiveInfinity : Math.Abs(a - b);
+                if (wave is WaveVariable.Dir && d > 180) d = 360 - d;
+                if (d > largest) (largest, at) = (d, p);
+            }
+            if (at < 0) continue;
+            string units = CfStandardNames.QuantityOf(wave) switch { PhysicalQuantity.Length => "m", PhysicalQuantity.Time => "s", _ => "degree" };
+            parts.Add(double.IsPositiveInfinity(largest)
+                ? $"variable '{resolved.Name}' has a value in one and none in the other (point {at})"
+                : $"variable '{resolved.Name}' by up to {largest:G4} {units} (point {at})");
+        }
+        return parts.Count == 0
+            ? "; the two steps hold identical values: give each step once"
+            : "; the two steps differ: " + string.Join(", ", parts);
     }
 
     private HindcastFormatException Problem(NetCdfVariable variable, string problem) => new(Path, variable.Name, problem);

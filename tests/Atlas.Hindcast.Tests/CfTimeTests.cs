@@ -96,10 +96,13 @@ public sealed class CfTimeTests
     }
 
     [Fact]
-    public void RepeatedStepIsRejectedNamingItsIndex()
+    public void RepeatedStepIsRejectedNamingItsIndexAndTheLargestDifference()
     {
         var e = Assert.Throws<HindcastFormatException>(() => HindcastFile.Open(_fixtures.Path("time_duplicate.classic")));
-        Assert.Equal("time[2] = 2001-01-01T01:00:00Z repeats time[1] = 2001-01-01T01:00:00Z; times must increase strictly", e.Problem);
+        // time_duplicate.cdl (values as ncdump prints them): steps 1 and 2 hold hs 1.5, 1.75 and 2, 2.25 (0.5 m apart),
+        // tp 9, 9.5 and 10, 10.5 (1 s apart).
+        Assert.Equal("time[2] = 2001-01-01T01:00:00Z repeats time[1] = 2001-01-01T01:00:00Z; times must increase strictly; " +
+                     "the two steps differ: variable 'hs' by up to 0.5 m (point 0), variable 'tp' by up to 1 s (point 0)", e.Problem);
     }
 
     [Theory]

@@ -105,12 +105,15 @@ public sealed class HindcastFileTests
     }
 
     [Fact]
-    public void DepthWithATimeDimensionIsTakenFromTheFirstStep()
+    public void DepthWithATimeDimensionIsItsTimeMean()
     {
         using var file = HindcastFile.Open(_fixtures.Path("depth_with_time.classic"));
         Assert.Equal("wd", file.Source(WaveVariable.Depth)!.Name);
-        // depth_with_time.cdl, first step: 10.5, 0 (dry), 30.
-        Assert.Equal([10.5f, float.NaN, 30f], file.ReadDepth());
+        // depth_with_time.cdl, mean of the two steps: (10.5 + 11.5) / 2, (0 + 1) / 2, (30 + 31) / 2.
+        Assert.Equal([11f, 0.5f, 30.5f], file.ReadDepth());
+        var field = file.ReadDepthField();
+        Assert.True(field.TimeVarying);
+        Assert.Equal(2, field.Steps);
     }
 
     [Fact]

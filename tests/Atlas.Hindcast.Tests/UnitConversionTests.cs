@@ -26,6 +26,20 @@ public sealed class UnitConversionTests
     [InlineData("degrees_true", PhysicalQuantity.Angle, 1)]
     [InlineData("radians", PhysicalQuantity.Angle, 57.295779513082323)]
     [InlineData("rad", PhysicalQuantity.Angle, 57.295779513082323)]
+    [InlineData("radian", PhysicalQuantity.Angle, 57.295779513082323)]
+    // Spellings real files carry beside the udunits ones (bearings from true north, any case, any run of blanks).
+    [InlineData("Degree true", PhysicalQuantity.Angle, 1)]
+    [InlineData("degrees  true", PhysicalQuantity.Angle, 1)]
+    [InlineData("Degrees_True", PhysicalQuantity.Angle, 1)]
+    [InlineData("deg", PhysicalQuantity.Angle, 1)]
+    [InlineData("°", PhysicalQuantity.Angle, 1)]
+    // Frequencies: 1 Hz = 1 s-1 (SI Brochure); 1 mHz = 0.001 Hz.
+    [InlineData("Hz", PhysicalQuantity.Frequency, 1)]
+    [InlineData("hertz", PhysicalQuantity.Frequency, 1)]
+    [InlineData("s-1", PhysicalQuantity.Frequency, 1)]
+    [InlineData("1/s", PhysicalQuantity.Frequency, 1)]
+    [InlineData("s^-1", PhysicalQuantity.Frequency, 1)]
+    [InlineData("mHz", PhysicalQuantity.Frequency, 0.001)]
     public void KnownUnitsConvertToSi(string units, PhysicalQuantity quantity, double factor)
     {
         var conversion = UnitConversion.ToSi(units, quantity);
@@ -38,6 +52,8 @@ public sealed class UnitConversionTests
     [InlineData("M", PhysicalQuantity.Length, "units 'M' cannot be converted to metres")]
     [InlineData("s", PhysicalQuantity.Length, "units 's' cannot be converted to metres")]
     [InlineData("Hz", PhysicalQuantity.Time, "units 'Hz' cannot be converted to seconds")]
+    [InlineData("s", PhysicalQuantity.Frequency, "units 's' cannot be converted to hertz")]
+    [InlineData("degrees_east", PhysicalQuantity.Angle, "units 'degrees_east' cannot be converted to degrees")]
     [InlineData("degrees_north", PhysicalQuantity.Angle, "units 'degrees_north' cannot be converted to degrees")]
     [InlineData("-1 m", PhysicalQuantity.Length, "units '-1 m' cannot be converted to metres")]
     [InlineData("", PhysicalQuantity.Length, "has no units attribute")]

@@ -30,6 +30,7 @@ public static class LayerNetCdfWriter
                 ["dataset"] = p.Dataset,
                 ["source_files"] = string.Join("; ", p.SourceFiles.Select(f => $"{f.Name} sha256={f.Sha256}")),
                 ["method"] = p.MethodNotes,
+                ["assumptions"] = p.AssumptionsText(),
                 ["licence"] = p.Licence ?? "not stated",
                 ["caution"] = p.Caution,
                 ["period"] = request.Period.Name,

@@ -48,8 +48,14 @@ public sealed class ProvenanceBuilder(DatasetStore datasets, DatasetCatalog cata
         return new Provenance(dataset.Slug, dataset.Title,
             files!.Select(f => new ProvenanceFile(f.FileName, f.Sha256, f.TimeStartUtc, f.TimeEndUtc)).ToArray(),
             Software, SoftwareVersion, stamp.ComputedAtUtc, DateTime.UtcNow, method,
-            Text(root, "licence"), Text(root, "citation"), AtlasCaution.Text);
+            Text(root, "licence"), Text(root, "citation"), AtlasCaution.Text, VariableAssumption.ListFrom(root), Warnings(root));
     }
+
+    /// <summary>The ingest's "warnings" array of the dataset metadata; empty when absent.</summary>
+    public static IReadOnlyList<string> Warnings(JsonElement metadata) =>
+        metadata.ValueKind == JsonValueKind.Object && metadata.TryGetProperty("warnings", out var list) && list.ValueKind == JsonValueKind.Array
+            ? list.EnumerateArray().Where(w => w.ValueKind == JsonValueKind.String).Select(w => w.GetString()!).ToArray()
+            : [];
 
     /// <summary>A string member of a JSON object, or null when absent, null or not a string.</summary>
     public static string? Text(JsonElement element, string name) =>

@@ -114,6 +114,7 @@ public sealed class LayerRenderer(
             new("statistics_computed_at", p.StatisticsComputedAtUtc?.ToString("O") ?? "not computed"),
             new("generated_at", p.GeneratedAtUtc.ToString("O")),
             new("method", p.MethodNotes),
+            new("assumptions", p.AssumptionsText()),
             new("caution", p.Caution),
         };
         if (p.Citation is { } citation) items.Add(new("citation", citation));

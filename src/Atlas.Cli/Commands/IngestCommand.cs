@@ -15,7 +15,7 @@ public static class IngestCommand
         var files = new Argument<string[]>("files") { Description = "CF-NetCDF hindcast files (classic, 64-bit offset, CDF5 or NetCDF-4)", Arity = ArgumentArity.OneOrMore };
         var dataset = new Option<string>("--dataset") { Description = "Slug of the dataset to load into (created if new): lower-case letters, digits and dashes", Required = true };
         var title = new Option<string?>("--title") { Description = "Title of a new dataset (default: the files' title attribute)" };
-        var replace = new Option<bool>("--replace") { Description = "Replace time steps that are already stored instead of refusing the file" };
+        var replace = new Option<bool>("--replace") { Description = "Replace time steps that are already stored with other values instead of refusing the file (a step given again with identical values is stored once without it)" };
         var mapping = new Option<string?>("--mapping") { Description = "JSON file naming the variables of a model that does not use CF standard names" };
         var noStats = new Option<bool>("--no-stats") { Description = "Do not compute statistics afterwards" };
         var command = new Command("ingest", "Load hindcast fields from CF-NetCDF files into a dataset.") { files, dataset, title, replace, mapping, noStats };

@@ -10,6 +10,31 @@ public static class CfStandardNames
     public const string ToDirection = "sea_surface_wave_to_direction";
     public const string DirectionalSpread = "sea_surface_wave_directional_spread";
 
+    /// <summary>
+    /// Peak frequency as spectral-model output names it (fp = 1 / Tp). Not in the CF standard-name table as far as we
+    /// recall (from memory); taken because it says unambiguously what the variable is.
+    /// </summary>
+    public const string PeakFrequency = "sea_surface_wave_peak_frequency";
+
+    /// <summary>The CF-style long form of the peak frequency name (from memory, by analogy with the peak period name).</summary>
+    public const string PeakFrequencyAtSpectralMaximum = "sea_surface_wave_frequency_at_variance_spectral_density_maximum";
+
+    /// <summary>
+    /// CF "depth": distance below the surface, positive down by definition, but files that write it for the water
+    /// depth sometimes say positive = "up", and that attribute is honoured (the value is negated).
+    /// </summary>
+    public const string Depth = "depth";
+
+    /// <summary>Peak-frequency names: a variable carrying one becomes Tp by its reciprocal.</summary>
+    public static readonly IReadOnlyList<string> PeakFrequencies = [PeakFrequency, PeakFrequencyAtSpectralMaximum];
+
+    /// <summary>
+    /// Names spectral models and ocean models give the water depth (common practice). A horizontal field with a length
+    /// unit and one of these names, and no standard_name saying otherwise, is taken as the depth, and the ingest summary
+    /// says it was matched by its name.
+    /// </summary>
+    public static readonly IReadOnlyList<string> WaterDepthNames = ["dpt", "depth", "wdepth", "deptho"];
+
     /// <summary>Depth names, positive down by their CF definition.</summary>
     public static readonly IReadOnlyList<string> DepthPositiveDown =
     [
@@ -51,10 +76,10 @@ public static class CfStandardNames
     {
         WaveVariable.Hs => [SignificantHeight],
         WaveVariable.Te => [EnergyPeriod],
-        WaveVariable.Tp => [PeakPeriod],
+        WaveVariable.Tp => [PeakPeriod, .. PeakFrequencies],
         WaveVariable.Dir => [FromDirection, ToDirection],
         WaveVariable.Spread => [DirectionalSpread],
-        _ => [.. DepthPositiveDown, .. ElevationPositiveUp],
+        _ => [.. DepthPositiveDown, .. ElevationPositiveUp, Depth],
     };
 
     /// <summary>The wave variable a standard name identifies, or null.</summary>
@@ -71,7 +96,7 @@ public static class CfStandardNames
     {
         WaveVariable.Hs => ["hs", "swh", "hm0", "vhm0", "hsig", "hsign"],
         WaveVariable.Te => ["te", "tm10", "tm_10", "tmm10", "t0m1", "vtm10"],
-        WaveVariable.Tp => ["tp", "tpeak", "vtpk", "tpk"],
+        WaveVariable.Tp => ["tp", "tpeak", "vtpk", "tpk", "fp", "fpeak"],
         WaveVariable.Dir => ["dir", "mwd", "vmdr", "dirm", "mdir", "theta"],
         WaveVariable.Spread => ["spr", "dspr", "spread", "vspr"],
         _ => ["depth", "dpt", "bathymetry", "deptho", "wdepth"],

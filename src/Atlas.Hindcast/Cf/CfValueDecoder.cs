@@ -8,7 +8,7 @@ namespace Atlas.Hindcast;
 /// missing when equal to _FillValue (or, without one, the netCDF default fill of the type) or to any missing_value,
 /// or outside valid_range / valid_min / valid_max; then unpacked as <c>raw * scale_factor + add_offset</c>;
 /// then converted to SI units; elevations are negated into depths; directions are turned from "to" into "from"
-/// by adding 180 degrees and wrapped into [0, 360).
+/// by adding 180 degrees and wrapped into [0, 360); a peak frequency is turned into a period by its reciprocal.
 /// </summary>
 /// <remarks>
 /// As in netCDF4-python, 8-bit types have no default fill (their whole range is commonly data) and fill values are
@@ -21,10 +21,11 @@ public sealed class CfValueDecoder
     private readonly double[] _rawMissing;
     private readonly double _rawMin, _rawMax;
     private readonly double _scale, _offset, _factor, _unitOffset;
-    private readonly bool _isDirection, _toFrom;
+    private readonly bool _isDirection, _toFrom, _reciprocal;
 
-    private CfValueDecoder(double[] rawMissing, double rawMin, double rawMax, double scale, double offset, UnitConversion units, bool negate, bool isDirection, bool toFrom, NetCdfType readType)
+    private CfValueDecoder(double[] rawMissing, double rawMin, double rawMax, double scale, double offset, UnitConversion units, bool negate, bool isDirection, bool toFrom, bool reciprocal, NetCdfType readType)
     {
+        _reciprocal = reciprocal;
         _rawMissing = rawMissing;
         _rawMin = rawMin;
         _rawMax = rawMax;
@@ -46,8 +47,11 @@ public sealed class CfValueDecoder
 
     public bool IsPacked { get; }
 
+    /// <summary>True when the decoded value is the reciprocal of the converted one (a peak frequency read as Tp).</summary>
+    public bool IsReciprocal => _reciprocal;
+
     /// <summary>True when decoding changes nothing but the missing values (float data in SI units).</summary>
-    private bool OnlyMasks => ReadType == NetCdfType.Float && !IsPacked && _factor == 1 && _unitOffset == 0 && !_isDirection;
+    private bool OnlyMasks => ReadType == NetCdfType.Float && !IsPacked && _factor == 1 && _unitOffset == 0 && !_isDirection && !_reciprocal;
 
     /// <summary>
     /// Builds the decoder for <paramref name="variable"/>. Throws <see cref="FormatException"/> (problem text only) for
@@ -56,8 +60,10 @@ public sealed class CfValueDecoder
     /// <param name="unitsOverride">Units to use instead of the variable's units attribute (from a mapping file).</param>
     /// <param name="negate">True for an elevation (positive up) decoded as a depth (positive down).</param>
     /// <param name="towards">True when the variable is a direction the waves travel to.</param>
+    /// <param name="reciprocal">True to decode 1 / value (a frequency in Hz read as a period in s); a value at or below
+    /// zero then decodes as missing.</param>
     public static CfValueDecoder Create(NetCdfVariable variable, PhysicalQuantity quantity, string? unitsOverride = null,
-        bool negate = false, bool towards = false)
+        bool negate = false, bool towards = false, bool reciprocal = false)
     {
         if (!variable.Type.IsNumeric()) throw new FormatException($"has type {variable.Type}; a numeric type is required");
         bool unsigned = string.Equals(variable.TextAttribute("_Unsigned"), "true", StringComparison.OrdinalIgnoreCase);
@@ -95,7 +101,7 @@ public sealed class CfValueDecoder
         }
 
         return new CfValueDecoder(missing.Distinct().ToArray(), rawMin, rawMax, scale, offset,
-            conversion, negate, quantity == PhysicalQuantity.Angle, towards, readType);
+            conversion, negate, quantity == PhysicalQuantity.Angle, towards, reciprocal, readType);
     }
 
     /// <summary>Decodes float data in place (the common unpacked case).</summary>
@@ -135,6 +141,8 @@ public sealed class CfValueDecoder
             }
             double v = (r * _scale + _offset) * _factor + _unitOffset;
             if (_isDirection) v = WrapDegrees(_toFrom ? v + 180 : v);
+            // A zero or negative peak frequency has no period: the step is missing, never infinite or negative.
+            if (_reciprocal) v = v > 0 ? 1 / v : double.NaN;
             destination[i] = (float)v;
         }
     }

@@ -12,12 +12,15 @@ public enum PhysicalQuantity
     Time,
     /// <summary>Converted to degrees (the atlas keeps directions in degrees, not radians).</summary>
     Angle,
+    /// <summary>Converted to hertz (a peak frequency, later turned into a period by its reciprocal).</summary>
+    Frequency,
 }
 
 /// <summary>
 /// A linear conversion from a file's units to the atlas units: <c>si = value * Factor + Offset</c>.
-/// Covers the udunits spellings that wave-model output uses for lengths, periods and angles; anything else
-/// is refused rather than guessed.
+/// Covers the udunits spellings that wave-model output uses for lengths, periods, angles and frequencies, and the
+/// spellings real files carry beside them ("Degree true", "degrees_true", "deg", "°", "1/s"); anything else is refused
+/// rather than guessed.
 /// </summary>
 public readonly record struct UnitConversion(double Factor, double Offset)
 {
@@ -39,6 +42,14 @@ public readonly record struct UnitConversion(double Factor, double Offset)
         ["h"] = (PhysicalQuantity.Time, 3600),
         ["°"] = (PhysicalQuantity.Angle, 1),
         ["rad"] = (PhysicalQuantity.Angle, 180 / Math.PI),
+        ["Hz"] = (PhysicalQuantity.Frequency, 1),
+        ["mHz"] = (PhysicalQuantity.Frequency, 0.001),
+        // udunits writes a reciprocal second as "s-1"; files also carry "1/s", "s^-1" and "/s".
+        ["s-1"] = (PhysicalQuantity.Frequency, 1),
+        ["s^-1"] = (PhysicalQuantity.Frequency, 1),
+        ["s**-1"] = (PhysicalQuantity.Frequency, 1),
+        ["1/s"] = (PhysicalQuantity.Frequency, 1),
+        ["/s"] = (PhysicalQuantity.Frequency, 1),
     };
 
     private static readonly Dictionary<string, (PhysicalQuantity Quantity, double Factor)> Words = new(StringComparer.OrdinalIgnoreCase)
@@ -78,7 +89,18 @@ public readonly record struct UnitConversion(double Factor, double Offset)
         ["angular_degree"] = (PhysicalQuantity.Angle, 1),
         ["radian"] = (PhysicalQuantity.Angle, 180 / Math.PI),
         ["radians"] = (PhysicalQuantity.Angle, 180 / Math.PI),
+        // Reanalysis-style spellings of a bearing from true north: "Degree true", "degrees true".
+        ["degree true"] = (PhysicalQuantity.Angle, 1),
+        ["degrees true"] = (PhysicalQuantity.Angle, 1),
+        ["degree_T"] = (PhysicalQuantity.Angle, 1),
+        ["degrees_T"] = (PhysicalQuantity.Angle, 1),
+        ["°T"] = (PhysicalQuantity.Angle, 1),
+        ["hertz"] = (PhysicalQuantity.Frequency, 1),
+        // A lower-case "hz" is not udunits, but files carry it and it cannot mean anything else.
+        ["hz"] = (PhysicalQuantity.Frequency, 1),
     };
+
+    private static readonly Regex Blanks = new(@"\s+", RegexOptions.CultureInvariant);
 
     // udunits allows a numeric scale in front of a unit: "0.01 m", "1e-3 m", "100 cm".
     private static readonly Regex ScaledUnit = new(@"^(?<scale>[-+]?(\d+\.?\d*|\.\d+)([eE][-+]?\d+)?)\s*\*?\s*(?<unit>\S.*)$", RegexOptions.CultureInvariant);
@@ -94,6 +116,7 @@ public readonly record struct UnitConversion(double Factor, double Offset)
         {
             PhysicalQuantity.Length => "metres",
             PhysicalQuantity.Time => "seconds",
+            PhysicalQuantity.Frequency => "hertz",
             _ => "degrees",
         };
         throw new FormatException(string.IsNullOrWhiteSpace(units)
@@ -105,7 +128,8 @@ public readonly record struct UnitConversion(double Factor, double Offset)
     {
         conversion = default;
         if (string.IsNullOrWhiteSpace(units)) return false;
-        string text = units.Trim();
+        // Runs of blanks count as one ("Degree  true" is "Degree true").
+        string text = Blanks.Replace(units.Trim(), " ");
         double scale = 1;
         var scaled = ScaledUnit.Match(text);
         if (scaled.Success && !Lookup(text, out _))

@@ -1,12 +1,18 @@
 using System.Text.Json.Nodes;
+using Atlas.Storage.Datasets;
 using Atlas.Storage.Series;
 
 namespace Atlas.Ingest.Ingestion;
 
-/// <summary>The metadata an ingest records on its dataset: variables and units, storage scheme and source notes.</summary>
+/// <summary>
+/// The metadata an ingest records on its dataset: variables and units, storage scheme, source notes, and what was
+/// assumed: <c>assumptions</c> is an array of { variable, source, found_by, conversion, assumed } (one per hs, te, tp,
+/// dir, spread, depth; source and found_by null when none was found), <c>warnings</c> an array of sentences.
+/// </summary>
 public static class DatasetMetadata
 {
-    public static string Describe(IReadOnlyList<SourceFile> files, int mask, bool hasDepth)
+    public static string Describe(IReadOnlyList<SourceFile> files, int mask, bool hasDepth,
+        IReadOnlyList<VariableAssumption>? assumptions = null, IReadOnlyList<string>? warnings = null)
     {
         var variables = new JsonObject();
         foreach (SeriesVariable v in Enum.GetValues<SeriesVariable>())
@@ -34,6 +40,8 @@ public static class DatasetMetadata
             ["depth_note"] = hasDepth
                 ? "finite-depth power from the cell depth"
                 : "the source has no depth: power is computed for deep water",
+            ["assumptions"] = IngestAssumptions.ToJson(assumptions ?? []),
+            ["warnings"] = new JsonArray([.. (warnings ?? []).Select(w => (JsonNode)JsonValue.Create(w))]),
         };
         return json.ToJsonString();
     }

@@ -14,7 +14,9 @@ namespace Atlas.Ingest.Ingestion;
 /// Loads hindcast files into a dataset: transposes time-major fields into cell-major yearly chunks, packs them
 /// (<see cref="SeriesCodec"/>) and writes them with binary COPY. Everything happens in one transaction, so a failed
 /// or killed ingest leaves nothing visible and the same command can simply be run again. A file already loaded
-/// (same SHA-256) is skipped; time steps already stored are refused unless the request says to replace them.
+/// (same SHA-256) is skipped. A time step given twice (already stored, or in two of the files, as monthly files that
+/// share their boundary step) is stored once when its values are identical, and refused naming the step, the variable
+/// and the largest difference when they are not, unless the request replaces stored steps.
 /// Memory stays within the request's budget: cells are processed in blocks, each read with hyperslab reads.
 /// </summary>
 public sealed class HindcastIngestor(NpgsqlDataSource dataSource)
@@ -73,31 +75,26 @@ public sealed class HindcastIngestor(NpgsqlDataSource dataSource)
         if (fresh.Count == 0)
             return new IngestSummary(request.DatasetSlug, 0, skipped, 0, 0, 0, 0, clock.Elapsed, false);
 
-        CheckTimesAcrossFiles(fresh);
         var grid = GridDescription.Of(fresh[0].Grid);
         if (dataset is not null && !GridDescription.Matches(dataset, grid))
             throw new IngestException($"{fresh[0].Name}: its grid ({grid.Describe()}) differs from the grid of dataset '{dataset.Slug}' " +
                 $"({dataset.GridKind}, {dataset.PointCount} points); files of one dataset must share one grid.");
 
         var stored = dataset is null ? new SortedDictionary<int, long[]>() : await DatasetStore.TimelinesAsync(connection, transaction, dataset.Id, cancel);
-        CheckOverlap(request, fresh, stored);
 
         var created = dataset is null;
         var datasetId = dataset?.Id ?? await DatasetStore.InsertAsync(connection, transaction, request.DatasetSlug,
             request.Title ?? fresh[0].Attribute("title") ?? request.DatasetSlug, grid.Kind, grid.Nx, grid.Ny, grid.PointCount,
             grid.ToJson(), "{}", cancel);
 
-        var depth = fresh[0].Has(WaveVariable.Depth) ? fresh[0].File.ReadDepth() : null;
-        fresh[0].Release();
+        var depths = CellDepths.Read(fresh);
         var candidate = new bool[grid.PointCount];
-        for (var p = 0; p < candidate.Length; p++) candidate[p] = depth is null || depth[p] > 0;
+        for (var p = 0; p < candidate.Length; p++) candidate[p] = depths is null || depths.StoredDepth(p) is not null;
         var existingWet = created ? null : await CellStore.WetCellIdsAsync(connection, transaction, datasetId, cancel);
         var hasData = new bool[grid.PointCount];
 
         var mask = 0;
-        foreach (var file in fresh)
-            foreach (var (source, target) in Stored)
-                if (file.Has(source)) mask |= 1 << (int)target;
+        foreach (var file in fresh) mask |= MaskOf(file);
         var storedMask = created ? 0 : MaskFromMetadata(dataset!.MetadataJson);
         mask |= storedMask;
 
@@ -107,6 +104,9 @@ public sealed class HindcastIngestor(NpgsqlDataSource dataSource)
         var freshSteps = fresh.Sum(f => f.Times.Length);
         long totalWork = (long)freshSteps * grid.PointCount, doneWork = 0, bytesRead = 0;
         var cellYears = 0;
+        var sharedSteps = 0;
+        var conflicts = new SharedStepConflicts();
+        var storedName = $"dataset '{request.DatasetSlug}' (already stored)";
 
         // The COPY of one block runs while the next block is read and transposed (the connection serves one command at
         // a time, so it is awaited before any other use of it). Two blocks are then in memory at once: each gets half
@@ -122,6 +122,17 @@ public sealed class HindcastIngestor(NpgsqlDataSource dataSource)
                 // Whole grid rows per block: a hyperslab of whole rows is one contiguous read per chunk.
                 if (grid.Nx is { } nx && blockSize > nx && blockSize < grid.PointCount) blockSize -= blockSize % nx;
                 var yearExisted = stored.ContainsKey(year);
+                var parts = new (int First, int Last, int[] Positions)[fresh.Count];
+                for (var k = 0; k < fresh.Count; k++)
+                {
+                    var (first, last) = YearRange(fresh[k].Times, year);
+                    var positions = new int[Math.Max(0, last - first + 1)];
+                    for (var t = first; t <= last; t++) positions[t - first] = Array.BinarySearch(timeline, fresh[k].Times[t]);
+                    parts[k] = (first, last, positions);
+                }
+                var shared = SharedSteps.ForYear(timeline, yearExisted ? stored[year] : null, storedMask, request.ReplaceOverlap,
+                    parts.Select((part, k) => (part.Positions, MaskOf(fresh[k]))).ToList());
+                sharedSteps += shared.Count;
                 for (var p0 = 0; p0 < grid.PointCount; p0 += blockSize)
                 {
                     cancel.ThrowIfCancellationRequested();
@@ -136,12 +147,11 @@ public sealed class HindcastIngestor(NpgsqlDataSource dataSource)
                         CopyStored(old, stored[year], timeline, p0, payloads, blockHasData);
                         await SeriesStore.DeleteAsync(connection, transaction, datasetId, year, p0, p0 + count - 1, cancel);
                     }
-                    foreach (var file in fresh)
+                    for (var k = 0; k < fresh.Count; k++)
                     {
-                        var (first, last) = YearRange(file.Times, year);
+                        var file = fresh[k];
+                        var (first, last, positions) = parts[k];
                         if (first > last) continue;
-                        var positions = new int[last - first + 1];
-                        for (var k = first; k <= last; k++) positions[k - first] = Array.BinarySearch(timeline, file.Times[k]);
                         var slab = (int)Math.Clamp(MaxSlabBytes / (4L * count), 1, positions.Length);
                         var buffer = ArrayPool<float>.Shared.Rent(slab * count);
                         try
@@ -155,7 +165,8 @@ public sealed class HindcastIngestor(NpgsqlDataSource dataSource)
                                     file.File.ReadSteps(source, t0, steps, p0, count, buffer.AsSpan(0, steps * count));
                                     bytesRead += 4L * steps * count;
                                     Scatter(file, source, target, buffer, steps, count, p0, t0, t0 - first, positions, mask, timeline.Length,
-                                        payloads, blockHasData, candidate);
+                                        payloads, blockHasData, candidate,
+                                        new SharedStepContext(shared, k, conflicts, h => h == SharedSteps.Stored ? storedName : fresh[h].Name));
                                 }
                                 doneWork += (long)steps * count;
                                 progress?.Report(new ProgressSnapshot($"loading {year}", doneWork, totalWork, bytesRead, clock.Elapsed, "cell-steps"));
@@ -166,6 +177,7 @@ public sealed class HindcastIngestor(NpgsqlDataSource dataSource)
                             ArrayPool<float>.Shared.Return(buffer);
                             if (p0 + count >= grid.PointCount && YearTimeline.YearOf(file.Times[^1]) <= year) file.Release();
                         }
+                        if (depths is not null) CheckNoNegativeDepthAtSea(depths, file, grid, p0, blockHasData);
                     }
                     var chunks = new List<SeriesChunk>();
                     for (var c = 0; c < count; c++)
@@ -187,6 +199,9 @@ public sealed class HindcastIngestor(NpgsqlDataSource dataSource)
                 await pendingWrite;
                 await DatasetStore.UpsertTimelineAsync(connection, transaction, datasetId, year, timeline, cancel);
             }
+            // Differences are gathered over the whole load so the refusal names the largest; the transaction then rolls
+            // back, so nothing stored changes.
+            if (conflicts.Any) throw conflicts.ToException();
         }
         catch
         {
@@ -196,14 +211,14 @@ public sealed class HindcastIngestor(NpgsqlDataSource dataSource)
         }
 
         int wetCells;
+        int? deepWaterCells = null;
         if (created)
         {
             var cells = new CellRecord[grid.PointCount];
             for (var p = 0; p < cells.Length; p++)
             {
                 var (i, j) = grid.IndexOf(p);
-                cells[p] = new CellRecord(p, i, j, grid.Longitude(p), grid.Latitude(p),
-                    depth is null || float.IsNaN(depth[p]) ? null : depth[p], hasData[p] && candidate[p]);
+                cells[p] = new CellRecord(p, i, j, grid.Longitude(p), grid.Latitude(p), depths?.StoredDepth(p), hasData[p] && candidate[p]);
             }
             await CellStore.InsertAsync(connection, datasetId, cells, cancel);
             if (grid.Triangles is { } triangles) await CellStore.InsertTrianglesAsync(connection, datasetId, triangles, cancel);
@@ -211,6 +226,7 @@ public sealed class HindcastIngestor(NpgsqlDataSource dataSource)
             progress?.Report(new ProgressSnapshot("distances to the coast", 0, 1, bytesRead, clock.Elapsed, "steps"));
             await CellStore.UpdateCoastDistanceAsync(connection, transaction, datasetId, cancel);
             wetCells = cells.Count(c => c.Wet);
+            deepWaterCells = cells.Count(c => c.Wet && c.DepthMetres is null);
         }
         else
         {
@@ -230,14 +246,32 @@ public sealed class HindcastIngestor(NpgsqlDataSource dataSource)
             await DatasetStore.InsertSourceFileAsync(connection, transaction, datasetId, new SourceFileRecord(file.Name, file.Sha256, file.SizeBytes,
                 DateTimeOffset.FromUnixTimeSeconds(file.Times[0]).UtcDateTime, DateTimeOffset.FromUnixTimeSeconds(file.Times[^1]).UtcDateTime,
                 file.Times.Length, request.JobId, DateTime.UtcNow), cancel);
-        await DatasetStore.MergeMetadataAsync(connection, transaction, datasetId, DatasetMetadata.Describe(fresh, mask, depth is not null), cancel);
+        var assumptions = IngestAssumptions.Build(fresh, depths, deepWaterCells, dataset?.MetadataJson);
+        var timelines = stored.Values.Concat(stepsPerYear.Values).ToList();
+        var warnings = IngestAssumptions.Warnings(timelines.Where(l => l.Length > 0).Min(l => l[0]), timelines.Where(l => l.Length > 0).Max(l => l[^1]),
+            IngestAssumptions.NominalStep(timelines));
+        await DatasetStore.MergeMetadataAsync(connection, transaction, datasetId,
+            DatasetMetadata.Describe(fresh, mask, depths is not null, assumptions, warnings), cancel);
         await transaction.CommitAsync(cancel);
-        return new IngestSummary(request.DatasetSlug, fresh.Count, skipped, freshSteps, cellYears, wetCells, bytesRead, clock.Elapsed, created);
+        return new IngestSummary(request.DatasetSlug, fresh.Count, skipped, freshSteps, cellYears, wetCells, bytesRead, clock.Elapsed, created)
+        {
+            SharedSteps = sharedSteps,
+            Assumptions = assumptions,
+            Warnings = warnings,
+        };
     }
 
-    /// <summary>Transposes one slab [step][cell] into the cells' payloads at their time-line positions.</summary>
+    /// <summary>The shared-step bookkeeping <see cref="Scatter"/> compares against.</summary>
+    private readonly record struct SharedStepContext(SharedSteps Steps, int File, SharedStepConflicts Conflicts, Func<int, string> HolderName);
+
+    /// <summary>
+    /// Transposes one slab [step][cell] into the cells' payloads at their time-line positions. At a step an earlier
+    /// source gave (stored, or an earlier file) the value already in the payload is compared with the new one and a
+    /// difference recorded; the new value is written either way (equal, or the load is refused at its end).
+    /// </summary>
     private static void Scatter(SourceFile file, WaveVariable source, SeriesVariable target, float[] buffer, int steps, int count, int p0,
-        int fileStep0, int positionOffset, int[] positions, int mask, int stepCount, byte[][] payloads, bool[] hasData, bool[] candidate)
+        int fileStep0, int positionOffset, int[] positions, int mask, int stepCount, byte[][] payloads, bool[] hasData, bool[] candidate,
+        SharedStepContext shared)
     {
         var offset = SeriesCodec.OffsetOf(mask, stepCount, target);
         var isHs = target == SeriesVariable.Hs;
@@ -245,6 +279,8 @@ public sealed class HindcastIngestor(NpgsqlDataSource dataSource)
         {
             var at = offset + 2 * positions[positionOffset + s];
             var row = s * count;
+            var holder = shared.Steps.HolderOf(shared.File, positionOffset + s);
+            var compare = holder != SharedSteps.None && (shared.Steps.HolderMaskOf(shared.File, positionOffset + s) & (1 << (int)target)) != 0;
             for (var c = 0; c < count; c++)
             {
                 var value = buffer[row + c];
@@ -258,6 +294,12 @@ public sealed class HindcastIngestor(NpgsqlDataSource dataSource)
                     if (!candidate[p0 + c]) continue;
                     throw new IngestException($"{file.Name}: variable '{source}': value {value} at {YearTimeline.Iso(file.Times[fileStep0 + s])}, point {p0 + c} " +
                         $"is outside the physical range 0 to {SeriesCodec.MaximumOf(target)} ({SeriesUnits.Of(target)}); check the units and fill values.");
+                }
+                if (compare && candidate[p0 + c])
+                {
+                    var old = BinaryPrimitives.ReadUInt16LittleEndian(payloads[c].AsSpan(at));
+                    if (old != q)
+                        shared.Conflicts.Record(file.Name, shared.HolderName(holder), file.Times[fileStep0 + s], target, old, q, p0 + c);
                 }
                 BinaryPrimitives.WriteUInt16LittleEndian(payloads[c].AsSpan(at), q);
                 if (isHs && q != SeriesCodec.Missing) hasData[c] = true;
@@ -311,24 +353,31 @@ public sealed class HindcastIngestor(NpgsqlDataSource dataSource)
                     $"{files[0].Name} ({GridDescription.Of(files[0].Grid).Describe()}); files of one dataset must share one grid.");
     }
 
-    private static void CheckTimesAcrossFiles(List<SourceFile> files)
+    /// <summary>
+    /// Refuses a cell whose depth is negative (the sea floor above the surface, after sign handling) where the file
+    /// gives Hs: a wet cell needs a positive depth, and a wrong sign convention would otherwise dry the cell silently.
+    /// </summary>
+    private static void CheckNoNegativeDepthAtSea(CellDepths depths, SourceFile file, GridDescription grid, int p0, bool[] blockHasData)
     {
-        for (var i = 1; i < files.Count; i++)
-            if (files[i].Times[0] <= files[i - 1].Times[^1])
-                throw new IngestException($"{files[i].Name}: its time steps ({YearTimeline.Iso(files[i].Times[0])} to {YearTimeline.Iso(files[i].Times[^1])}) " +
-                    $"overlap those of {files[i - 1].Name} (to {YearTimeline.Iso(files[i - 1].Times[^1])}); give each time step once.");
+        for (var c = 0; c < blockHasData.Length; c++)
+        {
+            var cell = p0 + c;
+            if (!blockHasData[c] || !depths.IsNegative(cell)) continue;
+            var (i, j) = grid.IndexOf(cell);
+            var index = i is null ? "" : $"i={i}, j={j}, ";
+            throw new IngestException($"{depths.FileName}: variable '{depths.Variable}': cell {cell} ({index}lat {grid.Latitude(cell):0.####}, " +
+                $"lon {grid.Longitude(cell):0.####}) has a negative depth, {depths.SignedMetres[cell]:G4} m ({depths.Describe()}, positive down), " +
+                $"but {file.Name} gives it a wave height: a sea cell needs a positive depth. Check the sign convention (the variable's " +
+                "positive attribute, or \"depth_positive\" in the mapping file). Nothing was changed.");
+        }
     }
 
-    private static void CheckOverlap(IngestRequest request, List<SourceFile> fresh, SortedDictionary<int, long[]> stored)
+    private static int MaskOf(SourceFile file)
     {
-        if (request.ReplaceOverlap || stored.Count == 0) return;
-        foreach (var file in fresh)
-        {
-            var overlapping = file.Times.Where(t => stored.TryGetValue(YearTimeline.YearOf(t), out var line) && Array.BinarySearch(line, t) >= 0).ToArray();
-            if (overlapping.Length > 0)
-                throw new IngestException($"{file.Name}: {overlapping.Length} of its time steps ({YearTimeline.Iso(overlapping[0])} to {YearTimeline.Iso(overlapping[^1])}) " +
-                    $"are already stored in dataset '{request.DatasetSlug}' from another file; pass --replace to replace them, or leave the file out. Nothing was changed.");
-        }
+        var mask = 0;
+        foreach (var (source, target) in Stored)
+            if (file.Has(source)) mask |= 1 << (int)target;
+        return mask;
     }
 
     private static int MaskFromMetadata(string metadataJson)

@@ -1,4 +1,5 @@
 using Atlas.Hindcast;
+using Atlas.Storage.Datasets;
 
 namespace Atlas.Ingest.Ingestion;
 
@@ -27,10 +28,24 @@ public sealed record IngestSummary(
     TimeSpan Elapsed,
     bool DatasetCreated)
 {
-    public string Describe() => FilesLoaded == 0
-        ? $"ingest {DatasetSlug}: nothing new ({FilesSkipped} file(s) already loaded, unchanged)"
-        : $"ingest {DatasetSlug}: {FilesLoaded} file(s), {StepsLoaded:N0} time steps, {CellsWritten:N0} cell-years for {WetCells:N0} wet cells, " +
-          $"{BytesRead / 1e6:F0} MB in {Progress.ProgressSnapshot.FormatDuration(Elapsed)}" +
-          (FilesSkipped > 0 ? $"; {FilesSkipped} file(s) already loaded were skipped" : "") +
-          (DatasetCreated ? " (new dataset)" : "");
+    /// <summary>Steps given twice (stored or in two files) with identical values, stored once.</summary>
+    public int SharedSteps { get; init; }
+
+    /// <summary>Per wave variable: the file variable it came from, the conversion and what was assumed.</summary>
+    public IReadOnlyList<VariableAssumption> Assumptions { get; init; } = [];
+
+    /// <summary>Warnings about the record as a whole (for instance shorter than one month).</summary>
+    public IReadOnlyList<string> Warnings { get; init; } = [];
+
+    /// <summary>The one-line outcome, then one line per wave variable and one per warning.</summary>
+    public string Describe()
+    {
+        if (FilesLoaded == 0) return $"ingest {DatasetSlug}: nothing new ({FilesSkipped} file(s) already loaded, unchanged)";
+        var line = $"ingest {DatasetSlug}: {FilesLoaded} file(s), {StepsLoaded:N0} time steps, {CellsWritten:N0} cell-years for {WetCells:N0} wet cells, " +
+                   $"{BytesRead / 1e6:F0} MB in {Progress.ProgressSnapshot.FormatDuration(Elapsed)}" +
+                   (FilesSkipped > 0 ? $"; {FilesSkipped} file(s) already loaded were skipped" : "") +
+                   (SharedSteps > 0 ? $"; {SharedSteps:N0} step(s) given twice with identical values were stored once" : "") +
+                   (DatasetCreated ? " (new dataset)" : "");
+        return string.Join('\n', [line, .. Assumptions.Select(a => "  " + a.Describe()), .. Warnings.Select(w => "  warning: " + w)]);
+    }
 }

@@ -9,9 +9,16 @@ public sealed class SourceFile : IDisposable
     private readonly VariableMapping? _mapping;
     private HindcastFile? _file;
 
-    private SourceFile(HindcastFile file, VariableMapping? mapping, string sha256, long sizeBytes, IReadOnlyDictionary<string, string> attributes)
+    private SourceFile(HindcastFile file, VariableMapping? mapping, string sha256, long sizeBytes, IReadOnlyDictionary<string, string> attributes,
+        DepthLookalike? depthLookalike)
     {
         Attributes = attributes;
+        DepthLookalike = depthLookalike;
+        Sources = Enum.GetValues<WaveVariable>().Where(file.Has).ToDictionary(v => v, v =>
+        {
+            var resolved = file.Source(v)!;
+            return new VariableSource(resolved.Name, resolved.HowFound, resolved.DescribeConversion(file.DecoderOf(v)!));
+        });
         _file = file;
         _mapping = mapping;
         Path = file.Path;
@@ -42,6 +49,12 @@ public sealed class SourceFile : IDisposable
 
     public string? Attribute(string name) => Attributes.GetValueOrDefault(name);
 
+    /// <summary>The file variable behind each wave variable the file has, how it was found and how it is converted.</summary>
+    public IReadOnlyDictionary<WaveVariable, VariableSource> Sources { get; }
+
+    /// <summary>A variable named like the water depth that was not taken for it, and why; null when there is none.</summary>
+    public DepthLookalike? DepthLookalike { get; }
+
     /// <summary>Opens and decodes a file, and checksums its bytes (SHA-256, streamed).</summary>
     public static SourceFile Open(string path, VariableMapping? mapping)
     {
@@ -51,14 +64,18 @@ public sealed class SourceFile : IDisposable
             sha = Convert.ToHexStringLower(SHA256.HashData(stream));
         var file = HindcastFile.Open(path, mapping);
         Dictionary<string, string> attributes;
+        DepthLookalike? lookalike = null;
         using (var raw = NetCdfFile.Open(path))
+        {
             attributes = raw.GlobalAttributes.Where(a => a.IsText).ToDictionary(a => a.Name, a => a.Text!, StringComparer.OrdinalIgnoreCase);
+            if (!file.Has(WaveVariable.Depth)) lookalike = CfDecoder.WaterDepthLookalike(raw);
+        }
         if (file.TimesUtc.Count == 0)
         {
             file.Dispose();
             throw new IngestException($"{System.IO.Path.GetFileName(path)}: the time axis is empty; there is nothing to load.");
         }
-        return new SourceFile(file, mapping, sha, new FileInfo(path).Length, attributes);
+        return new SourceFile(file, mapping, sha, new FileInfo(path).Length, attributes, lookalike);
     }
 
     /// <summary>Closes the file (and frees its caches) until it is next needed.</summary>
