@@ -104,8 +104,8 @@ public static class IngestAssumptions
         WaveVariable.Te when files.Any(f => f.Has(WaveVariable.Tp)) => AssumedEnergyPeriod(),
         WaveVariable.Te => "no Te and no power",
         WaveVariable.Tp => "no Tp statistics",
-        WaveVariable.Dir => "no direction statistics",
-        WaveVariable.Spread => "no spread statistics and no directionality coefficient (it is modelled from the spread)",
+        WaveVariable.Dir => "no direction statistics and no directionality coefficient (it needs each step's direction)",
+        WaveVariable.Spread => "no spread statistics and no directionality coefficient (each step's spreading is modelled from its spread)",
         _ => "none",
     };
 
