@@ -55,10 +55,9 @@ internal sealed class DirectionAccumulator
     public DirectionStatistics Summarise(AtlasPeriod period, long expectedSteps)
     {
         if (!HasSeries) return DirectionStatistics.Empty;
-        TimelineCalendar calendar = _calendar!;
         Span<long> expectedByMonth = stackalloc long[12];
-        foreach (int month in period.Months) expectedByMonth[month - 1] = calendar.ExpectedInCalendarMonth(month);
-        return Summarise(calendar.SlotsOf(period), expectedSteps, expectedByMonth, MonthBalance.Applies(period));
+        _calendar!.ExpectedByMonth(period, expectedByMonth);
+        return Summarise(_calendar.SlotsOf(period), expectedSteps, expectedByMonth, MonthBalance.Applies(period));
     }
 
     /// <summary>
@@ -69,15 +68,8 @@ internal sealed class DirectionAccumulator
     {
         if (!HasSeries) return DirectionStatistics.Empty;
         double weight = 0, cosine = 0, sine = 0;
-        long n = 0;
-        Span<long> valid = stackalloc long[12];
-        foreach (int slot in slots)
-        {
-            n += _counts[slot];
-            valid[slot % 12] += _counts[slot];
-        }
         Span<double> weights = stackalloc double[12];
-        bool weighted = balanced && MonthBalance.TryWeights(expectedByMonth, valid, weights);
+        bool weighted = MonthBalance.TryWeightsOfSlots(slots, _counts, expectedByMonth, balanced, weights, out long n);
         Span<double> sectors = stackalloc double[Sectors];
         foreach (int slot in slots)
         {

@@ -55,10 +55,9 @@ internal sealed class DirectionalityAccumulator
     public PeriodDirectionality Summarise(AtlasPeriod period, long expectedSteps)
     {
         if (!HasSeries) return PeriodDirectionality.Empty;
-        TimelineCalendar calendar = _calendar!;
         Span<long> expectedByMonth = stackalloc long[12];
-        foreach (int month in period.Months) expectedByMonth[month - 1] = calendar.ExpectedInCalendarMonth(month);
-        return Summarise(calendar.SlotsOf(period), expectedSteps, expectedByMonth, MonthBalance.Applies(period));
+        _calendar!.ExpectedByMonth(period, expectedByMonth);
+        return Summarise(_calendar.SlotsOf(period), expectedSteps, expectedByMonth, MonthBalance.Applies(period));
     }
 
     /// <summary>
@@ -68,17 +67,10 @@ internal sealed class DirectionalityAccumulator
     public PeriodDirectionality Summarise(ReadOnlySpan<int> slots, long expectedSteps, ReadOnlySpan<long> expectedByMonth, bool balanced)
     {
         if (!HasSeries) return PeriodDirectionality.Empty;
-        long n = 0;
-        Span<long> valid = stackalloc long[12];
-        foreach (int slot in slots)
-        {
-            n += _counts[slot];
-            valid[slot % 12] += _counts[slot];
-        }
+        Span<double> weights = stackalloc double[12];
+        bool weighted = MonthBalance.TryWeightsOfSlots(slots, _counts, expectedByMonth, balanced, weights, out long n);
         double coverage = expectedSteps > 0 ? (double)n / expectedSteps : 0;
         if (n == 0) return PeriodDirectionality.Empty with { Coverage = coverage };
-        Span<double> weights = stackalloc double[12];
-        bool weighted = balanced && MonthBalance.TryWeights(expectedByMonth, valid, weights);
         Span<double> merged = _merged;
         merged.Clear();
         foreach (int slot in slots)

@@ -40,16 +40,7 @@ public static class ExactQuantile
             }
             default:
             {
-                double v = definition switch
-                {
-                    QuantileDefinition.HyndmanFanType4 => VirtualIndex(n, p, 0, 1),
-                    QuantileDefinition.HyndmanFanType5 => VirtualIndex(n, p, 0.5, 0.5),
-                    QuantileDefinition.HyndmanFanType6 => VirtualIndex(n, p, 0, 0),
-                    QuantileDefinition.HyndmanFanType7 => (n - 1) * p,
-                    QuantileDefinition.HyndmanFanType8 => VirtualIndex(n, p, 1 / 3.0, 1 / 3.0),
-                    QuantileDefinition.HyndmanFanType9 => VirtualIndex(n, p, 3 / 8.0, 3 / 8.0),
-                    _ => throw new ArgumentOutOfRangeException(nameof(definition), definition, "Unknown quantile definition."),
-                };
+                double v = VirtualIndexOf(definition, n, p);
                 (int previous, int next) = Neighbours(v, n);
                 double floor = v >= n - 1 ? -1 : v < 0 ? 0 : Math.Floor(v);
                 return Interpolate(sorted[previous], sorted[next], v - floor);

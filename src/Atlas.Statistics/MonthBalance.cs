@@ -18,6 +18,23 @@ internal static class MonthBalance
     public static bool Applies(AtlasPeriod period) => period.Kind is PeriodKind.Season or PeriodKind.Annual;
 
     /// <summary>
+    /// The month weights of a set of slots from their valid counts (<paramref name="countsBySlot"/>, indexed by slot),
+    /// or false when they are equal or <paramref name="balanced"/> is false; <paramref name="valid"/> receives the total.
+    /// </summary>
+    public static bool TryWeightsOfSlots(ReadOnlySpan<int> slots, ReadOnlySpan<long> countsBySlot, ReadOnlySpan<long> expectedByMonth,
+        bool balanced, Span<double> weights, out long valid)
+    {
+        Span<long> byMonth = stackalloc long[12];
+        valid = 0;
+        foreach (int slot in slots)
+        {
+            valid += countsBySlot[slot];
+            byMonth[slot % 12] += countsBySlot[slot];
+        }
+        return balanced && TryWeights(expectedByMonth, byMonth, weights);
+    }
+
+    /// <summary>
     /// The weight per value of each calendar month (index 0 = January; 0 where the month has no valid value); false
     /// when the weights are all equal, so that the pooled statistics apply as they are.
     /// </summary>

@@ -215,7 +215,7 @@ internal sealed class ParameterAccumulator
         for (int m = 0; m < 12; m++) months[m] = new RunningMoments(_shift);
         foreach (int slot in calendar.SlotsOf(period)) months[slot % 12].Merge(_slots[slot]);
         Span<long> expected = stackalloc long[12], valid = stackalloc long[12];
-        foreach (int month in period.Months) expected[month - 1] = calendar.ExpectedInCalendarMonth(month);
+        calendar.ExpectedByMonth(period, expected);
         for (int m = 0; m < 12; m++) valid[m] = months[m].Count;
         return MonthBalance.TryWeights(expected, valid, weights);
     }

@@ -150,6 +150,19 @@ public sealed class TimelineCalendar
     /// <summary>Steps a calendar month (1 = January) expects over all the record's years.</summary>
     public long ExpectedInCalendarMonth(int month) => _monthExpected[month - 1];
 
+    /// <summary>Steps each calendar month (index 0 = January) of a period expects over the record's years (0 for the months it lacks).</summary>
+    public void ExpectedByMonth(AtlasPeriod period, Span<long> expected)
+    {
+        expected[..12].Clear();
+        if (period.Kind == PeriodKind.Year)
+        {
+            for (int month = 1; month <= 12; month++)
+                if (period.Code >= FirstYear && period.Code < FirstYear + YearSpan) expected[month - 1] = _slotExpected[SlotOf(period.Code, month)];
+            return;
+        }
+        foreach (int month in period.Months) expected[month - 1] = _monthExpected[month - 1];
+    }
+
     /// <summary>Steps any calendar month expects at the nominal step, also outside the record (a winter's December before it starts).</summary>
     public long ExpectedInMonth(int year, int month)
     {
