@@ -49,7 +49,7 @@ public static class LayerApi
             {
                 var periods = g.Select(c => AtlasPeriod.FromCode(c.Period)).Order().Select(p => p.Name).ToArray();
                 var statistics = StatisticsOf(g.Key).Select(s => s.Name()).ToArray();
-                double? binWidth = g.Key is WaveParameter.Dir or WaveParameter.Depth ? null : options.BinningFor(g.Key).BinWidth;
+                double? binWidth = g.Key is WaveParameter.Dir or WaveParameter.D or WaveParameter.Depth ? null : options.BinningFor(g.Key).BinWidth;
                 return new LayerParameterItem(g.Key.Symbol(), ParameterCatalogue.LongName(g.Key), g.Key.Unit(), statistics, periods, binWidth,
                     $"/api/v1/datasets/{slug}/layers/{g.Key.Symbol()}/{statistics[0]}/{periods[0]}.tif");
             })
