@@ -24,7 +24,7 @@ public class PageLoadTests(AtlasSite site)
 
         // Every sea cell of the API's layer is on the map, with the API's value.
         var layer = await SeaCells.LayerAsync(site.Http, "j", "mean", "annual");
-        var drawn = await page.EvaluateAsync<int>("() => window.atlasPage.layers.current.values.size");
+        var drawn = await ShownLayer.CellsWithAValueAsync(page);
         Assert.Equal(layer.Count, drawn);
         var value = await page.EvaluateAsync<double>($"() => window.atlasPage.layers.current.values.get({cell.Id})");
         Assert.Equal(cell.Value, value, 4);
