@@ -27,6 +27,8 @@ public static class ShownLayer
         var facts = (await page.TextContentAsync("#layer-facts"))!;
         var match = Regex.Match(facts, @"^([\d,]+) cells with a value");
         Assert.True(match.Success, $"the facts line shows no cell count: {facts}");
-        return int.Parse(match.Groups[1].Value, NumberStyles.AllowThousands, CultureInfo.GetCultureInfo("en-GB"));
+        // The page groups thousands with commas (en-GB); the tests run in invariant mode, whose group separator is
+        // the same comma.
+        return int.Parse(match.Groups[1].Value, NumberStyles.AllowThousands, CultureInfo.InvariantCulture);
     }
 }
