@@ -6,6 +6,7 @@ using Atlas.Assessment;
 using Atlas.Assessment.Access;
 using Atlas.Assessment.Extremes;
 using Atlas.Assessment.Yield;
+using Atlas.Statistics;
 using Atlas.Storage.Devices;
 using Atlas.Storage.Series;
 using Atlas.WavePhysics;
@@ -214,7 +215,7 @@ public static class PointAssessmentApi
         }
         var valid = 0;
         foreach (var v in hs.Values) if (!double.IsNaN(v)) valid++;
-        var recordYears = valid * hs.StepHours / UtcCalendar.HoursPerMeanYear;
+        var recordYears = valid * hs.StepHours / CalendarHours.PerMeanYear;
         var cautions = (annual?.Cautions ?? []).Concat(peaks?.Cautions ?? []).ToArray();
         var strong = cautions.Where(c => c.Kind is "long_extrapolation").Concat(cautions.Where(c => c.Kind is "small_sample")).Select(c => c.Text).Distinct().ToArray();
         return TypedResults.Ok(new PointExtremes(slug, context.Cell, "hs", "m", recordYears, window.FromYear, window.ToYear, annual, peaks,

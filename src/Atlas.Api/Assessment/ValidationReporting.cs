@@ -1,9 +1,10 @@
 using System.Globalization;
-using System.Text;
-using System.Text.Json;
 using System.Text.Json.Nodes;
+using System.Text.Json;
+using System.Text;
 using Atlas.Api.Model;
 using Atlas.Assessment;
+using Atlas.Statistics;
 
 namespace Atlas.Api.Assessment;
 
@@ -36,7 +37,7 @@ public static class ValidationReporting
             direction.BySeason.Select(s => new SkillGroup(SeasonName(s.Season), null, null, null, DirectionalSkillRow.From(s.Scores))).ToArray(), byClass);
     }
 
-    public static string SeasonName(CalendarSeason season) => season.ToString().ToLowerInvariant();
+    public static string SeasonName(AtlasPeriod season) => season.Name;
 
     /// <summary>
     /// The skill table as CSV: '#' lines (what the columns mean, the provenance, the caution), then one row per station,

@@ -1,3 +1,5 @@
+using Atlas.Statistics;
+
 namespace Atlas.Assessment.Access;
 
 /// <summary>
@@ -94,7 +96,7 @@ public static class WeatherWindowAnalysis
                     accumulator.WaitingHoursSum += (next - i) * stepHours;
                 }
             }
-            accumulator.EquivalentMonths += valid * stepHours / UtcCalendar.HoursInMonth(year, month);
+            accumulator.EquivalentMonths += valid * stepHours / CalendarHours.InMonth(year, month);
         }
 
         var monthly = months.Select((a, m) => new MonthlyWindowStatistics(
@@ -136,7 +138,7 @@ public static class WeatherWindowAnalysis
         if (durations.Count == 0)
             return new SpellStatistics(0, 0, double.NaN, double.NaN, double.NaN, classes);
         double[] sorted = [.. durations.Order()];
-        return new SpellStatistics(durations.Count, censored, durations.Average(), EmpiricalQuantile.OfSorted(sorted, 0.5), sorted[^1], classes);
+        return new SpellStatistics(durations.Count, censored, durations.Average(), ExactQuantile.OfSorted(sorted, 0.5), sorted[^1], classes);
     }
 
     private sealed class MonthAccumulator
