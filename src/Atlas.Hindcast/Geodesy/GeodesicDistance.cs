@@ -1,4 +1,4 @@
-namespace Atlas.Api.Points;
+namespace Atlas.Hindcast.Geodesy;
 
 /// <summary>
 /// Distance along the WGS 84 ellipsoid between two positions, by Vincenty's inverse formula (Survey Review 23(176),

@@ -1,9 +1,9 @@
-using Atlas.Api.Points;
+using Atlas.Hindcast.Geodesy;
 using Atlas.Storage.Cells;
 using Atlas.TestSupport;
 using Npgsql;
 
-namespace Atlas.Api.Tests;
+namespace Atlas.Storage.Tests;
 
 /// <summary>The in-memory nearest-cell search and its ellipsoidal distance, checked against PostGIS.</summary>
 public sealed class WetCellIndexTests(TestDatabase database) : IClassFixture<TestDatabase>

@@ -1,6 +1,6 @@
-using Atlas.Storage.Cells;
+using Atlas.Hindcast.Geodesy;
 
-namespace Atlas.Api.Points;
+namespace Atlas.Storage.Cells;
 
 /// <summary>
 /// The wet cells of one dataset held in memory for nearest-cell look-ups: a point query then costs microseconds

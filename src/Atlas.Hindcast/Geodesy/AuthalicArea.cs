@@ -1,4 +1,4 @@
-namespace Atlas.Api.Footprints;
+namespace Atlas.Hindcast.Geodesy;
 
 /// <summary>
 /// Areas of longitude/latitude polygons on the WGS 84 spheroid, through the authalic (equal-area) latitude:
