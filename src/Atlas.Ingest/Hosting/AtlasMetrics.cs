@@ -1,12 +1,17 @@
+using Microsoft.AspNetCore.Builder;
+using Microsoft.AspNetCore.Http;
+using Microsoft.AspNetCore.Routing;
+using Microsoft.Extensions.DependencyInjection;
 using OpenTelemetry.Metrics;
 using OpenTelemetry.Resources;
 
-namespace Atlas.Api.Infrastructure;
+namespace Atlas.Ingest.Hosting;
 
 /// <summary>
 /// OpenTelemetry metrics with a Prometheus scrape endpoint at <c>/metrics</c>: the ASP.NET Core request metrics
 /// (<c>http.server.request.duration</c> and friends) and every meter whose name starts with <c>Atlas.</c> (job
-/// counters where jobs run in the process, the job queue gauge of <see cref="JobQueueGauge"/>).
+/// counters where jobs run in the process, the API's job queue gauge). Shared by the two hosts that serve metrics:
+/// the API and the worker (<c>atlas worker --metrics-urls</c>), which does not carry the web project.
 /// </summary>
 public static class AtlasMetrics
 {
