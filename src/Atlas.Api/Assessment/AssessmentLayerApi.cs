@@ -1,5 +1,6 @@
 using Atlas.Api.Infrastructure;
 using Atlas.Assessment.Yield;
+using Atlas.Ingest.Assessment;
 using Atlas.Storage.Cells;
 using Atlas.Storage.Devices;
 using Atlas.Storage.Queries;

@@ -2,6 +2,7 @@ using System.Security.Cryptography;
 using Atlas.Api.Infrastructure;
 using Atlas.Assessment;
 using Atlas.Assessment.Yield;
+using Atlas.Ingest.Assessment;
 using Atlas.Storage.Devices;
 using Atlas.Storage.Stations;
 using Microsoft.AspNetCore.Http.HttpResults;

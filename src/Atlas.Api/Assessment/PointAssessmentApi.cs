@@ -6,6 +6,7 @@ using Atlas.Assessment;
 using Atlas.Assessment.Access;
 using Atlas.Assessment.Extremes;
 using Atlas.Assessment.Yield;
+using Atlas.Ingest.Assessment;
 using Atlas.Statistics;
 using Atlas.Storage.Devices;
 using Atlas.Storage.Series;

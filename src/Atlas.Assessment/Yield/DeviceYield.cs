@@ -11,6 +11,13 @@ namespace Atlas.Assessment.Yield;
 /// </remarks>
 public static class DeviceYield
 {
+    /// <summary>The method in words, for the notes of every answer and layer built on it.</summary>
+    public const string MethodNote =
+        "power read from the matrix at every step's Hs and period, then averaged over the valid steps; annual energy = mean power x 8766 h " +
+        "(a mean year of 365.25 days); capacity factor = mean power / rated power; a month's energy = its mean power x its mean length " +
+        "(February 28.25 days); a year's energy = its mean power x its hours, counted complete at 90 % coverage; the inter-annual coefficient " +
+        "of variation is the sample standard deviation over the mean of the complete years' energy. Missing steps are left out and counted.";
+
     /// <summary>Power per step, kW: NaN where Hs or period is missing, 0 outside the matrix.</summary>
     /// <exception cref="ArgumentException">The spans differ in length.</exception>
     public static double[] PowerPerStep(PowerMatrix matrix, ReadOnlySpan<double> hsMetres, ReadOnlySpan<double> periodSeconds, PowerMatrixInterpolation interpolation)

@@ -41,18 +41,8 @@ public sealed class DeviceLoader(NpgsqlDataSource dataSource)
         var fileName = Path.GetFileName(filePath);
         using var reader = new StreamReader(new MemoryStream(bytes), detectEncodingFromByteOrderMarks: true);
         var matrix = PowerMatrixCsv.Parse(reader, fileName, ratedPowerKw);
-        var definition = DefinitionOf(matrix, slug, name, fileName, Convert.ToHexStringLower(SHA256.HashData(bytes)));
+        var definition = DeviceMatrices.DefinitionOf(matrix, slug, name, fileName, Convert.ToHexStringLower(SHA256.HashData(bytes)));
         var registration = await new DeviceStore(dataSource).RegisterAsync(definition, cancel);
         return new DeviceLoadResult(registration.Device, registration.AlreadyRegistered);
-    }
-
-    private static DeviceMatrixDefinition DefinitionOf(PowerMatrix matrix, string slug, string name, string fileName, string sha256)
-    {
-        var power = new double[matrix.HsCentresMetres.Count, matrix.PeriodCentresSeconds.Count];
-        for (int i = 0; i < power.GetLength(0); i++)
-            for (int j = 0; j < power.GetLength(1); j++)
-                power[i, j] = matrix.PowerAtBinKw(i, j);
-        return new DeviceMatrixDefinition(slug, name, matrix.PeriodKind == WavePeriodKind.EnergyPeriod ? DeviceAxisKind.Te : DeviceAxisKind.Tp,
-            [.. matrix.HsCentresMetres], [.. matrix.PeriodCentresSeconds], power, matrix.RatedPowerKw, fileName, sha256);
     }
 }

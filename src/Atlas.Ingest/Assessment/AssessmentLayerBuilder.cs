@@ -10,7 +10,7 @@ using Atlas.Storage.Series;
 using Atlas.WavePhysics;
 using Npgsql;
 
-namespace Atlas.Api.Assessment;
+namespace Atlas.Ingest.Assessment;
 
 /// <summary>A named column of per-cell values.</summary>
 public sealed record LayerColumn(string Name, string Unit, double[] Values);
@@ -60,7 +60,7 @@ public sealed class AssessmentLayerBuilder(NpgsqlDataSource dataSource, LayerCac
             }, cancel);
             return new AssessmentLayer("yield", $"Mean annual energy of {device.Name}",
                 $"annual energy production of device {device.Name} ({DeviceStore.AxisName(device.AxisKind)} matrix, rated {device.RatedPowerKw:0.###} kW, " +
-                $"{reading} interpolation), power per step then averaged, x 8766 h; " + PointYield.YieldMethod,
+                $"{reading} interpolation), power per step then averaged, x 8766 h; " + DeviceYield.MethodNote,
                 ids, [new("annual_energy_mwh", "MWh/yr", rows[0]), new("capacity_factor", "1", rows[1]),
                       new("outside_matrix_fraction", "1", rows[2]), new("mean_power_kw", "kW", rows[3])], DateTime.UtcNow);
         }, cancel);
@@ -94,7 +94,7 @@ public sealed class AssessmentLayerBuilder(NpgsqlDataSource dataSource, LayerCac
                 requiredHours is { } r ? FormattableString.Invariant($"Probability of a {r:0.##} h window with {limitText}") : $"Share of time with {limitText}",
                 (requiredHours is { } d
                     ? FormattableString.Invariant($"probability that a window of at least {d:0.##} h with {limitText} starts at a random time (all months); ")
-                    : "") + $"accessible_fraction: share of non-missing steps with {limitText}. " + PointWindows.WindowMethod,
+                    : "") + $"accessible_fraction: share of non-missing steps with {limitText}. " + WeatherWindowAnalysis.MethodNote,
                 ids, columns, DateTime.UtcNow);
         }, cancel);
     }
