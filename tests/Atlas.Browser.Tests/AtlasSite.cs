@@ -1,7 +1,8 @@
-using System.Net;
 using System.Net.Sockets;
+using System.Net;
 using Atlas.Api;
 using Atlas.Api.Apis;
+using Atlas.Cli.Demo;
 using Atlas.Demo;
 using Atlas.Ingest.Assessment;
 using Atlas.Ingest.Ingestion;

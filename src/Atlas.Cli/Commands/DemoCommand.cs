@@ -3,6 +3,7 @@ using System.Text.Json;
 using Atlas.Api.Assessment;
 using Atlas.Assessment.Access;
 using Atlas.Assessment.Yield;
+using Atlas.Cli.Demo;
 using Atlas.Demo;
 using Atlas.Ingest.Assessment;
 using Atlas.Ingest.Progress;

@@ -1,8 +1,8 @@
+using Atlas.Cli.Demo;
 using Atlas.Demo;
-using Atlas.Ingest.Assessment;
 using Atlas.Storage.Stations;
 
-namespace Atlas.Ingest.Tests.Assessment;
+namespace Atlas.Cli.Tests;
 
 public class DemoReferenceFilesTests
 {

@@ -1,7 +1,7 @@
 using System.Text.Json;
 using Atlas.Storage.Stations;
 
-namespace Atlas.Ingest.Assessment;
+namespace Atlas.Cli.Demo;
 
 /// <summary>A station of the demo manifest, with the path of its record file.</summary>
 public sealed record DemoStationEntry(string Name, string FilePath, StationRole Role, string Instrument, double Latitude, double Longitude, double DepthMetres);
