@@ -5,6 +5,7 @@ using Atlas.Api.Downloads;
 using Atlas.Api.Model;
 using Atlas.Api.Rasters;
 using Atlas.Ingest.Assessment;
+using Atlas.Ingest.Validation;
 using Atlas.Storage.Cells;
 using Atlas.Storage.Datasets;
 using Atlas.Storage.Statistics;

@@ -7,6 +7,8 @@ using Atlas.Assessment.Access;
 using Atlas.Assessment.Extremes;
 using Atlas.Assessment.Yield;
 using Atlas.Ingest.Assessment;
+using Atlas.Ingest.Series;
+using Atlas.Ingest.Validation;
 using Atlas.Statistics;
 using Atlas.Storage.Devices;
 using Atlas.Storage.Series;

@@ -2,6 +2,7 @@ using Atlas.Api.Model;
 using Atlas.Assessment.Access;
 using Atlas.Assessment.Extremes;
 using Atlas.Assessment.Yield;
+using Atlas.Ingest.Validation;
 
 namespace Atlas.Api.Assessment;
 

@@ -2,6 +2,7 @@ using System.Security.Cryptography;
 using Atlas.Api.Infrastructure;
 using Atlas.Assessment;
 using Atlas.Assessment.Validation;
+using Atlas.Ingest.Validation;
 using Atlas.Storage.Stations;
 using Microsoft.AspNetCore.Http.HttpResults;
 using Npgsql;

@@ -1,10 +1,11 @@
 using System.CommandLine;
 using System.Globalization;
-using Atlas.Api.Assessment;
+using Atlas.Ingest.Validation;
 using Atlas.Storage;
 using Atlas.Storage.Datasets;
 using Atlas.Storage.Stations;
-using Microsoft.Extensions.Caching.Memory;
+using Microsoft.Extensions.DependencyInjection;
+using Microsoft.Extensions.Hosting;
 using Npgsql;
 
 namespace Atlas.Cli.Commands;
@@ -36,8 +37,23 @@ public static class ValidateCommand
             Console.Error.WriteLine($"atlas validate: there is no dataset '{slug}'");
             return 2;
         }
-        using var cache = new MemoryCache(new MemoryCacheOptions());
-        var service = ValidationService.Create(dataSource, cache);
+        // The service as the host registers it: the distance limit comes from configuration (appsettings.json,
+        // AtlasApiOptions__... variables), as it does for the API, and a wrong value stops here with its name.
+        var builder = Host.CreateApplicationBuilder();
+        builder.Services.AddSingleton(dataSource);
+        builder.Services.AddStationValidation();
+        using var host = builder.Build();
+        ValidationService service;
+        try
+        {
+            await host.StartAsync(cancel);
+            service = host.Services.GetRequiredService<ValidationService>();
+        }
+        catch (Microsoft.Extensions.Options.OptionsValidationException e)
+        {
+            Console.Error.WriteLine($"atlas validate: not started: {string.Join("; ", e.Failures)}");
+            return 2;
+        }
         IReadOnlyList<StoredStation> stations;
         if (stationName is not null)
         {

@@ -1,10 +1,11 @@
-using Atlas.Api.Points;
 using Atlas.Assessment;
 using Atlas.Assessment.Validation;
+using Atlas.Ingest.Assessment;
+using Atlas.Ingest.Series;
 using Atlas.Storage.Cells;
 using Atlas.Storage.Stations;
 
-namespace Atlas.Api.Assessment;
+namespace Atlas.Ingest.Validation;
 
 /// <summary>The station variables compared with the hindcast.</summary>
 public enum ValidatedVariable { Hs, Tp, Te, Dir }

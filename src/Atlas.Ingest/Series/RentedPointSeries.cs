@@ -2,7 +2,7 @@ using System.Buffers;
 using Atlas.Statistics;
 using Atlas.Storage.Series;
 
-namespace Atlas.Api.Points;
+namespace Atlas.Ingest.Series;
 
 /// <summary>
 /// A cell's stored series decoded into arrays rented from the shared pool, for a request that needs them only while

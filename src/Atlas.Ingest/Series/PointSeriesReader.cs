@@ -3,7 +3,7 @@ using Atlas.Statistics;
 using Atlas.Storage.Series;
 using Atlas.WavePhysics;
 
-namespace Atlas.Api.Points;
+namespace Atlas.Ingest.Series;
 
 /// <summary>One cell's stored series over whole years, decoded onto the dataset's time lines (NaN = missing).</summary>
 public sealed record PointSeries(long[] Times, float[] Hs, float[] Te, float[] Tp, float[] Dir, float[] Spread,

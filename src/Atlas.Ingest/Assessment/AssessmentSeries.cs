@@ -1,9 +1,9 @@
-using Atlas.Api.Points;
 using Atlas.Assessment;
+using Atlas.Ingest.Series;
 using Atlas.Storage.Cells;
 using Atlas.Storage.Series;
 
-namespace Atlas.Api.Assessment;
+namespace Atlas.Ingest.Assessment;
 
 /// <summary>A cell's stored series read for the assessment analyses, which want regular steps.</summary>
 public static class AssessmentSeries
