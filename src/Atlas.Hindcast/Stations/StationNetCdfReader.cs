@@ -1,13 +1,10 @@
 using System.Globalization;
 using System.Numerics;
-using Atlas.Hindcast;
-using Atlas.Storage.Stations;
-
-namespace Atlas.Ingest.Assessment;
+namespace Atlas.Hindcast.Stations;
 
 /// <summary>
 /// Reads one station's record from a CF-NetCDF point time series (CF 1.6+ discrete sampling geometry,
-/// <c>featureType = "timeSeries"</c>), with the netCDF-C reader of Atlas.Hindcast and its CF decoding (fill values,
+/// <c>featureType = "timeSeries"</c>), with the netCDF-C reader of this library and its CF decoding (fill values,
 /// valid ranges, packing, units to SI, "to" directions turned into "from").
 /// </summary>
 /// <remarks>
@@ -23,13 +20,18 @@ namespace Atlas.Ingest.Assessment;
 /// </remarks>
 public static class StationNetCdfReader
 {
-    public static StationFileContent Read(string path, string sha256)
+    /// <summary>Reads and checks the record of <paramref name="path"/>; nothing is returned unless all of it is good.</summary>
+    /// <param name="path">The file.</param>
+    /// <param name="sourceName">The name messages and the result give the file (an upload's own name when
+    /// <paramref name="path"/> is a temporary copy); by default the file name of <paramref name="path"/>.</param>
+    /// <exception cref="StationFileException">Every problem found, each naming the variable, index and time, or the attribute.</exception>
+    public static StationTimeSeries Read(string path, string? sourceName = null)
     {
-        var name = Path.GetFileName(path);
+        var name = sourceName ?? Path.GetFileName(path);
         try
         {
             using var file = NetCdfFile.Open(path);
-            return Read(file, name, sha256);
+            return Read(file, name);
         }
         catch (HindcastFormatException e)
         {
@@ -37,7 +39,7 @@ public static class StationNetCdfReader
         }
     }
 
-    private static StationFileContent Read(NetCdfFile file, string name, string sha256)
+    private static StationTimeSeries Read(NetCdfFile file, string name)
     {
         var problems = new List<string>();
         var featureType = file.GlobalAttribute("featureType")?.Text?.Trim();
@@ -69,11 +71,10 @@ public static class StationNetCdfReader
         var longitude = ReadPosition(file, "longitude", problems);
         if (problems.Count > 0 || times is null || hs is null) throw new StationFileException(name, problems);
 
-        var rows = new StationObservationRow[n];
+        var flags = new short[n];
         for (int i = 0; i < n; i++)
         {
-            short flag = qc?[i] ?? 0;
-            rows[i] = new StationObservationRow(times[i], hs[i], tp?[i] ?? float.NaN, te?[i] ?? float.NaN, dir?[i] ?? float.NaN, flag);
+            short flag = flags[i] = qc?[i] ?? 0;
             if (flag != 0) continue;
             if (hs[i] < 0) problems.Add($"variable '{hsVariable.Name}' [{i}] ({Iso(times[i])}): Hs {F(hs[i])} m is negative");
             if (tp?[i] <= 0) problems.Add($"variable '{tpVariable!.Name}' [{i}] ({Iso(times[i])}): Tp {F(tp[i])} s must be above 0");
@@ -81,8 +82,7 @@ public static class StationNetCdfReader
         }
         if (n == 0) problems.Add($"the time dimension '{timeDimension.Name}' is empty: the file holds no observations");
         if (problems.Count > 0) throw new StationFileException(name, problems);
-        return new StationFileContent(name, "netcdf", sha256, rows, tp is not null, te is not null, dir is not null, latitude, longitude,
-            rows.Count(r => float.IsNaN(r.Hs)));
+        return new StationTimeSeries(name, times, hs, tp, te, dir, flags, latitude, longitude);
     }
 
     private static NetCdfVariable? FindTime(NetCdfFile file)

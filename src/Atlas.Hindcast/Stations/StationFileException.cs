@@ -1,4 +1,4 @@
-namespace Atlas.Ingest.Assessment;
+namespace Atlas.Hindcast.Stations;
 
 /// <summary>
 /// A station file that cannot be loaded, with every problem found (each naming the variable, index and time, or the
