@@ -1,4 +1,3 @@
-using System.Security.Cryptography;
 using Atlas.Api.Infrastructure;
 using Atlas.Assessment;
 using Atlas.Assessment.Yield;
@@ -58,11 +57,12 @@ public static class DeviceApi
         var rated = StationApi.Number(upload, "rated_kw", double.Epsilon, 1e9, "the rated power in kW, above 0", errors, required: false);
         if (errors.Count > 0) return TypedResults.ValidationProblem(errors, title: "The device description has invalid fields");
 
-        PowerMatrix matrix;
+        // The one registration path (the command line's too): same format, same checks.
         try
         {
-            using var reader = new StreamReader(new MemoryStream(upload.Content), detectEncodingFromByteOrderMarks: true);
-            matrix = PowerMatrixCsv.Parse(reader, upload.FileName, rated);
+            var loaded = await new DeviceLoader(dataSource).LoadAsync(name!, upload.Content, upload.FileName, rated, cancel);
+            var result = new DeviceRegistered(DeviceItem.From(loaded.Device), loaded.AlreadyRegistered, AtlasCaution.Text);
+            return loaded.AlreadyRegistered ? TypedResults.Ok(result) : TypedResults.Created($"/api/v1/devices/{loaded.Device.Slug}", result);
         }
         catch (CsvInputException e)
         {
@@ -72,13 +72,6 @@ public static class DeviceApi
         catch (ArgumentOutOfRangeException e)
         {
             return TypedResults.ValidationProblem(new Dictionary<string, string[]> { ["rated_kw"] = [e.Message.Split(" (Parameter")[0]] });
-        }
-        var definition = DeviceMatrices.DefinitionOf(matrix, slug!, name!, upload.FileName, Convert.ToHexStringLower(SHA256.HashData(upload.Content)));
-        try
-        {
-            var registration = await new DeviceStore(dataSource).RegisterAsync(definition, cancel);
-            var result = new DeviceRegistered(DeviceItem.From(registration.Device), registration.AlreadyRegistered, AtlasCaution.Text);
-            return registration.AlreadyRegistered ? TypedResults.Ok(result) : TypedResults.Created($"/api/v1/devices/{registration.Device.Slug}", result);
         }
         catch (DuplicateDeviceException e)
         {
