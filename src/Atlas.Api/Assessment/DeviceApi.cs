@@ -43,7 +43,7 @@ public static class DeviceApi
         TypedResults.Ok(new DeviceList([.. (await new DeviceStore(dataSource).ListAsync(cancel)).Select(DeviceItem.From)], InterpolationNote, AtlasCaution.Text));
 
     public static async Task<Results<Ok<DeviceItem>, ProblemHttpResult>> DescribeAsync(string device, NpgsqlDataSource dataSource, CancellationToken cancel) =>
-        await new DeviceStore(dataSource).FindAsync(device, cancel) is { } found ? TypedResults.Ok(DeviceItem.From(found)) : UnknownDevice(device);
+        await new DeviceStore(dataSource).FindAsync(device, cancel) is { } found ? TypedResults.Ok(DeviceItem.From(found)) : ApiProblems.UnknownDevice(device);
 
     public static async Task<IResult> AddAsync(HttpRequest request, [FromKeyedServices(AtlasDataSources.Writer)] NpgsqlDataSource dataSource, CancellationToken cancel)
     {
@@ -54,7 +54,7 @@ public static class DeviceApi
         var slug = name is null ? null : ReferenceSlug.From(name);
         if (name is null) errors["name"] = ["name is required: the device's name, your own."];
         else if (slug is null) errors["name"] = [$"name '{name}' needs at least one letter or digit."];
-        var rated = StationApi.Number(upload, "rated_kw", double.Epsilon, 1e9, "the rated power in kW, above 0", errors, required: false);
+        var rated = upload.Number("rated_kw", double.Epsilon, 1e9, "the rated power in kW, above 0", errors, required: false);
         if (errors.Count > 0) return TypedResults.ValidationProblem(errors, title: "The device description has invalid fields");
 
         // The one registration path (the command line's too): same format, same checks.
@@ -80,8 +80,6 @@ public static class DeviceApi
     }
 
     public static async Task<Results<NoContent, ProblemHttpResult>> DeleteAsync(string device, [FromKeyedServices(AtlasDataSources.Writer)] NpgsqlDataSource dataSource, CancellationToken cancel) =>
-        await new DeviceStore(dataSource).DeleteAsync(device, cancel) ? TypedResults.NoContent() : UnknownDevice(device);
+        await new DeviceStore(dataSource).DeleteAsync(device, cancel) ? TypedResults.NoContent() : ApiProblems.UnknownDevice(device);
 
-    public static ProblemHttpResult UnknownDevice(string device) =>
-        ApiProblems.NotFound("Unknown device", $"There is no device '{device}'. GET /api/v1/devices lists the stored devices.");
 }

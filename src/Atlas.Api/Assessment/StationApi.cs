@@ -40,7 +40,7 @@ public static class StationApi
         TypedResults.Ok(new StationList([.. (await new StationStore(dataSource).ListAsync(cancel)).Select(StationItem.From)], AtlasCaution.Text));
 
     public static async Task<Results<Ok<StationItem>, ProblemHttpResult>> DescribeAsync(string station, NpgsqlDataSource dataSource, CancellationToken cancel) =>
-        await new StationStore(dataSource).FindAsync(station, cancel) is { } found ? TypedResults.Ok(StationItem.From(found)) : ValidationApi.UnknownStation(station);
+        await new StationStore(dataSource).FindAsync(station, cancel) is { } found ? TypedResults.Ok(StationItem.From(found)) : ApiProblems.UnknownStation(station);
 
     public static async Task<IResult> AddAsync(HttpRequest request, [FromKeyedServices(AtlasDataSources.Writer)] NpgsqlDataSource dataSource, CancellationToken cancel)
     {
@@ -54,9 +54,9 @@ public static class StationApi
         else if (slug is null) errors["name"] = [$"name '{name}' needs at least one letter or digit."];
         // A CF-NetCDF record may state the station position itself; a CSV record cannot.
         var positionRequired = !StationFileReader.IsNetCdf(upload.Content);
-        var latitude = Number(upload, "lat", -90, 90, "the latitude in degrees north, -90..90", errors, required: positionRequired);
-        var longitude = Number(upload, "lon", -180, 180, "the longitude in degrees east, -180..180", errors, required: positionRequired);
-        var depth = Number(upload, "depth_m", 0, StationLoader.MaximumDepthMetres, "the water depth in metres, above 0", errors, required: false);
+        var latitude = upload.Number("lat", -90, 90, "the latitude in degrees north, -90..90", errors, required: positionRequired);
+        var longitude = upload.Number("lon", -180, 180, "the longitude in degrees east, -180..180", errors, required: positionRequired);
+        var depth = upload.Number("depth_m", 0, StationLoader.MaximumDepthMetres, "the water depth in metres, above 0", errors, required: false);
         if (depth is 0) errors["depth_m"] = ["depth_m must be above 0 m; leave it out when unknown."];
         var instrument = upload.Field("instrument")?.Trim();
         if (instrument is null) errors["instrument"] = ["instrument is required: the kind of instrument (e.g. directional wave buoy)."];
@@ -104,19 +104,6 @@ public static class StationApi
     }
 
     public static async Task<Results<NoContent, ProblemHttpResult>> DeleteAsync(string station, [FromKeyedServices(AtlasDataSources.Writer)] NpgsqlDataSource dataSource, CancellationToken cancel) =>
-        await new StationStore(dataSource).DeleteAsync(station, cancel) ? TypedResults.NoContent() : ValidationApi.UnknownStation(station);
+        await new StationStore(dataSource).DeleteAsync(station, cancel) ? TypedResults.NoContent() : ApiProblems.UnknownStation(station);
 
-    /// <summary>A numeric field in [min, max]; null (with an error when required or unparsable) otherwise.</summary>
-    internal static double? Number(Upload upload, string name, double min, double max, string meaning, Dictionary<string, string[]> errors, bool required)
-    {
-        var text = upload.Field(name);
-        if (text is null)
-        {
-            if (required) errors[name] = [$"{name} is required: {meaning}."];
-            return null;
-        }
-        if (!QueryNumbers.TryParse(text, out var value)) { errors[name] = [$"{name} '{text}' is not a number: give {meaning}, with a decimal point."]; return null; }
-        if (value < min || value > max) { errors[name] = [$"{name} {text} is out of range: give {meaning}."]; return null; }
-        return value;
-    }
 }

@@ -56,7 +56,7 @@ public static class ValidationApi
         IReadOnlyList<StoredStation> stations;
         if (station is not null)
         {
-            if (await service.Stations.FindAsync(station, cancel) is not { } found) return UnknownStation(station);
+            if (await service.Stations.FindAsync(station, cancel) is not { } found) return ApiProblems.UnknownStation(station);
             stations = [found];
         }
         else stations = await service.Stations.ListAsync(cancel);
@@ -79,7 +79,7 @@ public static class ValidationApi
 
         var dataset = await catalog.FindAsync(slug, cancel);
         if (dataset is null) return ApiProblems.UnknownDataset(slug);
-        if (await service.Stations.FindAsync(station, cancel) is not { } found) return UnknownStation(station);
+        if (await service.Stations.FindAsync(station, cancel) is not { } found) return ApiProblems.UnknownStation(station);
         var (validation, reason) = await service.AtStationAsync(dataset, found, cancel);
         if (validation is null) return ApiProblems.Unprocessable("The dataset does not cover this station", reason!);
         if (validation.Find(wanted) is not { } compared)
@@ -160,8 +160,6 @@ public static class ValidationApi
         return TypedResults.Ok(new ValidationComparison(symbol, ranking, byStation, sources, AtlasCaution.Text));
     }
 
-    public static ProblemHttpResult UnknownStation(string station) =>
-        ApiProblems.NotFound("Unknown station", $"There is no station '{station}'. GET /api/v1/stations lists the registered stations.");
 
     /// <summary>Ends of the 1:1 line spanning the pairs (0 to the largest value; 0 to 360 for directions).</summary>
     private static double[] OneToOne(MatchedSeries pairs, ValidatedVariable variable)

@@ -1,4 +1,3 @@
-using System.Globalization;
 using Atlas.Api.Infrastructure;
 using Atlas.Storage.Cells;
 using Atlas.Storage.Datasets;
@@ -50,13 +49,6 @@ public sealed class PointLocator(DatasetCatalog catalog, CellStore cells, IOptio
 
     private static ProblemHttpResult Problem(ReachRefusal refusal) => ApiProblems.Unprocessable(refusal.Title, refusal.Detail);
 
-    private static double? Coordinate(string name, string? text, double bound, string meaning, Dictionary<string, string[]> errors)
-    {
-        if (string.IsNullOrWhiteSpace(text)) { errors[name] = [$"{name} is required: the {meaning}."]; return null; }
-        if (!QueryNumbers.TryParse(text, out var value)) { errors[name] = [$"{name} '{text}' is not a number: give the {meaning}, with a decimal point."]; return null; }
-        if (value < -bound || value > bound) { errors[name] = [$"{name} {F(value)} is out of range: give the {meaning}."]; return null; }
-        return value;
-    }
-
-    private static string F(double v) => v.ToString("0.#####", CultureInfo.InvariantCulture);
+    private static double? Coordinate(string name, string? text, double bound, string meaning, Dictionary<string, string[]> errors) =>
+        QueryNumbers.Read(name, text, "the " + meaning, errors, required: true, -bound, bound);
 }
