@@ -6,6 +6,7 @@ using Atlas.Storage.Datasets;
 using Atlas.Storage.Stations;
 using Microsoft.Extensions.DependencyInjection;
 using Microsoft.Extensions.Hosting;
+using Microsoft.Extensions.Options;
 using Npgsql;
 
 namespace Atlas.Cli.Commands;
@@ -31,27 +32,28 @@ public static class ValidateCommand
 
     public static async Task<int> RunAsync(NpgsqlDataSource dataSource, string slug, string? stationName, CancellationToken cancel)
     {
-        var dataset = await new DatasetStore(dataSource).FindAsync(slug, cancel);
-        if (dataset is null)
-        {
-            Console.Error.WriteLine($"atlas validate: there is no dataset '{slug}'");
-            return 2;
-        }
         // The service as the host registers it: the distance limit comes from configuration (appsettings.json,
         // AtlasApiOptions__... variables), as it does for the API, and a wrong value stops here with its name.
         var builder = Host.CreateApplicationBuilder();
         builder.Services.AddSingleton(dataSource);
         builder.Services.AddStationValidation();
         using var host = builder.Build();
-        ValidationService service;
+        // The host is not started (nothing runs in the background, and its start-up lines would mix with the report):
+        // the options are checked here, as a start would check them.
         try
         {
-            await host.StartAsync(cancel);
-            service = host.Services.GetRequiredService<ValidationService>();
+            _ = host.Services.GetRequiredService<IOptions<StationCellOptions>>().Value;
         }
-        catch (Microsoft.Extensions.Options.OptionsValidationException e)
+        catch (OptionsValidationException e)
         {
             Console.Error.WriteLine($"atlas validate: not started: {string.Join("; ", e.Failures)}");
+            return 2;
+        }
+        var service = host.Services.GetRequiredService<ValidationService>();
+        var dataset = await new DatasetStore(dataSource).FindAsync(slug, cancel);
+        if (dataset is null)
+        {
+            Console.Error.WriteLine($"atlas validate: there is no dataset '{slug}'");
             return 2;
         }
         IReadOnlyList<StoredStation> stations;

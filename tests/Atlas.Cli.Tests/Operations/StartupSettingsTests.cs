@@ -42,6 +42,21 @@ public sealed class StartupSettingsTests(TestDatabase database) : IClassFixture<
     }
 
     [Fact]
+    public void ValidateReadsTheDistanceLimitFromConfigurationAndRefusesAWrongOneByName()
+    {
+        // The same key as the API's (AtlasApiOptions:PointMaxDistanceKm): atlas validate no longer ignores configuration.
+        var (code, output) = AtlasProcess.Run("validate some-dataset", new Dictionary<string, string>
+        {
+            ["ATLAS_DB"] = database.ConnectionString,
+            ["AtlasApiOptions__PointMaxDistanceKm"] = "-5",
+        });
+        Assert.Equal(2, code);
+        Assert.Contains("atlas validate: not started", output);
+        Assert.Contains("PointMaxDistanceKm", output);
+        Assert.DoesNotContain("   at ", output);
+    }
+
+    [Fact]
     public void AnEmbeddedClusterPortThatIsNotANumberIsNamed()
     {
         var (code, output) = AtlasProcess.Run("db status", new Dictionary<string, string> { ["ATLAS_DB"] = "", ["ATLAS_PG_PORT"] = "54x39" });
