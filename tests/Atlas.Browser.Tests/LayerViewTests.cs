@@ -58,8 +58,9 @@ public class LayerViewTests(AtlasSite site)
         await ShownLayer.WaitForParameterAsync(page, "hs");
         var reference = await SeaCells.LayerAsync(site.Http, "hs", "mean", "annual");
         Assert.EndsWith("(m)", (await page.TextContentAsync("#legend-title"))!.Trim());
-        var lo = await page.EvaluateAsync<double>("() => window.atlasPage.layers.current.lo");
-        var hi = await page.EvaluateAsync<double>("() => window.atlasPage.layers.current.hi");
+        // The colour range as the person sees it: the From and To boxes beside the colour bar.
+        var lo = double.Parse(await page.InputValueAsync("#range-min"), System.Globalization.CultureInfo.InvariantCulture);
+        var hi = double.Parse(await page.InputValueAsync("#range-max"), System.Globalization.CultureInfo.InvariantCulture);
         Assert.True(lo <= reference.Min(c => c.Value) && hi >= reference.Max(c => c.Value), $"colour range {lo}..{hi} does not cover the values");
         Assert.True(await page.Locator(".legend-ticks span").CountAsync() >= 3);
     }
