@@ -10,7 +10,8 @@ public class PageLoadTests(AtlasSite site)
     {
         await using var session = await site.OpenAsync();
         var page = session.Page;
-        await page.WaitForFunctionAsync("() => window.atlasPage.hasLand && Number(document.querySelector('canvas.cell-canvas').dataset.draws) > 0");
+        await ShownLayer.WaitForLandAsync(page);
+        await page.WaitForFunctionAsync("() => Number(document.querySelector('canvas.cell-canvas').dataset.draws) > 0");
 
         Assert.Empty(session.Errors);
         Assert.Contains("Browser test coast", await page.TextContentAsync("#dataset-title"));
@@ -52,7 +53,7 @@ public class PageLoadTests(AtlasSite site)
     {
         await using var session = await site.OpenAsync();
         var page = session.Page;
-        await page.WaitForFunctionAsync("() => window.atlasPage.hasLand");
+        await ShownLayer.WaitForLandAsync(page);
         var land = await PageMap.GetJsonAsync(site.Http, $"/api/v1/datasets/{AtlasSite.Slug}/land");
         var detail = await PageMap.GetJsonAsync(site.Http, $"/api/v1/datasets/{AtlasSite.Slug}");
         // Every grid cell is either wet or dry: the land mask holds exactly the cells that are not sea.

@@ -21,6 +21,9 @@ public static class ShownLayer
     public static Task WaitForParameterAsync(IPage page, string parameter) =>
         Assertions.Expect(TifLink(page)).ToHaveAttributeAsync("href", new Regex($"/layers/{Regex.Escape(parameter)}/[^/]+/[^/]+\\.tif$"));
 
+    /// <summary>Waits until the land mask is drawn, as the person sees it: the colour bar gains its "land (dry cells)" key.</summary>
+    public static Task WaitForLandAsync(IPage page) => Assertions.Expect(page.Locator("#map-legend .swatch.land")).ToBeVisibleAsync();
+
     /// <summary>The number of cells with a value, as the facts line shows it.</summary>
     public static async Task<int> CellsWithAValueAsync(IPage page)
     {
