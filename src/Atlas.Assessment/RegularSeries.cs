@@ -1,3 +1,5 @@
+using Atlas.Statistics;
+
 namespace Atlas.Assessment;
 
 /// <summary>
@@ -89,15 +91,17 @@ public sealed class RegularSeries
     /// </summary>
     internal IEnumerable<(int Year, int Month, int Start, int End)> MonthBlocks()
     {
+        // The one calendar of the atlas (Statistics' TimelineCalendar) says which (year, month) slot each step is in.
+        var times = new long[Count];
+        for (int i = 0; i < times.Length; i++) times[i] = TimeAt(i);
+        var calendar = new TimelineCalendar(times);
+        int[] slots = calendar.StepSlots.ToArray();
         int start = 0;
-        while (start < Count)
+        while (start < slots.Length)
         {
-            var time = UtcCalendar.ToDateTime(TimeAt(start));
-            var nextMonth = new DateTime(time.Year, time.Month, 1, 0, 0, 0, DateTimeKind.Utc).AddMonths(1);
-            long nextMonthSeconds = UtcCalendar.ToUnixSeconds(nextMonth);
-            long stepsToNextMonth = (nextMonthSeconds - TimeAt(start) + StepSeconds - 1) / StepSeconds;
-            int end = (int)Math.Min(Count, start + stepsToNextMonth);
-            yield return (time.Year, time.Month, start, end);
+            int end = start + 1;
+            while (end < slots.Length && slots[end] == slots[start]) end++;
+            yield return (calendar.YearOfSlot(slots[start]), TimelineCalendar.MonthOfSlot(slots[start]), start, end);
             start = end;
         }
     }

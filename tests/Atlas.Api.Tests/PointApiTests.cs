@@ -5,6 +5,7 @@ using Atlas.Api.Infrastructure;
 using Atlas.Api.Tests.Support;
 using Atlas.Storage.Statistics;
 using Microsoft.Data.Analysis;
+using Atlas.TestSupport;
 
 namespace Atlas.Api.Tests;
 
@@ -113,13 +114,8 @@ public sealed class PointApiTests(AtlasApiFixture atlas)
         await atlas.CountAsync(sql + " RETURNING 1");
         try
         {
-            // The stamps are cached for two seconds; poll a little longer than that.
-            var changed = await _client.GetAsync(url);
-            for (var attempt = 0; attempt < 50 && changed.Headers.ETag!.Equals(etag); attempt++)
-            {
-                await Task.Delay(200);
-                changed = await _client.GetAsync(url);
-            }
+            // The stamps are cached for two seconds; ask until the tag changes.
+            var changed = await Patience.UntilAsync(() => _client.GetAsync(url), r => !r.Headers.ETag!.Equals(etag), "a new tag after the stamp changed");
             Assert.NotEqual(etag, changed.Headers.ETag);
             Assert.Contains("later-file.nc", await changed.Content.ReadAsStringAsync());
         }

@@ -6,7 +6,9 @@ namespace Atlas.Assessment.Tests;
 /// <summary>
 /// Runs a script under Debian's /usr/bin/python3 (NumPy and SciPy from the distribution — not the
 /// python3 first on PATH), passing a JSON document on standard input and reading one from standard
-/// output. Test classes call it once, from a fixture, to keep the suite quick.
+/// output. Test classes call it once, from a fixture, to keep the suite quick. Only quick NumPy/SciPy work runs
+/// here; a slow reference is stored under tests/data/assessment with its script. There is no time limit: on a busy
+/// machine a script may take many times longer than alone, and only CI's limit for the whole suite applies.
 /// </summary>
 internal static class ReferencePython
 {
@@ -28,11 +30,7 @@ internal static class ReferencePython
         var outputText = process.StandardOutput.ReadToEndAsync();
         process.StandardInput.Write(JsonSerializer.Serialize(input));
         process.StandardInput.Close();
-        if (!process.WaitForExit(60_000))
-        {
-            process.Kill();
-            throw new TimeoutException("The reference script ran for more than 60 s.");
-        }
+        process.WaitForExit();
         if (process.ExitCode != 0)
             throw new InvalidOperationException($"The reference script failed ({process.ExitCode}):\n{errorText.Result}");
         return JsonDocument.Parse(outputText.Result).RootElement.Clone();

@@ -27,10 +27,12 @@ public class AreaTests(AtlasSite site)
         await page.ClickAsync("#area-draw");
         var (x, y) = await PageMap.PixelOfAsync(page, cell.Lat, cell.Lon);
         foreach (var (dx, dy) in new[] { (-60, -50), (60, -50), (70, 40), (-50, 55) }) await page.Mouse.ClickAsync(x + dx, y + dy);
-        await page.ClickAsync("#area-finish");
+        // The polygon as the page sends it to the API (what crosses the wire, not the page's own state).
+        var sent = await page.RunAndWaitForRequestAsync(() => page.ClickAsync("#area-finish"),
+            request => request.Method == "POST" && request.Url.Contains("/area", StringComparison.Ordinal));
         await page.WaitForSelectorAsync("[data-field='area-stats']");
 
-        var geometry = await page.EvaluateAsync<string>("() => JSON.stringify(window.atlasPage.area.geometry)");
+        var geometry = sent.PostData ?? throw new InvalidOperationException("The page posted no polygon.");
         var api = await PostAreaAsync(geometry, "parameter=j&statistic=mean&period=annual");
         Assert.Contains($"{api.GetProperty("cell_count").GetInt32()} (", await ShownAsync(page, "Cells inside"));
         ShownNumber.Matches(api.GetProperty("mean").GetDouble(), await ShownAsync(page, "Mean"), "area mean");

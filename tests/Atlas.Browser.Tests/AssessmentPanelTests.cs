@@ -20,7 +20,7 @@ public class AssessmentPanelTests(AtlasSite site)
         var page = session.Page;
         var cell = await SeaCells.OffshoreAsync(site.Http);
         await PageMap.ClickAsync(page, cell.Lat, cell.Lon);
-        await page.WaitForSelectorAsync("#point-body[data-assessments='done']", new() { Timeout = 30_000 });
+        await page.WaitForSelectorAsync("#point-body[data-assessments='done']");
         var at = $"lat={cell.Lat:0.#####}&lon={cell.Lon:0.#####}";
 
         var stations = (await PageMap.GetJsonAsync(site.Http, "/api/v1/stations")).GetProperty("stations").EnumerateArray().ToArray();

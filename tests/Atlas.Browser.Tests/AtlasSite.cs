@@ -1,7 +1,8 @@
-using System.Net;
 using System.Net.Sockets;
+using System.Net;
 using Atlas.Api;
 using Atlas.Api.Apis;
+using Atlas.Cli.Demo;
 using Atlas.Demo;
 using Atlas.Ingest.Assessment;
 using Atlas.Ingest.Ingestion;
@@ -74,6 +75,9 @@ public sealed class AtlasSite : IAsyncLifetime
         await _app.StartAsync();
         Http = new HttpClient { BaseAddress = new Uri(BaseUrl) };
 
+        // Every wait on the page (actions, selectors, auto-waiting assertions) may last as long as CI's limit: a busy
+        // machine makes the page slow, not wrong.
+        Assertions.SetDefaultExpectTimeout(Patience.LimitMilliseconds);
         Playwright = await Microsoft.Playwright.Playwright.CreateAsync();
         Browser = await Playwright.Chromium.LaunchAsync(new BrowserTypeLaunchOptions
         {
@@ -107,6 +111,7 @@ public sealed class AtlasSite : IAsyncLifetime
             BaseURL = BaseUrl,
             AcceptDownloads = true,
         });
+        context.SetDefaultTimeout(Patience.LimitMilliseconds);
         var page = await context.NewPageAsync();
         var site = new SitePage(context, page);
         page.Console += (_, message) => { if (message.Type == "error") site.Errors.Add($"console: {message.Text}"); };
@@ -116,8 +121,7 @@ public sealed class AtlasSite : IAsyncLifetime
         try
         {
             // Ready, or failed: an uncaught error or the page's own start-up failure stops the wait at once.
-            await page.WaitForFunctionAsync("() => document.body.dataset.ready === 'true' || document.querySelector('#map-status.error')",
-                null, new PageWaitForFunctionOptions { Timeout = 20_000 });
+            await page.WaitForFunctionAsync("() => document.body.dataset.ready === 'true' || document.querySelector('#map-status.error')");
         }
         catch (TimeoutException)
         {

@@ -14,7 +14,7 @@ public class DownloadTests(AtlasSite site)
         await using var session = await site.OpenAsync();
         var page = session.Page;
         await page.SelectOptionAsync("#layer-parameter", "hs");
-        await page.WaitForFunctionAsync("() => window.atlasPage.layers.current.parameter === 'hs'");
+        await ShownLayer.WaitForParameterAsync(page, "hs");
         var cells = (await SeaCells.LayerAsync(site.Http, "hs", "mean", "annual")).Count;
         var links = page.Locator("#layer-downloads a");
         Assert.Equal(5, await links.CountAsync());

@@ -28,13 +28,11 @@ public class LayerViewTests(AtlasSite site)
             await page.SelectOptionAsync("#layer-parameter", parameter);
             await page.SelectOptionAsync("#layer-statistic", statistic);
             await page.SelectOptionAsync("#layer-period", period);
-            await page.WaitForFunctionAsync(
-                "([p, s, t]) => { const c = window.atlasPage.layers.current; return c.parameter === p && c.statistic === s && c.period === t; }",
-                new[] { parameter, statistic, period });
+            await ShownLayer.WaitForAsync(page, parameter, statistic, period);
             Assert.Contains(title, (await page.TextContentAsync("#legend-title"))!, StringComparison.OrdinalIgnoreCase);
 
             var reference = await SeaCells.LayerAsync(site.Http, parameter, statistic, period);
-            Assert.Equal(reference.Count, await page.EvaluateAsync<int>("() => window.atlasPage.layers.current.values.size"));
+            Assert.Equal(reference.Count, await ShownLayer.CellsWithAValueAsync(page));
             var expected = reference.Single(c => c.Id == cell.Id).Value;
             Assert.Equal(expected, await page.EvaluateAsync<double>($"() => window.atlasPage.layers.current.values.get({cell.Id})"), 4);
 
@@ -57,11 +55,12 @@ public class LayerViewTests(AtlasSite site)
         await using var session = await site.OpenAsync();
         var page = session.Page;
         await page.SelectOptionAsync("#layer-parameter", "hs");
-        await page.WaitForFunctionAsync("() => window.atlasPage.layers.current.parameter === 'hs'");
+        await ShownLayer.WaitForParameterAsync(page, "hs");
         var reference = await SeaCells.LayerAsync(site.Http, "hs", "mean", "annual");
         Assert.EndsWith("(m)", (await page.TextContentAsync("#legend-title"))!.Trim());
-        var lo = await page.EvaluateAsync<double>("() => window.atlasPage.layers.current.lo");
-        var hi = await page.EvaluateAsync<double>("() => window.atlasPage.layers.current.hi");
+        // The colour range as the person sees it: the From and To boxes beside the colour bar.
+        var lo = double.Parse(await page.InputValueAsync("#range-min"), System.Globalization.CultureInfo.InvariantCulture);
+        var hi = double.Parse(await page.InputValueAsync("#range-max"), System.Globalization.CultureInfo.InvariantCulture);
         Assert.True(lo <= reference.Min(c => c.Value) && hi >= reference.Max(c => c.Value), $"colour range {lo}..{hi} does not cover the values");
         Assert.True(await page.Locator(".legend-ticks span").CountAsync() >= 3);
     }
@@ -71,7 +70,7 @@ public class LayerViewTests(AtlasSite site)
     {
         await using var session = await site.OpenAsync(path: "/#p=te&s=p50&t=nov");
         var page = session.Page;
-        await page.WaitForFunctionAsync("() => window.atlasPage.layers.current?.parameter === 'te'");
+        await ShownLayer.WaitForParameterAsync(page, "te");
         Assert.Equal("p50", await page.InputValueAsync("#layer-statistic"));
         Assert.Equal("nov", await page.InputValueAsync("#layer-period"));
     }

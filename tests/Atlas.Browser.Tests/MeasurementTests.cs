@@ -20,7 +20,8 @@ public class MeasurementTests(AtlasSite site, ITestOutputHelper output)
         {
             await using var session = await site.OpenAsync();
             var page = session.Page;
-            await page.WaitForFunctionAsync("() => document.body.dataset.firstLayerMs && window.atlasPage.hasLand");
+            await page.WaitForFunctionAsync("() => document.body.dataset.firstLayerMs");
+            await ShownLayer.WaitForLandAsync(page);
             // Every request of the first view has ended when the list of finished resources stops growing for 400 ms.
             await page.EvaluateAsync("""
                 () => new Promise(done => {

@@ -10,7 +10,8 @@ public class PageLoadTests(AtlasSite site)
     {
         await using var session = await site.OpenAsync();
         var page = session.Page;
-        await page.WaitForFunctionAsync("() => window.atlasPage.hasLand && Number(document.querySelector('canvas.cell-canvas').dataset.draws) > 0");
+        await ShownLayer.WaitForLandAsync(page);
+        await page.WaitForFunctionAsync("() => Number(document.querySelector('canvas.cell-canvas').dataset.draws) > 0");
 
         Assert.Empty(session.Errors);
         Assert.Contains("Browser test coast", await page.TextContentAsync("#dataset-title"));
@@ -24,7 +25,7 @@ public class PageLoadTests(AtlasSite site)
 
         // Every sea cell of the API's layer is on the map, with the API's value.
         var layer = await SeaCells.LayerAsync(site.Http, "j", "mean", "annual");
-        var drawn = await page.EvaluateAsync<int>("() => window.atlasPage.layers.current.values.size");
+        var drawn = await ShownLayer.CellsWithAValueAsync(page);
         Assert.Equal(layer.Count, drawn);
         var value = await page.EvaluateAsync<double>($"() => window.atlasPage.layers.current.values.get({cell.Id})");
         Assert.Equal(cell.Value, value, 4);
@@ -52,7 +53,7 @@ public class PageLoadTests(AtlasSite site)
     {
         await using var session = await site.OpenAsync();
         var page = session.Page;
-        await page.WaitForFunctionAsync("() => window.atlasPage.hasLand");
+        await ShownLayer.WaitForLandAsync(page);
         var land = await PageMap.GetJsonAsync(site.Http, $"/api/v1/datasets/{AtlasSite.Slug}/land");
         var detail = await PageMap.GetJsonAsync(site.Http, $"/api/v1/datasets/{AtlasSite.Slug}");
         // Every grid cell is either wet or dry: the land mask holds exactly the cells that are not sea.

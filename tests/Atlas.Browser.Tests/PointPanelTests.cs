@@ -113,7 +113,7 @@ public class PointPanelTests(AtlasSite site)
         await page.EvaluateAsync("([lat, lon]) => window.atlasPage.map.setView([lat, lon], window.atlasPage.map.getZoom(), { animate: false })",
             new[] { lat, lon });
         // The canvas shows land there.
-        await page.WaitForFunctionAsync("() => window.atlasPage.hasLand");
+        await ShownLayer.WaitForLandAsync(page);
         await PageMap.NextFrameAsync(page);
         var rgba = await PageMap.CanvasColourAtAsync(page, lat, lon);
         Assert.Equal(255, rgba[3]);

@@ -1,11 +1,12 @@
 using System.Diagnostics;
+using Atlas.TestSupport;
 
 namespace Atlas.Cli.Tests;
 
-/// <summary>Runs the built <c>atlas</c> command as a user would, with its own environment.</summary>
+/// <summary>Runs the built <c>atlas</c> command as a user would, with its own environment; waits for it as long as CI does.</summary>
 public static class AtlasProcess
 {
-    public static (int Code, string Output) Run(string arguments, IDictionary<string, string>? environment = null, int timeoutSeconds = 600)
+    public static (int Code, string Output) Run(string arguments, IDictionary<string, string>? environment = null)
     {
         var start = new ProcessStartInfo("dotnet", $"\"{Path.Combine(AppContext.BaseDirectory, "atlas.dll")}\" {arguments}")
         {
@@ -17,10 +18,10 @@ public static class AtlasProcess
         using var process = Process.Start(start)!;
         var stdout = process.StandardOutput.ReadToEndAsync();
         var stderr = process.StandardError.ReadToEndAsync();
-        if (!process.WaitForExit(timeoutSeconds * 1000))
+        if (!process.WaitForExit(Patience.Limit))
         {
             process.Kill(entireProcessTree: true);
-            throw new TimeoutException($"atlas {arguments} did not finish within {timeoutSeconds} s");
+            throw new TimeoutException($"atlas {arguments} did not finish within {Patience.Limit.TotalMinutes} min");
         }
         return (process.ExitCode, stdout.Result + stderr.Result);
     }

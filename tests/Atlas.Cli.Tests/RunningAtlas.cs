@@ -2,12 +2,13 @@ using System.Collections.Concurrent;
 using System.Diagnostics;
 using System.Net;
 using System.Net.Sockets;
+using Atlas.TestSupport;
 
 namespace Atlas.Cli.Tests;
 
 /// <summary>
 /// A long-running <c>atlas</c> process (worker, server) started by a test, with its output kept. Disposing it stops
-/// it with SIGTERM and, failing that within 30 s, kills it.
+/// it with SIGTERM and, failing that within <see cref="Patience.Limit"/>, kills it.
 /// </summary>
 public sealed class RunningAtlas : IDisposable
 {
@@ -39,18 +40,18 @@ public sealed class RunningAtlas : IDisposable
     public void Kill()
     {
         _process.Kill();
-        _process.WaitForExit(30_000);
+        _process.WaitForExit();
     }
 
     /// <summary>SIGTERM, as systemd and docker stop a service; returns the exit code.</summary>
-    public int Terminate(int timeoutSeconds = 30)
+    public int Terminate()
     {
         if (_process.HasExited) return _process.ExitCode;
         if (SendSignal(_process.Id, SignalTerminate) != 0) throw new InvalidOperationException($"kill({_process.Id}, SIGTERM) failed");
-        if (!_process.WaitForExit(timeoutSeconds * 1000))
+        if (!_process.WaitForExit(Patience.Limit))
         {
             _process.Kill(entireProcessTree: true);
-            throw new TimeoutException($"atlas (pid {_process.Id}) did not stop within {timeoutSeconds} s of SIGTERM:\n{Output}");
+            throw new TimeoutException($"atlas (pid {_process.Id}) did not stop within {Patience.Limit.TotalMinutes} min of SIGTERM:\n{Output}");
         }
         _process.WaitForExit();
         return _process.ExitCode;
@@ -75,16 +76,5 @@ public sealed class RunningAtlas : IDisposable
         using var listener = new TcpListener(IPAddress.Loopback, 0);
         listener.Start();
         return ((IPEndPoint)listener.LocalEndpoint).Port;
-    }
-
-    /// <summary>Polls <paramref name="condition"/> every 50 ms until it holds; fails after <paramref name="timeoutSeconds"/>.</summary>
-    public static async Task WaitUntilAsync(Func<Task<bool>> condition, int timeoutSeconds, string what)
-    {
-        var deadline = DateTime.UtcNow.AddSeconds(timeoutSeconds);
-        while (!await condition())
-        {
-            if (DateTime.UtcNow > deadline) throw new TimeoutException($"Waited {timeoutSeconds} s for {what}.");
-            await Task.Delay(50);
-        }
     }
 }

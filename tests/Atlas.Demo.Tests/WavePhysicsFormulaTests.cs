@@ -3,7 +3,7 @@ namespace Atlas.Demo.Tests;
 public class WavePhysicsFormulaTests
 {
     // USACE Shore Protection Manual (1984), Appendix C, Table C-1, recalled from memory (see
-    // /work/shared/REFERENCES.md): h/L0, tanh(kh), n = cg/c. The model uses the explicit
+    // tests/data/README.md): h/L0, tanh(kh), n = cg/c. The model uses the explicit
     // Fenton and McKee (1990) wavelength, good to about 1.5 %; the tolerance is 2 %.
     [Theory]
     [InlineData(0.01, 0.24804, 0.97923)]

@@ -4,7 +4,7 @@ namespace Atlas.Statistics.Tests;
 
 public class AtlasPeriodTests
 {
-    // The period vocabulary and stored codes of DESIGN.md: months 1..12, djf 13, mam 14, jja 15, son 16, annual 0,
+    // The period vocabulary and stored codes of tests/data/README.md: months 1..12, djf 13, mam 14, jja 15, son 16, annual 0,
     // a year its number.
     [Theory]
     [InlineData("jan", 1)]

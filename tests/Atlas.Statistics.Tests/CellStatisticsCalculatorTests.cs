@@ -95,7 +95,7 @@ public class CellStatisticsCalculatorTests(InventedSeriesReference reference)
         }
     }
 
-    // DESIGN.md computation rule: power per step, then averaged. Two alternating sea states (1 m, 6 s) and (3 m, 10 s)
+    // Computation rule (tests/data/README.md): power per step, then averaged. Two alternating sea states (1 m, 6 s) and (3 m, 10 s)
     // in deep water: the mean power is 0.4906 (1 x 6 + 9 x 10) / 2 = 23.55 kW/m (IEC deep-water formula, from memory),
     // while the power of the mean Hs and Te would be 0.4906 x 2^2 x 8 = 15.70 kW/m.
     [Fact]
@@ -151,7 +151,7 @@ public class CellStatisticsCalculatorTests(InventedSeriesReference reference)
         Assert.Null(result.Find(AtlasPeriod.Jja));
     }
 
-    // MathNet's convention (STYLE.md): an expected numeric condition gives NaN with a count, here 0.
+    // MathNet's convention (tests/data/README.md): an expected numeric condition gives NaN with a count, here 0.
     [Fact]
     public void AllMissingInputGivesNaNWithCountZero()
     {

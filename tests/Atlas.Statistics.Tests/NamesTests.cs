@@ -2,7 +2,7 @@ namespace Atlas.Statistics.Tests;
 
 public class NamesTests
 {
-    // Trade symbols and units of DESIGN.md (units spelled as UDUNITS / CF conventions: degree, 1).
+    // Trade symbols and units of tests/data/README.md (units spelled as UDUNITS / CF conventions: degree, 1).
     [Theory]
     [InlineData(WaveParameter.Hs, "hs", "m")]
     [InlineData(WaveParameter.Te, "te", "s")]

@@ -168,7 +168,7 @@ public class PointAnalysisTests(InventedSeriesReference reference)
         }
     }
 
-    // Every implementation of the same quantity against the same reference (STYLE.md): the layer pass and the point
+    // Every implementation of the same quantity against the same reference (tests/data/README.md): the layer pass and the point
     // analysis agree on counts, means and exceedance exactly or to rounding, and on percentiles within a bin width.
     [Fact]
     public void PointAnalysisAndLayerPassAgree()

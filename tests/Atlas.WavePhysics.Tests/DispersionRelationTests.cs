@@ -7,7 +7,7 @@ public class DispersionRelationTests
     private static double DepthFor(double depthOverDeepWaterWavelength) =>
         depthOverDeepWaterWavelength * DispersionRelation.DeepWaterWavelength(Period);
 
-    // USACE Shore Protection Manual (1984), Appendix C, Table C-1, as quoted in REFERENCES.md (values from memory,
+    // USACE Shore Protection Manual (1984), Appendix C, Table C-1, as quoted in tests/data/README.md (values from memory,
     // reproduced with SciPy brentq). Five significant figures are printed, so the tolerance is half a unit in the last place.
     [Theory]
     [InlineData(0.01, 0.04032, 0.24804, 0.97923)]
@@ -70,7 +70,7 @@ public class DispersionRelationTests
             AssertRelative(DispersionApproximation.HuntRelativeDepth(y), DispersionRelation.SolveRelativeDepth(y), 0.002);
     }
 
-    // Deep-water limit of linear theory (REFERENCES.md): L0 = g T^2 / (2 pi) = 1.5613 T^2, n = 1/2, cg = g T / (4 pi).
+    // Deep-water limit of linear theory (tests/data/README.md): L0 = g T^2 / (2 pi) = 1.5613 T^2, n = 1/2, cg = g T / (4 pi).
     [Theory]
     [InlineData(double.NaN)]
     [InlineData(double.PositiveInfinity)]

@@ -4,7 +4,7 @@ namespace Atlas.WavePhysics.Tests;
 
 public class WavePowerTests
 {
-    // IEC TS 62600-101 (from memory, REFERENCES.md): deep-water J = rho g^2 Hm0^2 Te / (64 pi) = 0.4906 Hm0^2 Te kW/m.
+    // IEC TS 62600-101 (from memory, tests/data/README.md): deep-water J = rho g^2 Hm0^2 Te / (64 pi) = 0.4906 Hm0^2 Te kW/m.
     // 0.4906 is rounded to four decimals, so the coefficient must lie within 0.00005 of it.
     [Fact]
     public void DeepWaterCoefficientIsPointFourNineZeroSix()
@@ -12,7 +12,7 @@ public class WavePowerTests
         Assert.Equal(0.4906, WavePower.DeepWaterCoefficient, 0.00005);
     }
 
-    // The deep-water value must come out of the finite-depth formula itself (DESIGN.md computation rules).
+    // The deep-water value must come out of the finite-depth formula itself (computation rules, tests/data/README.md).
     [Theory]
     [InlineData(2.0, 8.0)]
     [InlineData(5.5, 12.3)]

@@ -1,10 +1,11 @@
 using System.Globalization;
-using System.Text;
 using System.Text.Json;
+using System.Text;
 using Atlas.Api.Downloads;
 using Atlas.Api.Infrastructure;
 using Atlas.Api.Model;
 using Atlas.Api.Points;
+using Atlas.Ingest.Series;
 using Atlas.Storage.Series;
 using Microsoft.AspNetCore.Http.HttpResults;
 using Microsoft.Extensions.Options;

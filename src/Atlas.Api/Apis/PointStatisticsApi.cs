@@ -1,11 +1,12 @@
 using System.Globalization;
-using System.Text;
 using System.Text.Json;
+using System.Text;
 using Atlas.Api.Infrastructure;
 using Atlas.Api.Model;
 using Atlas.Api.Points;
-using Atlas.Statistics;
 using Atlas.Api.Vocabulary;
+using Atlas.Ingest.Series;
+using Atlas.Statistics;
 using Atlas.Storage.Series;
 using Microsoft.AspNetCore.Http.HttpResults;
 using Microsoft.AspNetCore.Http.Json;

@@ -1,5 +1,6 @@
 using Atlas.Api.Infrastructure;
 using Atlas.Assessment.Yield;
+using Atlas.Ingest.Assessment;
 using Atlas.Storage.Cells;
 using Atlas.Storage.Devices;
 using Atlas.Storage.Queries;
@@ -43,7 +44,7 @@ public static class AssessmentLayerApi
         if (!AssessmentLayerWriter.Formats.Contains(format)) return UnknownFormat(format);
         var dataset = await catalog.FindAsync(slug, cancel);
         if (dataset is null) return ApiProblems.UnknownDataset(slug);
-        if (await new DeviceStore(dataSource).FindAsync(device, cancel) is not { } stored) return DeviceApi.UnknownDevice(device);
+        if (await new DeviceStore(dataSource).FindAsync(device, cancel) is not { } stored) return ApiProblems.UnknownDevice(device);
         if (AssessmentLayerBuilder.TimelineProblem(await catalog.TimelinesAsync(dataset, cancel)) is { } problem)
             return ApiProblems.Unprocessable("No layer for this dataset", $"Dataset '{slug}' cannot carry an assessment layer: {problem}.");
         var layer = await new AssessmentLayerBuilder(dataSource, cache).YieldAsync(dataset, stored, reading, cancel);

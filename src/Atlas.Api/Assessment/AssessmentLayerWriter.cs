@@ -1,9 +1,11 @@
 using System.Globalization;
-using System.Text;
 using System.Text.Json;
+using System.Text;
 using Atlas.Api.Downloads;
 using Atlas.Api.Model;
 using Atlas.Api.Rasters;
+using Atlas.Ingest.Assessment;
+using Atlas.Ingest.Validation;
 using Atlas.Storage.Cells;
 using Atlas.Storage.Datasets;
 using Atlas.Storage.Statistics;

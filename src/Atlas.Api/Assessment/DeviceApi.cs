@@ -1,7 +1,7 @@
-using System.Security.Cryptography;
 using Atlas.Api.Infrastructure;
 using Atlas.Assessment;
 using Atlas.Assessment.Yield;
+using Atlas.Ingest.Assessment;
 using Atlas.Storage.Devices;
 using Atlas.Storage.Stations;
 using Microsoft.AspNetCore.Http.HttpResults;
@@ -43,7 +43,7 @@ public static class DeviceApi
         TypedResults.Ok(new DeviceList([.. (await new DeviceStore(dataSource).ListAsync(cancel)).Select(DeviceItem.From)], InterpolationNote, AtlasCaution.Text));
 
     public static async Task<Results<Ok<DeviceItem>, ProblemHttpResult>> DescribeAsync(string device, NpgsqlDataSource dataSource, CancellationToken cancel) =>
-        await new DeviceStore(dataSource).FindAsync(device, cancel) is { } found ? TypedResults.Ok(DeviceItem.From(found)) : UnknownDevice(device);
+        await new DeviceStore(dataSource).FindAsync(device, cancel) is { } found ? TypedResults.Ok(DeviceItem.From(found)) : ApiProblems.UnknownDevice(device);
 
     public static async Task<IResult> AddAsync(HttpRequest request, [FromKeyedServices(AtlasDataSources.Writer)] NpgsqlDataSource dataSource, CancellationToken cancel)
     {
@@ -54,14 +54,15 @@ public static class DeviceApi
         var slug = name is null ? null : ReferenceSlug.From(name);
         if (name is null) errors["name"] = ["name is required: the device's name, your own."];
         else if (slug is null) errors["name"] = [$"name '{name}' needs at least one letter or digit."];
-        var rated = StationApi.Number(upload, "rated_kw", double.Epsilon, 1e9, "the rated power in kW, above 0", errors, required: false);
+        var rated = upload.Number("rated_kw", double.Epsilon, 1e9, "the rated power in kW, above 0", errors, required: false);
         if (errors.Count > 0) return TypedResults.ValidationProblem(errors, title: "The device description has invalid fields");
 
-        PowerMatrix matrix;
+        // The one registration path (the command line's too): same format, same checks.
         try
         {
-            using var reader = new StreamReader(new MemoryStream(upload.Content), detectEncodingFromByteOrderMarks: true);
-            matrix = PowerMatrixCsv.Parse(reader, upload.FileName, rated);
+            var loaded = await new DeviceLoader(dataSource).LoadAsync(name!, upload.Content, upload.FileName, rated, cancel);
+            var result = new DeviceRegistered(DeviceItem.From(loaded.Device), loaded.AlreadyRegistered, AtlasCaution.Text);
+            return loaded.AlreadyRegistered ? TypedResults.Ok(result) : TypedResults.Created($"/api/v1/devices/{loaded.Device.Slug}", result);
         }
         catch (CsvInputException e)
         {
@@ -72,13 +73,6 @@ public static class DeviceApi
         {
             return TypedResults.ValidationProblem(new Dictionary<string, string[]> { ["rated_kw"] = [e.Message.Split(" (Parameter")[0]] });
         }
-        var definition = DeviceMatrices.DefinitionOf(matrix, slug!, name!, upload.FileName, Convert.ToHexStringLower(SHA256.HashData(upload.Content)));
-        try
-        {
-            var registration = await new DeviceStore(dataSource).RegisterAsync(definition, cancel);
-            var result = new DeviceRegistered(DeviceItem.From(registration.Device), registration.AlreadyRegistered, AtlasCaution.Text);
-            return registration.AlreadyRegistered ? TypedResults.Ok(result) : TypedResults.Created($"/api/v1/devices/{registration.Device.Slug}", result);
-        }
         catch (DuplicateDeviceException e)
         {
             return TypedResults.Problem(statusCode: 409, title: "The device conflicts with a stored one", detail: e.Message);
@@ -86,8 +80,6 @@ public static class DeviceApi
     }
 
     public static async Task<Results<NoContent, ProblemHttpResult>> DeleteAsync(string device, [FromKeyedServices(AtlasDataSources.Writer)] NpgsqlDataSource dataSource, CancellationToken cancel) =>
-        await new DeviceStore(dataSource).DeleteAsync(device, cancel) ? TypedResults.NoContent() : UnknownDevice(device);
+        await new DeviceStore(dataSource).DeleteAsync(device, cancel) ? TypedResults.NoContent() : ApiProblems.UnknownDevice(device);
 
-    public static ProblemHttpResult UnknownDevice(string device) =>
-        ApiProblems.NotFound("Unknown device", $"There is no device '{device}'. GET /api/v1/devices lists the stored devices.");
 }

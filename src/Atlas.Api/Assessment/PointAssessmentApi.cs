@@ -6,6 +6,10 @@ using Atlas.Assessment;
 using Atlas.Assessment.Access;
 using Atlas.Assessment.Extremes;
 using Atlas.Assessment.Yield;
+using Atlas.Ingest.Assessment;
+using Atlas.Ingest.Series;
+using Atlas.Ingest.Validation;
+using Atlas.Statistics;
 using Atlas.Storage.Devices;
 using Atlas.Storage.Series;
 using Atlas.WavePhysics;
@@ -92,7 +96,7 @@ public static class PointAssessmentApi
         else if (interpolation is not (null or "bilinear")) errors["interpolation"] = [$"'{interpolation}' is not a matrix interpolation: use bilinear or nearest."];
         if (errors.Count > 0 || position is null || window is null) return TypedResults.ValidationProblem(errors, title: "The yield request has invalid query values");
 
-        if (await new DeviceStore(dataSource).FindAsync(device!, cancel) is not { } stored) return DeviceApi.UnknownDevice(device!);
+        if (await new DeviceStore(dataSource).FindAsync(device!, cancel) is not { } stored) return ApiProblems.UnknownDevice(device!);
         var (context, problem) = await ReadAsync(slug, position.Value, window, locator, catalog, series, cancel);
         if (context is null) return problem!;
         var (period, periodSource) = PeriodFor(stored.AxisKind, context.Series);
@@ -159,17 +163,8 @@ public static class PointAssessmentApi
         return hs is { } h && !errors.ContainsKey("tp_max") ? new AccessLimits(h, tp) : null;
     }
 
-    public static double? Positive(string name, string? text, string meaning, Dictionary<string, string[]> errors, bool required)
-    {
-        if (string.IsNullOrWhiteSpace(text))
-        {
-            if (required) errors[name] = [$"{name} is required: {meaning}."];
-            return null;
-        }
-        if (!QueryNumbers.TryParse(text, out var value)) { errors[name] = [$"{name} '{text}' is not a number: give {meaning}, with a decimal point."]; return null; }
-        if (value <= 0) { errors[name] = [$"{name} {text} must be above 0: give {meaning}."]; return null; }
-        return value;
-    }
+    public static double? Positive(string name, string? text, string meaning, Dictionary<string, string[]> errors, bool required) =>
+        QueryNumbers.Read(name, text, meaning, errors, required, min: 0, aboveMin: true);
 
     public static async Task<Results<Ok<PointExtremes>, ProblemHttpResult, ValidationProblem>> ExtremesAsync(
         string slug, string? lat, string? lon, string? method, string? threshold, string? threshold_quantile, string? separation_hours,
@@ -214,7 +209,7 @@ public static class PointAssessmentApi
         }
         var valid = 0;
         foreach (var v in hs.Values) if (!double.IsNaN(v)) valid++;
-        var recordYears = valid * hs.StepHours / UtcCalendar.HoursPerMeanYear;
+        var recordYears = valid * hs.StepHours / CalendarHours.PerMeanYear;
         var cautions = (annual?.Cautions ?? []).Concat(peaks?.Cautions ?? []).ToArray();
         var strong = cautions.Where(c => c.Kind is "long_extrapolation").Concat(cautions.Where(c => c.Kind is "small_sample")).Select(c => c.Text).Distinct().ToArray();
         return TypedResults.Ok(new PointExtremes(slug, context.Cell, "hs", "m", recordYears, window.FromYear, window.ToYear, annual, peaks,

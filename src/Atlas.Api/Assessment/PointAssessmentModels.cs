@@ -2,6 +2,7 @@ using Atlas.Api.Model;
 using Atlas.Assessment.Access;
 using Atlas.Assessment.Extremes;
 using Atlas.Assessment.Yield;
+using Atlas.Ingest.Validation;
 
 namespace Atlas.Api.Assessment;
 
@@ -29,11 +30,7 @@ public sealed record PointYield(
         [.. y.Years.Select(a => new YearlyYieldRow(a.Year, a.ValidSteps, a.Coverage, SkillRow.Finite(a.MeanPowerKw), SkillRow.Finite(a.EnergyMwh), a.IsComplete))],
         SkillRow.Finite(y.InterannualCoefficientOfVariation), y.CompleteYears, YieldMethod, provenance, Atlas.Api.Infrastructure.AtlasCaution.Text);
 
-    public const string YieldMethod =
-        "power read from the matrix at every step's Hs and period, then averaged over the valid steps; annual energy = mean power x 8766 h " +
-        "(a mean year of 365.25 days); capacity factor = mean power / rated power; a month's energy = its mean power x its mean length " +
-        "(February 28.25 days); a year's energy = its mean power x its hours, counted complete at 90 % coverage; the inter-annual coefficient " +
-        "of variation is the sample standard deviation over the mean of the complete years' energy. Missing steps are left out and counted.";
+    public const string YieldMethod = DeviceYield.MethodNote;
 }
 
 public sealed record AccessLimitsRow(double HsMaxM, double? TpMaxS);
@@ -63,12 +60,7 @@ public sealed record PointWindows(
         SpellRow.From(r.CalmSpells), SpellRow.From(r.StormSpells), SkillRow.Finite(r.Accessibility.Fraction), WindowMethod, provenance,
         Atlas.Api.Infrastructure.AtlasCaution.Text);
 
-    public const string WindowMethod =
-        "a step is within limits when Hs <= hs_max (and Tp <= tp_max when given); a window is a run of at least ceil(hours / step) such steps; " +
-        "window_start_probability is the share of a month's steps from which a window starts, among the steps whose answer is known " +
-        "(a missing step breaks every spell and is neither within nor beyond limits); mean_windows_per_month counts distinct windows " +
-        "starting in the month per month of data; mean_waiting_hours is the mean time from a step to the next window start; spells are " +
-        "maximal runs within (calm) or beyond (storm) the limits, censored where cut by a gap or an end of the record.";
+    public const string WindowMethod = WeatherWindowAnalysis.MethodNote;
 }
 
 public sealed record ReturnLevelRow(double ReturnPeriodYears, double? Level, double? Lower, double? Upper, bool UpperUnbounded, double ConfidenceLevel,

@@ -1,7 +1,9 @@
-using System.Security.Cryptography;
 using Atlas.Api.Infrastructure;
 using Atlas.Assessment;
 using Atlas.Assessment.Validation;
+using Atlas.Hindcast.Stations;
+using Atlas.Ingest.Assessment;
+using Atlas.Ingest.Validation;
 using Atlas.Storage.Stations;
 using Microsoft.AspNetCore.Http.HttpResults;
 using Npgsql;
@@ -23,9 +25,10 @@ public static class StationApi
                 "query values: name, lat, lon (degrees), depth_m (optional), instrument, role (calibration or validation), file_name (body uploads). " +
                 "The record is CSV with the header time,hs_m[,tp_s][,te_s][,dir_deg][,qc] in any order: time ISO 8601 UTC (2021-01-01T03:00:00Z), " +
                 "Hs in m, periods in s, the direction waves come from in degrees true, qc 0 for a good row (other values are kept and counted " +
-                "as flagged). Every bad row is reported with its line number and nothing is stored. Loading the same file under the same name " +
+                "as flagged); or a CF-NetCDF point time series (featureType timeSeries), whose stated position may replace lat and lon. " +
+                "Every bad row is reported with its line number (or variable and index) and nothing is stored. Loading the same file under the same name " +
                 "again changes nothing (200); a new station answers 201.")
-            .Accepts<IFormFile>("multipart/form-data", "text/csv")
+            .Accepts<IFormFile>("multipart/form-data", "text/csv", "application/x-netcdf")
             .AddEndpointFilter<ApiKeyFilter>();
         group.MapDelete("/{station}", DeleteAsync).WithName("DeleteStation")
             .WithSummary("Remove a station and its record (needs X-Api-Key)")
@@ -37,7 +40,7 @@ public static class StationApi
         TypedResults.Ok(new StationList([.. (await new StationStore(dataSource).ListAsync(cancel)).Select(StationItem.From)], AtlasCaution.Text));
 
     public static async Task<Results<Ok<StationItem>, ProblemHttpResult>> DescribeAsync(string station, NpgsqlDataSource dataSource, CancellationToken cancel) =>
-        await new StationStore(dataSource).FindAsync(station, cancel) is { } found ? TypedResults.Ok(StationItem.From(found)) : ValidationApi.UnknownStation(station);
+        await new StationStore(dataSource).FindAsync(station, cancel) is { } found ? TypedResults.Ok(StationItem.From(found)) : ApiProblems.UnknownStation(station);
 
     public static async Task<IResult> AddAsync(HttpRequest request, [FromKeyedServices(AtlasDataSources.Writer)] NpgsqlDataSource dataSource, CancellationToken cancel)
     {
@@ -49,9 +52,11 @@ public static class StationApi
         var slug = name is null ? null : ReferenceSlug.From(name);
         if (name is null) errors["name"] = ["name is required: the station's name, your own."];
         else if (slug is null) errors["name"] = [$"name '{name}' needs at least one letter or digit."];
-        var latitude = Number(upload, "lat", -90, 90, "the latitude in degrees north, -90..90", errors, required: true);
-        var longitude = Number(upload, "lon", -180, 180, "the longitude in degrees east, -180..180", errors, required: true);
-        var depth = Number(upload, "depth_m", 0, 12_000, "the water depth in metres, above 0", errors, required: false);
+        // A CF-NetCDF record may state the station position itself; a CSV record cannot.
+        var positionRequired = !StationFileReader.IsNetCdf(upload.Content);
+        var latitude = upload.Number("lat", -90, 90, "the latitude in degrees north, -90..90", errors, required: positionRequired);
+        var longitude = upload.Number("lon", -180, 180, "the longitude in degrees east, -180..180", errors, required: positionRequired);
+        var depth = upload.Number("depth_m", 0, StationLoader.MaximumDepthMetres, "the water depth in metres, above 0", errors, required: false);
         if (depth is 0) errors["depth_m"] = ["depth_m must be above 0 m; leave it out when unknown."];
         var instrument = upload.Field("instrument")?.Trim();
         if (instrument is null) errors["instrument"] = ["instrument is required: the kind of instrument (e.g. directional wave buoy)."];
@@ -59,31 +64,38 @@ public static class StationApi
             errors["role"] = [$"role {(upload.Field("role") is { } r ? $"'{r}' " : "")}must be calibration (used to tune the hindcast) or validation (kept aside)."];
         if (errors.Count > 0) return TypedResults.ValidationProblem(errors, title: "The station description has invalid fields");
 
-        StationRecord record;
+        // The one registration path (the command line's too): same formats, same checks, one transaction.
+        var described = new StationLoadRequest(name!, latitude, longitude, depth, instrument!, role, upload.FileName);
         try
         {
-            using var reader = new StreamReader(new MemoryStream(upload.Content), detectEncodingFromByteOrderMarks: true);
-            record = StationRecordCsv.Parse(reader, upload.FileName);
+            var loaded = await new StationLoader(dataSource).LoadAsync(described, upload.Content, cancel);
+            var result = new StationRegistered(StationItem.From(loaded.Station), loaded.AlreadyRegistered, loaded.Content.MissingHsCount, AtlasCaution.Text);
+            return loaded.AlreadyRegistered ? TypedResults.Ok(result) : TypedResults.Created($"/api/v1/stations/{loaded.Station.Slug}", result);
         }
         catch (CsvInputException e)
         {
             return TypedResults.ValidationProblem(new Dictionary<string, string[]> { ["file"] = [.. e.Errors.Select(x => x.ToString())] },
                 title: $"The station record {upload.FileName} has {e.Errors.Count} {(e.Errors.Count == 1 ? "error" : "errors")}; nothing was stored");
         }
-        var outOfRange = record.Observations.Where(o => o.QualityFlag is < short.MinValue or > short.MaxValue).Select(o => $"line {o.LineNumber}: qc {o.QualityFlag} is outside the stored range {short.MinValue}..{short.MaxValue}").ToArray();
-        if (outOfRange.Length > 0)
-            return TypedResults.ValidationProblem(new Dictionary<string, string[]> { ["file"] = outOfRange }, title: $"The station record {upload.FileName} has errors; nothing was stored");
-
-        var rows = record.Observations
-            .Select(o => new StationObservationRow(o.TimeUnixSeconds, (float)o.HsMetres, (float)o.TpSeconds, (float)o.TeSeconds, (float)o.DirectionFromDegrees, (short)o.QualityFlag))
-            .ToArray();
-        var definition = new StationDefinition(slug!, name!, latitude!.Value, longitude!.Value, depth, instrument!, role, upload.FileName,
-            Convert.ToHexStringLower(SHA256.HashData(upload.Content)), "csv", record.HasTp, record.HasTe, record.HasDirection);
-        try
+        catch (StationFileException e)
         {
-            var registration = await new StationStore(dataSource).RegisterAsync(definition, rows, cancel);
-            var result = new StationRegistered(StationItem.From(registration.Station), registration.AlreadyRegistered, rows.Count(r => float.IsNaN(r.Hs)), AtlasCaution.Text);
-            return registration.AlreadyRegistered ? TypedResults.Ok(result) : TypedResults.Created($"/api/v1/stations/{registration.Station.Slug}", result);
+            return TypedResults.ValidationProblem(new Dictionary<string, string[]> { ["file"] = [.. e.Problems] },
+                title: $"The station record {upload.FileName} has {e.Problems.Count} {(e.Problems.Count == 1 ? "problem" : "problems")}; nothing was stored");
+        }
+        catch (ArgumentException e)
+        {
+            // The loader names the description field at fault; the message goes under its query name.
+            var field = e.ParamName switch
+            {
+                nameof(StationLoadRequest.Latitude) => "lat",
+                nameof(StationLoadRequest.Longitude) => "lon",
+                nameof(StationLoadRequest.DepthMetres) => "depth_m",
+                nameof(StationLoadRequest.Instrument) => "instrument",
+                nameof(StationLoadRequest.Name) => "name",
+                _ => "file",
+            };
+            return TypedResults.ValidationProblem(new Dictionary<string, string[]> { [field] = [e.Message.Split(" (Parameter")[0]] },
+                title: "The station description does not fit its record; nothing was stored");
         }
         catch (DuplicateStationException e)
         {
@@ -92,19 +104,6 @@ public static class StationApi
     }
 
     public static async Task<Results<NoContent, ProblemHttpResult>> DeleteAsync(string station, [FromKeyedServices(AtlasDataSources.Writer)] NpgsqlDataSource dataSource, CancellationToken cancel) =>
-        await new StationStore(dataSource).DeleteAsync(station, cancel) ? TypedResults.NoContent() : ValidationApi.UnknownStation(station);
+        await new StationStore(dataSource).DeleteAsync(station, cancel) ? TypedResults.NoContent() : ApiProblems.UnknownStation(station);
 
-    /// <summary>A numeric field in [min, max]; null (with an error when required or unparsable) otherwise.</summary>
-    internal static double? Number(Upload upload, string name, double min, double max, string meaning, Dictionary<string, string[]> errors, bool required)
-    {
-        var text = upload.Field(name);
-        if (text is null)
-        {
-            if (required) errors[name] = [$"{name} is required: {meaning}."];
-            return null;
-        }
-        if (!QueryNumbers.TryParse(text, out var value)) { errors[name] = [$"{name} '{text}' is not a number: give {meaning}, with a decimal point."]; return null; }
-        if (value < min || value > max) { errors[name] = [$"{name} {text} is out of range: give {meaning}."]; return null; }
-        return value;
-    }
 }

@@ -7,6 +7,10 @@ namespace Atlas.Api.Assessment;
 public sealed record Upload(byte[] Content, string FileName, IReadOnlyDictionary<string, string> Fields)
 {
     public string? Field(string name) => Fields.TryGetValue(name, out var value) && value.Length > 0 ? value : null;
+
+    /// <summary>A numeric field in [min, max]; null (with an error when required or unparsable) otherwise.</summary>
+    public double? Number(string name, double min, double max, string meaning, Dictionary<string, string[]> errors, bool required) =>
+        QueryNumbers.Read(name, Field(name), meaning, errors, required, min, max);
 }
 
 /// <summary>

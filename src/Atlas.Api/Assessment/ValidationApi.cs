@@ -4,6 +4,7 @@ using Atlas.Api.Infrastructure;
 using Atlas.Api.Model;
 using Atlas.Api.Points;
 using Atlas.Assessment.Validation;
+using Atlas.Ingest.Validation;
 using Atlas.Storage.Datasets;
 using Atlas.Storage.Series;
 using Atlas.Storage.Stations;
@@ -45,30 +46,29 @@ public static class ValidationApi
     }
 
     public static async Task<Results<Ok<ValidationTable>, FileContentHttpResult, ProblemHttpResult, ValidationProblem>> TableAsync(
-        string slug, string? station, string? format, DatasetCatalog catalog, PointLocator locator, SeriesStore series,
-        NpgsqlDataSource dataSource, ProvenanceBuilder provenance, CancellationToken cancel)
+        string slug, string? station, string? format, DatasetCatalog catalog, ValidationService service,
+        ProvenanceBuilder provenance, CancellationToken cancel)
     {
         if (format is not (null or "json" or "csv"))
             return TypedResults.ValidationProblem(new Dictionary<string, string[]> { ["format"] = [$"'{format}' is not a validation format: use json or csv."] });
         var dataset = await catalog.FindAsync(slug, cancel);
         if (dataset is null) return ApiProblems.UnknownDataset(slug);
-        var service = new ValidationService(locator, catalog, series, new StationStore(dataSource));
         IReadOnlyList<StoredStation> stations;
         if (station is not null)
         {
-            if (await service.Stations.FindAsync(station, cancel) is not { } found) return UnknownStation(station);
+            if (await service.Stations.FindAsync(station, cancel) is not { } found) return ApiProblems.UnknownStation(station);
             stations = [found];
         }
         else stations = await service.Stations.ListAsync(cancel);
         var (covered, notCovered) = await service.AtStationsAsync(dataset, stations, cancel);
         var table = new ValidationTable(slug, covered, notCovered, await provenance.ForAsync(dataset, cancel), AtlasCaution.Text);
-        if (format == "csv") return TypedResults.File(ValidationReporting.Csv(table), "text/csv; charset=utf-8", $"{slug}_validation.csv");
+        if (format == "csv") return TypedResults.File(ValidationCsv.Csv(table), "text/csv; charset=utf-8", $"{slug}_validation.csv");
         return TypedResults.Ok(table);
     }
 
     public static async Task<Results<Ok<ValidationPlotData>, FileContentHttpResult, ProblemHttpResult, ValidationProblem>> PairsAsync(
-        string slug, string station, string? variable, string? format, DatasetCatalog catalog, PointLocator locator, SeriesStore series,
-        NpgsqlDataSource dataSource, ProvenanceBuilder provenance, CancellationToken cancel)
+        string slug, string station, string? variable, string? format, DatasetCatalog catalog, ValidationService service,
+        ProvenanceBuilder provenance, CancellationToken cancel)
     {
         var errors = new Dictionary<string, string[]>();
         var wanted = ValidatedVariable.Hs;
@@ -79,8 +79,7 @@ public static class ValidationApi
 
         var dataset = await catalog.FindAsync(slug, cancel);
         if (dataset is null) return ApiProblems.UnknownDataset(slug);
-        var service = new ValidationService(locator, catalog, series, new StationStore(dataSource));
-        if (await service.Stations.FindAsync(station, cancel) is not { } found) return UnknownStation(station);
+        if (await service.Stations.FindAsync(station, cancel) is not { } found) return ApiProblems.UnknownStation(station);
         var (validation, reason) = await service.AtStationAsync(dataset, found, cancel);
         if (validation is null) return ApiProblems.Unprocessable("The dataset does not cover this station", reason!);
         if (validation.Find(wanted) is not { } compared)
@@ -103,7 +102,7 @@ public static class ValidationApi
     }
 
     public static async Task<Results<Ok<ValidationComparison>, ProblemHttpResult, ValidationProblem>> CompareAsync(
-        string? datasets, string? variable, DatasetCatalog catalog, PointLocator locator, SeriesStore series, NpgsqlDataSource dataSource,
+        string? datasets, string? variable, DatasetCatalog catalog, ValidationService service,
         ProvenanceBuilder provenance, CancellationToken cancel)
     {
         var errors = new Dictionary<string, string[]>();
@@ -120,7 +119,6 @@ public static class ValidationApi
             if (await catalog.FindAsync(s, cancel) is not { } record) return ApiProblems.UnknownDataset(s);
             records.Add(record);
         }
-        var service = new ValidationService(locator, catalog, series, new StationStore(dataSource));
         var stations = await service.Stations.ListAsync(cancel);
         var symbol = StationValidator.Symbol(wanted);
         var results = new Dictionary<(string Dataset, string Station), (SkillRow? Skill, string? Missing)>();
@@ -162,8 +160,6 @@ public static class ValidationApi
         return TypedResults.Ok(new ValidationComparison(symbol, ranking, byStation, sources, AtlasCaution.Text));
     }
 
-    public static ProblemHttpResult UnknownStation(string station) =>
-        ApiProblems.NotFound("Unknown station", $"There is no station '{station}'. GET /api/v1/stations lists the registered stations.");
 
     /// <summary>Ends of the 1:1 line spanning the pairs (0 to the largest value; 0 to 360 for directions).</summary>
     private static double[] OneToOne(MatchedSeries pairs, ValidatedVariable variable)

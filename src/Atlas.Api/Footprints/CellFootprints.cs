@@ -1,5 +1,6 @@
 using Atlas.Api.Infrastructure;
 using Atlas.Api.Rasters;
+using Atlas.Hindcast.Geodesy;
 using Atlas.Storage.Cells;
 using Atlas.Storage.Datasets;
 using Microsoft.Extensions.Caching.Memory;

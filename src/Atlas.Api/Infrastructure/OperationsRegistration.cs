@@ -1,3 +1,5 @@
+using Atlas.Ingest.Hosting;
+
 namespace Atlas.Api.Infrastructure;
 
 /// <summary>What an operator needs from the running API: metrics at <c>/metrics</c> and request ids in logs and headers.</summary>

@@ -1,4 +1,3 @@
-using System.Globalization;
 using Atlas.Api.Infrastructure;
 using Atlas.Storage.Cells;
 using Atlas.Storage.Datasets;
@@ -30,44 +29,26 @@ public sealed class PointLocator(DatasetCatalog catalog, CellStore cells, IOptio
         var dataset = await catalog.FindAsync(slug, cancel);
         if (dataset is null) return (null, ApiProblems.UnknownDataset(slug));
         var limitKm = await LimitKilometresAsync(dataset, cancel);
-        if (await catalog.ExtentAsync(dataset, cancel) is not { } extent)
-            return (null, ApiProblems.Unprocessable("The dataset has no wet cells", $"Dataset '{slug}' has no wet cell loaded yet; ingest its files first."));
+        if (await catalog.ExtentAsync(dataset, cancel) is not { } extent) return (null, Problem(WetCellReach.NoWetCellsYet(slug)));
         // Allow positions just outside the envelope of the grid's cell centres, as far as the distance limit reaches.
-        var marginLat = limitKm / 111.32;  // common practice: 111.32 km per degree of latitude
-        var marginLon = marginLat / Math.Max(0.05, Math.Cos(latitude * Math.PI / 180));
-        if (latitude < extent.South - marginLat || latitude > extent.North + marginLat
-            || longitude < extent.West - marginLon || longitude > extent.East + marginLon)
-            return (null, ApiProblems.Unprocessable("Outside the dataset extent",
-                $"({F(latitude)}, {F(longitude)}) lies outside dataset '{slug}', whose grid covers longitudes {F(extent.West)}..{F(extent.East)} " +
-                $"and latitudes {F(extent.South)}..{F(extent.North)}. Choose a position inside it."));
+        if (WetCellReach.OutsideExtent(slug, latitude, longitude, extent, limitKm) is { } outside) return (null, Problem(outside));
         var nearest = await catalog.WetCellsAsync(dataset, cancel) is { } index
             ? index.Nearest(latitude, longitude)
             : await cells.NearestWetAsync(dataset.Id, latitude, longitude, cancel);
-        if (nearest is null)
-            return (null, ApiProblems.Unprocessable("The dataset has no wet cells", $"Dataset '{slug}' has no wet cell."));
-        if (nearest.DistanceMetres > limitKm * 1000)
-            return (null, ApiProblems.Unprocessable("No wet cell near this position",
-                $"The nearest wet cell of '{slug}' (cell {nearest.Cell.CellId} at {F(nearest.Cell.Latitude)}, {F(nearest.Cell.Longitude)}) is " +
-                $"{nearest.DistanceMetres / 1000:0.###} km away; the limit is {limitKm:0.###} km. The position is probably on land or beyond the " +
-                "model's wet area: move it over the sea."));
+        if (nearest is null) return (null, Problem(WetCellReach.NoWetCells(slug)));
+        if (WetCellReach.TooFar(slug, nearest, limitKm) is { } tooFar) return (null, Problem(tooFar));
         return (new LocatedPoint(dataset, nearest, limitKm), null);
     }
 
     private async Task<double> LimitKilometresAsync(DatasetRecord dataset, CancellationToken cancel)
     {
         var settings = options.Value;
-        if (settings.PointMaxDistanceKm is { } fixedKm) return fixedKm;
-        var spacing = await catalog.TypicalSpacingMetresAsync(dataset, cancel) ?? 10_000;
-        return settings.PointMaxDistanceGridSpacings * spacing / 1000;
+        var spacing = settings.PointMaxDistanceKm is null ? await catalog.TypicalSpacingMetresAsync(dataset, cancel) : null;
+        return WetCellReach.LimitKilometres(settings.PointMaxDistanceKm, settings.PointMaxDistanceGridSpacings, spacing);
     }
 
-    private static double? Coordinate(string name, string? text, double bound, string meaning, Dictionary<string, string[]> errors)
-    {
-        if (string.IsNullOrWhiteSpace(text)) { errors[name] = [$"{name} is required: the {meaning}."]; return null; }
-        if (!QueryNumbers.TryParse(text, out var value)) { errors[name] = [$"{name} '{text}' is not a number: give the {meaning}, with a decimal point."]; return null; }
-        if (value < -bound || value > bound) { errors[name] = [$"{name} {F(value)} is out of range: give the {meaning}."]; return null; }
-        return value;
-    }
+    private static ProblemHttpResult Problem(ReachRefusal refusal) => ApiProblems.Unprocessable(refusal.Title, refusal.Detail);
 
-    private static string F(double v) => v.ToString("0.#####", CultureInfo.InvariantCulture);
+    private static double? Coordinate(string name, string? text, double bound, string meaning, Dictionary<string, string[]> errors) =>
+        QueryNumbers.Read(name, text, "the " + meaning, errors, required: true, -bound, bound);
 }

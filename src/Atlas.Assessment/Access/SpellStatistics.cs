@@ -1,3 +1,5 @@
+using Atlas.Statistics;
+
 namespace Atlas.Assessment.Access;
 
 /// <summary>Number of spells whose duration lies in [<paramref name="LowerHours"/>, <paramref name="UpperHours"/>).</summary>
@@ -14,7 +16,7 @@ public sealed record SpellDurationClass(double LowerHours, double UpperHours, in
 /// <param name="Count">Number of spells.</param>
 /// <param name="CensoredCount">Spells touching a gap or an end of the record (their true length may be longer).</param>
 /// <param name="MeanHours">Mean duration; NaN without spells.</param>
-/// <param name="MedianHours">Median duration (definition 7, see <see cref="EmpiricalQuantile"/>); NaN without spells.</param>
+/// <param name="MedianHours">Median duration (Hyndman-Fan type 7, see <see cref="ExactQuantile"/>); NaN without spells.</param>
 /// <param name="MaximumHours">Longest duration; NaN without spells.</param>
 /// <param name="Classes">Counts by duration class.</param>
 public sealed record SpellStatistics(

@@ -1,3 +1,5 @@
+using Atlas.Statistics;
+
 namespace Atlas.Assessment.Access;
 
 /// <summary>
@@ -14,6 +16,14 @@ namespace Atlas.Assessment.Access;
 /// </remarks>
 public static class WeatherWindowAnalysis
 {
+    /// <summary>The method in words, for the notes of every answer and layer built on it.</summary>
+    public const string MethodNote =
+        "a step is within limits when Hs <= hs_max (and Tp <= tp_max when given); a window is a run of at least ceil(hours / step) such steps; " +
+        "window_start_probability is the share of a month's steps from which a window starts, among the steps whose answer is known " +
+        "(a missing step breaks every spell and is neither within nor beyond limits); mean_windows_per_month counts distinct windows " +
+        "starting in the month per month of data; mean_waiting_hours is the mean time from a step to the next window start; spells are " +
+        "maximal runs within (calm) or beyond (storm) the limits, censored where cut by a gap or an end of the record.";
+
     /// <summary>Default lower bounds of the spell-duration classes, hours: 0, 6, 12, 24, 48, 72, 120.</summary>
     public static IReadOnlyList<double> DefaultSpellClassLowerBoundsHours { get; } = [0, 6, 12, 24, 48, 72, 120];
 
@@ -94,7 +104,7 @@ public static class WeatherWindowAnalysis
                     accumulator.WaitingHoursSum += (next - i) * stepHours;
                 }
             }
-            accumulator.EquivalentMonths += valid * stepHours / UtcCalendar.HoursInMonth(year, month);
+            accumulator.EquivalentMonths += valid * stepHours / CalendarHours.InMonth(year, month);
         }
 
         var monthly = months.Select((a, m) => new MonthlyWindowStatistics(
@@ -136,7 +146,7 @@ public static class WeatherWindowAnalysis
         if (durations.Count == 0)
             return new SpellStatistics(0, 0, double.NaN, double.NaN, double.NaN, classes);
         double[] sorted = [.. durations.Order()];
-        return new SpellStatistics(durations.Count, censored, durations.Average(), EmpiricalQuantile.OfSorted(sorted, 0.5), sorted[^1], classes);
+        return new SpellStatistics(durations.Count, censored, durations.Average(), ExactQuantile.OfSorted(sorted, 0.5), sorted[^1], classes);
     }
 
     private sealed class MonthAccumulator

@@ -1,3 +1,5 @@
+using Atlas.Statistics;
+
 namespace Atlas.Assessment.Extremes;
 
 /// <summary>The maximum of one calendar year.</summary>
@@ -49,8 +51,8 @@ public static class AnnualMaxima
         int i = 0;
         while (i < values.Length)
         {
-            int year = UtcCalendar.YearOf(series.TimeAt(i));
-            long nextYearStart = UtcCalendar.ToUnixSeconds(new DateTime(year + 1, 1, 1, 0, 0, 0, DateTimeKind.Utc));
+            int year = DateTimeOffset.FromUnixTimeSeconds(series.TimeAt(i)).Year;
+            long nextYearStart = new DateTimeOffset(year + 1, 1, 1, 0, 0, 0, TimeSpan.Zero).ToUnixTimeSeconds();
             int valid = 0;
             double maximum = double.NegativeInfinity;
             long maximumTime = 0;
@@ -65,7 +67,7 @@ public static class AnnualMaxima
                     maximumTime = series.TimeAt(i);
                 }
             }
-            double coverage = Math.Min(1.0, valid * series.StepHours / UtcCalendar.HoursInYear(year));
+            double coverage = Math.Min(1.0, valid * series.StepHours / CalendarHours.InYear(year));
             if (valid > 0 && coverage >= minimumCoverage)
                 maxima.Add(new AnnualMaximum(year, maximum, maximumTime, coverage));
             else

@@ -31,7 +31,7 @@ public readonly record struct GeneralizedParetoDistribution(double Scale, double
     /// <exception cref="ArgumentOutOfRangeException">The probability is outside 0..1.</exception>
     public double Quantile(double probability)
     {
-        EmpiricalQuantile.RequireProbability(probability);
+        ProbabilityArgument.Require(probability);
         // y = σ ((1 - p)^(-ξ) - 1)/ξ.
         double logSurvival = Math.Log(1 - probability);
         if (Math.Abs(Shape) < GevDistribution.GumbelShapeTolerance)

@@ -42,7 +42,7 @@ public readonly record struct GevDistribution(double Location, double Scale, dou
     /// <exception cref="ArgumentOutOfRangeException">The probability is outside 0..1.</exception>
     public double Quantile(double probability)
     {
-        EmpiricalQuantile.RequireProbability(probability);
+        ProbabilityArgument.Require(probability);
         // x = μ + σ ((-ln p)^(-ξ) - 1) / ξ, written with expm1 so small ξ keeps full precision.
         double logY = Math.Log(-Math.Log(probability));
         if (Math.Abs(Shape) < GumbelShapeTolerance)

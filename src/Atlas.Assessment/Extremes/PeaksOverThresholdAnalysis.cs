@@ -1,10 +1,12 @@
+using Atlas.Statistics;
+
 namespace Atlas.Assessment.Extremes;
 
 /// <summary>Choices for a peaks-over-threshold analysis.</summary>
 public sealed record PeaksOverThresholdOptions
 {
     /// <summary>
-    /// Threshold as a quantile of the non-missing values (definition 7, see <see cref="EmpiricalQuantile"/>);
+    /// Threshold as a quantile of the non-missing values (Hyndman-Fan type 7, see <see cref="ExactQuantile"/>);
     /// default 0.99 (common practice for hourly wave records). Ignored when <see cref="Threshold"/> is set.
     /// </summary>
     public double ThresholdQuantile { get; init; } = 0.99;
@@ -55,12 +57,12 @@ public static class PeaksOverThresholdAnalysis
     {
         ArgumentNullException.ThrowIfNull(series);
         options ??= new PeaksOverThresholdOptions();
-        double[] sorted = EmpiricalQuantile.SortedWithoutNaN(series.Values);
+        double[] sorted = ExactQuantile.SortedWithoutNaN(series.Values);
         if (sorted.Length == 0)
             throw new ArgumentException("The series has no non-missing values.", nameof(series));
-        EmpiricalQuantile.RequireProbability(options.ThresholdQuantile);
+        ProbabilityArgument.Require(options.ThresholdQuantile, nameof(options));
         double quantile = options.Threshold.HasValue ? double.NaN : options.ThresholdQuantile;
-        double threshold = options.Threshold ?? EmpiricalQuantile.OfSorted(sorted, options.ThresholdQuantile);
+        double threshold = options.Threshold ?? ExactQuantile.OfSorted(sorted, options.ThresholdQuantile);
 
         var peaks = RunsDeclustering.Decluster(series, threshold, options.SeparationHours);
         if (peaks.Count < GevMaximumLikelihood.MinimumSampleSize)
@@ -68,7 +70,7 @@ public static class PeaksOverThresholdAnalysis
                 $"Only {peaks.Count} storm peaks exceed the threshold {threshold:0.###}; a fit needs {GevMaximumLikelihood.MinimumSampleSize}. Lower the threshold.",
                 nameof(options));
 
-        double recordYears = sorted.Length * series.StepHours / UtcCalendar.HoursPerMeanYear;
+        double recordYears = sorted.Length * series.StepHours / CalendarHours.PerMeanYear;
         double rate = peaks.Count / recordYears;
         var fit = GpdMaximumLikelihood.Fit([.. peaks.Select(p => p.PeakValue)], threshold, rate);
         var levels = options.ReturnPeriodsYears.Select(t => fit.ReturnLevel(t, options.ConfidenceLevel)).ToArray();

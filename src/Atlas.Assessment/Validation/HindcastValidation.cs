@@ -1,8 +1,13 @@
+using Atlas.Statistics;
+
 namespace Atlas.Assessment.Validation;
 
 /// <summary>Builds the validation reports of matched hindcast-station pairs.</summary>
 public static class HindcastValidation
 {
+    /// <summary>The four seasons, DJF to SON, in the order the reports list them.</summary>
+    private static readonly AtlasPeriod[] Seasons = [AtlasPeriod.Djf, AtlasPeriod.Mam, AtlasPeriod.Jja, AtlasPeriod.Son];
+
     /// <summary>Scores a scalar matched series overall, per season, per observed class, with quantiles.</summary>
     /// <exception cref="ArgumentException">The series holds directions, or the class bounds are not strictly ascending.</exception>
     public static ScalarValidationReport Assess(MatchedSeries pairs, ValidationOptions? options = null)
@@ -16,7 +21,7 @@ public static class HindcastValidation
             if (!(bounds[i] > bounds[i - 1]))
                 throw new ArgumentException($"Class lower bounds must strictly ascend; {bounds[i]} follows {bounds[i - 1]}.", nameof(options));
 
-        var bySeason = Enum.GetValues<CalendarSeason>()
+        var bySeason = Seasons
             .Select(season => new SeasonSkill(season, SkillMetrics.Compute(pairs.WhereSeason(season))))
             .ToArray();
         var byClass = bounds
@@ -40,7 +45,7 @@ public static class HindcastValidation
     public static DirectionalValidationReport AssessDirection(MatchedSeries pairs)
     {
         ArgumentNullException.ThrowIfNull(pairs);
-        var bySeason = Enum.GetValues<CalendarSeason>()
+        var bySeason = Seasons
             .Select(season => new SeasonDirectionalSkill(season, SkillMetrics.ComputeDirectional(pairs.WhereSeason(season))))
             .ToArray();
         return new DirectionalValidationReport(pairs.Counts, SkillMetrics.ComputeDirectional(pairs), bySeason, pairs);

@@ -1,3 +1,5 @@
+using Atlas.Statistics;
+
 namespace Atlas.Assessment.Validation;
 
 /// <summary>
@@ -48,9 +50,14 @@ public sealed class MatchedSeries
     /// <summary>How many observations were matched and why the others were not.</summary>
     public MatchCounts Counts { get; }
 
-    /// <summary>The pairs whose observation time falls in <paramref name="season"/> (UTC calendar).</summary>
-    public MatchedSeries WhereSeason(CalendarSeason season) =>
-        Where(i => UtcCalendar.SeasonOf(UtcCalendar.MonthOf(_times[i])) == season);
+    /// <summary>The pairs whose observation time falls in <paramref name="season"/> (UTC calendar, across all years).</summary>
+    /// <exception cref="ArgumentException">The period is not a season.</exception>
+    public MatchedSeries WhereSeason(AtlasPeriod season)
+    {
+        if (season.Kind != PeriodKind.Season)
+            throw new ArgumentException($"'{season}' is not a season (djf, mam, jja or son).", nameof(season));
+        return Where(i => season.ContainsUnixSeconds(_times[i]));
+    }
 
     /// <summary>The pairs whose observed value is in [<paramref name="lower"/>, <paramref name="upper"/>).</summary>
     public MatchedSeries WhereObservedIn(double lower, double upper) =>

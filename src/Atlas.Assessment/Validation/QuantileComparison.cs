@@ -1,8 +1,10 @@
+using Atlas.Statistics;
+
 namespace Atlas.Assessment.Validation;
 
 /// <summary>Matched quantiles of observed and modelled values, for a quantile-quantile plot.</summary>
 /// <remarks>
-/// Quantiles follow <see cref="EmpiricalQuantile"/> (definition 7, NumPy's default). Observed and
+/// Quantiles follow <see cref="ExactQuantile"/> (Hyndman-Fan type 7, NumPy's default). Observed and
 /// modelled values are sorted separately, so the pairs compare distributions, not times.
 /// </remarks>
 public static class QuantileComparison
@@ -16,9 +18,9 @@ public static class QuantileComparison
     {
         probabilities ??= DefaultProbabilities;
         foreach (double p in probabilities)
-            EmpiricalQuantile.RequireProbability(p);
-        double[] sortedObserved = EmpiricalQuantile.SortedWithoutNaN(observed);
-        double[] sortedModelled = EmpiricalQuantile.SortedWithoutNaN(modelled);
-        return [.. probabilities.Select(p => new QuantilePair(p, EmpiricalQuantile.OfSorted(sortedObserved, p), EmpiricalQuantile.OfSorted(sortedModelled, p)))];
+            ProbabilityArgument.Require(p, nameof(probabilities));
+        double[] sortedObserved = ExactQuantile.SortedWithoutNaN(observed);
+        double[] sortedModelled = ExactQuantile.SortedWithoutNaN(modelled);
+        return [.. probabilities.Select(p => new QuantilePair(p, ExactQuantile.OfSorted(sortedObserved, p), ExactQuantile.OfSorted(sortedModelled, p)))];
     }
 }

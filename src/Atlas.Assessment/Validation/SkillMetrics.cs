@@ -1,3 +1,5 @@
+using Atlas.Statistics;
+
 namespace Atlas.Assessment.Validation;
 
 /// <summary>Skill metrics of modelled against observed values (trade definitions; see each field).</summary>
@@ -79,7 +81,7 @@ public static class SkillMetrics
             double o = observedDegrees[i], m = modelledDegrees[i];
             if (double.IsNaN(o) || double.IsNaN(m)) continue;
             n++;
-            double d = CircularDegrees.SignedDifference(o, m);
+            double d = CircularArc.SignedDifference(o, m);
             double oRad = double.DegreesToRadians(o), mRad = double.DegreesToRadians(m), dRad = double.DegreesToRadians(d);
             sinObserved += Math.Sin(oRad); cosObserved += Math.Cos(oRad);
             sinModelled += Math.Sin(mRad); cosModelled += Math.Cos(mRad);
@@ -95,8 +97,8 @@ public static class SkillMetrics
             bias = 180.0;
         return new DirectionalSkillScores(
             n,
-            CircularDegrees.Normalise(CircularMean(sinObserved, cosObserved, n)),
-            CircularDegrees.Normalise(CircularMean(sinModelled, cosModelled, n)),
+            CircularStatistics.Normalise(CircularMean(sinObserved, cosObserved, n)),
+            CircularStatistics.Normalise(CircularMean(sinModelled, cosModelled, n)),
             bias,
             Math.Sqrt(sumSquared / n),
             sumAbsolute / n);

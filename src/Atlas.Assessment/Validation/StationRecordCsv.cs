@@ -230,5 +230,5 @@ public static class StationRecordCsv
     }
 
     private static string FormatTime(long unixSeconds) =>
-        UtcCalendar.ToDateTime(unixSeconds).ToString("yyyy-MM-dd'T'HH:mm:ss'Z'", CultureInfo.InvariantCulture);
+        DateTimeOffset.FromUnixTimeSeconds(unixSeconds).UtcDateTime.ToString("yyyy-MM-dd'T'HH:mm:ss'Z'", CultureInfo.InvariantCulture);
 }

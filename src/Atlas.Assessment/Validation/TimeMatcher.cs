@@ -1,3 +1,5 @@
+using Atlas.Statistics;
+
 namespace Atlas.Assessment.Validation;
 
 /// <summary>
@@ -111,7 +113,7 @@ public sealed class TimeMatcher
                 double a = modelValues[before], b = modelValues[after];
                 if (double.IsNaN(a) || double.IsNaN(b)) { modelMissing++; continue; }
                 double weight = (double)(t - tBefore) / (tAfter - tBefore);
-                value = isCircular ? CircularDegrees.Interpolate(a, b, weight) : a + weight * (b - a);
+                value = isCircular ? CircularArc.Interpolate(a, b, weight) : a + weight * (b - a);
             }
             times.Add(t);
             observed.Add(observedValues[i]);

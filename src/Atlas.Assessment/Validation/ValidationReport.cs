@@ -1,7 +1,9 @@
+using Atlas.Statistics;
+
 namespace Atlas.Assessment.Validation;
 
 /// <summary>Scores of the pairs whose observation falls in one season.</summary>
-public sealed record SeasonSkill(CalendarSeason Season, SkillScores Scores);
+public sealed record SeasonSkill(AtlasPeriod Season, SkillScores Scores);
 
 /// <summary>Scores of the pairs whose observed value lies in [<paramref name="LowerBound"/>, <paramref name="UpperBound"/>).</summary>
 /// <param name="LowerBound">Inclusive lower bound of the observed value.</param>
@@ -10,7 +12,7 @@ public sealed record SeasonSkill(CalendarSeason Season, SkillScores Scores);
 public sealed record ClassSkill(double LowerBound, double UpperBound, SkillScores Scores);
 
 /// <summary>Directional scores of the pairs whose observation falls in one season.</summary>
-public sealed record SeasonDirectionalSkill(CalendarSeason Season, DirectionalSkillScores Scores);
+public sealed record SeasonDirectionalSkill(AtlasPeriod Season, DirectionalSkillScores Scores);
 
 /// <summary>Validation of a scalar variable (Hs, Tp, Te) against a station.</summary>
 /// <param name="Counts">Matched and unmatched observations, with reasons.</param>

@@ -1,3 +1,4 @@
+using Atlas.Statistics;
 using MathNet.Numerics.Statistics;
 
 namespace Atlas.Assessment.Yield;
@@ -10,6 +11,13 @@ namespace Atlas.Assessment.Yield;
 /// </remarks>
 public static class DeviceYield
 {
+    /// <summary>The method in words, for the notes of every answer and layer built on it.</summary>
+    public const string MethodNote =
+        "power read from the matrix at every step's Hs and period, then averaged over the valid steps; annual energy = mean power x 8766 h " +
+        "(a mean year of 365.25 days); capacity factor = mean power / rated power; a month's energy = its mean power x its mean length " +
+        "(February 28.25 days); a year's energy = its mean power x its hours, counted complete at 90 % coverage; the inter-annual coefficient " +
+        "of variation is the sample standard deviation over the mean of the complete years' energy. Missing steps are left out and counted.";
+
     /// <summary>Power per step, kW: NaN where Hs or period is missing, 0 outside the matrix.</summary>
     /// <exception cref="ArgumentException">The spans differ in length.</exception>
     public static double[] PowerPerStep(PowerMatrix matrix, ReadOnlySpan<double> hsMetres, ReadOnlySpan<double> periodSeconds, PowerMatrixInterpolation interpolation)
@@ -62,7 +70,7 @@ public static class DeviceYield
         void CloseYear()
         {
             if (currentYear == int.MinValue) return;
-            double hours = UtcCalendar.HoursInYear(currentYear);
+            double hours = CalendarHours.InYear(currentYear);
             double coverage = Math.Min(1.0, yearValid * hs.StepHours / hours);
             double yearMean = yearValid > 0 ? yearSum / yearValid : double.NaN;
             years.Add(new YearlyYield(currentYear, yearValid, coverage, yearMean, yearMean * hours / 1000.0, coverage >= options.MinimumYearCoverage));
@@ -90,7 +98,7 @@ public static class DeviceYield
         var months = Enumerable.Range(1, 12).Select(m =>
         {
             double mean = monthCounts[m - 1] > 0 ? monthSums[m - 1] / monthCounts[m - 1] : double.NaN;
-            return new MonthlyYield(m, monthCounts[m - 1], mean, mean * UtcCalendar.MeanHoursInMonth(m) / 1000.0);
+            return new MonthlyYield(m, monthCounts[m - 1], mean, mean * CalendarHours.InMeanMonth(m) / 1000.0);
         }).ToArray();
 
         double[] complete = [.. years.Where(y => y.IsComplete).Select(y => y.EnergyMwh)];
@@ -100,33 +108,8 @@ public static class DeviceYield
             matrix.Name, options.Interpolation, matrix.RatedPowerKw,
             power.Length, valid, power.Length - valid, outside,
             valid > 0 ? (double)outside / valid : double.NaN,
-            meanPower, meanPower * UtcCalendar.HoursPerMeanYear / 1000.0, meanPower / matrix.RatedPowerKw,
+            meanPower, meanPower * CalendarHours.PerMeanYear / 1000.0, meanPower / matrix.RatedPowerKw,
             months, years, variation, complete.Length);
-    }
-
-    /// <summary>
-    /// Production from a joint occurrence table: mean power = Σ f_ij P(Hs_i, T_j) / Σ f_ij, with P read
-    /// from the matrix at each table bin centre by <paramref name="interpolation"/> (when the table's
-    /// bins are the matrix's, that is the matrix value itself). Bins outside the matrix count at 0 kW.
-    /// </summary>
-    /// <exception cref="ArgumentException">The table's period kind differs from the matrix's.</exception>
-    public static TableYield ProductionFromJointTable(PowerMatrix matrix, JointOccurrenceTable table, PowerMatrixInterpolation interpolation = PowerMatrixInterpolation.Bilinear)
-    {
-        ArgumentNullException.ThrowIfNull(matrix);
-        ArgumentNullException.ThrowIfNull(table);
-        RequireKind(matrix, table.PeriodKind, "joint occurrence table");
-        double weighted = 0, outside = 0;
-        for (int i = 0; i < table.HsCentresMetres.Count; i++)
-            for (int j = 0; j < table.PeriodCentresSeconds.Count; j++)
-            {
-                double occurrence = table.OccurrenceAt(i, j);
-                if (occurrence == 0) continue;
-                double hs = table.HsCentresMetres[i], period = table.PeriodCentresSeconds[j];
-                weighted += occurrence * matrix.PowerKw(hs, period, interpolation);
-                if (!matrix.Contains(hs, period)) outside += occurrence;
-            }
-        double meanPower = weighted / table.Total;
-        return new TableYield(meanPower, meanPower * UtcCalendar.HoursPerMeanYear / 1000.0, meanPower / matrix.RatedPowerKw, outside / table.Total);
     }
 
     private static void RequireKind(PowerMatrix matrix, WavePeriodKind given, string what)

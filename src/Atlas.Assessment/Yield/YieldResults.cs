@@ -1,3 +1,5 @@
+using Atlas.Statistics;
+
 namespace Atlas.Assessment.Yield;
 
 /// <summary>Production in one calendar month, gathered across all years.</summary>
@@ -5,7 +7,7 @@ namespace Atlas.Assessment.Yield;
 /// <param name="ValidSteps">Steps with both Hs and period present.</param>
 /// <param name="MeanPowerKw">Mean power over those steps; NaN without any.</param>
 /// <param name="MeanEnergyMwh">Mean production of the month: mean power × the month's mean length
-/// (<see cref="UtcCalendar.MeanHoursInMonth"/>, February 28.25 days) / 1000.</param>
+/// (<see cref="CalendarHours.InMeanMonth"/>, February 28.25 days) / 1000.</param>
 public sealed record MonthlyYield(int Month, int ValidSteps, double MeanPowerKw, double MeanEnergyMwh);
 
 /// <summary>Production in one calendar year.</summary>
@@ -51,10 +53,3 @@ public sealed record SeriesYield(
     IReadOnlyList<YearlyYield> Years,
     double InterannualCoefficientOfVariation,
     int CompleteYears);
-
-/// <summary>Device production from a joint occurrence table.</summary>
-/// <param name="MeanPowerKw">Σ f P / Σ f over the table's bins, with P read from the matrix at each table bin centre.</param>
-/// <param name="AnnualEnergyMwh">Mean power × 8766 h / 1000.</param>
-/// <param name="CapacityFactor">Mean power / rated power.</param>
-/// <param name="OutsideMatrixFraction">Share of occurrence whose bin centre lies outside the matrix (counted at 0 kW).</param>
-public sealed record TableYield(double MeanPowerKw, double AnnualEnergyMwh, double CapacityFactor, double OutsideMatrixFraction);

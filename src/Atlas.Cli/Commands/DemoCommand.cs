@@ -1,11 +1,12 @@
 using System.CommandLine;
 using System.Text.Json;
-using Atlas.Api.Assessment;
 using Atlas.Assessment.Access;
 using Atlas.Assessment.Yield;
+using Atlas.Cli.Demo;
 using Atlas.Demo;
 using Atlas.Ingest.Assessment;
 using Atlas.Ingest.Progress;
+using Atlas.Ingest.Validation;
 using Atlas.Ingest.Worker;
 using Atlas.Storage;
 using Atlas.Storage.Datasets;

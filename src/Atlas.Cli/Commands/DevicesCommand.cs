@@ -9,14 +9,10 @@ namespace Atlas.Cli.Commands;
 /// <summary><c>atlas devices add|list|remove</c>: wave-energy converters' power matrices.</summary>
 public static class DevicesCommand
 {
-    public static Command Build()
-    {
-        var command = new Command("devices", "Store device power matrices, list and remove them.");
-        command.Subcommands.Add(BuildAdd());
-        command.Subcommands.Add(BuildList());
-        command.Subcommands.Add(BuildRemove());
-        return command;
-    }
+    public static Command Build() =>
+        ReferenceCommands.Group("devices", "Store device power matrices, list and remove them.", BuildAdd(), BuildList(),
+            ReferenceCommands.Remove("devices", "device", "Remove a stored device.", "removed",
+                (dataSource, name, cancel) => new DeviceStore(dataSource).DeleteAsync(name, cancel)));
 
     private static Command BuildAdd()
     {
@@ -58,24 +54,6 @@ public static class DevicesCommand
                 Console.WriteLine(string.Create(CultureInfo.InvariantCulture,
                     $"{d.Name} [{d.Slug}]: {d.HsCentresMetres.Length} Hs x {d.PeriodCentresSeconds.Length} {DeviceStore.AxisName(d.AxisKind)} bins, rated {d.RatedPowerKw:0.###} kW, from {d.SourceFile}"));
             return 0;
-        });
-        return command;
-    }
-
-    private static Command BuildRemove()
-    {
-        var name = new Argument<string>("name") { Description = "The device's name or slug" };
-        var command = new Command("remove", "Remove a stored device.") { name };
-        command.SetAction(async (parse, cancel) =>
-        {
-            await using var dataSource = await AtlasDatabase.OpenMigratedAsync(cancel: cancel);
-            if (await new DeviceStore(dataSource).DeleteAsync(parse.GetValue(name)!, cancel))
-            {
-                Console.WriteLine($"device {parse.GetValue(name)}: removed");
-                return 0;
-            }
-            Console.Error.WriteLine($"atlas devices remove: there is no device '{parse.GetValue(name)}' (atlas devices list)");
-            return 2;
         });
         return command;
     }

@@ -9,14 +9,10 @@ namespace Atlas.Cli.Commands;
 /// <summary><c>atlas stations add|list|remove</c>: the measuring stations whose records validate the hindcasts.</summary>
 public static class StationsCommand
 {
-    public static Command Build()
-    {
-        var command = new Command("stations", "Register measuring stations (buoys) with their records, list and remove them.");
-        command.Subcommands.Add(BuildAdd());
-        command.Subcommands.Add(BuildList());
-        command.Subcommands.Add(BuildRemove());
-        return command;
-    }
+    public static Command Build() =>
+        ReferenceCommands.Group("stations", "Register measuring stations (buoys) with their records, list and remove them.", BuildAdd(), BuildList(),
+            ReferenceCommands.Remove("stations", "station", "Remove a station and its record.", "removed with its record",
+                (dataSource, name, cancel) => new StationStore(dataSource).DeleteAsync(name, cancel)));
 
     private static Command BuildAdd()
     {
@@ -70,24 +66,6 @@ public static class StationsCommand
                     $"{s.Name} [{s.Slug}] {StationStore.RoleName(s.Role)}: {s.Latitude:0.####} N {s.Longitude:0.####} E, depth {(s.DepthMetres is { } d ? $"{d:0.#} m" : "unknown")}, " +
                     $"{s.Instrument}; {s.ObservationCount:N0} observations {s.TimeStartUtc:yyyy-MM-dd}..{s.TimeEndUtc:yyyy-MM-dd} ({s.FlaggedCount:N0} flagged) from {s.SourceFile}"));
             return 0;
-        });
-        return command;
-    }
-
-    private static Command BuildRemove()
-    {
-        var name = new Argument<string>("name") { Description = "The station's name or slug" };
-        var command = new Command("remove", "Remove a station and its record.") { name };
-        command.SetAction(async (parse, cancel) =>
-        {
-            await using var dataSource = await AtlasDatabase.OpenMigratedAsync(cancel: cancel);
-            if (await new StationStore(dataSource).DeleteAsync(parse.GetValue(name)!, cancel))
-            {
-                Console.WriteLine($"station {parse.GetValue(name)}: removed with its record");
-                return 0;
-            }
-            Console.Error.WriteLine($"atlas stations remove: there is no station '{parse.GetValue(name)}' (atlas stations list)");
-            return 2;
         });
         return command;
     }

@@ -1,5 +1,5 @@
 using System.CommandLine;
-using Atlas.Api.Infrastructure;
+using Atlas.Ingest.Hosting;
 using Atlas.Ingest.Worker;
 using Atlas.Storage;
 using Microsoft.AspNetCore.Builder;

@@ -24,7 +24,8 @@ public sealed record DeviceLoadResult(StoredDeviceMatrix Device, bool AlreadyReg
 
 /// <summary>
 /// Reads a power-matrix CSV (layout of <see cref="PowerMatrixCsv"/>), checks it whole, and stores it under a name; a bad
-/// matrix stores nothing, and loading the same file under the same name again changes nothing.
+/// matrix stores nothing, and loading the same file under the same name again changes nothing. The one registration
+/// path: <c>atlas devices add</c> and <c>POST /api/v1/devices</c> both come here.
 /// </summary>
 public sealed class DeviceLoader(NpgsqlDataSource dataSource)
 {
@@ -34,25 +35,24 @@ public sealed class DeviceLoader(NpgsqlDataSource dataSource)
     /// <exception cref="DuplicateDeviceException">The name or the file is stored differently.</exception>
     public async Task<DeviceLoadResult> LoadAsync(string name, string filePath, double? ratedPowerKw = null, CancellationToken cancel = default)
     {
-        name = name.Trim();
-        var slug = ReferenceSlug.From(name) ?? throw new ArgumentException($"Device name '{name}' needs at least one letter or digit.", nameof(name));
+        RequireName(name);
         if (!File.Exists(filePath)) throw new FileNotFoundException($"{filePath}: no such file", filePath);
-        var bytes = await File.ReadAllBytesAsync(filePath, cancel);
-        var fileName = Path.GetFileName(filePath);
+        return await LoadAsync(name, await File.ReadAllBytesAsync(filePath, cancel), Path.GetFileName(filePath), ratedPowerKw, cancel);
+    }
+
+    /// <summary>As <see cref="LoadAsync(string, string, double?, CancellationToken)"/>, from the file's bytes (an upload).</summary>
+    public async Task<DeviceLoadResult> LoadAsync(string name, byte[] bytes, string fileName, double? ratedPowerKw = null, CancellationToken cancel = default)
+    {
+        ArgumentNullException.ThrowIfNull(bytes);
+        var slug = RequireName(name);
+        name = name.Trim();
         using var reader = new StreamReader(new MemoryStream(bytes), detectEncodingFromByteOrderMarks: true);
         var matrix = PowerMatrixCsv.Parse(reader, fileName, ratedPowerKw);
-        var definition = DefinitionOf(matrix, slug, name, fileName, Convert.ToHexStringLower(SHA256.HashData(bytes)));
+        var definition = DeviceMatrices.DefinitionOf(matrix, slug, name, fileName, Convert.ToHexStringLower(SHA256.HashData(bytes)));
         var registration = await new DeviceStore(dataSource).RegisterAsync(definition, cancel);
         return new DeviceLoadResult(registration.Device, registration.AlreadyRegistered);
     }
 
-    private static DeviceMatrixDefinition DefinitionOf(PowerMatrix matrix, string slug, string name, string fileName, string sha256)
-    {
-        var power = new double[matrix.HsCentresMetres.Count, matrix.PeriodCentresSeconds.Count];
-        for (int i = 0; i < power.GetLength(0); i++)
-            for (int j = 0; j < power.GetLength(1); j++)
-                power[i, j] = matrix.PowerAtBinKw(i, j);
-        return new DeviceMatrixDefinition(slug, name, matrix.PeriodKind == WavePeriodKind.EnergyPeriod ? DeviceAxisKind.Te : DeviceAxisKind.Tp,
-            [.. matrix.HsCentresMetres], [.. matrix.PeriodCentresSeconds], power, matrix.RatedPowerKw, fileName, sha256);
-    }
+    private static string RequireName(string name) =>
+        ReferenceSlug.From(name.Trim()) ?? throw new ArgumentException($"Device name '{name.Trim()}' needs at least one letter or digit.", nameof(name));
 }

@@ -1,6 +1,7 @@
 using System.Security.Cryptography;
 using Atlas.Assessment;
 using Atlas.Assessment.Validation;
+using Atlas.Hindcast.Stations;
 using Atlas.Storage.Stations;
 
 namespace Atlas.Ingest.Assessment;
@@ -13,6 +14,7 @@ namespace Atlas.Ingest.Assessment;
 /// </summary>
 public static class StationFileReader
 {
+    /// <summary>Reads the record file at <paramref name="path"/>.</summary>
     public static StationFileContent Read(string path)
     {
         ArgumentException.ThrowIfNullOrEmpty(path);
@@ -20,7 +22,38 @@ public static class StationFileReader
         var bytes = File.ReadAllBytes(path);
         var sha256 = Convert.ToHexStringLower(SHA256.HashData(bytes));
         var name = Path.GetFileName(path);
-        return IsNetCdf(bytes) ? StationNetCdfReader.Read(path, sha256) : FromCsv(bytes, name, sha256);
+        return IsNetCdf(bytes) ? FromNetCdf(StationNetCdfReader.Read(path), sha256) : FromCsv(bytes, name, sha256);
+    }
+
+    /// <summary>Reads a record file's bytes (an upload), in either format, with the same checks as a file on disk.</summary>
+    public static StationFileContent Read(byte[] bytes, string sourceName)
+    {
+        ArgumentNullException.ThrowIfNull(bytes);
+        var sha256 = Convert.ToHexStringLower(SHA256.HashData(bytes));
+        if (!IsNetCdf(bytes)) return FromCsv(bytes, sourceName, sha256);
+        // netCDF-C opens files, not memory: the bytes go to a private temporary file for the read, deleted after.
+        var temporary = Path.Combine(Path.GetTempPath(), $"atlas-station-{Guid.NewGuid():N}.nc");
+        try
+        {
+            File.WriteAllBytes(temporary, bytes);
+            return FromNetCdf(StationNetCdfReader.Read(temporary, sourceName), sha256);
+        }
+        finally
+        {
+            File.Delete(temporary);
+        }
+    }
+
+    /// <summary>The rows of a decoded CF point time series; NaN where a variable is absent.</summary>
+    public static StationFileContent FromNetCdf(StationTimeSeries series, string sha256)
+    {
+        ArgumentNullException.ThrowIfNull(series);
+        var rows = new StationObservationRow[series.TimesUnixSeconds.Length];
+        for (int i = 0; i < rows.Length; i++)
+            rows[i] = new StationObservationRow(series.TimesUnixSeconds[i], series.Hs[i], series.Tp?[i] ?? float.NaN, series.Te?[i] ?? float.NaN,
+                series.Dir?[i] ?? float.NaN, series.Qc[i]);
+        return new StationFileContent(series.SourceFile, "netcdf", sha256, rows, series.Tp is not null, series.Te is not null, series.Dir is not null,
+            series.Latitude, series.Longitude, rows.Count(r => float.IsNaN(r.Hs)));
     }
 
     /// <summary>Parses CSV bytes (UTF-8, with or without a byte-order mark).</summary>

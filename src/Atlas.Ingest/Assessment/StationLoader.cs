@@ -8,6 +8,7 @@ namespace Atlas.Ingest.Assessment;
 /// <param name="Latitude">Degrees north; null to take the position the NetCDF file states.</param>
 /// <param name="Longitude">Degrees east; null to take the position the NetCDF file states.</param>
 /// <param name="DepthMetres">Water depth at the mooring, m; null when unknown.</param>
+/// <param name="FilePath">The record file; for an upload (<see cref="StationLoader.LoadAsync(StationLoadRequest, byte[], CancellationToken)"/>) its name only.</param>
 public sealed record StationLoadRequest(
     string Name,
     double? Latitude,
@@ -33,7 +34,9 @@ public sealed record StationLoadResult(StoredStation Station, bool AlreadyRegist
 
 /// <summary>
 /// Reads a station file, checks it whole, and registers the station with its record in one transaction: a bad file
-/// stores nothing, and loading the same file under the same name again changes nothing.
+/// stores nothing, and loading the same file under the same name again changes nothing. The one registration path:
+/// <c>atlas stations add</c> and <c>POST /api/v1/stations</c> both come here, with the same formats (CSV and CF-NetCDF)
+/// and the same checks.
 /// </summary>
 public sealed class StationLoader(NpgsqlDataSource dataSource)
 {
@@ -43,19 +46,40 @@ public sealed class StationLoader(NpgsqlDataSource dataSource)
     /// </summary>
     public const double PositionToleranceDegrees = 0.01;
 
+    /// <summary>The deepest mooring accepted, m: below the deepest ocean trench (about 11 km), so a larger value is a mistake.</summary>
+    public const double MaximumDepthMetres = 12_000;
+
     /// <exception cref="ArgumentException">A description field is unusable (names the field).</exception>
     /// <exception cref="FormatException">The file is not a valid record (<see cref="Atlas.Assessment.CsvInputException"/>, <see cref="StationFileException"/>).</exception>
     /// <exception cref="DuplicateStationException">The name or the record is registered differently.</exception>
     public async Task<StationLoadResult> LoadAsync(StationLoadRequest request, CancellationToken cancel = default)
     {
         ArgumentNullException.ThrowIfNull(request);
-        var name = request.Name.Trim();
-        var slug = ReferenceSlug.From(name) ?? throw new ArgumentException($"Station name '{request.Name}' needs at least one letter or digit.", nameof(request));
-        if (string.IsNullOrWhiteSpace(request.Instrument)) throw new ArgumentException("The instrument kind is required (e.g. \"directional wave buoy\").", nameof(request));
-        if (request.DepthMetres is { } depth && !(depth > 0 && double.IsFinite(depth)))
-            throw new ArgumentException($"Depth {depth} m must be a positive number of metres.", nameof(request));
+        Describe(request);
+        return await RegisterAsync(request, StationFileReader.Read(request.FilePath), cancel);
+    }
 
-        var content = StationFileReader.Read(request.FilePath);
+    /// <summary>As <see cref="LoadAsync(StationLoadRequest, CancellationToken)"/>, from the file's bytes (an upload named by <see cref="StationLoadRequest.FilePath"/>).</summary>
+    public async Task<StationLoadResult> LoadAsync(StationLoadRequest request, byte[] content, CancellationToken cancel = default)
+    {
+        ArgumentNullException.ThrowIfNull(request);
+        Describe(request);
+        return await RegisterAsync(request, StationFileReader.Read(content, Path.GetFileName(request.FilePath)), cancel);
+    }
+
+    /// <summary>Checks the description before any file is read.</summary>
+    private static void Describe(StationLoadRequest request)
+    {
+        if (ReferenceSlug.From(request.Name.Trim()) is null) throw new ArgumentException($"Station name '{request.Name}' needs at least one letter or digit.", nameof(request.Name));
+        if (string.IsNullOrWhiteSpace(request.Instrument)) throw new ArgumentException("The instrument kind is required (e.g. \"directional wave buoy\").", nameof(request.Instrument));
+        if (request.DepthMetres is { } depth && !(depth > 0 && depth <= MaximumDepthMetres))
+            throw new ArgumentException($"Depth {depth} m must be a positive number of metres, at most {MaximumDepthMetres:0}.", nameof(request.DepthMetres));
+    }
+
+    private async Task<StationLoadResult> RegisterAsync(StationLoadRequest request, StationFileContent content, CancellationToken cancel)
+    {
+        var name = request.Name.Trim();
+        var slug = ReferenceSlug.From(name)!;
         var latitude = Coordinate("latitude", request.Latitude, content.Latitude, 90, content.SourceFile);
         var longitude = Coordinate("longitude", request.Longitude, content.Longitude, 180, content.SourceFile);
         var definition = new StationDefinition(slug, name, latitude, longitude, request.DepthMetres, request.Instrument.Trim(), request.Role,
@@ -67,11 +91,14 @@ public sealed class StationLoader(NpgsqlDataSource dataSource)
     private static double Coordinate(string what, double? given, double? inFile, double bound, string file)
     {
         if (given is { } g && (!double.IsFinite(g) || Math.Abs(g) > bound))
-            throw new ArgumentException($"The {what} {g} is outside -{bound}..{bound} degrees.");
+            throw new ArgumentException($"The {what} {g} is outside -{bound}..{bound} degrees.", Parameter(what));
         if (given is { } a && inFile is { } b && Math.Abs(a - b) > PositionToleranceDegrees)
             throw new ArgumentException(string.Create(CultureInfo.InvariantCulture,
-                $"{file} places the station at {what} {b:0.#####} but {a:0.#####} was given; they differ by more than {PositionToleranceDegrees} degrees. Give the file's position or correct the file."));
+                $"{file} places the station at {what} {b:0.#####} but {a:0.#####} was given; they differ by more than {PositionToleranceDegrees} degrees. Give the file's position or correct the file."),
+                Parameter(what));
         return given ?? inFile ?? throw new ArgumentException(
-            $"The station's {what} is required: {file} does not state the station position (only CF-NetCDF files can).");
+            $"The station's {what} is required: {file} does not state the station position (only CF-NetCDF files can).", Parameter(what));
     }
+
+    private static string Parameter(string what) => what == "latitude" ? nameof(StationLoadRequest.Latitude) : nameof(StationLoadRequest.Longitude);
 }

@@ -1,11 +1,12 @@
 using System.Globalization;
 using System.Net;
-using System.Text;
 using System.Text.Json;
+using System.Text;
 using Atlas.Api.Assessment;
 using Atlas.Api.Tests.Support;
+using Atlas.Ingest.Validation;
 using Atlas.Storage.Datasets;
-using Microsoft.Extensions.Caching.Memory;
+using Microsoft.Extensions.Configuration;
 using Microsoft.Extensions.DependencyInjection;
 
 namespace Atlas.Api.Tests.Assessment;
@@ -267,8 +268,12 @@ public sealed class ValidationApiTests(AtlasApiFixture atlas)
     {
         await OffsetBuoyAsync();
         // What `atlas validate` does: validate at every station and merge the summary into the dataset metadata.
-        using var cache = new MemoryCache(new MemoryCacheOptions());
-        var service = ValidationService.Create(atlas.DataSource, cache);
+        var registrations = new ServiceCollection()
+            .AddSingleton<IConfiguration>(new ConfigurationBuilder().Build())
+            .AddSingleton(atlas.DataSource)
+            .AddStationValidation();
+        await using var provider = registrations.BuildServiceProvider();
+        var service = provider.GetRequiredService<ValidationService>();
         var datasets = new DatasetStore(atlas.DataSource);
         var dataset = (await datasets.FindAsync(AssessmentAtlas.ScaledSlug))!;
         var (covered, notCovered) = await service.AtStationsAsync(dataset, await service.Stations.ListAsync(), CancellationToken.None);

@@ -1,4 +1,4 @@
-"""NumPy reference for the validation skill of matched pairs (trade definitions, shared/REFERENCES.md):
+"""NumPy reference for the validation skill of matched pairs (trade definitions, tests/data/README.md):
 bias = mean(model - observed); RMSE; scatter index = RMSE / mean(observed); Pearson r (numpy.corrcoef);
 symmetric slope = sqrt(sum(model^2) / sum(observed^2)).
 

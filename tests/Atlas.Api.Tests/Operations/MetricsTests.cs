@@ -1,5 +1,6 @@
 using System.Net;
 using Atlas.Api.Tests.Support;
+using Atlas.TestSupport;
 
 namespace Atlas.Api.Tests.Operations;
 
@@ -35,16 +36,6 @@ public sealed class MetricsTests(AtlasApiFixture atlas)
         Assert.Contains("service_name=\"atlas-api\"", text);
     }
 
-    private async Task<string> ScrapeUntilAsync(Func<string, bool> done)
-    {
-        var text = "";
-        for (var attempt = 0; attempt < 30; attempt++)
-        {
-            text = await _client.GetStringAsync("/metrics");
-            if (done(text)) return text;
-            await Task.Delay(200);
-        }
-        Assert.Fail("The scrape never showed the expected series:\n" + text);
-        return text;
-    }
+    private Task<string> ScrapeUntilAsync(Func<string, bool> done) =>
+        Patience.UntilAsync(() => _client.GetStringAsync("/metrics"), done, "the scrape to show the expected series");
 }

@@ -6,7 +6,7 @@ Output (argv[2]): CSV rows cell,period,parameter,mean,sd,min,max,p10,p50,p90,p99
 (extra: ';'-joined floats), with the atlas codes: period 0 annual, 1..12 months, 13..16 DJF MAM JJA SON, a year;
 parameter 0 hs, 1 te, 2 tp, 3 j, 4 dir, 5 spread, 7 depth.
 
-Definitions (IEC TS 62600-101 as summarised in shared/REFERENCES.md, from memory):
+Definitions (IEC TS 62600-101 as summarised in tests/data/README.md, from memory):
   power per step J = rho g^2 Hm0^2 Te / (64 pi) * (cg / cg_deep), rho = 1025 kg/m3, g = 9.81 m/s2, kW/m, with the
   group velocity of linear theory at the cell depth (the dispersion relation solved here by Newton iteration);
   mean direction = power-weighted circular mean; power rose = share of summed power per 22.5-degree sector, sector 0

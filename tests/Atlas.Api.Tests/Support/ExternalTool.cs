@@ -1,4 +1,5 @@
 using System.Diagnostics;
+using Atlas.TestSupport;
 
 namespace Atlas.Api.Tests.Support;
 
@@ -15,7 +16,7 @@ public static class ExternalTool
         using var process = Process.Start(start) ?? throw new InvalidOperationException($"{program} did not start.");
         var output = process.StandardOutput.ReadToEndAsync();
         var error = process.StandardError.ReadToEndAsync();
-        if (!process.WaitForExit(120_000)) { process.Kill(true); throw new TimeoutException($"{program} took over 120 s."); }
+        if (!process.WaitForExit(Patience.Limit)) { process.Kill(true); throw new TimeoutException($"{program} took over {Patience.Limit.TotalMinutes} min."); }
         if (process.ExitCode != 0)
             throw new InvalidOperationException($"{program} {string.Join(' ', arguments)} exited {process.ExitCode}: {error.Result}{output.Result}");
         return output.Result;

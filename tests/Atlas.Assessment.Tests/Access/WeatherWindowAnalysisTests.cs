@@ -7,7 +7,7 @@ namespace Atlas.Assessment.Tests.Access;
 public class WeatherWindowAnalysisTests
 {
     private const long Hour = 3600;
-    private static readonly long January2021 = UtcCalendar.ToUnixSeconds(new DateTime(2021, 1, 1, 0, 0, 0, DateTimeKind.Utc));
+    private static readonly long January2021 = UnixSeconds.Of(new DateTime(2021, 1, 1, 0, 0, 0, DateTimeKind.Utc));
     private static readonly AccessLimits HsBelowOneAndAHalf = new(1.5);
 
     /// <summary>Hourly January 2021 (744 h): every day calm (1.0 m) for hours 0-9, then 2.5 m for hours 10-23.</summary>

@@ -1,10 +1,11 @@
 using Atlas.Assessment.Validation;
+using Atlas.Statistics;
 
 namespace Atlas.Assessment.Tests.Validation;
 
 public class HindcastValidationTests
 {
-    private static long At(int year, int month, int day) => UtcCalendar.ToUnixSeconds(new DateTime(year, month, day, 0, 0, 0, DateTimeKind.Utc));
+    private static long At(int year, int month, int day) => UnixSeconds.Of(new DateTime(year, month, day, 0, 0, 0, DateTimeKind.Utc));
 
     [Fact]
     public void SeasonsGatherTheirMonthsAcrossYears()
@@ -15,11 +16,11 @@ public class HindcastValidationTests
         double[] modelled = [1.5, 2.5, 3.5, 4, 5, 6, 8];
         var report = HindcastValidation.Assess(MatchedSeries.FromPairs(times, observed, modelled, false));
 
-        var djf = report.BySeason.Single(s => s.Season == CalendarSeason.Djf).Scores;
+        var djf = report.BySeason.Single(s => s.Season == AtlasPeriod.Djf).Scores;
         Assert.Equal(4, djf.Count);
         Assert.Equal((0.5 + 0.5 + 0.5 + 1.0) / 4, djf.Bias, 1e-12);
-        Assert.Equal(1, report.BySeason.Single(s => s.Season == CalendarSeason.Mam).Scores.Count);
-        Assert.Equal(0.0, report.BySeason.Single(s => s.Season == CalendarSeason.Son).Scores.Bias);
+        Assert.Equal(1, report.BySeason.Single(s => s.Season == AtlasPeriod.Mam).Scores.Count);
+        Assert.Equal(0.0, report.BySeason.Single(s => s.Season == AtlasPeriod.Son).Scores.Bias);
         Assert.Equal(7, report.Overall.Count);
     }
 
@@ -42,8 +43,8 @@ public class HindcastValidationTests
         long[] times = [At(2021, 1, 1), At(2021, 7, 1)];
         var report = HindcastValidation.AssessDirection(MatchedSeries.FromPairs(times, [350, 90], [10, 80], true));
 
-        Assert.Equal(20.0, report.BySeason.Single(s => s.Season == CalendarSeason.Djf).Scores.CircularBiasDegrees, 1e-9);
-        Assert.Equal(-10.0, report.BySeason.Single(s => s.Season == CalendarSeason.Jja).Scores.CircularBiasDegrees, 1e-9);
+        Assert.Equal(20.0, report.BySeason.Single(s => s.Season == AtlasPeriod.Djf).Scores.CircularBiasDegrees, 1e-9);
+        Assert.Equal(-10.0, report.BySeason.Single(s => s.Season == AtlasPeriod.Jja).Scores.CircularBiasDegrees, 1e-9);
         Assert.Throws<ArgumentException>(() => HindcastValidation.Assess(report.Pairs));
     }
 }

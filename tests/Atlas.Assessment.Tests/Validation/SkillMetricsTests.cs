@@ -1,5 +1,6 @@
 using System.Text.Json;
 using Atlas.Assessment.Validation;
+using Atlas.Statistics;
 
 namespace Atlas.Assessment.Tests.Validation;
 
@@ -17,7 +18,7 @@ public sealed class SkillReference
         var noise = SeededSamples.Normal(13, Observed.Length, 0, 0.25);
         Modelled = [.. Observed.Select((o, i) => 0.08 + 0.95 * o + noise[i])];
         var turn = SeededSamples.Normal(14, ObservedDirections.Length, 6, 20);
-        ModelledDirections = [.. ObservedDirections.Select((o, i) => CircularDegrees.Normalise(o + turn[i]))];
+        ModelledDirections = [.. ObservedDirections.Select((o, i) => CircularStatistics.Normalise(o + turn[i]))];
         Result = ReferencePython.Run("""
             import json, sys
             import numpy as np

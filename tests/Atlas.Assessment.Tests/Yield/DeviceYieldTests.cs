@@ -33,7 +33,7 @@ public sealed class InterpolationReference
 public class DeviceYieldTests(InterpolationReference reference) : IClassFixture<InterpolationReference>
 {
     private const long Hour = 3600;
-    private static readonly long January2021 = UtcCalendar.ToUnixSeconds(new DateTime(2021, 1, 1, 0, 0, 0, DateTimeKind.Utc));
+    private static readonly long January2021 = UnixSeconds.Of(new DateTime(2021, 1, 1, 0, 0, 0, DateTimeKind.Utc));
 
     private static RegularSeries Constant(long start, int steps, double value) => new(start, Hour, Enumerable.Repeat(value, steps).ToArray());
 
@@ -70,19 +70,37 @@ public class DeviceYieldTests(InterpolationReference reference) : IClassFixture<
         Assert.True(double.IsNaN(m.PowerKw(double.NaN, 8, PowerMatrixInterpolation.Bilinear)));
     }
 
-    [Fact]
-    public void ProductionFromJointTableEqualsTheHandComputedSum()
+    /// <summary>
+    /// Hourly steps on bin centres, as many at each (Hs, Te) as <paramref name="counts"/> says: a joint occurrence
+    /// table written out as the series the one production path takes.
+    /// </summary>
+    private static (RegularSeries Hs, RegularSeries Te) StepsOnBinCentres(double[] hsCentres, double[] teCentres, int[,] counts)
     {
-        double[,] counts =
+        var hs = new List<double>();
+        var te = new List<double>();
+        for (int i = 0; i < hsCentres.Length; i++)
+            for (int j = 0; j < teCentres.Length; j++)
+                for (int n = 0; n < counts[i, j]; n++)
+                {
+                    hs.Add(hsCentres[i]);
+                    te.Add(teCentres[j]);
+                }
+        return (new RegularSeries(January2021, Hour, [.. hs]), new RegularSeries(January2021, Hour, [.. te]));
+    }
+
+    [Fact]
+    public void ProductionOfStepsCountedInAJointTableEqualsTheHandComputedSum()
+    {
+        int[,] counts =
         {
             { 5, 10, 5, 0 },
             { 2, 8, 6, 2 },
             { 0, 1, 1, 0 },
             { 0, 0, 2, 0 }, // Hs 4 m: beyond the matrix's 3.5 m edge
         };
-        var table = new JointOccurrenceTable(WavePeriodKind.EnergyPeriod, [1.0, 2.0, 3.0, 4.0], [6.0, 8.0, 10.0, 12.0], counts);
+        var (hs, te) = StepsOnBinCentres([1.0, 2.0, 3.0, 4.0], [6.0, 8.0, 10.0, 12.0], counts);
 
-        var yield = DeviceYield.ProductionFromJointTable(reference.Matrix, table);
+        var yield = DeviceYield.FromSeries(reference.Matrix, hs, te, WavePeriodKind.EnergyPeriod);
 
         // By hand: 5x10 + 10x20 + 5x30 + 2x40 + 8x80 + 6x120 + 2x80 + 1x180 + 1x270 = 2450 kW over 42 counts.
         double meanPower = 2450.0 / 42.0;
@@ -104,8 +122,8 @@ public class DeviceYieldTests(InterpolationReference reference) : IClassFixture<
         Assert.Equal(200.0 / 500.0, yield.CapacityFactor, 1e-12);
         Assert.Equal(200.0, yield.MeanPowerKw, 1e-10);
         Assert.Equal(0, yield.OutsideMatrixSteps);
-        var table = new JointOccurrenceTable(WavePeriodKind.EnergyPeriod, [1.0, 2.0], [6.0, 9.0], new double[,] { { 0.3, 0.2 }, { 0.1, 0.4 } });
-        Assert.Equal(0.4, DeviceYield.ProductionFromJointTable(constant, table).CapacityFactor, 1e-12);
+        var (tableHs, tableTe) = StepsOnBinCentres([1.0, 2.0], [6.0, 9.0], new[,] { { 3, 2 }, { 1, 4 } });
+        Assert.Equal(0.4, DeviceYield.FromSeries(constant, tableHs, tableTe, WavePeriodKind.EnergyPeriod).CapacityFactor, 1e-12);
     }
 
     [Fact]

@@ -3,6 +3,7 @@ using System.Diagnostics;
 using System.Net;
 using System.Text.Json;
 using Atlas.Storage;
+using Atlas.TestSupport;
 
 namespace Atlas.Cli.Tests.Faults;
 
@@ -45,18 +46,18 @@ public sealed class DatabaseRestartTests : IAsyncLifetime
             ["AtlasApiOptions__ExpensiveRequestsPerMinute"] = "1000000",
         };
         var file = HindcastFixture.Make(_home, "restart.nc", 40, 6, 5);
-        var (code, output) = AtlasProcess.Run($"ingest \"{file}\" --dataset restart-coast", environment, 180);
+        var (code, output) = AtlasProcess.Run($"ingest \"{file}\" --dataset restart-coast", environment);
         Assert.True(code == 0, output);
 
         var port = RunningAtlas.FreePort();
         environment["ASPNETCORE_URLS"] = $"http://127.0.0.1:{port}";
         using var server = new RunningAtlas("serve", environment);
-        using var http = new HttpClient { BaseAddress = new Uri($"http://127.0.0.1:{port}"), Timeout = TimeSpan.FromSeconds(20) };
-        await RunningAtlas.WaitUntilAsync(async () =>
+        using var http = new HttpClient { BaseAddress = new Uri($"http://127.0.0.1:{port}"), Timeout = Patience.Limit };
+        await Patience.UntilAsync(async () =>
         {
             try { return (await http.GetAsync("/readyz")).StatusCode == HttpStatusCode.OK; }
             catch (HttpRequestException) { return false; }
-        }, 90, $"the server to be ready\n{server.Output}");
+        }, $"the server to be ready\n{server.Output}");
 
         string[] urls =
         [
@@ -87,18 +88,30 @@ public sealed class DatabaseRestartTests : IAsyncLifetime
             }
         })).ToArray();
 
-        await Task.Delay(1500);
+        // Each phase lasts until the answers it is judged by have arrived, however slowly a busy machine gives them
+        // (a failure or a dead server ends the wait at once, for the assertions below to report).
+        Task PhaseAsync(Func<Answer[], bool> enough, string what) =>
+            Patience.UntilAsync(() => Task.FromResult(!failures.IsEmpty || server.HasExited || enough([.. answers])), what);
+        bool AnsweredIn(Answer a, Phase p) => a.Began == p && a.Ended == p;
+
+        await PhaseAsync(all => all.Count(a => AnsweredIn(a, Phase.Up)) >= urls.Length, "answers while the database is up");
         phase = Phase.Stopping;
         _cluster.Stop();
         phase = Phase.Down;
-        await Task.Delay(3000);
+        await PhaseAsync(all => all.Count(a => AnsweredIn(a, Phase.Down)) >= 10
+                                && all.Any(a => AnsweredIn(a, Phase.Down) && a.Url == "/readyz")
+                                && all.Any(a => AnsweredIn(a, Phase.Down) && a.Status == 503 && a.Url.StartsWith("/api/", StringComparison.Ordinal)),
+            "ten answers, a readiness answer and an API 503 while the database is down");
         phase = Phase.Starting;
         _cluster.Start();
         phase = Phase.After;
-        // The pool drops its dead connections as they are tried; give it a few seconds, then expect a clean run.
-        await Task.Delay(4000);
+        // The pool drops its dead connections as they are tried; wait for two clean rounds of every URL, then expect
+        // nothing but clean runs.
+        await PhaseAsync(all => all.Where(a => a.Began == Phase.After).TakeLast(2 * urls.Length) is var last
+                                && last.Count() == 2 * urls.Length && last.All(a => a.Status == 200),
+            "two clean rounds of every URL after the restart");
         phase = Phase.Settled;
-        await Task.Delay(1500);
+        await PhaseAsync(all => all.Count(a => a.Began == Phase.Settled) >= 2 * urls.Length, "two rounds of answers once settled");
         await stopLoad.CancelAsync();
         await Task.WhenAll(load);
 

@@ -17,7 +17,7 @@ public sealed class BackupRestoreTests(TestDatabase database) : IClassFixture<Te
     {
         var environment = new Dictionary<string, string> { ["ATLAS_DB"] = database.ConnectionString };
         var file = HindcastFixture.Make(_folder, "backed-up.nc", 240, 8, 6);
-        var (code, output) = AtlasProcess.Run($"ingest \"{file}\" --dataset backed-up", environment, 180);
+        var (code, output) = AtlasProcess.Run($"ingest \"{file}\" --dataset backed-up", environment);
         Assert.True(code == 0, output);
         Assert.True(await StoredHindcast.CountAsync(database.DataSource, "SELECT count(*) FROM cell_statistic") > 0, "the statistics were not computed");
 
@@ -72,7 +72,7 @@ public sealed class BackupRestoreTests(TestDatabase database) : IClassFixture<Te
         using var process = Process.Start(start)!;
         var stdout = process.StandardOutput.ReadToEndAsync();
         var stderr = process.StandardError.ReadToEnd();
-        if (!process.WaitForExit(180_000)) { process.Kill(entireProcessTree: true); throw new TimeoutException(script); }
+        if (!process.WaitForExit(Patience.Limit)) { process.Kill(entireProcessTree: true); throw new TimeoutException(script); }
         return (process.ExitCode, stdout.Result + stderr);
     }
 

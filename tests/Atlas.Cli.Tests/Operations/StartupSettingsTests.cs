@@ -13,7 +13,7 @@ public sealed class StartupSettingsTests(TestDatabase database) : IClassFixture<
             ["ATLAS_DB"] = database.ConnectionString,
             ["ASPNETCORE_URLS"] = $"http://127.0.0.1:{RunningAtlas.FreePort()}",
             ["AtlasApiOptions__CorsOrigins__0"] = "maps.example.org/page",
-        }, 120);
+        });
         Assert.Equal(2, code);
         Assert.Contains("atlas serve: not started", output);
         Assert.Contains("CorsOrigins", output);
@@ -28,7 +28,7 @@ public sealed class StartupSettingsTests(TestDatabase database) : IClassFixture<
             ["ATLAS_DB"] = database.ConnectionString,
             ["ATLAS_DB_READ"] = "Port=5432;Database=atlas",
             ["ASPNETCORE_URLS"] = $"http://127.0.0.1:{RunningAtlas.FreePort()}",
-        }, 120);
+        });
         Assert.Equal(2, code);
         Assert.Contains("ATLAS_DB_READ is not a usable PostgreSQL connection string", output);
     }
@@ -36,15 +36,30 @@ public sealed class StartupSettingsTests(TestDatabase database) : IClassFixture<
     [Fact]
     public void WorkerRefusesAMetricsAddressThatIsNotAnHttpUrl()
     {
-        var (code, output) = AtlasProcess.Run("worker --metrics-urls ftp://127.0.0.1:9464", new Dictionary<string, string> { ["ATLAS_DB"] = database.ConnectionString }, 60);
+        var (code, output) = AtlasProcess.Run("worker --metrics-urls ftp://127.0.0.1:9464", new Dictionary<string, string> { ["ATLAS_DB"] = database.ConnectionString });
         Assert.NotEqual(0, code);
         Assert.Contains("--metrics-urls: 'ftp://127.0.0.1:9464' is not an http URL", output);
     }
 
     [Fact]
+    public void ValidateReadsTheDistanceLimitFromConfigurationAndRefusesAWrongOneByName()
+    {
+        // The same key as the API's (AtlasApiOptions:PointMaxDistanceKm): atlas validate no longer ignores configuration.
+        var (code, output) = AtlasProcess.Run("validate some-dataset", new Dictionary<string, string>
+        {
+            ["ATLAS_DB"] = database.ConnectionString,
+            ["AtlasApiOptions__PointMaxDistanceKm"] = "-5",
+        });
+        Assert.Equal(2, code);
+        Assert.Contains("atlas validate: not started", output);
+        Assert.Contains("PointMaxDistanceKm", output);
+        Assert.DoesNotContain("   at ", output);
+    }
+
+    [Fact]
     public void AnEmbeddedClusterPortThatIsNotANumberIsNamed()
     {
-        var (code, output) = AtlasProcess.Run("db status", new Dictionary<string, string> { ["ATLAS_DB"] = "", ["ATLAS_PG_PORT"] = "54x39" }, 60);
+        var (code, output) = AtlasProcess.Run("db status", new Dictionary<string, string> { ["ATLAS_DB"] = "", ["ATLAS_PG_PORT"] = "54x39" });
         Assert.NotEqual(0, code);
         Assert.Contains("ATLAS_PG_PORT is '54x39'", output);
     }

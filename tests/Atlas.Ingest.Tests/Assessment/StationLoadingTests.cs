@@ -1,4 +1,5 @@
 using Atlas.Assessment;
+using Atlas.Hindcast.Stations;
 using Atlas.Ingest.Assessment;
 using Atlas.Storage.Stations;
 using Atlas.TestSupport;

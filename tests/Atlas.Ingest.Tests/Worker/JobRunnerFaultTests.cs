@@ -27,11 +27,7 @@ public sealed class JobRunnerFaultTests(TestDatabase database) : IClassFixture<T
         var job = await ClaimNewIngestAsync("terminated", file);
         var running = Task.Run(() => new JobRunner(database.DataSource).RunAsync(job, null, CancellationToken.None));
         int? pid = null;
-        for (var wait = 0; pid is null && wait < 1200 && !running.IsCompleted; wait++)
-        {
-            pid = await CopyBackendAsync();
-            if (pid is null) await Task.Delay(25);
-        }
+        await Patience.UntilAsync(async () => (pid = await CopyBackendAsync()) is not null || running.IsCompleted, "the ingest to reach its COPY");
         Assert.True(pid is not null, "the ingest never reached its COPY");
         await using (var terminate = database.DataSource.CreateCommand("SELECT pg_terminate_backend($1)"))
         {

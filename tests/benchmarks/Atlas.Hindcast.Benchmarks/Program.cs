@@ -2,7 +2,7 @@
 // reading the file's bytes from the page cache (the floor) and netCDF4-python reading the same two variables.
 //
 // Usage: dotnet run -c Release --project tests/benchmarks/Atlas.Hindcast.Benchmarks -- FILE [--rows N] [--runs N] [--no-python]
-// FILE: e.g. /tmp/big.nc from `/usr/bin/python3 /work/shared/bench/make_hindcast.py 150 100 8760 /tmp/big.nc` (1.05 GB).
+// FILE: e.g. /tmp/big.nc from `/usr/bin/python3 ../shared/bench/make_hindcast.py 150 100 8760 /tmp/big.nc` (1.05 GB).
 using System.Diagnostics;
 using System.Globalization;
 using Atlas.Hindcast;

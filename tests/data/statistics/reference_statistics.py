@@ -5,7 +5,7 @@ Usage: /usr/bin/python3 reference_statistics.py DIR
 DIR holds raw little-endian arrays written by the test: times.i64 (Unix seconds UTC), hs.f32, te.f32, tp.f32,
 dir.f32, spread.f32 (a missing variable is an empty file) and settings.json. Prints one JSON document on stdout.
 
-Definitions (IEC TS 62600-101 / REFERENCES.md): power per step J = rho g cg(Te, h) Hs^2 / 16 with rho 1025, g 9.81,
+Definitions (IEC TS 62600-101 / tests/data/README.md): power per step J = rho g cg(Te, h) Hs^2 / 16 with rho 1025, g 9.81,
 cg from the root of omega^2 = g k tanh(k h) by scipy.optimize.brentq (deep water cg = g Te / (4 pi) when the depth
 is NaN); Te = 0.9 Tp when Te is absent. Means in float64, population sd (numpy.std), percentiles by
 numpy.percentile with the requested method. Months and years are calendar months in UTC; seasons are

@@ -1,0 +1,30 @@
+using Atlas.Storage.Cells;
+using Atlas.Storage.Datasets;
+using Atlas.Storage.Queries;
+using Atlas.Storage.Series;
+using Atlas.Storage.Stations;
+using Microsoft.Extensions.DependencyInjection;
+using Microsoft.Extensions.DependencyInjection.Extensions;
+
+namespace Atlas.Ingest.Validation;
+
+/// <summary>Registers station validation outside the API: <c>atlas validate</c> and <c>atlas demo</c>.</summary>
+public static class ValidationRegistration
+{
+    /// <summary>
+    /// Adds <see cref="ValidationService"/> with <see cref="StoredStationCells"/> and the distance limit bound from
+    /// configuration (checked at start); expects an <see cref="Npgsql.NpgsqlDataSource"/> to be registered.
+    /// </summary>
+    public static IServiceCollection AddStationValidation(this IServiceCollection services)
+    {
+        services.AddOptions<StationCellOptions>().BindConfiguration(StationCellOptions.Section).ValidateDataAnnotations().ValidateOnStart();
+        services.TryAddSingleton<DatasetStore>();
+        services.TryAddSingleton<DatasetGeometryQueries>();
+        services.TryAddSingleton<CellStore>();
+        services.TryAddSingleton<SeriesStore>();
+        services.TryAddSingleton<StationStore>();
+        services.TryAddSingleton<IStationCellFinder, StoredStationCells>();
+        services.AddSingleton<ValidationService>();
+        return services;
+    }
+}

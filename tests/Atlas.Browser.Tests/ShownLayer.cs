@@ -1,0 +1,37 @@
+using System.Globalization;
+using System.Text.RegularExpressions;
+using Microsoft.Playwright;
+
+namespace Atlas.Browser.Tests;
+
+/// <summary>
+/// The layer as a person sees it: its download links (written once the layer is painted) and the facts line under
+/// the selectors ("1,234 cells with a value, from ..."). Waits use Playwright's auto-waiting assertions, which retry
+/// until the page shows the expected state (the suite-wide limit is CI's, set in <see cref="AtlasSite"/>).
+/// </summary>
+public static class ShownLayer
+{
+    private static ILocator TifLink(IPage page) => page.Locator("#layer-downloads a[data-format='tif']");
+
+    /// <summary>Waits until the page shows the layer of these three choices.</summary>
+    public static Task WaitForAsync(IPage page, string parameter, string statistic, string period) =>
+        Assertions.Expect(TifLink(page)).ToHaveAttributeAsync("href", $"/api/v1/datasets/{AtlasSite.Slug}/layers/{parameter}/{statistic}/{period}.tif");
+
+    /// <summary>Waits until the page shows a layer of this parameter, whatever its statistic and period.</summary>
+    public static Task WaitForParameterAsync(IPage page, string parameter) =>
+        Assertions.Expect(TifLink(page)).ToHaveAttributeAsync("href", new Regex($"/layers/{Regex.Escape(parameter)}/[^/]+/[^/]+\\.tif$"));
+
+    /// <summary>Waits until the land mask is drawn, as the person sees it: the colour bar gains its "land (dry cells)" key.</summary>
+    public static Task WaitForLandAsync(IPage page) => Assertions.Expect(page.Locator("#map-legend .swatch.land")).ToBeVisibleAsync();
+
+    /// <summary>The number of cells with a value, as the facts line shows it.</summary>
+    public static async Task<int> CellsWithAValueAsync(IPage page)
+    {
+        var facts = (await page.TextContentAsync("#layer-facts"))!;
+        var match = Regex.Match(facts, @"^([\d,]+) cells with a value");
+        Assert.True(match.Success, $"the facts line shows no cell count: {facts}");
+        // The page groups thousands with commas (en-GB); the tests run in invariant mode, whose group separator is
+        // the same comma.
+        return int.Parse(match.Groups[1].Value, NumberStyles.AllowThousands, CultureInfo.InvariantCulture);
+    }
+}
