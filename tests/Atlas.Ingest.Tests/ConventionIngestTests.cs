@@ -104,7 +104,7 @@ public class ConventionIngestTests(TestDatabase database) : IClassFixture<TestDa
     {
         var file = FixtureFiles.Make("conv-note.nc", 0, 4, "--no-te");
         var summary = await Ingestor.RunAsync(new IngestRequest("conv-note", [file]));
-        // Te = 0.9 Tp for JONSWAP gamma 3.3: IEC TS 62600-101 practice as listed in ../shared/REFERENCES.md (common practice),
+        // Te = 0.9 Tp for JONSWAP gamma 3.3: IEC TS 62600-101 practice as listed in tests/data/README.md (common practice),
         // and the default of StatisticsOptions.AssumedSpectrum.
         Assert.Contains("te: none found; Te = 0.9 Tp assumed (JONSWAP, gamma 3.3)", summary.Describe());
         foreach (var symbol in new[] { "hs", "te", "tp", "dir", "spread", "depth" })

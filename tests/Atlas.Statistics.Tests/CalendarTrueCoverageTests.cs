@@ -34,7 +34,7 @@ public class CalendarTrueCoverageTests
     private static CellSeries Series((long[] Times, float[] Hs, float[] Te) data) =>
         new() { Times = data.Times, Hs = data.Hs, Te = data.Te, DepthMetres = double.NaN };
 
-    // DESIGN.md coverage rule: a period expects the calendar hours of its months within the record's years. 2001 holds
+    // Coverage rule (tests/data/README.md): a period expects the calendar hours of its months within the record's years. 2001 holds
     // July to December only: 4,416 of 8,760 hours, flagged; January holds two of three Januaries; JJA lacks June 2001.
     [Fact]
     public void PartialYearsSeasonsAndMonthsCarryTheirCalendarCoverage()

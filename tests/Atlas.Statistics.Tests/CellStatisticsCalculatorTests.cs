@@ -143,7 +143,7 @@ public class CellStatisticsCalculatorTests(InventedSeriesReference reference)
         Assert.True(feb.LowCoverage);
         Assert.True(mar.LowCoverage);
         PeriodStatistics annual = result.Find(AtlasPeriod.Annual)!;
-        // Calendar-true: the annual period of a record of 2011 expects all 8,760 hours of 2011 (DESIGN.md coverage rule).
+        // Calendar-true: the annual period of a record of 2011 expects all 8,760 hours of 2011 (tests/data/README.md, coverage rule).
         Assert.Equal(8760, annual.ExpectedSteps);
         Assert.Equal((744 + 336) / 8760.0, annual.Hs.Coverage, 1e-15);
         Assert.True(annual.LowCoverage);

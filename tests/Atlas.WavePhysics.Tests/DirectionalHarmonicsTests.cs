@@ -15,7 +15,7 @@ public class DirectionalHarmonicsTests
         return sums;
     }
 
-    // REFERENCES.md (SciPy quad of the cosine-2s model, from memory): spread 10, 30, 60 degrees give d = 0.98477,
+    // tests/data/README.md (SciPy quad of the cosine-2s model, from memory): spread 10, 30, 60 degrees give d = 0.98477,
     // 0.86324, 0.53832 (five decimals). One step's harmonics resolve its power along its own mean direction.
     [Theory]
     [InlineData(10, 0.98477)]
