@@ -34,6 +34,10 @@ internal static class ExternalTool
             UseShellExecute = false,
         };
         foreach (var a in arguments) start.ArgumentList.Add(a);
+        // HDF5 locks a file it creates, and a tool started meanwhile by another test of this process inherits the
+        // descriptor (native libraries open files without close-on-exec), keeping the lock after the writer closed
+        // the file: a reader that tries to lock it then fails with "HDF error". Readers here need no lock.
+        start.Environment["HDF5_USE_FILE_LOCKING"] = "FALSE";
         using var process = Process.Start(start) ?? throw new InvalidOperationException($"could not start {executable}");
         if (standardInput is not null)
         {

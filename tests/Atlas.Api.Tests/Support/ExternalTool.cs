@@ -12,6 +12,10 @@ public static class ExternalTool
     public static string Run(string program, params string[] arguments)
     {
         var start = new ProcessStartInfo(program) { RedirectStandardOutput = true, RedirectStandardError = true, UseShellExecute = false };
+        // HDF5 locks a file it creates, and a tool started meanwhile by another test of this process inherits the
+        // descriptor (native libraries open files without close-on-exec), keeping the lock after the writer closed
+        // the file: a reader that tries to lock it then fails with "HDF error". Readers here need no lock.
+        start.Environment["HDF5_USE_FILE_LOCKING"] = "FALSE";
         foreach (var a in arguments) start.ArgumentList.Add(a);
         using var process = Process.Start(start) ?? throw new InvalidOperationException($"{program} did not start.");
         var output = process.StandardOutput.ReadToEndAsync();
