@@ -60,12 +60,7 @@ public sealed class HindcastIngestor(NpgsqlDataSource dataSource)
         CheckSameGrid(files);
         await using var connection = await dataSource.OpenConnectionAsync(cancel);
         await using var transaction = await connection.BeginTransactionAsync(cancel);
-        // One ingest per dataset at a time, whichever worker runs it; others wait here.
-        await using (var lockCommand = new NpgsqlCommand("SELECT pg_advisory_xact_lock(hashtext('atlas-ingest:' || $1))", connection, transaction))
-        {
-            lockCommand.Parameters.AddWithValue(request.DatasetSlug);
-            await lockCommand.ExecuteNonQueryAsync(cancel);
-        }
+        await DatasetStore.LockForIngestAsync(connection, transaction, request.DatasetSlug, cancel);
 
         var dataset = await DatasetStore.FindAsync(connection, transaction, request.DatasetSlug, cancel);
         var loaded = dataset is null ? [] : await DatasetStore.LoadedChecksumsAsync(connection, transaction, dataset.Id, cancel);
@@ -232,13 +227,7 @@ public sealed class HindcastIngestor(NpgsqlDataSource dataSource)
         {
             var wet = new HashSet<int>(existingWet!);
             var newlyWet = Enumerable.Range(0, grid.PointCount).Where(p => hasData[p] && !wet.Contains(p)).ToArray();
-            if (newlyWet.Length > 0)
-            {
-                await using var update = new NpgsqlCommand("UPDATE cell SET wet = true WHERE dataset_id = $1 AND cell_id = ANY($2)", connection, transaction);
-                update.Parameters.AddWithValue(datasetId);
-                update.Parameters.AddWithValue(newlyWet);
-                await update.ExecuteNonQueryAsync(cancel);
-            }
+            await CellStore.MarkWetAsync(connection, transaction, datasetId, newlyWet, cancel);
             wetCells = wet.Count + newlyWet.Length;
         }
 

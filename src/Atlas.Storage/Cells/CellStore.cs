@@ -49,6 +49,16 @@ public sealed class CellStore(NpgsqlDataSource dataSource)
     /// Computes each wet cell's distance to the nearest dry cell (a coast proxy from the dataset's own land mask), in
     /// metres on the spheroid. Leaves NULL where the dataset has no dry cell.
     /// </summary>
+    /// <summary>Marks cells wet (a later file holds data where the earlier ones had none); nothing for an empty list.</summary>
+    public static async Task MarkWetAsync(NpgsqlConnection connection, NpgsqlTransaction transaction, int datasetId, int[] cellIds, CancellationToken cancel)
+    {
+        if (cellIds.Length == 0) return;
+        await using var command = new NpgsqlCommand("UPDATE cell SET wet = true WHERE dataset_id = $1 AND cell_id = ANY($2)", connection, transaction);
+        command.Parameters.AddWithValue(datasetId);
+        command.Parameters.AddWithValue(cellIds);
+        await command.ExecuteNonQueryAsync(cancel);
+    }
+
     public static async Task UpdateCoastDistanceAsync(NpgsqlConnection connection, NpgsqlTransaction transaction, int datasetId, CancellationToken cancel)
     {
         await using var command = new NpgsqlCommand("""

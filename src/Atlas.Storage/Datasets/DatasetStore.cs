@@ -22,6 +22,17 @@ public sealed class DatasetStore(NpgsqlDataSource dataSource)
         return rows.Count == 0 ? null : rows[0];
     }
 
+    /// <summary>
+    /// Takes the dataset's ingest lock for the rest of the transaction: one ingest per dataset at a time, whichever
+    /// worker or machine runs it; another waits here until the first commits or rolls back.
+    /// </summary>
+    public static async Task LockForIngestAsync(NpgsqlConnection connection, NpgsqlTransaction transaction, string slug, CancellationToken cancel)
+    {
+        await using var command = new NpgsqlCommand("SELECT pg_advisory_xact_lock(hashtext('atlas-ingest:' || $1))", connection, transaction);
+        command.Parameters.AddWithValue(slug);
+        await command.ExecuteNonQueryAsync(cancel);
+    }
+
     public static async Task<DatasetRecord?> FindAsync(NpgsqlConnection connection, NpgsqlTransaction? transaction, string slug, CancellationToken cancel)
     {
         await using var command = new NpgsqlCommand($"SELECT {Columns} FROM dataset WHERE slug = $1", connection, transaction);
