@@ -8,6 +8,14 @@ namespace Atlas.Statistics;
 /// </summary>
 public static class MethodNotes
 {
+    /// <summary>
+    /// The version of the statistics method, raised whenever a change alters stored values: 1 the first atlas, 2
+    /// calendar-true coverage, month-balanced seasons and annual period, the period directionality coefficient. A
+    /// pass over a dataset whose statistics carry another version recomputes every cell, so no stored value of an
+    /// older method is served beside new ones.
+    /// </summary>
+    public const int Version = 2;
+
     /// <summary>How coverage is counted and flagged.</summary>
     public static string Coverage(double lowCoverageThreshold) =>
         "coverage is counted against the calendar: a period expects the calendar hours of its months within the record's years " +

@@ -32,6 +32,9 @@ public sealed class StatisticsService(NpgsqlDataSource dataSource, StatisticsOpt
         var dataset = await datasets.FindAsync(slug, cancel) ?? throw new IngestException($"There is no dataset '{slug}'.");
         var statistics = new StatisticsStore(dataSource);
         var cells = (await new CellStore(dataSource).AllAsync(dataset.Id, cancel)).Where(c => c.Wet).ToDictionary(c => c.CellId);
+        // Statistics of an earlier method are all recomputed, whatever changed: old and new values never mix.
+        var methodChanged = !all && StoredMethodVersion(dataset.MetadataJson) is { } stored && stored != Atlas.Statistics.MethodNotes.Version;
+        all |= methodChanged;
         var targets = all ? cells.Keys.Order().ToArray() : WholeBlocks(await statistics.StaleCellsAsync(dataset.Id, cancel), cells.Keys);
         if (targets.Length == 0) return new StatisticsSummary(slug, 0, 0, 0, 0, clock.Elapsed);
 
@@ -177,7 +180,15 @@ public sealed class StatisticsService(NpgsqlDataSource dataSource, StatisticsOpt
         }
 
         await datasets.MergeMetadataAsync(dataset.Id, MethodNotes(computedAt), cancel);
-        return new StatisticsSummary(slug, done, periodCodes.Count, rowCount, (long)done * times.Length, clock.Elapsed);
+        return new StatisticsSummary(slug, done, periodCodes.Count, rowCount, (long)done * times.Length, clock.Elapsed, methodChanged);
+    }
+
+    /// <summary>The method version of a dataset's stored statistics: null before any pass, 1 for passes that recorded none.</summary>
+    public static int? StoredMethodVersion(string metadataJson)
+    {
+        var root = JsonNode.Parse(metadataJson) as JsonObject;
+        if (root?["statistics"] is not JsonObject notes) return null;
+        return notes["method_version"] is JsonValue v && v.TryGetValue(out int version) ? version : 1;
     }
 
     /// <summary>The wet cells of every block that holds a stale cell: blocks are stored whole, so they are computed whole.</summary>
@@ -194,6 +205,7 @@ public sealed class StatisticsService(NpgsqlDataSource dataSource, StatisticsOpt
             ["statistics"] = new JsonObject
             {
                 ["computed_at"] = computedAt.ToString("O"),
+                ["method_version"] = Atlas.Statistics.MethodNotes.Version,
                 ["software_version"] = typeof(StatisticsService).Assembly.GetName().Version?.ToString(),
                 ["power"] = "omnidirectional power per time step from Hm0 and Te with the linear-theory group velocity at Te and the cell depth " +
                             "(rho 1025 kg/m3, g 9.81 m/s2; deep water where the depth is unknown), then averaged; never from mean Hs and mean Te",
