@@ -26,6 +26,7 @@ public sealed class TimelineCalendar
     private readonly long[] _slotExpected;
     private readonly long[] _monthExpected = new long[12];
     private readonly Dictionary<AtlasPeriod, int[]> _periodSlots = [];
+    private readonly Dictionary<AtlasPeriod, long> _periodExpected = [];
 
     /// <summary>Builds the calendar of a timeline.</summary>
     /// <param name="unixSeconds">Time of each step, Unix seconds UTC.</param>
@@ -97,6 +98,7 @@ public sealed class TimelineCalendar
             present.Add(p);
         }
         PeriodsPresent = present;
+        foreach (AtlasPeriod p in present) _periodExpected[p] = CountExpected(p);
     }
 
     /// <summary>Number of steps.</summary>
@@ -136,7 +138,11 @@ public sealed class TimelineCalendar
     /// Steps the period expects: the calendar length of its months within the record's years over the nominal step
     /// (see remarks); 0 when the timeline is empty.
     /// </summary>
-    public long ExpectedSteps(AtlasPeriod period)
+    public long ExpectedSteps(AtlasPeriod period) =>
+        _periodExpected.TryGetValue(period, out long n) ? n : CountExpected(period);
+
+    // Counted once per period present when the calendar is built: the layer pass asks for every period of every cell.
+    private long CountExpected(AtlasPeriod period)
     {
         long n = 0;
         for (int slot = 0; slot < _slotExpected.Length; slot++)
@@ -146,9 +152,6 @@ public sealed class TimelineCalendar
 
     /// <summary>Steps a slot expects (its calendar length over the nominal step, or the steps it holds when more).</summary>
     public long ExpectedInSlot(int slot) => _slotExpected[slot];
-
-    /// <summary>Steps a calendar month (1 = January) expects over all the record's years.</summary>
-    public long ExpectedInCalendarMonth(int month) => _monthExpected[month - 1];
 
     /// <summary>Steps each calendar month (index 0 = January) of a period expects over the record's years (0 for the months it lacks).</summary>
     public void ExpectedByMonth(AtlasPeriod period, Span<long> expected)

@@ -20,22 +20,13 @@ namespace Atlas.WavePhysics;
 /// d = integral over |phi| below 90 degrees of D(phi) cos(phi) dphi = s / (s + 1) + T(s), where the tail
 /// T(s) = 2 C(s) [B(1/2; s + 1/2, 1/2) - 2 B(1/2; s + 3/2, 1/2)] (incomplete beta functions) adds back the
 /// energy travelling backwards, which the full first moment subtracts. <see cref="CoefficientFromSpread"/>
-/// evaluates this exactly; <see cref="Coefficients"/> reads a table of it.
+/// evaluates this exactly; the coefficient of a period, over many steps, comes from <see cref="DirectionalHarmonics"/>.
 /// </para>
 /// </remarks>
 public static class Directionality
 {
     /// <summary>Spread (degrees) at and above which the cosine-2s model is isotropic (s = 0): sqrt(2) rad.</summary>
     public static readonly double IsotropicSpreadDegrees = Math.Sqrt(2) * 180 / Math.PI;
-
-    /// <summary>Number of equal steps of spread, from 0 to <see cref="IsotropicSpreadDegrees"/>, in the table behind
-    /// <see cref="Coefficients"/> (a step of 0.05 degrees).</summary>
-    public const int TableSteps = 1621;
-
-    /// <summary>Largest absolute error of the tabulated coefficient against <see cref="CoefficientFromSpread"/>.</summary>
-    public const double TableMaxAbsoluteError = 2e-7;
-
-    private static readonly Lazy<double[]> Table = new(BuildTable);
 
     /// <summary>The cosine-2s exponent s for a circular spread (degrees): 2 / sigma^2 - 1, at least 0.</summary>
     /// <param name="spreadDegrees">Directional spread, degrees, not negative; 0 gives +infinity; NaN gives NaN.</param>
@@ -79,39 +70,6 @@ public static class Directionality
         double c = Math.Exp(SpecialFunctions.GammaLn(s + 1) - SpecialFunctions.GammaLn(s + 0.5)) / (2 * Math.Sqrt(Math.PI));
         double tail = 2 * c * (SpecialFunctions.BetaIncomplete(s + 0.5, 0.5, 0.5) - 2 * SpecialFunctions.BetaIncomplete(s + 1.5, 0.5, 0.5));
         return firstMoment + tail;
-    }
-
-    /// <summary>
-    /// d per step from the directional spread per step, through a table of <see cref="CoefficientFromSpread"/>
-    /// at <see cref="TableSteps"/> equal steps with linear interpolation (error below <see cref="TableMaxAbsoluteError"/>).
-    /// </summary>
-    /// <param name="spreadDegrees">Spread per step, degrees.</param>
-    /// <param name="coefficients">Receives d per step; NaN where the spread is NaN, negative or infinite.</param>
-    public static void Coefficients(ReadOnlySpan<float> spreadDegrees, Span<float> coefficients)
-    {
-        if (coefficients.Length < spreadDegrees.Length)
-            throw new ArgumentException($"The output holds {coefficients.Length} steps but {spreadDegrees.Length} are needed.", nameof(coefficients));
-        double[] table = Table.Value;
-        const int last = TableSteps;
-        double perDegree = TableSteps / IsotropicSpreadDegrees;
-        for (int i = 0; i < spreadDegrees.Length; i++)
-        {
-            float spread = spreadDegrees[i];
-            if (!(spread >= 0) || float.IsPositiveInfinity(spread)) { coefficients[i] = float.NaN; continue; }
-            double position = spread * perDegree;
-            if (position >= last) { coefficients[i] = (float)table[last]; continue; }
-            int j = (int)position;
-            double fraction = position - j;
-            coefficients[i] = (float)(table[j] + fraction * (table[j + 1] - table[j]));
-        }
-    }
-
-    /// <summary>The tabulated d for one spread (degrees); see <see cref="Coefficients"/>.</summary>
-    public static double CoefficientFromSpreadTabulated(double spreadDegrees)
-    {
-        Span<float> d = stackalloc float[1];
-        Coefficients([(float)spreadDegrees], d);
-        return d[0];
     }
 
     /// <summary>
@@ -232,16 +190,6 @@ public static class Directionality
             powers[j] = PhysicalConstants.SeawaterDensity * PhysicalConstants.Gravity * flux * binWidthRadians / 1000.0;
         }
         return FromComponents(powers, directionsDegrees);
-    }
-
-    private static double[] BuildTable()
-    {
-        // The last node sits exactly on the isotropic spread, where the model's d has a kink (constant beyond).
-        var table = new double[TableSteps + 2];
-        for (int i = 0; i < TableSteps; i++) table[i] = CoefficientFromSpread(i * IsotropicSpreadDegrees / TableSteps);
-        table[TableSteps] = 1 / Math.PI;
-        table[TableSteps + 1] = 1 / Math.PI;
-        return table;
     }
 
     private static void CheckSpread(double spreadDegrees)

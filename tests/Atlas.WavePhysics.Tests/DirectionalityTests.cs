@@ -14,16 +14,6 @@ public class DirectionalityTests
         }
     }
 
-    [Fact]
-    public void TabulatedCoefficientStaysWithinItsStatedError()
-    {
-        for (double spread = 0; spread <= 95; spread += 0.0137)
-        {
-            double exact = Directionality.CoefficientFromSpread(spread);
-            Assert.Equal(exact, Directionality.CoefficientFromSpreadTabulated(spread), Directionality.TableMaxAbsoluteError);
-        }
-    }
-
     // Limits (analytic): no spread puts all power in one direction (d = 1); the isotropic sea resolves
     // integral (1/2pi) max(cos phi, 0) dphi = 1/pi in any direction.
     [Fact]
