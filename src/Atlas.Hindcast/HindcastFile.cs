@@ -13,8 +13,8 @@ public sealed class HindcastFile : IDisposable
     private const long ScratchValues = 16 << 20;
 
     private readonly NetCdfFile _file;
-    private readonly IReadOnlyDictionary<WaveVariable, ResolvedVariable> _variables;
-    private readonly Dictionary<WaveVariable, (CfValueDecoder Decoder, int[] Roles)> _decoding = [];
+    private readonly IReadOnlyDictionary<WaveParameter, ResolvedVariable> _variables;
+    private readonly Dictionary<WaveParameter, (CfValueDecoder Decoder, int[] Roles)> _decoding = [];
     private readonly IReadOnlyList<NetCdfDimension> _spatial;
     private readonly NetCdfDimension _time;
 
@@ -25,7 +25,7 @@ public sealed class HindcastFile : IDisposable
     {
         _file = file;
         _variables = CfDecoder.Resolve(file, mapping);
-        var hs = _variables[WaveVariable.Hs].Source;
+        var hs = _variables[WaveParameter.Hs].Source;
         (_time, var timeVariable) = FindTime(file, hs, mapping);
         TimesUtc = DecodeTimes(file, timeVariable);
         // A backwards step is refused at once; a repeated one once the values of both steps can be compared.
@@ -47,7 +47,7 @@ public sealed class HindcastFile : IDisposable
             {
                 throw new HindcastFormatException(file.Path, resolved.Name, e.Message, e);
             }
-            _decoding[wave] = (decoder, Roles(resolved.Source, timeRequired: wave != WaveVariable.Depth));
+            _decoding[wave] = (decoder, Roles(resolved.Source, timeRequired: wave != WaveParameter.Depth));
             TuneChunkCache(resolved.Source);
         }
         if (repeated > 0) CheckIncreasing(file, timeVariable, TimesUtc, RepeatNote(repeated));
@@ -81,10 +81,10 @@ public sealed class HindcastFile : IDisposable
     /// <summary>The time of every step, UTC, strictly increasing.</summary>
     public IReadOnlyList<DateTime> TimesUtc { get; }
 
-    public bool Has(WaveVariable v) => _variables.ContainsKey(v);
+    public bool Has(WaveParameter v) => _variables.ContainsKey(v);
 
     /// <summary>The file variable behind <paramref name="v"/> and how it was found; null when the file lacks it.</summary>
-    public ResolvedVariable? Source(WaveVariable v) => _variables.GetValueOrDefault(v);
+    public ResolvedVariable? Source(WaveParameter v) => _variables.GetValueOrDefault(v);
 
     /// <summary>
     /// Reads steps [<paramref name="timeStart"/>, +<paramref name="timeCount"/>) of points
@@ -92,9 +92,9 @@ public sealed class HindcastFile : IDisposable
     /// [time][point], decoded (SI units, directions "from" in [0, 360), NaN for missing). On a 2-D grid the point range
     /// becomes one hyperslab of whole rows (or of part of one row), so blocks of whole rows read with no copy.
     /// </summary>
-    public void ReadSteps(WaveVariable v, int timeStart, int timeCount, int pointStart, int pointCount, Span<float> destination)
+    public void ReadSteps(WaveParameter v, int timeStart, int timeCount, int pointStart, int pointCount, Span<float> destination)
     {
-        if (v == WaveVariable.Depth) throw new ArgumentException("depth is static: use ReadDepth", nameof(v));
+        if (v == WaveParameter.Depth) throw new ArgumentException("depth is static: use ReadDepth", nameof(v));
         if (!_decoding.TryGetValue(v, out var decoding))
             throw new InvalidOperationException($"{Path}: the file has no {v} (check Has before reading)");
         int steps = TimesUtc.Count, points = Grid.PointCount;
@@ -157,8 +157,8 @@ public sealed class HindcastFile : IDisposable
     public int PointBlockSize(long valueBudget)
     {
         ArgumentOutOfRangeException.ThrowIfLessThan(valueBudget, 1);
-        var hs = _variables[WaveVariable.Hs].Source;
-        var roles = _decoding[WaveVariable.Hs].Roles;
+        var hs = _variables[WaveParameter.Hs].Source;
+        var roles = _decoding[WaveParameter.Hs].Roles;
         long steps = TimesUtc.Count;
         int rowLength = Grid is StructuredGrid g ? g.Nx : 1;
         int rowCount = Grid.PointCount / rowLength;
@@ -193,12 +193,12 @@ public sealed class HindcastFile : IDisposable
         int points = Grid.PointCount;
         var mean = new float[points];
         var valid = new int[points];
-        if (!_decoding.TryGetValue(WaveVariable.Depth, out var decoding))
+        if (!_decoding.TryGetValue(WaveParameter.Depth, out var decoding))
         {
             Array.Fill(mean, float.NaN);
             return new DepthField(mean, valid, 0, false);
         }
-        var source = _variables[WaveVariable.Depth].Source;
+        var source = _variables[WaveParameter.Depth].Source;
         long[] start = _spatial.Select(_ => 0L).ToArray(), count = _spatial.Select(d => d.Length).ToArray();
         if (Array.IndexOf(decoding.Roles, TimeRole) < 0)
         {
@@ -224,7 +224,7 @@ public sealed class HindcastFile : IDisposable
     }
 
     /// <summary>The decoder of a variable the file has, e.g. to describe its conversion; null when it lacks it.</summary>
-    public CfValueDecoder? DecoderOf(WaveVariable v) => _decoding.TryGetValue(v, out var d) ? d.Decoder : null;
+    public CfValueDecoder? DecoderOf(WaveParameter v) => _decoding.TryGetValue(v, out var d) ? d.Decoder : null;
 
     /// <summary>
     /// The wet flag of every point by the <see cref="LandMask"/> rule, probing Hs over the first
@@ -236,8 +236,8 @@ public sealed class HindcastFile : IDisposable
         int points = Grid.PointCount;
         int steps = Math.Min(probeSteps, TimesUtc.Count);
         var seen = new bool[points];
-        ForEachStepBlock(steps, (t, slab) => ReadSteps(WaveVariable.Hs, t, slab.Length / points, 0, points, slab), slab => LandMask.MarkHsSeen(slab, seen));
-        return LandMask.Derive(Has(WaveVariable.Depth) ? ReadDepth() : [], seen);
+        ForEachStepBlock(steps, (t, slab) => ReadSteps(WaveParameter.Hs, t, slab.Length / points, 0, points, slab), slab => LandMask.MarkHsSeen(slab, seen));
+        return LandMask.Derive(Has(WaveParameter.Depth) ? ReadDepth() : [], seen);
     }
 
     public void Dispose() => _file.Dispose();
@@ -464,7 +464,7 @@ public sealed class HindcastFile : IDisposable
         var parts = new List<string>();
         foreach (var (wave, resolved) in _variables)
         {
-            if (wave == WaveVariable.Depth) continue;
+            if (wave == WaveParameter.Depth) continue;
             ReadSteps(wave, step - 1, 2, 0, points, both);
             double largest = 0;
             int at = -1;
@@ -473,7 +473,7 @@ public sealed class HindcastFile : IDisposable
                 float a = both[p], b = both[points + p];
                 if (float.IsNaN(a) && float.IsNaN(b)) continue;
                 double d = float.IsNaN(a) || float.IsNaN(b) ? double.PositiveInfinity : Math.Abs(a - b);
-                if (wave is WaveVariable.Dir && d > 180) d = 360 - d;
+                if (wave is WaveParameter.Dir && d > 180) d = 360 - d;
                 if (d > largest) (largest, at) = (d, p);
             }
             if (at < 0) continue;

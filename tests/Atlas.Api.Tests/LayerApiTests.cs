@@ -23,7 +23,7 @@ public sealed class LayerApiTests(AtlasApiFixture atlas)
         return path;
     }
 
-    private async Task<Dictionary<int, LayerValue>> StoredLayerAsync(short parameter, short period, StoredStatistic statistic)
+    private async Task<Dictionary<int, LayerValue>> StoredLayerAsync(WaveParameter parameter, AtlasPeriod period, StatisticKind statistic)
     {
         var dataset = (await new Atlas.Storage.Datasets.DatasetStore(atlas.DataSource).FindAsync(SyntheticAtlas.CoastSlug))!;
         // Positions joined in by the database: the API takes them from its in-memory cell table, so the two paths meet here.
@@ -68,7 +68,7 @@ public sealed class LayerApiTests(AtlasApiFixture atlas)
             Assert.Equal(AtlasCaution.Text, info.GetProperty("metadata").GetProperty("").GetProperty("caution").GetString());
             Assert.Equal("COG", info.GetProperty("metadata").GetProperty("IMAGE_STRUCTURE").GetProperty("LAYOUT").GetString());
 
-            var stored = await StoredLayerAsync(0, 0, StoredStatistic.Mean);
+            var stored = await StoredLayerAsync(WaveParameter.Hs, AtlasPeriod.Annual, StatisticKind.Mean);
             foreach (var (i, j) in new[] { (0, 0), (5, 4), (9, 9), (3, 7) })
             {
                 var value = ExternalTool.Run("gdallocationinfo", "-valonly", "-wgs84", path, Inv(SyntheticAtlas.Longitude(i)), Inv(SyntheticAtlas.Latitude(j)));
@@ -117,7 +117,7 @@ public sealed class LayerApiTests(AtlasApiFixture atlas)
         Assert.Contains(header, l => l.Contains("value in kW/m"));
         using var stream = new MemoryStream(System.Text.Encoding.UTF8.GetBytes(string.Join('\n', text.Split('\n').SkipWhile(l => l.StartsWith('#')))));
         var frame = DataFrame.LoadCsv(stream);
-        var stored = await StoredLayerAsync(3, 13, StoredStatistic.P90);
+        var stored = await StoredLayerAsync(WaveParameter.J, AtlasPeriod.Djf, StatisticKind.P90);
         Assert.Equal(stored.Count, frame.Rows.Count);
         for (var r = 0; r < frame.Rows.Count; r++)
         {
@@ -159,7 +159,7 @@ public sealed class LayerApiTests(AtlasApiFixture atlas)
             var value = ExternalTool.Run(ExternalTool.Python, "-c",
                 $"import netCDF4; d = netCDF4.Dataset('{path}'); v = d['te_mean']; i = list(d['latitude'][:]).index(min(d['latitude'][:], key=lambda x: abs(x - 40.6))); " +
                 "j = list(d['longitude'][:]).index(min(d['longitude'][:], key=lambda x: abs(x - 20.4))); print(repr(float(v[i, j])))");
-            var stored = await StoredLayerAsync(1, 15, StoredStatistic.Mean);
+            var stored = await StoredLayerAsync(WaveParameter.Te, AtlasPeriod.Jja, StatisticKind.Mean);
             Assert.Equal((float)stored[SyntheticAtlas.CellId(4, 6)].Value, float.Parse(value, CultureInfo.InvariantCulture));
         }
         finally { File.Delete(path); }

@@ -21,7 +21,7 @@ public sealed class PointApiTests(AtlasApiFixture atlas)
     private async Task<Dictionary<(short Period, short Parameter), StatisticRow>> StoredAsync(int cellId)
     {
         var dataset = (await new Atlas.Storage.Datasets.DatasetStore(atlas.DataSource).FindAsync(SyntheticAtlas.CoastSlug))!;
-        return (await new StatisticsStore(atlas.DataSource).ForCellAsync(dataset.Id, cellId)).ToDictionary(r => (r.Period, r.Parameter));
+        return (await new StatisticsStore(atlas.DataSource).ForCellAsync(dataset.Id, cellId)).ToDictionary(r => (r.Period.Code, (short)r.Parameter));
     }
 
     private static JsonElement PeriodOf(JsonElement root, string name) =>
@@ -66,11 +66,11 @@ public sealed class PointApiTests(AtlasApiFixture atlas)
         // The same series with statistics from the layer pass: means, counts and coverage must agree with the exact
         // point computation (float32 storage: 2e-6 relative); layer percentiles are histogram estimates, not compared.
         var dataset = (await new Atlas.Storage.Datasets.DatasetStore(atlas.DataSource).FindAsync(SyntheticAtlas.ServiceSlug))!;
-        var stored = (await new StatisticsStore(atlas.DataSource).ForCellAsync(dataset.Id, SyntheticAtlas.CellId(i, j))).ToDictionary(r => (r.Period, r.Parameter));
+        var stored = (await new StatisticsStore(atlas.DataSource).ForCellAsync(dataset.Id, SyntheticAtlas.CellId(i, j))).ToDictionary(r => (r.Period.Code, (short)r.Parameter));
         var root = JsonDocument.Parse(await _client.GetStringAsync($"/api/v1/datasets/{SyntheticAtlas.ServiceSlug}/point?{At(i, j)}&include=none")).RootElement;
         foreach (var period in root.GetProperty("periods").EnumerateArray())
         {
-            var code = Atlas.Statistics.AtlasPeriod.Parse(period.GetProperty("period").GetString()!).Code;
+            var code = AtlasPeriod.Parse(period.GetProperty("period").GetString()!).Code;
             foreach (var (symbol, parameter) in new[] { ("hs", (short)0), ("te", (short)1), ("tp", (short)2), ("j", (short)3), ("spread", (short)5), ("d", (short)6) })
             {
                 var row = stored[(code, parameter)];
@@ -178,7 +178,7 @@ public sealed class PointApiTests(AtlasApiFixture atlas)
         var fractions = curve.GetProperty("fractions").EnumerateArray().Select(t => t.GetDouble()).ToArray();
         // NumPy's fraction of steps above 2 m (stored extra[1] of the hs row), against the curve at 2.0 m.
         var k = Array.FindIndex(thresholds, t => Math.Abs(t - 2.0) < 1e-9);
-        Assert.Equal(stored[(0, 0)].Extra![1], fractions[k], 1e-6);
+        Assert.Equal(stored[(0, 0)].Fractions![1], fractions[k], 1e-6);
         var joint = root.GetProperty("joint_occurrence");
         Assert.Equal(0.5, joint.GetProperty("hs_bin_width_metres").GetDouble());
         var total = joint.GetProperty("fraction_of_time").EnumerateArray().SelectMany(r => r.EnumerateArray()).Sum(v => v.GetDouble());
@@ -186,7 +186,7 @@ public sealed class PointApiTests(AtlasApiFixture atlas)
         var rose = root.GetProperty("power_rose").GetProperty("fractions").EnumerateArray().Select(v => v.GetDouble()).ToArray();
         Assert.Equal(16, rose.Length);
         // NumPy's power rose (stored extra of the dir row): 1e-5 per sector (float32 storage).
-        for (var s = 0; s < 16; s++) Assert.Equal(stored[(0, 4)].Extra![s], rose[s], 1e-5);
+        for (var s = 0; s < 16; s++) Assert.Equal(stored[(0, 4)].Fractions![s], rose[s], 1e-5);
         var years = root.GetProperty("inter_annual").EnumerateArray().First(p => p.GetProperty("period").GetString() == "annual").GetProperty("years");
         Assert.Equal(stored[(2020, 0)].Mean!.Value, years.EnumerateArray().Single(y => y.GetProperty("year").GetInt32() == 2020).GetProperty("hs").GetDouble(), 1e-5);
         Assert.Equal(AtlasCaution.Text, root.GetProperty("caution").GetString());
@@ -256,7 +256,7 @@ public sealed class PointApiTests(AtlasApiFixture atlas)
         var cell = new Atlas.Storage.Cells.CellRecord(SyntheticAtlas.CellId(3, 7), 3, 7, 0, 0, null, true);
         var chunk = SyntheticAtlas.Chunk(cell, 2020);
         var hs = new float[SyntheticAtlas.Timeline(2020).Length];
-        Atlas.Storage.Series.SeriesCodec.Decode(chunk, Atlas.Storage.Series.SeriesVariable.Hs, hs);
+        Atlas.Storage.Series.SeriesCodec.Decode(chunk, WaveParameter.Hs, hs);
         Assert.Equal("2020-01-01T00:00:00Z,,", rows[1][..22]);  // step 0 of column 3 is missing
         var second = rows[2].Split(',');
         Assert.Equal("2020-01-01T03:00:00Z", second[0]);

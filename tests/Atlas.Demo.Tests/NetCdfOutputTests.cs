@@ -129,13 +129,13 @@ public class NetCdfOutputTests(WrittenScenarioFixture written)
         // The ingest side's reader must find all six variables by standard name, the grid and the times.
         using var file = HindcastFile.Open(FirstFile);
         var fields = GenerateFirstMonth(out var grid);
-        foreach (var v in Enum.GetValues<WaveVariable>()) Assert.True(file.Has(v), $"{v} not found");
+        foreach (var v in WaveParameterGroups.HindcastFields) Assert.True(file.Has(v), $"{v} not found");
         Assert.Equal(GridKind.Regular, file.Grid.Kind);
         Assert.Equal(grid.Columns * grid.Rows, file.Grid.PointCount);
         Assert.Equal(fields.Times, file.TimesUtc);
         int cells = grid.Columns * grid.Rows;
         var hs = new float[fields.Times.Length * cells];
-        file.ReadSteps(WaveVariable.Hs, 0, fields.Times.Length, 0, cells, hs);
+        file.ReadSteps(WaveParameter.Hs, 0, fields.Times.Length, 0, cells, hs);
         for (int i = 0; i < hs.Length; i++)
         {
             if (grid.IsLand[i % cells]) Assert.True(float.IsNaN(hs[i]));

@@ -73,7 +73,7 @@ public sealed class GridTests
         Assert.Equal(_fixtures.ReferenceValues(name, "lon2d"), grid.Longitudes.ToArray().Select(v => (float)v));
         Assert.Equal(_fixtures.ReferenceValues(name, "lat2d"), grid.Latitudes.ToArray().Select(v => (float)v));
         var hs = new float[12];
-        file.ReadSteps(WaveVariable.Hs, 0, 2, 0, 6, hs);
+        file.ReadSteps(WaveParameter.Hs, 0, 2, 0, 6, hs);
         FloatAssert.Close(_fixtures.ReferenceValues(name, "hs"), hs, 0, "hs");
     }
 
@@ -123,10 +123,10 @@ public sealed class GridTests
         const string name = "ugrid_mesh.nc4classic";
         using var file = HindcastFile.Open(_fixtures.Path(name));
         var hs = new float[3 * 6];
-        file.ReadSteps(WaveVariable.Hs, 0, 3, 0, 6, hs);
+        file.ReadSteps(WaveParameter.Hs, 0, 3, 0, 6, hs);
         FloatAssert.Close(_fixtures.ReferenceValues(name, "hs"), hs, 0, "hs");
         var part = new float[2 * 3];
-        file.ReadSteps(WaveVariable.Te, 1, 2, 2, 3, part);
+        file.ReadSteps(WaveParameter.Te, 1, 2, 2, 3, part);
         Assert.Equal([7.2f, 7.3f, 7.4f, 8.2f, 8.3f, 8.4f], part);
         // Node 5 has depth 0 (land) and no Hs; the others are wet.
         Assert.Equal([true, true, true, true, true, false], file.ReadWetMask());

@@ -6,8 +6,8 @@ public sealed class HindcastFileTests
 {
     private readonly NetCdfFixtures _fixtures = NetCdfFixtures.Shared;
 
-    private static readonly (WaveVariable Wave, string Name)[] RegularVariables =
-        [(WaveVariable.Hs, "hs"), (WaveVariable.Te, "te"), (WaveVariable.Tp, "tp"), (WaveVariable.Dir, "mwd"), (WaveVariable.Spread, "spr")];
+    private static readonly (WaveParameter Wave, string Name)[] RegularVariables =
+        [(WaveParameter.Hs, "hs"), (WaveParameter.Te, "te"), (WaveParameter.Tp, "tp"), (WaveParameter.Dir, "mwd"), (WaveParameter.Spread, "spr")];
 
     [Theory]
     [InlineData("classic")]
@@ -36,7 +36,7 @@ public sealed class HindcastFileTests
         string path = _fixtures.Path("regular_float.nc4");
         using var file = HindcastFile.Open(path);
         // Reference: `ncdump -v te`; "_" is the fill value, decoded as missing.
-        FloatAssert.Close(NetCdfFileTests.NcdumpValues(path, "te"), ReadAll(file, WaveVariable.Te), 0, "te");
+        FloatAssert.Close(NetCdfFileTests.NcdumpValues(path, "te"), ReadAll(file, WaveParameter.Te), 0, "te");
     }
 
     [Fact]
@@ -46,10 +46,10 @@ public sealed class HindcastFileTests
         Assert.Equal(NetCdfFormat.NetCdf4, file.Format);
         Assert.Equal(48 * 600, file.TimesUtc.Count * file.Grid.PointCount);
         // Reference: netCDF4-python. Hs is int16 unpacked by it in float32 (scale_factor is float32): 2e-6 m.
-        FloatAssert.Close(_fixtures.ReferenceValues("compressed", "hs"), ReadAll(file, WaveVariable.Hs), 2e-6, "hs");
-        FloatAssert.Close(_fixtures.ReferenceValues("compressed", "te"), ReadAll(file, WaveVariable.Te), 0, "te");
-        FloatAssert.Close(_fixtures.ReferenceValues("compressed", "tp"), ReadAll(file, WaveVariable.Tp), 1e-6, "tp (float64 rounded to float32)");
-        FloatAssert.Close(_fixtures.ReferenceValues("compressed", "mwd"), ReadAll(file, WaveVariable.Dir), 0, "mwd");
+        FloatAssert.Close(_fixtures.ReferenceValues("compressed", "hs"), ReadAll(file, WaveParameter.Hs), 2e-6, "hs");
+        FloatAssert.Close(_fixtures.ReferenceValues("compressed", "te"), ReadAll(file, WaveParameter.Te), 0, "te");
+        FloatAssert.Close(_fixtures.ReferenceValues("compressed", "tp"), ReadAll(file, WaveParameter.Tp), 1e-6, "tp (float64 rounded to float32)");
+        FloatAssert.Close(_fixtures.ReferenceValues("compressed", "mwd"), ReadAll(file, WaveParameter.Dir), 0, "mwd");
     }
 
     [Fact]
@@ -60,7 +60,7 @@ public sealed class HindcastFileTests
         var expected = source.RootElement.GetProperty("hs").EnumerateArray()
             .Select(v => v.ValueKind == JsonValueKind.Null ? float.NaN : (float)v.GetDouble()).ToArray();
         // make_compressed.py packs with scale_factor 0.0005: rounding error at most half a step, plus float32 rounding.
-        FloatAssert.Close(expected, ReadAll(file, WaveVariable.Hs), 0.00025 + 2e-6, "hs");
+        FloatAssert.Close(expected, ReadAll(file, WaveParameter.Hs), 0.00025 + 2e-6, "hs");
     }
 
     [Theory]
@@ -73,9 +73,9 @@ public sealed class HindcastFileTests
     public void PointBlocksReadTheSameValuesAsTheWholeField(int timeStart, int timeCount, int pointStart, int pointCount)
     {
         using var file = HindcastFile.Open(_fixtures.Path("compressed"));
-        var all = ReadAll(file, WaveVariable.Hs);
+        var all = ReadAll(file, WaveParameter.Hs);
         var block = new float[timeCount * pointCount];
-        file.ReadSteps(WaveVariable.Hs, timeStart, timeCount, pointStart, pointCount, block);
+        file.ReadSteps(WaveParameter.Hs, timeStart, timeCount, pointStart, pointCount, block);
         for (int t = 0; t < timeCount; t++)
             for (int p = 0; p < pointCount; p++)
             {
@@ -108,7 +108,7 @@ public sealed class HindcastFileTests
     public void DepthWithATimeDimensionIsItsTimeMean()
     {
         using var file = HindcastFile.Open(_fixtures.Path("depth_with_time.classic"));
-        Assert.Equal("wd", file.Source(WaveVariable.Depth)!.Name);
+        Assert.Equal("wd", file.Source(WaveParameter.Depth)!.Name);
         // depth_with_time.cdl, mean of the two steps: (10.5 + 11.5) / 2, (0 + 1) / 2, (30 + 31) / 2.
         Assert.Equal([11f, 0.5f, 30.5f], file.ReadDepth());
         var field = file.ReadDepthField();
@@ -123,7 +123,7 @@ public sealed class HindcastFileTests
         var wet = file.ReadWetMask();
         Assert.Equal(Enumerable.Range(0, 12).Select(p => p is not (0 or 5)), wet);
         using var noDepth = HindcastFile.Open(_fixtures.Path("curvilinear.cdf5"));
-        Assert.False(noDepth.Has(WaveVariable.Depth));
+        Assert.False(noDepth.Has(WaveParameter.Depth));
         Assert.All(noDepth.ReadDepth(), d => Assert.True(float.IsNaN(d)));
         Assert.Equal([true, true, true, true, true, false], noDepth.ReadWetMask());
     }
@@ -175,13 +175,13 @@ public sealed class HindcastFileTests
         var mapping = VariableMapping.Load(NetCdfFixtures.Source("mapped_names.json"));
         const string name = "mapped_names.classic";
         using var file = HindcastFile.Open(_fixtures.Path(name), mapping);
-        Assert.True(file.Has(WaveVariable.Hs) && file.Has(WaveVariable.Te) && file.Has(WaveVariable.Dir) && file.Has(WaveVariable.Depth));
-        Assert.False(file.Has(WaveVariable.Tp));
-        Assert.Equal(VariableMatch.Mapping, file.Source(WaveVariable.Hs)!.MatchedBy);
-        Assert.Equal("swh", file.Source(WaveVariable.Hs)!.Name);
-        FloatAssert.Close(_fixtures.ReferenceValues(name, "swh"), ReadAll(file, WaveVariable.Hs), 0, "hs");
+        Assert.True(file.Has(WaveParameter.Hs) && file.Has(WaveParameter.Te) && file.Has(WaveParameter.Dir) && file.Has(WaveParameter.Depth));
+        Assert.False(file.Has(WaveParameter.Tp));
+        Assert.Equal(VariableMatch.Mapping, file.Source(WaveParameter.Hs)!.MatchedBy);
+        Assert.Equal("swh", file.Source(WaveParameter.Hs)!.Name);
+        FloatAssert.Close(_fixtures.ReferenceValues(name, "swh"), ReadAll(file, WaveParameter.Hs), 0, "hs");
         // "dir_to": waves travelling to theta come from theta + 180, wrapped into [0, 360).
-        Assert.Equal([180f, 270f, 90f, 0f, 179f, 225f], ReadAll(file, WaveVariable.Dir));
+        Assert.Equal([180f, 270f, 90f, 0f, 179f, 225f], ReadAll(file, WaveParameter.Dir));
         // "depth_positive": "up" and units supplied by the mapping: bathy -50, -12.5, 4.
         Assert.Equal([50f, 12.5f, float.NaN], file.ReadDepth());
         Assert.Equal(new DateTime(2002, 1, 1, 3, 0, 0, DateTimeKind.Utc), file.TimesUtc[1]);
@@ -208,9 +208,9 @@ public sealed class HindcastFileTests
     public void PeakPeriodAloneIsEnough()
     {
         using var file = HindcastFile.Open(_fixtures.Path("calendar_noleap.classic"));
-        Assert.True(file.Has(WaveVariable.Tp));
-        Assert.False(file.Has(WaveVariable.Te));
-        var e = Assert.Throws<InvalidOperationException>(() => file.ReadSteps(WaveVariable.Te, 0, 1, 0, 1, new float[1]));
+        Assert.True(file.Has(WaveParameter.Tp));
+        Assert.False(file.Has(WaveParameter.Te));
+        var e = Assert.Throws<InvalidOperationException>(() => file.ReadSteps(WaveParameter.Te, 0, 1, 0, 1, new float[1]));
         Assert.Contains("no Te", e.Message);
     }
 
@@ -218,10 +218,10 @@ public sealed class HindcastFileTests
     public void ReadsOutsideTheFileOrIntoAShortBufferAreMisuse()
     {
         using var file = HindcastFile.Open(_fixtures.Path("regular_float.classic"));
-        Assert.Throws<ArgumentOutOfRangeException>(() => file.ReadSteps(WaveVariable.Hs, 3, 2, 0, 1, new float[2]));
-        Assert.Throws<ArgumentOutOfRangeException>(() => file.ReadSteps(WaveVariable.Hs, 0, 1, 10, 3, new float[3]));
-        Assert.Throws<ArgumentException>(() => file.ReadSteps(WaveVariable.Hs, 0, 2, 0, 3, new float[5]));
-        Assert.Throws<ArgumentException>(() => file.ReadSteps(WaveVariable.Depth, 0, 1, 0, 1, new float[1]));
+        Assert.Throws<ArgumentOutOfRangeException>(() => file.ReadSteps(WaveParameter.Hs, 3, 2, 0, 1, new float[2]));
+        Assert.Throws<ArgumentOutOfRangeException>(() => file.ReadSteps(WaveParameter.Hs, 0, 1, 10, 3, new float[3]));
+        Assert.Throws<ArgumentException>(() => file.ReadSteps(WaveParameter.Hs, 0, 2, 0, 3, new float[5]));
+        Assert.Throws<ArgumentException>(() => file.ReadSteps(WaveParameter.Depth, 0, 1, 0, 1, new float[1]));
     }
 
     [Fact]
@@ -232,7 +232,7 @@ public sealed class HindcastFileTests
         Assert.Equal("/data/a.nc: truncated", new HindcastFormatException("/data/a.nc", null, "truncated").Message);
     }
 
-    internal static float[] ReadAll(HindcastFile file, WaveVariable v)
+    internal static float[] ReadAll(HindcastFile file, WaveParameter v)
     {
         var values = new float[file.TimesUtc.Count * file.Grid.PointCount];
         file.ReadSteps(v, 0, file.TimesUtc.Count, 0, file.Grid.PointCount, values);

@@ -79,7 +79,7 @@ public sealed class HindcastWriterTests
         Assert.Equal(Latitudes, grid.LatitudeAxis);
         Assert.Equal(Longitudes, grid.LongitudeAxis);
         Assert.Equal(Times(), file.TimesUtc);
-        Assert.Equal(Hs(), HindcastFileTests.ReadAll(file, WaveVariable.Hs));
+        Assert.Equal(Hs(), HindcastFileTests.ReadAll(file, WaveParameter.Hs));
         Assert.Equal(Depth(), file.ReadDepth());
     }
 

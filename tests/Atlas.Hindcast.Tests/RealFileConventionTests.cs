@@ -21,10 +21,10 @@ public sealed class RealFileConventionTests
     {
         var path = Make("fp.nc", 4, $"--peak-frequency {units}");
         using var file = HindcastFile.Open(path);
-        var tp = file.Source(WaveVariable.Tp)!;
+        var tp = file.Source(WaveParameter.Tp)!;
         Assert.Equal("fp", tp.Name);
         Assert.True(tp.Reciprocal);
-        var decoded = ReadAll(file, WaveVariable.Tp, 4);
+        var decoded = ReadAll(file, WaveParameter.Tp, 4);
         // Reference: netCDF4-python reads fp (Hz); Tp = 1 / fp to float32 rounding (1e-6 relative). fp = 0 at step 0 of
         // point (j=1, i=1) has no period: missing.
         var fp = Values(ReadBack(path).GetProperty("variables").GetProperty("fp"));
@@ -34,7 +34,7 @@ public sealed class RealFileConventionTests
             else Assert.Equal(1.0 / fp[k], decoded[k], 1e-6 * decoded[k]);
         }
         Assert.True(float.IsNaN(decoded[1 * Nx + 1]));
-        Assert.Contains("Tp = 1/fp", tp.DescribeConversion(file.DecoderOf(WaveVariable.Tp)!));
+        Assert.Contains("Tp = 1/fp", tp.DescribeConversion(file.DecoderOf(WaveParameter.Tp)!));
     }
 
     [Fact]
@@ -45,7 +45,7 @@ public sealed class RealFileConventionTests
         // 5 + 10 i m (closed form of make_fixture.py), to float32 rounding.
         var path = Make("dpt.nc", 4, "--depth-name dpt --depth-standard-name depth --depth-time --depth-units cm --depth-positive up");
         using var file = HindcastFile.Open(path);
-        var depth = file.Source(WaveVariable.Depth)!;
+        var depth = file.Source(WaveParameter.Depth)!;
         Assert.Equal("dpt", depth.Name);
         Assert.True(depth.PositiveUp);
         var field = file.ReadDepthField();
@@ -70,7 +70,7 @@ public sealed class RealFileConventionTests
     {
         var path = Make($"byname-{name}.nc", 2, $"--depth-name {name} --depth-standard-name none");
         using var file = HindcastFile.Open(path);
-        var depth = file.Source(WaveVariable.Depth)!;
+        var depth = file.Source(WaveParameter.Depth)!;
         Assert.Equal(name, depth.Name);
         Assert.Equal(VariableMatch.Name, depth.MatchedBy);
         Assert.Equal(15f, file.ReadDepth()[1]);
@@ -81,7 +81,7 @@ public sealed class RealFileConventionTests
     {
         var path = Make("lookalike.nc", 2, "--depth-name dpt --depth-standard-name none --depth-units \"\"");
         using var file = HindcastFile.Open(path);
-        Assert.False(file.Has(WaveVariable.Depth));
+        Assert.False(file.Has(WaveParameter.Depth));
         using var raw = NetCdfFile.Open(path);
         var lookalike = CfDecoder.WaterDepthLookalike(raw);
         Assert.Equal("dpt", lookalike!.Name);
@@ -108,7 +108,7 @@ public sealed class RealFileConventionTests
         // Reference: netCDF4-python's values in the file's units, times 180/pi for radians (SI Brochure); 1e-5 degree
         // covers float32 rounding of a radian value.
         var variables = ReadBack(path).GetProperty("variables");
-        foreach (var (wave, name) in new[] { (WaveVariable.Dir, "dir"), (WaveVariable.Spread, "spr") })
+        foreach (var (wave, name) in new[] { (WaveParameter.Dir, "dir"), (WaveParameter.Spread, "spr") })
         {
             var expected = Values(variables.GetProperty(name));
             var decoded = ReadAll(file, wave, 2);
@@ -129,7 +129,7 @@ public sealed class RealFileConventionTests
         using var file = HindcastFile.Open(path);
         // Reference: netCDF4-python's values in cm, / 100 (SI Brochure).
         var expected = Values(ReadBack(path).GetProperty("variables").GetProperty("hs"));
-        var decoded = ReadAll(file, WaveVariable.Hs, 2);
+        var decoded = ReadAll(file, WaveParameter.Hs, 2);
         for (var k = 0; k < expected.Length; k++)
             if (!float.IsNaN(expected[k])) Assert.Equal(expected[k] / 100.0, decoded[k], 1e-6);
     }
@@ -150,7 +150,7 @@ public sealed class RealFileConventionTests
 
     private static float[] Values(JsonElement variable) => NetCdfFixtures.Values(variable);
 
-    private static float[] ReadAll(HindcastFile file, WaveVariable wave, int steps)
+    private static float[] ReadAll(HindcastFile file, WaveParameter wave, int steps)
     {
         var values = new float[steps * Nx * Ny];
         file.ReadSteps(wave, 0, steps, 0, Nx * Ny, values);

@@ -9,13 +9,13 @@ public sealed class VariableMappingTests
             { "hs": "a", "te": "b", "tp": "c", "dir_to": "d", "spread": "e", "depth": "f",
               "depth_positive": "down", "time": "t", "units": { "hs": "cm", "dir_to": "radians" } }
             """);
-        Assert.Equal("a", m.Names[WaveVariable.Hs]);
-        Assert.Equal("d", m.Names[WaveVariable.Dir]);
+        Assert.Equal("a", m.Names[WaveParameter.Hs]);
+        Assert.Equal("d", m.Names[WaveParameter.Dir]);
         Assert.True(m.DirectionIsTowards);
         Assert.False(m.DepthPositiveUp);
         Assert.Equal("t", m.TimeVariable);
-        Assert.Equal("cm", m.Units[WaveVariable.Hs]);
-        Assert.Equal("radians", m.Units[WaveVariable.Dir]);
+        Assert.Equal("cm", m.Units[WaveParameter.Hs]);
+        Assert.Equal("radians", m.Units[WaveParameter.Dir]);
     }
 
     [Theory]

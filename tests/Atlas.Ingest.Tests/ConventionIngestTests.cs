@@ -27,7 +27,7 @@ public class ConventionIngestTests(TestDatabase database) : IClassFixture<TestDa
         var series = new SeriesStore(database.DataSource);
         foreach (var (j, i) in new[] { (1, 1), (3, 4), (4, 5) })
         {
-            var tp = Decode((await series.ReadCellAsync(dataset.Id, j * Nx + i)).Single().Payload, SeriesVariable.Tp);
+            var tp = Decode((await series.ReadCellAsync(dataset.Id, j * Nx + i)).Single().Payload, WaveParameter.Tp);
             for (var s = 0; s < tp.Length; s++)
             {
                 // fp = 0 at step 0 of (j=1, i=1): no period, a missing step.
@@ -147,7 +147,7 @@ public class ConventionIngestTests(TestDatabase database) : IClassFixture<TestDa
         var dataset = (await new Storage.Datasets.DatasetStore(database.DataSource).FindAsync("conv-share"))!;
         var timeline = (await new Storage.Datasets.DatasetStore(database.DataSource).TimelinesAsync(dataset.Id))[2020];
         Assert.Equal(15, timeline.Length);
-        var hs = Decode((await new SeriesStore(database.DataSource).ReadCellAsync(dataset.Id, 2 * Nx + 3)).Single().Payload, SeriesVariable.Hs);
+        var hs = Decode((await new SeriesStore(database.DataSource).ReadCellAsync(dataset.Id, 2 * Nx + 3)).Single().Payload, WaveParameter.Hs);
         for (var s = 0; s < 15; s++) Assert.Equal(FixtureFiles.Expected(3.0 * s, 2, 3).Hs, hs[s], 0.0006);
     }
 
@@ -220,7 +220,7 @@ public class ConventionIngestTests(TestDatabase database) : IClassFixture<TestDa
         Assert.Empty(whole.Warnings);
     }
 
-    private static float[] Decode(byte[] payload, SeriesVariable variable)
+    private static float[] Decode(byte[] payload, WaveParameter variable)
     {
         var values = new float[SeriesCodec.StepCountOf(payload)];
         SeriesCodec.Decode(payload, variable, values);

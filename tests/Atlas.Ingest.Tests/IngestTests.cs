@@ -40,11 +40,11 @@ public class IngestTests(TestDatabase database) : IClassFixture<TestDatabase>
             var n = SeriesCodec.StepCountOf(chunk.Payload);
             Assert.Equal(40, n);
             float[] hs = new float[n], te = new float[n], tp = new float[n], dir = new float[n], spread = new float[n];
-            SeriesCodec.Decode(chunk.Payload, SeriesVariable.Hs, hs);
-            SeriesCodec.Decode(chunk.Payload, SeriesVariable.Te, te);
-            SeriesCodec.Decode(chunk.Payload, SeriesVariable.Tp, tp);
-            SeriesCodec.Decode(chunk.Payload, SeriesVariable.Dir, dir);
-            SeriesCodec.Decode(chunk.Payload, SeriesVariable.Spread, spread);
+            SeriesCodec.Decode(chunk.Payload, WaveParameter.Hs, hs);
+            SeriesCodec.Decode(chunk.Payload, WaveParameter.Te, te);
+            SeriesCodec.Decode(chunk.Payload, WaveParameter.Tp, tp);
+            SeriesCodec.Decode(chunk.Payload, WaveParameter.Dir, dir);
+            SeriesCodec.Decode(chunk.Payload, WaveParameter.Spread, spread);
             for (var s = 0; s < n; s++)
             {
                 var e = FixtureFiles.Expected(3.0 * s, j, i);
@@ -83,7 +83,7 @@ public class IngestTests(TestDatabase database) : IClassFixture<TestDatabase>
         Assert.Equal(16, timeline.Length);
         var chunk = (await new SeriesStore(database.DataSource).ReadCellAsync(dataset.Id, 1 * Nx + 2)).Single();
         var hs = new float[16];
-        SeriesCodec.Decode(chunk.Payload, SeriesVariable.Hs, hs);
+        SeriesCodec.Decode(chunk.Payload, WaveParameter.Hs, hs);
         Assert.Equal(FixtureFiles.Expected(0, 1, 2).Hs, hs[0], 3);
         Assert.Equal(FixtureFiles.Expected(31 * 24 + 3, 1, 2).Hs, hs[9], 3);
     }

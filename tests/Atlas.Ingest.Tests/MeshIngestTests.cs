@@ -41,7 +41,7 @@ public class MeshIngestTests(TestDatabase database) : IClassFixture<TestDatabase
         Assert.Contains((0, 1, 3), triangles);
         var chunk = (await new SeriesStore(database.DataSource).ReadCellAsync(dataset.Id, 4)).Single();
         var hs = new float[3];
-        SeriesCodec.Decode(chunk.Payload, SeriesVariable.Hs, hs);
+        SeriesCodec.Decode(chunk.Payload, WaveParameter.Hs, hs);
         Assert.Equal([1.4f, 2.4f, 3.4f], hs.Select(v => MathF.Round(v, 3)).ToArray());
     }
 }

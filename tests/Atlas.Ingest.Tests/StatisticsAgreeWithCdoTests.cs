@@ -65,7 +65,7 @@ public class StatisticsAgreeWithCdoTests(TestDatabase database) : IClassFixture<
                         means[date.Month - 1] = cdoValue;
                     }
                     if (!layerCache.TryGetValue(period.Code, out var layer))
-                        layerCache[period.Code] = layer = await store.LayerAsync(dataset.Id, (short)parameter, period.Code, StoredStatistic.Mean, cells.GetValueOrDefault);
+                        layerCache[period.Code] = layer = await store.LayerAsync(dataset.Id, parameter, period, StatisticKind.Mean, cells.GetValueOrDefault);
                     var cell = layer.Single(v => Math.Abs(v.Longitude - lon) < 1e-4 && Math.Abs(v.Latitude - lat) < 1e-4);
                     Assert.True(Math.Abs(cell.Value - cdoValue) <= 1e-5 * Math.Abs(cdoValue) + 1e-6,
                         $"{operatorName} {name} {period.Name} at ({lon}, {lat}): atlas {cell.Value}, CDO {cdoValue}");
@@ -82,7 +82,7 @@ public class StatisticsAgreeWithCdoTests(TestDatabase database) : IClassFixture<
         foreach (var period in periods)
             foreach (var name in new[] { "hs", "te", "j" })
             {
-                var layer = await store.LayerAsync(dataset.Id, (short)WaveParameterNames.Parse(name), period.Code, StoredStatistic.Mean, allCells.GetValueOrDefault);
+                var layer = await store.LayerAsync(dataset.Id, WaveParameterNames.Parse(name), period, StatisticKind.Mean, allCells.GetValueOrDefault);
                 foreach (var ((n, lon, lat), means) in monthMeans.Where(m => m.Key.Name == name))
                 {
                     double sum = 0, weights = 0;

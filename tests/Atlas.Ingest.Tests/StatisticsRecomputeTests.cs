@@ -43,7 +43,7 @@ public class StatisticsRecomputeTests(TestDatabase database) : IClassFixture<Tes
     }
 
     private async Task<List<(int, double)>> LayerAsync(int datasetId) =>
-        (await new StatisticsStore(database.DataSource).LayerAsync(datasetId, 0, 0, StoredStatistic.P90,
+        (await new StatisticsStore(database.DataSource).LayerAsync(datasetId, WaveParameter.Hs, AtlasPeriod.Annual, StatisticKind.P90,
             id => new Storage.Cells.CellRecord(id, null, null, 0, 0, null, true))).Select(v => (v.CellId, v.Value)).ToList();
 
     private async Task<Dictionary<int, DateTime>> ComputedAtAsync(int datasetId)

@@ -42,8 +42,8 @@ public class CalendarTrueCoverageTests
         var data = JulyStart();
         foreach (IReadOnlyList<PeriodStatistics> periods in new[]
                  {
-                     new CellStatisticsCalculator().Compute(Series(data)).Periods,
-                     PointAnalysis.Analyse(Series(data)).Periods,
+                     new BinnedCellCalculator().Compute(Series(data)).Periods,
+                     ExactPointAnalysis.Analyse(Series(data)).Periods,
                  })
         {
             PeriodStatistics Of(AtlasPeriod p) => periods.Single(s => s.Period == p);
@@ -67,8 +67,8 @@ public class CalendarTrueCoverageTests
     public void ClimatologyOfAPartialRecordEqualsAWholeYear()
     {
         var data = JulyStart();
-        PointAnalysisResult point = PointAnalysis.Analyse(Series(data));
-        CellStatistics layer = new CellStatisticsCalculator().Compute(Series(data));
+        ExactPointStatistics point = ExactPointAnalysis.Analyse(Series(data));
+        BinnedCellStatistics layer = new BinnedCellCalculator().Compute(Series(data));
         PeriodStatistics year = point.Find(AtlasPeriod.Year(2002))!;
         foreach (PeriodStatistics annual in new[] { point.Find(AtlasPeriod.Annual)!, layer.Find(AtlasPeriod.Annual)! })
         {
@@ -90,7 +90,7 @@ public class CalendarTrueCoverageTests
     [Fact]
     public void InterAnnualVariabilityLeavesOutPartialYears()
     {
-        PointAnalysisResult point = PointAnalysis.Analyse(Series(JulyStart()));
+        ExactPointStatistics point = ExactPointAnalysis.Analyse(Series(JulyStart()));
         InterAnnualSeries annual = point.InterAnnual.Single(s => s.Period == AtlasPeriod.Annual);
         Assert.Equal([2001, 2002, 2003], annual.Years.Select(y => y.Year));
         Assert.Equal([2001], annual.YearsLeftOut);
@@ -121,7 +121,7 @@ public class CalendarTrueCoverageTests
             return d.Month is 12 or 1 or 2 ? (winter % 2 == 0 ? 3f : 1f) : 2f;
         })];
         float[] te = [.. hs.Select(_ => 8f)];
-        PointAnalysisResult point = PointAnalysis.Analyse(new CellSeries { Times = times, Hs = hs, Te = te, DepthMetres = double.NaN });
+        ExactPointStatistics point = ExactPointAnalysis.Analyse(new CellSeries { Times = times, Hs = hs, Te = te, DepthMetres = double.NaN });
         InterAnnualSeries djf = point.InterAnnual.Single(s => s.Period == AtlasPeriod.Djf);
         Assert.Equal(Enumerable.Range(2001, 11), djf.Years.Select(y => y.Year));
         Assert.Equal([2001, 2011], djf.YearsLeftOut);
@@ -153,8 +153,8 @@ public class CalendarTrueCoverageTests
                 .Select(l => l.Split(' ', StringSplitOptions.RemoveEmptyEntries))
                 .Select(p => (DateTime.Parse(p[0], CultureInfo.InvariantCulture), double.Parse(p[1], CultureInfo.InvariantCulture)))];
 
-        PointAnalysisResult point = PointAnalysis.Analyse(Series(data));
-        CellStatistics layer = new CellStatisticsCalculator().Compute(Series(data));
+        ExactPointStatistics point = ExactPointAnalysis.Analyse(Series(data));
+        BinnedCellStatistics layer = new BinnedCellCalculator().Compute(Series(data));
         void Same(double expected, double actual, string what) =>
             Assert.True(Math.Abs(expected - actual) <= 1e-6 * Math.Abs(expected), $"{what}: atlas {actual}, CDO {expected}");
         foreach (string name in new[] { "hs", "te", "j" })

@@ -35,7 +35,7 @@ public class DataPrecisionJsonTests
             Te = [.. Enumerable.Range(0, hours).Select(_ => 8f)],
             DepthMetres = double.NaN,
         };
-        var curve = PointAnalysis.Analyse(series).HsExceedance;
+        var curve = ExactPointAnalysis.Analyse(series).HsExceedance;
         Assert.Equal(0.3, curve.Thresholds[3]);
         Assert.Equal(0.7, curve.Thresholds[7]);
         var json = JsonSerializer.Serialize(curve);

@@ -23,18 +23,18 @@ public class SeriesCodecTests
         var payload = SeriesCodec.Encode(n, hs, te, tp, dir, spread);
         Assert.Equal(SeriesCodec.HeaderBytes + 2 * 5 * n, payload.Length);
         var back = new float[n];
-        Check(SeriesVariable.Hs, hs, 0.0005 + 1e-6);
-        Check(SeriesVariable.Te, te, 0.005 + 1e-5);
-        Check(SeriesVariable.Tp, tp, 0.005 + 1e-5);
-        Check(SeriesVariable.Spread, spread, 0.005 + 1e-5);
-        SeriesCodec.Decode(payload, SeriesVariable.Dir, back);
+        Check(WaveParameter.Hs, hs, 0.0005 + 1e-6);
+        Check(WaveParameter.Te, te, 0.005 + 1e-5);
+        Check(WaveParameter.Tp, tp, 0.005 + 1e-5);
+        Check(WaveParameter.Spread, spread, 0.005 + 1e-5);
+        SeriesCodec.Decode(payload, WaveParameter.Dir, back);
         for (var i = 0; i < n; i++)
         {
             var d = Math.Abs(back[i] - dir[i]);
             Assert.True(Math.Min(d, 360 - d) <= 0.005 + 1e-4, $"direction {dir[i]} came back as {back[i]}");
         }
 
-        void Check(SeriesVariable variable, float[] expected, double tolerance)
+        void Check(WaveParameter variable, float[] expected, double tolerance)
         {
             SeriesCodec.Decode(payload, variable, back);
             for (var i = 0; i < n; i++)
@@ -51,7 +51,7 @@ public class SeriesCodecTests
         var payload = SeriesCodec.Encode(3, [1f, 2f, 3f], [], [], [], []);
         Assert.Equal(SeriesCodec.HeaderBytes + 6, payload.Length);
         var te = new float[3];
-        Assert.False(SeriesCodec.Decode(payload, SeriesVariable.Te, te));
+        Assert.False(SeriesCodec.Decode(payload, WaveParameter.Te, te));
         Assert.All(te, v => Assert.True(float.IsNaN(v)));
     }
 
@@ -68,7 +68,7 @@ public class SeriesCodecTests
     {
         var payload = SeriesCodec.Encode(3, [], [], [], [-10f, 370f, 359.999f], []);
         var back = new float[3];
-        SeriesCodec.Decode(payload, SeriesVariable.Dir, back);
+        SeriesCodec.Decode(payload, WaveParameter.Dir, back);
         Assert.Equal(350f, back[0], 2);
         Assert.Equal(10f, back[1], 2);
         Assert.Equal(0f, back[2], 2);

@@ -87,7 +87,7 @@ public static class AreaApi
                 $"{(spacing ?? 0) / 1000:0.##} km apart: draw the area over the sea within the dataset extent, and larger than one cell.");
         }
 
-        var values = (await statistics.LayerAsync(dataset.Id, (short)p, t.Code, ParameterCatalogue.Stored(s),
+        var values = (await statistics.LayerAsync(dataset.Id, p, t, s,
                 await catalog.CellLookupAsync(dataset, cancel), cancel: cancel))
             .ToDictionary(v => v.CellId, v => v.Value);
         var withValue = inside.Where(c => values.ContainsKey(c.CellId)).ToArray();

@@ -38,16 +38,15 @@ public static class LayerApi
         var dataset = await catalog.FindAsync(slug, cancel);
         if (dataset is null) return ApiProblems.UnknownDataset(slug);
         var combinations = (await geometry.LayerCombinationsAsync(dataset.Id, cancel)).ToList();
-        if (await renderer.HasDepthsAsync(dataset, cancel) && combinations.All(c => c.Parameter != (short)WaveParameter.Depth))
-            combinations.Add(new LayerCombination((short)WaveParameter.Depth, AtlasPeriod.Annual.Code));
+        if (await renderer.HasDepthsAsync(dataset, cancel) && combinations.All(c => c.Parameter != WaveParameter.Depth))
+            combinations.Add(new LayerCombination(WaveParameter.Depth, AtlasPeriod.Annual));
         var options = new StatisticsOptions();
         var parameters = combinations
-            .Where(c => Enum.IsDefined((WaveParameter)c.Parameter))
-            .GroupBy(c => (WaveParameter)c.Parameter)
+            .GroupBy(c => c.Parameter)
             .OrderBy(g => g.Key)
             .Select(g =>
             {
-                var periods = g.Select(c => AtlasPeriod.FromCode(c.Period)).Order().Select(p => p.Name).ToArray();
+                var periods = g.Select(c => c.Period).Order().Select(p => p.Name).ToArray();
                 var statistics = StatisticsOf(g.Key).Select(s => s.Name()).ToArray();
                 double? binWidth = g.Key is WaveParameter.Dir or WaveParameter.D or WaveParameter.Depth ? null : options.BinningFor(g.Key).BinWidth;
                 return new LayerParameterItem(g.Key.Symbol(), ParameterCatalogue.LongName(g.Key), g.Key.Unit(), statistics, periods, binWidth,

@@ -19,7 +19,7 @@ public static class PointApi
     {
         var c = point.Nearest.Cell;
         // Depth and coast distance are stored as floats: written at their own precision, not their double expansion.
-        return new PointCell(c.CellId, c.Latitude, c.Longitude, c.DepthMetres is { } d ? Statistics.DataPrecisionJsonConverter.Round(d) : null,
+        return new PointCell(c.CellId, c.Latitude, c.Longitude, c.DepthMetres is { } d ? DataPrecisionJsonConverter.Round(d) : null,
             Math.Round(point.Nearest.DistanceMetres, 1), c.CoastDistanceMetres is { } k ? Math.Round(k, 1) : null);
     }
 }

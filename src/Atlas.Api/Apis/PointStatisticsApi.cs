@@ -78,9 +78,9 @@ public static class PointStatisticsApi
             return PointOutcome.Failed(ApiProblems.Unprocessable("No series in the window",
                 $"Cell {point.Nearest.Cell.CellId} of '{slug}' has no stored series{WindowText(window)}; stored years are " +
                 $"{(timelines.Count == 0 ? "none" : $"{timelines.Keys.First()}..{timelines.Keys.Last()}")}."));
-        PointAnalysisResult result;
+        ExactPointStatistics result;
         using (var decoded = PointSeriesReader.DecodeRented(chunks, timelines, point.Nearest.Cell.DepthMetres is { } d ? d : double.NaN))
-            result = PointAnalysis.Analyse(decoded.ToCellSeries(), new PointAnalysisOptions
+            result = ExactPointAnalysis.Analyse(decoded.ToCellSeries(), new ExactPointOptions
             {
                 Window = new AnalysisWindow(window.FromYear, window.ToYear, window.Months),
             }, calendars.For(decoded.Times));

@@ -54,7 +54,7 @@ public static class ScreeningApi
 
         var dataset = await catalog.FindAsync(slug, cancel);
         if (dataset is null) return ApiProblems.UnknownDataset(slug);
-        var criteria = new ScreeningCriteria((short)WaveParameter.J, (short)WaveParameter.Hs, t.Code, minPower, minDepth, maxDepth,
+        var criteria = new ScreeningCriteria(t, minPower, minDepth, maxDepth,
             maxCoast * 1000, maxHs);
         var cells = await screening.MatchingCellsAsync(dataset.Id, criteria, cancel);
         var areas = await footprints.ForAsync(dataset, cancel);

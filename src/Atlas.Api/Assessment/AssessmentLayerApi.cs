@@ -65,7 +65,7 @@ public static class AssessmentLayerApi
         if (AssessmentLayerBuilder.TimelineProblem(await catalog.TimelinesAsync(dataset, cancel)) is { } problem)
             return ApiProblems.Unprocessable("No layer for this dataset", $"Dataset '{slug}' cannot carry an assessment layer: {problem}.");
         var builder = new AssessmentLayerBuilder(dataSource, cache);
-        if (limits.TpLimitSeconds is not null && !(await builder.StoredVariablesAsync(dataset, cancel)).Contains(Storage.Series.SeriesVariable.Tp))
+        if (limits.TpLimitSeconds is not null && !(await builder.StoredVariablesAsync(dataset, cancel)).Contains(WaveParameter.Tp))
             return ApiProblems.Unprocessable("No Tp stored", $"Dataset '{slug}' stores no peak period, so a Tp limit cannot be applied; leave tp_max out.");
         var layer = await builder.AccessibilityAsync(dataset, limits, duration, cancel);
         return await RenderAsync(format, dataset, layer, $"{slug}_accessibility.{format}", cells, provenance, cancel);

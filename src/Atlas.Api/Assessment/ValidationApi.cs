@@ -71,7 +71,7 @@ public static class ValidationApi
         ProvenanceBuilder provenance, CancellationToken cancel)
     {
         var errors = new Dictionary<string, string[]>();
-        var wanted = ValidatedVariable.Hs;
+        var wanted = WaveParameter.Hs;
         if (variable is not null && !StationValidator.TryParse(variable, out wanted))
             errors["variable"] = [$"'{variable}' is not a station variable: use hs, tp, te or dir."];
         if (format is not (null or "json" or "csv")) errors["format"] = [$"'{format}' is not a pairs format: use json or csv."];
@@ -84,20 +84,20 @@ public static class ValidationApi
         if (validation is null) return ApiProblems.Unprocessable("The dataset does not cover this station", reason!);
         if (validation.Find(wanted) is not { } compared)
             return ApiProblems.Unprocessable("Variable not compared",
-                $"{StationValidator.Symbol(wanted)} is not compared at '{found.Name}': {string.Join(" ", validation.Notes)}");
+                $"{wanted.Symbol()} is not compared at '{found.Name}': {string.Join(" ", validation.Notes)}");
 
         var pairs = compared.Pairs;
         var list = new ValidationPair[pairs.Count];
         for (var i = 0; i < pairs.Count; i++) list[i] = new ValidationPair(DateTime.UnixEpoch.AddSeconds(pairs.TimesUnixSeconds[i]), pairs.Observed[i], pairs.Modelled[i]);
         var skill = ValidationReporting.Skill(validation);
         var source = await provenance.ForAsync(dataset, cancel);
-        var symbol = StationValidator.Symbol(wanted);
+        var symbol = wanted.Symbol();
         if (format == "csv") return TypedResults.File(PairsCsv(slug, skill, wanted, list, source), "text/csv; charset=utf-8", $"{slug}_{found.Slug}_{symbol}_pairs.csv");
 
         var quantiles = compared.Scalar is { } scalar
             ? scalar.Quantiles.Select(q => new QuantileRow(q.Probability, SkillRow.Finite(q.ObservedQuantile), SkillRow.Finite(q.ModelledQuantile))).ToArray()
             : [];
-        return TypedResults.Ok(new ValidationPlotData(slug, skill.Station, skill.Cell, symbol, StationValidator.UnitOf(wanted), MatchCountsRow.From(compared.Counts),
+        return TypedResults.Ok(new ValidationPlotData(slug, skill.Station, skill.Cell, symbol, wanted.Unit(), MatchCountsRow.From(compared.Counts),
             OneToOne(pairs, wanted), list, quantiles, ModelSeries(validation, wanted), source, AtlasCaution.Text));
     }
 
@@ -108,8 +108,8 @@ public static class ValidationApi
         var errors = new Dictionary<string, string[]>();
         var slugs = (datasets ?? "").Split(',', StringSplitOptions.TrimEntries | StringSplitOptions.RemoveEmptyEntries).Distinct().ToArray();
         if (slugs.Length < 2) errors["datasets"] = ["datasets needs two or more dataset slugs, comma separated (datasets=run-a,run-b)."];
-        var wanted = ValidatedVariable.Hs;
-        if (variable is not null && (!StationValidator.TryParse(variable, out wanted) || wanted == ValidatedVariable.Dir))
+        var wanted = WaveParameter.Hs;
+        if (variable is not null && (!StationValidator.TryParse(variable, out wanted) || wanted == WaveParameter.Dir))
             errors["variable"] = [$"'{variable}' cannot be ranked by scatter index: use hs, tp or te."];
         if (errors.Count > 0) return TypedResults.ValidationProblem(errors, title: "The comparison request has invalid query values");
 
@@ -120,7 +120,7 @@ public static class ValidationApi
             records.Add(record);
         }
         var stations = await service.Stations.ListAsync(cancel);
-        var symbol = StationValidator.Symbol(wanted);
+        var symbol = wanted.Symbol();
         var results = new Dictionary<(string Dataset, string Station), (SkillRow? Skill, string? Missing)>();
         foreach (var record in records)
         {
@@ -162,22 +162,22 @@ public static class ValidationApi
 
 
     /// <summary>Ends of the 1:1 line spanning the pairs (0 to the largest value; 0 to 360 for directions).</summary>
-    private static double[] OneToOne(MatchedSeries pairs, ValidatedVariable variable)
+    private static double[] OneToOne(MatchedSeries pairs, WaveParameter variable)
     {
-        if (variable == ValidatedVariable.Dir) return [0, 360];
+        if (variable == WaveParameter.Dir) return [0, 360];
         double top = 0;
         for (var i = 0; i < pairs.Count; i++) top = Math.Max(top, Math.Max(pairs.Observed[i], pairs.Modelled[i]));
         return [0, top];
     }
 
-    private static IReadOnlyList<ModelStep> ModelSeries(StationValidation validation, ValidatedVariable variable)
+    private static IReadOnlyList<ModelStep> ModelSeries(StationValidation validation, WaveParameter variable)
     {
         var model = validation.Model;
         var values = variable switch
         {
-            ValidatedVariable.Hs => model.Hs,
-            ValidatedVariable.Tp => model.Tp,
-            ValidatedVariable.Te => model.Te,
+            WaveParameter.Hs => model.Hs,
+            WaveParameter.Tp => model.Tp,
+            WaveParameter.Te => model.Te,
             _ => model.Dir,
         };
         long start = ToUnix(validation.Station.TimeStartUtc), end = ToUnix(validation.Station.TimeEndUtc);
@@ -190,14 +190,14 @@ public static class ValidationApi
 
     private static long ToUnix(DateTime utc) => (long)(utc - DateTime.UnixEpoch).TotalSeconds;
 
-    private static byte[] PairsCsv(string slug, StationSkill skill, ValidatedVariable variable, IReadOnlyList<ValidationPair> pairs, Provenance source)
+    private static byte[] PairsCsv(string slug, StationSkill skill, WaveParameter variable, IReadOnlyList<ValidationPair> pairs, Provenance source)
     {
-        var symbol = StationValidator.Symbol(variable);
+        var symbol = variable.Symbol();
         var c = CultureInfo.InvariantCulture;
         var text = new StringBuilder();
         text.Append(c, $"# matched {symbol} pairs of dataset {slug} at station {skill.Station.Name} ({skill.Station.Role}), cell {skill.Cell.Id}, {skill.Cell.DistanceM:0.#} m away\n");
         text.Append("# matching: ").Append(ValidationReporting.MatchingMethod).Append('\n');
-        text.Append(c, $"# units: time UTC (ISO 8601); observed and modelled in {StationValidator.UnitOf(variable)}\n");
+        text.Append(c, $"# units: time UTC (ISO 8601); observed and modelled in {variable.Unit()}\n");
         foreach (var line in source.HeaderLines()) text.Append(line).Append('\n');
         text.Append("time,observed,modelled\n");
         foreach (var p in pairs)

@@ -60,8 +60,8 @@ public sealed class LayerRenderer(
 
     public async Task<LayerData?> LoadAsync(DatasetRecord dataset, LayerRequest request, CancellationToken cancel)
     {
-        var values = await statistics.LayerAsync(dataset.Id, (short)request.Parameter, request.Period.Code,
-            ParameterCatalogue.Stored(request.Statistic), await catalog.CellLookupAsync(dataset, cancel), cancel: cancel);
+        var values = await statistics.LayerAsync(dataset.Id, request.Parameter, request.Period,
+            request.Statistic, await catalog.CellLookupAsync(dataset, cancel), cancel: cancel);
         // Depth is a property of the cell, not a statistic of the series: without stored rows it is the cell depth.
         if (values.Count == 0 && request.Parameter == WaveParameter.Depth && request.Statistic == StatisticKind.Mean && request.Period == AtlasPeriod.Annual)
             values = await DepthsAsync(dataset, cancel);

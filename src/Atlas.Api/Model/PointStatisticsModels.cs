@@ -24,4 +24,4 @@ public sealed record PointExceedance(ExceedanceCurve Hs, ExceedanceCurve J);
 
 /// <summary>Share of the energy flux from each direction sector over the whole window (sector 0 centred on north, clockwise).</summary>
 public sealed record PowerRose(int Sectors, double SectorWidthDegrees, IReadOnlyList<double> SectorCentresDegrees,
-    [property: System.Text.Json.Serialization.JsonConverter(typeof(Atlas.Statistics.DataPrecisionListJsonConverter))] IReadOnlyList<double> Fractions);
+    [property: System.Text.Json.Serialization.JsonConverter(typeof(DataPrecisionListJsonConverter))] IReadOnlyList<double> Fractions);

@@ -40,8 +40,4 @@ public static class ParameterCatalogue
         StatisticKind.Coverage => "coverage (valid over expected steps)",
         _ => statistic.Name(),
     };
-
-    /// <summary>The storage column of a statistic.</summary>
-    public static Storage.Statistics.StoredStatistic Stored(StatisticKind statistic) =>
-        Enum.Parse<Storage.Statistics.StoredStatistic>(statistic.ToString());
 }

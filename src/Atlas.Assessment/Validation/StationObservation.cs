@@ -21,12 +21,12 @@ public readonly record struct StationObservation(
     public bool IsFlagged => QualityFlag != 0;
 
     /// <summary>The value of one variable (NaN when absent).</summary>
-    public double ValueOf(StationVariable variable) => variable switch
+    public double ValueOf(WaveParameter variable) => variable switch
     {
-        StationVariable.Hs => HsMetres,
-        StationVariable.Tp => TpSeconds,
-        StationVariable.Te => TeSeconds,
-        StationVariable.Direction => DirectionFromDegrees,
+        WaveParameter.Hs => HsMetres,
+        WaveParameter.Tp => TpSeconds,
+        WaveParameter.Te => TeSeconds,
+        WaveParameter.Dir => DirectionFromDegrees,
         _ => throw new ArgumentOutOfRangeException(nameof(variable), variable, "Unknown station variable."),
     };
 }

@@ -32,12 +32,12 @@ public sealed class StationRecord
     public bool HasDirection { get; }
 
     /// <summary>True when the record carries <paramref name="variable"/>.</summary>
-    public bool Has(StationVariable variable) => variable switch
+    public bool Has(WaveParameter variable) => variable switch
     {
-        StationVariable.Hs => true,
-        StationVariable.Tp => HasTp,
-        StationVariable.Te => HasTe,
-        StationVariable.Direction => HasDirection,
+        WaveParameter.Hs => true,
+        WaveParameter.Tp => HasTp,
+        WaveParameter.Te => HasTe,
+        WaveParameter.Dir => HasDirection,
         _ => false,
     };
 }

@@ -40,7 +40,7 @@ public sealed class TimeMatcher
 
     /// <summary>Matches one variable of a station record; flagged rows are counted, not matched.</summary>
     /// <exception cref="ArgumentException">The record lacks the variable, or the model series is malformed.</exception>
-    public MatchedSeries Match(StationRecord record, StationVariable variable, ReadOnlySpan<long> modelTimesUnixSeconds, ReadOnlySpan<double> modelValues)
+    public MatchedSeries Match(StationRecord record, WaveParameter variable, ReadOnlySpan<long> modelTimesUnixSeconds, ReadOnlySpan<double> modelValues)
     {
         ArgumentNullException.ThrowIfNull(record);
         if (!record.Has(variable))
@@ -55,7 +55,7 @@ public sealed class TimeMatcher
             values[i] = observations[i].ValueOf(variable);
             flagged[i] = observations[i].IsFlagged;
         }
-        return Match(times, values, flagged, modelTimesUnixSeconds, modelValues, variable == StationVariable.Direction);
+        return Match(times, values, flagged, modelTimesUnixSeconds, modelValues, variable == WaveParameter.Dir);
     }
 
     /// <summary>Matches observations given as spans.</summary>

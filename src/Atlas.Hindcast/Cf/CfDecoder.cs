@@ -20,7 +20,7 @@ public enum VariableMatch
 /// <param name="UnitsOverride">Units from the mapping file that replace the variable's own.</param>
 /// <param name="Reciprocal">True for a peak frequency read as Tp = 1 / fp.</param>
 public sealed record ResolvedVariable(
-    WaveVariable Variable,
+    WaveParameter Variable,
     NetCdfVariable Source,
     VariableMatch MatchedBy,
     bool Towards,
@@ -97,31 +97,31 @@ public static class CfDecoder
     /// their absence, an ambiguous standard_name, or a mapping naming a missing or contradicting variable throws
     /// <see cref="HindcastFormatException"/> naming the file.
     /// </summary>
-    public static IReadOnlyDictionary<WaveVariable, ResolvedVariable> Resolve(NetCdfFile file, VariableMapping? mapping)
+    public static IReadOnlyDictionary<WaveParameter, ResolvedVariable> Resolve(NetCdfFile file, VariableMapping? mapping)
     {
-        var found = new Dictionary<WaveVariable, ResolvedVariable>();
-        foreach (var wave in Enum.GetValues<WaveVariable>())
+        var found = new Dictionary<WaveParameter, ResolvedVariable>();
+        foreach (var wave in WaveParameterGroups.HindcastFields)
         {
             var resolved = mapping is not null && mapping.Names.TryGetValue(wave, out var mapped)
                 ? FromMapping(file, mapping, wave, mapped)
-                : FromStandardName(file, wave, mapping, found.GetValueOrDefault(WaveVariable.Hs)?.Source);
+                : FromStandardName(file, wave, mapping, found.GetValueOrDefault(WaveParameter.Hs)?.Source);
             if (resolved is not null) found[wave] = resolved;
         }
 
-        if (!found.ContainsKey(WaveVariable.Hs))
+        if (!found.ContainsKey(WaveParameter.Hs))
             throw new HindcastFormatException(file.Path, null,
                 $"no significant wave height: no variable has standard_name '{CfStandardNames.SignificantHeight}' and Hs is required" +
-                Hint(file, WaveVariable.Hs, "hs"));
-        if (!found.ContainsKey(WaveVariable.Te) && !found.ContainsKey(WaveVariable.Tp))
+                Hint(file, WaveParameter.Hs, "hs"));
+        if (!found.ContainsKey(WaveParameter.Te) && !found.ContainsKey(WaveParameter.Tp))
             throw new HindcastFormatException(file.Path, null,
                 $"neither an energy period Te (standard_name '{CfStandardNames.EnergyPeriod}') nor a peak period Tp " +
                 $"(standard_name '{CfStandardNames.PeakPeriod}', or a peak frequency with standard_name '{CfStandardNames.PeakFrequency}') " +
                 "was found; one of them is required" +
-                OtherPeriodsNote(file) + Hint(file, WaveVariable.Te, "te") + Hint(file, WaveVariable.Tp, "tp"));
+                OtherPeriodsNote(file) + Hint(file, WaveParameter.Te, "te") + Hint(file, WaveParameter.Tp, "tp"));
         return found;
     }
 
-    private static ResolvedVariable FromMapping(NetCdfFile file, VariableMapping mapping, WaveVariable wave, string name)
+    private static ResolvedVariable FromMapping(NetCdfFile file, VariableMapping mapping, WaveParameter wave, string name)
     {
         var variable = file.FindVariable(name)
             ?? throw new HindcastFormatException(file.Path, name, $"the mapping '{mapping.Source}' names it for {wave}, but the file has no such variable");
@@ -131,18 +131,18 @@ public static class CfDecoder
             throw new HindcastFormatException(file.Path, name,
                 $"the mapping '{mapping.Source}' names it for {wave}, but its standard_name '{standardName}' says it is {identified}");
         if (standardName is not null && CfStandardNames.OtherPeriods.TryGetValue(standardName, out var other) &&
-            wave is WaveVariable.Te or WaveVariable.Tp)
+            wave is WaveParameter.Te or WaveParameter.Tp)
             throw new HindcastFormatException(file.Path, name,
                 $"the mapping '{mapping.Source}' names it for {wave}, but its standard_name '{standardName}' is {other}, which is not {wave}");
 
-        bool towards = wave == WaveVariable.Dir && (mapping.DirectionIsTowards || standardName == CfStandardNames.ToDirection);
-        if (wave == WaveVariable.Dir && mapping.DirectionIsTowards && standardName == CfStandardNames.FromDirection)
+        bool towards = wave == WaveParameter.Dir && (mapping.DirectionIsTowards || standardName == CfStandardNames.ToDirection);
+        if (wave == WaveParameter.Dir && mapping.DirectionIsTowards && standardName == CfStandardNames.FromDirection)
             throw new HindcastFormatException(file.Path, name,
                 $"the mapping '{mapping.Source}' calls it a to-direction (dir_to), but its standard_name is '{standardName}'");
-        bool positiveUp = wave == WaveVariable.Depth && (mapping.DepthPositiveUp ?? IsPositiveUp(variable));
+        bool positiveUp = wave == WaveParameter.Depth && (mapping.DepthPositiveUp ?? IsPositiveUp(variable));
         mapping.Units.TryGetValue(wave, out var units);
         return new ResolvedVariable(wave, variable, VariableMatch.Mapping, towards, positiveUp, units,
-            Reciprocal: wave == WaveVariable.Tp && IsFrequency(variable, units));
+            Reciprocal: wave == WaveParameter.Tp && IsFrequency(variable, units));
     }
 
     /// <summary>
@@ -153,14 +153,14 @@ public static class CfDecoder
         CfStandardNames.PeakFrequencies.Contains(variable.TextAttribute("standard_name") ?? "") ||
         UnitConversion.TryToSi(unitsOverride ?? variable.TextAttribute("units"), PhysicalQuantity.Frequency, out _);
 
-    private static ResolvedVariable? FromStandardName(NetCdfFile file, WaveVariable wave, VariableMapping? mapping, NetCdfVariable? hs)
+    private static ResolvedVariable? FromStandardName(NetCdfFile file, WaveParameter wave, VariableMapping? mapping, NetCdfVariable? hs)
     {
         var names = CfStandardNames.For(wave);
         var candidates = file.Variables
             .Where(v => names.Contains(v.TextAttribute("standard_name") ?? "") && !IsCoordinateVariable(v))
             .ToList();
         var matchedBy = VariableMatch.StandardName;
-        if (wave == WaveVariable.Depth)
+        if (wave == WaveParameter.Depth)
         {
             // The sea-floor and elevation names say what they are; the plain CF "depth" (also a vertical coordinate or
             // the depth of a sensor) counts only as a horizontal field like Hs, and only when no sea-floor name is present.
@@ -172,13 +172,13 @@ public static class CfDecoder
                 matchedBy = VariableMatch.Name;
             }
         }
-        if (wave == WaveVariable.Depth && candidates.Count > 1)
+        if (wave == WaveParameter.Depth && candidates.Count > 1)
         {
             // A bathymetry given both ways: the depth (positive down) is the one CF defines for the purpose.
             var down = candidates.Where(v => !IsPositiveUp(v)).ToList();
             if (down.Count > 0) candidates = down;
         }
-        if (wave == WaveVariable.Tp && candidates.Count > 1)
+        if (wave == WaveParameter.Tp && candidates.Count > 1)
         {
             // A file with both a peak period and a peak frequency: the period is used as written.
             var periods = candidates.Where(v => v.TextAttribute("standard_name") == CfStandardNames.PeakPeriod).ToList();
@@ -194,9 +194,9 @@ public static class CfDecoder
         mapping?.Units.TryGetValue(wave, out units);
         return new ResolvedVariable(wave, variable, matchedBy,
             Towards: variable.TextAttribute("standard_name") == CfStandardNames.ToDirection,
-            PositiveUp: wave == WaveVariable.Depth && (mapping?.DepthPositiveUp ?? IsPositiveUp(variable)),
+            PositiveUp: wave == WaveParameter.Depth && (mapping?.DepthPositiveUp ?? IsPositiveUp(variable)),
             UnitsOverride: units,
-            Reciprocal: wave == WaveVariable.Tp && IsFrequency(variable, units));
+            Reciprocal: wave == WaveParameter.Tp && IsFrequency(variable, units));
     }
 
     /// <summary>
@@ -207,7 +207,7 @@ public static class CfDecoder
     private static List<NetCdfVariable> ByWaterDepthName(NetCdfFile file, NetCdfVariable hs, VariableMapping? mapping)
     {
         string? unitsOverride = null;
-        mapping?.Units.TryGetValue(WaveVariable.Depth, out unitsOverride);
+        mapping?.Units.TryGetValue(WaveParameter.Depth, out unitsOverride);
         return file.Variables.Where(v =>
                 CfStandardNames.WaterDepthNames.Contains(v.Name, StringComparer.OrdinalIgnoreCase) &&
                 v.TextAttribute("standard_name") is null or CfStandardNames.Depth &&
@@ -226,7 +226,7 @@ public static class CfDecoder
         foreach (var v in file.Variables)
         {
             if (!CfStandardNames.WaterDepthNames.Contains(v.Name, StringComparer.OrdinalIgnoreCase) || IsCoordinateVariable(v)) continue;
-            if (CfStandardNames.Identify(v.TextAttribute("standard_name")) is { } other && other != WaveVariable.Depth) continue;
+            if (CfStandardNames.Identify(v.TextAttribute("standard_name")) is { } other && other != WaveParameter.Depth) continue;
             bool onGrid = hs is null || IsHorizontalField(v, hs);
             string? units = v.TextAttribute("units");
             string reason = !onGrid ? "it is not a horizontal field like Hs"
@@ -267,7 +267,7 @@ public static class CfDecoder
 
     private static bool IsCoordinateVariable(NetCdfVariable v) => v.Rank == 1 && v.Dimensions[0].Name == v.Name;
 
-    private static string Hint(NetCdfFile file, WaveVariable wave, string key)
+    private static string Hint(NetCdfFile file, WaveParameter wave, string key)
     {
         var hints = CfStandardNames.NameHints(wave);
         var lookalike = file.Variables.FirstOrDefault(v =>

@@ -72,41 +72,41 @@ public static class CfStandardNames
     };
 
     /// <summary>The standard names accepted for <paramref name="variable"/>.</summary>
-    public static IReadOnlyList<string> For(WaveVariable variable) => variable switch
+    public static IReadOnlyList<string> For(WaveParameter variable) => variable switch
     {
-        WaveVariable.Hs => [SignificantHeight],
-        WaveVariable.Te => [EnergyPeriod],
-        WaveVariable.Tp => [PeakPeriod, .. PeakFrequencies],
-        WaveVariable.Dir => [FromDirection, ToDirection],
-        WaveVariable.Spread => [DirectionalSpread],
+        WaveParameter.Hs => [SignificantHeight],
+        WaveParameter.Te => [EnergyPeriod],
+        WaveParameter.Tp => [PeakPeriod, .. PeakFrequencies],
+        WaveParameter.Dir => [FromDirection, ToDirection],
+        WaveParameter.Spread => [DirectionalSpread],
         _ => [.. DepthPositiveDown, .. ElevationPositiveUp, Depth],
     };
 
     /// <summary>The wave variable a standard name identifies, or null.</summary>
-    public static WaveVariable? Identify(string? standardName)
+    public static WaveParameter? Identify(string? standardName)
     {
         if (string.IsNullOrEmpty(standardName)) return null;
-        foreach (var v in Enum.GetValues<WaveVariable>())
+        foreach (var v in WaveParameterGroups.HindcastFields)
             if (For(v).Contains(standardName)) return v;
         return null;
     }
 
     /// <summary>Conventional names that suggest a variable in error hints only; they are never matched silently.</summary>
-    internal static IReadOnlyList<string> NameHints(WaveVariable variable) => variable switch
+    internal static IReadOnlyList<string> NameHints(WaveParameter variable) => variable switch
     {
-        WaveVariable.Hs => ["hs", "swh", "hm0", "vhm0", "hsig", "hsign"],
-        WaveVariable.Te => ["te", "tm10", "tm_10", "tmm10", "t0m1", "vtm10"],
-        WaveVariable.Tp => ["tp", "tpeak", "vtpk", "tpk", "fp", "fpeak"],
-        WaveVariable.Dir => ["dir", "mwd", "vmdr", "dirm", "mdir", "theta"],
-        WaveVariable.Spread => ["spr", "dspr", "spread", "vspr"],
+        WaveParameter.Hs => ["hs", "swh", "hm0", "vhm0", "hsig", "hsign"],
+        WaveParameter.Te => ["te", "tm10", "tm_10", "tmm10", "t0m1", "vtm10"],
+        WaveParameter.Tp => ["tp", "tpeak", "vtpk", "tpk", "fp", "fpeak"],
+        WaveParameter.Dir => ["dir", "mwd", "vmdr", "dirm", "mdir", "theta"],
+        WaveParameter.Spread => ["spr", "dspr", "spread", "vspr"],
         _ => ["depth", "dpt", "bathymetry", "deptho", "wdepth"],
     };
 
     /// <summary>The quantity a wave variable carries.</summary>
-    public static PhysicalQuantity QuantityOf(WaveVariable variable) => variable switch
+    public static PhysicalQuantity QuantityOf(WaveParameter variable) => variable switch
     {
-        WaveVariable.Hs or WaveVariable.Depth => PhysicalQuantity.Length,
-        WaveVariable.Te or WaveVariable.Tp => PhysicalQuantity.Time,
+        WaveParameter.Hs or WaveParameter.Depth => PhysicalQuantity.Length,
+        WaveParameter.Te or WaveParameter.Tp => PhysicalQuantity.Time,
         _ => PhysicalQuantity.Angle,
     };
 }

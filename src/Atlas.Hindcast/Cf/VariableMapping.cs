@@ -16,27 +16,27 @@ namespace Atlas.Hindcast;
 /// </summary>
 public sealed class VariableMapping
 {
-    private static readonly Dictionary<string, WaveVariable> Keys = new(StringComparer.Ordinal)
+    private static readonly Dictionary<string, WaveParameter> Keys = new(StringComparer.Ordinal)
     {
-        ["hs"] = WaveVariable.Hs,
-        ["te"] = WaveVariable.Te,
-        ["tp"] = WaveVariable.Tp,
-        ["dir"] = WaveVariable.Dir,
-        ["dir_to"] = WaveVariable.Dir,
-        ["spread"] = WaveVariable.Spread,
-        ["depth"] = WaveVariable.Depth,
+        ["hs"] = WaveParameter.Hs,
+        ["te"] = WaveParameter.Te,
+        ["tp"] = WaveParameter.Tp,
+        ["dir"] = WaveParameter.Dir,
+        ["dir_to"] = WaveParameter.Dir,
+        ["spread"] = WaveParameter.Spread,
+        ["depth"] = WaveParameter.Depth,
     };
 
     public VariableMapping(
-        IReadOnlyDictionary<WaveVariable, string> names,
-        IReadOnlyDictionary<WaveVariable, string>? units = null,
+        IReadOnlyDictionary<WaveParameter, string> names,
+        IReadOnlyDictionary<WaveParameter, string>? units = null,
         bool directionIsTowards = false,
         bool? depthPositiveUp = null,
         string? timeVariable = null,
         string source = "variable mapping")
     {
         Names = names;
-        Units = units ?? new Dictionary<WaveVariable, string>();
+        Units = units ?? new Dictionary<WaveParameter, string>();
         DirectionIsTowards = directionIsTowards;
         DepthPositiveUp = depthPositiveUp;
         TimeVariable = timeVariable;
@@ -44,10 +44,10 @@ public sealed class VariableMapping
     }
 
     /// <summary>Variable name in the file for each mapped wave variable.</summary>
-    public IReadOnlyDictionary<WaveVariable, string> Names { get; }
+    public IReadOnlyDictionary<WaveParameter, string> Names { get; }
 
     /// <summary>Units strings that replace (or supply missing) units attributes.</summary>
-    public IReadOnlyDictionary<WaveVariable, string> Units { get; }
+    public IReadOnlyDictionary<WaveParameter, string> Units { get; }
 
     /// <summary>True when the mapped direction is the direction the waves travel to ("dir_to").</summary>
     public bool DirectionIsTowards { get; }
@@ -79,8 +79,8 @@ public sealed class VariableMapping
         {
             if (document.RootElement.ValueKind != JsonValueKind.Object)
                 throw new HindcastFormatException(source, null, "a variable mapping must be a JSON object");
-            var names = new Dictionary<WaveVariable, string>();
-            var units = new Dictionary<WaveVariable, string>();
+            var names = new Dictionary<WaveParameter, string>();
+            var units = new Dictionary<WaveParameter, string>();
             bool towards = false;
             bool? positiveUp = null;
             string? time = null;

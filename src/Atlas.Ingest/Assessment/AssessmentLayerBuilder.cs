@@ -44,9 +44,9 @@ public sealed class AssessmentLayerBuilder(NpgsqlDataSource dataSource, LayerCac
         return CachedAsync(dataset, key, async () =>
         {
             var stored = await StoredVariablesAsync(dataset, cancel);
-            var wanted = device.AxisKind == DeviceAxisKind.Te ? SeriesVariable.Te : SeriesVariable.Tp;
-            var other = wanted == SeriesVariable.Te ? SeriesVariable.Tp : SeriesVariable.Te;
-            SeriesVariable[] variables = stored.Contains(wanted) || !stored.Contains(other) ? [SeriesVariable.Hs, wanted] : [SeriesVariable.Hs, other];
+            var wanted = device.AxisKind == DeviceAxisKind.Te ? WaveParameter.Te : WaveParameter.Tp;
+            var other = wanted == WaveParameter.Te ? WaveParameter.Tp : WaveParameter.Te;
+            WaveParameter[] variables = stored.Contains(wanted) || !stored.Contains(other) ? [WaveParameter.Hs, wanted] : [WaveParameter.Hs, other];
             var (ids, rows) = await ComputeAsync(dataset, variables, 4, (hs, te, tp, output) =>
             {
                 var period = device.AxisKind == DeviceAxisKind.Te ? te ?? Convert(tp, p => PeriodConversion.EnergyPeriodFromPeakPeriod(p))
@@ -75,7 +75,7 @@ public sealed class AssessmentLayerBuilder(NpgsqlDataSource dataSource, LayerCac
         var key = FormattableString.Invariant($"assessment/accessibility/hs{limits.HsLimitMetres:R}-tp{limits.TpLimitSeconds:R}-h{requiredHours:R}");
         return CachedAsync(dataset, key, async () =>
         {
-            var variables = limits.TpLimitSeconds is null ? new[] { SeriesVariable.Hs } : [SeriesVariable.Hs, SeriesVariable.Tp];
+            var variables = limits.TpLimitSeconds is null ? new[] { WaveParameter.Hs } : [WaveParameter.Hs, WaveParameter.Tp];
             var (ids, rows) = await ComputeAsync(dataset, variables, requiredHours is null ? 1 : 2, (hs, _, tp, output) =>
             {
                 if (limits.TpLimitSeconds is not null && tp is null) { Array.Fill(output, double.NaN); return; }
@@ -120,7 +120,7 @@ public sealed class AssessmentLayerBuilder(NpgsqlDataSource dataSource, LayerCac
     private delegate void CellAnalysis(RegularSeries hs, RegularSeries? te, RegularSeries? tp, double[] output);
 
     /// <summary>Runs <paramref name="analyse"/> on every wet cell with its Hs, Te and Tp (null where not stored).</summary>
-    private async Task<(int[] CellIds, double[][] Rows)> ComputeAsync(DatasetRecord dataset, SeriesVariable[] variables, int columns, CellAnalysis analyse,
+    private async Task<(int[] CellIds, double[][] Rows)> ComputeAsync(DatasetRecord dataset, WaveParameter[] variables, int columns, CellAnalysis analyse,
         CancellationToken cancel)
     {
         var timelines = await new DatasetStore(dataSource).TimelinesAsync(dataset.Id, cancel);
@@ -141,7 +141,7 @@ public sealed class AssessmentLayerBuilder(NpgsqlDataSource dataSource, LayerCac
         var pending = new List<(int CellId, RegularSeries Hs, RegularSeries? Te, RegularSeries? Tp)>(CellsPerBatch);
         var current = -1;
 
-        RegularSeries? Series(SeriesVariable v)
+        RegularSeries? Series(WaveParameter v)
         {
             var k = Array.IndexOf(variables, v);
             if (k < 0 || !present[k]) return null;
@@ -170,8 +170,8 @@ public sealed class AssessmentLayerBuilder(NpgsqlDataSource dataSource, LayerCac
 
         void Finish()
         {
-            if (current < 0 || !wet.Contains(current) || Series(SeriesVariable.Hs) is not { } hs) return;
-            pending.Add((current, hs, Series(SeriesVariable.Te), Series(SeriesVariable.Tp)));
+            if (current < 0 || !wet.Contains(current) || Series(WaveParameter.Hs) is not { } hs) return;
+            pending.Add((current, hs, Series(WaveParameter.Te), Series(WaveParameter.Tp)));
             if (pending.Count == CellsPerBatch) Analyse();
         }
 
@@ -197,10 +197,10 @@ public sealed class AssessmentLayerBuilder(NpgsqlDataSource dataSource, LayerCac
     private const int CellsPerBatch = 256;
 
     /// <summary>The variables the dataset's chunks hold, judged by the first stored chunk (an ingest writes the same variables for every cell).</summary>
-    public async Task<HashSet<SeriesVariable>> StoredVariablesAsync(DatasetRecord dataset, CancellationToken cancel)
+    public async Task<HashSet<WaveParameter>> StoredVariablesAsync(DatasetRecord dataset, CancellationToken cancel)
     {
         var chunks = await new SeriesStore(dataSource).ReadCellAsync(dataset.Id, await FirstWetCellAsync(dataset, cancel), cancel: cancel);
-        return chunks.Count == 0 ? [] : [.. Enum.GetValues<SeriesVariable>().Where(v => SeriesCodec.Has(chunks[0].Payload, v))];
+        return chunks.Count == 0 ? [] : [.. WaveParameterGroups.SeriesFields.Where(v => SeriesCodec.Has(chunks[0].Payload, v))];
     }
 
     private async Task<int> FirstWetCellAsync(DatasetRecord dataset, CancellationToken cancel)

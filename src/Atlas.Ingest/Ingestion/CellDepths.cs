@@ -59,12 +59,12 @@ public sealed class CellDepths
         bool timeVarying = false;
         foreach (var file in files)
         {
-            if (!file.Has(WaveVariable.Depth)) continue;
+            if (!file.Has(WaveParameter.Depth)) continue;
             var field = file.File.ReadDepthField();
             file.Release();
             sum ??= new double[field.Metres.Length];
             valid ??= new int[field.Metres.Length];
-            variable ??= file.Sources[WaveVariable.Depth].Name;
+            variable ??= file.Sources[WaveParameter.Depth].Name;
             fileName ??= file.Name;
             steps += field.Steps;
             timeVarying |= field.TimeVarying;

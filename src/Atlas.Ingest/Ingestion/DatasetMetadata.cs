@@ -15,7 +15,7 @@ public static class DatasetMetadata
         IReadOnlyList<VariableAssumption>? assumptions = null, IReadOnlyList<string>? warnings = null)
     {
         var variables = new JsonObject();
-        foreach (SeriesVariable v in Enum.GetValues<SeriesVariable>())
+        foreach (WaveParameter v in WaveParameterGroups.SeriesFields)
         {
             if ((mask & (1 << (int)v)) == 0) continue;
             variables[Symbol(v)] = new JsonObject
@@ -46,12 +46,12 @@ public static class DatasetMetadata
         return json.ToJsonString();
     }
 
-    public static string Symbol(SeriesVariable variable) => variable switch
+    public static string Symbol(WaveParameter variable) => variable switch
     {
-        SeriesVariable.Hs => "hs",
-        SeriesVariable.Te => "te",
-        SeriesVariable.Tp => "tp",
-        SeriesVariable.Dir => "dir",
+        WaveParameter.Hs => "hs",
+        WaveParameter.Te => "te",
+        WaveParameter.Tp => "tp",
+        WaveParameter.Dir => "dir",
         _ => "spread",
     };
 }

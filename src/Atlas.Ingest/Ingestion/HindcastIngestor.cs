@@ -21,10 +21,10 @@ namespace Atlas.Ingest.Ingestion;
 /// </summary>
 public sealed class HindcastIngestor(NpgsqlDataSource dataSource)
 {
-    private static readonly (WaveVariable Source, SeriesVariable Target)[] Stored =
+    private static readonly (WaveParameter Source, WaveParameter Target)[] Stored =
     [
-        (WaveVariable.Hs, SeriesVariable.Hs), (WaveVariable.Te, SeriesVariable.Te), (WaveVariable.Tp, SeriesVariable.Tp),
-        (WaveVariable.Dir, SeriesVariable.Dir), (WaveVariable.Spread, SeriesVariable.Spread),
+        (WaveParameter.Hs, WaveParameter.Hs), (WaveParameter.Te, WaveParameter.Te), (WaveParameter.Tp, WaveParameter.Tp),
+        (WaveParameter.Dir, WaveParameter.Dir), (WaveParameter.Spread, WaveParameter.Spread),
     ];
 
     /// <summary>Time steps read per hyperslab (bounded further by the float buffer size).</summary>
@@ -258,18 +258,18 @@ public sealed class HindcastIngestor(NpgsqlDataSource dataSource)
     /// source gave (stored, or an earlier file) the value already in the payload is compared with the new one and a
     /// difference recorded; the new value is written either way (equal, or the load is refused at its end).
     /// </summary>
-    private static void Scatter(SourceFile file, WaveVariable source, SeriesVariable target, float[] buffer, int steps, int count, int p0,
+    private static void Scatter(SourceFile file, WaveParameter source, WaveParameter target, float[] buffer, int steps, int count, int p0,
         int fileStep0, int positionOffset, int[] positions, int mask, int stepCount, byte[][] payloads, bool[] hasData, bool[] candidate,
         SharedStepContext shared)
     {
         var offset = SeriesCodec.OffsetOf(mask, stepCount, target);
-        var isHs = target == SeriesVariable.Hs;
+        var isHs = target == WaveParameter.Hs;
         for (var s = 0; s < steps; s++)
         {
             var at = offset + 2 * positions[positionOffset + s];
             var row = s * count;
             var holder = shared.Steps.HolderOf(shared.File, positionOffset + s);
-            var compare = holder != SharedSteps.None && (shared.Steps.HolderMaskOf(shared.File, positionOffset + s) & (1 << (int)target)) != 0;
+            var compare = holder != SharedSteps.None && (shared.Steps.HolderMaskOf(shared.File, positionOffset + s) & (SeriesCodec.BitOf(target))) != 0;
             for (var c = 0; c < count; c++)
             {
                 var value = buffer[row + c];
@@ -305,7 +305,7 @@ public sealed class HindcastIngestor(NpgsqlDataSource dataSource)
             var oldSteps = SeriesCodec.StepCountOf(payload);
             for (var v = 0; v < SeriesCodec.VariableCount; v++)
             {
-                var variable = (SeriesVariable)v;
+                var variable = WaveParameterGroups.SeriesFields[v];
                 if (!SeriesCodec.Has(payload, variable) || !SeriesCodec.Has(target, variable)) continue;
                 var from = SeriesCodec.OffsetOf(payload[1], oldSteps, variable);
                 var to = SeriesCodec.OffsetOf(target[1], timeline.Length, variable);
@@ -365,7 +365,7 @@ public sealed class HindcastIngestor(NpgsqlDataSource dataSource)
     {
         var mask = 0;
         foreach (var (source, target) in Stored)
-            if (file.Has(source)) mask |= 1 << (int)target;
+            if (file.Has(source)) mask |= SeriesCodec.BitOf(target);
         return mask;
     }
 

@@ -13,10 +13,10 @@ namespace Atlas.Ingest.Ingestion;
 /// </summary>
 public static class IngestAssumptions
 {
-    private static readonly (WaveVariable Variable, string Symbol)[] Order =
+    private static readonly (WaveParameter Variable, string Symbol)[] Order =
     [
-        (WaveVariable.Hs, "hs"), (WaveVariable.Te, "te"), (WaveVariable.Tp, "tp"),
-        (WaveVariable.Dir, "dir"), (WaveVariable.Spread, "spread"), (WaveVariable.Depth, "depth"),
+        (WaveParameter.Hs, "hs"), (WaveParameter.Te, "te"), (WaveParameter.Tp, "tp"),
+        (WaveParameter.Dir, "dir"), (WaveParameter.Spread, "spread"), (WaveParameter.Depth, "depth"),
     ];
 
     /// <summary>
@@ -31,7 +31,7 @@ public static class IngestAssumptions
         var list = new List<VariableAssumption>();
         foreach (var (variable, symbol) in Order)
         {
-            if (variable == WaveVariable.Depth)
+            if (variable == WaveParameter.Depth)
             {
                 list.Add(deepWaterCells is null && StoredEntry(storedMetadataJson, "depth") is { } kept ? kept : Depth(files, depths, deepWaterCells));
                 continue;
@@ -78,7 +78,7 @@ public static class IngestAssumptions
         const string Kept = "the cells keep the depths stored when the dataset was first loaded (deep water where none was stored)";
         if (depths is not null)
         {
-            var source = files.First(f => f.Has(WaveVariable.Depth)).Sources[WaveVariable.Depth];
+            var source = files.First(f => f.Has(WaveParameter.Depth)).Sources[WaveParameter.Depth];
             var conversion = source.Conversion == "none" ? depths.Describe() : $"{depths.Describe()}; {source.Conversion}";
             var assumed = deepWaterCells switch
             {
@@ -99,13 +99,13 @@ public static class IngestAssumptions
     }
 
     /// <summary>What the statistics do without the variable, stated as they do it.</summary>
-    private static string Missing(WaveVariable variable, IReadOnlyList<SourceFile> files) => variable switch
+    private static string Missing(WaveParameter variable, IReadOnlyList<SourceFile> files) => variable switch
     {
-        WaveVariable.Te when files.Any(f => f.Has(WaveVariable.Tp)) => AssumedEnergyPeriod(),
-        WaveVariable.Te => "no Te and no power",
-        WaveVariable.Tp => "no Tp statistics",
-        WaveVariable.Dir => "no direction statistics and no directionality coefficient (it needs each step's direction)",
-        WaveVariable.Spread => "no spread statistics and no directionality coefficient (each step's spreading is modelled from its spread)",
+        WaveParameter.Te when files.Any(f => f.Has(WaveParameter.Tp)) => AssumedEnergyPeriod(),
+        WaveParameter.Te => "no Te and no power",
+        WaveParameter.Tp => "no Tp statistics",
+        WaveParameter.Dir => "no direction statistics and no directionality coefficient (it needs each step's direction)",
+        WaveParameter.Spread => "no spread statistics and no directionality coefficient (each step's spreading is modelled from its spread)",
         _ => "none",
     };
 

@@ -5,10 +5,10 @@ namespace Atlas.Ingest.Ingestion;
 /// <summary>The SI unit each stored series variable is held in.</summary>
 public static class SeriesUnits
 {
-    public static string Of(SeriesVariable variable) => variable switch
+    public static string Of(WaveParameter variable) => variable switch
     {
-        SeriesVariable.Hs => "m",
-        SeriesVariable.Te or SeriesVariable.Tp => "s",
+        WaveParameter.Hs => "m",
+        WaveParameter.Te or WaveParameter.Tp => "s",
         _ => "degree",
     };
 }

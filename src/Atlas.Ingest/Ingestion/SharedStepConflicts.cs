@@ -11,7 +11,7 @@ public sealed class SharedStepConflicts
 {
     private int _count;
     private double _largest = -1;
-    private (string File, string Holder, long Time, SeriesVariable Variable, int Cell, double Old, double New) _worst;
+    private (string File, string Holder, long Time, WaveParameter Variable, int Cell, double Old, double New) _worst;
 
     public bool Any => _count > 0;
 
@@ -20,14 +20,14 @@ public sealed class SharedStepConflicts
     /// <paramref name="old"/> (quantised values; <see cref="SeriesCodec.Missing"/> for a missing value). A value against a
     /// missing one counts as the largest kind of difference.
     /// </summary>
-    public void Record(string file, string holder, long time, SeriesVariable variable, ushort old, ushort fresh, int cell)
+    public void Record(string file, string holder, long time, WaveParameter variable, ushort old, ushort fresh, int cell)
     {
         _count++;
         var step = SeriesCodec.StepOf(variable);
         double a = old == SeriesCodec.Missing ? double.NaN : old * step, b = fresh == SeriesCodec.Missing ? double.NaN : fresh * step;
         double difference = double.IsNaN(a) || double.IsNaN(b) ? double.PositiveInfinity : Math.Abs(a - b);
         // Directions differ by the shorter way round (359.99 and 0.01 degree are 0.02 apart).
-        if (variable == SeriesVariable.Dir && difference > 180) difference = 360 - difference;
+        if (variable == WaveParameter.Dir && difference > 180) difference = 360 - difference;
         if (difference > _largest) (_largest, _worst) = (difference, (file, holder, time, variable, cell, a, b));
     }
 

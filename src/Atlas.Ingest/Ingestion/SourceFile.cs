@@ -14,7 +14,7 @@ public sealed class SourceFile : IDisposable
     {
         Attributes = attributes;
         DepthLookalike = depthLookalike;
-        Sources = Enum.GetValues<WaveVariable>().Where(file.Has).ToDictionary(v => v, v =>
+        Sources = WaveParameterGroups.HindcastFields.Where(file.Has).ToDictionary(v => v, v =>
         {
             var resolved = file.Source(v)!;
             return new VariableSource(resolved.Name, resolved.HowFound, resolved.DescribeConversion(file.DecoderOf(v)!));
@@ -23,7 +23,7 @@ public sealed class SourceFile : IDisposable
         _mapping = mapping;
         Path = file.Path;
         Grid = file.Grid;
-        Variables = Enum.GetValues<WaveVariable>().Where(file.Has).ToHashSet();
+        Variables = WaveParameterGroups.HindcastFields.Where(file.Has).ToHashSet();
         Sha256 = sha256;
         SizeBytes = sizeBytes;
         Times = file.TimesUtc.Select(t => new DateTimeOffset(DateTime.SpecifyKind(t, DateTimeKind.Utc)).ToUnixTimeSeconds()).ToArray();
@@ -37,8 +37,8 @@ public sealed class SourceFile : IDisposable
 
     public string Path { get; }
     public HindcastGrid Grid { get; }
-    public IReadOnlySet<WaveVariable> Variables { get; }
-    public bool Has(WaveVariable variable) => Variables.Contains(variable);
+    public IReadOnlySet<WaveParameter> Variables { get; }
+    public bool Has(WaveParameter variable) => Variables.Contains(variable);
     public string Name => System.IO.Path.GetFileName(Path);
     public string Sha256 { get; }
     public long SizeBytes { get; }
@@ -50,7 +50,7 @@ public sealed class SourceFile : IDisposable
     public string? Attribute(string name) => Attributes.GetValueOrDefault(name);
 
     /// <summary>The file variable behind each wave variable the file has, how it was found and how it is converted.</summary>
-    public IReadOnlyDictionary<WaveVariable, VariableSource> Sources { get; }
+    public IReadOnlyDictionary<WaveParameter, VariableSource> Sources { get; }
 
     /// <summary>A variable named like the water depth that was not taken for it, and why; null when there is none.</summary>
     public DepthLookalike? DepthLookalike { get; }
@@ -68,7 +68,7 @@ public sealed class SourceFile : IDisposable
         using (var raw = NetCdfFile.Open(path))
         {
             attributes = raw.GlobalAttributes.Where(a => a.IsText).ToDictionary(a => a.Name, a => a.Text!, StringComparer.OrdinalIgnoreCase);
-            if (!file.Has(WaveVariable.Depth)) lookalike = CfDecoder.WaterDepthLookalike(raw);
+            if (!file.Has(WaveParameter.Depth)) lookalike = CfDecoder.WaterDepthLookalike(raw);
         }
         if (file.TimesUtc.Count == 0)
         {

@@ -55,8 +55,8 @@ public static class PointSeriesReader
         var variables = new float[SeriesCodec.VariableCount][];
         for (var v = 0; v < variables.Length; v++)
         {
-            var variable = (SeriesVariable)v;
-            variables[v] = variable == SeriesVariable.Hs || usable.Any(c => SeriesCodec.Has(c.Payload, variable)) ? ArrayPool<float>.Shared.Rent(total) : [];
+            var variable = WaveParameterGroups.SeriesFields[v];
+            variables[v] = variable == WaveParameter.Hs || usable.Any(c => SeriesCodec.Has(c.Payload, variable)) ? ArrayPool<float>.Shared.Rent(total) : [];
         }
         var offset = 0;
         foreach (var chunk in usable)
@@ -64,7 +64,7 @@ public static class PointSeriesReader
             var n = SeriesCodec.StepCountOf(chunk.Payload);
             timelines[chunk.Year].CopyTo(times, offset);
             for (var v = 0; v < variables.Length; v++)
-                if (variables[v].Length > 0) SeriesCodec.Decode(chunk.Payload, (SeriesVariable)v, variables[v].AsSpan(offset, n));
+                if (variables[v].Length > 0) SeriesCodec.Decode(chunk.Payload, WaveParameterGroups.SeriesFields[v], variables[v].AsSpan(offset, n));
             offset += n;
         }
         return new RentedPointSeries(times, variables, total, depthMetres > 0 ? depthMetres : double.NaN);
@@ -85,11 +85,11 @@ public static class PointSeriesReader
         {
             var n = SeriesCodec.StepCountOf(chunk.Payload);
             timelines[chunk.Year].CopyTo(times, offset);
-            SeriesCodec.Decode(chunk.Payload, SeriesVariable.Hs, hs.AsSpan(offset, n));
-            hasTe |= SeriesCodec.Decode(chunk.Payload, SeriesVariable.Te, te.AsSpan(offset, n));
-            hasTp |= SeriesCodec.Decode(chunk.Payload, SeriesVariable.Tp, tp.AsSpan(offset, n));
-            hasDir |= SeriesCodec.Decode(chunk.Payload, SeriesVariable.Dir, dir.AsSpan(offset, n));
-            hasSpread |= SeriesCodec.Decode(chunk.Payload, SeriesVariable.Spread, spread.AsSpan(offset, n));
+            SeriesCodec.Decode(chunk.Payload, WaveParameter.Hs, hs.AsSpan(offset, n));
+            hasTe |= SeriesCodec.Decode(chunk.Payload, WaveParameter.Te, te.AsSpan(offset, n));
+            hasTp |= SeriesCodec.Decode(chunk.Payload, WaveParameter.Tp, tp.AsSpan(offset, n));
+            hasDir |= SeriesCodec.Decode(chunk.Payload, WaveParameter.Dir, dir.AsSpan(offset, n));
+            hasSpread |= SeriesCodec.Decode(chunk.Payload, WaveParameter.Spread, spread.AsSpan(offset, n));
             offset += n;
         }
         var depth = depthMetres > 0 ? depthMetres : double.NaN;

@@ -29,17 +29,17 @@ public sealed class RentedPointSeries : IDisposable
     public double DepthMetres { get; }
 
     /// <summary>The values of a variable; empty when no chunk holds it.</summary>
-    public ReadOnlySpan<float> Values(SeriesVariable variable) => _variables[(int)variable] is { Length: > 0 } v ? v.AsSpan(0, _length) : [];
+    public ReadOnlySpan<float> Values(WaveParameter variable) => WaveParameterGroups.SeriesIndex(variable) is >= 0 and var k && _variables[k] is { Length: > 0 } v ? v.AsSpan(0, _length) : [];
 
     /// <summary>The series as the statistics library takes it: absent variables as empty spans.</summary>
     public CellSeries ToCellSeries() => new()
     {
         Times = Times,
-        Hs = Values(SeriesVariable.Hs),
-        Te = Values(SeriesVariable.Te),
-        Tp = Values(SeriesVariable.Tp),
-        Dir = Values(SeriesVariable.Dir),
-        Spread = Values(SeriesVariable.Spread),
+        Hs = Values(WaveParameter.Hs),
+        Te = Values(WaveParameter.Te),
+        Tp = Values(WaveParameter.Tp),
+        Dir = Values(WaveParameter.Dir),
+        Spread = Values(WaveParameter.Spread),
         DepthMetres = DepthMetres,
     };
 

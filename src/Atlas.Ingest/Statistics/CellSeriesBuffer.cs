@@ -41,18 +41,18 @@ public sealed class CellSeriesBuffer
         if (steps != place.Count)
             throw new InvalidDataException($"Cell {CellId}, year {year}: the chunk has {steps} steps but the year's time line has {place.Count}.");
         for (var v = 0; v < SeriesCodec.VariableCount; v++)
-            if (SeriesCodec.Decode(payload, (SeriesVariable)v, _values[v].AsSpan(place.Offset, steps)))
+            if (SeriesCodec.Decode(payload, WaveParameterGroups.SeriesFields[v], _values[v].AsSpan(place.Offset, steps)))
                 _present[v] = true;
     }
 
     public CellSeries AsSeries(long[] times) => new()
     {
         Times = times,
-        Hs = _values[(int)SeriesVariable.Hs],
-        Te = _present[(int)SeriesVariable.Te] ? _values[(int)SeriesVariable.Te] : ReadOnlySpan<float>.Empty,
-        Tp = _present[(int)SeriesVariable.Tp] ? _values[(int)SeriesVariable.Tp] : ReadOnlySpan<float>.Empty,
-        Dir = _present[(int)SeriesVariable.Dir] ? _values[(int)SeriesVariable.Dir] : ReadOnlySpan<float>.Empty,
-        Spread = _present[(int)SeriesVariable.Spread] ? _values[(int)SeriesVariable.Spread] : ReadOnlySpan<float>.Empty,
+        Hs = _values[WaveParameterGroups.SeriesIndex(WaveParameter.Hs)],
+        Te = _present[WaveParameterGroups.SeriesIndex(WaveParameter.Te)] ? _values[WaveParameterGroups.SeriesIndex(WaveParameter.Te)] : ReadOnlySpan<float>.Empty,
+        Tp = _present[WaveParameterGroups.SeriesIndex(WaveParameter.Tp)] ? _values[WaveParameterGroups.SeriesIndex(WaveParameter.Tp)] : ReadOnlySpan<float>.Empty,
+        Dir = _present[WaveParameterGroups.SeriesIndex(WaveParameter.Dir)] ? _values[WaveParameterGroups.SeriesIndex(WaveParameter.Dir)] : ReadOnlySpan<float>.Empty,
+        Spread = _present[WaveParameterGroups.SeriesIndex(WaveParameter.Spread)] ? _values[WaveParameterGroups.SeriesIndex(WaveParameter.Spread)] : ReadOnlySpan<float>.Empty,
         DepthMetres = UsableDepth(DepthMetres),
     };
 

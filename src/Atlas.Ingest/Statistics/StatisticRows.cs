@@ -5,15 +5,15 @@ namespace Atlas.Ingest.Statistics;
 
 /// <summary>
 /// Flattens a cell's statistics into stored rows: one per period and parameter (hs, te, tp, j, spread, d, dir).
-/// The hs and j rows carry their exceedance fractions in <c>extra</c>; the dir row carries the power-weighted mean
-/// direction in <c>mean</c>, the circular spread of directions in <c>sd</c> and the 16-sector power rose in <c>extra</c>.
+/// The hs and j rows carry their exceedance fractions in <c>Fractions</c>; the dir row carries the power-weighted mean
+/// direction in <c>mean</c>, the circular spread of directions in <c>sd</c> and the 16-sector power rose in <c>Fractions</c>.
 /// A parameter with no valid step in the whole cell is left out.
 /// </summary>
 public static class StatisticRows
 {
     private static readonly WaveParameter[] Summarised = [WaveParameter.Hs, WaveParameter.Te, WaveParameter.Tp, WaveParameter.J, WaveParameter.Spread, WaveParameter.D];
 
-    public static void Append(int cellId, CellStatistics statistics, List<StatisticRow> rows)
+    public static void Append(int cellId, BinnedCellStatistics statistics, List<StatisticRow> rows)
     {
         var annual = statistics.Find(AtlasPeriod.Annual);
         foreach (var period in statistics.Periods)
@@ -28,12 +28,12 @@ public static class StatisticRows
                     WaveParameter.J => period.PowerExceedance.Select(e => (float)e.Fraction).ToArray(),
                     _ => null,
                 };
-                rows.Add(new StatisticRow(cellId, period.Period.Code, (short)parameter, F(s.Mean), F(s.Sd), F(s.Min), F(s.Max),
+                rows.Add(new StatisticRow(cellId, period.Period, parameter, F(s.Mean), F(s.Sd), F(s.Min), F(s.Max),
                     F(s.P10), F(s.P50), F(s.P90), F(s.P99), (int)s.Count, (float)s.Coverage, extra));
             }
             if (annual is not null && annual.Direction.Count == 0) continue;
             var d = period.Direction;
-            rows.Add(new StatisticRow(cellId, period.Period.Code, (short)WaveParameter.Dir, F(d.Mean), F(d.Spread), null, null, null, null, null, null,
+            rows.Add(new StatisticRow(cellId, period.Period, WaveParameter.Dir, F(d.Mean), F(d.Spread), null, null, null, null, null, null,
                 (int)d.Count, (float)d.Coverage, d.PowerRose.Select(f => (float)f).ToArray()));
         }
     }

@@ -88,7 +88,7 @@ public sealed class StatisticsService(NpgsqlDataSource dataSource, StatisticsOpt
 
         var calculators = Enumerable.Range(0, workers).Select(_ => Task.Run(async () =>
         {
-            var calculator = new CellStatisticsCalculator(_options);
+            var calculator = new BinnedCellCalculator(_options);
             await foreach (var buffer in work.Reader.ReadAllAsync(token))
             {
                 var rows = new List<StatisticRow>(160);
@@ -156,7 +156,7 @@ public sealed class StatisticsService(NpgsqlDataSource dataSource, StatisticsOpt
                 foreach (var row in rows)
                 {
                     pending.Builder.Add(row);
-                    periodCodes.Add(row.Period);
+                    periodCodes.Add(row.Period.Code);
                 }
                 rowCount += rows.Count;
                 if (--missing[block] == 0) await CloseAsync(block);

@@ -7,15 +7,12 @@ using Atlas.Storage.Stations;
 
 namespace Atlas.Ingest.Validation;
 
-/// <summary>The station variables compared with the hindcast.</summary>
-public enum ValidatedVariable { Hs, Tp, Te, Dir }
-
 /// <summary>Skill of one Hs class (observed Hs in [LowerMetres, UpperMetres)), for a scalar variable or for directions.</summary>
 public sealed record HsClassSkill(double LowerMetres, double UpperMetres, SkillScores? Scalar, DirectionalSkillScores? Directional);
 
 /// <summary>The comparison of one variable: a scalar report (Hs, Tp, Te) or a directional one, and the skill by Hs class.</summary>
 public sealed record VariableValidation(
-    ValidatedVariable Variable,
+    WaveParameter Variable,
     ScalarValidationReport? Scalar,
     DirectionalValidationReport? Directional,
     IReadOnlyList<HsClassSkill> ByHsClass)
@@ -36,7 +33,7 @@ public sealed record StationValidation(
     IReadOnlyList<string> Notes,
     PointSeries Model)
 {
-    public VariableValidation? Find(ValidatedVariable variable) => Variables.FirstOrDefault(v => v.Variable == variable);
+    public VariableValidation? Find(WaveParameter variable) => Variables.FirstOrDefault(v => v.Variable == variable);
 }
 
 /// <summary>
@@ -51,26 +48,11 @@ public static class StationValidator
     /// <summary>Lower bounds of the Hs classes, m: 0-1, 1-2, 2-3, 3-4, 4+ (those of <see cref="ValidationOptions"/>).</summary>
     public static IReadOnlyList<double> HsClassLowerBoundsMetres { get; } = new ValidationOptions().ObservedClassLowerBounds;
 
-    public static string Symbol(ValidatedVariable variable) => variable switch
+    /// <summary>Parses the symbol of a compared variable (<see cref="WaveParameterGroups.StationFields"/>), ignoring case.</summary>
+    public static bool TryParse(string? text, out WaveParameter variable)
     {
-        ValidatedVariable.Hs => "hs",
-        ValidatedVariable.Tp => "tp",
-        ValidatedVariable.Te => "te",
-        _ => "dir",
-    };
-
-    public static string UnitOf(ValidatedVariable variable) => variable switch
-    {
-        ValidatedVariable.Hs => "m",
-        ValidatedVariable.Dir => "degree",
-        _ => "s",
-    };
-
-    public static bool TryParse(string? text, out ValidatedVariable variable)
-    {
-        foreach (var v in Enum.GetValues<ValidatedVariable>())
-            if (string.Equals(Symbol(v), text, StringComparison.OrdinalIgnoreCase)) { variable = v; return true; }
-        variable = ValidatedVariable.Hs;
+        if (WaveParameterNames.TryParse(text, out variable) && WaveParameterGroups.StationFields.Contains(variable)) return true;
+        variable = WaveParameter.Hs;
         return false;
     }
 
@@ -93,21 +75,21 @@ public static class StationValidator
 
         var results = new List<VariableValidation>();
         var notes = new List<string>();
-        foreach (var variable in Enum.GetValues<ValidatedVariable>())
+        foreach (var variable in WaveParameterGroups.StationFields)
         {
             var (stationHas, modelHas, observed, modelled) = variable switch
             {
-                ValidatedVariable.Hs => (true, true, observations.Hs, model.Hs),
-                ValidatedVariable.Tp => (station.HasTp, model.HasTp, observations.Tp, model.Tp),
-                ValidatedVariable.Te => (station.HasTe, model.HasTe, observations.Te, model.Te),
+                WaveParameter.Hs => (true, true, observations.Hs, model.Hs),
+                WaveParameter.Tp => (station.HasTp, model.HasTp, observations.Tp, model.Tp),
+                WaveParameter.Te => (station.HasTe, model.HasTe, observations.Te, model.Te),
                 _ => (station.HasDirection, model.HasDir, observations.Dir, model.Dir),
             };
             if (!stationHas || !modelHas)
             {
-                notes.Add($"{Symbol(variable)} is not compared: the {(stationHas ? "dataset" : "station record")} has no {Symbol(variable)}.");
+                notes.Add($"{variable.Symbol()} is not compared: the {(stationHas ? "dataset" : "station record")} has no {variable.Symbol()}.");
                 continue;
             }
-            var circular = variable == ValidatedVariable.Dir;
+            var circular = variable == WaveParameter.Dir;
             var pairs = matcher.Match(observations.TimesUnixSeconds, Doubles(observed), flagged, model.Times, Doubles(modelled), circular);
             results.Add(circular
                 ? new VariableValidation(variable, null, HindcastValidation.AssessDirection(pairs), ByHsClass(pairs, observedHs, circular: true))

@@ -24,14 +24,14 @@ public static class ValidationReporting
 
     private static VariableSkill VariableOf(VariableValidation v)
     {
-        var symbol = StationValidator.Symbol(v.Variable);
+        var symbol = v.Variable.Symbol();
         var byClass = v.ByHsClass.Select(k => new SkillGroup(null, k.LowerMetres, double.IsFinite(k.UpperMetres) ? k.UpperMetres : null,
             k.Scalar is { } s ? SkillRow.From(s) : null, k.Directional is { } d ? DirectionalSkillRow.From(d) : null)).ToArray();
         if (v.Scalar is { } scalar)
-            return new VariableSkill(symbol, StationValidator.UnitOf(v.Variable), MatchCountsRow.From(scalar.Counts), SkillRow.From(scalar.Overall), null,
+            return new VariableSkill(symbol, v.Variable.Unit(), MatchCountsRow.From(scalar.Counts), SkillRow.From(scalar.Overall), null,
                 scalar.BySeason.Select(s => new SkillGroup(SeasonName(s.Season), null, null, SkillRow.From(s.Scores), null)).ToArray(), byClass);
         var direction = v.Directional!;
-        return new VariableSkill(symbol, StationValidator.UnitOf(v.Variable), MatchCountsRow.From(direction.Counts), null, DirectionalSkillRow.From(direction.Overall),
+        return new VariableSkill(symbol, v.Variable.Unit(), MatchCountsRow.From(direction.Counts), null, DirectionalSkillRow.From(direction.Overall),
             direction.BySeason.Select(s => new SkillGroup(SeasonName(s.Season), null, null, null, DirectionalSkillRow.From(s.Scores))).ToArray(), byClass);
     }
 

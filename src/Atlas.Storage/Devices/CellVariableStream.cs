@@ -19,16 +19,16 @@ public sealed record CellVariableChunk(int CellId, int Year, byte[]?[] Payloads)
 public sealed class CellVariableStream(NpgsqlDataSource dataSource)
 {
     /// <summary>The chunks ordered by cell, then year.</summary>
-    public async IAsyncEnumerable<CellVariableChunk> StreamAsync(int datasetId, IReadOnlyList<SeriesVariable> variables,
+    public async IAsyncEnumerable<CellVariableChunk> StreamAsync(int datasetId, IReadOnlyList<WaveParameter> variables,
         [System.Runtime.CompilerServices.EnumeratorCancellation] CancellationToken cancel = default)
     {
         if (variables.Count == 0) throw new ArgumentException("Ask for at least one variable.", nameof(variables));
         var slices = new StringBuilder();
         foreach (var variable in variables)
         {
-            var bit = 1 << (int)variable;
+            var bit = SeriesCodec.BitOf(variable);
             // Offset of the variable: the 6-byte header, then one run of 2 * step_count bytes per present variable before it.
-            var before = string.Join(" + ", Enumerable.Range(0, (int)variable).Select(u => $"((mask >> {u}) & 1)").DefaultIfEmpty("0"));
+            var before = string.Join(" + ", Enumerable.Range(0, SeriesCodec.SlotOf(variable)).Select(u => $"((mask >> {u}) & 1)").DefaultIfEmpty("0"));
             slices.Append($", CASE WHEN mask & {bit} = 0 THEN NULL ELSE substring(payload FROM {SeriesCodec.HeaderBytes + 1} + 2 * step_count * ({before}) FOR 2 * step_count) END");
         }
         var sql = $"""
@@ -53,7 +53,7 @@ public sealed class CellVariableStream(NpgsqlDataSource dataSource)
                     continue;
                 }
                 var values = await reader.ReadAsync<byte[]>(NpgsqlDbType.Bytea, cancel);
-                var payload = SeriesCodec.CreateEmpty(steps, 1 << (int)variables[k]);
+                var payload = SeriesCodec.CreateEmpty(steps, SeriesCodec.BitOf(variables[k]));
                 values.CopyTo(payload, SeriesCodec.HeaderBytes);
                 payloads[k] = payload;
             }

@@ -1,3 +1,4 @@
+using Atlas.Storage.Statistics;
 using Npgsql;
 
 namespace Atlas.Storage.Queries;
@@ -18,7 +19,7 @@ public sealed record SeriesStamp(int FileCount, DateTime? LastLoadedUtc)
 }
 
 /// <summary>A (parameter, period) pair that has statistics rows in a dataset, with the number of cells that have it.</summary>
-public readonly record struct LayerCombination(short Parameter, short Period);
+public readonly record struct LayerCombination(WaveParameter Parameter, AtlasPeriod Period);
 
 /// <summary>Queries about a dataset as a whole: its typical cell spacing, statistics stamp and stored layers.</summary>
 public sealed class DatasetGeometryQueries(NpgsqlDataSource dataSource)
@@ -96,7 +97,7 @@ public sealed class DatasetGeometryQueries(NpgsqlDataSource dataSource)
         command.Parameters.AddWithValue(datasetId);
         var pairs = new List<LayerCombination>();
         await using var reader = await command.ExecuteReaderAsync(cancel);
-        while (await reader.ReadAsync(cancel)) pairs.Add(new LayerCombination(reader.GetInt16(0), reader.GetInt16(1)));
+        while (await reader.ReadAsync(cancel)) pairs.Add(new LayerCombination(StatisticCodes.Parameter(reader.GetInt16(0)), AtlasPeriod.FromCode(reader.GetInt16(1))));
         return pairs;
     }
 }

@@ -1,3 +1,4 @@
+using Atlas.Storage.Statistics;
 using Npgsql;
 using NpgsqlTypes;
 
@@ -5,12 +6,11 @@ namespace Atlas.Storage.Queries;
 
 /// <summary>
 /// Site-screening criteria; a null bound is not applied. A cell whose depth (or coast distance) is unknown fails a
-/// depth (or coast-distance) criterion, since it cannot be shown to meet it.
+/// depth (or coast-distance) criterion, since it cannot be shown to meet it. Power is the period's mean J, the Hs
+/// bound applies to its p90.
 /// </summary>
 public sealed record ScreeningCriteria(
-    short PowerParameter,
-    short HsParameter,
-    short Period,
+    AtlasPeriod Period,
     double? MinimumMeanPowerKilowattsPerMetre,
     double? MinimumDepthMetres,
     double? MaximumDepthMetres,
@@ -48,9 +48,9 @@ public sealed class ScreeningQueries(NpgsqlDataSource dataSource)
              ORDER BY c.cell_id
             """);
         command.Parameters.AddWithValue(datasetId);
-        command.Parameters.AddWithValue(criteria.Period);
-        command.Parameters.AddWithValue(criteria.PowerParameter);
-        command.Parameters.AddWithValue(criteria.HsParameter);
+        command.Parameters.AddWithValue(criteria.Period.Code);
+        command.Parameters.AddWithValue(StatisticCodes.Of(WaveParameter.J));
+        command.Parameters.AddWithValue(StatisticCodes.Of(WaveParameter.Hs));
         foreach (var bound in new[] { criteria.MinimumMeanPowerKilowattsPerMetre, criteria.MinimumDepthMetres, criteria.MaximumDepthMetres,
                      criteria.MaximumCoastDistanceMetres, criteria.MaximumHsP90Metres })
             command.Parameters.AddWithValue(NpgsqlDbType.Double, (object?)bound ?? DBNull.Value);

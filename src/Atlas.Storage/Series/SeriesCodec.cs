@@ -7,8 +7,9 @@ namespace Atlas.Storage.Series;
 /// unsigned little-endian 16-bit integer, 0xFFFF meaning missing:
 /// Hs 1 mm (0 to 65.534 m, error at most 0.5 mm); Te and Tp 0.01 s (to 655.34 s, error at most 0.005 s);
 /// direction 0.01 degree (0 to 359.99, error at most 0.005 degree); directional spread 0.01 degree.
-/// Layout: version byte, variable mask byte (bit n = <see cref="SeriesVariable"/> n), step count (int32), then the
-/// present variables in enum order, each a run of step-count values. 2 bytes per stored value plus a 6-byte header.
+/// Layout: version byte, variable mask byte (bit n = slot n: Hs 0, Te 1, Tp 2, Dir 3, Spread 4, the order of
+/// <see cref="WaveParameterGroups.SeriesFields"/>), step count (int32), then the present variables in slot order, each a
+/// run of step-count values. The slots are this format's own numbers and never leave Storage (see <see cref="SlotOf"/>). 2 bytes per stored value plus a 6-byte header.
 /// </summary>
 public static class SeriesCodec
 {
@@ -19,11 +20,25 @@ public static class SeriesCodec
 
     private static readonly double[] Steps = [0.001, 0.01, 0.01, 0.01, 0.01];
 
+    /// <summary>The slot of a series field in the payload; anything but Hs, Te, Tp, Dir and Spread is not stored here.</summary>
+    internal static int SlotOf(WaveParameter variable) => variable switch
+    {
+        WaveParameter.Hs => 0,
+        WaveParameter.Te => 1,
+        WaveParameter.Tp => 2,
+        WaveParameter.Dir => 3,
+        WaveParameter.Spread => 4,
+        _ => throw new ArgumentOutOfRangeException(nameof(variable), variable, $"'{variable.Symbol()}' is not a stored series field."),
+    };
+
+    /// <summary>The bit of a series field in a payload's variable mask.</summary>
+    public static int BitOf(WaveParameter variable) => 1 << SlotOf(variable);
+
     /// <summary>The quantisation step of a variable, in its SI unit.</summary>
-    public static double StepOf(SeriesVariable variable) => Steps[(int)variable];
+    public static double StepOf(WaveParameter variable) => Steps[SlotOf(variable)];
 
     /// <summary>The largest value a variable can hold.</summary>
-    public static double MaximumOf(SeriesVariable variable) => (Missing - 1) * Steps[(int)variable];
+    public static double MaximumOf(WaveParameter variable) => (Missing - 1) * Steps[SlotOf(variable)];
 
     public static int EncodedLength(int stepCount, int variableCount) => HeaderBytes + 2 * stepCount * variableCount;
 
@@ -46,15 +61,15 @@ public static class SeriesCodec
         buffer[1] = (byte)mask;
         BinaryPrimitives.WriteInt32LittleEndian(buffer.AsSpan(2), stepCount);
         var offset = HeaderBytes;
-        offset = Append(hs, SeriesVariable.Hs, stepCount, buffer, offset);
-        offset = Append(te, SeriesVariable.Te, stepCount, buffer, offset);
-        offset = Append(tp, SeriesVariable.Tp, stepCount, buffer, offset);
-        offset = Append(dir, SeriesVariable.Dir, stepCount, buffer, offset);
-        Append(spread, SeriesVariable.Spread, stepCount, buffer, offset);
+        offset = Append(hs, WaveParameter.Hs, stepCount, buffer, offset);
+        offset = Append(te, WaveParameter.Te, stepCount, buffer, offset);
+        offset = Append(tp, WaveParameter.Tp, stepCount, buffer, offset);
+        offset = Append(dir, WaveParameter.Dir, stepCount, buffer, offset);
+        Append(spread, WaveParameter.Spread, stepCount, buffer, offset);
         return buffer;
     }
 
-    private static int Append(ReadOnlySpan<float> values, SeriesVariable variable, int stepCount, byte[] buffer, int offset)
+    private static int Append(ReadOnlySpan<float> values, WaveParameter variable, int stepCount, byte[] buffer, int offset)
     {
         if (values.IsEmpty) return offset;
         if (values.Length != stepCount)
@@ -63,7 +78,7 @@ public static class SeriesCodec
         return offset + 2 * stepCount;
     }
 
-    private static void Quantise(ReadOnlySpan<float> values, SeriesVariable variable, Span<byte> destination)
+    private static void Quantise(ReadOnlySpan<float> values, WaveParameter variable, Span<byte> destination)
     {
         for (var i = 0; i < values.Length; i++)
             BinaryPrimitives.WriteUInt16LittleEndian(destination.Slice(2 * i), Quantise(variable, values[i]));
@@ -82,9 +97,9 @@ public static class SeriesCodec
     }
 
     /// <summary>Byte offset of a variable's first value in a payload with the given mask.</summary>
-    public static int OffsetOf(int mask, int stepCount, SeriesVariable variable)
+    public static int OffsetOf(int mask, int stepCount, WaveParameter variable)
     {
-        var index = System.Numerics.BitOperations.PopCount((uint)(mask & ((1 << (int)variable) - 1)));
+        var index = System.Numerics.BitOperations.PopCount((uint)(mask & (BitOf(variable) - 1)));
         return HeaderBytes + 2 * stepCount * index;
     }
 
@@ -92,13 +107,13 @@ public static class SeriesCodec
     /// Quantises one value (NaN gives <see cref="Missing"/>). Throws <see cref="ArgumentOutOfRangeException"/> naming
     /// the variable for a value below zero or above the range; direction is wrapped into 0..360 first.
     /// </summary>
-    public static ushort Quantise(SeriesVariable variable, float value)
+    public static ushort Quantise(WaveParameter variable, float value)
     {
         double v = value;
         if (double.IsNaN(v)) return Missing;
-        var wrap = variable == SeriesVariable.Dir;
+        var wrap = variable == WaveParameter.Dir;
         if (wrap) { v %= 360.0; if (v < 0) v += 360.0; }
-        var scaled = Math.Round(v / Steps[(int)variable]);
+        var scaled = Math.Round(v / Steps[SlotOf(variable)]);
         if (wrap && scaled >= 36000) scaled = 0;
         if (scaled < 0 || scaled >= Missing || double.IsInfinity(v))
             throw new ArgumentOutOfRangeException(variable.ToString(), value,
@@ -112,26 +127,26 @@ public static class SeriesCodec
         return BinaryPrimitives.ReadInt32LittleEndian(payload.Slice(2));
     }
 
-    public static bool Has(ReadOnlySpan<byte> payload, SeriesVariable variable) => (payload[1] & (1 << (int)variable)) != 0;
+    public static bool Has(ReadOnlySpan<byte> payload, WaveParameter variable) => (payload[1] & BitOf(variable)) != 0;
 
     /// <summary>
     /// Decodes one variable into <paramref name="destination"/> (length = step count), NaN for missing.
     /// Returns false (and fills NaN) when the chunk does not hold the variable.
     /// </summary>
-    public static bool Decode(ReadOnlySpan<byte> payload, SeriesVariable variable, Span<float> destination)
+    public static bool Decode(ReadOnlySpan<byte> payload, WaveParameter variable, Span<float> destination)
     {
         var steps = StepCountOf(payload);
         if (destination.Length < steps) throw new ArgumentException($"Destination holds {destination.Length} values; the chunk has {steps}.");
         var mask = payload[1];
-        if ((mask & (1 << (int)variable)) == 0)
+        if ((mask & BitOf(variable)) == 0)
         {
             destination[..steps].Fill(float.NaN);
             return false;
         }
         var index = 0;
-        for (var v = 0; v < (int)variable; v++) if ((mask & (1 << v)) != 0) index++;
+        for (var v = 0; v < SlotOf(variable); v++) if ((mask & (1 << v)) != 0) index++;
         var source = payload.Slice(HeaderBytes + 2 * steps * index, 2 * steps);
-        var step = (float)Steps[(int)variable];
+        var step = (float)Steps[SlotOf(variable)];
         for (var i = 0; i < steps; i++)
         {
             var q = BinaryPrimitives.ReadUInt16LittleEndian(source.Slice(2 * i));

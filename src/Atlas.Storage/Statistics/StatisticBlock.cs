@@ -3,11 +3,12 @@ namespace Atlas.Storage.Statistics;
 /// <summary>
 /// The stored form of statistics: one parameter over one period for the cells of one block of
 /// <see cref="CellsPerBlock"/> consecutive cell ids, each statistic an array over the block's cells (ascending ids).
-/// Absent values are NaN. <see cref="Extra"/> holds <see cref="ExtraWidth"/> values per cell, cell after cell.
+/// Absent values are NaN. <see cref="Fractions"/> holds <see cref="FractionsWidth"/> values per cell, cell after cell
+/// (stored in the column <c>extra</c>).
 /// </summary>
 public sealed record StatisticBlock(
-    short Parameter,
-    short Period,
+    WaveParameter Parameter,
+    AtlasPeriod Period,
     int Block,
     int[] CellIds,
     int[] Count,
@@ -20,8 +21,8 @@ public sealed record StatisticBlock(
     float[] P50,
     float[] P90,
     float[] P99,
-    int ExtraWidth,
-    float[]? Extra)
+    int FractionsWidth,
+    float[]? Fractions)
 {
     /// <summary>
     /// Cells per block: large enough that a layer of a million cells is about a thousand rows, small enough that
@@ -33,7 +34,7 @@ public sealed record StatisticBlock(
 
     /// <summary>
     /// Packs rows into blocks, one per parameter, period and block (see <see cref="StatisticBlockBuilder"/>). A cell may
-    /// appear once per parameter and period. Not-finite optional values become NaN; a cell without extra values gets
+    /// appear once per parameter and period. Not-finite optional values become NaN; a cell without fractions gets
     /// NaN in a block whose others have them.
     /// </summary>
     public static IReadOnlyList<StatisticBlock> Pack(IEnumerable<StatisticRow> rows)
@@ -54,7 +55,7 @@ public sealed record StatisticBlock(
         for (var i = 0; i < CellIds.Length; i++)
             yield return new StatisticRow(CellIds[i], Period, Parameter, Read(Mean[i]), Read(Sd[i]), Read(Min[i]), Read(Max[i]),
                 Read(P10[i]), Read(P50[i]), Read(P90[i]), Read(P99[i]), Count[i], Coverage[i],
-                Extra is null ? null : Extra.AsSpan(i * ExtraWidth, ExtraWidth).ToArray());
+                Fractions is null ? null : Fractions.AsSpan(i * FractionsWidth, FractionsWidth).ToArray());
     }
 
     private static float? Read(float value) => float.IsNaN(value) ? null : value;

@@ -7,7 +7,7 @@ namespace Atlas.Storage.Statistics;
 /// </summary>
 public sealed class StatisticBlockBuilder(int block)
 {
-    private readonly Dictionary<(short Parameter, short Period), Group> _groups = [];
+    private readonly Dictionary<(WaveParameter Parameter, AtlasPeriod Period), Group> _groups = [];
 
     public int Block { get; } = block;
 
@@ -51,14 +51,14 @@ public sealed class StatisticBlockBuilder(int block)
             _columns[7].Add(Stored(row.P90));
             _columns[8].Add(Stored(row.P99));
             _extraStart.Add(_extra.Count);
-            if (row.Extra is { } extra)
+            if (row.Fractions is { } extra)
             {
                 _extra.AddRange(extra);
                 _width = Math.Max(_width, extra.Length);
             }
         }
 
-        public StatisticBlock Build(short parameter, short period, int block)
+        public StatisticBlock Build(WaveParameter parameter, AtlasPeriod period, int block)
         {
             var n = _cells.Count;
             // Rows arrive as the cells finish, nearly but not quite in order.
@@ -74,7 +74,7 @@ public sealed class StatisticBlockBuilder(int block)
             {
                 var k = order[i];
                 if (i > 0 && _cells[k] == ids[i - 1])
-                    throw new ArgumentException($"Cell {_cells[k]} has two rows for parameter {parameter} and period {period}.");
+                    throw new ArgumentException($"Cell {_cells[k]} has two rows for parameter {parameter.Symbol()} and period {period}.");
                 ids[i] = _cells[k];
                 counts[i] = _counts[k];
                 for (var c = 0; c < columns.Length; c++) columns[c][i] = _columns[c][k];

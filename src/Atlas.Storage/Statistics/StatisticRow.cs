@@ -1,13 +1,14 @@
 namespace Atlas.Storage.Statistics;
 
 /// <summary>
-/// One stored statistic row: a parameter of a cell over a period. Codes are those of Atlas.Statistics
-/// (period: 0 annual, 1..12 months, 13..16 seasons, a year number; parameter: the WaveParameter value).
+/// One stored statistic row: a parameter of a cell over a period. <paramref name="Fractions"/> holds the exceedance
+/// fractions at the pass's thresholds (hs, j) or the 16-sector shares of power (dir); null for other parameters.
+/// The numeric codes of periods and parameters in the tables stay inside Storage.
 /// </summary>
 public sealed record StatisticRow(
     int CellId,
-    short Period,
-    short Parameter,
+    AtlasPeriod Period,
+    WaveParameter Parameter,
     float? Mean,
     float? Sd,
     float? Min,
@@ -18,10 +19,8 @@ public sealed record StatisticRow(
     float? P99,
     int Count,
     float Coverage,
-    float[]? Extra);
+    float[]? Fractions);
 
-/// <summary>The statistic columns a layer can be drawn from.</summary>
-public enum StoredStatistic { Mean, Sd, Min, Max, P10, P50, P90, P99, Count, Coverage }
 
 /// <summary>One cell's value of a layer, with the cell's position.</summary>
 public readonly record struct LayerValue(int CellId, double Longitude, double Latitude, int? GridI, int? GridJ, float? DepthMetres, double Value);

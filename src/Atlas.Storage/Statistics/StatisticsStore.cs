@@ -66,15 +66,15 @@ public sealed class StatisticsStore(NpgsqlDataSource dataSource)
                 cancel.ThrowIfCancellationRequested();
                 encoder.StartRow(17);
                 encoder.WriteInt32(datasetId);
-                encoder.WriteInt16(block.Parameter);
-                encoder.WriteInt16(block.Period);
+                encoder.WriteInt16(StatisticCodes.Of(block.Parameter));
+                encoder.WriteInt16(block.Period.Code);
                 encoder.WriteInt32(block.Block);
                 encoder.WriteInt32Array(block.CellIds);
                 encoder.WriteInt32Array(block.Count);
                 foreach (var column in new[] { block.Coverage, block.Mean, block.Sd, block.Min, block.Max, block.P10, block.P50, block.P90, block.P99 })
                     encoder.WriteRealArray(column.AsSpan());
-                encoder.WriteInt16((short)block.ExtraWidth);
-                encoder.WriteRealArray(block.Extra);
+                encoder.WriteInt16((short)block.FractionsWidth);
+                encoder.WriteRealArray(block.Fractions);
             }
             encoder.WriteTrailer();
         }
@@ -130,7 +130,7 @@ public sealed class StatisticsStore(NpgsqlDataSource dataSource)
         while (await reader.ReadAsync(cancel))
         {
             float[] F(int i) => reader.GetFieldValue<float[]>(i);
-            blocks.Add(new StatisticBlock(reader.GetInt16(0), reader.GetInt16(1), reader.GetInt32(2), reader.GetFieldValue<int[]>(3),
+            blocks.Add(new StatisticBlock(StatisticCodes.Parameter(reader.GetInt16(0)), AtlasPeriod.FromCode(reader.GetInt16(1)), reader.GetInt32(2), reader.GetFieldValue<int[]>(3),
                 reader.GetFieldValue<int[]>(4), F(5), F(6), F(7), F(8), F(9), F(10), F(11), F(12), F(13), reader.GetInt16(14),
                 reader.IsDBNull(15) ? null : F(15)));
         }
@@ -164,25 +164,25 @@ public sealed class StatisticsStore(NpgsqlDataSource dataSource)
         command.Parameters.AddWithValue(StatisticBlock.BlockOf(cellId));
         return (await ReadBlocksAsync(command, cancel))
             .SelectMany(b => b.Unpack().Where(r => r.CellId == cellId))
-            .OrderBy(r => r.Period).ThenBy(r => r.Parameter).ToList();
+            .OrderBy(r => r.Period.Code).ThenBy(r => r.Parameter).ToList();
     }
 
     /// <summary>
     /// One layer: the chosen statistic of a parameter over a period for every wet cell that has it, with positions,
     /// by cell id. Positions come from <paramref name="cellOf"/> when given (the caller's copy of the dataset's
-    /// cells; rows of cells it does not know are left out), else from the cell table. <paramref name="extraIndex"/>
-    /// reads element (1-based) of the extra values instead of a column (exceedance). Absent values are left out.
+    /// cells; rows of cells it does not know are left out), else from the cell table. <paramref name="fractionIndex"/>
+    /// reads element (1-based) of the fractions instead of a column (exceedance). Absent values are left out.
     /// </summary>
-    public async Task<IReadOnlyList<LayerValue>> LayerAsync(int datasetId, short parameter, short period, StoredStatistic statistic,
-        Func<int, CellRecord?>? cellOf, int? extraIndex = null, CancellationToken cancel = default)
+    public async Task<IReadOnlyList<LayerValue>> LayerAsync(int datasetId, WaveParameter parameter, AtlasPeriod period, StatisticKind statistic,
+        Func<int, CellRecord?>? cellOf, int? fractionIndex = null, CancellationToken cancel = default)
     {
         // Only the two arrays the layer needs leave the database, by binary COPY decoded here (the numbers in the query
         // are integers and the column an enum name, so nothing in it comes from a user as text).
-        var column = extraIndex is not null ? "extra_width, extra" : "0::smallint, " + statistic.ToString().ToLowerInvariant();
+        var column = fractionIndex is not null ? "extra_width, extra" : "0::smallint, " + statistic.ToString().ToLowerInvariant();
         var found = new List<(int CellId, double Value)>(StatisticBlock.CellsPerBlock);
         await using (var connection = await dataSource.OpenConnectionAsync(cancel))
         await using (var copy = await connection.BeginRawBinaryCopyAsync(
-            $"COPY (SELECT cell_ids, {column} FROM statistic_block WHERE dataset_id = {datasetId:D} AND parameter = {parameter:D} AND period = {period:D} ORDER BY block) TO STDOUT (FORMAT BINARY)", cancel))
+            $"COPY (SELECT cell_ids, {column} FROM statistic_block WHERE dataset_id = {datasetId:D} AND parameter = {StatisticCodes.Of(parameter):D} AND period = {period.Code:D} ORDER BY block) TO STDOUT (FORMAT BINARY)", cancel))
         {
             var decoder = new BinaryCopyDecoder(copy);
             await decoder.ReadHeaderAsync(cancel);
@@ -190,14 +190,14 @@ public sealed class StatisticsStore(NpgsqlDataSource dataSource)
             {
                 var ids = (await decoder.ReadInt32ArrayAsync(cancel))!;
                 int width = await decoder.ReadInt16Async(cancel);
-                if (statistic == StoredStatistic.Count && extraIndex is null)
+                if (statistic == StatisticKind.Count && fractionIndex is null)
                 {
                     var counts = await decoder.ReadInt32ArrayAsync(cancel);
                     for (var i = 0; i < ids.Length; i++) found.Add((ids[i], counts![i]));
                     continue;
                 }
                 if (await decoder.ReadRealArrayAsync(cancel) is not { } values) continue;
-                if (extraIndex is { } k)
+                if (fractionIndex is { } k)
                 {
                     if (k < 1 || k > width) continue;
                     for (var i = 0; i < ids.Length; i++)
@@ -222,14 +222,14 @@ public sealed class StatisticsStore(NpgsqlDataSource dataSource)
         (await new CellStore(dataSource).ManyAsync(datasetId, cellIds, cancel)).ToDictionary(c => c.CellId);
 
     /// <summary>The periods that have statistics in a dataset.</summary>
-    public async Task<IReadOnlyList<short>> PeriodsAsync(int datasetId, CancellationToken cancel = default)
+    public async Task<IReadOnlyList<AtlasPeriod>> PeriodsAsync(int datasetId, CancellationToken cancel = default)
     {
         await using var command = dataSource.CreateCommand(
             "SELECT DISTINCT period FROM statistic_block WHERE dataset_id = $1 AND parameter = 0 ORDER BY period");
         command.Parameters.AddWithValue(datasetId);
-        var periods = new List<short>();
+        var periods = new List<AtlasPeriod>();
         await using var reader = await command.ExecuteReaderAsync(cancel);
-        while (await reader.ReadAsync(cancel)) periods.Add(reader.GetInt16(0));
+        while (await reader.ReadAsync(cancel)) periods.Add(AtlasPeriod.FromCode(reader.GetInt16(0)));
         return periods;
     }
 }

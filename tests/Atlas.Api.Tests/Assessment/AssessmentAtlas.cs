@@ -144,10 +144,10 @@ public static class AssessmentAtlas
         foreach (var chunk in chunks)
         {
             var n = SeriesCodec.StepCountOf(chunk);
-            SeriesCodec.Decode(chunk, SeriesVariable.Hs, hs.AsSpan(offset, n));
-            SeriesCodec.Decode(chunk, SeriesVariable.Te, te.AsSpan(offset, n));
-            SeriesCodec.Decode(chunk, SeriesVariable.Tp, tp.AsSpan(offset, n));
-            SeriesCodec.Decode(chunk, SeriesVariable.Dir, dir.AsSpan(offset, n));
+            SeriesCodec.Decode(chunk, WaveParameter.Hs, hs.AsSpan(offset, n));
+            SeriesCodec.Decode(chunk, WaveParameter.Te, te.AsSpan(offset, n));
+            SeriesCodec.Decode(chunk, WaveParameter.Tp, tp.AsSpan(offset, n));
+            SeriesCodec.Decode(chunk, WaveParameter.Dir, dir.AsSpan(offset, n));
             offset += n;
         }
         return (hs, te, tp, dir);
@@ -193,7 +193,7 @@ public static class AssessmentAtlas
                 var chunk = SyntheticAtlas.Chunk(source, year);
                 var n = SeriesCodec.StepCountOf(chunk);
                 var v = Enumerable.Range(0, 5).Select(_ => new float[n]).ToArray();
-                for (var k = 0; k < 5; k++) SeriesCodec.Decode(chunk, (SeriesVariable)k, v[k]);
+                for (var k = 0; k < 5; k++) SeriesCodec.Decode(chunk, WaveParameterGroups.SeriesFields[k], v[k]);
                 for (var k = 0; k < n; k++) v[0][k] *= (float)HsScale;
                 return SeriesCodec.Encode(n, v[0], v[1], v[2], v[3], v[4]);
             });

@@ -157,7 +157,7 @@ public static class SyntheticAtlas
                 {
                     var chunk = Chunk(cell, year);
                     var n = SeriesCodec.StepCountOf(chunk);
-                    for (var v = 0; v < 5; v++) SeriesCodec.Decode(chunk, (SeriesVariable)v, decoded[v].AsSpan(offset, n));
+                    for (var v = 0; v < 5; v++) SeriesCodec.Decode(chunk, WaveParameterGroups.SeriesFields[v], decoded[v].AsSpan(offset, n));
                     offset += n;
                 }
                 foreach (var series in decoded) foreach (var x in series) file.Write(x);
@@ -169,8 +169,8 @@ public static class SyntheticAtlas
         {
             var f = line.Split(',');
             float? F(int i) => f[i].Length == 0 ? null : float.Parse(f[i], CultureInfo.InvariantCulture);
-            rows.Add(new StatisticRow(int.Parse(f[0], CultureInfo.InvariantCulture), short.Parse(f[1], CultureInfo.InvariantCulture),
-                short.Parse(f[2], CultureInfo.InvariantCulture), F(3), F(4), F(5), F(6), F(7), F(8), F(9), F(10),
+            rows.Add(new StatisticRow(int.Parse(f[0], CultureInfo.InvariantCulture), AtlasPeriod.FromCode(short.Parse(f[1], CultureInfo.InvariantCulture)),
+                (WaveParameter)short.Parse(f[2], CultureInfo.InvariantCulture), F(3), F(4), F(5), F(6), F(7), F(8), F(9), F(10),
                 int.Parse(f[11], CultureInfo.InvariantCulture), float.Parse(f[12], CultureInfo.InvariantCulture),
                 f[13].Length == 0 ? null : f[13].Split(';').Select(x => float.Parse(x, CultureInfo.InvariantCulture)).ToArray()));
         }
@@ -202,7 +202,7 @@ public static class SyntheticAtlas
             await DatasetStore.UpdateExtentAsync(connection, transaction, datasetId, CancellationToken.None);
             await transaction.CommitAsync();
         }
-        var rows = nodes.Select(n => new StatisticRow(n.CellId, 0, 0, (float)MeshHs(n.Longitude, n.Latitude), null, null, null, null, null, null, null, 100, 1f, null)).ToList();
+        var rows = nodes.Select(n => new StatisticRow(n.CellId, AtlasPeriod.Annual, WaveParameter.Hs, (float)MeshHs(n.Longitude, n.Latitude), null, null, null, null, null, null, null, 100, 1f, null)).ToList();
         await new StatisticsStore(dataSource).ReplaceAsync(datasetId, nodes.Select(n => n.CellId).ToArray(), rows, DateTime.UtcNow);
     }
 }

@@ -117,8 +117,8 @@ public class TimeMatcherTests(TimeMatcherReference reference) : IClassFixture<Ti
         long[] model = [.. Enumerable.Range(0, 6).Select(i => start + i * 3600L)];
         double[] hs = [1.0, 1.1, 1.2, 1.3, 1.4, 1.5];
 
-        var pairs = new TimeMatcher().Match(record, StationVariable.Hs, model, hs);
-        var tp = new TimeMatcher().Match(record, StationVariable.Tp, model, hs);
+        var pairs = new TimeMatcher().Match(record, WaveParameter.Hs, model, hs);
+        var tp = new TimeMatcher().Match(record, WaveParameter.Tp, model, hs);
 
         Assert.Equal(new MatchCounts(5, 4, 1, 0, 0, 0, 0), pairs.Counts);
         Assert.Equal(1, tp.Counts.ObservedMissing); // the 02:00 row has no Tp

@@ -23,7 +23,7 @@ public static class StoredHindcast
             var chunk = Assert.Single(await series.ReadCellAsync(dataset.Id, j * nx + i));
             Assert.Equal(steps, SeriesCodec.StepCountOf(chunk.Payload));
             var hs = new float[steps];
-            SeriesCodec.Decode(chunk.Payload, SeriesVariable.Hs, hs);
+            SeriesCodec.Decode(chunk.Payload, WaveParameter.Hs, hs);
             for (var s = 0; s < steps; s++)
             {
                 // Tolerance: float32 storage in the file and the series codec's 0.5 mm quantisation (as in the ingest tests).

@@ -37,7 +37,7 @@ double checksum = 0;
 var blocks = Best(runs, () =>
 {
     checksum = 0;
-    foreach (var v in new[] { WaveVariable.Hs, WaveVariable.Te })
+    foreach (var v in new[] { WaveParameter.Hs, WaveParameter.Te })
         for (int p = 0; p < points; p += blockPoints)
         {
             int n = Math.Min(blockPoints, points - p);
@@ -51,7 +51,7 @@ Console.WriteLine($"ReadSteps Hs+Te by point blocks: {blocks:F3} s ({decodedByte
 var slab = new float[24L * points];
 var slabs = Best(runs, () =>
 {
-    foreach (var v in new[] { WaveVariable.Hs, WaveVariable.Te })
+    foreach (var v in new[] { WaveParameter.Hs, WaveParameter.Te })
         for (int t = 0; t < steps; t += 24)
         {
             int n = Math.Min(24, steps - t);

@@ -2,7 +2,7 @@ using System.Diagnostics;
 using Atlas.Statistics;
 using Atlas.Statistics.Benchmarks;
 
-// Times the layer pass (CellStatisticsCalculator) on invented hourly cells and reports nanoseconds per step, by
+// Times the layer pass (BinnedCellCalculator) on invented hourly cells and reports nanoseconds per step, by
 // wall clock and by the process's CPU time (the machine is shared, so CPU time is the steadier figure). Each case
 // runs three times and the best run is kept. For a ratio measured in the same run, a sample of cells also goes
 // through the exact point analysis (sorting every period), the straightforward way to get the same statistics.
@@ -21,7 +21,7 @@ Report("Hs + Te, depth unknown, 10 years", new SyntheticCells(10 * hoursPerYear,
 void Report(string title, SyntheticCells data, int n)
 {
     long totalSteps = (long)n * data.Times.Length;
-    var warm = new CellStatisticsCalculator();
+    var warm = new BinnedCellCalculator();
     for (int i = 0; i < 300; i++) warm.Compute(data.Cell(i));
 
     double bestWall = double.MaxValue, bestCpu = double.MaxValue;
@@ -32,7 +32,7 @@ void Report(string title, SyntheticCells data, int n)
         var watch = Stopwatch.StartNew();
         Parallel.For(0, threads, new ParallelOptions { MaxDegreeOfParallelism = threads }, t =>
         {
-            var calculator = new CellStatisticsCalculator();
+            var calculator = new BinnedCellCalculator();
             for (int i = t; i < n; i += threads) calculator.Compute(data.Cell(i));
         });
         bestWall = Math.Min(bestWall, watch.Elapsed.TotalSeconds);
@@ -41,10 +41,10 @@ void Report(string title, SyntheticCells data, int n)
     }
 
     int sample = Math.Max(4, n / 100);
-    for (int i = 0; i < 4; i++) PointAnalysis.Analyse(data.Cell(i));
+    for (int i = 0; i < 4; i++) ExactPointAnalysis.Analyse(data.Cell(i));
     var current = Process.GetCurrentProcess();
     TimeSpan exactBefore = current.TotalProcessorTime;
-    for (int i = 0; i < sample; i++) PointAnalysis.Analyse(data.Cell(i));
+    for (int i = 0; i < sample; i++) ExactPointAnalysis.Analyse(data.Cell(i));
     current.Refresh();
     double exactNs = (current.TotalProcessorTime - exactBefore).TotalNanoseconds / ((long)sample * data.Times.Length);
 

@@ -1,0 +1,247 @@
+using System.Runtime.Intrinsics;
+
+namespace Atlas.Statistics.Binned;
+
+/// <summary>
+/// The streaming accumulator of one parameter in the layer pass: moments per (year, month) slot, a histogram per
+/// calendar month and (with more than one year) per year, and exceedance counts per slot. Periods are then
+/// merged from slots and histograms, never re-read from the series. Reused from cell to cell without allocating.
+/// </summary>
+internal sealed class ParameterAccumulator
+{
+    private readonly float _lowest;
+    private readonly HistogramBinning _binning;
+    private readonly FixedBinHistogram[] _monthHistograms = new FixedBinHistogram[12];
+    private readonly FixedBinHistogram[] _parts = new FixedBinHistogram[12];
+    private readonly double[] _thresholds;
+    private readonly Vector256<float>[] _thresholdVectors;
+    private FixedBinHistogram[] _yearHistograms = [];
+    private RunningMoments[] _slots = [];
+    private readonly RunningMoments[] _monthMoments = new RunningMoments[12];
+    private long[] _slotExceedances = [];
+    private TimelineCalendar? _calendar;
+    private double _shift;
+
+    private static readonly double[] Probabilities = [.. StatisticKindNames.Percentiles.Select(p => p.Probability)];
+
+    public ParameterAccumulator(WaveParameter parameter, HistogramBinning binning, IReadOnlyList<double> thresholds)
+    {
+        _lowest = ParameterValidity.Lowest(parameter);
+        _binning = binning;
+        for (int m = 0; m < 12; m++) _monthHistograms[m] = new FixedBinHistogram(binning);
+        _thresholds = [.. thresholds];
+        // Thresholds are compared in single precision, like the stored values: a stored 3.0 is not above 3 m.
+        int lanes = Vector256<float>.Count;
+        _thresholdVectors = new Vector256<float>[(_thresholds.Length + lanes - 1) / lanes];
+        Span<float> lane = stackalloc float[lanes];
+        for (int c = 0; c < _thresholdVectors.Length; c++)
+        {
+            for (int l = 0; l < lanes; l++)
+            {
+                int t = c * lanes + l;
+                lane[l] = t < _thresholds.Length ? (float)_thresholds[t] : float.PositiveInfinity;
+            }
+            _thresholdVectors[c] = Vector256.Create<float>(lane);
+        }
+    }
+
+    /// <summary>True when the parameter was accumulated for the current cell.</summary>
+    public bool HasSeries { get; private set; }
+
+    /// <summary>Sizes the per-slot and per-year stores for a calendar (allocating only when it changes shape).</summary>
+    public void Prepare(TimelineCalendar calendar)
+    {
+        if (ReferenceEquals(calendar, _calendar)) return;
+        _calendar = calendar;
+        if (_slots.Length != calendar.SlotCount)
+        {
+            _slots = new RunningMoments[calendar.SlotCount];
+            _slotExceedances = new long[calendar.SlotCount * _thresholds.Length];
+        }
+        int years = calendar.YearSpan > 1 ? calendar.YearSpan : 0;
+        if (_yearHistograms.Length != years)
+        {
+            _yearHistograms = new FixedBinHistogram[years];
+            for (int y = 0; y < years; y++) _yearHistograms[y] = new FixedBinHistogram(_binning);
+        }
+    }
+
+    /// <summary>One pass over the series of the current cell.</summary>
+    public void Accumulate(ReadOnlySpan<float> values)
+    {
+        TimelineCalendar calendar = _calendar ?? throw new InvalidOperationException("Prepare the accumulator for a calendar first.");
+        HasSeries = true;
+        float lowest = _lowest;
+        _shift = 0;
+        foreach (float v in values)
+            if (v >= lowest && v <= float.MaxValue) { _shift = v; break; }
+        double shift = _shift;
+        Array.Fill(_slots, new RunningMoments(shift));
+
+        double inverseWidth = _monthHistograms[0].InverseWidth;
+        int lastBin = _monthHistograms[0].LastBin;
+        bool byYear = _yearHistograms.Length > 0;
+        int chunks = _thresholdVectors.Length;
+        Span<Vector256<int>> exceeding = stackalloc Vector256<int>[chunks];
+
+        foreach (StepRun run in calendar.Runs)
+        {
+            FixedBinHistogram month = _monthHistograms[run.Slot % 12];
+            FixedBinHistogram year = byYear ? _yearHistograms[run.Slot / 12] : month;
+            int[] monthFine = month.Fine, monthCoarse = month.Coarse, yearFine = year.Fine, yearCoarse = year.Coarse;
+            exceeding.Clear();
+            long n = 0;
+            double sum = 0, sumSquares = 0;
+            float minimum = float.PositiveInfinity, maximum = float.NegativeInfinity;
+
+            foreach (float x in values.Slice(run.Start, run.Length))
+            {
+                if (!(x >= lowest && x <= float.MaxValue)) continue;
+                n++;
+                double d = x - shift;
+                sum += d;
+                sumSquares += d * d;
+                if (x < minimum) minimum = x;
+                if (x > maximum) maximum = x;
+                double position = x * inverseWidth;
+                int bin = position >= lastBin ? lastBin : (int)position;
+                monthFine[bin]++;
+                monthCoarse[bin >> FixedBinHistogram.BlockShift]++;
+                if (byYear)
+                {
+                    yearFine[bin]++;
+                    yearCoarse[bin >> FixedBinHistogram.BlockShift]++;
+                }
+                if (chunks > 0)
+                {
+                    Vector256<float> value = Vector256.Create(x);
+                    for (int c = 0; c < chunks; c++)
+                        exceeding[c] -= Vector256.GreaterThan(value, _thresholdVectors[c]).AsInt32();
+                }
+            }
+            if (n == 0) continue;
+
+            _slots[run.Slot].AddSums(n, sum, sumSquares, minimum, maximum);
+            int lowBin = month.BinOfValid(minimum), highBin = month.BinOfValid(maximum);
+            month.Record(n, minimum, maximum, lowBin, highBin);
+            if (byYear) year.Record(n, minimum, maximum, lowBin, highBin);
+            int offset = run.Slot * _thresholds.Length;
+            for (int t = 0; t < _thresholds.Length; t++)
+                _slotExceedances[offset + t] += exceeding[t / Vector256<int>.Count][t % Vector256<int>.Count];
+        }
+    }
+
+    /// <summary>
+    /// The summary of a period of the current cell; <see cref="SummaryStatistics.Empty"/>-like when absent. Seasons and
+    /// the annual period are month-balanced (<see cref="MonthBalance"/>): the mean is the expected-step-weighted mean
+    /// of the monthly means, the deviation that of the weighted mixture, the percentiles weighted histogram estimates.
+    /// </summary>
+    public SummaryStatistics Summarise(AtlasPeriod period, long expectedSteps)
+    {
+        TimelineCalendar calendar = _calendar!;
+        if (!HasSeries) return SummaryStatistics.Empty;
+        var moments = new RunningMoments(_shift);
+        foreach (int slot in calendar.SlotsOf(period)) moments.Merge(_slots[slot]);
+        long n = moments.Count;
+        double coverage = expectedSteps > 0 ? (double)n / expectedSteps : 0;
+        if (n == 0) return SummaryStatistics.Empty with { Coverage = coverage };
+
+        Span<double> quantiles = stackalloc double[Probabilities.Length];
+        Span<double> weights = stackalloc double[12];
+        if (MonthBalance.Applies(period) && BalanceWeights(period, weights, out RunningMoments[] months))
+        {
+            double weightSum = 0, weightedMean = 0;
+            for (int m = 0; m < 12; m++)
+            {
+                if (weights[m] == 0) continue;
+                double share = weights[m] * months[m].Count;
+                weightSum += share;
+                weightedMean += share * months[m].Mean;
+            }
+            weightedMean /= weightSum;
+            double variance = 0;
+            for (int m = 0; m < 12; m++)
+            {
+                if (weights[m] == 0) continue;
+                double share = weights[m] * months[m].Count, offset = months[m].Mean - weightedMean;
+                variance += share * (months[m].PopulationVariance + offset * offset);
+            }
+            ReadOnlySpan<FixedBinHistogram> parts = HistogramsOf(period);
+            Span<double> partWeights = stackalloc double[parts.Length];
+            IReadOnlyList<int> periodMonths = period.Months;
+            for (int i = 0; i < parts.Length; i++) partWeights[i] = weights[periodMonths[i] - 1];
+            FixedBinHistogram.EstimateWeightedQuantiles(parts, partWeights, Probabilities, quantiles);
+            return new SummaryStatistics(weightedMean, Math.Sqrt(variance / weightSum), moments.Minimum, moments.Maximum,
+                quantiles[0], quantiles[1], quantiles[2], quantiles[3], n, coverage);
+        }
+
+        FixedBinHistogram.EstimateQuantiles(HistogramsOf(period), Probabilities, quantiles);
+        return new SummaryStatistics(moments.Mean, moments.PopulationStandardDeviation, moments.Minimum, moments.Maximum,
+            quantiles[0], quantiles[1], quantiles[2], quantiles[3], n, coverage);
+    }
+
+    /// <summary>
+    /// Exceedance fractions of a period at the accumulator's thresholds (NaN fractions when no step is valid);
+    /// month-balanced for seasons and the annual period, as <see cref="Summarise"/>.
+    /// </summary>
+    public ExceedanceFraction[] Exceedances(AtlasPeriod period, long validSteps)
+    {
+        var result = new ExceedanceFraction[_thresholds.Length];
+        ReadOnlySpan<int> slots = HasSeries ? _calendar!.SlotsOf(period) : [];
+        Span<double> weights = stackalloc double[12];
+        bool balanced = HasSeries && validSteps > 0 && MonthBalance.Applies(period) && BalanceWeights(period, weights, out _);
+        double weightSum = 0;
+        if (balanced)
+            foreach (int slot in slots) weightSum += weights[slot % 12] * _slots[slot].Count;
+        for (int t = 0; t < _thresholds.Length; t++)
+        {
+            double above = 0;
+            foreach (int slot in slots)
+            {
+                long count = _slotExceedances[slot * _thresholds.Length + t];
+                above += balanced ? weights[slot % 12] * count : count;
+            }
+            double fraction = !HasSeries || validSteps <= 0 ? double.NaN : balanced ? above / weightSum : above / validSteps;
+            result[t] = new ExceedanceFraction(_thresholds[t], fraction);
+        }
+        return result;
+    }
+
+    /// <summary>The month weights of a climatological period and its moments per calendar month; false when they are equal.</summary>
+    private bool BalanceWeights(AtlasPeriod period, Span<double> weights, out RunningMoments[] months)
+    {
+        TimelineCalendar calendar = _calendar!;
+        months = _monthMoments;
+        for (int m = 0; m < 12; m++) months[m] = new RunningMoments(_shift);
+        foreach (int slot in calendar.SlotsOf(period)) months[slot % 12].Merge(_slots[slot]);
+        Span<long> expected = stackalloc long[12], valid = stackalloc long[12];
+        calendar.ExpectedByMonth(period, expected);
+        for (int m = 0; m < 12; m++) valid[m] = months[m].Count;
+        return MonthBalance.TryWeights(expected, valid, weights);
+    }
+
+    /// <summary>Forgets the current cell, touching only what it used.</summary>
+    public void Clear()
+    {
+        if (!HasSeries) return;
+        HasSeries = false;
+        foreach (FixedBinHistogram h in _monthHistograms) h.Clear();
+        foreach (FixedBinHistogram h in _yearHistograms) h.Clear();
+        Array.Clear(_slotExceedances);
+    }
+
+    private ReadOnlySpan<FixedBinHistogram> HistogramsOf(AtlasPeriod period)
+    {
+        switch (period.Kind)
+        {
+            case PeriodKind.Year when _yearHistograms.Length > 0:
+                return new ReadOnlySpan<FixedBinHistogram>(in _yearHistograms[period.Code - _calendar!.FirstYear]);
+            case PeriodKind.Month:
+                return new ReadOnlySpan<FixedBinHistogram>(in _monthHistograms[period.Code - 1]);
+            default:
+                IReadOnlyList<int> months = period.Months;
+                for (int i = 0; i < months.Count; i++) _parts[i] = _monthHistograms[months[i] - 1];
+                return _parts.AsSpan(0, months.Count);
+        }
+    }
+}
