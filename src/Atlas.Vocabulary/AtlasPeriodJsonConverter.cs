@@ -1,20 +1,11 @@
-using System.Text.Json;
-using System.Text.Json.Serialization;
-
 namespace Atlas.Vocabulary;
 
 /// <summary>Writes an <see cref="AtlasPeriod"/> as its name ("jan", "djf", "annual", "y2019") and reads it back.</summary>
-public sealed class AtlasPeriodJsonConverter : JsonConverter<AtlasPeriod>
+public sealed class AtlasPeriodJsonConverter : TextJsonConverter<AtlasPeriod>
 {
-    /// <inheritdoc/>
-    public override AtlasPeriod Read(ref Utf8JsonReader reader, Type typeToConvert, JsonSerializerOptions options)
-    {
-        string? text = reader.TokenType == JsonTokenType.String ? reader.GetString() : null;
-        if (!AtlasPeriod.TryParse(text, out AtlasPeriod period))
-            throw new JsonException($"Expected a period name such as \"jan\", \"djf\", \"annual\" or \"y2019\", found {reader.TokenType} '{text}'.");
-        return period;
-    }
+    protected override string Expected => "a period name such as \"jan\", \"djf\", \"annual\" or \"y2019\"";
 
-    /// <inheritdoc/>
-    public override void Write(Utf8JsonWriter writer, AtlasPeriod value, JsonSerializerOptions options) => writer.WriteStringValue(value.Name);
+    protected override bool TryParse(string? text, out AtlasPeriod value) => AtlasPeriod.TryParse(text, out value);
+
+    protected override string Format(AtlasPeriod value) => value.Name;
 }

@@ -3,7 +3,7 @@ namespace Atlas.Vocabulary;
 /// <summary>Names of <see cref="StatisticKind"/> as used in URLs and metadata, and the probabilities of the percentiles.</summary>
 public static class StatisticKindNames
 {
-    private static readonly string[] Names = ["mean", "sd", "min", "max", "p10", "p50", "p90", "p99", "count", "coverage"];
+    private static readonly NameTable<StatisticKind> Names = new("statistic", ["mean", "sd", "min", "max", "p10", "p50", "p90", "p99", "count", "coverage"]);
 
     /// <summary>Every statistic, in declaration order.</summary>
     public static IReadOnlyList<StatisticKind> All { get; } = Enum.GetValues<StatisticKind>();
@@ -13,21 +13,12 @@ public static class StatisticKindNames
         [(StatisticKind.P10, 0.10), (StatisticKind.P50, 0.50), (StatisticKind.P90, 0.90), (StatisticKind.P99, 0.99)];
 
     /// <summary>The name: "mean", "sd", "min", "max", "p10", "p50", "p90", "p99", "count", "coverage".</summary>
-    public static string Name(this StatisticKind kind) =>
-        (uint)kind < (uint)Names.Length ? Names[(int)kind] : throw new ArgumentOutOfRangeException(nameof(kind), kind, "Unknown statistic.");
+    public static string Name(this StatisticKind kind) => Names.NameOf(kind);
 
     /// <summary>Parses a name, ignoring case.</summary>
     /// <exception cref="FormatException">The text is not one of the names; the message lists them.</exception>
-    public static StatisticKind Parse(string text) =>
-        TryParse(text, out StatisticKind kind)
-            ? kind
-            : throw new FormatException($"Unknown statistic '{text}': expected one of {string.Join(", ", Names)}.");
+    public static StatisticKind Parse(string text) => Names.Parse(text);
 
     /// <summary>Parses a name, ignoring case; false for anything else, including null.</summary>
-    public static bool TryParse(string? text, out StatisticKind kind)
-    {
-        int i = text is null ? -1 : Array.FindIndex(Names, s => string.Equals(s, text.Trim(), StringComparison.OrdinalIgnoreCase));
-        kind = i < 0 ? default : (StatisticKind)i;
-        return i >= 0;
-    }
+    public static bool TryParse(string? text, out StatisticKind kind) => Names.TryParse(text, out kind);
 }

@@ -1,4 +1,4 @@
-namespace Atlas.Statistics.Tests;
+namespace Atlas.Vocabulary.Tests;
 
 public class NamesTests
 {
@@ -27,5 +27,26 @@ public class NamesTests
         Assert.Contains("p99", Assert.Throws<FormatException>(() => StatisticKindNames.Parse("median")).Message);
         Assert.Contains("spread", Assert.Throws<FormatException>(() => WaveParameterNames.Parse("hm0")).Message);
         Assert.False(WaveParameterNames.TryParse(null, out _));
+    }
+
+    [Fact]
+    public void GroupsAreSubsetsInTheirStatedOrderAndSeriesIndexFollowsThem()
+    {
+        // J and D are derived (power from Hm0 and Te, directionality from the spectrum or the spread): never read or stored as series.
+        Assert.Equal("hs te tp dir spread depth", string.Join(' ', WaveParameterGroups.HindcastFields.Select(p => p.Symbol())));
+        Assert.Equal(WaveParameterGroups.HindcastFields.Where(p => p != WaveParameter.Depth), WaveParameterGroups.SeriesFields);
+        Assert.Equal("hs tp te dir", string.Join(' ', WaveParameterGroups.StationFields.Select(p => p.Symbol())));
+        for (var k = 0; k < WaveParameterGroups.SeriesFields.Count; k++) Assert.Equal(k, WaveParameterGroups.SeriesIndex(WaveParameterGroups.SeriesFields[k]));
+        Assert.Equal(-1, WaveParameterGroups.SeriesIndex(WaveParameter.J));
+    }
+
+    [Fact]
+    public void JsonCarriesSymbolsAndAWrongOneSaysWhatWasExpected()
+    {
+        Assert.Equal("\"spread\"", System.Text.Json.JsonSerializer.Serialize(WaveParameter.Spread));
+        Assert.Equal(WaveParameter.Tp, System.Text.Json.JsonSerializer.Deserialize<WaveParameter>("\"TP\""));
+        var error = Assert.Throws<System.Text.Json.JsonException>(() => System.Text.Json.JsonSerializer.Deserialize<WaveParameter>("\"hm0\""));
+        Assert.Contains("wave parameter symbol", error.Message);
+        Assert.Throws<ArgumentOutOfRangeException>(() => ((WaveParameter)42).Unit());
     }
 }

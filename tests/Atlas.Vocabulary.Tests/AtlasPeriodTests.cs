@@ -1,6 +1,6 @@
 using System.Text.Json;
 
-namespace Atlas.Statistics.Tests;
+namespace Atlas.Vocabulary.Tests;
 
 public class AtlasPeriodTests
 {
