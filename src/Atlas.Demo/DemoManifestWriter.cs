@@ -12,71 +12,40 @@ namespace Atlas.Demo;
 /// </summary>
 public static class DemoManifestWriter
 {
+    // snake_case member names, written in declaration order and indented, as the manifest has always been laid out.
+    private static readonly JsonSerializerOptions ManifestJson = new()
+    {
+        PropertyNamingPolicy = JsonNamingPolicy.SnakeCaseLower,
+        WriteIndented = true,
+    };
+
+    private static readonly Dictionary<string, string> QcCodes = new()
+    {
+        ["0"] = "good",
+        ["1"] = "suspect: spike",
+        ["2"] = "bad: dropout, no values",
+    };
+
     /// <summary>Writes <c>scenario.json</c> for <paramref name="scenario"/> to <paramref name="path"/>.</summary>
     public static void WriteManifest(string path, DemoScenario scenario)
     {
         ArgumentNullException.ThrowIfNull(scenario);
+        var b = scenario.Bounds;
+        var manifest = new Manifest(
+            scenario.Name,
+            scenario.Summary,
+            scenario.Features,
+            new ManifestBounds(b.West, b.East, b.South, b.North),
+            new ManifestGrid(scenario.Columns, scenario.Rows, scenario.WetCells, scenario.MinimumDepthMetres, scenario.MaximumDepthMetres),
+            new ManifestTime(Iso(scenario.Start), Iso(scenario.End), scenario.StepHours, scenario.Years),
+            scenario.Seed,
+            scenario.FieldFiles,
+            [.. scenario.Buoys.Select(u => new ManifestStation(u.Name, u.FileName, RoleName(u.Role), u.Instrument, u.Latitude, u.Longitude,
+                u.DepthMetres, u.HsBiasFraction, u.IntervalMinutes))],
+            QcCodes,
+            new ManifestDevice(scenario.Device.Name, scenario.Device.Kind, scenario.Device.RatedKilowatts, scenario.Device.FileName));
         using var stream = File.Create(path);
-        using var json = new Utf8JsonWriter(stream, new JsonWriterOptions { Indented = true });
-        json.WriteStartObject();
-        json.WriteString("name", scenario.Name);
-        json.WriteString("summary", scenario.Summary);
-        json.WriteStartArray("features");
-        foreach (var f in scenario.Features) json.WriteStringValue(f);
-        json.WriteEndArray();
-        json.WriteStartObject("bounds");
-        json.WriteNumber("west", scenario.Bounds.West);
-        json.WriteNumber("east", scenario.Bounds.East);
-        json.WriteNumber("south", scenario.Bounds.South);
-        json.WriteNumber("north", scenario.Bounds.North);
-        json.WriteEndObject();
-        json.WriteStartObject("grid");
-        json.WriteNumber("columns", scenario.Columns);
-        json.WriteNumber("rows", scenario.Rows);
-        json.WriteNumber("wet_cells", scenario.WetCells);
-        json.WriteNumber("min_depth_m", scenario.MinimumDepthMetres);
-        json.WriteNumber("max_depth_m", scenario.MaximumDepthMetres);
-        json.WriteEndObject();
-        json.WriteStartObject("time");
-        json.WriteString("start", Iso(scenario.Start));
-        json.WriteString("end", Iso(scenario.End));
-        json.WriteNumber("step_hours", scenario.StepHours);
-        json.WriteStartArray("years");
-        foreach (int y in scenario.Years) json.WriteNumberValue(y);
-        json.WriteEndArray();
-        json.WriteEndObject();
-        json.WriteNumber("seed", scenario.Seed);
-        json.WriteStartArray("field_files");
-        foreach (var f in scenario.FieldFiles) json.WriteStringValue(f);
-        json.WriteEndArray();
-        json.WriteStartArray("stations");
-        foreach (var b in scenario.Buoys)
-        {
-            json.WriteStartObject();
-            json.WriteString("name", b.Name);
-            json.WriteString("file", b.FileName);
-            json.WriteString("role", RoleName(b.Role));
-            json.WriteString("instrument", b.Instrument);
-            json.WriteNumber("lat", b.Latitude);
-            json.WriteNumber("lon", b.Longitude);
-            json.WriteNumber("depth_m", b.DepthMetres);
-            json.WriteNumber("hs_bias_fraction", b.HsBiasFraction);
-            json.WriteNumber("interval_min", b.IntervalMinutes);
-            json.WriteEndObject();
-        }
-        json.WriteEndArray();
-        json.WriteStartObject("qc_codes");
-        json.WriteString("0", "good");
-        json.WriteString("1", "suspect: spike");
-        json.WriteString("2", "bad: dropout, no values");
-        json.WriteEndObject();
-        json.WriteStartObject("device");
-        json.WriteString("name", scenario.Device.Name);
-        json.WriteString("kind", scenario.Device.Kind);
-        json.WriteNumber("rated_kw", scenario.Device.RatedKilowatts);
-        json.WriteString("file", scenario.Device.FileName);
-        json.WriteEndObject();
-        json.WriteEndObject();
+        JsonSerializer.Serialize(stream, manifest, ManifestJson);
     }
 
     /// <summary>Writes <c>stations.csv</c> for <paramref name="scenario"/> to <paramref name="path"/>.</summary>
@@ -95,4 +64,20 @@ public static class DemoManifestWriter
     private static string RoleName(BuoyRole role) => role == BuoyRole.Calibration ? "calibration" : "validation";
 
     private static string Iso(DateTime utc) => utc.ToString("yyyy-MM-dd'T'HH:mm:ss'Z'", CultureInfo.InvariantCulture);
+
+    private sealed record Manifest(
+        string Name, string Summary, IReadOnlyList<string> Features, ManifestBounds Bounds, ManifestGrid Grid, ManifestTime Time,
+        ulong Seed, IReadOnlyList<string> FieldFiles, IReadOnlyList<ManifestStation> Stations, IReadOnlyDictionary<string, string> QcCodes,
+        ManifestDevice Device);
+
+    private sealed record ManifestBounds(double West, double East, double South, double North);
+
+    private sealed record ManifestGrid(int Columns, int Rows, int WetCells, double MinDepthM, double MaxDepthM);
+
+    private sealed record ManifestTime(string Start, string End, int StepHours, IReadOnlyList<int> Years);
+
+    private sealed record ManifestStation(
+        string Name, string File, string Role, string Instrument, double Lat, double Lon, double DepthM, double HsBiasFraction, int IntervalMin);
+
+    private sealed record ManifestDevice(string Name, string Kind, double RatedKw, string File);
 }

@@ -29,8 +29,10 @@ public class JobQueueTests(TestDatabase database) : IClassFixture<TestDatabase>
         var queue = new JobQueue(database.DataSource);
         var id = await queue.EnqueueAsync(JobKind.Ingest, "stale");
         Assert.NotNull(await queue.ClaimAsync(id, "gone"));
-        await Task.Delay(1100);
-        Assert.True(await queue.RequeueStaleAsync(TimeSpan.FromSeconds(1)) >= 1);
+        // Waits for the database's clock, which decides staleness, rather than for a fixed time: the first call after
+        // the last heartbeat is a second old re-queues it.
+        await Patience.UntilAsync(async () => await queue.RequeueStaleAsync(TimeSpan.FromSeconds(1)) >= 1,
+            "the job without heartbeats for a second to be re-queued");
         var again = await queue.ClaimAsync(id, "second");
         Assert.NotNull(again);
         Assert.Equal(2, again!.Attempts);
@@ -43,7 +45,8 @@ public class JobQueueTests(TestDatabase database) : IClassFixture<TestDatabase>
         var id = await queue.EnqueueAsync(JobKind.Ingest, "leased");
         Assert.NotNull(await queue.ClaimAsync(id, "holder"));
         var lease = await JobLease.TakeAsync(database.DataSource, id);
-        await Task.Delay(JobQueue.LeaseGrace + TimeSpan.FromMilliseconds(300));
+        // Only once the claim is older than the lease grace does the lease decide, so wait for that by the database's clock.
+        await Patience.UntilAsync(() => ClaimIsOlderThanLeaseGraceAsync(id), "the claim to outlive the lease grace");
         // The heartbeat limit is an hour away: only the lease decides here.
         await queue.RequeueStaleAsync(TimeSpan.FromHours(1));
         Assert.Equal("running", (await queue.FindAsync(id))!.State);
@@ -52,5 +55,13 @@ public class JobQueueTests(TestDatabase database) : IClassFixture<TestDatabase>
         Assert.Equal("queued", (await queue.FindAsync(id))!.State);
         // Leave no queued job behind for the other tests of this database.
         await queue.CompleteAsync(id, "checked");
+    }
+
+    private async Task<bool> ClaimIsOlderThanLeaseGraceAsync(long id)
+    {
+        await using var command = database.DataSource.CreateCommand("SELECT claimed_at < now() - $2 FROM job WHERE job_id = $1");
+        command.Parameters.AddWithValue(id);
+        command.Parameters.AddWithValue(JobQueue.LeaseGrace);
+        return (bool)(await command.ExecuteScalarAsync())!;
     }
 }

@@ -12,7 +12,7 @@ namespace Atlas.Assessment.Extremes;
 /// </remarks>
 /// <param name="Scale">σ, above 0.</param>
 /// <param name="Shape">ξ.</param>
-public readonly record struct GeneralizedParetoDistribution(double Scale, double Shape)
+public readonly record struct GeneralizedParetoDistribution(double Scale, double Shape) : ILogDensity
 {
     /// <summary>P(Y ≤ y) for an excess y; 0 for y below 0, 1 beyond the upper bound.</summary>
     public double Cdf(double excess)
@@ -57,15 +57,6 @@ public readonly record struct GeneralizedParetoDistribution(double Scale, double
     {
         if (!(scale > 0))
             return double.NegativeInfinity;
-        var distribution = new GeneralizedParetoDistribution(scale, shape);
-        double sum = 0;
-        foreach (double y in excesses)
-        {
-            double logDensity = distribution.LogDensity(y);
-            if (double.IsNegativeInfinity(logDensity))
-                return double.NegativeInfinity;
-            sum += logDensity;
-        }
-        return sum;
+        return SampleLogLikelihood.Of(excesses, new GeneralizedParetoDistribution(scale, shape));
     }
 }

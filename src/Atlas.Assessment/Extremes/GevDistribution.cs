@@ -15,7 +15,7 @@ namespace Atlas.Assessment.Extremes;
 /// <param name="Location">μ.</param>
 /// <param name="Scale">σ, above 0.</param>
 /// <param name="Shape">ξ (Coles' sign; 0 is Gumbel).</param>
-public readonly record struct GevDistribution(double Location, double Scale, double Shape)
+public readonly record struct GevDistribution(double Location, double Scale, double Shape) : ILogDensity
 {
     /// <summary>Shapes closer to 0 than this use the Gumbel formulas, which they equal to double precision.</summary>
     internal const double GumbelShapeTolerance = 1e-12;
@@ -81,15 +81,6 @@ public readonly record struct GevDistribution(double Location, double Scale, dou
     {
         if (!(scale > 0))
             return double.NegativeInfinity;
-        var distribution = new GevDistribution(location, scale, shape);
-        double sum = 0;
-        foreach (double x in sample)
-        {
-            double logDensity = distribution.LogDensity(x);
-            if (double.IsNegativeInfinity(logDensity))
-                return double.NegativeInfinity;
-            sum += logDensity;
-        }
-        return sum;
+        return SampleLogLikelihood.Of(sample, new GevDistribution(location, scale, shape));
     }
 }

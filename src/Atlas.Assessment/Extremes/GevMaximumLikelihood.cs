@@ -32,13 +32,7 @@ public static class GevMaximumLikelihood
                 starts.Add(start);
         }
 
-        (double[] Point, double Value) best = (starts[0], double.PositiveInfinity);
-        foreach (var start in starts)
-        {
-            var result = NelderMeadMinimiser.Minimise(NegativeLogLikelihood, start, [0.1 * gumbel.Scale, 0.1, 0.1]);
-            if (result.Value < best.Value)
-                best = result;
-        }
+        var best = NelderMeadMinimiser.MinimiseFromEach(NegativeLogLikelihood, starts, [0.1 * gumbel.Scale, 0.1, 0.1]);
         var fitted = new GevDistribution(best.Point[0], Math.Exp(best.Point[1]), best.Point[2]);
         return new GevFit(sample, fitted, -best.Value, shapeFixedAtZero: false);
     }

@@ -1,19 +1,23 @@
 namespace Atlas.Assessment.Extremes;
 
 /// <summary>A generalised Pareto distribution fitted to storm peaks over a threshold, with the rate of peaks.</summary>
-public sealed class GpdFit
+/// <remarks>
+/// The T-year return level is x = u + σ ((λT)^ξ - 1)/ξ (u + σ ln(λT) at ξ = 0; Coles 2001, §4.3.3); its profile
+/// likelihood runs over (σ, ξ), and the uncertainty of λ is not included (Coles shows it is small beside that of ξ).
+/// The level is defined only when λT &gt; 1: with fewer than one peak per T years on average it lies at or below the
+/// threshold, where the GPD does not describe the data. It is then NaN with a note (lower the threshold to estimate it).
+/// </remarks>
+public sealed class GpdFit : ExtremeValueFit
 {
-    private readonly double[] _sortedPeaks;
     private readonly double[] _excesses;
 
     internal GpdFit(double[] sortedPeaks, double threshold, double exceedancesPerYear, GeneralizedParetoDistribution distribution, double logLikelihood)
+        : base(sortedPeaks, logLikelihood)
     {
-        _sortedPeaks = sortedPeaks;
         _excesses = [.. sortedPeaks.Select(x => x - threshold)];
         Threshold = threshold;
         ExceedancesPerYear = exceedancesPerYear;
         Distribution = distribution;
-        LogLikelihood = logLikelihood;
     }
 
     /// <summary>The threshold u.</summary>
@@ -25,57 +29,31 @@ public sealed class GpdFit
     /// <summary>The fitted distribution of excesses over the threshold.</summary>
     public GeneralizedParetoDistribution Distribution { get; }
 
-    /// <summary>Maximised log-likelihood of the excesses.</summary>
-    public double LogLikelihood { get; }
-
     /// <summary>The peaks fitted, ascending.</summary>
-    public IReadOnlyList<double> Peaks => _sortedPeaks;
+    public IReadOnlyList<double> Peaks => SortedSample;
 
     /// <summary>Record length implied by the peaks and their rate, years.</summary>
-    public double RecordYears => _sortedPeaks.Length / ExceedancesPerYear;
+    public override double RecordYears => SortedSample.Length / ExceedancesPerYear;
 
-    /// <summary>
-    /// The T-year return level, exceeded on average once every T years: x = u + σ ((λT)^ξ - 1)/ξ
-    /// (u + σ ln(λT) at ξ = 0; Coles 2001, §4.3.3), with a profile-likelihood confidence interval
-    /// over (σ, ξ). The uncertainty of λ is not included (Coles shows it is small beside that of ξ).
-    /// </summary>
-    /// <remarks>
-    /// Defined only when λT &gt; 1: with fewer than one peak per T years on average the level lies
-    /// at or below the threshold, where the GPD does not describe the data. It is then NaN with a
-    /// note (lower the threshold to estimate it).
-    /// </remarks>
-    /// <exception cref="ArgumentOutOfRangeException">T is not a positive finite number, or the level is outside (0, 1).</exception>
-    public ReturnLevel ReturnLevel(double returnPeriodYears, double confidenceLevel = 0.95)
-    {
-        if (!double.IsFinite(returnPeriodYears) || returnPeriodYears <= 0)
-            throw new ArgumentOutOfRangeException(nameof(returnPeriodYears), returnPeriodYears, "A return period is a positive number of years.");
-        if (!(confidenceLevel > 0 && confidenceLevel < 1))
-            throw new ArgumentOutOfRangeException(nameof(confidenceLevel), confidenceLevel, "A confidence level lies strictly between 0 and 1.");
-        bool longExtrapolation = ExtremeCaution.IsLongExtrapolation(returnPeriodYears, RecordYears);
-        double logPeaks = Math.Log(ExceedancesPerYear * returnPeriodYears);
-        // Below ~1e-9 the reparametrised scale σ = (x - u)/ln(λT) degenerates.
-        if (logPeaks <= 1e-9)
-            return new ReturnLevel(returnPeriodYears, double.NaN, double.NaN, double.NaN, confidenceLevel, longExtrapolation,
-                $"Undefined at this threshold: {ExceedancesPerYear:0.##} peaks a year give λT = {ExceedancesPerYear * returnPeriodYears:0.##} ≤ 1, " +
-                "so the level lies at or below the threshold, outside the fitted tail. Lower the threshold to estimate it.");
+    private protected override double FittedScale => Distribution.Scale;
 
-        double level = Threshold + ReducedLevel(Distribution.Scale, Distribution.Shape, logPeaks);
-        var (lower, upper) = ProfileLikelihoodInterval.Find(
-            ProfileAt(logPeaks), level, LogLikelihood, confidenceLevel, 0.2 * Distribution.Scale, Threshold);
-        string? note = ProfileLikelihoodInterval.Describe(lower, upper);
-        return new ReturnLevel(returnPeriodYears, level, lower, upper, confidenceLevel, longExtrapolation, note);
-    }
+    private protected override double LowestLevel => Threshold;
 
-    /// <summary>Fit diagnostics: each peak against its plotting position and the fitted distribution (conditional on exceeding u).</summary>
-    public IReadOnlyList<ProbabilityPlotPoint> ProbabilityPlot()
-    {
-        int n = _sortedPeaks.Length;
-        return [.. _sortedPeaks.Select((x, i) =>
-        {
-            double empirical = (i + 1.0) / (n + 1.0);
-            return new ProbabilityPlotPoint(x, empirical, Distribution.Cdf(x - Threshold), Threshold + Distribution.Quantile(empirical));
-        })];
-    }
+    /// <summary>Below ~1e-9 the reparametrised scale σ = (x - u)/ln(λT) degenerates.</summary>
+    private protected override string? WhyUndefined(double returnPeriodYears) => LogPeaks(returnPeriodYears) <= 1e-9
+        ? $"Undefined at this threshold: {ExceedancesPerYear:0.##} peaks a year give λT = {ExceedancesPerYear * returnPeriodYears:0.##} ≤ 1, " +
+          "so the level lies at or below the threshold, outside the fitted tail. Lower the threshold to estimate it."
+        : null;
+
+    private protected override double LevelAt(double returnPeriodYears) =>
+        Threshold + ReducedLevel(Distribution.Scale, Distribution.Shape, LogPeaks(returnPeriodYears));
+
+    private protected override double FittedProbability(double value) => Distribution.Cdf(value - Threshold);
+
+    private protected override double FittedQuantile(double probability) => Threshold + Distribution.Quantile(probability);
+
+    /// <summary>ln(λT), the log of the expected number of peaks in T years.</summary>
+    private double LogPeaks(double returnPeriodYears) => Math.Log(ExceedancesPerYear * returnPeriodYears);
 
     /// <summary>σ ((λT)^ξ - 1)/ξ with ln(λT) given.</summary>
     private static double ReducedLevel(double scale, double shape, double logPeaks) =>
@@ -83,29 +61,18 @@ public sealed class GpdFit
             ? scale * logPeaks
             : scale * GevDistribution.ReducedQuantileTerm(shape, -logPeaks);
 
-    /// <summary>
-    /// Profile log-likelihood of the level x: σ = (x - u) ξ / ((λT)^ξ - 1), maximised over ξ,
-    /// starting from the previous solution or, if that is impossible at the new x, from ξ = 0.
-    /// </summary>
-    private Func<double, double> ProfileAt(double logPeaks)
+    /// <summary>Profile log-likelihood of the level x: σ = (x - u) ξ / ((λT)^ξ - 1), maximised over ξ.</summary>
+    private protected override Func<double, double> ProfileAt(double returnPeriodYears)
     {
         double[] excesses = _excesses;
         double threshold = Threshold;
-        double[] previous = [Distribution.Shape];
-        return x =>
+        double logPeaks = LogPeaks(returnPeriodYears);
+        var profile = new WarmStartedProfile([Distribution.Shape], [0.1], restartAtZeroShape: true);
+        return x => profile.Maximum(p =>
         {
-            double Objective(double[] p)
-            {
-                if (p[0] <= -1) return double.PositiveInfinity;
-                double scale = (x - threshold) / ReducedLevel(1.0, p[0], logPeaks);
-                return -GeneralizedParetoDistribution.LogLikelihood(excesses, scale, p[0]);
-            }
-            double[] start = double.IsFinite(Objective(previous)) ? previous : [0.0];
-            if (!double.IsFinite(Objective(start)))
-                return double.NegativeInfinity;
-            var (point, value) = NelderMeadMinimiser.Minimise(Objective, start, [0.1]);
-            previous = point;
-            return -value;
-        };
+            if (p[0] <= -1) return double.PositiveInfinity;
+            double scale = (x - threshold) / ReducedLevel(1.0, p[0], logPeaks);
+            return -GeneralizedParetoDistribution.LogLikelihood(excesses, scale, p[0]);
+        });
     }
 }

@@ -40,13 +40,7 @@ public static class GpdMaximumLikelihood
         if (momentScale > 0 && double.IsFinite(NegativeLogLikelihood(momentStart)))
             starts.Add(momentStart);
 
-        (double[] Point, double Value) best = (starts[0], double.PositiveInfinity);
-        foreach (var start in starts)
-        {
-            var result = NelderMeadMinimiser.Minimise(NegativeLogLikelihood, start, [0.1, 0.1]);
-            if (result.Value < best.Value)
-                best = result;
-        }
+        var best = NelderMeadMinimiser.MinimiseFromEach(NegativeLogLikelihood, starts, [0.1, 0.1]);
         var distribution = new GeneralizedParetoDistribution(Math.Exp(best.Point[0]), best.Point[1]);
         return new GpdFit(sortedPeaks, threshold, exceedancesPerYear, distribution, -best.Value);
     }

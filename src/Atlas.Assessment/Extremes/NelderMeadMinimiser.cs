@@ -52,4 +52,21 @@ internal static class NelderMeadMinimiser
         }
         return (point, best);
     }
+
+    /// <summary>
+    /// The best of the minima reached from each start: a likelihood can have more than one local maximum, and a start
+    /// from another estimator (moments, L-moments) or from the two-parameter fit guards against settling on a poor one.
+    /// </summary>
+    /// <exception cref="InvalidOperationException">A start is infeasible or the simplex does not converge.</exception>
+    public static (double[] Point, double Value) MinimiseFromEach(Func<double[], double> objective, IReadOnlyList<double[]> starts, double[] initialSteps)
+    {
+        (double[] Point, double Value) best = (starts[0], double.PositiveInfinity);
+        foreach (var start in starts)
+        {
+            var result = Minimise(objective, start, initialSteps);
+            if (result.Value < best.Value)
+                best = result;
+        }
+        return best;
+    }
 }

@@ -29,7 +29,12 @@ internal static class ProfileLikelihoodInterval
     {
         try
         {
-            return Search(profileLogLikelihood, estimate, maximumLogLikelihood, confidenceLevel, initialStep, lowerLimit);
+            double target = maximumLogLikelihood - 0.5 * ChiSquared.InvCDF(1, confidenceLevel);
+            double Excess(double z) => profileLogLikelihood(z) - target;
+            double accuracy = 1e-9 * Math.Max(Math.Abs(estimate), initialStep);
+            double upper = Bound(Excess, estimate, upward: true, initialStep, double.PositiveInfinity, accuracy);
+            double lower = Bound(Excess, estimate, upward: false, initialStep, lowerLimit, accuracy);
+            return (lower, upper);
         }
         catch (InvalidOperationException)
         {
@@ -47,49 +52,25 @@ internal static class ProfileLikelihoodInterval
         return null;
     }
 
-    private static (double Lower, double Upper) Search(
-        Func<double, double> profileLogLikelihood,
-        double estimate,
-        double maximumLogLikelihood,
-        double confidenceLevel,
-        double initialStep,
-        double lowerLimit)
+    /// <summary>
+    /// One bound: steps away from the estimate, doubling the step, until the profile falls below the target, then finds
+    /// the crossing. A trial at or beyond <paramref name="limit"/> is impossible, so the next trial goes halfway from
+    /// the last value inside to the limit instead. The limit itself when the profile never falls far enough.
+    /// </summary>
+    private static double Bound(Func<double, double> excess, double estimate, bool upward, double initialStep, double limit, double accuracy)
     {
-        double target = maximumLogLikelihood - 0.5 * ChiSquared.InvCDF(1, confidenceLevel);
-        double Excess(double z) => profileLogLikelihood(z) - target;
-        double accuracy = 1e-9 * Math.Max(Math.Abs(estimate), initialStep);
-
-        double upper = double.PositiveInfinity;
         double inside = estimate, step = initialStep;
         for (int i = 0; i < MaximumExpansions; i++)
         {
-            double trial = estimate + step;
-            if (Excess(trial) < 0)
-            {
-                upper = Root(Excess, inside, trial, accuracy);
-                break;
-            }
+            double trial = upward ? estimate + step : estimate - step;
+            if (upward ? trial >= limit : trial <= limit)
+                trial = limit + 0.5 * (inside - limit);
+            if (excess(trial) < 0)
+                return Root(excess, inside, trial, accuracy);
             inside = trial;
             step *= 2;
         }
-
-        double lower = lowerLimit;
-        inside = estimate;
-        step = initialStep;
-        for (int i = 0; i < MaximumExpansions; i++)
-        {
-            double trial = estimate - step;
-            if (trial <= lowerLimit)
-                trial = lowerLimit + 0.5 * (inside - lowerLimit);
-            if (Excess(trial) < 0)
-            {
-                lower = Root(Excess, trial, inside, accuracy);
-                break;
-            }
-            inside = trial;
-            step *= 2;
-        }
-        return (lower, upper);
+        return limit;
     }
 
     /// <summary>Brent's method on a bracket with f(a) and f(b) of opposite sign; bisection if Brent gives up.</summary>

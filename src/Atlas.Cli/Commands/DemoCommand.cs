@@ -77,19 +77,9 @@ public static class DemoCommand
             foreach (var line in scenario.DescribeLines()) Console.WriteLine("  " + line);
 
             await using var dataSource = await AtlasDatabase.OpenMigratedAsync(cancel: cancel);
-            var queue = new JobQueue(dataSource);
             var payload = new IngestPayload(files, $"{scenario.Name} (invented demo coast)", QueueStatistics: false);
-            var id = await queue.EnqueueAsync(JobKind.Ingest, DatasetSlug, JsonSerializer.Serialize(payload), cancel);
-            var job = await queue.ClaimAsync(id, CommandWorker.Name, cancel) ?? throw new InvalidOperationException($"Job {id} was claimed by another worker.");
-            try
-            {
-                Console.WriteLine(await new JobRunner(dataSource).RunAsync(job, new ConsoleProgress(), cancel));
-            }
-            catch (Exception e) when (e is not OperationCanceledException)
-            {
-                Console.Error.WriteLine($"atlas demo: {e.Message}");
-                return 2;
-            }
+            var ingest = await CommandLineJob.RunAsync(dataSource, JobKind.Ingest, DatasetSlug, payload, "demo", afterFailure: null, cancel);
+            if (ingest != 0) return ingest;
             var stats = await StatsCommand.RunAsync(dataSource, DatasetSlug, all: false, cancel);
             if (stats != 0) return stats;
             var assessment = await LoadAssessmentAsync(dataSource, folder, cancel);

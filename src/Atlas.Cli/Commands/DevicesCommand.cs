@@ -1,7 +1,6 @@
 using System.CommandLine;
 using System.Globalization;
 using Atlas.Ingest.Assessment;
-using Atlas.Storage;
 using Atlas.Storage.Devices;
 
 namespace Atlas.Cli.Commands;
@@ -23,38 +22,13 @@ public static class DevicesCommand
         var name = new Option<string>("--name") { Description = "The device's name (your own)", Required = true };
         var rated = new Option<double?>("--rated-kw") { Description = "Rated power, kW (default: the largest matrix value)" };
         var command = new Command("add", "Store a power matrix; a bad matrix is reported cell by cell and nothing is stored.") { file, name, rated };
-        command.SetAction(async (parse, cancel) =>
-        {
-            await using var dataSource = await AtlasDatabase.OpenMigratedAsync(cancel: cancel);
-            try
-            {
-                var result = await new DeviceLoader(dataSource).LoadAsync(parse.GetValue(name)!, parse.GetValue(file)!, parse.GetValue(rated), cancel);
-                Console.WriteLine(result.Describe());
-                return 0;
-            }
-            catch (Exception e) when (e is FormatException or ArgumentException or FileNotFoundException or DuplicateDeviceException)
-            {
-                Console.Error.WriteLine($"atlas devices add: {e.Message}");
-                Console.Error.WriteLine("Nothing was stored.");
-                return 2;
-            }
-        });
-        return command;
+        return ReferenceCommands.Add<DuplicateDeviceException>("devices", command, async (parse, dataSource, cancel) =>
+            (await new DeviceLoader(dataSource).LoadAsync(parse.GetValue(name)!, parse.GetValue(file)!, parse.GetValue(rated), cancel)).Describe());
     }
 
-    private static Command BuildList()
-    {
-        var command = new Command("list", "List the stored devices.");
-        command.SetAction(async (_, cancel) =>
-        {
-            await using var dataSource = await AtlasDatabase.OpenMigratedAsync(cancel: cancel);
-            var devices = await new DeviceStore(dataSource).ListAsync(cancel);
-            if (devices.Count == 0) Console.WriteLine("no devices stored (atlas devices add)");
-            foreach (var d in devices)
-                Console.WriteLine(string.Create(CultureInfo.InvariantCulture,
-                    $"{d.Name} [{d.Slug}]: {d.HsCentresMetres.Length} Hs x {d.PeriodCentresSeconds.Length} {DeviceStore.AxisName(d.AxisKind)} bins, rated {d.RatedPowerKw:0.###} kW, from {d.SourceFile}"));
-            return 0;
-        });
-        return command;
-    }
+    private static Command BuildList() =>
+        ReferenceCommands.List("List the stored devices.", "no devices stored (atlas devices add)",
+            (dataSource, cancel) => new DeviceStore(dataSource).ListAsync(cancel),
+            d => string.Create(CultureInfo.InvariantCulture,
+                $"{d.Name} [{d.Slug}]: {d.HsCentresMetres.Length} Hs x {d.PeriodCentresSeconds.Length} {DeviceStore.AxisName(d.AxisKind)} bins, rated {d.RatedPowerKw:0.###} kW, from {d.SourceFile}"));
 }

@@ -1,6 +1,4 @@
 using System.CommandLine;
-using System.Text.Json;
-using Atlas.Ingest.Progress;
 using Atlas.Ingest.Worker;
 using Atlas.Storage;
 using Atlas.Storage.Jobs;
@@ -22,32 +20,14 @@ public static class IngestCommand
         command.SetAction(async (parse, cancel) =>
         {
             await using var dataSource = await AtlasDatabase.OpenMigratedAsync(cancel: cancel);
-            var queue = new JobQueue(dataSource);
             var payload = new IngestPayload(parse.GetValue(files)!.Select(Path.GetFullPath).ToArray(), parse.GetValue(title),
                 parse.GetValue(replace), parse.GetValue(mapping) is { } m ? Path.GetFullPath(m) : null, QueueStatistics: false);
             var slug = parse.GetValue(dataset)!;
-            var id = await queue.EnqueueAsync(JobKind.Ingest, slug, JsonSerializer.Serialize(payload), cancel);
-            var job = await queue.ClaimAsync(id, CommandWorker.Name, cancel) ?? throw new InvalidOperationException($"Job {id} was claimed by another worker.");
-            var runner = new JobRunner(dataSource);
-            try
-            {
-                Console.WriteLine(await runner.RunAsync(job, new ConsoleProgress(), cancel));
-            }
-            catch (Exception e) when (e is not OperationCanceledException)
-            {
-                Console.Error.WriteLine($"atlas ingest: {e.Message}");
-                Console.Error.WriteLine("Nothing was changed in the dataset.");
-                return 2;
-            }
+            var ingest = await CommandLineJob.RunAsync(dataSource, JobKind.Ingest, slug, payload, "ingest", "Nothing was changed in the dataset.", cancel);
+            if (ingest != 0) return ingest;
             if (!parse.GetValue(noStats)) return await StatsCommand.RunAsync(dataSource, slug, all: false, cancel);
             return 0;
         });
         return command;
     }
-}
-
-/// <summary>The worker name the command line claims its own jobs under.</summary>
-public static class CommandWorker
-{
-    public static string Name => $"cli:{Environment.MachineName}:{Environment.ProcessId}";
 }

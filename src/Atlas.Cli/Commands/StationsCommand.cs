@@ -1,7 +1,6 @@
 using System.CommandLine;
 using System.Globalization;
 using Atlas.Ingest.Assessment;
-using Atlas.Storage;
 using Atlas.Storage.Stations;
 
 namespace Atlas.Cli.Commands;
@@ -31,42 +30,19 @@ public static class StationsCommand
         {
             file, name, lat, lon, depth, instrument, role,
         };
-        command.SetAction(async (parse, cancel) =>
+        return ReferenceCommands.Add<DuplicateStationException>("stations", command, async (parse, dataSource, cancel) =>
         {
             StationStore.TryParseRole(parse.GetValue(role), out var stationRole);
             var request = new StationLoadRequest(parse.GetValue(name)!, parse.GetValue(lat), parse.GetValue(lon), parse.GetValue(depth),
                 parse.GetValue(instrument)!, stationRole, parse.GetValue(file)!);
-            await using var dataSource = await AtlasDatabase.OpenMigratedAsync(cancel: cancel);
-            try
-            {
-                Console.WriteLine((await new StationLoader(dataSource).LoadAsync(request, cancel)).Describe());
-                return 0;
-            }
-            catch (Exception e) when (e is FormatException or ArgumentException or FileNotFoundException or DuplicateStationException)
-            {
-                Console.Error.WriteLine($"atlas stations add: {e.Message}");
-                Console.Error.WriteLine("Nothing was stored.");
-                return 2;
-            }
+            return (await new StationLoader(dataSource).LoadAsync(request, cancel)).Describe();
         });
-        return command;
     }
 
-    private static Command BuildList()
-    {
-        var command = new Command("list", "List the registered stations.");
-        command.SetAction(async (_, cancel) =>
-        {
-            await using var dataSource = await AtlasDatabase.OpenMigratedAsync(cancel: cancel);
-            var stations = await new StationStore(dataSource).ListAsync(cancel);
-            if (stations.Count == 0) Console.WriteLine("no stations registered (atlas stations add)");
-            var c = CultureInfo.InvariantCulture;
-            foreach (var s in stations)
-                Console.WriteLine(string.Create(c,
-                    $"{s.Name} [{s.Slug}] {StationStore.RoleName(s.Role)}: {s.Latitude:0.####} N {s.Longitude:0.####} E, depth {(s.DepthMetres is { } d ? $"{d:0.#} m" : "unknown")}, " +
-                    $"{s.Instrument}; {s.ObservationCount:N0} observations {s.TimeStartUtc:yyyy-MM-dd}..{s.TimeEndUtc:yyyy-MM-dd} ({s.FlaggedCount:N0} flagged) from {s.SourceFile}"));
-            return 0;
-        });
-        return command;
-    }
+    private static Command BuildList() =>
+        ReferenceCommands.List("List the registered stations.", "no stations registered (atlas stations add)",
+            (dataSource, cancel) => new StationStore(dataSource).ListAsync(cancel),
+            s => string.Create(CultureInfo.InvariantCulture,
+                $"{s.Name} [{s.Slug}] {StationStore.RoleName(s.Role)}: {s.Latitude:0.####} N {s.Longitude:0.####} E, depth {(s.DepthMetres is { } d ? $"{d:0.#} m" : "unknown")}, " +
+                $"{s.Instrument}; {s.ObservationCount:N0} observations {s.TimeStartUtc:yyyy-MM-dd}..{s.TimeEndUtc:yyyy-MM-dd} ({s.FlaggedCount:N0} flagged) from {s.SourceFile}"));
 }

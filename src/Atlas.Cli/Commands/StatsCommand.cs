@@ -1,6 +1,4 @@
 using System.CommandLine;
-using System.Text.Json;
-using Atlas.Ingest.Progress;
 using Atlas.Ingest.Worker;
 using Atlas.Storage;
 using Atlas.Storage.Jobs;
@@ -24,20 +22,7 @@ public static class StatsCommand
         return command;
     }
 
-    public static async Task<int> RunAsync(NpgsqlDataSource dataSource, string slug, bool all, CancellationToken cancel)
-    {
-        var queue = new JobQueue(dataSource);
-        var id = await queue.EnqueueAsync(JobKind.Statistics, slug, JsonSerializer.Serialize(new StatisticsPayload(all)), cancel);
-        var job = await queue.ClaimAsync(id, CommandWorker.Name, cancel) ?? throw new InvalidOperationException($"Job {id} was claimed by another worker.");
-        try
-        {
-            Console.WriteLine(await new JobRunner(dataSource).RunAsync(job, new ConsoleProgress(), cancel));
-            return 0;
-        }
-        catch (Exception e) when (e is not OperationCanceledException)
-        {
-            Console.Error.WriteLine($"atlas stats: {e.Message}");
-            return 2;
-        }
-    }
+    /// <summary>Queues a statistics pass over <paramref name="slug"/> and runs it here; the exit code.</summary>
+    public static Task<int> RunAsync(NpgsqlDataSource dataSource, string slug, bool all, CancellationToken cancel) =>
+        CommandLineJob.RunAsync(dataSource, JobKind.Statistics, slug, new StatisticsPayload(all), "stats", afterFailure: null, cancel);
 }

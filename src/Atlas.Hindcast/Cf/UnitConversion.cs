@@ -28,77 +28,37 @@ public readonly record struct UnitConversion(double Factor, double Offset)
 
     public bool IsIdentity => Factor == 1 && Offset == 0;
 
-    // Symbols are case-sensitive as in udunits ("m" is metre, "M" is not a unit); spelled-out names are not.
-    private static readonly Dictionary<string, (PhysicalQuantity Quantity, double Factor)> Symbols = new(StringComparer.Ordinal)
-    {
-        ["m"] = (PhysicalQuantity.Length, 1),
-        ["cm"] = (PhysicalQuantity.Length, 0.01),
-        ["mm"] = (PhysicalQuantity.Length, 0.001),
-        ["km"] = (PhysicalQuantity.Length, 1000),
-        ["ft"] = (PhysicalQuantity.Length, 0.3048),
-        ["s"] = (PhysicalQuantity.Time, 1),
-        ["ms"] = (PhysicalQuantity.Time, 0.001),
-        ["min"] = (PhysicalQuantity.Time, 60),
-        ["h"] = (PhysicalQuantity.Time, 3600),
-        ["°"] = (PhysicalQuantity.Angle, 1),
-        ["rad"] = (PhysicalQuantity.Angle, 180 / Math.PI),
-        ["Hz"] = (PhysicalQuantity.Frequency, 1),
-        ["mHz"] = (PhysicalQuantity.Frequency, 0.001),
-        // udunits writes a reciprocal second as "s-1"; files also carry "1/s", "s^-1" and "/s".
-        ["s-1"] = (PhysicalQuantity.Frequency, 1),
-        ["s^-1"] = (PhysicalQuantity.Frequency, 1),
-        ["s**-1"] = (PhysicalQuantity.Frequency, 1),
-        ["1/s"] = (PhysicalQuantity.Frequency, 1),
-        ["/s"] = (PhysicalQuantity.Frequency, 1),
-    };
+    /// <summary>A unit the conversion knows, with its spellings: symbols compare case-sensitively, words do not.</summary>
+    private sealed record KnownUnit(PhysicalQuantity Quantity, double Factor, string[] Symbols, string[] Words);
 
-    private static readonly Dictionary<string, (PhysicalQuantity Quantity, double Factor)> Words = new(StringComparer.OrdinalIgnoreCase)
-    {
-        ["meter"] = (PhysicalQuantity.Length, 1),
-        ["meters"] = (PhysicalQuantity.Length, 1),
-        ["metre"] = (PhysicalQuantity.Length, 1),
-        ["metres"] = (PhysicalQuantity.Length, 1),
-        ["centimeter"] = (PhysicalQuantity.Length, 0.01),
-        ["centimeters"] = (PhysicalQuantity.Length, 0.01),
-        ["centimetre"] = (PhysicalQuantity.Length, 0.01),
-        ["centimetres"] = (PhysicalQuantity.Length, 0.01),
-        ["millimeter"] = (PhysicalQuantity.Length, 0.001),
-        ["millimeters"] = (PhysicalQuantity.Length, 0.001),
-        ["millimetre"] = (PhysicalQuantity.Length, 0.001),
-        ["millimetres"] = (PhysicalQuantity.Length, 0.001),
-        ["kilometer"] = (PhysicalQuantity.Length, 1000),
-        ["kilometers"] = (PhysicalQuantity.Length, 1000),
-        ["kilometre"] = (PhysicalQuantity.Length, 1000),
-        ["kilometres"] = (PhysicalQuantity.Length, 1000),
-        ["foot"] = (PhysicalQuantity.Length, 0.3048),
-        ["feet"] = (PhysicalQuantity.Length, 0.3048),
-        ["sec"] = (PhysicalQuantity.Time, 1),
-        ["secs"] = (PhysicalQuantity.Time, 1),
-        ["second"] = (PhysicalQuantity.Time, 1),
-        ["seconds"] = (PhysicalQuantity.Time, 1),
-        ["minute"] = (PhysicalQuantity.Time, 60),
-        ["minutes"] = (PhysicalQuantity.Time, 60),
-        ["hour"] = (PhysicalQuantity.Time, 3600),
-        ["hours"] = (PhysicalQuantity.Time, 3600),
-        ["degree"] = (PhysicalQuantity.Angle, 1),
-        ["degrees"] = (PhysicalQuantity.Angle, 1),
-        ["degree_true"] = (PhysicalQuantity.Angle, 1),
-        ["degrees_true"] = (PhysicalQuantity.Angle, 1),
-        ["deg"] = (PhysicalQuantity.Angle, 1),
-        ["arc_degree"] = (PhysicalQuantity.Angle, 1),
-        ["angular_degree"] = (PhysicalQuantity.Angle, 1),
-        ["radian"] = (PhysicalQuantity.Angle, 180 / Math.PI),
-        ["radians"] = (PhysicalQuantity.Angle, 180 / Math.PI),
-        // Reanalysis-style spellings of a bearing from true north: "Degree true", "degrees true".
-        ["degree true"] = (PhysicalQuantity.Angle, 1),
-        ["degrees true"] = (PhysicalQuantity.Angle, 1),
-        ["degree_T"] = (PhysicalQuantity.Angle, 1),
-        ["degrees_T"] = (PhysicalQuantity.Angle, 1),
-        ["°T"] = (PhysicalQuantity.Angle, 1),
-        ["hertz"] = (PhysicalQuantity.Frequency, 1),
-        // A lower-case "hz" is not udunits, but files carry it and it cannot mean anything else.
-        ["hz"] = (PhysicalQuantity.Frequency, 1),
-    };
+    private static readonly KnownUnit[] Known =
+    [
+        new(PhysicalQuantity.Length, 1, ["m"], ["meter", "meters", "metre", "metres"]),
+        new(PhysicalQuantity.Length, 0.01, ["cm"], ["centimeter", "centimeters", "centimetre", "centimetres"]),
+        new(PhysicalQuantity.Length, 0.001, ["mm"], ["millimeter", "millimeters", "millimetre", "millimetres"]),
+        new(PhysicalQuantity.Length, 1000, ["km"], ["kilometer", "kilometers", "kilometre", "kilometres"]),
+        new(PhysicalQuantity.Length, 0.3048, ["ft"], ["foot", "feet"]),
+        new(PhysicalQuantity.Time, 1, ["s"], ["sec", "secs", "second", "seconds"]),
+        new(PhysicalQuantity.Time, 0.001, ["ms"], []),
+        new(PhysicalQuantity.Time, 60, ["min"], ["minute", "minutes"]),
+        new(PhysicalQuantity.Time, 3600, ["h"], ["hour", "hours"]),
+        // Besides the udunits names, reanalysis-style spellings of a bearing from true north ("Degree true", "°T").
+        new(PhysicalQuantity.Angle, 1, ["°"],
+            ["degree", "degrees", "degree_true", "degrees_true", "deg", "arc_degree", "angular_degree",
+             "degree true", "degrees true", "degree_T", "degrees_T", "°T"]),
+        new(PhysicalQuantity.Angle, 180 / Math.PI, ["rad"], ["radian", "radians"]),
+        // udunits writes a reciprocal second as "s-1"; files also carry "1/s", "s^-1" and "/s". A lower-case "hz" is
+        // not udunits, but files carry it and it cannot mean anything else.
+        new(PhysicalQuantity.Frequency, 1, ["Hz", "s-1", "s^-1", "s**-1", "1/s", "/s"], ["hertz", "hz"]),
+        new(PhysicalQuantity.Frequency, 0.001, ["mHz"], []),
+    ];
+
+    // Symbols are case-sensitive as in udunits ("m" is metre, "M" is not a unit); spelled-out names are not.
+    private static readonly Dictionary<string, (PhysicalQuantity Quantity, double Factor)> Symbols =
+        Spellings(unit => unit.Symbols, StringComparer.Ordinal);
+
+    private static readonly Dictionary<string, (PhysicalQuantity Quantity, double Factor)> Words =
+        Spellings(unit => unit.Words, StringComparer.OrdinalIgnoreCase);
 
     private static readonly Regex Blanks = new(@"\s+", RegexOptions.CultureInvariant);
 
@@ -144,4 +104,14 @@ public readonly record struct UnitConversion(double Factor, double Offset)
 
     private static bool Lookup(string text, out (PhysicalQuantity Quantity, double Factor) unit) =>
         Symbols.TryGetValue(text, out unit) || Words.TryGetValue(text, out unit);
+
+    private static Dictionary<string, (PhysicalQuantity Quantity, double Factor)> Spellings(
+        Func<KnownUnit, string[]> spellings, StringComparer comparer)
+    {
+        var table = new Dictionary<string, (PhysicalQuantity, double)>(comparer);
+        foreach (var unit in Known)
+            foreach (var spelling in spellings(unit))
+                table.Add(spelling, (unit.Quantity, unit.Factor));
+        return table;
+    }
 }

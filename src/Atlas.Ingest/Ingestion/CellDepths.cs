@@ -7,34 +7,14 @@ namespace Atlas.Ingest.Ingestion;
 /// steps (a static depth counts one step per file), signs kept so that a sea floor above the surface can be told from
 /// a missing depth.
 /// </summary>
-public sealed class CellDepths
+/// <param name="SignedMetres">Depth per cell, m, positive down; negative where the sea floor is above the surface; NaN where missing.</param>
+/// <param name="Variable">The depth variable of the first file that has one.</param>
+/// <param name="FileName">The first file that has a depth.</param>
+/// <param name="Steps">Steps averaged (summed over files): the number of files for a static depth.</param>
+/// <param name="TimeVarying">True when a file's depth varies with time.</param>
+/// <param name="Files">Files that have a depth.</param>
+public sealed record CellDepths(float[] SignedMetres, string Variable, string FileName, int Steps, bool TimeVarying, int Files)
 {
-    private CellDepths(float[] signedMetres, string variable, string fileName, int steps, bool timeVarying, int files)
-    {
-        SignedMetres = signedMetres;
-        Variable = variable;
-        FileName = fileName;
-        Steps = steps;
-        TimeVarying = timeVarying;
-        Files = files;
-    }
-
-    /// <summary>Depth per cell, m, positive down; negative where the sea floor is above the surface; NaN where missing.</summary>
-    public float[] SignedMetres { get; }
-
-    /// <summary>The depth variable of the first file that has one.</summary>
-    public string Variable { get; }
-
-    /// <summary>The first file that has a depth.</summary>
-    public string FileName { get; }
-
-    /// <summary>Steps averaged (summed over files): the number of files for a static depth.</summary>
-    public int Steps { get; }
-
-    public bool TimeVarying { get; }
-
-    public int Files { get; }
-
     /// <summary>
     /// The depth the cells are stored with: positive, or null (unknown, or dry: at or above the surface). The land rule
     /// of <see cref="LandMask"/>.

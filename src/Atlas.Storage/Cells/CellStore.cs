@@ -1,3 +1,4 @@
+using Atlas.Storage.Copy;
 using NetTopologySuite.Geometries;
 using Npgsql;
 using NpgsqlTypes;
@@ -12,37 +13,33 @@ public sealed class CellStore(NpgsqlDataSource dataSource)
     /// <summary>Bulk-loads cells with binary COPY inside the caller's transaction.</summary>
     public static async Task InsertAsync(NpgsqlConnection connection, int datasetId, IEnumerable<CellRecord> cells, CancellationToken cancel)
     {
-        await using var writer = await connection.BeginBinaryImportAsync(
-            "COPY cell (dataset_id, cell_id, grid_i, grid_j, geom, depth_m, wet, coast_distance_m) FROM STDIN (FORMAT BINARY)", cancel);
-        foreach (var cell in cells)
-        {
-            await writer.StartRowAsync(cancel);
-            await writer.WriteAsync(datasetId, NpgsqlDbType.Integer, cancel);
-            await writer.WriteAsync(cell.CellId, NpgsqlDbType.Integer, cancel);
-            await WriteNullableAsync(writer, cell.GridI, NpgsqlDbType.Integer, cancel);
-            await WriteNullableAsync(writer, cell.GridJ, NpgsqlDbType.Integer, cancel);
-            await writer.WriteAsync((Geometry)Wgs84.CreatePoint(new Coordinate(cell.Longitude, cell.Latitude)), NpgsqlDbType.Geometry, cancel);
-            await WriteNullableAsync(writer, cell.DepthMetres, NpgsqlDbType.Real, cancel);
-            await writer.WriteAsync(cell.Wet, NpgsqlDbType.Boolean, cancel);
-            await WriteNullableAsync(writer, cell.CoastDistanceMetres, NpgsqlDbType.Real, cancel);
-        }
-        await writer.CompleteAsync(cancel);
+        await BinaryImport.WriteRowsAsync(connection,
+            "COPY cell (dataset_id, cell_id, grid_i, grid_j, geom, depth_m, wet, coast_distance_m) FROM STDIN (FORMAT BINARY)", cells,
+            async (writer, cell, cancel) =>
+            {
+                await writer.WriteAsync(datasetId, NpgsqlDbType.Integer, cancel);
+                await writer.WriteAsync(cell.CellId, NpgsqlDbType.Integer, cancel);
+                await writer.WriteOrNullAsync(cell.GridI, NpgsqlDbType.Integer, cancel);
+                await writer.WriteOrNullAsync(cell.GridJ, NpgsqlDbType.Integer, cancel);
+                await writer.WriteAsync((Geometry)Wgs84.CreatePoint(new Coordinate(cell.Longitude, cell.Latitude)), NpgsqlDbType.Geometry, cancel);
+                await writer.WriteOrNullAsync(cell.DepthMetres, NpgsqlDbType.Real, cancel);
+                await writer.WriteAsync(cell.Wet, NpgsqlDbType.Boolean, cancel);
+                await writer.WriteOrNullAsync(cell.CoastDistanceMetres, NpgsqlDbType.Real, cancel);
+            }, cancel);
     }
 
     public static async Task InsertTrianglesAsync(NpgsqlConnection connection, int datasetId, IReadOnlyList<(int A, int B, int C)> triangles, CancellationToken cancel)
     {
-        await using var writer = await connection.BeginBinaryImportAsync(
-            "COPY mesh_triangle (dataset_id, triangle_id, node_a, node_b, node_c) FROM STDIN (FORMAT BINARY)", cancel);
-        for (var i = 0; i < triangles.Count; i++)
-        {
-            await writer.StartRowAsync(cancel);
-            await writer.WriteAsync(datasetId, NpgsqlDbType.Integer, cancel);
-            await writer.WriteAsync(i, NpgsqlDbType.Integer, cancel);
-            await writer.WriteAsync(triangles[i].A, NpgsqlDbType.Integer, cancel);
-            await writer.WriteAsync(triangles[i].B, NpgsqlDbType.Integer, cancel);
-            await writer.WriteAsync(triangles[i].C, NpgsqlDbType.Integer, cancel);
-        }
-        await writer.CompleteAsync(cancel);
+        await BinaryImport.WriteRowsAsync(connection,
+            "COPY mesh_triangle (dataset_id, triangle_id, node_a, node_b, node_c) FROM STDIN (FORMAT BINARY)", Enumerable.Range(0, triangles.Count),
+            async (writer, i, cancel) =>
+            {
+                await writer.WriteAsync(datasetId, NpgsqlDbType.Integer, cancel);
+                await writer.WriteAsync(i, NpgsqlDbType.Integer, cancel);
+                await writer.WriteAsync(triangles[i].A, NpgsqlDbType.Integer, cancel);
+                await writer.WriteAsync(triangles[i].B, NpgsqlDbType.Integer, cancel);
+                await writer.WriteAsync(triangles[i].C, NpgsqlDbType.Integer, cancel);
+            }, cancel);
     }
 
     /// <summary>
@@ -172,10 +169,4 @@ public sealed class CellStore(NpgsqlDataSource dataSource)
         reader.IsDBNull(5) ? null : reader.GetFloat(5),
         reader.GetBoolean(6),
         reader.IsDBNull(7) ? null : reader.GetFloat(7));
-
-    private static async Task WriteNullableAsync<T>(NpgsqlBinaryImporter writer, T? value, NpgsqlDbType type, CancellationToken cancel) where T : struct
-    {
-        if (value is { } v) await writer.WriteAsync(v, type, cancel);
-        else await writer.WriteNullAsync(cancel);
-    }
 }

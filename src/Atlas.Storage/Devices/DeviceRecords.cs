@@ -13,7 +13,7 @@ public enum DeviceAxisKind
 /// <param name="Slug">URL name (see <see cref="Stations.ReferenceSlug"/>).</param>
 /// <param name="SourceFile">File name without its folder.</param>
 /// <param name="SourceSha256">SHA-256 of the file, 64 lower-case hex digits.</param>
-public sealed record DeviceMatrixDefinition(
+public record DeviceMatrixDefinition(
     string Slug,
     string Name,
     DeviceAxisKind AxisKind,
@@ -24,19 +24,10 @@ public sealed record DeviceMatrixDefinition(
     string SourceFile,
     string SourceSha256);
 
-/// <summary>A stored power matrix.</summary>
-public sealed record StoredDeviceMatrix(
-    int Id,
-    string Slug,
-    string Name,
-    DeviceAxisKind AxisKind,
-    double[] HsCentresMetres,
-    double[] PeriodCentresSeconds,
-    double[,] PowerKw,
-    double RatedPowerKw,
-    string SourceFile,
-    string SourceSha256,
-    DateTime CreatedAtUtc);
+/// <summary>A stored power matrix: its definition as stored (whose members it has), with its id and when it was stored.</summary>
+/// <param name="Definition">The matrix as it was stored.</param>
+/// <param name="CreatedAtUtc">When it was stored.</param>
+public sealed record StoredDeviceMatrix(int Id, DeviceMatrixDefinition Definition, DateTime CreatedAtUtc) : DeviceMatrixDefinition(Definition);
 
 /// <summary>The outcome of <see cref="DeviceStore.RegisterAsync"/>: the stored matrix, and whether it was there already.</summary>
 public sealed record DeviceRegistration(StoredDeviceMatrix Device, bool AlreadyRegistered);

@@ -1,3 +1,4 @@
+using Atlas.Storage.Registry;
 using Npgsql;
 using NpgsqlTypes;
 
@@ -6,8 +7,9 @@ namespace Atlas.Storage.Devices;
 /// <summary>Device power matrices, by slug or name.</summary>
 public sealed class DeviceStore(NpgsqlDataSource dataSource)
 {
-    private const string Columns =
-        "matrix_id, slug, name, axis_kind, hs_centres_m, period_centres_s, power_kw, rated_power_kw, source_file, source_sha256, created_at";
+    private readonly NamedRecordTable<StoredDeviceMatrix> _table = new(dataSource, "device_matrix", "matrix_id",
+        "matrix_id, slug, name, axis_kind, hs_centres_m, period_centres_s, power_kw, rated_power_kw, source_file, source_sha256, created_at",
+        Read);
 
     /// <summary>Stores a matrix. Throws <see cref="DuplicateDeviceException"/> when the name or slug is taken.</summary>
     public async Task<StoredDeviceMatrix> AddAsync(DeviceMatrixDefinition device, CancellationToken cancel = default)
@@ -64,51 +66,26 @@ public sealed class DeviceStore(NpgsqlDataSource dataSource)
         return new DeviceRegistration(await AddAsync(device, cancel), AlreadyRegistered: false);
     }
 
-    public async Task<IReadOnlyList<StoredDeviceMatrix>> ListAsync(CancellationToken cancel = default)
-    {
-        await using var command = dataSource.CreateCommand($"SELECT {Columns} FROM device_matrix ORDER BY name");
-        return await ReadAllAsync(command, cancel);
-    }
+    /// <summary>Every stored matrix, by name.</summary>
+    public Task<IReadOnlyList<StoredDeviceMatrix>> ListAsync(CancellationToken cancel = default) => _table.ListAsync(cancel);
 
     /// <summary>The matrix with this slug or name (names compared case-insensitively), or null.</summary>
-    public async Task<StoredDeviceMatrix?> FindAsync(string nameOrSlug, CancellationToken cancel = default)
-    {
-        await using var command = dataSource.CreateCommand(
-            $"SELECT {Columns} FROM device_matrix WHERE slug = $1 OR lower(name) = lower($1) ORDER BY slug = $1 DESC LIMIT 1");
-        command.Parameters.AddWithValue(nameOrSlug);
-        var rows = await ReadAllAsync(command, cancel);
-        return rows.Count == 0 ? null : rows[0];
-    }
+    public Task<StoredDeviceMatrix?> FindAsync(string nameOrSlug, CancellationToken cancel = default) => _table.FindAsync(nameOrSlug, cancel);
 
     /// <summary>The matrices read from a file with this SHA-256.</summary>
-    public async Task<IReadOnlyList<StoredDeviceMatrix>> FindBySha256Async(string sha256, CancellationToken cancel = default)
-    {
-        await using var command = dataSource.CreateCommand($"SELECT {Columns} FROM device_matrix WHERE source_sha256 = $1 ORDER BY name");
-        command.Parameters.AddWithValue(sha256.ToLowerInvariant());
-        return await ReadAllAsync(command, cancel);
-    }
+    public Task<IReadOnlyList<StoredDeviceMatrix>> FindBySha256Async(string sha256, CancellationToken cancel = default) =>
+        _table.FindBySha256Async(sha256, cancel);
 
     /// <summary>Removes a matrix; false when there is no such device.</summary>
-    public async Task<bool> DeleteAsync(string nameOrSlug, CancellationToken cancel = default)
-    {
-        if (await FindAsync(nameOrSlug, cancel) is not { } device) return false;
-        await using var command = dataSource.CreateCommand("DELETE FROM device_matrix WHERE matrix_id = $1");
-        command.Parameters.AddWithValue(device.Id);
-        return await command.ExecuteNonQueryAsync(cancel) > 0;
-    }
+    public Task<bool> DeleteAsync(string nameOrSlug, CancellationToken cancel = default) => _table.DeleteAsync(nameOrSlug, d => d.Id, cancel);
 
     public static string AxisName(DeviceAxisKind kind) => kind == DeviceAxisKind.Te ? "te" : "tp";
 
-    private static async Task<IReadOnlyList<StoredDeviceMatrix>> ReadAllAsync(NpgsqlCommand command, CancellationToken cancel)
-    {
-        var rows = new List<StoredDeviceMatrix>();
-        await using var reader = await command.ExecuteReaderAsync(cancel);
-        while (await reader.ReadAsync(cancel))
-            rows.Add(new StoredDeviceMatrix(
-                reader.GetInt32(0), reader.GetString(1), reader.GetString(2),
-                reader.GetString(3) == "te" ? DeviceAxisKind.Te : DeviceAxisKind.Tp,
-                reader.GetFieldValue<double[]>(4), reader.GetFieldValue<double[]>(5), reader.GetFieldValue<double[,]>(6),
-                reader.GetDouble(7), reader.GetString(8), reader.GetString(9), reader.GetDateTime(10).ToUniversalTime()));
-        return rows;
-    }
+    private static StoredDeviceMatrix Read(NpgsqlDataReader reader) => new(
+        reader.GetInt32(0),
+        new DeviceMatrixDefinition(reader.GetString(1), reader.GetString(2),
+            reader.GetString(3) == "te" ? DeviceAxisKind.Te : DeviceAxisKind.Tp,
+            reader.GetFieldValue<double[]>(4), reader.GetFieldValue<double[]>(5), reader.GetFieldValue<double[,]>(6),
+            reader.GetDouble(7), reader.GetString(8), reader.GetString(9)),
+        reader.GetDateTime(10).ToUniversalTime());
 }

@@ -1,3 +1,4 @@
+using Atlas.Storage.Copy;
 using Npgsql;
 using NpgsqlTypes;
 
@@ -9,30 +10,23 @@ public sealed class SeriesStore(NpgsqlDataSource dataSource)
     /// <summary>Bulk-writes chunks with binary COPY inside the caller's transaction (the rows must not exist yet).</summary>
     public static async Task WriteAsync(NpgsqlConnection connection, int datasetId, IEnumerable<SeriesChunk> chunks, CancellationToken cancel)
     {
-        await using var writer = await connection.BeginBinaryImportAsync(
-            "COPY series_chunk (dataset_id, cell_id, year, step_count, payload) FROM STDIN (FORMAT BINARY)", cancel);
-        foreach (var chunk in chunks)
-        {
-            await writer.StartRowAsync(cancel);
-            await writer.WriteAsync(datasetId, NpgsqlDbType.Integer, cancel);
-            await writer.WriteAsync(chunk.CellId, NpgsqlDbType.Integer, cancel);
-            await writer.WriteAsync((short)chunk.Year, NpgsqlDbType.Smallint, cancel);
-            await writer.WriteAsync(SeriesCodec.StepCountOf(chunk.Payload), NpgsqlDbType.Integer, cancel);
-            await writer.WriteAsync(chunk.Payload, NpgsqlDbType.Bytea, cancel);
-        }
-        await writer.CompleteAsync(cancel);
+        await BinaryImport.WriteRowsAsync(connection,
+            "COPY series_chunk (dataset_id, cell_id, year, step_count, payload) FROM STDIN (FORMAT BINARY)", chunks,
+            async (writer, chunk, cancel) =>
+            {
+                await writer.WriteAsync(datasetId, NpgsqlDbType.Integer, cancel);
+                await writer.WriteAsync(chunk.CellId, NpgsqlDbType.Integer, cancel);
+                await writer.WriteAsync((short)chunk.Year, NpgsqlDbType.Smallint, cancel);
+                await writer.WriteAsync(SeriesCodec.StepCountOf(chunk.Payload), NpgsqlDbType.Integer, cancel);
+                await writer.WriteAsync(chunk.Payload, NpgsqlDbType.Bytea, cancel);
+            }, cancel);
     }
 
     /// <summary>Deletes the chunks of the given years for cells in [firstCell, lastCell].</summary>
     public static async Task DeleteAsync(NpgsqlConnection connection, NpgsqlTransaction transaction, int datasetId, int year,
         int firstCell, int lastCell, CancellationToken cancel)
     {
-        await using var command = new NpgsqlCommand(
-            "DELETE FROM series_chunk WHERE dataset_id = $1 AND year = $2 AND cell_id BETWEEN $3 AND $4", connection, transaction);
-        command.Parameters.AddWithValue(datasetId);
-        command.Parameters.AddWithValue((short)year);
-        command.Parameters.AddWithValue(firstCell);
-        command.Parameters.AddWithValue(lastCell);
+        await using var command = YearOfCellsCommand("DELETE", connection, transaction, datasetId, year, firstCell, lastCell);
         await command.ExecuteNonQueryAsync(cancel);
     }
 
@@ -40,16 +34,24 @@ public sealed class SeriesStore(NpgsqlDataSource dataSource)
     public static async Task<Dictionary<int, byte[]>> ReadYearAsync(NpgsqlConnection connection, NpgsqlTransaction? transaction, int datasetId, int year,
         int firstCell, int lastCell, CancellationToken cancel)
     {
-        await using var command = new NpgsqlCommand(
-            "SELECT cell_id, payload FROM series_chunk WHERE dataset_id = $1 AND year = $2 AND cell_id BETWEEN $3 AND $4", connection, transaction);
-        command.Parameters.AddWithValue(datasetId);
-        command.Parameters.AddWithValue((short)year);
-        command.Parameters.AddWithValue(firstCell);
-        command.Parameters.AddWithValue(lastCell);
+        await using var command = YearOfCellsCommand("SELECT cell_id, payload", connection, transaction, datasetId, year, firstCell, lastCell);
         var result = new Dictionary<int, byte[]>();
         await using var reader = await command.ExecuteReaderAsync(cancel);
         while (await reader.ReadAsync(cancel)) result[reader.GetInt32(0)] = reader.GetFieldValue<byte[]>(1);
         return result;
+    }
+
+    /// <summary>A statement over the chunks of one year for cells in [firstCell, lastCell]: <paramref name="action"/> is what comes before FROM.</summary>
+    private static NpgsqlCommand YearOfCellsCommand(string action, NpgsqlConnection connection, NpgsqlTransaction? transaction,
+        int datasetId, int year, int firstCell, int lastCell)
+    {
+        var command = new NpgsqlCommand(
+            $"{action} FROM series_chunk WHERE dataset_id = $1 AND year = $2 AND cell_id BETWEEN $3 AND $4", connection, transaction);
+        command.Parameters.AddWithValue(datasetId);
+        command.Parameters.AddWithValue((short)year);
+        command.Parameters.AddWithValue(firstCell);
+        command.Parameters.AddWithValue(lastCell);
+        return command;
     }
 
     /// <summary>Every chunk of one cell, by year (optionally limited to a year range).</summary>

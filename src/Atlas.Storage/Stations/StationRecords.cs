@@ -16,7 +16,7 @@ public enum StationRole
 /// <param name="HasTp">The record carries Tp.</param>
 /// <param name="HasTe">The record carries Te.</param>
 /// <param name="HasDirection">The record carries the mean direction.</param>
-public sealed record StationDefinition(
+public record StationDefinition(
     string Slug,
     string Name,
     double Latitude,
@@ -31,27 +31,21 @@ public sealed record StationDefinition(
     bool HasTe,
     bool HasDirection);
 
-/// <summary>A registered station with a summary of its stored record.</summary>
+/// <summary>A registered station: its definition as registered (whose members it has), with its id and a summary of its stored record.</summary>
+/// <param name="Definition">The station as it was registered.</param>
+/// <param name="ObservationCount">Observations stored.</param>
+/// <param name="FlaggedCount">Observations with a quality flag other than 0.</param>
+/// <param name="TimeStartUtc">Time of the first observation.</param>
+/// <param name="TimeEndUtc">Time of the last observation.</param>
+/// <param name="LoadedAtUtc">When the record was stored.</param>
 public sealed record StoredStation(
     int Id,
-    string Slug,
-    string Name,
-    double Latitude,
-    double Longitude,
-    double? DepthMetres,
-    string Instrument,
-    StationRole Role,
-    string SourceFile,
-    string SourceSha256,
-    string SourceFormat,
+    StationDefinition Definition,
     int ObservationCount,
     int FlaggedCount,
-    bool HasTp,
-    bool HasTe,
-    bool HasDirection,
     DateTime TimeStartUtc,
     DateTime TimeEndUtc,
-    DateTime LoadedAtUtc);
+    DateTime LoadedAtUtc) : StationDefinition(Definition);
 
 /// <summary>One stored observation: NaN where the station did not measure a value; <paramref name="Qc"/> 0 is a good row.</summary>
 public readonly record struct StationObservationRow(long TimeUnixSeconds, float Hs, float Tp, float Te, float Dir, short Qc);

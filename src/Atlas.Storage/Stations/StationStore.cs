@@ -1,3 +1,5 @@
+using Atlas.Storage.Copy;
+using Atlas.Storage.Registry;
 using Npgsql;
 using NpgsqlTypes;
 
@@ -6,10 +8,10 @@ namespace Atlas.Storage.Stations;
 /// <summary>Measuring stations and their records. A station and its observations are written in one transaction.</summary>
 public sealed class StationStore(NpgsqlDataSource dataSource)
 {
-    private const string Columns = """
+    private readonly NamedRecordTable<StoredStation> _table = new(dataSource, "station", "station_id", """
         station_id, slug, name, ST_Y(geom), ST_X(geom), depth_m, instrument, role, source_file, source_sha256, source_format,
         observation_count, flagged_count, has_tp, has_te, has_dir, time_start, time_end, loaded_at
-        """;
+        """, Read);
 
     /// <summary>
     /// Registers a station and bulk-loads its observations (binary COPY) in one transaction: either both are stored or
@@ -63,12 +65,10 @@ public sealed class StationStore(NpgsqlDataSource dataSource)
             }
         }
 
-        await using (var writer = await connection.BeginBinaryImportAsync(
-            "COPY station_observation (station_id, time, hs, tp, te, dir, qc) FROM STDIN (FORMAT BINARY)", cancel))
-        {
-            foreach (var row in observations)
+        await BinaryImport.WriteRowsAsync(connection,
+            "COPY station_observation (station_id, time, hs, tp, te, dir, qc) FROM STDIN (FORMAT BINARY)", observations,
+            async (writer, row, cancel) =>
             {
-                await writer.StartRowAsync(cancel);
                 await writer.WriteAsync(id, NpgsqlDbType.Integer, cancel);
                 await writer.WriteAsync(DateTime.UnixEpoch.AddSeconds(row.TimeUnixSeconds), NpgsqlDbType.TimestampTz, cancel);
                 await WriteValueAsync(writer, row.Hs, cancel);
@@ -76,9 +76,7 @@ public sealed class StationStore(NpgsqlDataSource dataSource)
                 await WriteValueAsync(writer, row.Te, cancel);
                 await WriteValueAsync(writer, row.Dir, cancel);
                 await writer.WriteAsync(row.Qc, NpgsqlDbType.Smallint, cancel);
-            }
-            await writer.CompleteAsync(cancel);
-        }
+            }, cancel);
         await transaction.CommitAsync(cancel);
         return (await FindAsync(station.Slug, cancel))!;
     }
@@ -127,38 +125,18 @@ public sealed class StationStore(NpgsqlDataSource dataSource)
         static string Show(double? depth) => depth is { } v ? v.ToString("0.###", System.Globalization.CultureInfo.InvariantCulture) : "unknown";
     }
 
-    public async Task<IReadOnlyList<StoredStation>> ListAsync(CancellationToken cancel = default)
-    {
-        await using var command = dataSource.CreateCommand($"SELECT {Columns} FROM station ORDER BY name");
-        return await ReadAllAsync(command, cancel);
-    }
+    /// <summary>Every registered station, by name.</summary>
+    public Task<IReadOnlyList<StoredStation>> ListAsync(CancellationToken cancel = default) => _table.ListAsync(cancel);
 
     /// <summary>The station with this slug or name (names compared case-insensitively), or null.</summary>
-    public async Task<StoredStation?> FindAsync(string nameOrSlug, CancellationToken cancel = default)
-    {
-        await using var command = dataSource.CreateCommand(
-            $"SELECT {Columns} FROM station WHERE slug = $1 OR lower(name) = lower($1) ORDER BY slug = $1 DESC LIMIT 1");
-        command.Parameters.AddWithValue(nameOrSlug);
-        var rows = await ReadAllAsync(command, cancel);
-        return rows.Count == 0 ? null : rows[0];
-    }
+    public Task<StoredStation?> FindAsync(string nameOrSlug, CancellationToken cancel = default) => _table.FindAsync(nameOrSlug, cancel);
 
     /// <summary>The stations whose record came from a file with this SHA-256.</summary>
-    public async Task<IReadOnlyList<StoredStation>> FindBySha256Async(string sha256, CancellationToken cancel = default)
-    {
-        await using var command = dataSource.CreateCommand($"SELECT {Columns} FROM station WHERE source_sha256 = $1 ORDER BY name");
-        command.Parameters.AddWithValue(sha256.ToLowerInvariant());
-        return await ReadAllAsync(command, cancel);
-    }
+    public Task<IReadOnlyList<StoredStation>> FindBySha256Async(string sha256, CancellationToken cancel = default) =>
+        _table.FindBySha256Async(sha256, cancel);
 
     /// <summary>Removes a station and its record; false when there is no such station.</summary>
-    public async Task<bool> DeleteAsync(string nameOrSlug, CancellationToken cancel = default)
-    {
-        if (await FindAsync(nameOrSlug, cancel) is not { } station) return false;
-        await using var command = dataSource.CreateCommand("DELETE FROM station WHERE station_id = $1");
-        command.Parameters.AddWithValue(station.Id);
-        return await command.ExecuteNonQueryAsync(cancel) > 0;
-    }
+    public Task<bool> DeleteAsync(string nameOrSlug, CancellationToken cancel = default) => _table.DeleteAsync(nameOrSlug, s => s.Id, cancel);
 
     /// <summary>A station's whole record in time order, streamed out by binary COPY.</summary>
     public async Task<StationObservationColumns> ObservationsAsync(int stationId, CancellationToken cancel = default)
@@ -216,18 +194,14 @@ public sealed class StationStore(NpgsqlDataSource dataSource)
         return await reader.ReadAsync<float>(NpgsqlDbType.Real, cancel);
     }
 
-    private static async Task<IReadOnlyList<StoredStation>> ReadAllAsync(NpgsqlCommand command, CancellationToken cancel)
-    {
-        var rows = new List<StoredStation>();
-        await using var reader = await command.ExecuteReaderAsync(cancel);
-        while (await reader.ReadAsync(cancel))
-            rows.Add(new StoredStation(
-                reader.GetInt32(0), reader.GetString(1), reader.GetString(2), reader.GetDouble(3), reader.GetDouble(4),
-                reader.IsDBNull(5) ? null : reader.GetFloat(5), reader.GetString(6),
-                reader.GetString(7) == "calibration" ? StationRole.Calibration : StationRole.Validation,
-                reader.GetString(8), reader.GetString(9), reader.GetString(10), reader.GetInt32(11), reader.GetInt32(12),
-                reader.GetBoolean(13), reader.GetBoolean(14), reader.GetBoolean(15),
-                reader.GetDateTime(16).ToUniversalTime(), reader.GetDateTime(17).ToUniversalTime(), reader.GetDateTime(18).ToUniversalTime()));
-        return rows;
-    }
+    private static StoredStation Read(NpgsqlDataReader reader) => new(
+        reader.GetInt32(0),
+        new StationDefinition(
+            reader.GetString(1), reader.GetString(2), reader.GetDouble(3), reader.GetDouble(4),
+            reader.IsDBNull(5) ? null : reader.GetFloat(5), reader.GetString(6),
+            reader.GetString(7) == "calibration" ? StationRole.Calibration : StationRole.Validation,
+            reader.GetString(8), reader.GetString(9), reader.GetString(10),
+            reader.GetBoolean(13), reader.GetBoolean(14), reader.GetBoolean(15)),
+        reader.GetInt32(11), reader.GetInt32(12),
+        reader.GetDateTime(16).ToUniversalTime(), reader.GetDateTime(17).ToUniversalTime(), reader.GetDateTime(18).ToUniversalTime());
 }
