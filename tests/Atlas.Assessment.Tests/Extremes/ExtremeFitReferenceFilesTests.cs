@@ -45,8 +45,10 @@ public class ExtremeFitReferenceFilesTests(ExtremeFitReference reference) : ICla
 
             using var stream = File.OpenRead(output);
             var fresh = JsonDocument.Parse(stream).RootElement;
-            // The same SciPy on the same samples repeats its arithmetic; 1e-9 relative leaves room for another
-            // BLAS or libm build and is still far inside the 1e-5 the fit tests allow.
+            // The same SciPy on the same samples repeats its arithmetic on one machine, bit for bit. Another CPU's libm
+            // moves the optimiser's stopping point a little: SciPy 1.10.1 on two machines gave gev_heavy's shape
+            // -0.11577446436 and -0.11577445346 (9.4e-8 relative). 1e-6 relative allows that and stays ten times
+            // inside the 1e-5 the fit tests allow.
             AssertSameNumbers(reference.Result, fresh, "");
         }
         finally
@@ -71,7 +73,7 @@ public class ExtremeFitReferenceFilesTests(ExtremeFitReference reference) : ICla
                 break;
             case JsonValueKind.Number:
                 double expected = stored.GetDouble(), actual = fresh.GetDouble();
-                Assert.True(Math.Abs(expected - actual) <= 1e-9 * Math.Max(1, Math.Abs(expected)), $"{path}: stored {expected:R}, computed {actual:R}");
+                Assert.True(Math.Abs(expected - actual) <= 1e-6 * Math.Max(1, Math.Abs(expected)), $"{path}: stored {expected:R}, computed {actual:R}");
                 break;
         }
     }
