@@ -13,6 +13,7 @@ using Atlas.Storage.Datasets;
 using Atlas.Storage.Devices;
 using Atlas.Storage.Jobs;
 using Atlas.Storage.Stations;
+using Microsoft.Extensions.DependencyInjection;
 using Npgsql;
 
 namespace Atlas.Cli.Commands;
@@ -77,20 +78,23 @@ public static class DemoCommand
             foreach (var line in scenario.DescribeLines()) Console.WriteLine("  " + line);
 
             await using var dataSource = await AtlasDatabase.OpenMigratedAsync(cancel: cancel);
+            using var host = CommandHost.BuildChecked(dataSource, "demo");
+            if (host is null) return 2;
+            var runner = host.Services.GetRequiredService<JobRunner>();
             var queue = new JobQueue(dataSource);
             var payload = new IngestPayload(files, $"{scenario.Name} (invented demo coast)", QueueStatistics: false);
             var id = await queue.EnqueueAsync(JobKind.Ingest, DatasetSlug, JsonSerializer.Serialize(payload), cancel);
             var job = await queue.ClaimAsync(id, CommandWorker.Name, cancel) ?? throw new InvalidOperationException($"Job {id} was claimed by another worker.");
             try
             {
-                Console.WriteLine(await new JobRunner(dataSource).RunAsync(job, new ConsoleProgress(), cancel));
+                Console.WriteLine(await runner.RunAsync(job, new ConsoleProgress(), cancel));
             }
             catch (Exception e) when (e is not OperationCanceledException)
             {
                 Console.Error.WriteLine($"atlas demo: {e.Message}");
                 return 2;
             }
-            var stats = await StatsCommand.RunAsync(dataSource, DatasetSlug, all: false, cancel);
+            var stats = await StatsCommand.RunAsync(dataSource, runner, DatasetSlug, all: false, cancel);
             if (stats != 0) return stats;
             var assessment = await LoadAssessmentAsync(dataSource, folder, cancel);
             if (assessment != 0) return assessment;

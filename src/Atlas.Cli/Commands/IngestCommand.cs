@@ -4,6 +4,7 @@ using Atlas.Ingest.Progress;
 using Atlas.Ingest.Worker;
 using Atlas.Storage;
 using Atlas.Storage.Jobs;
+using Microsoft.Extensions.DependencyInjection;
 
 namespace Atlas.Cli.Commands;
 
@@ -22,13 +23,15 @@ public static class IngestCommand
         command.SetAction(async (parse, cancel) =>
         {
             await using var dataSource = await AtlasDatabase.OpenMigratedAsync(cancel: cancel);
+            using var host = CommandHost.BuildChecked(dataSource, "ingest");
+            if (host is null) return 2;
+            var runner = host.Services.GetRequiredService<JobRunner>();
             var queue = new JobQueue(dataSource);
             var payload = new IngestPayload(parse.GetValue(files)!.Select(Path.GetFullPath).ToArray(), parse.GetValue(title),
                 parse.GetValue(replace), parse.GetValue(mapping) is { } m ? Path.GetFullPath(m) : null, QueueStatistics: false);
             var slug = parse.GetValue(dataset)!;
             var id = await queue.EnqueueAsync(JobKind.Ingest, slug, JsonSerializer.Serialize(payload), cancel);
             var job = await queue.ClaimAsync(id, CommandWorker.Name, cancel) ?? throw new InvalidOperationException($"Job {id} was claimed by another worker.");
-            var runner = new JobRunner(dataSource);
             try
             {
                 Console.WriteLine(await runner.RunAsync(job, new ConsoleProgress(), cancel));
@@ -39,7 +42,7 @@ public static class IngestCommand
                 Console.Error.WriteLine("Nothing was changed in the dataset.");
                 return 2;
             }
-            if (!parse.GetValue(noStats)) return await StatsCommand.RunAsync(dataSource, slug, all: false, cancel);
+            if (!parse.GetValue(noStats)) return await StatsCommand.RunAsync(dataSource, runner, slug, all: false, cancel);
             return 0;
         });
         return command;

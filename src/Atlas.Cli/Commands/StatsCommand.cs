@@ -4,6 +4,7 @@ using Atlas.Ingest.Progress;
 using Atlas.Ingest.Worker;
 using Atlas.Storage;
 using Atlas.Storage.Jobs;
+using Microsoft.Extensions.DependencyInjection;
 using Npgsql;
 
 namespace Atlas.Cli.Commands;
@@ -19,19 +20,21 @@ public static class StatsCommand
         command.SetAction(async (parse, cancel) =>
         {
             await using var dataSource = await AtlasDatabase.OpenMigratedAsync(cancel: cancel);
-            return await RunAsync(dataSource, parse.GetValue(dataset)!, parse.GetValue(all), cancel);
+            using var host = CommandHost.BuildChecked(dataSource, "stats");
+            if (host is null) return 2;
+            return await RunAsync(dataSource, host.Services.GetRequiredService<JobRunner>(), parse.GetValue(dataset)!, parse.GetValue(all), cancel);
         });
         return command;
     }
 
-    public static async Task<int> RunAsync(NpgsqlDataSource dataSource, string slug, bool all, CancellationToken cancel)
+    public static async Task<int> RunAsync(NpgsqlDataSource dataSource, JobRunner runner, string slug, bool all, CancellationToken cancel)
     {
         var queue = new JobQueue(dataSource);
         var id = await queue.EnqueueAsync(JobKind.Statistics, slug, JsonSerializer.Serialize(new StatisticsPayload(all)), cancel);
         var job = await queue.ClaimAsync(id, CommandWorker.Name, cancel) ?? throw new InvalidOperationException($"Job {id} was claimed by another worker.");
         try
         {
-            Console.WriteLine(await new JobRunner(dataSource).RunAsync(job, new ConsoleProgress(), cancel));
+            Console.WriteLine(await runner.RunAsync(job, new ConsoleProgress(), cancel));
             return 0;
         }
         catch (Exception e) when (e is not OperationCanceledException)

@@ -6,6 +6,7 @@ using Microsoft.AspNetCore.Builder;
 using Microsoft.AspNetCore.Hosting;
 using Microsoft.Extensions.DependencyInjection;
 using Microsoft.Extensions.Hosting;
+using Microsoft.Extensions.Options;
 
 namespace Atlas.Cli.Commands;
 
@@ -34,8 +35,17 @@ public static class WorkerCommand
             var dataSource = await AtlasDatabase.OpenMigratedAsync(cancel: cancel);
             var urls = parse.GetValue(metricsUrls);
             using IHost host = urls is null ? BuildPlain(dataSource) : BuildWithMetrics(dataSource, urls);
-            await host.RunAsync(cancel);
-            return 0;
+            try
+            {
+                await host.RunAsync(cancel);
+                return 0;
+            }
+            catch (Exception e) when (e is OptionsValidationException or InvalidOperationException && !cancel.IsCancellationRequested)
+            {
+                // Settings (the Statistics section) are checked at start-up; say which one is wrong, without a stack trace.
+                Console.Error.WriteLine($"atlas worker: not started: {e.Message}");
+                return 2;
+            }
         });
         return command;
     }
@@ -70,6 +80,7 @@ public static class WorkerCommand
     private static void AddWorker(IServiceCollection services, Npgsql.NpgsqlDataSource dataSource)
     {
         services.AddSingleton(dataSource);
+        services.AddAtlasJobs();
         services.AddHostedService<QueueWorker>();
         services.Configure<HostOptions>(o => o.ShutdownTimeout = TimeSpan.FromSeconds(30));
     }
