@@ -6,7 +6,6 @@ using Microsoft.AspNetCore.Builder;
 using Microsoft.AspNetCore.Hosting;
 using Microsoft.Extensions.DependencyInjection;
 using Microsoft.Extensions.Hosting;
-using Microsoft.Extensions.Options;
 
 namespace Atlas.Cli.Commands;
 
@@ -35,17 +34,15 @@ public static class WorkerCommand
             var dataSource = await AtlasDatabase.OpenMigratedAsync(cancel: cancel);
             var urls = parse.GetValue(metricsUrls);
             using IHost host = urls is null ? BuildPlain(dataSource) : BuildWithMetrics(dataSource, urls);
-            try
+            // Settings (the Statistics section) are checked before the start, so that a wrong one is named without the
+            // host's failure log and its stack trace.
+            if (CommandHost.Problems(host) is { } problems)
             {
-                await host.RunAsync(cancel);
-                return 0;
-            }
-            catch (Exception e) when (e is OptionsValidationException or InvalidOperationException && !cancel.IsCancellationRequested)
-            {
-                // Settings (the Statistics section) are checked at start-up; say which one is wrong, without a stack trace.
-                Console.Error.WriteLine($"atlas worker: not started: {e.Message}");
+                Console.Error.WriteLine($"atlas worker: not started: {problems}");
                 return 2;
             }
+            await host.RunAsync(cancel);
+            return 0;
         });
         return command;
     }

@@ -1,4 +1,3 @@
-using Atlas.Ingest.Ingestion;
 using Atlas.Ingest.Statistics;
 using Atlas.Ingest.Worker;
 using Atlas.Statistics;
@@ -13,14 +12,13 @@ namespace Atlas.Ingest.Hosting;
 public static class IngestRegistration
 {
     /// <summary>
-    /// Adds the statistics options (<see cref="AddStatisticsOptions"/>) and what runs jobs: <see cref="HindcastIngestor"/>,
-    /// <see cref="StatisticsService"/> and <see cref="JobRunner"/>. Expects an <see cref="NpgsqlDataSource"/> to be registered.
+    /// Adds the statistics options (<see cref="AddStatisticsOptions"/>) and the <see cref="JobRunner"/> that runs ingest
+    /// and statistics jobs with them (through <see cref="Ingestion.HindcastIngestor"/> and <see cref="StatisticsService"/>).
+    /// Expects an <see cref="NpgsqlDataSource"/> to be registered.
     /// </summary>
     public static IServiceCollection AddAtlasJobs(this IServiceCollection services)
     {
         services.AddStatisticsOptions();
-        services.TryAddSingleton(sp => new HindcastIngestor(sp.GetRequiredService<NpgsqlDataSource>(), sp.GetRequiredService<StatisticsOptions>()));
-        services.TryAddSingleton(sp => new StatisticsService(sp.GetRequiredService<NpgsqlDataSource>(), sp.GetRequiredService<StatisticsOptions>()));
         services.TryAddSingleton(sp => new JobRunner(sp.GetRequiredService<NpgsqlDataSource>(), sp.GetRequiredService<StatisticsOptions>()));
         return services;
     }

@@ -1,16 +1,16 @@
 using System.Diagnostics;
 using Atlas.Ingest.Progress;
 using Atlas.Statistics;
-using Atlas.WavePhysics;
 using Atlas.Storage.Cells;
 using Atlas.Storage.Datasets;
+using Atlas.WavePhysics;
 using Npgsql;
 
 namespace Atlas.Ingest.Ingestion;
 
 /// <summary>
 /// Loads hindcast files into a dataset: transposes time-major fields into cell-major yearly chunks, packs them
-/// (<see cref="SeriesCodec"/>) and writes them with binary COPY. Everything happens in one transaction, so a failed
+/// (<see cref="Atlas.Storage.Series.SeriesCodec"/>) and writes them with binary COPY. Everything happens in one transaction, so a failed
 /// or killed ingest leaves nothing visible and the same command can simply be run again. A file already loaded
 /// (same SHA-256) is skipped. A time step given twice (already stored, or in two of the files, as monthly files that
 /// share their boundary step) is stored once when its values are identical, and refused naming the step, the variable

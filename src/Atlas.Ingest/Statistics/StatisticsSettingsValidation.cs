@@ -17,7 +17,11 @@ public sealed class StatisticsSettingsValidation : IValidateOptions<StatisticsSe
         }
         catch (ArgumentException e)
         {
-            return ValidateOptionsResult.Fail($"{StatisticsSettings.Section}:{e.ParamName}: {e.Message.Split(" (Parameter")[0]}");
+            // The options' messages begin with the setting's name where they can; the section is put before it.
+            var message = e.Message.Split(" (Parameter")[0];
+            return ValidateOptionsResult.Fail(e.ParamName is { } setting && !message.StartsWith(setting, StringComparison.Ordinal)
+                ? $"{StatisticsSettings.Section}:{setting}: {message}"
+                : $"{StatisticsSettings.Section}:{message}");
         }
     }
 }
