@@ -31,8 +31,6 @@ public sealed class StatisticsService(NpgsqlDataSource dataSource, StatisticsOpt
     private const int CellsPerBatch = 2000;
     private const int WriterConnections = 2;
 
-    public StatisticsOptions Options => _options;
-
     public async Task<StatisticsSummary> RunAsync(string slug, bool all, IProgress<ProgressSnapshot>? progress = null, CancellationToken cancel = default)
     {
         var clock = Stopwatch.StartNew();
