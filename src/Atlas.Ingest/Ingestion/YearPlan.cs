@@ -8,35 +8,26 @@ namespace Atlas.Ingest.Ingestion;
 /// </summary>
 public sealed class YearPlan
 {
-    private YearPlan(int year, long[] timeline, long[]? storedTimeline, int bytesPerCell, int blockSize, FilePart[] parts, SharedSteps shared)
-    {
-        Year = year;
-        Timeline = timeline;
-        StoredTimeline = storedTimeline;
-        BytesPerCell = bytesPerCell;
-        BlockSize = blockSize;
-        Parts = parts;
-        Shared = shared;
-    }
+    private YearPlan() { }
 
-    public int Year { get; }
+    public int Year { get; private init; }
 
     /// <summary>The year's merged time line (stored and new steps).</summary>
-    public long[] Timeline { get; }
+    public long[] Timeline { get; private init; } = null!;
 
     /// <summary>The year's stored time line, or null when nothing of the year is stored.</summary>
-    public long[]? StoredTimeline { get; }
+    public long[]? StoredTimeline { get; private init; }
 
     /// <summary>Bytes of one cell's packed series of the year.</summary>
-    public int BytesPerCell { get; }
+    public int BytesPerCell { get; private init; }
 
     /// <summary>Cells per block: half the memory budget (one block is read while the previous one is written).</summary>
-    public int BlockSize { get; }
+    public int BlockSize { get; private init; }
 
     /// <summary>Per new file (in plan order): its steps of the year.</summary>
-    public IReadOnlyList<FilePart> Parts { get; }
+    public IReadOnlyList<FilePart> Parts { get; private init; } = null!;
 
-    public SharedSteps Shared { get; }
+    public SharedSteps Shared { get; private init; } = null!;
 
     /// <summary>The most bytes a block of the year holds.</summary>
     public long BlockBytes => (long)BlockSize * BytesPerCell;
@@ -54,7 +45,10 @@ public sealed class YearPlan
         var stored = plan.StoredTimelines.GetValueOrDefault(year);
         var shared = SharedSteps.ForYear(timeline, stored, plan.StoredMask, plan.Request.ReplaceOverlap,
             parts.Select((part, k) => (part.Positions, IngestPlan.MaskOf(plan.Fresh[k]))).ToList());
-        return new YearPlan(year, timeline, stored, bytesPerCell, blockSize, parts, shared);
+        return new YearPlan
+        {
+            Year = year, Timeline = timeline, StoredTimeline = stored, BytesPerCell = bytesPerCell, BlockSize = blockSize, Parts = parts, Shared = shared,
+        };
     }
 }
 
