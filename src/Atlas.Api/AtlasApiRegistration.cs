@@ -7,6 +7,7 @@ using Atlas.Api.Infrastructure;
 using Atlas.Api.Layers;
 using Atlas.Api.Points;
 using Atlas.Api.Vocabulary;
+using Atlas.Ingest.Hosting;
 using Atlas.Ingest.Validation;
 using Atlas.Storage;
 using Atlas.Storage.Cells;
@@ -40,6 +41,7 @@ public static class AtlasApiRegistration
         });
         var services = builder.Services;
         services.AddOptions<AtlasApiOptions>().BindConfiguration(nameof(AtlasApiOptions)).ValidateDataAnnotations().ValidateOnStart();
+        services.AddStatisticsOptions();
 
         services.AddAtlasDataSources();
         builder.AddAtlasOperations();

@@ -29,10 +29,9 @@ public class JobQueueTests(TestDatabase database) : IClassFixture<TestDatabase>
         var queue = new JobQueue(database.DataSource);
         var id = await queue.EnqueueAsync(JobKind.Ingest, "stale");
         Assert.NotNull(await queue.ClaimAsync(id, "gone"));
-        // Waits for the database's clock, which decides staleness, rather than for a fixed time: the first call after
-        // the last heartbeat is a second old re-queues it.
-        await Patience.UntilAsync(async () => await queue.RequeueStaleAsync(TimeSpan.FromSeconds(1)) >= 1,
-            "the job without heartbeats for a second to be re-queued");
+        // The database's clock decides: wait until the heartbeat is over a second old by it, then requeue.
+        await Patience.UntilAsync(() => ClaimIsOlderThanAsync(id, TimeSpan.FromSeconds(1)), "the heartbeat to be a second old");
+        Assert.True(await queue.RequeueStaleAsync(TimeSpan.FromSeconds(1)) >= 1);
         var again = await queue.ClaimAsync(id, "second");
         Assert.NotNull(again);
         Assert.Equal(2, again!.Attempts);
@@ -45,8 +44,7 @@ public class JobQueueTests(TestDatabase database) : IClassFixture<TestDatabase>
         var id = await queue.EnqueueAsync(JobKind.Ingest, "leased");
         Assert.NotNull(await queue.ClaimAsync(id, "holder"));
         var lease = await JobLease.TakeAsync(database.DataSource, id);
-        // Only once the claim is older than the lease grace does the lease decide, so wait for that by the database's clock.
-        await Patience.UntilAsync(() => ClaimIsOlderThanLeaseGraceAsync(id), "the claim to outlive the lease grace");
+        await Patience.UntilAsync(() => ClaimIsOlderThanAsync(id, JobQueue.LeaseGrace), "the claim to be older than the lease grace");
         // The heartbeat limit is an hour away: only the lease decides here.
         await queue.RequeueStaleAsync(TimeSpan.FromHours(1));
         Assert.Equal("running", (await queue.FindAsync(id))!.State);
@@ -57,11 +55,13 @@ public class JobQueueTests(TestDatabase database) : IClassFixture<TestDatabase>
         await queue.CompleteAsync(id, "checked");
     }
 
-    private async Task<bool> ClaimIsOlderThanLeaseGraceAsync(long id)
+    /// <summary>True when the job's claim and heartbeat are older than <paramref name="age"/> by the database's clock.</summary>
+    private async Task<bool> ClaimIsOlderThanAsync(long id, TimeSpan age)
     {
-        await using var command = database.DataSource.CreateCommand("SELECT claimed_at < now() - $2 FROM job WHERE job_id = $1");
+        await using var command = database.DataSource.CreateCommand(
+            "SELECT claimed_at < now() - $2 AND heartbeat_at < now() - $2 FROM job WHERE job_id = $1");
         command.Parameters.AddWithValue(id);
-        command.Parameters.AddWithValue(JobQueue.LeaseGrace);
+        command.Parameters.AddWithValue(age);
         return (bool)(await command.ExecuteScalarAsync())!;
     }
 }

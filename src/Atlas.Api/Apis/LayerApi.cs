@@ -40,7 +40,8 @@ public static class LayerApi
         var combinations = (await geometry.LayerCombinationsAsync(dataset.Id, cancel)).ToList();
         if (await renderer.HasDepthsAsync(dataset, cancel) && combinations.All(c => c.Parameter != WaveParameter.Depth))
             combinations.Add(new LayerCombination(WaveParameter.Depth, AtlasPeriod.Annual));
-        var options = new StatisticsOptions();
+        // The bins of the dataset's stored statistics (unknown while a pass with other options runs).
+        var options = Ingest.Statistics.RecordedStatisticsOptions.Read(dataset.MetadataJson);
         var parameters = combinations
             .GroupBy(c => c.Parameter)
             .OrderBy(g => g.Key)
@@ -48,7 +49,7 @@ public static class LayerApi
             {
                 var periods = g.Select(c => c.Period).Order().Select(p => p.Name).ToArray();
                 var statistics = StatisticsOf(g.Key).Select(s => s.Name()).ToArray();
-                double? binWidth = g.Key is WaveParameter.Dir or WaveParameter.D or WaveParameter.Depth ? null : options.BinningFor(g.Key).BinWidth;
+                double? binWidth = g.Key is WaveParameter.Dir or WaveParameter.D or WaveParameter.Depth ? null : options?.BinningFor(g.Key).BinWidth;
                 return new LayerParameterItem(g.Key.Symbol(), ParameterCatalogue.LongName(g.Key), g.Key.Unit(), statistics, periods, binWidth,
                     $"/api/v1/datasets/{slug}/layers/{g.Key.Symbol()}/{statistics[0]}/{periods[0]}.tif");
             })

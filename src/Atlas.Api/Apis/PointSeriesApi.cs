@@ -6,6 +6,8 @@ using Atlas.Api.Infrastructure;
 using Atlas.Api.Model;
 using Atlas.Api.Points;
 using Atlas.Ingest.Series;
+using Atlas.Statistics;
+using Atlas.WavePhysics;
 using Atlas.Storage.Series;
 using Microsoft.AspNetCore.Http.HttpResults;
 using Microsoft.Extensions.Options;
@@ -28,7 +30,7 @@ public static class PointSeriesApi
     public static async Task<Results<PushStreamHttpResult, ProblemHttpResult, ValidationProblem>> SeriesAsync(
         string slug, string? lat, string? lon, string? from, string? to, string? format,
         PointLocator locator, DatasetCatalog catalog, SeriesStore series, ProvenanceBuilder provenance,
-        IOptions<AtlasApiOptions> options, CancellationToken cancel)
+        IOptions<AtlasApiOptions> options, StatisticsOptions statistics, CancellationToken cancel)
     {
         var errors = new Dictionary<string, string[]>();
         var position = PointLocator.ParsePosition(lat, lon, errors);
@@ -60,20 +62,22 @@ public static class PointSeriesApi
         var cell = PointApi.CellOf(point);
         var fileName = $"{slug}_series_{cell.Id}_{first}-{last}.{(csv ? "csv" : "json")}";
         return TypedResults.Stream(
-            stream => csv ? WriteCsvAsync(stream, decoded, cell, source, first, last, cancel) : WriteJsonAsync(stream, decoded, cell, source, first, last, cancel),
+            stream => csv ? WriteCsvAsync(stream, decoded, statistics.AssumedSpectrum, cell, source, first, last, cancel)
+                          : WriteJsonAsync(stream, decoded, statistics.AssumedSpectrum, cell, source, first, last, cancel),
             csv ? "text/csv; charset=utf-8" : "application/json", fileName);
     }
 
     private const string Units = "time UTC (ISO 8601); hs m; te s; tp s; dir degree (true, direction waves come from); spread degree; j kW/m";
 
-    private static async Task WriteCsvAsync(Stream stream, PointSeries s, PointCell cell, Provenance source, int first, int last, CancellationToken cancel)
+    private static async Task WriteCsvAsync(Stream stream, PointSeries s, SpectrumShape spectrum, PointCell cell, Provenance source, int first, int last,
+        CancellationToken cancel)
     {
-        var (te, power, teFromTp) = s.Derived();
+        var (te, power, teFromTp) = s.Derived(spectrum);
         await using var writer = new StreamWriter(stream, new UTF8Encoding(false), 64 * 1024);
         await writer.WriteAsync($"# series of cell {cell.Id} at lat {F(cell.Lat)} lon {F(cell.Lon)}, depth_m {(cell.DepthM is { } d ? F(d) : "unknown (deep water assumed)")}, " +
                                 $"{cell.DistanceM:0.#} m from the requested position; years {first}..{last}\n");
         await writer.WriteAsync($"# units: {Units}\n");
-        if (teFromTp) await writer.WriteAsync("# te: derived as 0.9 tp (JONSWAP gamma 3.3), the dataset has no energy period\n");
+        if (teFromTp) await writer.WriteAsync($"# te: derived from tp for the {MethodNotes.AssumedSpectrum(spectrum)}, the dataset has no energy period\n");
         foreach (var line in source.HeaderLines()) await writer.WriteAsync(line + "\n");
         await writer.WriteAsync("time,hs,te,tp,dir,spread,j\n");
         var line8 = new StringBuilder(96);
@@ -93,9 +97,10 @@ public static class PointSeriesApi
         await writer.FlushAsync(cancel);
     }
 
-    private static async Task WriteJsonAsync(Stream stream, PointSeries s, PointCell cell, Provenance source, int first, int last, CancellationToken cancel)
+    private static async Task WriteJsonAsync(Stream stream, PointSeries s, SpectrumShape spectrum, PointCell cell, Provenance source, int first, int last,
+        CancellationToken cancel)
     {
-        var (te, power, teFromTp) = s.Derived();
+        var (te, power, teFromTp) = s.Derived(spectrum);
         // The writer fills a buffer that is copied to the response asynchronously (the server forbids synchronous writes).
         var buffer = new System.Buffers.ArrayBufferWriter<byte>(64 * 1024);
         await using var json = new Utf8JsonWriter(buffer);

@@ -41,7 +41,7 @@ public static class PointStatisticsApi
     public static async Task<Results<FileContentHttpResult, StatusCodeHttpResult, ProblemHttpResult, ValidationProblem>> PointAsync(
         string slug, string? lat, string? lon, string? period, string? from, string? to, string? months, string? include, string? format,
         PointLocator locator, DatasetCatalog catalog, SeriesStore series, ProvenanceBuilder provenance, PointResponseCache responses,
-        PointCalendars calendars, IOptions<JsonOptions> json, HttpContext http, CancellationToken cancel)
+        PointCalendars calendars, StatisticsOptions statisticsOptions, IOptions<JsonOptions> json, HttpContext http, CancellationToken cancel)
     {
         var errors = new Dictionary<string, string[]>();
         var position = PointLocator.ParsePosition(lat, lon, errors);
@@ -63,13 +63,14 @@ public static class PointStatisticsApi
         var key = await ResponseKeyAsync(point, position.Value, window, onlyPeriod, parts, csv, catalog, cancel);
         // Computed without the request's cancellation: other requests for the same key may be waiting on it.
         var (response, failure) = await responses.GetOrComputeAsync(key,
-            () => ComputeAsync(point, window, onlyPeriod, parts, csv, catalog, series, provenance, calendars, json.Value.SerializerOptions, CancellationToken.None));
+            () => ComputeAsync(point, window, onlyPeriod, parts, csv, catalog, series, provenance, calendars, statisticsOptions, json.Value.SerializerOptions,
+                CancellationToken.None));
         return response is null ? failure! : Respond(response, http);
     }
 
     private static async Task<PointOutcome> ComputeAsync(LocatedPoint point, YearWindow window, AtlasPeriod? onlyPeriod, HashSet<string> parts,
-        bool csv, DatasetCatalog catalog, SeriesStore series, ProvenanceBuilder provenance, PointCalendars calendars, JsonSerializerOptions json,
-        CancellationToken cancel)
+        bool csv, DatasetCatalog catalog, SeriesStore series, ProvenanceBuilder provenance, PointCalendars calendars, StatisticsOptions statisticsOptions,
+        JsonSerializerOptions json, CancellationToken cancel)
     {
         var slug = point.Dataset.Slug;
         var timelines = await catalog.TimelinesAsync(point.Dataset, cancel);
@@ -83,6 +84,7 @@ public static class PointStatisticsApi
             result = ExactPointAnalysis.Analyse(decoded.ToCellSeries(), new ExactPointOptions
             {
                 Window = new AnalysisWindow(window.FromYear, window.ToYear, window.Months),
+                Statistics = statisticsOptions,
             }, calendars.For(decoded.Times));
         var periods = result.Periods.Where(p => onlyPeriod is not { } only || p.Period == only).ToArray();
         if (periods.Length == 0)

@@ -25,7 +25,8 @@ public sealed class ProvenanceBuilder(DatasetStore datasets, DatasetCatalog cata
 
     /// <summary>The statistics service's method notes carried into provenance, in this order.</summary>
     private static readonly string[] RecordedNotes =
-        ["energy_period", "percentiles_layers", "coverage", "climatology", "weighted_percentiles", "seasons", "inter_annual", "directionality"];
+        ["energy_period", "percentiles_layers", "exceedance_thresholds", "coverage", "climatology", "weighted_percentiles", "seasons", "inter_annual",
+         "directionality"];
 
     public async Task<Provenance> ForAsync(DatasetRecord dataset, CancellationToken cancel)
     {

@@ -21,7 +21,8 @@ internal static class CommandLineJob
     /// </summary>
     /// <param name="command">The command's name for the error line, e.g. <c>ingest</c>.</param>
     /// <param name="afterFailure">A line saying what a failure left behind, or null.</param>
-    public static async Task<int> RunAsync<TPayload>(NpgsqlDataSource dataSource, JobKind kind, string slug, TPayload payload,
+    /// <param name="runner">The runner built by the command's checked host (<see cref="CommandHost"/>).</param>
+    public static async Task<int> RunAsync<TPayload>(NpgsqlDataSource dataSource, JobRunner runner, JobKind kind, string slug, TPayload payload,
         string command, string? afterFailure, CancellationToken cancel)
     {
         var queue = new JobQueue(dataSource);
@@ -29,7 +30,7 @@ internal static class CommandLineJob
         var job = await queue.ClaimAsync(id, WorkerName, cancel) ?? throw new InvalidOperationException($"Job {id} was claimed by another worker.");
         try
         {
-            Console.WriteLine(await new JobRunner(dataSource).RunAsync(job, new ConsoleProgress(), cancel));
+            Console.WriteLine(await runner.RunAsync(job, new ConsoleProgress(), cancel));
             return 0;
         }
         catch (Exception e) when (e is not OperationCanceledException)

@@ -13,6 +13,7 @@ using Atlas.Storage.Datasets;
 using Atlas.Storage.Devices;
 using Atlas.Storage.Jobs;
 using Atlas.Storage.Stations;
+using Microsoft.Extensions.DependencyInjection;
 using Npgsql;
 
 namespace Atlas.Cli.Commands;
@@ -77,10 +78,13 @@ public static class DemoCommand
             foreach (var line in scenario.DescribeLines()) Console.WriteLine("  " + line);
 
             await using var dataSource = await AtlasDatabase.OpenMigratedAsync(cancel: cancel);
+            using var host = CommandHost.BuildChecked(dataSource, "demo");
+            if (host is null) return 2;
+            var runner = host.Services.GetRequiredService<JobRunner>();
             var payload = new IngestPayload(files, $"{scenario.Name} (invented demo coast)", QueueStatistics: false);
-            var ingest = await CommandLineJob.RunAsync(dataSource, JobKind.Ingest, DatasetSlug, payload, "demo", afterFailure: null, cancel);
+            var ingest = await CommandLineJob.RunAsync(dataSource, runner, JobKind.Ingest, DatasetSlug, payload, "demo", afterFailure: null, cancel);
             if (ingest != 0) return ingest;
-            var stats = await StatsCommand.RunAsync(dataSource, DatasetSlug, all: false, cancel);
+            var stats = await StatsCommand.RunAsync(dataSource, runner, DatasetSlug, all: false, cancel);
             if (stats != 0) return stats;
             var assessment = await LoadAssessmentAsync(dataSource, folder, cancel);
             if (assessment != 0) return assessment;

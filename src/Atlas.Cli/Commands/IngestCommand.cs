@@ -2,6 +2,7 @@ using System.CommandLine;
 using Atlas.Ingest.Worker;
 using Atlas.Storage;
 using Atlas.Storage.Jobs;
+using Microsoft.Extensions.DependencyInjection;
 
 namespace Atlas.Cli.Commands;
 
@@ -20,12 +21,15 @@ public static class IngestCommand
         command.SetAction(async (parse, cancel) =>
         {
             await using var dataSource = await AtlasDatabase.OpenMigratedAsync(cancel: cancel);
+            using var host = CommandHost.BuildChecked(dataSource, "ingest");
+            if (host is null) return 2;
+            var runner = host.Services.GetRequiredService<JobRunner>();
             var payload = new IngestPayload(parse.GetValue(files)!.Select(Path.GetFullPath).ToArray(), parse.GetValue(title),
                 parse.GetValue(replace), parse.GetValue(mapping) is { } m ? Path.GetFullPath(m) : null, QueueStatistics: false);
             var slug = parse.GetValue(dataset)!;
-            var ingest = await CommandLineJob.RunAsync(dataSource, JobKind.Ingest, slug, payload, "ingest", "Nothing was changed in the dataset.", cancel);
+            var ingest = await CommandLineJob.RunAsync(dataSource, runner, JobKind.Ingest, slug, payload, "ingest", "Nothing was changed in the dataset.", cancel);
             if (ingest != 0) return ingest;
-            if (!parse.GetValue(noStats)) return await StatsCommand.RunAsync(dataSource, slug, all: false, cancel);
+            if (!parse.GetValue(noStats)) return await StatsCommand.RunAsync(dataSource, runner, slug, all: false, cancel);
             return 0;
         });
         return command;

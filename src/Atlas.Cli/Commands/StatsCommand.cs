@@ -2,6 +2,7 @@ using System.CommandLine;
 using Atlas.Ingest.Worker;
 using Atlas.Storage;
 using Atlas.Storage.Jobs;
+using Microsoft.Extensions.DependencyInjection;
 using Npgsql;
 
 namespace Atlas.Cli.Commands;
@@ -17,12 +18,14 @@ public static class StatsCommand
         command.SetAction(async (parse, cancel) =>
         {
             await using var dataSource = await AtlasDatabase.OpenMigratedAsync(cancel: cancel);
-            return await RunAsync(dataSource, parse.GetValue(dataset)!, parse.GetValue(all), cancel);
+            using var host = CommandHost.BuildChecked(dataSource, "stats");
+            if (host is null) return 2;
+            return await RunAsync(dataSource, host.Services.GetRequiredService<JobRunner>(), parse.GetValue(dataset)!, parse.GetValue(all), cancel);
         });
         return command;
     }
 
     /// <summary>Queues a statistics pass over <paramref name="slug"/> and runs it here; the exit code.</summary>
-    public static Task<int> RunAsync(NpgsqlDataSource dataSource, string slug, bool all, CancellationToken cancel) =>
-        CommandLineJob.RunAsync(dataSource, JobKind.Statistics, slug, new StatisticsPayload(all), "stats", afterFailure: null, cancel);
+    public static Task<int> RunAsync(NpgsqlDataSource dataSource, JobRunner runner, string slug, bool all, CancellationToken cancel) =>
+        CommandLineJob.RunAsync(dataSource, runner, JobKind.Statistics, slug, new StatisticsPayload(all), "stats", afterFailure: null, cancel);
 }

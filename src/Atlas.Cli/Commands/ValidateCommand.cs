@@ -5,8 +5,6 @@ using Atlas.Storage;
 using Atlas.Storage.Datasets;
 using Atlas.Storage.Stations;
 using Microsoft.Extensions.DependencyInjection;
-using Microsoft.Extensions.Hosting;
-using Microsoft.Extensions.Options;
 using Npgsql;
 
 namespace Atlas.Cli.Commands;
@@ -33,22 +31,9 @@ public static class ValidateCommand
     public static async Task<int> RunAsync(NpgsqlDataSource dataSource, string slug, string? stationName, CancellationToken cancel)
     {
         // The service as the host registers it: the distance limit comes from configuration (appsettings.json,
-        // AtlasApiOptions__... variables), as it does for the API, and a wrong value stops here with its name.
-        var builder = Host.CreateApplicationBuilder();
-        builder.Services.AddSingleton(dataSource);
-        builder.Services.AddStationValidation();
-        using var host = builder.Build();
-        // The host is not started (nothing runs in the background, and its start-up lines would mix with the report):
-        // the options are checked here, as a start would check them.
-        try
-        {
-            _ = host.Services.GetRequiredService<IOptions<StationCellOptions>>().Value;
-        }
-        catch (OptionsValidationException e)
-        {
-            Console.Error.WriteLine($"atlas validate: not started: {string.Join("; ", e.Failures)}");
-            return 2;
-        }
+        // StationValidation__... variables, or the API's AtlasApiOptions__... ones), and a wrong value stops here with its name.
+        using var host = CommandHost.BuildChecked(dataSource, "validate");
+        if (host is null) return 2;
         var service = host.Services.GetRequiredService<ValidationService>();
         var dataset = await new DatasetStore(dataSource).FindAsync(slug, cancel);
         if (dataset is null)

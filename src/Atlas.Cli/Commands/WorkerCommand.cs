@@ -34,6 +34,13 @@ public static class WorkerCommand
             var dataSource = await AtlasDatabase.OpenMigratedAsync(cancel: cancel);
             var urls = parse.GetValue(metricsUrls);
             using IHost host = urls is null ? BuildPlain(dataSource) : BuildWithMetrics(dataSource, urls);
+            // Settings (the Statistics section) are checked before the start, so that a wrong one is named without the
+            // host's failure log and its stack trace.
+            if (CommandHost.Problems(host) is { } problems)
+            {
+                Console.Error.WriteLine($"atlas worker: not started: {problems}");
+                return 2;
+            }
             await host.RunAsync(cancel);
             return 0;
         });
@@ -70,6 +77,7 @@ public static class WorkerCommand
     private static void AddWorker(IServiceCollection services, Npgsql.NpgsqlDataSource dataSource)
     {
         services.AddSingleton(dataSource);
+        services.AddAtlasJobs();
         services.AddHostedService<QueueWorker>();
         services.Configure<HostOptions>(o => o.ShutdownTimeout = TimeSpan.FromSeconds(30));
     }

@@ -17,10 +17,10 @@ public static class DatasetMetadata
         var variables = new JsonObject();
         foreach (WaveParameter v in WaveParameterGroups.SeriesFields)
         {
-            if ((mask & (1 << (int)v)) == 0) continue;
-            variables[Symbol(v)] = new JsonObject
+            if ((mask & SeriesCodec.BitOf(v)) == 0) continue;
+            variables[v.Symbol()] = new JsonObject
             {
-                ["units"] = SeriesUnits.Of(v),
+                ["units"] = v.Unit(),
                 ["quantisation_step"] = SeriesCodec.StepOf(v),
             };
         }
@@ -45,13 +45,4 @@ public static class DatasetMetadata
         };
         return json.ToJsonString();
     }
-
-    public static string Symbol(WaveParameter variable) => variable switch
-    {
-        WaveParameter.Hs => "hs",
-        WaveParameter.Te => "te",
-        WaveParameter.Tp => "tp",
-        WaveParameter.Dir => "dir",
-        _ => "spread",
-    };
 }

@@ -23,10 +23,11 @@ public static class IngestAssumptions
     /// One entry per wave variable, in the order hs, te, tp, dir, spread, depth. The source of each is taken from the
     /// first file that has it. <paramref name="deepWaterCells"/> counts the wet cells stored with no depth (treated as
     /// deep water by the statistics); null when the cells were not written by this ingest, in which case the depth
-    /// entry of <paramref name="storedMetadataJson"/> (the dataset's first load) is kept.
+    /// entry of <paramref name="storedMetadataJson"/> (the dataset's first load) is kept. <paramref name="assumedSpectrum"/>
+    /// is the statistics' spectrum for Te from Tp (<see cref="StatisticsOptions.AssumedSpectrum"/>), stated where Te is absent.
     /// </summary>
     public static IReadOnlyList<VariableAssumption> Build(IReadOnlyList<SourceFile> files, CellDepths? depths, int? deepWaterCells,
-        string? storedMetadataJson)
+        string? storedMetadataJson, SpectrumShape assumedSpectrum)
     {
         var list = new List<VariableAssumption>();
         foreach (var (variable, symbol) in Order)
@@ -42,7 +43,7 @@ public static class IngestAssumptions
                 list.Add(new VariableAssumption(symbol, source.Name, source.FoundBy, source.Conversion, "none"));
                 continue;
             }
-            list.Add(new VariableAssumption(symbol, null, null, "none", Missing(variable, files)));
+            list.Add(new VariableAssumption(symbol, null, null, "none", Missing(variable, files, assumedSpectrum)));
         }
         return list;
     }
@@ -99,9 +100,9 @@ public static class IngestAssumptions
     }
 
     /// <summary>What the statistics do without the variable, stated as they do it.</summary>
-    private static string Missing(WaveParameter variable, IReadOnlyList<SourceFile> files) => variable switch
+    private static string Missing(WaveParameter variable, IReadOnlyList<SourceFile> files, SpectrumShape assumedSpectrum) => variable switch
     {
-        WaveParameter.Te when files.Any(f => f.Has(WaveParameter.Tp)) => AssumedEnergyPeriod(),
+        WaveParameter.Te when files.Any(f => f.Has(WaveParameter.Tp)) => AssumedEnergyPeriod(assumedSpectrum),
         WaveParameter.Te => "no Te and no power",
         WaveParameter.Tp => "no Tp statistics",
         WaveParameter.Dir => "no direction statistics and no directionality coefficient (it needs each step's direction)",
@@ -110,9 +111,8 @@ public static class IngestAssumptions
     };
 
     /// <summary>The statistics' own rule (<see cref="StatisticsOptions.AssumedSpectrum"/>), so the text follows the code.</summary>
-    private static string AssumedEnergyPeriod()
+    private static string AssumedEnergyPeriod(SpectrumShape shape)
     {
-        var shape = new StatisticsOptions().AssumedSpectrum;
         var ratio = PeriodConversion.EnergyToPeakPeriodRatio(shape);
         var name = shape switch
         {

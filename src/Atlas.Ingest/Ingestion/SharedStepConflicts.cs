@@ -35,8 +35,8 @@ public sealed class SharedStepConflicts
     public IngestException ToException()
     {
         var (file, holder, time, variable, cell, old, fresh) = _worst;
-        var symbol = DatasetMetadata.Symbol(variable);
-        var units = SeriesUnits.Of(variable);
+        var symbol = variable.Symbol();
+        var units = variable.Unit();
         var what = double.IsPositiveInfinity(_largest)
             ? $"it is {(double.IsNaN(fresh) ? "missing" : $"{fresh:G6} {units}")} in {file} and {(double.IsNaN(old) ? "missing" : $"{old:G6} {units}")} in {holder}"
             : $"{fresh:G6} {units} in {file} against {old:G6} {units} in {holder}, a difference of {_largest:G4} {units}";

@@ -22,17 +22,18 @@ public sealed record PointSeries(long[] Times, float[] Hs, float[] Te, float[] T
     };
 
     /// <summary>
-    /// Te per step (the stored one, or 0.9 Tp for JONSWAP gamma 3.3 when the dataset has only Tp, as the statistics
-    /// library assumes by default) and power per step from the group velocity at the cell depth.
+    /// Te per step (the stored one, or from Tp for <paramref name="assumedSpectrum"/> when the dataset has only Tp, as
+    /// the statistics assume: <see cref="StatisticsOptions.AssumedSpectrum"/>) and power per step from the group
+    /// velocity at the cell depth.
     /// </summary>
-    public (float[] Te, float[] Power, bool TeFromTp) Derived()
+    public (float[] Te, float[] Power, bool TeFromTp) Derived(SpectrumShape assumedSpectrum)
     {
         var te = Te;
         var fromTp = !HasTe && HasTp;
         if (fromTp)
         {
             te = new float[Tp.Length];
-            PeriodConversion.EnergyPeriodFromPeakPeriod(Tp, te, new StatisticsOptions().AssumedSpectrum);
+            PeriodConversion.EnergyPeriodFromPeakPeriod(Tp, te, assumedSpectrum);
         }
         var table = new GroupVelocityTable(DepthMetres);
         var power = new float[Hs.Length];

@@ -15,13 +15,19 @@ namespace Atlas.Ingest.Statistics;
 /// <summary>
 /// Computes and stores the statistics of a dataset's cells whose series changed since they were last computed
 /// (or of all cells; a changed cell's whole block of 1,024 cell ids is recomputed, since blocks are stored whole). One
-/// streaming pass: chunks come out of PostgreSQL by binary COPY ordered by cell, each cell's series is assembled
-/// once, a calculator per core computes every period, and the results, packed per block, go back by binary COPY in
-/// batches. Memory is bounded by the cell buffers and the few open blocks in flight, whatever the dataset size.
+/// streaming pass in four stages joined by bounded channels: produce (<see cref="CellSeriesProducer"/>: chunks come out
+/// of PostgreSQL by binary COPY ordered by cell, each cell's series is assembled once), calculate
+/// (<see cref="CellCalculators"/>: a calculator per core computes every period), assemble
+/// (<see cref="StatisticBlockAssembler"/>: results packed per block) and write (<see cref="StatisticBatchWriter"/>:
+/// blocks go back by binary COPY in batches). Memory is bounded by the cell buffers and the few open blocks in flight,
+/// whatever the dataset size. The options used are recorded with the statistics; statistics of an earlier method or
+/// of other options are all recomputed.
 /// </summary>
+/// <param name="options">The statistics options (the host binds them from the <c>Statistics</c> configuration section);
+/// the published defaults when none are given.</param>
 public sealed class StatisticsService(NpgsqlDataSource dataSource, StatisticsOptions? options = null)
 {
-    private readonly StatisticsOptions _options = options ?? new StatisticsOptions();
+    private readonly StatisticsOptions _options = Checked(options ?? new StatisticsOptions());
     private const int CellsPerBatch = 2000;
     private const int WriterConnections = 2;
 
@@ -30,157 +36,72 @@ public sealed class StatisticsService(NpgsqlDataSource dataSource, StatisticsOpt
         var clock = Stopwatch.StartNew();
         var datasets = new DatasetStore(dataSource);
         var dataset = await datasets.FindAsync(slug, cancel) ?? throw new IngestException($"There is no dataset '{slug}'.");
-        var statistics = new StatisticsStore(dataSource);
         var cells = (await new CellStore(dataSource).AllAsync(dataset.Id, cancel)).Where(c => c.Wet).ToDictionary(c => c.CellId);
-        // Statistics of an earlier method are all recomputed, whatever changed: old and new values never mix.
+        // Statistics of an earlier method or of other options are all recomputed, whatever changed: old and new values never mix.
         var methodChanged = !all && StoredMethodVersion(dataset.MetadataJson) is { } stored && stored != Atlas.Statistics.MethodNotes.Version;
-        all |= methodChanged;
-        var targets = all ? cells.Keys.Order().ToArray() : WholeBlocks(await statistics.StaleCellsAsync(dataset.Id, cancel), cells.Keys);
+        var optionsChanged = !all && !methodChanged && RecordedStatisticsOptions.Differ(dataset.MetadataJson, _options);
+        all |= methodChanged || optionsChanged;
+        var targets = all ? cells.Keys.Order().ToArray() : WholeBlocks(await new StatisticsStore(dataSource).StaleCellsAsync(dataset.Id, cancel), cells.Keys);
         if (targets.Length == 0) return new StatisticsSummary(slug, 0, 0, 0, 0, clock.Elapsed);
 
-        var timelines = await datasets.TimelinesAsync(dataset.Id, cancel);
-        var times = timelines.Values.SelectMany(t => t).ToArray();
-        var offsets = new Dictionary<int, (int, int)>();
-        var offset = 0;
-        foreach (var (year, line) in timelines) { offsets[year] = (offset, line.Length); offset += line.Length; }
+        // Until this pass ends the stored statistics are partly of either options: say so, so that a pass that fails
+        // half-way is followed by one that recomputes every cell.
+        if (all && RecordedStatisticsOptions.Differ(dataset.MetadataJson, _options))
+            await datasets.MergeMetadataAsync(dataset.Id, RecordedStatisticsOptions.Unsettled(dataset.MetadataJson), cancel);
+        var timeline = DatasetTimeline.Of(await datasets.TimelinesAsync(dataset.Id, cancel));
+        var computedAt = DateTime.UtcNow;
+        var (done, periods, rows) = await ComputeAsync(dataset.Id, cells, targets, timeline, computedAt, progress, clock, cancel);
+        await datasets.MergeMetadataAsync(dataset.Id, MethodNotes(computedAt), cancel);
+        return new StatisticsSummary(slug, done, periods, rows, (long)done * timeline.Times.Length, clock.Elapsed, methodChanged, optionsChanged);
+    }
 
+    /// <summary>
+    /// Runs the four stages over <paramref name="targets"/>; returns the cells stored, the periods and the rows. The
+    /// first stage to fail cancels the others, and its error is the one reported.
+    /// </summary>
+    private async Task<(int Cells, int Periods, long Rows)> ComputeAsync(int datasetId, IReadOnlyDictionary<int, CellRecord> cells, int[] targets,
+        DatasetTimeline timeline, DateTime computedAt, IProgress<ProgressSnapshot>? progress, Stopwatch clock, CancellationToken cancel)
+    {
         var workers = Math.Max(1, Environment.ProcessorCount);
         var free = Channel.CreateUnbounded<CellSeriesBuffer>();
-        for (var i = 0; i < 2 * workers + 2; i++) free.Writer.TryWrite(new CellSeriesBuffer(times.Length));
+        for (var i = 0; i < 2 * workers + 2; i++) free.Writer.TryWrite(new CellSeriesBuffer(timeline.Times.Length));
         var work = Channel.CreateBounded<CellSeriesBuffer>(workers * 2);
-        var results = Channel.CreateBounded<(int Cell, List<StatisticRow> Rows)>(workers * 4);
+        var results = Channel.CreateBounded<CellResult>(workers * 4);
+        var batches = Channel.CreateBounded<StatisticBatch>(2);
         using var linked = CancellationTokenSource.CreateLinkedTokenSource(cancel);
         var token = linked.Token;
 
-        var producer = Task.Run(async () =>
-        {
-            try
-            {
-                var onlyCells = targets.Length == cells.Count ? null : targets;
-                // Chunks arrive ordered by cell: each is decoded into the cell's buffer as it streams past (its payload
-                // is only a view of the reader's buffer), and the buffer goes to the calculators when the cell ends.
-                CellSeriesBuffer? buffer = null;
-                var current = -1;
-                await foreach (var chunk in new SeriesStore(dataSource).StreamAsync(dataset.Id, onlyCells, token))
-                {
-                    if (chunk.CellId != current)
-                    {
-                        if (buffer is not null) await work.Writer.WriteAsync(buffer, token);
-                        buffer = null;
-                        current = chunk.CellId;
-                        if (cells.TryGetValue(current, out var cell))
-                        {
-                            buffer = await free.Reader.ReadAsync(token);
-                            buffer.Begin(current, cell.DepthMetres ?? double.NaN);
-                        }
-                    }
-                    buffer?.Add(chunk.Year, chunk.Payload.Span, offsets);
-                }
-                if (buffer is not null) await work.Writer.WriteAsync(buffer, token);
-                work.Writer.Complete();
-            }
-            catch (Exception e)
-            {
-                work.Writer.Complete(e);
-                throw;
-            }
-        }, token);
-
-        var calculators = Enumerable.Range(0, workers).Select(_ => Task.Run(async () =>
-        {
-            var calculator = new BinnedCellCalculator(_options);
-            await foreach (var buffer in work.Reader.ReadAllAsync(token))
-            {
-                var rows = new List<StatisticRow>(160);
-                StatisticRows.Append(buffer.CellId, calculator.Compute(buffer.AsSeries(times)), rows);
-                var cellId = buffer.CellId;
-                free.Writer.TryWrite(buffer);
-                await results.Writer.WriteAsync((cellId, rows), token);
-            }
-        }, token)).ToArray();
-        var closer = Task.WhenAll(calculators).ContinueWith(t => results.Writer.Complete(t.Exception), TaskScheduler.Default);
-
-        var computedAt = DateTime.UtcNow;
-        // Batches are written by tasks of their own, so the calculators keep computing while PostgreSQL stores them, on
-        // two connections so that one batch's COPY overlaps the other's commit. Batches hold disjoint blocks, so their
-        // transactions never wait on each other.
-        var batches = Channel.CreateBounded<(List<int> Cells, List<StatisticBlock> Blocks)>(2);
-        long rowCount = 0;
-        var done = 0;
-        var writers = Enumerable.Range(0, WriterConnections).Select(_ => Task.Run(async () =>
-        {
-            try
-            {
-                await foreach (var (batchCells, batchBlocks) in batches.Reader.ReadAllAsync(token))
-                {
-                    await statistics.ReplaceBlocksAsync(dataset.Id, batchCells, batchBlocks, computedAt, token);
-                    var cellsDone = Interlocked.Add(ref done, batchCells.Count);
-                    progress?.Report(new ProgressSnapshot("statistics", cellsDone, targets.Length, 0, clock.Elapsed, "cells"));
-                }
-            }
-            catch
-            {
-                await linked.CancelAsync();
-                throw;
-            }
-        }, token)).ToArray();
-        var writer = Task.WhenAll(writers);
-        var periodCodes = new HashSet<short>();
+        var producer = new CellSeriesProducer(new SeriesStore(dataSource), datasetId, cells, targets.Length == cells.Count ? null : targets, timeline);
+        var produced = Task.Run(() => producer.RunAsync(free.Reader, work.Writer, token), token);
+        var calculators = new CellCalculators(_options, timeline.Times, workers);
+        var calculated = calculators.Start(work.Reader, free.Writer, results.Writer, token);
+        var writer = new StatisticBatchWriter(new StatisticsStore(dataSource), datasetId, computedAt, targets.Length, progress, clock);
+        var written = writer.Start(batches.Reader, WriterConnections, linked);
+        var assembler = new StatisticBlockAssembler(targets, CellsPerBatch);
         try
         {
-            // Statistics are stored in blocks of cells, so a batch holds whole blocks: a block goes out once every target
-            // cell in it has come back (cells arrive nearly in order, so few blocks are open at a time). Blocks with a
-            // cell that had no series at all go out at the end. Rows go into their block's columns as they come, so
-            // none outlives its cell.
-            var missing = targets.GroupBy(StatisticBlock.BlockOf).ToDictionary(g => g.Key, g => g.Count());
-            var open = new Dictionary<int, (List<int> Cells, StatisticBlockBuilder Builder)>();
-            var cellsInBatch = new List<int>(CellsPerBatch);
-            var blocksInBatch = new List<StatisticBlock>();
-            async Task CloseAsync(int block)
-            {
-                var (blockCells, builder) = open[block];
-                open.Remove(block);
-                cellsInBatch.AddRange(blockCells);
-                blocksInBatch.AddRange(builder.Build());
-                if (cellsInBatch.Count < CellsPerBatch) return;
-                await batches.Writer.WriteAsync((cellsInBatch, blocksInBatch), token);
-                cellsInBatch = new List<int>(CellsPerBatch);
-                blocksInBatch = [];
-            }
-            await foreach (var (cell, rows) in results.Reader.ReadAllAsync(token))
-            {
-                var block = StatisticBlock.BlockOf(cell);
-                if (!open.TryGetValue(block, out var pending))
-                    open[block] = pending = (new List<int>(StatisticBlock.CellsPerBlock), new StatisticBlockBuilder(block));
-                pending.Cells.Add(cell);
-                foreach (var row in rows)
-                {
-                    pending.Builder.Add(row);
-                    periodCodes.Add(row.Period.Code);
-                }
-                rowCount += rows.Count;
-                if (--missing[block] == 0) await CloseAsync(block);
-            }
-            foreach (var block in open.Keys.Order().ToArray()) await CloseAsync(block);
-            if (cellsInBatch.Count > 0) await batches.Writer.WriteAsync((cellsInBatch, blocksInBatch), token);
-            batches.Writer.Complete();
-            await producer;
-            await Task.WhenAll(calculators);
-            await closer;
-            await writer;
+            await assembler.RunAsync(results.Reader, batches.Writer, token);
+            await produced;
+            await Task.WhenAll(calculators.Workers);
+            await calculated;
+            await written;
         }
         catch (Exception e)
         {
             await linked.CancelAsync();
             // Report the stage that failed first, not the cancellation it caused elsewhere.
-            var first = writers.Append(producer).Concat(calculators).FirstOrDefault(t => t.IsFaulted)?.Exception?.InnerException;
+            var first = writer.Writers.Append(produced).Concat(calculators.Workers).FirstOrDefault(t => t.IsFaulted)?.Exception?.InnerException;
             if (first is not null && e is OperationCanceledException && !cancel.IsCancellationRequested)
                 System.Runtime.ExceptionServices.ExceptionDispatchInfo.Throw(first);
             throw;
         }
+        return (writer.CellsDone, assembler.Periods, assembler.Rows);
+    }
 
-        await datasets.MergeMetadataAsync(dataset.Id, MethodNotes(computedAt), cancel);
-        return new StatisticsSummary(slug, done, periodCodes.Count, rowCount, (long)done * times.Length, clock.Elapsed, methodChanged);
+    private static StatisticsOptions Checked(StatisticsOptions options)
+    {
+        options.Validate();
+        return options;
     }
 
     /// <summary>The method version of a dataset's stored statistics: null before any pass, 1 for passes that recorded none.</summary>
@@ -221,7 +142,9 @@ public sealed class StatisticsService(NpgsqlDataSource dataSource, StatisticsOpt
                 ["inter_annual"] = Atlas.Statistics.MethodNotes.InterAnnual,
                 ["hs_thresholds_m"] = new JsonArray(_options.HsThresholdsMetres.Select(v => (JsonNode)JsonValue.Create(v)).ToArray()),
                 ["j_thresholds_kw_per_m"] = new JsonArray(_options.PowerThresholdsKilowattsPerMetre.Select(v => (JsonNode)JsonValue.Create(v)).ToArray()),
+                ["exceedance_thresholds"] = $"Hs {string.Join(", ", _options.HsThresholdsMetres)} m; J {string.Join(", ", _options.PowerThresholdsKilowattsPerMetre)} kW/m",
                 ["seasons"] = Atlas.Statistics.MethodNotes.Seasons,
+                [RecordedStatisticsOptions.Member] = RecordedStatisticsOptions.ToJson(_options),
             },
         };
         return notes.ToJsonString();

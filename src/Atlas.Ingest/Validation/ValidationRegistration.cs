@@ -13,11 +13,15 @@ public static class ValidationRegistration
 {
     /// <summary>
     /// Adds <see cref="ValidationService"/> with <see cref="StoredStationCells"/> and the distance limit bound from
-    /// configuration (checked at start); expects an <see cref="Npgsql.NpgsqlDataSource"/> to be registered.
+    /// configuration (section <c>StationValidation</c>, the API's keys as fallback; checked at start); expects an <see cref="Npgsql.NpgsqlDataSource"/> to be registered.
     /// </summary>
     public static IServiceCollection AddStationValidation(this IServiceCollection services)
     {
-        services.AddOptions<StationCellOptions>().BindConfiguration(StationCellOptions.Section).ValidateDataAnnotations().ValidateOnStart();
+        services.AddOptions<StationCellOptions>()
+            .BindConfiguration(StationCellOptions.FallbackSection)
+            .BindConfiguration(StationCellOptions.Section)
+            .ValidateDataAnnotations()
+            .ValidateOnStart();
         services.TryAddSingleton<DatasetStore>();
         services.TryAddSingleton<DatasetGeometryQueries>();
         services.TryAddSingleton<CellStore>();

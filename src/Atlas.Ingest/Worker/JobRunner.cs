@@ -3,6 +3,7 @@ using Atlas.Hindcast;
 using Atlas.Ingest.Ingestion;
 using Atlas.Ingest.Progress;
 using Atlas.Ingest.Statistics;
+using Atlas.Statistics;
 using Atlas.Storage.Jobs;
 using Npgsql;
 
@@ -12,9 +13,13 @@ namespace Atlas.Ingest.Worker;
 /// Runs one claimed job to its end: reports progress as heartbeats, marks it done with its summary or failed with
 /// the error's message. An ingest job queues a statistics job for its dataset when it loaded anything.
 /// </summary>
-public sealed class JobRunner(NpgsqlDataSource dataSource)
+/// <param name="statistics">The statistics options of both jobs (the hosts bind them from configuration, section
+/// <c>Statistics</c>); the published defaults when none are given.</param>
+public sealed class JobRunner(NpgsqlDataSource dataSource, StatisticsOptions? statistics = null)
 {
     private readonly JobQueue _queue = new(dataSource);
+    private readonly HindcastIngestor _ingestor = new(dataSource, statistics);
+    private readonly StatisticsService _statistics = new(dataSource, statistics);
 
     public async Task<string> RunAsync(JobRecord job, IProgress<ProgressSnapshot>? display, CancellationToken cancel)
     {
@@ -29,7 +34,7 @@ public sealed class JobRunner(NpgsqlDataSource dataSource)
             {
                 var payload = JsonSerializer.Deserialize<IngestPayload>(job.PayloadJson) ?? throw new IngestException($"Job {job.Id} has no ingest payload.");
                 var mapping = payload.MappingFile is { } m ? VariableMapping.Load(m) : null;
-                var result = await new HindcastIngestor(dataSource).RunAsync(
+                var result = await _ingestor.RunAsync(
                     new IngestRequest(job.DatasetSlug, payload.Files, payload.Title, payload.Replace, mapping, job.Id), heartbeat, cancel);
                 summary = result.Describe();
                 JobMetrics.RecordIngest(result);
@@ -39,7 +44,7 @@ public sealed class JobRunner(NpgsqlDataSource dataSource)
             else
             {
                 var payload = JsonSerializer.Deserialize<StatisticsPayload>(job.PayloadJson) ?? new StatisticsPayload();
-                var result = await new StatisticsService(dataSource).RunAsync(job.DatasetSlug, payload.All, heartbeat, cancel);
+                var result = await _statistics.RunAsync(job.DatasetSlug, payload.All, heartbeat, cancel);
                 summary = result.Describe();
                 JobMetrics.RecordStatistics(result);
             }

@@ -10,7 +10,7 @@ namespace Atlas.Ingest.Worker;
 /// it, and carries on; a failed job is logged and marked failed. Jobs of workers that died are re-queued after their
 /// heartbeat goes stale. On shutdown the job in hand is cancelled, rolled back and put back in the queue.
 /// </summary>
-public sealed partial class QueueWorker(NpgsqlDataSource dataSource, ILogger<QueueWorker> logger) : BackgroundService
+public sealed partial class QueueWorker(NpgsqlDataSource dataSource, JobRunner runner, ILogger<QueueWorker> logger) : BackgroundService
 {
     public static readonly TimeSpan StaleAfter = TimeSpan.FromMinutes(2);
     private readonly string _name = $"{Environment.MachineName}:{Environment.ProcessId}";
@@ -18,7 +18,6 @@ public sealed partial class QueueWorker(NpgsqlDataSource dataSource, ILogger<Que
     protected override async Task ExecuteAsync(CancellationToken stoppingToken)
     {
         var queue = new JobQueue(dataSource);
-        var runner = new JobRunner(dataSource);
         LogStarted(_name);
         while (!stoppingToken.IsCancellationRequested)
         {

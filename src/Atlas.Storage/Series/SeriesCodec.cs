@@ -87,13 +87,24 @@ public static class SeriesCodec
     /// <summary>A payload of <paramref name="stepCount"/> steps holding the variables of <paramref name="mask"/>, all missing.</summary>
     public static byte[] CreateEmpty(int stepCount, int mask)
     {
-        var count = System.Numerics.BitOperations.PopCount((uint)mask);
-        var buffer = new byte[EncodedLength(stepCount, count)];
-        buffer[0] = FormatVersion;
-        buffer[1] = (byte)mask;
-        BinaryPrimitives.WriteInt32LittleEndian(buffer.AsSpan(2), stepCount);
-        buffer.AsSpan(HeaderBytes).Fill(0xFF);
+        var buffer = new byte[EncodedLength(stepCount, System.Numerics.BitOperations.PopCount((uint)mask))];
+        WriteEmpty(buffer, stepCount, mask);
         return buffer;
+    }
+
+    /// <summary>
+    /// Writes into <paramref name="destination"/> (exactly the encoded length) a payload of <paramref name="stepCount"/>
+    /// steps holding the variables of <paramref name="mask"/>, all missing: a reused buffer made ready for a new cell.
+    /// </summary>
+    public static void WriteEmpty(Span<byte> destination, int stepCount, int mask)
+    {
+        var length = EncodedLength(stepCount, System.Numerics.BitOperations.PopCount((uint)mask));
+        if (destination.Length != length)
+            throw new ArgumentException($"The destination holds {destination.Length} bytes; a payload of {stepCount} steps with mask {mask} takes {length}.", nameof(destination));
+        destination[0] = FormatVersion;
+        destination[1] = (byte)mask;
+        BinaryPrimitives.WriteInt32LittleEndian(destination.Slice(2), stepCount);
+        destination.Slice(HeaderBytes).Fill(0xFF);
     }
 
     /// <summary>Byte offset of a variable's first value in a payload with the given mask.</summary>

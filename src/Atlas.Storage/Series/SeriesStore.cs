@@ -8,7 +8,14 @@ namespace Atlas.Storage.Series;
 public sealed class SeriesStore(NpgsqlDataSource dataSource)
 {
     /// <summary>Bulk-writes chunks with binary COPY inside the caller's transaction (the rows must not exist yet).</summary>
-    public static async Task WriteAsync(NpgsqlConnection connection, int datasetId, IEnumerable<SeriesChunk> chunks, CancellationToken cancel)
+    public static Task WriteAsync(NpgsqlConnection connection, int datasetId, IEnumerable<SeriesChunk> chunks, CancellationToken cancel) =>
+        WriteAsync(connection, datasetId, chunks.Select(c => new StreamedSeriesChunk(c.CellId, c.Year, c.Payload)), cancel);
+
+    /// <summary>
+    /// Writes chunks whose payloads are views of the caller's buffers (the ingest reuses one buffer per block of cells):
+    /// the buffers must stay untouched until the returned task completes.
+    /// </summary>
+    public static async Task WriteAsync(NpgsqlConnection connection, int datasetId, IEnumerable<StreamedSeriesChunk> chunks, CancellationToken cancel)
     {
         await BinaryImport.WriteRowsAsync(connection,
             "COPY series_chunk (dataset_id, cell_id, year, step_count, payload) FROM STDIN (FORMAT BINARY)", chunks,
@@ -17,7 +24,7 @@ public sealed class SeriesStore(NpgsqlDataSource dataSource)
                 await writer.WriteAsync(datasetId, NpgsqlDbType.Integer, cancel);
                 await writer.WriteAsync(chunk.CellId, NpgsqlDbType.Integer, cancel);
                 await writer.WriteAsync((short)chunk.Year, NpgsqlDbType.Smallint, cancel);
-                await writer.WriteAsync(SeriesCodec.StepCountOf(chunk.Payload), NpgsqlDbType.Integer, cancel);
+                await writer.WriteAsync(SeriesCodec.StepCountOf(chunk.Payload.Span), NpgsqlDbType.Integer, cancel);
                 await writer.WriteAsync(chunk.Payload, NpgsqlDbType.Bytea, cancel);
             }, cancel);
     }

@@ -61,7 +61,7 @@ public static class SyntheticAtlas
 
     private static async Task<int> IdOfAsync(NpgsqlDataSource dataSource, string slug) => (await new DatasetStore(dataSource).FindAsync(slug))!.Id;
 
-    private static async Task<List<CellRecord>> SeedCoastAsync(NpgsqlDataSource dataSource, string slug)
+    internal static async Task<List<CellRecord>> SeedCoastAsync(NpgsqlDataSource dataSource, string slug)
     {
         var grid = JsonSerializer.Serialize(new
         {

@@ -57,6 +57,40 @@ public sealed class StartupSettingsTests(TestDatabase database) : IClassFixture<
     }
 
     [Fact]
+    public void ValidateReadsItsOwnSectionBeforeTheApiKeys()
+    {
+        // StationValidation:PointMaxDistanceKm overrides the API's key, which stays the fallback.
+        var (code, output) = AtlasProcess.Run("validate some-dataset", new Dictionary<string, string>
+        {
+            ["ATLAS_DB"] = database.ConnectionString,
+            ["AtlasApiOptions__PointMaxDistanceKm"] = "5",
+            ["StationValidation__PointMaxDistanceKm"] = "-5",
+        });
+        Assert.Equal(2, code);
+        Assert.Contains("atlas validate: not started", output);
+        Assert.Contains("PointMaxDistanceKm", output);
+        Assert.DoesNotContain("   at ", output);
+    }
+
+    [Theory]
+    [InlineData("stats some-dataset", "atlas stats: not started")]
+    [InlineData("ingest --dataset some-dataset no-such-file.nc", "atlas ingest: not started")]
+    [InlineData("worker", "atlas worker: not started")]
+    public void ACommandRefusesAWrongStatisticsSettingByNameBeforeItStarts(string command, string refusal)
+    {
+        // 0.07 m bins do not divide the 30 m upper bound into whole bins.
+        var (code, output) = AtlasProcess.Run(command, new Dictionary<string, string>
+        {
+            ["ATLAS_DB"] = database.ConnectionString,
+            ["Statistics__HsBinning__BinWidth"] = "0.07",
+        });
+        Assert.Equal(2, code);
+        Assert.Contains(refusal, output);
+        Assert.Contains("Statistics:HsBinning", output);
+        Assert.DoesNotContain("   at ", output);
+    }
+
+    [Fact]
     public void AnEmbeddedClusterPortThatIsNotANumberIsNamed()
     {
         var (code, output) = AtlasProcess.Run("db status", new Dictionary<string, string> { ["ATLAS_DB"] = "", ["ATLAS_PG_PORT"] = "54x39" });
