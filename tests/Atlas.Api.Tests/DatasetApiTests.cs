@@ -1,6 +1,6 @@
 using System.Net;
 using System.Text.Json;
-using Atlas.Api.Infrastructure;
+using Atlas.Api.Model;
 using Atlas.Api.Tests.Support;
 
 namespace Atlas.Api.Tests;

@@ -1,8 +1,8 @@
 using System.Globalization;
-using System.Net;
 using System.Net.Http.Headers;
+using System.Net;
 using System.Text.Json;
-using Atlas.Api.Infrastructure;
+using Atlas.Api.Model;
 using Atlas.Api.Tests.Support;
 using Atlas.Storage.Statistics;
 using Microsoft.Data.Analysis;

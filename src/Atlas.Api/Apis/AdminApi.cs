@@ -1,15 +1,15 @@
-using Atlas.Api.Infrastructure;
+using Atlas.Api.Catalog;
+using Atlas.Api.Data;
+using Atlas.Api.Errors;
+using Atlas.Api.Model;
+using Atlas.Api.Operations;
+using Atlas.Api.Security;
 using Atlas.Storage.Datasets;
 using Atlas.Storage.Jobs;
 using Microsoft.AspNetCore.Http.HttpResults;
 using Npgsql;
 
 namespace Atlas.Api.Apis;
-
-public sealed record JobAccepted(long JobId, string Kind, string Dataset, string State, string Status);
-
-public sealed record JobStatus(long JobId, string Kind, string Dataset, string State, int Attempts, DateTime CreatedAtUtc,
-    DateTime? FinishedAtUtc, string? Progress, string? Error, string? Summary);
 
 /// <summary>The write endpoints: queue a statistics job, delete a dataset. Both need an API key.</summary>
 public static class AdminApi

@@ -1,5 +1,6 @@
 using System.Text.Json;
-using Atlas.Api.Infrastructure;
+using Atlas.Api.Catalog;
+using Atlas.Api.Errors;
 using Atlas.Api.Model;
 using Atlas.Api.Vocabulary;
 using Atlas.Storage.Datasets;

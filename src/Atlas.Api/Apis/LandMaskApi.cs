@@ -1,7 +1,8 @@
 using System.Text.Json;
+using Atlas.Api.Catalog;
 using Atlas.Api.Downloads;
+using Atlas.Api.Errors;
 using Atlas.Api.Footprints;
-using Atlas.Api.Infrastructure;
 using Atlas.Api.Rasters;
 using Atlas.Storage.Cells;
 using Microsoft.AspNetCore.Http.HttpResults;

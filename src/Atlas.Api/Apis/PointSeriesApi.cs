@@ -1,10 +1,14 @@
 using System.Globalization;
 using System.Text.Json;
 using System.Text;
+using Atlas.Api.Catalog;
 using Atlas.Api.Downloads;
+using Atlas.Api.Errors;
 using Atlas.Api.Infrastructure;
 using Atlas.Api.Model;
 using Atlas.Api.Points;
+using Atlas.Api.Requests;
+using Atlas.Api.Security;
 using Atlas.Ingest.Series;
 using Atlas.Storage.Series;
 using Microsoft.AspNetCore.Http.HttpResults;
@@ -26,15 +30,14 @@ public static class PointSeriesApi
             .RequireRateLimiting(RateLimits.Expensive);
 
     public static async Task<Results<PushStreamHttpResult, ProblemHttpResult, ValidationProblem>> SeriesAsync(
-        string slug, string? lat, string? lon, string? from, string? to, string? format,
+        string slug, [AsParameters] PointSeriesQuery query,
         PointLocator locator, DatasetCatalog catalog, SeriesStore series, ProvenanceBuilder provenance,
         IOptions<AtlasApiOptions> options, CancellationToken cancel)
     {
-        var errors = new Dictionary<string, string[]>();
-        var position = PointLocator.ParsePosition(lat, lon, errors);
-        var window = YearWindow.Parse(from, to, null, errors);
-        var csv = format is null or "csv";
-        if (!csv && format != "json") errors["format"] = [$"'{format}' is not a series format: use csv or json."];
+        var errors = new QueryErrors();
+        var position = query.Position(errors);
+        var window = query.Years(errors);
+        var csv = query.Csv(errors);
         if (errors.Count > 0 || position is null || window is null)
             return TypedResults.ValidationProblem(errors, title: "The series request has invalid query values");
 
@@ -57,7 +60,7 @@ public static class PointSeriesApi
         var depth = point.Nearest.Cell.DepthMetres is { } d ? d : double.NaN;
         var decoded = PointSeriesReader.Decode(chunks, timelines, depth);
         var source = await provenance.ForAsync(point.Dataset, cancel);
-        var cell = PointApi.CellOf(point);
+        var cell = point.Cell;
         var fileName = $"{slug}_series_{cell.Id}_{first}-{last}.{(csv ? "csv" : "json")}";
         return TypedResults.Stream(
             stream => csv ? WriteCsvAsync(stream, decoded, cell, source, first, last, cancel) : WriteJsonAsync(stream, decoded, cell, source, first, last, cancel),

@@ -1,9 +1,13 @@
 using System.Text.Json;
+using Atlas.Api.Catalog;
 using Atlas.Api.Downloads;
+using Atlas.Api.Errors;
 using Atlas.Api.Footprints;
-using Atlas.Api.Infrastructure;
-using Atlas.Statistics;
+using Atlas.Api.Model;
+using Atlas.Api.Requests;
+using Atlas.Api.Security;
 using Atlas.Api.Vocabulary;
+using Atlas.Statistics;
 using Atlas.Storage.Queries;
 using Microsoft.AspNetCore.Http.HttpResults;
 
@@ -28,34 +32,16 @@ public static class ScreeningApi
     }
 
     public static async Task<Results<FileContentHttpResult, ProblemHttpResult, ValidationProblem>> ScreenAsync(
-        string slug, string? min_power_kw_m, string? min_depth_m, string? max_depth_m, string? max_coast_distance_km, string? max_hs_p90_m,
-        string? period, DatasetCatalog catalog, ScreeningQueries screening, CellFootprints footprints, ProvenanceBuilder provenance,
-        CancellationToken cancel)
+        string slug, [AsParameters] ScreeningQuery query, DatasetCatalog catalog, ScreeningQueries screening, CellFootprints footprints,
+        ProvenanceBuilder provenance, CancellationToken cancel)
     {
-        var errors = new Dictionary<string, string[]>();
-        double? Bound(string name, string? text, string unit)
-        {
-            if (text is null) return null;
-            if (!QueryNumbers.TryParse(text, out var v)) { errors[name] = [$"'{text}' is not a number; give {name} in {unit}."]; return null; }
-            if (v < 0) { errors[name] = [$"{name} is {v}; it cannot be negative ({unit})."]; return null; }
-            return v;
-        }
-        var minPower = Bound("min_power_kw_m", min_power_kw_m, "kW/m");
-        var minDepth = Bound("min_depth_m", min_depth_m, "m, positive down");
-        var maxDepth = Bound("max_depth_m", max_depth_m, "m, positive down");
-        var maxCoast = Bound("max_coast_distance_km", max_coast_distance_km, "km");
-        var maxHs = Bound("max_hs_p90_m", max_hs_p90_m, "m");
-        var t = AtlasPeriod.Annual;
-        if (period is not null && !AtlasPeriod.TryParse(period, out t))
-            errors["period"] = [VocabularyMessages.UnknownPeriod(period)];
-        if (minDepth is { } a && maxDepth is { } b && a > b)
-            errors["max_depth_m"] = [$"The depth window is reversed: min_depth_m {a} is greater than max_depth_m {b}; swap them."];
-        if (errors.Count > 0) return TypedResults.ValidationProblem(errors, title: "The screening criteria are invalid");
+        var errors = new QueryErrors();
+        if (query.Read(errors) is not { } bounds) return TypedResults.ValidationProblem(errors, title: "The screening criteria are invalid");
 
         var dataset = await catalog.FindAsync(slug, cancel);
         if (dataset is null) return ApiProblems.UnknownDataset(slug);
-        var criteria = new ScreeningCriteria((short)WaveParameter.J, (short)WaveParameter.Hs, t.Code, minPower, minDepth, maxDepth,
-            maxCoast * 1000, maxHs);
+        var criteria = new ScreeningCriteria((short)WaveParameter.J, (short)WaveParameter.Hs, bounds.Period.Code, bounds.MinPowerKwM,
+            bounds.MinDepthM, bounds.MaxDepthM, bounds.MaxCoastDistanceKm * 1000, bounds.MaxHsP90M);
         var cells = await screening.MatchingCellsAsync(dataset.Id, criteria, cancel);
         var areas = await footprints.ForAsync(dataset, cancel);
         var source = await provenance.ForAsync(dataset, cancel);
@@ -68,12 +54,12 @@ public static class ScreeningApi
             json.WriteNumber("count", cells.Count);
             json.WriteNumber("total_area_km2", Math.Round(cells.Sum(c => areas.TryGetValue(c.CellId, out var f) ? f.SquareKilometres : 0), 6));
             json.WriteStartObject("criteria");
-            json.WriteString("period", t.Name);
-            WriteBound(json, "min_power_kw_m", minPower);
-            WriteBound(json, "min_depth_m", minDepth);
-            WriteBound(json, "max_depth_m", maxDepth);
-            WriteBound(json, "max_coast_distance_km", maxCoast);
-            WriteBound(json, "max_hs_p90_m", maxHs);
+            json.WriteString("period", bounds.Period.Name);
+            WriteBound(json, "min_power_kw_m", bounds.MinPowerKwM);
+            WriteBound(json, "min_depth_m", bounds.MinDepthM);
+            WriteBound(json, "max_depth_m", bounds.MaxDepthM);
+            WriteBound(json, "max_coast_distance_km", bounds.MaxCoastDistanceKm);
+            WriteBound(json, "max_hs_p90_m", bounds.MaxHsP90M);
             json.WriteEndObject();
             json.WritePropertyName("provenance");
             JsonSerializer.Serialize(json, source, GeoJsonSerialisation.Options);

@@ -1,4 +1,7 @@
-using Atlas.Api.Infrastructure;
+using Atlas.Api.Catalog;
+using Atlas.Api.Errors;
+using Atlas.Api.Requests;
+using Atlas.Api.Security;
 using Atlas.Assessment.Yield;
 using Atlas.Ingest.Assessment;
 using Atlas.Storage.Cells;
@@ -33,13 +36,11 @@ public static class AssessmentLayerApi
     }
 
     public static async Task<Results<FileContentHttpResult, ProblemHttpResult, ValidationProblem>> YieldAsync(
-        string slug, string device, string format, string? interpolation, DatasetCatalog catalog, CellStore cells, NpgsqlDataSource dataSource,
+        string slug, string device, string format, [AsParameters] YieldLayerQuery query, DatasetCatalog catalog, CellStore cells, NpgsqlDataSource dataSource,
         LayerCacheStore cache, ProvenanceBuilder provenance, CancellationToken cancel)
     {
-        var errors = new Dictionary<string, string[]>();
-        var reading = PowerMatrixInterpolation.Bilinear;
-        if (interpolation is "nearest") reading = PowerMatrixInterpolation.NearestBin;
-        else if (interpolation is not (null or "bilinear")) errors["interpolation"] = [$"'{interpolation}' is not a matrix interpolation: use bilinear or nearest."];
+        var errors = new QueryErrors();
+        var reading = MatrixInterpolationQuery.Read(query.Interpolation, errors);
         if (errors.Count > 0) return TypedResults.ValidationProblem(errors);
         if (!AssessmentLayerWriter.Formats.Contains(format)) return UnknownFormat(format);
         var dataset = await catalog.FindAsync(slug, cancel);
@@ -52,12 +53,12 @@ public static class AssessmentLayerApi
     }
 
     public static async Task<Results<FileContentHttpResult, ProblemHttpResult, ValidationProblem>> AccessibilityAsync(
-        string slug, string format, string? hs_max, string? tp_max, string? hours, DatasetCatalog catalog, CellStore cells, NpgsqlDataSource dataSource,
+        string slug, string format, [AsParameters] AccessibilityLayerQuery query, DatasetCatalog catalog, CellStore cells, NpgsqlDataSource dataSource,
         LayerCacheStore cache, ProvenanceBuilder provenance, CancellationToken cancel)
     {
-        var errors = new Dictionary<string, string[]>();
-        var limits = PointAssessmentApi.ParseLimits(hs_max, tp_max, errors);
-        var duration = PointAssessmentApi.Positive("hours", hours, "the window length in hours", errors, required: false);
+        var errors = new QueryErrors();
+        var limits = query.Limits(errors);
+        var duration = query.Duration("the window length in hours", errors, required: false);
         if (errors.Count > 0 || limits is null) return TypedResults.ValidationProblem(errors, title: "The accessibility layer request has invalid query values");
         if (!AssessmentLayerWriter.Formats.Contains(format)) return UnknownFormat(format);
         var dataset = await catalog.FindAsync(slug, cancel);

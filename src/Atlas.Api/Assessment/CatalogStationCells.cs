@@ -1,4 +1,4 @@
-using Atlas.Api.Infrastructure;
+using Atlas.Api.Catalog;
 using Atlas.Api.Points;
 using Atlas.Ingest.Validation;
 using Atlas.Storage.Cells;

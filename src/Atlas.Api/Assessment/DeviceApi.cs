@@ -1,6 +1,10 @@
-using Atlas.Api.Infrastructure;
-using Atlas.Assessment;
+using Atlas.Api.Data;
+using Atlas.Api.Errors;
+using Atlas.Api.Model;
+using Atlas.Api.Requests;
+using Atlas.Api.Security;
 using Atlas.Assessment.Yield;
+using Atlas.Assessment;
 using Atlas.Ingest.Assessment;
 using Atlas.Storage.Devices;
 using Atlas.Storage.Stations;
@@ -12,12 +16,6 @@ namespace Atlas.Api.Assessment;
 /// <summary><c>/api/v1/devices</c>: wave-energy converters' power matrices, for production estimates.</summary>
 public static class DeviceApi
 {
-    /// <summary>How a matrix is read between its bins, stated in every device and yield response.</summary>
-    public const string InterpolationNote =
-        "bilinear (default): power interpolated between the four surrounding bin centres, the outer centre's value held in the outer " +
-        "half bins; nearest: the value of the bin holding the sea state (a value on a bin edge belongs to the upper bin). Bin edges lie " +
-        "halfway between centres, the outer edges half a bin beyond the outer centres; sea states outside the matrix produce 0 kW and are counted.";
-
     public static IEndpointRouteBuilder MapDeviceApi(this IEndpointRouteBuilder routes)
     {
         var group = routes.MapGroup("/api/v1/devices").WithTags("Devices");
@@ -40,7 +38,7 @@ public static class DeviceApi
     }
 
     public static async Task<Ok<DeviceList>> ListAsync(NpgsqlDataSource dataSource, CancellationToken cancel) =>
-        TypedResults.Ok(new DeviceList([.. (await new DeviceStore(dataSource).ListAsync(cancel)).Select(DeviceItem.From)], InterpolationNote, AtlasCaution.Text));
+        TypedResults.Ok(new DeviceList([.. (await new DeviceStore(dataSource).ListAsync(cancel)).Select(DeviceItem.From)], MatrixInterpolationQuery.Note, AtlasCaution.Text));
 
     public static async Task<Results<Ok<DeviceItem>, ProblemHttpResult>> DescribeAsync(string device, NpgsqlDataSource dataSource, CancellationToken cancel) =>
         await new DeviceStore(dataSource).FindAsync(device, cancel) is { } found ? TypedResults.Ok(DeviceItem.From(found)) : ApiProblems.UnknownDevice(device);

@@ -1,11 +1,13 @@
-using Atlas.Api.Apis;
-using Atlas.Api.Infrastructure;
+using Atlas.Api.Catalog;
+using Atlas.Api.Errors;
 using Atlas.Api.Model;
 using Atlas.Api.Points;
-using Atlas.Assessment;
+using Atlas.Api.Requests;
+using Atlas.Api.Security;
 using Atlas.Assessment.Access;
 using Atlas.Assessment.Extremes;
 using Atlas.Assessment.Yield;
+using Atlas.Assessment;
 using Atlas.Ingest.Assessment;
 using Atlas.Ingest.Series;
 using Atlas.Ingest.Validation;
@@ -66,7 +68,7 @@ public static class PointAssessmentApi
             return (null, ApiProblems.Unprocessable("Too little series in the window",
                 $"Cell {point.Nearest.Cell.CellId} of '{slug}' has {decoded.Times.Length} stored step(s) in the years asked; stored years are " +
                 $"{(timelines.Count == 0 ? "none" : $"{timelines.Keys.First()}..{timelines.Keys.Last()}")}."));
-        return (new PointContext(point, PointApi.CellOf(point), decoded, window), null);
+        return (new PointContext(point, point.Cell, decoded, window), null);
     }
 
     /// <summary>The values on regular steps, or the problem when the dataset's time line has no common step.</summary>
@@ -84,16 +86,14 @@ public static class PointAssessmentApi
     }
 
     public static async Task<Results<Ok<PointYield>, ProblemHttpResult, ValidationProblem>> YieldAsync(
-        string slug, string? lat, string? lon, string? device, string? interpolation, string? from, string? to,
+        string slug, [AsParameters] PointYieldQuery query,
         PointLocator locator, DatasetCatalog catalog, SeriesStore series, NpgsqlDataSource dataSource, ProvenanceBuilder provenance, CancellationToken cancel)
     {
-        var errors = new Dictionary<string, string[]>();
-        var position = PointLocator.ParsePosition(lat, lon, errors);
-        var window = YearWindow.Parse(from, to, null, errors);
-        if (string.IsNullOrWhiteSpace(device)) errors["device"] = ["device is required: a stored device's name or slug (GET /api/v1/devices)."];
-        var reading = PowerMatrixInterpolation.Bilinear;
-        if (interpolation is "nearest") reading = PowerMatrixInterpolation.NearestBin;
-        else if (interpolation is not (null or "bilinear")) errors["interpolation"] = [$"'{interpolation}' is not a matrix interpolation: use bilinear or nearest."];
+        var errors = new QueryErrors();
+        var position = query.Position(errors);
+        var window = query.Years(errors);
+        var device = query.DeviceName(errors);
+        var reading = MatrixInterpolationQuery.Read(query.Interpolation, errors);
         if (errors.Count > 0 || position is null || window is null) return TypedResults.ValidationProblem(errors, title: "The yield request has invalid query values");
 
         if (await new DeviceStore(dataSource).FindAsync(device!, cancel) is not { } stored) return ApiProblems.UnknownDevice(device!);
@@ -133,14 +133,14 @@ public static class PointAssessmentApi
     }
 
     public static async Task<Results<Ok<PointWindows>, ProblemHttpResult, ValidationProblem>> WindowsAsync(
-        string slug, string? lat, string? lon, string? hs_max, string? tp_max, string? hours, string? from, string? to,
+        string slug, [AsParameters] PointWindowsQuery query,
         PointLocator locator, DatasetCatalog catalog, SeriesStore series, ProvenanceBuilder provenance, CancellationToken cancel)
     {
-        var errors = new Dictionary<string, string[]>();
-        var position = PointLocator.ParsePosition(lat, lon, errors);
-        var window = YearWindow.Parse(from, to, null, errors);
-        var limits = ParseLimits(hs_max, tp_max, errors);
-        var duration = Positive("hours", hours, "the duration the operation needs, in hours", errors, required: true);
+        var errors = new QueryErrors();
+        var position = query.Position(errors);
+        var window = query.Years(errors);
+        var limits = query.Limits(errors);
+        var duration = query.Duration("the duration the operation needs, in hours", errors, required: true);
         if (errors.Count > 0 || position is null || window is null || limits is null || duration is null)
             return TypedResults.ValidationProblem(errors, title: "The windows request has invalid query values");
 
@@ -155,39 +155,15 @@ public static class PointAssessmentApi
         return TypedResults.Ok(PointWindows.From(slug, context.Cell, window.FromYear, window.ToYear, result, await provenance.ForAsync(context.Point.Dataset, cancel)));
     }
 
-    /// <summary>Access limits from hs_max (required) and tp_max (optional), or null with errors.</summary>
-    public static AccessLimits? ParseLimits(string? hsMax, string? tpMax, Dictionary<string, string[]> errors)
-    {
-        var hs = Positive("hs_max", hsMax, "the Hs limit in metres", errors, required: true);
-        var tp = Positive("tp_max", tpMax, "the Tp limit in seconds", errors, required: false);
-        return hs is { } h && !errors.ContainsKey("tp_max") ? new AccessLimits(h, tp) : null;
-    }
-
-    public static double? Positive(string name, string? text, string meaning, Dictionary<string, string[]> errors, bool required) =>
-        QueryNumbers.Read(name, text, meaning, errors, required, min: 0, aboveMin: true);
-
     public static async Task<Results<Ok<PointExtremes>, ProblemHttpResult, ValidationProblem>> ExtremesAsync(
-        string slug, string? lat, string? lon, string? method, string? threshold, string? threshold_quantile, string? separation_hours,
-        string? from, string? to, PointLocator locator, DatasetCatalog catalog, SeriesStore series, ProvenanceBuilder provenance, CancellationToken cancel)
+        string slug, [AsParameters] PointExtremesQuery query,
+        PointLocator locator, DatasetCatalog catalog, SeriesStore series, ProvenanceBuilder provenance, CancellationToken cancel)
     {
-        var errors = new Dictionary<string, string[]>();
-        var position = PointLocator.ParsePosition(lat, lon, errors);
-        var window = YearWindow.Parse(from, to, null, errors);
-        if (method is not (null or "annual-maxima" or "peaks-over-threshold"))
-            errors["method"] = [$"'{method}' is not an extremes method: use annual-maxima or peaks-over-threshold (or leave it out for both)."];
-        var pot = new PeaksOverThresholdOptions();
-        if (Positive("threshold", threshold, "the Hs threshold in metres", errors, required: false) is { } u) pot = pot with { Threshold = u };
-        if (Positive("threshold_quantile", threshold_quantile, "the threshold as a quantile of Hs, between 0 and 1", errors, required: false) is { } q)
-        {
-            if (q >= 1) errors["threshold_quantile"] = [$"threshold_quantile {threshold_quantile} must be below 1 (e.g. 0.99)."];
-            else pot = pot with { ThresholdQuantile = q };
-        }
-        if (separation_hours is not null)
-        {
-            if (!QueryNumbers.TryParse(separation_hours, out var s) || s < 0)
-                errors["separation_hours"] = [$"separation_hours '{separation_hours}' must be a number of hours at or above 0."];
-            else pot = pot with { SeparationHours = s };
-        }
+        var errors = new QueryErrors();
+        var position = query.Position(errors);
+        var window = query.Years(errors);
+        var method = query.OneMethod(errors);
+        var pot = query.PeaksOptions(errors);
         if (errors.Count > 0 || position is null || window is null) return TypedResults.ValidationProblem(errors, title: "The extremes request has invalid query values");
 
         var (context, problem) = await ReadAsync(slug, position.Value, window, locator, catalog, series, cancel);
@@ -197,12 +173,12 @@ public static class PointAssessmentApi
 
         AnnualMaximaExtremes? annual = null;
         PeaksOverThresholdExtremes? peaks = null;
-        if (method is null or "annual-maxima")
+        if (method is null or PointExtremesQuery.AnnualMaxima)
         {
             annual = AnnualMaximaOf(hs);
             if (!annual.Available && method is not null) return ApiProblems.Unprocessable("Annual maxima cannot be fitted", annual.Reason!);
         }
-        if (method is null or "peaks-over-threshold")
+        if (method is null or PointExtremesQuery.PeaksOverThreshold)
         {
             peaks = PeaksOf(hs, pot);
             if (!peaks.Available && method is not null) return ApiProblems.Unprocessable("Peaks over threshold cannot be fitted", peaks.Reason!);

@@ -1,6 +1,9 @@
-using Atlas.Api.Infrastructure;
-using Atlas.Assessment;
+using Atlas.Api.Data;
+using Atlas.Api.Errors;
+using Atlas.Api.Model;
+using Atlas.Api.Security;
 using Atlas.Assessment.Validation;
+using Atlas.Assessment;
 using Atlas.Hindcast.Stations;
 using Atlas.Ingest.Assessment;
 using Atlas.Ingest.Validation;

@@ -1,4 +1,5 @@
-using Atlas.Api.Infrastructure;
+using Atlas.Api.Errors;
+using Atlas.Api.Requests;
 using Microsoft.AspNetCore.Http.Features;
 
 namespace Atlas.Api.Assessment;

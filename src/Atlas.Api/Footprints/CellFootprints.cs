@@ -1,4 +1,4 @@
-using Atlas.Api.Infrastructure;
+using Atlas.Api.Catalog;
 using Atlas.Api.Rasters;
 using Atlas.Hindcast.Geodesy;
 using Atlas.Storage.Cells;

@@ -1,4 +1,5 @@
 using System.Security.Cryptography;
+using Atlas.Api.Catalog;
 using Atlas.Api.Downloads;
 using Atlas.Api.Footprints;
 using Atlas.Api.Infrastructure;

@@ -44,4 +44,17 @@ public static class ParameterCatalogue
     /// <summary>The storage column of a statistic.</summary>
     public static Storage.Statistics.StoredStatistic Stored(StatisticKind statistic) =>
         Enum.Parse<Storage.Statistics.StoredStatistic>(statistic.ToString());
+
+    /// <summary>
+    /// The statistics a parameter's layers have: all for summarised parameters; for dir the power-weighted mean, the
+    /// circular spread of directions (as sd), count and coverage; for d the period coefficient (as mean), count and
+    /// coverage; for depth the cell depth (as mean).
+    /// </summary>
+    public static IReadOnlyList<StatisticKind> StatisticsOf(WaveParameter parameter) => parameter switch
+    {
+        WaveParameter.Dir => [StatisticKind.Mean, StatisticKind.Sd, StatisticKind.Count, StatisticKind.Coverage],
+        WaveParameter.D => [StatisticKind.Mean, StatisticKind.Count, StatisticKind.Coverage],
+        WaveParameter.Depth => [StatisticKind.Mean],
+        _ => StatisticKindNames.All,
+    };
 }

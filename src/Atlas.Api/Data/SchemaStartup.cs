@@ -1,6 +1,7 @@
+using Atlas.Api.Operations;
 using Atlas.Storage;
 
-namespace Atlas.Api.Infrastructure;
+namespace Atlas.Api.Data;
 
 /// <summary>
 /// Applies pending schema migrations when the server starts; a failure is logged and /readyz reports it. Taking both

@@ -1,4 +1,4 @@
-namespace Atlas.Api.Infrastructure;
+namespace Atlas.Api.Operations;
 
 /// <summary>The API's log messages.</summary>
 public static partial class ApiLog

@@ -1,4 +1,6 @@
-namespace Atlas.Api.Infrastructure;
+using Atlas.Api.Infrastructure;
+
+namespace Atlas.Api.Security;
 
 /// <summary>Lets a write endpoint run only with a valid <c>X-Api-Key</c> header.</summary>
 public sealed class ApiKeyFilter(ApiKeyVerifier verifier) : IEndpointFilter

@@ -4,7 +4,7 @@ using Atlas.Api.Model;
 using Atlas.Storage.Datasets;
 using Microsoft.Extensions.Caching.Memory;
 
-namespace Atlas.Api.Infrastructure;
+namespace Atlas.Api.Catalog;
 
 /// <summary>Assembles the provenance of a dataset's figures: source files and checksums, software, dates, method.</summary>
 public sealed class ProvenanceBuilder(DatasetStore datasets, DatasetCatalog catalog, IMemoryCache cache)

@@ -1,9 +1,10 @@
 using System.Globalization;
 using System.Threading.RateLimiting;
+using Atlas.Api.Infrastructure;
 using Microsoft.AspNetCore.Mvc;
 using Microsoft.AspNetCore.RateLimiting;
 
-namespace Atlas.Api.Infrastructure;
+namespace Atlas.Api.Security;
 
 /// <summary>The rate-limit policy of the expensive endpoints: a fixed one-minute window per client address.</summary>
 public static class RateLimits

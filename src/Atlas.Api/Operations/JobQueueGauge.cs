@@ -1,7 +1,8 @@
 using System.Diagnostics.Metrics;
+using Atlas.Api.Data;
 using Atlas.Storage.Jobs;
 
-namespace Atlas.Api.Infrastructure;
+namespace Atlas.Api.Operations;
 
 /// <summary>
 /// The gauge <c>atlas.job.queue</c>: jobs in the shared queue by kind and state, read from the database at each

@@ -1,6 +1,7 @@
+using Atlas.Api.Operations;
 using Atlas.Storage.Datasets;
 
-namespace Atlas.Api.Infrastructure;
+namespace Atlas.Api.Catalog;
 
 /// <summary>
 /// Loads each dataset's cell table, nearest-cell index, extent, spacing and time lines into memory once the server

@@ -1,7 +1,9 @@
+using Atlas.Api.Data;
+using Atlas.Api.Operations;
 using Microsoft.AspNetCore.Diagnostics;
 using Microsoft.AspNetCore.Mvc;
 
-namespace Atlas.Api.Infrastructure;
+namespace Atlas.Api.Errors;
 
 /// <summary>
 /// Turns exceptions into problem details: a database outage is 503 with Retry-After, a malformed request that the
