@@ -104,13 +104,13 @@ public static class PointSeriesApi
         await using var json = new Utf8JsonWriter(buffer);
         json.WriteStartObject();
         json.WritePropertyName("cell");
-        JsonSerializer.Serialize(json, cell, GeoJsonSerialisation.Options);
+        JsonSerializer.Serialize(json, cell, GeoJsonWriter.Options);
         json.WriteNumber("from_year", first);
         json.WriteNumber("to_year", last);
         json.WriteString("units", Units);
         json.WriteBoolean("te_from_tp", teFromTp);
         json.WritePropertyName("provenance");
-        JsonSerializer.Serialize(json, source, GeoJsonSerialisation.Options);
+        JsonSerializer.Serialize(json, source, GeoJsonWriter.Options);
         json.WriteString("caution", AtlasCaution.Text);
         json.WriteStartArray("steps");
         for (var i = 0; i < s.Times.Length; i++)

@@ -10,6 +10,7 @@ using Atlas.Api.Vocabulary;
 using Atlas.Statistics;
 using Atlas.Storage.Queries;
 using Microsoft.AspNetCore.Http.HttpResults;
+using NetTopologySuite.Features;
 
 namespace Atlas.Api.Apis;
 
@@ -46,11 +47,8 @@ public static class ScreeningApi
         var areas = await footprints.ForAsync(dataset, cancel);
         var source = await provenance.ForAsync(dataset, cancel);
 
-        using var buffer = new MemoryStream();
-        using (var json = new Utf8JsonWriter(buffer))
+        var content = GeoJsonWriter.FeatureCollection(json =>
         {
-            json.WriteStartObject();
-            json.WriteString("type", "FeatureCollection");
             json.WriteNumber("count", cells.Count);
             json.WriteNumber("total_area_km2", Math.Round(cells.Sum(c => areas.TryGetValue(c.CellId, out var f) ? f.SquareKilometres : 0), 6));
             json.WriteStartObject("criteria");
@@ -61,34 +59,19 @@ public static class ScreeningApi
             WriteBound(json, "max_coast_distance_km", bounds.MaxCoastDistanceKm);
             WriteBound(json, "max_hs_p90_m", bounds.MaxHsP90M);
             json.WriteEndObject();
-            json.WritePropertyName("provenance");
-            JsonSerializer.Serialize(json, source, GeoJsonSerialisation.Options);
+            GeoJsonWriter.WriteMember(json, "provenance", source);
             json.WriteString("caution", AtlasCaution.Text);
-            json.WriteStartArray("features");
-            foreach (var c in cells)
-            {
-                json.WriteStartObject();
-                json.WriteString("type", "Feature");
-                json.WriteNumber("id", c.CellId);
-                json.WriteStartObject("geometry");
-                json.WriteString("type", "Point");
-                json.WritePropertyName("coordinates");
-                LayerGeoJsonWriter.WritePosition(json, c.Longitude, c.Latitude);
-                json.WriteEndObject();
-                json.WriteStartObject("properties");
-                json.WriteNumber("cell_id", c.CellId);
-                json.WriteNumber("mean_power_kw_m", Math.Round(c.MeanPowerKilowattsPerMetre, 4));
-                WriteBound(json, "hs_p90_m", c.HsP90Metres is { } h ? Math.Round(h, 4) : null);
-                WriteBound(json, "depth_m", c.DepthMetres is { } d ? Math.Round(d, 2) : null);
-                WriteBound(json, "coast_distance_km", c.CoastDistanceMetres is { } k ? Math.Round(k / 1000, 4) : null);
-                WriteBound(json, "area_km2", areas.TryGetValue(c.CellId, out var fp) ? Math.Round(fp.SquareKilometres, 6) : null);
-                json.WriteEndObject();
-                json.WriteEndObject();
-            }
-            json.WriteEndArray();
-            json.WriteEndObject();
-        }
-        return TypedResults.File(buffer.ToArray(), "application/geo+json");
+        }, cells.Select(c => new Feature(GeoJsonWriter.Point(c.Longitude, c.Latitude), new AttributesTable
+        {
+            { GeoJsonWriter.IdAttribute, c.CellId },
+            { "cell_id", c.CellId },
+            { "mean_power_kw_m", Math.Round(c.MeanPowerKilowattsPerMetre, 4) },
+            { "hs_p90_m", c.HsP90Metres is { } h ? Math.Round(h, 4) : null },
+            { "depth_m", c.DepthMetres is { } d ? Math.Round(d, 2) : null },
+            { "coast_distance_km", c.CoastDistanceMetres is { } k ? Math.Round(k / 1000, 4) : null },
+            { "area_km2", areas.TryGetValue(c.CellId, out var fp) ? Math.Round(fp.SquareKilometres, 6) : null },
+        })));
+        return TypedResults.File(content, "application/geo+json");
     }
 
     private static void WriteBound(Utf8JsonWriter json, string name, double? value)
