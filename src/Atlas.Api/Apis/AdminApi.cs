@@ -21,11 +21,14 @@ public static class AdminApi
             .WithSummary("Queue a statistics job for a dataset (needs X-Api-Key)")
             .WithDescription("A worker (atlas serve or any worker sharing the database) claims the job and recomputes the statistics " +
                              "of every cell whose series changed. Poll the returned status link for progress.")
-            .AddEndpointFilter<ApiKeyFilter>();
-        group.MapGet("/jobs/{jobId:long}", JobStatusAsync).WithName("JobStatus").WithSummary("The state of a queued job");
+            .ProducesProblems(StatusCodes.Status404NotFound)
+            .RequireApiKey();
+        group.MapGet("/jobs/{jobId:long}", JobStatusAsync).WithName("JobStatus").WithSummary("The state of a queued job")
+            .ProducesProblems(StatusCodes.Status404NotFound);
         group.MapDelete("/", DeleteAsync).WithName("DeleteDataset")
             .WithSummary("Delete a dataset and everything stored for it (needs X-Api-Key)")
-            .AddEndpointFilter<ApiKeyFilter>();
+            .ProducesProblems(StatusCodes.Status404NotFound)
+            .RequireApiKey();
         return routes;
     }
 

@@ -36,7 +36,8 @@ public static class AreaApi
                 "Rejected with a problem saying what to fix: invalid or self-intersecting rings (422), areas above the size limit (422), " +
                 "too many vertices or too large a body (413), areas holding no wet cell (422).")
             .Accepts<object>("application/geo+json", "application/json")
-            .RequireRateLimiting(RateLimits.Expensive);
+            .ProducesProblems(StatusCodes.Status404NotFound, StatusCodes.Status413PayloadTooLarge, StatusCodes.Status422UnprocessableEntity)
+            .RequireExpensiveLimit();
         return routes;
     }
 

@@ -1,3 +1,4 @@
+using Atlas.Api.Errors;
 using Atlas.Api.Model;
 using Atlas.Storage;
 using Microsoft.AspNetCore.Http.HttpResults;
@@ -13,7 +14,8 @@ public static class HealthApi
         routes.MapGet("/healthz", () => TypedResults.Ok(new Liveness("ok"))).WithTags("Health").WithName("Liveness")
             .WithSummary("The process is up (it does not touch the database)");
         routes.MapGet("/readyz", ReadinessAsync).WithTags("Health").WithName("Readiness")
-            .WithSummary("The database answers and every schema migration is applied");
+            .WithSummary("The database answers and every schema migration is applied")
+            .ProducesProblems(StatusCodes.Status503ServiceUnavailable);
         return routes;
     }
 

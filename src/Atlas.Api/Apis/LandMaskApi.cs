@@ -29,7 +29,8 @@ public static class LandMaskApi
                 "grid each dry cell is the rectangle halfway to its neighbouring grid lines (as the wet cells' footprints are); elsewhere " +
                 "it is its Voronoi region among all cells, clipped to one typical spacing. dry_cell_count says how many cells it holds; " +
                 "a dataset with no dry cell (a mesh of wet nodes only) gives an empty collection.")
-            .Produces(200, contentType: "application/geo+json");
+            .ProducesFile("application/geo+json")
+            .ProducesProblems(StatusCodes.Status404NotFound);
         return routes;
     }
 

@@ -1,3 +1,4 @@
+using Atlas.Api.Downloads;
 using Atlas.Api.Catalog;
 using Atlas.Api.Errors;
 using Atlas.Api.Infrastructure;
@@ -21,7 +22,8 @@ public static class LayerApi
     {
         var group = routes.MapGroup("/api/v1/datasets/{slug}/layers").WithTags("Layers");
         group.MapGet("/", ListAsync).WithName("ListLayers")
-            .WithSummary("The parameter x statistic x period combinations a dataset has, with units and percentile bin widths");
+            .WithSummary("The parameter x statistic x period combinations a dataset has, with units and percentile bin widths")
+            .ProducesProblems(StatusCodes.Status404NotFound);
         group.MapGet("/{parameter}/{statistic}/{period}.{format}", DownloadAsync).WithName("DownloadLayer")
             .WithSummary("One layer as GeoTIFF, CSV, GeoJSON, NetCDF or a PNG figure")
             .WithDescription(
@@ -31,8 +33,10 @@ public static class LayerApi
                 "geojson (points, or cell footprints with ?geometry=polygon; provenance as a top-level member), nc (CF-1.8 NetCDF-4), " +
                 "png (a captioned map figure). Mesh and curvilinear datasets are drawn on a raster by linear interpolation in triangles. " +
                 "Responses carry an ETag and Cache-Control; send If-None-Match to revalidate. GeoTIFF downloads answer Range requests.")
-            .Produces(200, contentType: "image/tiff")
-            .RequireRateLimiting(RateLimits.Expensive);
+            .ProducesFile(LayerFormat.Tif.ContentType(), [.. Enum.GetValues<LayerFormat>().Skip(1).Select(f => f.ContentType())])
+            .Produces(StatusCodes.Status304NotModified)
+            .ProducesProblems(StatusCodes.Status404NotFound, StatusCodes.Status422UnprocessableEntity)
+            .RequireExpensiveLimit();
         return routes;
     }
 

@@ -26,8 +26,9 @@ public static class PointSeriesApi
                 "lat, lon: degrees. from, to: calendar years, inclusive (default: the whole record when it is within the per-request " +
                 "limit of AtlasApiOptions:SeriesMaxYearsPerRequest years). format: csv (default; '#' header lines with provenance, units " +
                 "and the caution) or json. Missing steps are empty (csv) or null (json). j is computed per step at the cell depth.")
-            .Produces(200, contentType: "text/csv")
-            .RequireRateLimiting(RateLimits.Expensive);
+            .ProducesFile("text/csv", "application/json")
+            .ProducesProblems(StatusCodes.Status404NotFound, StatusCodes.Status422UnprocessableEntity)
+            .RequireExpensiveLimit();
 
     public static async Task<Results<PushStreamHttpResult, ProblemHttpResult, ValidationProblem>> SeriesAsync(
         string slug, [AsParameters] PointSeriesQuery query,

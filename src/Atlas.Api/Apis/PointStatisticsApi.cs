@@ -36,7 +36,9 @@ public static class PointStatisticsApi
                 "distance_m) is the nearest wet cell, refused (422) beyond the distance limit or outside the extent. " +
                 "format=csv gives the period table after '#' lines of provenance, units and the caution.")
             .Produces<PointStatistics>(StatusCodes.Status200OK, "application/json", "text/csv")
-            .RequireRateLimiting(RateLimits.Expensive);
+            .Produces(StatusCodes.Status304NotModified)
+            .ProducesProblems(StatusCodes.Status404NotFound, StatusCodes.Status422UnprocessableEntity)
+            .RequireExpensiveLimit();
 
     public static async Task<Results<FileContentHttpResult, StatusCodeHttpResult, ProblemHttpResult, ValidationProblem>> PointAsync(
         string slug, [AsParameters] PointStatisticsQuery query,

@@ -27,8 +27,9 @@ public static class ScreeningApi
                 "(distance to the nearest dry cell of the dataset), max_hs_p90_m (90th percentile of Hs). period defaults to annual. " +
                 "The answer is a GeoJSON FeatureCollection of cell centres with count, total_area_km2 (footprints on the spheroid), " +
                 "the criteria, the provenance and the caution as top-level members.")
-            .Produces(200, contentType: "application/geo+json")
-            .RequireRateLimiting(RateLimits.Expensive);
+            .ProducesFile("application/geo+json")
+            .ProducesProblems(StatusCodes.Status404NotFound)
+            .RequireExpensiveLimit();
         return routes;
     }
 

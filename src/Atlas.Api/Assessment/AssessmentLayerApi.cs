@@ -1,3 +1,4 @@
+using Atlas.Api.Downloads;
 using Atlas.Api.Catalog;
 using Atlas.Api.Errors;
 using Atlas.Api.Requests;
@@ -26,12 +27,14 @@ public static class AssessmentLayerApi
             .WithDescription("device: a stored device's slug. format: json, csv, geojson or tif (the annual energy on the grid). interpolation: " +
                              "bilinear (default) or nearest. Computed from every cell's exact series on first request (this takes a while for a " +
                              "large dataset), then served from the layer cache until the dataset's statistics are recomputed.")
-            .RequireRateLimiting(RateLimits.Expensive);
+            .ProducesLayerFiles()
+            .RequireExpensiveLimit();
         group.MapGet("/accessibility.{format}", AccessibilityAsync).WithName("AccessibilityLayer")
             .WithSummary("Share of time within access limits at every wet cell, or the probability of a window of a given length")
             .WithDescription("hs_max: the Hs limit, m. tp_max (optional): the Tp limit, s. hours (optional): a required window length; the value is " +
                              "then the probability that such a window starts at a random time. format: json, csv, geojson or tif. Cached like the yield layer.")
-            .RequireRateLimiting(RateLimits.Expensive);
+            .ProducesLayerFiles()
+            .RequireExpensiveLimit();
         return routes;
     }
 
@@ -86,6 +89,11 @@ public static class AssessmentLayerApi
             return ApiProblems.Unprocessable("No GeoTIFF for this grid", e.Message);
         }
     }
+
+    /// <summary>Declares the layer files (JSON, CSV, GeoJSON, GeoTIFF) and the 404 and 422 problems of an assessment layer.</summary>
+    private static RouteHandlerBuilder ProducesLayerFiles(this RouteHandlerBuilder endpoint) =>
+        endpoint.ProducesFile(AssessmentLayerWriter.ContentType("json"), [.. AssessmentLayerWriter.Formats.Skip(1).Select(AssessmentLayerWriter.ContentType)])
+            .ProducesProblems(StatusCodes.Status404NotFound, StatusCodes.Status422UnprocessableEntity);
 
     private static ProblemHttpResult UnknownFormat(string format) =>
         ApiProblems.NotFound("Unknown format", $"'.{format}' is not an assessment layer format: use {string.Join(", ", AssessmentLayerWriter.Formats.Select(f => "." + f))}.");

@@ -20,7 +20,8 @@ public static class DeviceApi
     {
         var group = routes.MapGroup("/api/v1/devices").WithTags("Devices");
         group.MapGet("/", ListAsync).WithName("ListDevices").WithSummary("The stored device power matrices");
-        group.MapGet("/{device}", DescribeAsync).WithName("DescribeDevice").WithSummary("One device, by name or slug");
+        group.MapGet("/{device}", DescribeAsync).WithName("DescribeDevice").WithSummary("One device, by name or slug")
+            .ProducesProblems(StatusCodes.Status404NotFound);
         group.MapPost("/", AddAsync).WithName("AddDevice")
             .WithSummary("Store a device power matrix (needs X-Api-Key)")
             .WithDescription(
@@ -30,10 +31,15 @@ public static class DeviceApi
                 "power in kW. Bins must strictly increase, power be finite and at or above 0 and not 0 everywhere; every problem is reported " +
                 "with its line and column and nothing is stored.")
             .Accepts<IFormFile>("multipart/form-data", "text/csv")
-            .AddEndpointFilter<ApiKeyFilter>();
+            .Produces<DeviceRegistered>(StatusCodes.Status200OK)
+            .Produces<DeviceRegistered>(StatusCodes.Status201Created)
+            .ProducesValidationProblem()
+            .ProducesProblems(StatusCodes.Status409Conflict, StatusCodes.Status413PayloadTooLarge)
+            .RequireApiKey();
         group.MapDelete("/{device}", DeleteAsync).WithName("DeleteDevice")
             .WithSummary("Remove a device (needs X-Api-Key)")
-            .AddEndpointFilter<ApiKeyFilter>();
+            .ProducesProblems(StatusCodes.Status404NotFound)
+            .RequireApiKey();
         return routes;
     }
 

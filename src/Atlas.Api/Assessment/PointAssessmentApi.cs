@@ -35,14 +35,16 @@ public static class PointAssessmentApi
                 "lat, lon: degrees. device: a stored device's name or slug. interpolation: bilinear (default) or nearest. from, to: calendar years " +
                 "(inclusive). Mean annual energy (MWh/yr), capacity factor, production per calendar month and per year with the inter-annual " +
                 "coefficient of variation, and the share of time the sea state lies outside the matrix (counted at 0 kW).")
-            .RequireRateLimiting(RateLimits.Expensive);
+            .ProducesProblems(StatusCodes.Status404NotFound, StatusCodes.Status422UnprocessableEntity)
+            .RequireExpensiveLimit();
         group.MapGet("/windows", WindowsAsync).WithName("PointWindows")
             .WithSummary("Weather windows for access limits at the wet cell nearest a position")
             .WithDescription(
                 "lat, lon: degrees. hs_max: the Hs limit, m. tp_max (optional): the Tp limit, s. hours: the duration an operation needs. from, to: " +
                 "calendar years. Per calendar month: the probability that a window starts at a random time, the mean number of windows, the mean " +
                 "waiting time for the next window start; calm and storm spell persistence; the share of time within limits.")
-            .RequireRateLimiting(RateLimits.Expensive);
+            .ProducesProblems(StatusCodes.Status404NotFound, StatusCodes.Status422UnprocessableEntity)
+            .RequireExpensiveLimit();
         group.MapGet("/extremes", ExtremesAsync).WithName("PointExtremes")
             .WithSummary("Extreme Hs return levels at the wet cell nearest a position")
             .WithDescription(
@@ -50,7 +52,8 @@ public static class PointAssessmentApi
                 "storm peaks), or both when left out. threshold (m) or threshold_quantile (default 0.99) and separation_hours (default 48) for " +
                 "peaks over threshold. Return levels for 1, 5, 10, 50 and 100 years with 95 % profile-likelihood intervals, the fit against the " +
                 "data (probability-plot points) and cautions, strongest first in strong_caution when the record is short for the return period.")
-            .RequireRateLimiting(RateLimits.Expensive);
+            .ProducesProblems(StatusCodes.Status404NotFound, StatusCodes.Status422UnprocessableEntity)
+            .RequireExpensiveLimit();
         return routes;
     }
 

@@ -20,7 +20,8 @@ public static class StationApi
     {
         var group = routes.MapGroup("/api/v1/stations").WithTags("Stations");
         group.MapGet("/", ListAsync).WithName("ListStations").WithSummary("The registered measuring stations");
-        group.MapGet("/{station}", DescribeAsync).WithName("DescribeStation").WithSummary("One station, by name or slug");
+        group.MapGet("/{station}", DescribeAsync).WithName("DescribeStation").WithSummary("One station, by name or slug")
+            .ProducesProblems(StatusCodes.Status404NotFound);
         group.MapPost("/", AddAsync).WithName("AddStation")
             .WithSummary("Register a station with its record (needs X-Api-Key)")
             .WithDescription(
@@ -32,10 +33,15 @@ public static class StationApi
                 "Every bad row is reported with its line number (or variable and index) and nothing is stored. Loading the same file under the same name " +
                 "again changes nothing (200); a new station answers 201.")
             .Accepts<IFormFile>("multipart/form-data", "text/csv", "application/x-netcdf")
-            .AddEndpointFilter<ApiKeyFilter>();
+            .Produces<StationRegistered>(StatusCodes.Status200OK)
+            .Produces<StationRegistered>(StatusCodes.Status201Created)
+            .ProducesValidationProblem()
+            .ProducesProblems(StatusCodes.Status409Conflict, StatusCodes.Status413PayloadTooLarge)
+            .RequireApiKey();
         group.MapDelete("/{station}", DeleteAsync).WithName("DeleteStation")
             .WithSummary("Remove a station and its record (needs X-Api-Key)")
-            .AddEndpointFilter<ApiKeyFilter>();
+            .ProducesProblems(StatusCodes.Status404NotFound)
+            .RequireApiKey();
         return routes;
     }
 

@@ -34,17 +34,22 @@ public static class ValidationApi
                 "Each observation is paired with the nearest wet cell, linearly interpolated in time between the bracketing model steps within " +
                 "the tolerance (the larger of 1.5 h and the model step). role calibration/validation and independent say whether a station was " +
                 "used to tune the hindcast or kept aside. Stations outside the dataset are listed under not_covered.")
-            .RequireRateLimiting(RateLimits.Expensive);
+            .Produces<ValidationTable>(StatusCodes.Status200OK, "application/json", "text/csv")
+            .ProducesProblems(StatusCodes.Status404NotFound)
+            .RequireExpensiveLimit();
         dataset.MapGet("/{station}/pairs", PairsAsync).WithName("ValidationPairs")
             .WithSummary("Plot data at one station: matched pairs (scatter and time series), the 1:1 line, quantile pairs and the model series")
             .WithDescription("variable: hs (default), tp, te or dir. format: json (default) or csv (the pairs only, after '#' provenance lines). " +
                              "Quantiles are matched at probabilities 0.01..0.99 (Hyndman-Fan type 7, observed and modelled sorted separately).")
-            .RequireRateLimiting(RateLimits.Expensive);
+            .Produces<ValidationPlotData>(StatusCodes.Status200OK, "application/json", "text/csv")
+            .ProducesProblems(StatusCodes.Status404NotFound, StatusCodes.Status422UnprocessableEntity)
+            .RequireExpensiveLimit();
         routes.MapGet("/api/v1/validation/compare", CompareAsync).WithTags("Validation").WithName("ValidationComparison")
             .WithSummary("Several hindcast runs compared station by station, ranked by scatter index with bias shown")
             .WithDescription("datasets: two or more dataset slugs, comma separated. variable: hs (default), tp or te. Per station the runs are ranked " +
                              "by scatter index (1 = smallest); the ranking over all stations uses the mean scatter index of the stations each run covers.")
-            .RequireRateLimiting(RateLimits.Expensive);
+            .ProducesProblems(StatusCodes.Status404NotFound)
+            .RequireExpensiveLimit();
         return routes;
     }
 

@@ -26,3 +26,12 @@ public sealed class ApiKeyFilter(ApiKeyVerifier verifier) : IEndpointFilter
         return await next(context);
     }
 }
+
+public static class ApiKeyEndpoints
+{
+    /// <summary>Lets the endpoint run only with a valid API key, and documents the 401 and 403 problem answers.</summary>
+    public static RouteHandlerBuilder RequireApiKey(this RouteHandlerBuilder endpoint) =>
+        endpoint.AddEndpointFilter<ApiKeyFilter>()
+            .ProducesProblem(StatusCodes.Status401Unauthorized)
+            .ProducesProblem(StatusCodes.Status403Forbidden);
+}

@@ -11,6 +11,10 @@ public static class RateLimits
 {
     public const string Expensive = "expensive";
 
+    /// <summary>Puts an endpoint under the expensive-request limit and documents its 429 problem answer.</summary>
+    public static RouteHandlerBuilder RequireExpensiveLimit(this RouteHandlerBuilder endpoint) =>
+        endpoint.RequireRateLimiting(Expensive).ProducesProblem(StatusCodes.Status429TooManyRequests);
+
     public static void Configure(RateLimiterOptions limiter, AtlasApiOptions options)
     {
         limiter.RejectionStatusCode = StatusCodes.Status429TooManyRequests;
