@@ -1,12 +1,7 @@
-using Atlas.Api.Catalog;
 using Atlas.Api.Data;
-using Atlas.Api.Errors;
-using Atlas.Api.Model;
 using Atlas.Api.Operations;
-using Atlas.Api.Security;
 using Atlas.Storage.Datasets;
 using Atlas.Storage.Jobs;
-using Microsoft.AspNetCore.Http.HttpResults;
 using Npgsql;
 
 namespace Atlas.Api.Apis;

@@ -1,16 +1,10 @@
 using Atlas.Api.Areas;
-using Atlas.Api.Catalog;
-using Atlas.Api.Errors;
 using Atlas.Api.Footprints;
 using Atlas.Api.Infrastructure;
-using Atlas.Api.Model;
-using Atlas.Api.Requests;
-using Atlas.Api.Security;
 using Atlas.Api.Vocabulary;
 using Atlas.Statistics;
 using Atlas.Storage.Queries;
 using Atlas.Storage.Statistics;
-using Microsoft.AspNetCore.Http.HttpResults;
 using Microsoft.Extensions.Options;
 using NetTopologySuite.Geometries.Prepared;
 using NetTopologySuite.Geometries;

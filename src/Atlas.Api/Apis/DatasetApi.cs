@@ -1,10 +1,6 @@
 using System.Text.Json;
-using Atlas.Api.Catalog;
-using Atlas.Api.Errors;
-using Atlas.Api.Model;
 using Atlas.Api.Vocabulary;
 using Atlas.Storage.Datasets;
-using Microsoft.AspNetCore.Http.HttpResults;
 
 namespace Atlas.Api.Apis;
 

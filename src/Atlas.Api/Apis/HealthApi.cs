@@ -1,7 +1,4 @@
-using Atlas.Api.Errors;
-using Atlas.Api.Model;
 using Atlas.Storage;
-using Microsoft.AspNetCore.Http.HttpResults;
 using Npgsql;
 
 namespace Atlas.Api.Apis;

@@ -1,10 +1,7 @@
-using Atlas.Api.Catalog;
 using Atlas.Api.Downloads;
-using Atlas.Api.Errors;
 using Atlas.Api.Footprints;
 using Atlas.Api.Rasters;
 using Atlas.Storage.Cells;
-using Microsoft.AspNetCore.Http.HttpResults;
 using Microsoft.Extensions.Caching.Memory;
 using NetTopologySuite.Features;
 using NetTopologySuite.Geometries;

@@ -1,15 +1,9 @@
 using Atlas.Api.Downloads;
-using Atlas.Api.Catalog;
-using Atlas.Api.Errors;
 using Atlas.Api.Infrastructure;
 using Atlas.Api.Layers;
-using Atlas.Api.Model;
-using Atlas.Api.Requests;
-using Atlas.Api.Security;
 using Atlas.Api.Vocabulary;
 using Atlas.Statistics;
 using Atlas.Storage.Queries;
-using Microsoft.AspNetCore.Http.HttpResults;
 using Microsoft.Extensions.Options;
 using Microsoft.Net.Http.Headers;
 

@@ -1,17 +1,11 @@
 using System.Globalization;
 using System.Text.Json;
 using System.Text;
-using Atlas.Api.Catalog;
 using Atlas.Api.Downloads;
-using Atlas.Api.Errors;
 using Atlas.Api.Infrastructure;
-using Atlas.Api.Model;
 using Atlas.Api.Points;
-using Atlas.Api.Requests;
-using Atlas.Api.Security;
 using Atlas.Ingest.Series;
 using Atlas.Storage.Series;
-using Microsoft.AspNetCore.Http.HttpResults;
 using Microsoft.Extensions.Options;
 
 namespace Atlas.Api.Apis;
@@ -31,13 +25,13 @@ public static class PointSeriesApi
             .RequireExpensiveLimit();
 
     public static async Task<Results<PushStreamHttpResult, ProblemHttpResult, ValidationProblem>> SeriesAsync(
-        string slug, [AsParameters] PointSeriesQuery query,
+        string slug, [AsParameters] PointPosition at, [AsParameters] PointSeriesQuery query,
         PointLocator locator, DatasetCatalog catalog, SeriesStore series, ProvenanceBuilder provenance,
         IOptions<AtlasApiOptions> options, CancellationToken cancel)
     {
         var errors = new QueryErrors();
-        var position = query.Position(errors);
-        var window = query.Years(errors);
+        var position = at.Position(errors);
+        var window = at.Window(errors);
         var csv = query.Csv(errors);
         if (errors.Count > 0 || position is null || window is null)
             return TypedResults.ValidationProblem(errors, title: "The series request has invalid query values");

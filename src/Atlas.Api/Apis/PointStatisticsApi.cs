@@ -1,16 +1,10 @@
 using System.Globalization;
 using System.Text.Json;
 using System.Text;
-using Atlas.Api.Catalog;
-using Atlas.Api.Errors;
-using Atlas.Api.Model;
 using Atlas.Api.Points;
-using Atlas.Api.Requests;
-using Atlas.Api.Security;
 using Atlas.Ingest.Series;
 using Atlas.Statistics;
 using Atlas.Storage.Series;
-using Microsoft.AspNetCore.Http.HttpResults;
 using Microsoft.AspNetCore.Http.Json;
 using Microsoft.Extensions.Options;
 
@@ -41,13 +35,13 @@ public static class PointStatisticsApi
             .RequireExpensiveLimit();
 
     public static async Task<Results<FileContentHttpResult, StatusCodeHttpResult, ProblemHttpResult, ValidationProblem>> PointAsync(
-        string slug, [AsParameters] PointStatisticsQuery query,
+        string slug, [AsParameters] PointPosition at, [AsParameters] PointStatisticsQuery query,
         PointLocator locator, DatasetCatalog catalog, SeriesStore series, ProvenanceBuilder provenance, PointResponseCache responses,
         PointCalendars calendars, IOptions<JsonOptions> json, HttpContext http, CancellationToken cancel)
     {
         var errors = new QueryErrors();
-        var position = query.Position(errors);
-        var window = query.Window(errors);
+        var position = at.Position(errors);
+        var window = at.Window(errors, query.Months);
         var onlyPeriod = query.OnePeriod(errors);
         var parts = query.IncludedParts(errors);
         var csv = query.Csv(errors);

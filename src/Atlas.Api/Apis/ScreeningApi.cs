@@ -1,15 +1,9 @@
 using System.Text.Json;
-using Atlas.Api.Catalog;
 using Atlas.Api.Downloads;
-using Atlas.Api.Errors;
 using Atlas.Api.Footprints;
-using Atlas.Api.Model;
-using Atlas.Api.Requests;
-using Atlas.Api.Security;
 using Atlas.Api.Vocabulary;
 using Atlas.Statistics;
 using Atlas.Storage.Queries;
-using Microsoft.AspNetCore.Http.HttpResults;
 using NetTopologySuite.Features;
 
 namespace Atlas.Api.Apis;

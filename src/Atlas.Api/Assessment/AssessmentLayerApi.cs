@@ -1,14 +1,9 @@
 using Atlas.Api.Downloads;
-using Atlas.Api.Catalog;
-using Atlas.Api.Errors;
-using Atlas.Api.Requests;
-using Atlas.Api.Security;
 using Atlas.Assessment.Yield;
 using Atlas.Ingest.Assessment;
 using Atlas.Storage.Cells;
 using Atlas.Storage.Devices;
 using Atlas.Storage.Queries;
-using Microsoft.AspNetCore.Http.HttpResults;
 using Npgsql;
 
 namespace Atlas.Api.Assessment;
@@ -56,7 +51,7 @@ public static class AssessmentLayerApi
     }
 
     public static async Task<Results<FileContentHttpResult, ProblemHttpResult, ValidationProblem>> AccessibilityAsync(
-        string slug, string format, [AsParameters] AccessibilityLayerQuery query, DatasetCatalog catalog, CellStore cells, NpgsqlDataSource dataSource,
+        string slug, string format, [AsParameters] AccessLimitsQuery query, DatasetCatalog catalog, CellStore cells, NpgsqlDataSource dataSource,
         LayerCacheStore cache, ProvenanceBuilder provenance, CancellationToken cancel)
     {
         var errors = new QueryErrors();

@@ -2,7 +2,6 @@ using System.Globalization;
 using System.Text.Json;
 using System.Text;
 using Atlas.Api.Downloads;
-using Atlas.Api.Model;
 using Atlas.Api.Rasters;
 using Atlas.Ingest.Assessment;
 using Atlas.Ingest.Validation;

@@ -1,14 +1,9 @@
 using Atlas.Api.Data;
-using Atlas.Api.Errors;
-using Atlas.Api.Model;
-using Atlas.Api.Requests;
-using Atlas.Api.Security;
 using Atlas.Assessment.Yield;
 using Atlas.Assessment;
 using Atlas.Ingest.Assessment;
 using Atlas.Storage.Devices;
 using Atlas.Storage.Stations;
-using Microsoft.AspNetCore.Http.HttpResults;
 using Npgsql;
 
 namespace Atlas.Api.Assessment;

@@ -1,9 +1,4 @@
-using Atlas.Api.Catalog;
-using Atlas.Api.Errors;
-using Atlas.Api.Model;
 using Atlas.Api.Points;
-using Atlas.Api.Requests;
-using Atlas.Api.Security;
 using Atlas.Assessment.Access;
 using Atlas.Assessment.Extremes;
 using Atlas.Assessment.Yield;
@@ -15,7 +10,6 @@ using Atlas.Statistics;
 using Atlas.Storage.Devices;
 using Atlas.Storage.Series;
 using Atlas.WavePhysics;
-using Microsoft.AspNetCore.Http.HttpResults;
 using Npgsql;
 
 namespace Atlas.Api.Assessment;
@@ -89,12 +83,12 @@ public static class PointAssessmentApi
     }
 
     public static async Task<Results<Ok<PointYield>, ProblemHttpResult, ValidationProblem>> YieldAsync(
-        string slug, [AsParameters] PointYieldQuery query,
+        string slug, [AsParameters] PointPosition at, [AsParameters] PointYieldQuery query,
         PointLocator locator, DatasetCatalog catalog, SeriesStore series, NpgsqlDataSource dataSource, ProvenanceBuilder provenance, CancellationToken cancel)
     {
         var errors = new QueryErrors();
-        var position = query.Position(errors);
-        var window = query.Years(errors);
+        var position = at.Position(errors);
+        var window = at.Window(errors);
         var device = query.DeviceName(errors);
         var reading = MatrixInterpolationQuery.Read(query.Interpolation, errors);
         if (errors.Count > 0 || position is null || window is null) return TypedResults.ValidationProblem(errors, title: "The yield request has invalid query values");
@@ -136,12 +130,12 @@ public static class PointAssessmentApi
     }
 
     public static async Task<Results<Ok<PointWindows>, ProblemHttpResult, ValidationProblem>> WindowsAsync(
-        string slug, [AsParameters] PointWindowsQuery query,
+        string slug, [AsParameters] PointPosition at, [AsParameters] AccessLimitsQuery query,
         PointLocator locator, DatasetCatalog catalog, SeriesStore series, ProvenanceBuilder provenance, CancellationToken cancel)
     {
         var errors = new QueryErrors();
-        var position = query.Position(errors);
-        var window = query.Years(errors);
+        var position = at.Position(errors);
+        var window = at.Window(errors);
         var limits = query.Limits(errors);
         var duration = query.Duration("the duration the operation needs, in hours", errors, required: true);
         if (errors.Count > 0 || position is null || window is null || limits is null || duration is null)
@@ -159,12 +153,12 @@ public static class PointAssessmentApi
     }
 
     public static async Task<Results<Ok<PointExtremes>, ProblemHttpResult, ValidationProblem>> ExtremesAsync(
-        string slug, [AsParameters] PointExtremesQuery query,
+        string slug, [AsParameters] PointPosition at, [AsParameters] PointExtremesQuery query,
         PointLocator locator, DatasetCatalog catalog, SeriesStore series, ProvenanceBuilder provenance, CancellationToken cancel)
     {
         var errors = new QueryErrors();
-        var position = query.Position(errors);
-        var window = query.Years(errors);
+        var position = at.Position(errors);
+        var window = at.Window(errors);
         var method = query.OneMethod(errors);
         var pot = query.PeaksOptions(errors);
         if (errors.Count > 0 || position is null || window is null) return TypedResults.ValidationProblem(errors, title: "The extremes request has invalid query values");

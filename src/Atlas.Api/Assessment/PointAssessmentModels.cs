@@ -1,5 +1,3 @@
-using Atlas.Api.Model;
-using Atlas.Api.Requests;
 using Atlas.Assessment.Access;
 using Atlas.Assessment.Extremes;
 using Atlas.Assessment.Yield;

@@ -1,14 +1,10 @@
 using Atlas.Api.Data;
-using Atlas.Api.Errors;
-using Atlas.Api.Model;
-using Atlas.Api.Security;
 using Atlas.Assessment.Validation;
 using Atlas.Assessment;
 using Atlas.Hindcast.Stations;
 using Atlas.Ingest.Assessment;
 using Atlas.Ingest.Validation;
 using Atlas.Storage.Stations;
-using Microsoft.AspNetCore.Http.HttpResults;
 using Npgsql;
 
 namespace Atlas.Api.Assessment;

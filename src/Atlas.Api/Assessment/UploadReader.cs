@@ -1,5 +1,3 @@
-using Atlas.Api.Errors;
-using Atlas.Api.Requests;
 using Microsoft.AspNetCore.Http.Features;
 
 namespace Atlas.Api.Assessment;

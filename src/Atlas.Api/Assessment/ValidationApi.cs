@@ -1,17 +1,11 @@
 using System.Globalization;
 using System.Text;
-using Atlas.Api.Catalog;
-using Atlas.Api.Errors;
-using Atlas.Api.Model;
 using Atlas.Api.Points;
-using Atlas.Api.Requests;
-using Atlas.Api.Security;
 using Atlas.Assessment.Validation;
 using Atlas.Ingest.Validation;
 using Atlas.Storage.Datasets;
 using Atlas.Storage.Series;
 using Atlas.Storage.Stations;
-using Microsoft.AspNetCore.Http.HttpResults;
 using Npgsql;
 
 namespace Atlas.Api.Assessment;

@@ -1,6 +1,5 @@
 using System.Reflection;
 using System.Text.Json;
-using Atlas.Api.Model;
 using Atlas.Storage.Datasets;
 using Microsoft.Extensions.Caching.Memory;
 

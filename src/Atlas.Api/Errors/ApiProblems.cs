@@ -1,5 +1,3 @@
-using Microsoft.AspNetCore.Http.HttpResults;
-
 namespace Atlas.Api.Errors;
 
 /// <summary>The problem responses shared by several endpoints, worded to say what to change; every "not found" is here.</summary>

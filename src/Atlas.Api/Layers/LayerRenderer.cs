@@ -1,9 +1,7 @@
 using System.Security.Cryptography;
-using Atlas.Api.Catalog;
 using Atlas.Api.Downloads;
 using Atlas.Api.Footprints;
 using Atlas.Api.Infrastructure;
-using Atlas.Api.Model;
 using Atlas.Api.Rasters;
 using Atlas.Api.Vocabulary;
 using Atlas.Statistics;

@@ -1,11 +1,7 @@
-using Atlas.Api.Catalog;
-using Atlas.Api.Errors;
 using Atlas.Api.Infrastructure;
-using Atlas.Api.Model;
 using Atlas.Statistics;
 using Atlas.Storage.Cells;
 using Atlas.Storage.Datasets;
-using Microsoft.AspNetCore.Http.HttpResults;
 using Microsoft.Extensions.Options;
 
 namespace Atlas.Api.Points;

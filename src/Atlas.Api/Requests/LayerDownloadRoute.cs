@@ -1,8 +1,6 @@
-using Atlas.Api.Errors;
 using Atlas.Api.Layers;
 using Atlas.Api.Vocabulary;
 using Atlas.Statistics;
-using Microsoft.AspNetCore.Http.HttpResults;
 using Microsoft.AspNetCore.Mvc;
 
 namespace Atlas.Api.Requests;

@@ -3,14 +3,10 @@ using Microsoft.AspNetCore.Mvc;
 
 namespace Atlas.Api.Requests;
 
-/// <summary>The query of <c>GET /point/yield</c>: position, device, matrix interpolation and years.</summary>
+/// <summary>The query of <c>GET /point/yield</c> besides the position: the device and the matrix interpolation.</summary>
 public sealed record PointYieldQuery(
-    [property: FromQuery(Name = "lat")] string? Lat,
-    [property: FromQuery(Name = "lon")] string? Lon,
     [property: FromQuery(Name = "device")] string? Device,
-    [property: FromQuery(Name = "interpolation")] string? Interpolation,
-    [property: FromQuery(Name = "from")] string? From,
-    [property: FromQuery(Name = "to")] string? To) : IPointQuery
+    [property: FromQuery(Name = "interpolation")] string? Interpolation)
 {
     /// <summary>The device's name or slug, or null with the fault.</summary>
     public string? DeviceName(QueryErrors errors)
@@ -20,26 +16,12 @@ public sealed record PointYieldQuery(
     }
 }
 
-/// <summary>The query of <c>GET /point/windows</c>: position, access limits, the hours an operation needs and years.</summary>
-public sealed record PointWindowsQuery(
-    [property: FromQuery(Name = "lat")] string? Lat,
-    [property: FromQuery(Name = "lon")] string? Lon,
-    [property: FromQuery(Name = "hs_max")] string? HsMax,
-    [property: FromQuery(Name = "tp_max")] string? TpMax,
-    [property: FromQuery(Name = "hours")] string? Hours,
-    [property: FromQuery(Name = "from")] string? From,
-    [property: FromQuery(Name = "to")] string? To) : IPointQuery, IAccessLimitsQuery;
-
-/// <summary>The query of <c>GET /point/extremes</c>: position, method, the peaks-over-threshold settings and years.</summary>
+/// <summary>The query of <c>GET /point/extremes</c> besides the position: the method and the peaks-over-threshold settings.</summary>
 public sealed record PointExtremesQuery(
-    [property: FromQuery(Name = "lat")] string? Lat,
-    [property: FromQuery(Name = "lon")] string? Lon,
     [property: FromQuery(Name = "method")] string? Method,
     [property: FromQuery(Name = "threshold")] string? Threshold,
     [property: FromQuery(Name = "threshold_quantile")] string? ThresholdQuantile,
-    [property: FromQuery(Name = "separation_hours")] string? SeparationHours,
-    [property: FromQuery(Name = "from")] string? From,
-    [property: FromQuery(Name = "to")] string? To) : IPointQuery
+    [property: FromQuery(Name = "separation_hours")] string? SeparationHours)
 {
     public const string AnnualMaxima = "annual-maxima";
     public const string PeaksOverThreshold = "peaks-over-threshold";
@@ -56,8 +38,8 @@ public sealed record PointExtremesQuery(
     public PeaksOverThresholdOptions PeaksOptions(QueryErrors errors)
     {
         var pot = new PeaksOverThresholdOptions();
-        if (AccessLimitsQueries.Positive("threshold", Threshold, "the Hs threshold in metres", errors, required: false) is { } u) pot = pot with { Threshold = u };
-        if (AccessLimitsQueries.Positive("threshold_quantile", ThresholdQuantile, "the threshold as a quantile of Hs, between 0 and 1", errors, required: false) is { } q)
+        if (AccessLimitsQuery.Positive("threshold", Threshold, "the Hs threshold in metres", errors, required: false) is { } u) pot = pot with { Threshold = u };
+        if (AccessLimitsQuery.Positive("threshold_quantile", ThresholdQuantile, "the threshold as a quantile of Hs, between 0 and 1", errors, required: false) is { } q)
         {
             if (q >= 1) errors.Add("threshold_quantile", $"threshold_quantile {ThresholdQuantile} must be below 1 (e.g. 0.99).");
             else pot = pot with { ThresholdQuantile = q };
@@ -71,9 +53,3 @@ public sealed record PointExtremesQuery(
 
 /// <summary>The query of <c>GET /layers/yield/{device}.{format}</c>.</summary>
 public sealed record YieldLayerQuery([property: FromQuery(Name = "interpolation")] string? Interpolation);
-
-/// <summary>The query of <c>GET /layers/accessibility.{format}</c>: access limits and, optionally, a window length.</summary>
-public sealed record AccessibilityLayerQuery(
-    [property: FromQuery(Name = "hs_max")] string? HsMax,
-    [property: FromQuery(Name = "tp_max")] string? TpMax,
-    [property: FromQuery(Name = "hours")] string? Hours) : IAccessLimitsQuery;

@@ -4,21 +4,14 @@ using Microsoft.AspNetCore.Mvc;
 
 namespace Atlas.Api.Requests;
 
-/// <summary>The query of <c>GET /point</c>: position, window, one period or all, the parts and the format.</summary>
+/// <summary>The query of <c>GET /point</c> besides the position: the months, one period or all, the parts and the format.</summary>
 public sealed record PointStatisticsQuery(
-    [property: FromQuery(Name = "lat")] string? Lat,
-    [property: FromQuery(Name = "lon")] string? Lon,
     [property: FromQuery(Name = "period")] string? Period,
-    [property: FromQuery(Name = "from")] string? From,
-    [property: FromQuery(Name = "to")] string? To,
     [property: FromQuery(Name = "months")] string? Months,
     [property: FromQuery(Name = "include")] string? Include,
-    [property: FromQuery(Name = "format")] string? Format) : IPointQuery
+    [property: FromQuery(Name = "format")] string? Format)
 {
     public static readonly string[] Parts = ["exceedance", "joint", "rose", "interannual"];
-
-    /// <summary>The from/to/months window, or null with the faults in <paramref name="errors"/>.</summary>
-    public YearWindow? Window(QueryErrors errors) => YearWindow.Parse(From, To, Months, errors);
 
     /// <summary>The one period asked for, or null for all (the default).</summary>
     public AtlasPeriod? OnePeriod(QueryErrors errors)

@@ -1,4 +1,3 @@
-using Atlas.Api.Model;
 using Atlas.Statistics;
 
 namespace Atlas.Api.Vocabulary;
