@@ -1,5 +1,4 @@
 using Atlas.Api.Data;
-using Atlas.Api.Operations;
 using Atlas.Storage.Datasets;
 using Atlas.Storage.Jobs;
 using Npgsql;
@@ -7,7 +6,7 @@ using Npgsql;
 namespace Atlas.Api.Apis;
 
 /// <summary>The write endpoints: queue a statistics job, delete a dataset. Both need an API key.</summary>
-public static class AdminApi
+public static partial class AdminApi
 {
     public static IEndpointRouteBuilder MapAdminApi(this IEndpointRouteBuilder routes)
     {
@@ -32,7 +31,7 @@ public static class AdminApi
     {
         if (await datasets.FindAsync(slug, cancel) is null) return ApiProblems.UnknownDataset(slug);
         var id = await jobs.EnqueueAsync(JobKind.Statistics, slug, "{}", cancel);
-        ApiLog.JobQueued(logger, id, slug);
+        JobQueued(logger, id, slug);
         var status = $"/api/v1/datasets/{slug}/jobs/{id}";
         return TypedResults.Accepted(status, new JobAccepted(id, "statistics", slug, "queued", status));
     }
@@ -51,7 +50,13 @@ public static class AdminApi
     {
         if (!await new DatasetStore(writer).DeleteAsync(slug, cancel)) return ApiProblems.UnknownDataset(slug);
         catalog.Forget(slug);
-        ApiLog.DatasetDeleted(logger, slug);
+        DatasetDeleted(logger, slug);
         return TypedResults.NoContent();
     }
+
+    [LoggerMessage(EventId = 7, Level = LogLevel.Information, Message = "Dataset {Slug} deleted through the API")]
+    private static partial void DatasetDeleted(ILogger logger, string slug);
+
+    [LoggerMessage(EventId = 8, Level = LogLevel.Information, Message = "Statistics job {JobId} queued for {Slug} through the API")]
+    private static partial void JobQueued(ILogger logger, long jobId, string slug);
 }

@@ -48,11 +48,8 @@ public static class DeviceApi
     {
         var (upload, problem) = await UploadReader.ReadAsync(request, "power-matrix.csv", cancel);
         if (upload is null) return problem!;
-        var errors = new Dictionary<string, string[]>();
-        var name = upload.Field("name")?.Trim();
-        var slug = name is null ? null : ReferenceSlug.From(name);
-        if (name is null) errors["name"] = ["name is required: the device's name, your own."];
-        else if (slug is null) errors["name"] = [$"name '{name}' needs at least one letter or digit."];
+        var errors = new QueryErrors();
+        var name = upload.Name("device's", errors);
         var rated = upload.Number("rated_kw", double.Epsilon, 1e9, "the rated power in kW, above 0", errors, required: false);
         if (errors.Count > 0) return TypedResults.ValidationProblem(errors, title: "The device description has invalid fields");
 
@@ -61,12 +58,11 @@ public static class DeviceApi
         {
             var loaded = await new DeviceLoader(dataSource).LoadAsync(name!, upload.Content, upload.FileName, rated, cancel);
             var result = new DeviceRegistered(DeviceItem.From(loaded.Device), loaded.AlreadyRegistered, AtlasCaution.Text);
-            return loaded.AlreadyRegistered ? TypedResults.Ok(result) : TypedResults.Created($"/api/v1/devices/{loaded.Device.Slug}", result);
+            return Upload.Registered(loaded.AlreadyRegistered, $"/api/v1/devices/{loaded.Device.Slug}", result);
         }
         catch (CsvInputException e)
         {
-            return TypedResults.ValidationProblem(new Dictionary<string, string[]> { ["file"] = [.. e.Errors.Select(x => x.ToString())] },
-                title: $"The power matrix {upload.FileName} has {e.Errors.Count} {(e.Errors.Count == 1 ? "error" : "errors")}; nothing was stored");
+            return upload.Refused("power matrix", [.. e.Errors.Select(x => x.ToString())], "error");
         }
         catch (ArgumentOutOfRangeException e)
         {
@@ -74,7 +70,7 @@ public static class DeviceApi
         }
         catch (DuplicateDeviceException e)
         {
-            return TypedResults.Problem(statusCode: 409, title: "The device conflicts with a stored one", detail: e.Message);
+            return ApiProblems.Conflict("The device conflicts with a stored one", e.Message);
         }
     }
 

@@ -1,3 +1,4 @@
+using Atlas.Storage.Stations;
 using Microsoft.AspNetCore.Http.Features;
 
 namespace Atlas.Api.Assessment;
@@ -8,8 +9,29 @@ public sealed record Upload(byte[] Content, string FileName, IReadOnlyDictionary
     public string? Field(string name) => Fields.TryGetValue(name, out var value) && value.Length > 0 ? value : null;
 
     /// <summary>A numeric field in [min, max]; null (with an error when required or unparsable) otherwise.</summary>
-    public double? Number(string name, double min, double max, string meaning, Dictionary<string, string[]> errors, bool required) =>
+    public double? Number(string name, double min, double max, string meaning, QueryErrors errors, bool required) =>
         QueryNumbers.Read(name, Field(name), meaning, errors, required, min, max);
+
+    /// <summary>The name field (required, with a letter or digit for its slug), or null with the fault.</summary>
+    /// <param name="owner">Whose name it is, as it reads after "the" (e.g. "station's").</param>
+    public string? Name(string owner, QueryErrors errors)
+    {
+        var name = Field("name")?.Trim();
+        if (name is null) errors.Add("name", $"name is required: the {owner} name, your own.");
+        else if (ReferenceSlug.From(name) is null) errors.Add("name", $"name '{name}' needs at least one letter or digit.");
+        return name;
+    }
+
+    /// <summary>The answer to a file with faults: each fault under <c>file</c>, and a title that says nothing was stored.</summary>
+    /// <param name="what">What the file is (e.g. "station record").</param>
+    /// <param name="kind">What a fault is called (error, problem).</param>
+    public ValidationProblem Refused(string what, IReadOnlyCollection<string> faults, string kind) =>
+        TypedResults.ValidationProblem(new Dictionary<string, string[]> { ["file"] = [.. faults] },
+            title: $"The {what} {FileName} has {faults.Count} {kind}{(faults.Count == 1 ? "" : "s")}; nothing was stored");
+
+    /// <summary>201 with the new reference's location, or 200 when the same file under the same name was stored already.</summary>
+    public static IResult Registered<T>(bool alreadyRegistered, string location, T result) =>
+        alreadyRegistered ? TypedResults.Ok(result) : TypedResults.Created(location, result);
 }
 
 /// <summary>

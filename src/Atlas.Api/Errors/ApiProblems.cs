@@ -19,6 +19,9 @@ public static class ApiProblems
     public static ProblemHttpResult NotFound(string title, string detail) =>
         TypedResults.Problem(statusCode: 404, title: title, detail: detail);
 
+    public static ProblemHttpResult Conflict(string title, string detail) =>
+        TypedResults.Problem(statusCode: 409, title: title, detail: detail);
+
     public static ProblemHttpResult TooLarge(string detail) =>
         TypedResults.Problem(statusCode: 413, title: "The request is too large", detail: detail);
 }
