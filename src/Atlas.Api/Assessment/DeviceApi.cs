@@ -25,12 +25,7 @@ public static class DeviceApi
                 "hs_m\\te_s or hs_m\\tp_s; the rest of the first line are period bin centres (s), the first column Hs bin centres (m), the body " +
                 "power in kW. Bins must strictly increase, power be finite and at or above 0 and not 0 everywhere; every problem is reported " +
                 "with its line and column and nothing is stored.")
-            .Accepts<IFormFile>("multipart/form-data", "text/csv")
-            .Produces<DeviceRegistered>(StatusCodes.Status200OK)
-            .Produces<DeviceRegistered>(StatusCodes.Status201Created)
-            .ProducesValidationProblem()
-            .ProducesProblems(StatusCodes.Status409Conflict, StatusCodes.Status413PayloadTooLarge)
-            .RequireApiKey();
+            .AcceptsUpload<DeviceRegistered>("text/csv");
         group.MapDelete("/{device}", DeleteAsync).WithName("DeleteDevice")
             .WithSummary("Remove a device (needs X-Api-Key)")
             .ProducesProblems(StatusCodes.Status404NotFound)

@@ -28,12 +28,7 @@ public static class StationApi
                 "as flagged); or a CF-NetCDF point time series (featureType timeSeries), whose stated position may replace lat and lon. " +
                 "Every bad row is reported with its line number (or variable and index) and nothing is stored. Loading the same file under the same name " +
                 "again changes nothing (200); a new station answers 201.")
-            .Accepts<IFormFile>("multipart/form-data", "text/csv", "application/x-netcdf")
-            .Produces<StationRegistered>(StatusCodes.Status200OK)
-            .Produces<StationRegistered>(StatusCodes.Status201Created)
-            .ProducesValidationProblem()
-            .ProducesProblems(StatusCodes.Status409Conflict, StatusCodes.Status413PayloadTooLarge)
-            .RequireApiKey();
+            .AcceptsUpload<StationRegistered>("text/csv", "application/x-netcdf");
         group.MapDelete("/{station}", DeleteAsync).WithName("DeleteStation")
             .WithSummary("Remove a station and its record (needs X-Api-Key)")
             .ProducesProblems(StatusCodes.Status404NotFound)

@@ -44,6 +44,19 @@ public static class UploadReader
     /// <summary>The largest upload accepted, bytes: a decade of 10-minute buoy records as CSV is about 30 MB.</summary>
     public const long MaximumBytes = 64L << 20;
 
+    /// <summary>
+    /// Declares an upload endpoint: the file in the form part <c>file</c> or as the body of <paramref name="contentTypes"/>,
+    /// answered with 201 (new) or 200 (the same file again), 400 for faults, 409 for a conflict and 413 beyond the limit;
+    /// writing needs the API key.
+    /// </summary>
+    public static RouteHandlerBuilder AcceptsUpload<TRegistered>(this RouteHandlerBuilder endpoint, params string[] contentTypes) =>
+        endpoint.Accepts<IFormFile>("multipart/form-data", contentTypes)
+            .Produces<TRegistered>(StatusCodes.Status200OK)
+            .Produces<TRegistered>(StatusCodes.Status201Created)
+            .ProducesValidationProblem()
+            .ProducesProblems(StatusCodes.Status409Conflict, StatusCodes.Status413PayloadTooLarge)
+            .RequireApiKey();
+
     /// <summary>The upload, or the problem (400 without a file, 413 beyond the limit).</summary>
     public static async Task<(Upload? Upload, IResult? Problem)> ReadAsync(HttpRequest request, string defaultFileName, CancellationToken cancel)
     {
