@@ -51,8 +51,8 @@ public static class PointAssessmentApi
         return routes;
     }
 
-    /// <summary>A located point with its series over the asked years.</summary>
-    private sealed record PointContext(LocatedPoint Point, PointCell Cell, PointSeries Series, YearWindow Window);
+    /// <summary>A located point with its series over the asked years, and its Hs on regular steps (every analysis uses them).</summary>
+    private sealed record PointContext(LocatedPoint Point, PointCell Cell, PointSeries Series, YearWindow Window, RegularSeries Hs);
 
     private static async Task<(PointContext? Context, ProblemHttpResult? Problem)> ReadAsync(string slug, (double Latitude, double Longitude) position,
         YearWindow window, PointLocator locator, DatasetCatalog catalog, SeriesStore series, CancellationToken cancel)
@@ -65,20 +65,24 @@ public static class PointAssessmentApi
             return (null, ApiProblems.Unprocessable("Too little series in the window",
                 $"Cell {point.Nearest.Cell.CellId} of '{slug}' has {decoded.Times.Length} stored step(s) in the years asked; stored years are " +
                 $"{(timelines.Count == 0 ? "none" : $"{timelines.Keys.First()}..{timelines.Keys.Last()}")}."));
-        return (new PointContext(point, point.Cell, decoded, window), null);
+        var (hs, irregular) = Regular(slug, decoded, decoded.Hs);
+        return hs is null ? (null, irregular) : (new PointContext(point, point.Cell, decoded, window, hs), null);
     }
 
     /// <summary>The values on regular steps, or the problem when the dataset's time line has no common step.</summary>
-    private static (RegularSeries? Series, ProblemHttpResult? Problem) Regular(PointContext context, float[] values)
+    private static (RegularSeries? Series, ProblemHttpResult? Problem) Regular(PointContext context, float[] values) =>
+        Regular(context.Point.Dataset.Slug, context.Series, values);
+
+    private static (RegularSeries? Series, ProblemHttpResult? Problem) Regular(string slug, PointSeries series, float[] values)
     {
         try
         {
-            return (AssessmentSeries.Regular(context.Series.Times, values), null);
+            return (AssessmentSeries.Regular(series.Times, values), null);
         }
         catch (ArgumentException e)
         {
             return (null, ApiProblems.Unprocessable("The time line is not regular",
-                $"The analyses need steps on a common interval, but the time line of '{context.Point.Dataset.Slug}' is not: {e.Message.Split(" (Parameter")[0]}"));
+                $"The analyses need steps on a common interval, but the time line of '{slug}' is not: {e.Message.Split(" (Parameter")[0]}"));
         }
     }
 
@@ -98,11 +102,9 @@ public static class PointAssessmentApi
         if (context is null) return problem!;
         var (period, periodSource) = PeriodFor(stored.AxisKind, context.Series);
         if (period is null) return ApiProblems.Unprocessable("No wave period stored", $"Dataset '{slug}' stores neither Te nor Tp, so no device production can be computed.");
-        var (hs, hsProblem) = Regular(context, context.Series.Hs);
-        if (hs is null) return hsProblem!;
         var (regularPeriod, _) = Regular(context, period);
         var matrix = DeviceMatrices.ToPowerMatrix(stored);
-        var result = DeviceYield.FromSeries(matrix, hs, regularPeriod!, matrix.PeriodKind, new YieldOptions { Interpolation = reading });
+        var result = DeviceYield.FromSeries(matrix, context.Hs, regularPeriod!, matrix.PeriodKind, new YieldOptions { Interpolation = reading });
         var summary = new DeviceSummary(stored.Name, stored.Slug, DeviceStore.AxisName(stored.AxisKind), stored.RatedPowerKw);
         return TypedResults.Ok(PointYield.From(slug, context.Cell, summary, periodSource, window.FromYear, window.ToYear, result,
             await provenance.ForAsync(context.Point.Dataset, cancel)));
@@ -145,8 +147,7 @@ public static class PointAssessmentApi
         if (context is null) return problem!;
         if (limits.TpLimitSeconds is not null && !context.Series.HasTp)
             return ApiProblems.Unprocessable("No Tp stored", $"Dataset '{slug}' stores no peak period, so a Tp limit cannot be applied; leave tp_max out.");
-        var (hs, hsProblem) = Regular(context, context.Series.Hs);
-        if (hs is null) return hsProblem!;
+        var hs = context.Hs;
         var tp = limits.TpLimitSeconds is null ? null : Regular(context, context.Series.Tp).Series;
         var result = WeatherWindowAnalysis.Analyse(hs, tp, limits, duration.Value);
         return TypedResults.Ok(PointWindows.From(slug, context.Cell, window.FromYear, window.ToYear, result, await provenance.ForAsync(context.Point.Dataset, cancel)));
@@ -165,8 +166,7 @@ public static class PointAssessmentApi
 
         var (context, problem) = await ReadAsync(slug, position.Value, window, locator, catalog, series, cancel);
         if (context is null) return problem!;
-        var (hs, hsProblem) = Regular(context, context.Series.Hs);
-        if (hs is null) return hsProblem!;
+        var hs = context.Hs;
 
         AnnualMaximaExtremes? annual = null;
         PeaksOverThresholdExtremes? peaks = null;
