@@ -3,7 +3,6 @@ using Atlas.Assessment.Yield;
 using Atlas.Assessment;
 using Atlas.Ingest.Assessment;
 using Atlas.Storage.Devices;
-using Atlas.Storage.Stations;
 using Npgsql;
 
 namespace Atlas.Api.Assessment;
