@@ -1,5 +1,6 @@
 using Atlas.Api.Apis;
-using Atlas.Api.Infrastructure;
+using Atlas.Api.Assessment;
+using Atlas.Api.Operations;
 
 namespace Atlas.Api;
 

@@ -2,14 +2,15 @@ using System.IO.Compression;
 using System.Text.Json;
 using Atlas.Api.Apis;
 using Atlas.Api.Assessment;
+using Atlas.Api.Data;
 using Atlas.Api.Footprints;
 using Atlas.Api.Infrastructure;
 using Atlas.Api.Layers;
+using Atlas.Api.Operations;
 using Atlas.Api.Points;
 using Atlas.Api.Vocabulary;
 using Atlas.Ingest.Hosting;
 using Atlas.Ingest.Validation;
-using Atlas.Storage;
 using Atlas.Storage.Cells;
 using Atlas.Storage.Datasets;
 using Atlas.Storage.Jobs;
@@ -17,6 +18,7 @@ using Atlas.Storage.Queries;
 using Atlas.Storage.Series;
 using Atlas.Storage.Stations;
 using Atlas.Storage.Statistics;
+using Atlas.Storage;
 using Microsoft.AspNetCore.Cors.Infrastructure;
 using Microsoft.AspNetCore.RateLimiting;
 using Microsoft.AspNetCore.ResponseCompression;
@@ -28,7 +30,7 @@ using Microsoft.OpenApi;
 namespace Atlas.Api;
 
 /// <summary>The one place where the API's services and middleware are registered.</summary>
-public static class AtlasApiRegistration
+public static partial class AtlasApiRegistration
 {
     public static WebApplicationBuilder AddAtlasApi(this WebApplicationBuilder builder)
     {
@@ -141,15 +143,21 @@ public static class AtlasApiRegistration
         var logger = app.Services.GetRequiredService<ILoggerFactory>().CreateLogger("Atlas.Api.WebRoot");
         if (Directory.Exists(webRoot))
         {
-            ApiLog.ServingWebRoot(logger, webRoot);
+            ServingWebRoot(logger, webRoot);
             var files = new PhysicalFileProvider(webRoot);
             app.UseDefaultFiles(new DefaultFilesOptions { FileProvider = files });
             app.UseStaticFiles(new StaticFileOptions { FileProvider = files });
         }
         else
         {
-            ApiLog.NoWebRoot(logger, webRoot);
+            NoWebRoot(logger, webRoot);
         }
         return app;
     }
+
+    [LoggerMessage(EventId = 5, Level = LogLevel.Information, Message = "Serving the map page from {Folder}")]
+    private static partial void ServingWebRoot(ILogger logger, string folder);
+
+    [LoggerMessage(EventId = 6, Level = LogLevel.Warning, Message = "No map page folder found (looked for {Folder}); only the API is served")]
+    private static partial void NoWebRoot(ILogger logger, string folder);
 }

@@ -1,5 +1,6 @@
 using System.Net;
 using System.Text.Json;
+using Atlas.Api.Infrastructure;
 using Atlas.Api.Tests.Support;
 using Atlas.Storage.Cells;
 using Atlas.Storage.Datasets;

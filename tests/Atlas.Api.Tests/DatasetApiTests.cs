@@ -1,6 +1,6 @@
 using System.Net;
 using System.Text.Json;
-using Atlas.Api.Infrastructure;
+using Atlas.Api.Model;
 using Atlas.Api.Tests.Support;
 
 namespace Atlas.Api.Tests;
@@ -58,5 +58,9 @@ public sealed class DatasetApiTests(AtlasApiFixture atlas)
         Assert.Equal("FeatureCollection", root.GetProperty("type").GetString());
         Assert.Equal(20, root.GetProperty("dry_cell_count").GetInt32());  // the two dry columns of ten rows
         Assert.Equal("MultiPolygon", root.GetProperty("features")[0].GetProperty("geometry").GetProperty("type").GetString());
+        // RFC 7946 section 3.1.6: each polygon's exterior ring is counter-clockwise, its holes clockwise.
+        foreach (var polygon in root.GetProperty("features")[0].GetProperty("geometry").GetProperty("coordinates").EnumerateArray())
+            foreach (var (ring, k) in polygon.EnumerateArray().Select((r, k) => (r, k)))
+                Assert.True(k == 0 ? LayerApiTests.SignedArea(ring) > 0 : LayerApiTests.SignedArea(ring) < 0);
     }
 }

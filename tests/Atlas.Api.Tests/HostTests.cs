@@ -1,5 +1,6 @@
 using System.Net;
 using System.Text.Json;
+using Atlas.Api.Infrastructure;
 using Atlas.Api.Tests.Support;
 
 namespace Atlas.Api.Tests;
@@ -44,6 +45,32 @@ public sealed class HostTests(AtlasApiFixture atlas)
                  })
             Assert.Contains(path, paths);
         Assert.Equal(HttpStatusCode.OK, (await _client.GetAsync("/swagger/index.html")).StatusCode);
+    }
+
+    [Theory]
+    [InlineData("/api/v1/datasets/{slug}/point", "200:application/json,text/csv", "400", "404", "422", "429")]
+    [InlineData("/api/v1/datasets/{slug}/point/series", "200:text/csv,application/json", "400", "404", "422", "429")]
+    [InlineData("/api/v1/datasets/{slug}/point/yield", "200:application/json", "400", "404", "422", "429")]
+    [InlineData("/api/v1/datasets/{slug}/point/windows", "200:application/json", "400", "404", "422", "429")]
+    [InlineData("/api/v1/datasets/{slug}/point/extremes", "200:application/json", "400", "404", "422", "429")]
+    [InlineData("/api/v1/datasets/{slug}/layers", "200:application/json", "404")]
+    [InlineData("/api/v1/datasets/{slug}/layers/{parameter}/{statistic}/{period}.{format}",
+        "200:image/tiff; application=geotiff; profile=cloud-optimized,text/csv; charset=utf-8,application/geo+json,application/x-netcdf,image/png",
+        "400", "404", "422", "429")]
+    [InlineData("/api/v1/datasets/{slug}/layers/accessibility.{format}", "200:application/json,application/geo+json,image/tiff", "400", "404", "422", "429")]
+    [InlineData("/api/v1/datasets/{slug}/screen", "200:application/geo+json", "400", "404", "429")]
+    public async Task OpenApiDocumentsTheAnswersAndProblemsOfPointAndLayerEndpoints(string path, string ok, params string[] problems)
+    {
+        // OpenAPI 3 (the Responses Object): each status an operation answers with is a key of its "responses", and
+        // its "content" names the media types; the problem answers are application/problem+json (RFC 9457).
+        var document = JsonDocument.Parse(await _client.GetStringAsync("/swagger/v1/swagger.json")).RootElement;
+        var responses = document.GetProperty("paths").GetProperty(path).GetProperty("get").GetProperty("responses");
+        var (status, types) = (ok.Split(':', 2)[0], ok.Split(':', 2)[1].Split(','));
+        var content = responses.GetProperty(status).GetProperty("content").EnumerateObject().Select(c => c.Name).ToArray();
+        foreach (var type in types) Assert.Contains(type, content);
+        foreach (var problem in problems)
+            Assert.True(responses.TryGetProperty(problem, out var answer) && answer.GetProperty("content").TryGetProperty("application/problem+json", out _),
+                $"{path} does not document a {problem} problem: {responses}");
     }
 
     [Fact]

@@ -1,8 +1,8 @@
 using System.Globalization;
-using System.Net;
 using System.Net.Http.Headers;
+using System.Net;
 using System.Text.Json;
-using Atlas.Api.Infrastructure;
+using Atlas.Api.Model;
 using Atlas.Api.Tests.Support;
 using Atlas.Storage.Statistics;
 using Microsoft.Data.Analysis;
@@ -143,6 +143,26 @@ public sealed class LayerApiTests(AtlasApiFixture atlas)
         Assert.Equal(postgis, feature.GetProperty("properties").GetProperty("area_km2").GetDouble(), postgis * 1e-4);
         var points = JsonDocument.Parse(await _client.GetStringAsync($"{Coast}/hs/mean/annual.geojson")).RootElement;
         Assert.Equal("Point", points.GetProperty("features")[0].GetProperty("geometry").GetProperty("type").GetString());
+        // RFC 7946 section 3.1.6: exterior rings are counter-clockwise (a positive shoelace area).
+        foreach (var f in features) Assert.True(SignedArea(f.GetProperty("geometry").GetProperty("coordinates")[0]) > 0);
+        // GDAL's GeoJSON driver (ogrinfo) reads the download as 100 polygons.
+        var path = await DownloadAsync($"{Coast}/hs/mean/annual.geojson?geometry=polygon", ".geojson");
+        try
+        {
+            var info = ExternalTool.Run("ogrinfo", "-ro", "-so", "-al", path);
+            Assert.Contains("Feature Count: 100", info);
+            Assert.Contains("Geometry: Polygon", info);
+        }
+        finally { File.Delete(path); }
+    }
+
+    /// <summary>Twice the signed area of a closed ring of [lon, lat] positions (shoelace formula): positive when counter-clockwise.</summary>
+    internal static double SignedArea(JsonElement ring)
+    {
+        var p = ring.EnumerateArray().Select(c => (X: c[0].GetDouble(), Y: c[1].GetDouble())).ToArray();
+        var sum = 0.0;
+        for (var i = 0; i + 1 < p.Length; i++) sum += p[i].X * p[i + 1].Y - p[i + 1].X * p[i].Y;
+        return sum;
     }
 
     [Fact]

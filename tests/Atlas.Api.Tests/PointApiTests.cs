@@ -2,10 +2,11 @@ using System.Globalization;
 using System.Net;
 using System.Text.Json;
 using Atlas.Api.Infrastructure;
+using Atlas.Api.Model;
 using Atlas.Api.Tests.Support;
 using Atlas.Storage.Statistics;
-using Microsoft.Data.Analysis;
 using Atlas.TestSupport;
+using Microsoft.Data.Analysis;
 
 namespace Atlas.Api.Tests;
 

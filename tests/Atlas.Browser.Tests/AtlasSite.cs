@@ -66,7 +66,7 @@ public sealed class AtlasSite : IAsyncLifetime
         BaseUrl = $"http://127.0.0.1:{FreeLoopbackPort()}";
         _app = ApiHost.Build([
             "--urls", BaseUrl,
-            $"--ConnectionStrings:{Atlas.Api.Infrastructure.AtlasConnection.ConfigurationName}={_database.ConnectionString}",
+            $"--ConnectionStrings:{Atlas.Api.Data.AtlasConnection.ConfigurationName}={_database.ConnectionString}",
             $"--AtlasApiOptions:WebRootPath={webRoot}",
             "--Logging:LogLevel:Default=Warning",
         ]);

@@ -1,18 +1,12 @@
-using Atlas.Api.Infrastructure;
+using Atlas.Api.Data;
 using Atlas.Storage.Datasets;
 using Atlas.Storage.Jobs;
-using Microsoft.AspNetCore.Http.HttpResults;
 using Npgsql;
 
 namespace Atlas.Api.Apis;
 
-public sealed record JobAccepted(long JobId, string Kind, string Dataset, string State, string Status);
-
-public sealed record JobStatus(long JobId, string Kind, string Dataset, string State, int Attempts, DateTime CreatedAtUtc,
-    DateTime? FinishedAtUtc, string? Progress, string? Error, string? Summary);
-
 /// <summary>The write endpoints: queue a statistics job, delete a dataset. Both need an API key.</summary>
-public static class AdminApi
+public static partial class AdminApi
 {
     public static IEndpointRouteBuilder MapAdminApi(this IEndpointRouteBuilder routes)
     {
@@ -21,11 +15,14 @@ public static class AdminApi
             .WithSummary("Queue a statistics job for a dataset (needs X-Api-Key)")
             .WithDescription("A worker (atlas serve or any worker sharing the database) claims the job and recomputes the statistics " +
                              "of every cell whose series changed. Poll the returned status link for progress.")
-            .AddEndpointFilter<ApiKeyFilter>();
-        group.MapGet("/jobs/{jobId:long}", JobStatusAsync).WithName("JobStatus").WithSummary("The state of a queued job");
+            .ProducesProblems(StatusCodes.Status404NotFound)
+            .RequireApiKey();
+        group.MapGet("/jobs/{jobId:long}", JobStatusAsync).WithName("JobStatus").WithSummary("The state of a queued job")
+            .ProducesProblems(StatusCodes.Status404NotFound);
         group.MapDelete("/", DeleteAsync).WithName("DeleteDataset")
             .WithSummary("Delete a dataset and everything stored for it (needs X-Api-Key)")
-            .AddEndpointFilter<ApiKeyFilter>();
+            .ProducesProblems(StatusCodes.Status404NotFound)
+            .RequireApiKey();
         return routes;
     }
 
@@ -34,7 +31,7 @@ public static class AdminApi
     {
         if (await datasets.FindAsync(slug, cancel) is null) return ApiProblems.UnknownDataset(slug);
         var id = await jobs.EnqueueAsync(JobKind.Statistics, slug, "{}", cancel);
-        ApiLog.JobQueued(logger, id, slug);
+        JobQueued(logger, id, slug);
         var status = $"/api/v1/datasets/{slug}/jobs/{id}";
         return TypedResults.Accepted(status, new JobAccepted(id, "statistics", slug, "queued", status));
     }
@@ -53,7 +50,13 @@ public static class AdminApi
     {
         if (!await new DatasetStore(writer).DeleteAsync(slug, cancel)) return ApiProblems.UnknownDataset(slug);
         catalog.Forget(slug);
-        ApiLog.DatasetDeleted(logger, slug);
+        DatasetDeleted(logger, slug);
         return TypedResults.NoContent();
     }
+
+    [LoggerMessage(EventId = 7, Level = LogLevel.Information, Message = "Dataset {Slug} deleted through the API")]
+    private static partial void DatasetDeleted(ILogger logger, string slug);
+
+    [LoggerMessage(EventId = 8, Level = LogLevel.Information, Message = "Statistics job {JobId} queued for {Slug} through the API")]
+    private static partial void JobQueued(ILogger logger, long jobId, string slug);
 }

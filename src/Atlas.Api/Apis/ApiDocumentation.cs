@@ -9,5 +9,5 @@ public static class ApiDocumentation
         "dir (mean direction waves come from, degrees true), spread (degrees), d (directionality coefficient), depth (m). Periods: " +
         "jan..dec, djf, mam, jja, son, annual, y2019. Errors are RFC 9457 problem details saying what to fix. Computing endpoints are " +
         "rate-limited per client address (429 with Retry-After); write endpoints need the X-Api-Key header. A database outage gives " +
-        "503 with Retry-After. " + Infrastructure.AtlasCaution.Text;
+        "503 with Retry-After. " + Model.AtlasCaution.Text;
 }

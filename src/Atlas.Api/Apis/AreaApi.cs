@@ -1,15 +1,13 @@
 using Atlas.Api.Areas;
 using Atlas.Api.Footprints;
 using Atlas.Api.Infrastructure;
-using Atlas.Api.Model;
 using Atlas.Api.Vocabulary;
 using Atlas.Statistics;
 using Atlas.Storage.Queries;
 using Atlas.Storage.Statistics;
-using Microsoft.AspNetCore.Http.HttpResults;
 using Microsoft.Extensions.Options;
-using NetTopologySuite.Geometries;
 using NetTopologySuite.Geometries.Prepared;
+using NetTopologySuite.Geometries;
 
 namespace Atlas.Api.Apis;
 
@@ -32,33 +30,20 @@ public static class AreaApi
                 "Rejected with a problem saying what to fix: invalid or self-intersecting rings (422), areas above the size limit (422), " +
                 "too many vertices or too large a body (413), areas holding no wet cell (422).")
             .Accepts<object>("application/geo+json", "application/json")
-            .RequireRateLimiting(RateLimits.Expensive);
+            .ProducesProblems(StatusCodes.Status404NotFound, StatusCodes.Status413PayloadTooLarge, StatusCodes.Status422UnprocessableEntity)
+            .RequireExpensiveLimit();
         return routes;
     }
 
     public static async Task<Results<Ok<AreaStatistics>, ProblemHttpResult, ValidationProblem>> AreaAsync(
-        string slug, string? parameter, string? statistic, string? period, string? threshold,
+        string slug, [AsParameters] AreaQuery query,
         HttpRequest request, DatasetCatalog catalog, StatisticsStore statistics, AreaQueries areas, CellFootprints footprints,
         ProvenanceBuilder provenance, IOptions<AtlasApiOptions> options, CancellationToken cancel)
     {
         var limits = options.Value;
-        var errors = new Dictionary<string, string[]>();
-        var p = WaveParameter.J;
-        var s = StatisticKind.Mean;
-        var t = AtlasPeriod.Annual;
-        double? level = null;
-        if (parameter is not null && !WaveParameterNames.TryParse(parameter, out p))
-            errors["parameter"] = [VocabularyMessages.UnknownParameter(parameter)];
-        if (statistic is not null && !StatisticKindNames.TryParse(statistic, out s))
-            errors["statistic"] = [VocabularyMessages.UnknownStatistic(statistic)];
-        if (period is not null && !AtlasPeriod.TryParse(period, out t))
-            errors["period"] = [VocabularyMessages.UnknownPeriod(period)];
-        if (threshold is not null)
-        {
-            if (QueryNumbers.TryParse(threshold, out var v)) level = v;
-            else errors["threshold"] = [$"'{threshold}' is not a number; give the threshold in the layer's unit, e.g. threshold=20."];
-        }
-        if (errors.Count > 0) return TypedResults.ValidationProblem(errors, title: "The area request has invalid query values");
+        var errors = new QueryErrors();
+        if (query.Read(errors) is not { } layer) return TypedResults.ValidationProblem(errors, title: "The area request has invalid query values");
+        var (p, s, t, level) = layer;
 
         if (request.ContentLength > limits.MaxRequestBodyBytes)
             return ApiProblems.TooLarge($"The body is {request.ContentLength} bytes; the limit is {limits.MaxRequestBodyBytes}. Simplify the polygon.");

@@ -1,9 +1,6 @@
 using System.Text.Json;
-using Atlas.Api.Infrastructure;
-using Atlas.Api.Model;
 using Atlas.Api.Vocabulary;
 using Atlas.Storage.Datasets;
-using Microsoft.AspNetCore.Http.HttpResults;
 
 namespace Atlas.Api.Apis;
 
@@ -19,7 +16,8 @@ public static class DatasetApi
         group.MapGet("/{slug}", DescribeAsync).WithName("DescribeDataset")
             .WithSummary("What one dataset holds")
             .WithDescription("Extent, grid kind, cell counts, time coverage and step, variables with units, source files with " +
-                             "SHA-256 checksums, method notes, licence and citation, the validation summary when one is stored, and the caution.");
+                             "SHA-256 checksums, method notes, licence and citation, the validation summary when one is stored, and the caution.")
+            .ProducesProblems(StatusCodes.Status404NotFound);
         return routes;
     }
 

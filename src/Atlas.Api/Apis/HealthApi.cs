@@ -1,12 +1,7 @@
 using Atlas.Storage;
-using Microsoft.AspNetCore.Http.HttpResults;
 using Npgsql;
 
 namespace Atlas.Api.Apis;
-
-public sealed record Liveness(string Status);
-
-public sealed record Readiness(string Status, string Database, int MigrationsApplied, int MigrationsAvailable);
 
 /// <summary><c>/healthz</c> (the process answers) and <c>/readyz</c> (the database answers and its schema is current).</summary>
 public static class HealthApi
@@ -16,7 +11,8 @@ public static class HealthApi
         routes.MapGet("/healthz", () => TypedResults.Ok(new Liveness("ok"))).WithTags("Health").WithName("Liveness")
             .WithSummary("The process is up (it does not touch the database)");
         routes.MapGet("/readyz", ReadinessAsync).WithTags("Health").WithName("Readiness")
-            .WithSummary("The database answers and every schema migration is applied");
+            .WithSummary("The database answers and every schema migration is applied")
+            .ProducesProblems(StatusCodes.Status503ServiceUnavailable);
         return routes;
     }
 
@@ -30,7 +26,7 @@ public static class HealthApi
             await ping.ExecuteScalarAsync(cancel);
             applied = await SchemaMigrator.AppliedVersionsAsync(dataSource, cancel);
         }
-        catch (Exception e) when (Infrastructure.DatabaseOutage.Is(e))
+        catch (Exception e) when (Data.DatabaseOutage.Is(e))
         {
             return TypedResults.Problem(statusCode: 503, title: "Not ready: the database is unavailable",
                 detail: $"The database cannot be reached ({e.Message}). Start it (atlas db start) or fix the connection string.");

@@ -1,11 +1,9 @@
-using System.Text.Json;
 using Atlas.Api.Downloads;
 using Atlas.Api.Footprints;
-using Atlas.Api.Infrastructure;
 using Atlas.Api.Rasters;
 using Atlas.Storage.Cells;
-using Microsoft.AspNetCore.Http.HttpResults;
 using Microsoft.Extensions.Caching.Memory;
+using NetTopologySuite.Features;
 using NetTopologySuite.Geometries;
 using NetTopologySuite.Operation.Union;
 
@@ -28,7 +26,8 @@ public static class LandMaskApi
                 "grid each dry cell is the rectangle halfway to its neighbouring grid lines (as the wet cells' footprints are); elsewhere " +
                 "it is its Voronoi region among all cells, clipped to one typical spacing. dry_cell_count says how many cells it holds; " +
                 "a dataset with no dry cell (a mesh of wet nodes only) gives an empty collection.")
-            .Produces(200, contentType: "application/geo+json");
+            .ProducesFile("application/geo+json")
+            .ProducesProblems(StatusCodes.Status404NotFound);
         return routes;
     }
 
@@ -60,49 +59,11 @@ public static class LandMaskApi
         return TypedResults.File(body!, "application/geo+json");
     }
 
+    /// <summary>One MultiPolygon feature of the land's polygons (none when there is no land), with the count of dry cells.</summary>
     private static byte[] Write(Geometry? land, int dryCells)
     {
-        using var buffer = new MemoryStream();
-        using (var json = new Utf8JsonWriter(buffer))
-        {
-            json.WriteStartObject();
-            json.WriteString("type", "FeatureCollection");
-            json.WriteNumber("dry_cell_count", dryCells);
-            json.WriteStartArray("features");
-            var parts = Enumerable.Range(0, land?.NumGeometries ?? 0).Select(k => land!.GetGeometryN(k)).OfType<Polygon>().ToArray();
-            if (parts.Length > 0)
-            {
-                json.WriteStartObject();
-                json.WriteString("type", "Feature");
-                json.WriteStartObject("properties");
-                json.WriteString("kind", "land (dry cells)");
-                json.WriteEndObject();
-                json.WriteStartObject("geometry");
-                json.WriteString("type", "MultiPolygon");
-                json.WriteStartArray("coordinates");
-                foreach (var polygon in parts)
-                {
-                    json.WriteStartArray();
-                    // RFC 7946: exterior rings counter-clockwise, holes clockwise.
-                    WriteRing(json, polygon.Shell, counterClockwise: true);
-                    foreach (var hole in polygon.Holes) WriteRing(json, hole, counterClockwise: false);
-                    json.WriteEndArray();
-                }
-                json.WriteEndArray();
-                json.WriteEndObject();
-                json.WriteEndObject();
-            }
-            json.WriteEndArray();
-            json.WriteEndObject();
-        }
-        return buffer.ToArray();
-    }
-
-    private static void WriteRing(Utf8JsonWriter json, LinearRing ring, bool counterClockwise)
-    {
-        var points = ring.IsCCW == counterClockwise ? ring.Coordinates : ring.Coordinates.Reverse().ToArray();
-        json.WriteStartArray();
-        foreach (var p in points) LayerGeoJsonWriter.WritePosition(json, p.X, p.Y);
-        json.WriteEndArray();
+        var parts = Enumerable.Range(0, land?.NumGeometries ?? 0).Select(k => land!.GetGeometryN(k)).OfType<Polygon>().ToArray();
+        IFeature[] features = parts.Length == 0 ? [] : [new Feature(GeoJsonWriter.MultiPolygon(parts), new AttributesTable { { "kind", "land (dry cells)" } })];
+        return GeoJsonWriter.FeatureCollection(json => json.WriteNumber("dry_cell_count", dryCells), features);
     }
 }

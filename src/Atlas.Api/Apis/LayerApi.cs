@@ -1,10 +1,9 @@
+using Atlas.Api.Downloads;
 using Atlas.Api.Infrastructure;
 using Atlas.Api.Layers;
-using Atlas.Api.Model;
 using Atlas.Api.Vocabulary;
 using Atlas.Statistics;
 using Atlas.Storage.Queries;
-using Microsoft.AspNetCore.Http.HttpResults;
 using Microsoft.Extensions.Options;
 using Microsoft.Net.Http.Headers;
 
@@ -17,7 +16,8 @@ public static class LayerApi
     {
         var group = routes.MapGroup("/api/v1/datasets/{slug}/layers").WithTags("Layers");
         group.MapGet("/", ListAsync).WithName("ListLayers")
-            .WithSummary("The parameter x statistic x period combinations a dataset has, with units and percentile bin widths");
+            .WithSummary("The parameter x statistic x period combinations a dataset has, with units and percentile bin widths")
+            .ProducesProblems(StatusCodes.Status404NotFound);
         group.MapGet("/{parameter}/{statistic}/{period}.{format}", DownloadAsync).WithName("DownloadLayer")
             .WithSummary("One layer as GeoTIFF, CSV, GeoJSON, NetCDF or a PNG figure")
             .WithDescription(
@@ -27,8 +27,10 @@ public static class LayerApi
                 "geojson (points, or cell footprints with ?geometry=polygon; provenance as a top-level member), nc (CF-1.8 NetCDF-4), " +
                 "png (a captioned map figure). Mesh and curvilinear datasets are drawn on a raster by linear interpolation in triangles. " +
                 "Responses carry an ETag and Cache-Control; send If-None-Match to revalidate. GeoTIFF downloads answer Range requests.")
-            .Produces(200, contentType: "image/tiff")
-            .RequireRateLimiting(RateLimits.Expensive);
+            .ProducesFile(LayerFormat.Tif.ContentType(), [.. Enum.GetValues<LayerFormat>().Skip(1).Select(f => f.ContentType())])
+            .Produces(StatusCodes.Status304NotModified)
+            .ProducesProblems(StatusCodes.Status404NotFound, StatusCodes.Status422UnprocessableEntity)
+            .RequireExpensiveLimit();
         return routes;
     }
 
@@ -48,7 +50,7 @@ public static class LayerApi
             .Select(g =>
             {
                 var periods = g.Select(c => c.Period).Order().Select(p => p.Name).ToArray();
-                var statistics = StatisticsOf(g.Key).Select(s => s.Name()).ToArray();
+                var statistics = ParameterCatalogue.StatisticsOf(g.Key).Select(s => s.Name()).ToArray();
                 double? binWidth = g.Key is WaveParameter.Dir or WaveParameter.D or WaveParameter.Depth ? null : options?.BinningFor(g.Key).BinWidth;
                 return new LayerParameterItem(g.Key.Symbol(), ParameterCatalogue.LongName(g.Key), g.Key.Unit(), statistics, periods, binWidth,
                     $"/api/v1/datasets/{slug}/layers/{g.Key.Symbol()}/{statistics[0]}/{periods[0]}.tif");
@@ -70,63 +72,33 @@ public static class LayerApi
             AtlasCaution.Text));
     }
 
-    /// <summary>
-    /// The statistics a parameter's layers have: all for summarised parameters; for dir the power-weighted mean, the
-    /// circular spread of directions (as sd), count and coverage; for d the period coefficient (as mean), count and
-    /// coverage; for depth the cell depth (as mean).
-    /// </summary>
-    public static IReadOnlyList<StatisticKind> StatisticsOf(WaveParameter parameter) => parameter switch
-    {
-        WaveParameter.Dir => [StatisticKind.Mean, StatisticKind.Sd, StatisticKind.Count, StatisticKind.Coverage],
-        WaveParameter.D => [StatisticKind.Mean, StatisticKind.Count, StatisticKind.Coverage],
-        WaveParameter.Depth => [StatisticKind.Mean],
-        _ => StatisticKindNames.All,
-    };
-
     public static async Task<Results<FileContentHttpResult, ProblemHttpResult, ValidationProblem>> DownloadAsync(
-        string slug, string parameter, string statistic, string period, string format, string? geometry,
-        HttpContext http, DatasetCatalog catalog, LayerRenderer renderer, IOptions<AtlasApiOptions> options, CancellationToken cancel)
+        string slug, [AsParameters] LayerDownloadRoute route, HttpContext http, DatasetCatalog catalog, LayerRenderer renderer,
+        IOptions<AtlasApiOptions> options, CancellationToken cancel)
     {
         var dataset = await catalog.FindAsync(slug, cancel);
         if (dataset is null) return ApiProblems.UnknownDataset(slug);
-        if (!WaveParameterNames.TryParse(parameter, out var p))
-            return ApiProblems.NotFound("Unknown parameter", VocabularyMessages.UnknownParameter(parameter));
-        if (!StatisticKindNames.TryParse(statistic, out var s))
-            return ApiProblems.NotFound("Unknown statistic", VocabularyMessages.UnknownStatistic(statistic));
-        if (!AtlasPeriod.TryParse(period, out var t))
-            return ApiProblems.NotFound("Unknown period", VocabularyMessages.UnknownPeriod(period));
-        if (!LayerFormats.TryParse(format, out var f))
-            return ApiProblems.NotFound("Unknown format", $"'.{format}' is not a layer format: use {string.Join(", ", LayerFormats.Extensions.Select(e => "." + e))}.");
-        if (!StatisticsOf(p).Contains(s))
-            return ApiProblems.NotFound("No such layer", $"{p.Symbol()} has no '{s.Name()}' layer: its layers are {string.Join(", ", StatisticsOf(p).Select(x => x.Name()))}.");
-        var polygons = false;
-        if (geometry is not null)
-        {
-            if (f != LayerFormat.GeoJson)
-                return TypedResults.ValidationProblem(new Dictionary<string, string[]> { ["geometry"] = ["geometry applies to .geojson downloads only; remove it."] });
-            if (geometry is not ("point" or "polygon"))
-                return TypedResults.ValidationProblem(new Dictionary<string, string[]> { ["geometry"] = [$"'{geometry}' is not a geometry: use point (cell centres, the default) or polygon (cell footprints)."] });
-            polygons = geometry == "polygon";
-        }
-
-        var request = new LayerRequest(p, s, t, f, polygons);
+        var errors = new QueryErrors();
+        var request = route.Read(errors, out var notFound);
+        if (notFound is not null) return notFound;
+        if (request is null) return TypedResults.ValidationProblem(errors);
         Storage.Queries.CachedLayer? layer;
         try
         {
             layer = await renderer.RenderAsync(dataset, request, cancel);
         }
-        catch (ArgumentException e) when (f is LayerFormat.Tif or LayerFormat.Nc or LayerFormat.Png)
+        catch (ArgumentException e) when (request.Format is LayerFormat.Tif or LayerFormat.Nc or LayerFormat.Png)
         {
             // A mesh whose valued nodes form no complete triangle cannot be drawn on a raster; the cell formats still work.
             return ApiProblems.Unprocessable("The layer cannot be drawn as a raster", $"{e.Message} Download it as .csv or .geojson instead.");
         }
         if (layer is null)
             return ApiProblems.NotFound("No statistics for this layer",
-                $"Dataset '{slug}' has no {s.Name()} of {p.Symbol()} for {t.Name}. GET /api/v1/datasets/{slug}/layers lists what it has; " +
+                $"Dataset '{slug}' has no {request.Statistic.Name()} of {request.Parameter.Symbol()} for {request.Period.Name}. GET /api/v1/datasets/{slug}/layers lists what it has; " +
                 "if it lists nothing, its statistics have not been computed yet (POST /api/v1/datasets/{slug}/jobs).");
         http.Response.Headers.CacheControl = $"public, max-age={options.Value.LayerCacheSeconds}";
         // Range requests let GIS clients read a Cloud Optimised GeoTIFF tile by tile.
         return TypedResults.File(layer.Content, layer.ContentType, request.FileName, entityTag: EntityTagHeaderValue.Parse(layer.ETag),
-            enableRangeProcessing: f == LayerFormat.Tif);
+            enableRangeProcessing: request.Format == LayerFormat.Tif);
     }
 }

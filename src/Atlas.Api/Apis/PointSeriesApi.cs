@@ -3,13 +3,11 @@ using System.Text.Json;
 using System.Text;
 using Atlas.Api.Downloads;
 using Atlas.Api.Infrastructure;
-using Atlas.Api.Model;
 using Atlas.Api.Points;
 using Atlas.Ingest.Series;
 using Atlas.Statistics;
 using Atlas.WavePhysics;
 using Atlas.Storage.Series;
-using Microsoft.AspNetCore.Http.HttpResults;
 using Microsoft.Extensions.Options;
 
 namespace Atlas.Api.Apis;
@@ -24,19 +22,19 @@ public static class PointSeriesApi
                 "lat, lon: degrees. from, to: calendar years, inclusive (default: the whole record when it is within the per-request " +
                 "limit of AtlasApiOptions:SeriesMaxYearsPerRequest years). format: csv (default; '#' header lines with provenance, units " +
                 "and the caution) or json. Missing steps are empty (csv) or null (json). j is computed per step at the cell depth.")
-            .Produces(200, contentType: "text/csv")
-            .RequireRateLimiting(RateLimits.Expensive);
+            .ProducesFile("text/csv", "application/json")
+            .ProducesProblems(StatusCodes.Status404NotFound, StatusCodes.Status422UnprocessableEntity)
+            .RequireExpensiveLimit();
 
     public static async Task<Results<PushStreamHttpResult, ProblemHttpResult, ValidationProblem>> SeriesAsync(
-        string slug, string? lat, string? lon, string? from, string? to, string? format,
+        string slug, [AsParameters] PointPosition at, [AsParameters] PointSeriesQuery query,
         PointLocator locator, DatasetCatalog catalog, SeriesStore series, ProvenanceBuilder provenance,
         IOptions<AtlasApiOptions> options, StatisticsOptions statistics, CancellationToken cancel)
     {
-        var errors = new Dictionary<string, string[]>();
-        var position = PointLocator.ParsePosition(lat, lon, errors);
-        var window = YearWindow.Parse(from, to, null, errors);
-        var csv = format is null or "csv";
-        if (!csv && format != "json") errors["format"] = [$"'{format}' is not a series format: use csv or json."];
+        var errors = new QueryErrors();
+        var position = at.Position(errors);
+        var window = at.Window(errors);
+        var csv = query.Csv(errors);
         if (errors.Count > 0 || position is null || window is null)
             return TypedResults.ValidationProblem(errors, title: "The series request has invalid query values");
 
@@ -59,7 +57,7 @@ public static class PointSeriesApi
         var depth = point.Nearest.Cell.DepthMetres is { } d ? d : double.NaN;
         var decoded = PointSeriesReader.Decode(chunks, timelines, depth);
         var source = await provenance.ForAsync(point.Dataset, cancel);
-        var cell = PointApi.CellOf(point);
+        var cell = point.Cell;
         var fileName = $"{slug}_series_{cell.Id}_{first}-{last}.{(csv ? "csv" : "json")}";
         return TypedResults.Stream(
             stream => csv ? WriteCsvAsync(stream, decoded, statistics.AssumedSpectrum, cell, source, first, last, cancel)
@@ -106,13 +104,13 @@ public static class PointSeriesApi
         await using var json = new Utf8JsonWriter(buffer);
         json.WriteStartObject();
         json.WritePropertyName("cell");
-        JsonSerializer.Serialize(json, cell, GeoJsonSerialisation.Options);
+        JsonSerializer.Serialize(json, cell, GeoJsonWriter.Options);
         json.WriteNumber("from_year", first);
         json.WriteNumber("to_year", last);
         json.WriteString("units", Units);
         json.WriteBoolean("te_from_tp", teFromTp);
         json.WritePropertyName("provenance");
-        JsonSerializer.Serialize(json, source, GeoJsonSerialisation.Options);
+        JsonSerializer.Serialize(json, source, GeoJsonWriter.Options);
         json.WriteString("caution", AtlasCaution.Text);
         json.WriteStartArray("steps");
         for (var i = 0; i < s.Times.Length; i++)

@@ -1,14 +1,10 @@
 using System.Globalization;
 using System.Text.Json;
 using System.Text;
-using Atlas.Api.Infrastructure;
-using Atlas.Api.Model;
 using Atlas.Api.Points;
-using Atlas.Api.Vocabulary;
 using Atlas.Ingest.Series;
 using Atlas.Statistics;
 using Atlas.Storage.Series;
-using Microsoft.AspNetCore.Http.HttpResults;
 using Microsoft.AspNetCore.Http.Json;
 using Microsoft.Extensions.Options;
 
@@ -17,8 +13,6 @@ namespace Atlas.Api.Apis;
 /// <summary><c>GET /api/v1/datasets/{slug}/point</c>: exact statistics from the stored series of the nearest wet cell.</summary>
 public static class PointStatisticsApi
 {
-    public static readonly string[] Parts = ["exceedance", "joint", "rose", "interannual"];
-
     public static RouteHandlerBuilder MapPointStatistics(this RouteGroupBuilder group) =>
         group.MapGet("/point", PointAsync).WithName("PointStatistics")
             .WithSummary("Exact statistics of every parameter at the wet cell nearest a position")
@@ -36,25 +30,21 @@ public static class PointStatisticsApi
                 "distance_m) is the nearest wet cell, refused (422) beyond the distance limit or outside the extent. " +
                 "format=csv gives the period table after '#' lines of provenance, units and the caution.")
             .Produces<PointStatistics>(StatusCodes.Status200OK, "application/json", "text/csv")
-            .RequireRateLimiting(RateLimits.Expensive);
+            .Produces(StatusCodes.Status304NotModified)
+            .ProducesProblems(StatusCodes.Status404NotFound, StatusCodes.Status422UnprocessableEntity)
+            .RequireExpensiveLimit();
 
     public static async Task<Results<FileContentHttpResult, StatusCodeHttpResult, ProblemHttpResult, ValidationProblem>> PointAsync(
-        string slug, string? lat, string? lon, string? period, string? from, string? to, string? months, string? include, string? format,
+        string slug, [AsParameters] PointPosition at, [AsParameters] PointStatisticsQuery query,
         PointLocator locator, DatasetCatalog catalog, SeriesStore series, ProvenanceBuilder provenance, PointResponseCache responses,
         PointCalendars calendars, StatisticsOptions statisticsOptions, IOptions<JsonOptions> json, HttpContext http, CancellationToken cancel)
     {
-        var errors = new Dictionary<string, string[]>();
-        var position = PointLocator.ParsePosition(lat, lon, errors);
-        var window = YearWindow.Parse(from, to, months, errors);
-        AtlasPeriod? onlyPeriod = null;
-        if (period is not null && period != "all")
-        {
-            if (AtlasPeriod.TryParse(period, out var p)) onlyPeriod = p;
-            else errors["period"] = [VocabularyMessages.UnknownPeriod(period) + " all gives every period."];
-        }
-        var parts = ParseParts(include, errors);
-        var csv = format == "csv";
-        if (format is not (null or "json" or "csv")) errors["format"] = [$"'{format}' is not a point format: use json or csv."];
+        var errors = new QueryErrors();
+        var position = at.Position(errors);
+        var window = at.Window(errors, query.Months);
+        var onlyPeriod = query.OnePeriod(errors);
+        var parts = query.IncludedParts(errors);
+        var csv = query.Csv(errors);
         if (errors.Count > 0 || position is null || window is null || parts is null)
             return TypedResults.ValidationProblem(errors, title: "The point request has invalid query values");
 
@@ -92,7 +82,7 @@ public static class PointStatisticsApi
                 $"{onlyPeriod!.Value.Name} has no step{WindowText(window)} at cell {point.Nearest.Cell.CellId}; widen the window or choose another period."));
 
         var source = await provenance.ForAsync(point.Dataset, cancel);
-        var cell = PointApi.CellOf(point);
+        var cell = point.Cell;
         var units = WaveParameterNames.All.ToDictionary(p => p.Symbol(), p => p.Unit());
         if (csv) return new PointOutcome(Csv(slug, cell, window, periods, source), "text/csv; charset=utf-8", $"{slug}_point_{cell.Id}.csv", null);
 
@@ -120,7 +110,7 @@ public static class PointStatisticsApi
         return string.Join('|', "point", point.Dataset.Id, point.Dataset.CreatedAtUtc.Ticks, files.Token, computed.Token,
             position.Latitude.ToString("R", CultureInfo.InvariantCulture), position.Longitude.ToString("R", CultureInfo.InvariantCulture),
             point.Nearest.Cell.CellId, window.FromYear, window.ToYear, window.Months is { } m ? string.Join(',', m) : "",
-            onlyPeriod?.Name ?? "all", csv ? "csv" : string.Join(',', Parts.Where(parts.Contains)));
+            onlyPeriod?.Name ?? "all", csv ? "csv" : string.Join(',', PointStatisticsQuery.Parts.Where(parts.Contains)));
     }
 
     /// <summary>
@@ -159,23 +149,6 @@ public static class PointStatisticsApi
         DirectionStatistics.Sectors, DirectionStatistics.SectorWidthDegrees,
         Enumerable.Range(0, DirectionStatistics.Sectors).Select(k => k * DirectionStatistics.SectorWidthDegrees).ToArray(),
         direction.PowerRose);
-
-    private static HashSet<string>? ParseParts(string? include, Dictionary<string, string[]> errors)
-    {
-        if (include is null || include == "all") return [.. Parts];
-        if (include == "none") return [];
-        var parts = new HashSet<string>();
-        foreach (var part in include.Split(',', StringSplitOptions.TrimEntries | StringSplitOptions.RemoveEmptyEntries))
-        {
-            if (!Parts.Contains(part))
-            {
-                errors["include"] = [$"'{part}' is not a part: include takes {string.Join(", ", Parts)} (comma separated), all, or none."];
-                return null;
-            }
-            parts.Add(part);
-        }
-        return parts;
-    }
 
     private static readonly WaveParameter[] Summarised = [WaveParameter.Hs, WaveParameter.Te, WaveParameter.Tp, WaveParameter.J, WaveParameter.Spread, WaveParameter.D];
 

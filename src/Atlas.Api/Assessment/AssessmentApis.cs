@@ -1,7 +1,4 @@
-using Atlas.Api.Assessment;
-
-// In the Atlas.Api namespace so that the host maps these endpoints with one line and no extra using.
-namespace Atlas.Api;
+namespace Atlas.Api.Assessment;
 
 /// <summary>The assessment endpoints: stations and validation, devices and yield, weather windows, extremes, assessment layers.</summary>
 public static class AssessmentApis

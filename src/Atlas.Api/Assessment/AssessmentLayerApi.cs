@@ -1,10 +1,9 @@
-using Atlas.Api.Infrastructure;
+using Atlas.Api.Downloads;
 using Atlas.Assessment.Yield;
 using Atlas.Ingest.Assessment;
 using Atlas.Storage.Cells;
 using Atlas.Storage.Devices;
 using Atlas.Storage.Queries;
-using Microsoft.AspNetCore.Http.HttpResults;
 using Npgsql;
 
 namespace Atlas.Api.Assessment;
@@ -23,23 +22,23 @@ public static class AssessmentLayerApi
             .WithDescription("device: a stored device's slug. format: json, csv, geojson or tif (the annual energy on the grid). interpolation: " +
                              "bilinear (default) or nearest. Computed from every cell's exact series on first request (this takes a while for a " +
                              "large dataset), then served from the layer cache until the dataset's statistics are recomputed.")
-            .RequireRateLimiting(RateLimits.Expensive);
+            .ProducesLayerFiles()
+            .RequireExpensiveLimit();
         group.MapGet("/accessibility.{format}", AccessibilityAsync).WithName("AccessibilityLayer")
             .WithSummary("Share of time within access limits at every wet cell, or the probability of a window of a given length")
             .WithDescription("hs_max: the Hs limit, m. tp_max (optional): the Tp limit, s. hours (optional): a required window length; the value is " +
                              "then the probability that such a window starts at a random time. format: json, csv, geojson or tif. Cached like the yield layer.")
-            .RequireRateLimiting(RateLimits.Expensive);
+            .ProducesLayerFiles()
+            .RequireExpensiveLimit();
         return routes;
     }
 
     public static async Task<Results<FileContentHttpResult, ProblemHttpResult, ValidationProblem>> YieldAsync(
-        string slug, string device, string format, string? interpolation, DatasetCatalog catalog, CellStore cells, NpgsqlDataSource dataSource,
+        string slug, string device, string format, [AsParameters] YieldLayerQuery query, DatasetCatalog catalog, CellStore cells, NpgsqlDataSource dataSource,
         LayerCacheStore cache, ProvenanceBuilder provenance, CancellationToken cancel)
     {
-        var errors = new Dictionary<string, string[]>();
-        var reading = PowerMatrixInterpolation.Bilinear;
-        if (interpolation is "nearest") reading = PowerMatrixInterpolation.NearestBin;
-        else if (interpolation is not (null or "bilinear")) errors["interpolation"] = [$"'{interpolation}' is not a matrix interpolation: use bilinear or nearest."];
+        var errors = new QueryErrors();
+        var reading = MatrixInterpolationQuery.Read(query.Interpolation, errors);
         if (errors.Count > 0) return TypedResults.ValidationProblem(errors);
         if (!AssessmentLayerWriter.Formats.Contains(format)) return UnknownFormat(format);
         var dataset = await catalog.FindAsync(slug, cancel);
@@ -52,12 +51,12 @@ public static class AssessmentLayerApi
     }
 
     public static async Task<Results<FileContentHttpResult, ProblemHttpResult, ValidationProblem>> AccessibilityAsync(
-        string slug, string format, string? hs_max, string? tp_max, string? hours, DatasetCatalog catalog, CellStore cells, NpgsqlDataSource dataSource,
+        string slug, string format, [AsParameters] AccessLimitsQuery query, DatasetCatalog catalog, CellStore cells, NpgsqlDataSource dataSource,
         LayerCacheStore cache, ProvenanceBuilder provenance, CancellationToken cancel)
     {
-        var errors = new Dictionary<string, string[]>();
-        var limits = PointAssessmentApi.ParseLimits(hs_max, tp_max, errors);
-        var duration = PointAssessmentApi.Positive("hours", hours, "the window length in hours", errors, required: false);
+        var errors = new QueryErrors();
+        var limits = query.Limits(errors);
+        var duration = query.Duration("the window length in hours", errors, required: false);
         if (errors.Count > 0 || limits is null) return TypedResults.ValidationProblem(errors, title: "The accessibility layer request has invalid query values");
         if (!AssessmentLayerWriter.Formats.Contains(format)) return UnknownFormat(format);
         var dataset = await catalog.FindAsync(slug, cancel);
@@ -85,6 +84,11 @@ public static class AssessmentLayerApi
             return ApiProblems.Unprocessable("No GeoTIFF for this grid", e.Message);
         }
     }
+
+    /// <summary>Declares the layer files (JSON, CSV, GeoJSON, GeoTIFF) and the 404 and 422 problems of an assessment layer.</summary>
+    private static RouteHandlerBuilder ProducesLayerFiles(this RouteHandlerBuilder endpoint) =>
+        endpoint.ProducesFile(AssessmentLayerWriter.ContentType("json"), [.. AssessmentLayerWriter.Formats.Skip(1).Select(AssessmentLayerWriter.ContentType)])
+            .ProducesProblems(StatusCodes.Status404NotFound, StatusCodes.Status422UnprocessableEntity);
 
     private static ProblemHttpResult UnknownFormat(string format) =>
         ApiProblems.NotFound("Unknown format", $"'.{format}' is not an assessment layer format: use {string.Join(", ", AssessmentLayerWriter.Formats.Select(f => "." + f))}.");

@@ -2,13 +2,13 @@ using System.Globalization;
 using System.Text.Json;
 using System.Text;
 using Atlas.Api.Downloads;
-using Atlas.Api.Model;
 using Atlas.Api.Rasters;
 using Atlas.Ingest.Assessment;
 using Atlas.Ingest.Validation;
 using Atlas.Storage.Cells;
 using Atlas.Storage.Datasets;
 using Atlas.Storage.Statistics;
+using NetTopologySuite.Features;
 
 namespace Atlas.Api.Assessment;
 
@@ -65,11 +65,8 @@ public static class AssessmentLayerWriter
 
     private static byte[] GeoJson(AssessmentLayer layer, IReadOnlyDictionary<int, CellRecord> cells, Provenance provenance, IReadOnlyList<string> validation, bool geo)
     {
-        using var buffer = new MemoryStream();
-        using (var json = new Utf8JsonWriter(buffer))
+        void Members(Utf8JsonWriter json)
         {
-            json.WriteStartObject();
-            if (geo) json.WriteString("type", "FeatureCollection");
             json.WriteStartObject("layer");
             json.WriteString("kind", layer.Kind);
             json.WriteString("title", layer.Title);
@@ -81,46 +78,32 @@ public static class AssessmentLayerWriter
             foreach (var column in layer.Columns) json.WriteString(column.Name, column.Unit);
             json.WriteEndObject();
             json.WriteEndObject();
-            json.WritePropertyName("provenance");
-            JsonSerializer.Serialize(json, provenance, GeoJsonSerialisation.Options);
+            GeoJsonWriter.WriteMember(json, "provenance", provenance);
             json.WriteString("caution", provenance.Caution);
-            json.WriteStartArray("validation");
-            foreach (var line in validation) json.WriteStringValue(line);
-            json.WriteEndArray();
-            json.WriteStartArray(geo ? "features" : "cells");
-            foreach (var (i, cell) in Valued(layer, cells))
-            {
-                json.WriteStartObject();
-                if (geo)
-                {
-                    json.WriteString("type", "Feature");
-                    json.WriteNumber("id", cell.CellId);
-                    json.WriteStartObject("geometry");
-                    json.WriteString("type", "Point");
-                    json.WritePropertyName("coordinates");
-                    LayerGeoJsonWriter.WritePosition(json, cell.Longitude, cell.Latitude);
-                    json.WriteEndObject();
-                    json.WriteStartObject("properties");
-                }
-                json.WriteNumber("cell_id", cell.CellId);
-                if (!geo)
-                {
-                    json.WriteNumber("lon", Math.Round(cell.Longitude, 7));
-                    json.WriteNumber("lat", Math.Round(cell.Latitude, 7));
-                }
-                json.WriteNumber("value", layer.Primary.Values[i]);
-                foreach (var column in layer.Columns)
-                    if (double.IsFinite(column.Values[i])) json.WriteNumber(column.Name, column.Values[i]);
-                    else json.WriteNull(column.Name);
-                if (cell.DepthMetres is { } depth) json.WriteNumber("depth_m", Math.Round(depth, 2));
-                else json.WriteNull("depth_m");
-                if (geo) json.WriteEndObject();
-                json.WriteEndObject();
-            }
-            json.WriteEndArray();
-            json.WriteEndObject();
+            GeoJsonWriter.WriteMember(json, "validation", validation);
         }
-        return buffer.ToArray();
+
+        // The GeoJSON features carry the cell as their point; the plain JSON rows carry its lon and lat instead.
+        AttributesTable Row(int i, CellRecord cell)
+        {
+            var row = new AttributesTable();
+            if (geo) row.Add(GeoJsonWriter.IdAttribute, cell.CellId);
+            row.Add("cell_id", cell.CellId);
+            if (!geo)
+            {
+                row.Add("lon", Math.Round(cell.Longitude, 7));
+                row.Add("lat", Math.Round(cell.Latitude, 7));
+            }
+            row.Add("value", layer.Primary.Values[i]);
+            foreach (var column in layer.Columns) row.Add(column.Name, double.IsFinite(column.Values[i]) ? column.Values[i] : null);
+            row.Add("depth_m", cell.DepthMetres is { } depth ? Math.Round(depth, 2) : null);
+            return row;
+        }
+
+        var rows = Valued(layer, cells).Select(x => (x.Cell, Row: Row(x.Index, x.Cell)));
+        return geo
+            ? GeoJsonWriter.FeatureCollection(Members, rows.Select(x => new Feature(GeoJsonWriter.Point(x.Cell.Longitude, x.Cell.Latitude), x.Row)))
+            : GeoJsonWriter.AttributeDocument(Members, "cells", rows.Select(x => x.Row));
     }
 
     /// <summary>The primary value on the dataset's regular grid (one pixel per cell); mesh and uneven grids are refused.</summary>

@@ -1,4 +1,3 @@
-using Atlas.Api.Infrastructure;
 using Atlas.Api.Points;
 using Atlas.Ingest.Validation;
 using Atlas.Storage.Cells;

@@ -1,10 +1,8 @@
-using Atlas.Api.Infrastructure;
-using Atlas.Assessment;
+using Atlas.Api.Data;
 using Atlas.Assessment.Yield;
+using Atlas.Assessment;
 using Atlas.Ingest.Assessment;
 using Atlas.Storage.Devices;
-using Atlas.Storage.Stations;
-using Microsoft.AspNetCore.Http.HttpResults;
 using Npgsql;
 
 namespace Atlas.Api.Assessment;
@@ -12,17 +10,12 @@ namespace Atlas.Api.Assessment;
 /// <summary><c>/api/v1/devices</c>: wave-energy converters' power matrices, for production estimates.</summary>
 public static class DeviceApi
 {
-    /// <summary>How a matrix is read between its bins, stated in every device and yield response.</summary>
-    public const string InterpolationNote =
-        "bilinear (default): power interpolated between the four surrounding bin centres, the outer centre's value held in the outer " +
-        "half bins; nearest: the value of the bin holding the sea state (a value on a bin edge belongs to the upper bin). Bin edges lie " +
-        "halfway between centres, the outer edges half a bin beyond the outer centres; sea states outside the matrix produce 0 kW and are counted.";
-
     public static IEndpointRouteBuilder MapDeviceApi(this IEndpointRouteBuilder routes)
     {
         var group = routes.MapGroup("/api/v1/devices").WithTags("Devices");
         group.MapGet("/", ListAsync).WithName("ListDevices").WithSummary("The stored device power matrices");
-        group.MapGet("/{device}", DescribeAsync).WithName("DescribeDevice").WithSummary("One device, by name or slug");
+        group.MapGet("/{device}", DescribeAsync).WithName("DescribeDevice").WithSummary("One device, by name or slug")
+            .ProducesProblems(StatusCodes.Status404NotFound);
         group.MapPost("/", AddAsync).WithName("AddDevice")
             .WithSummary("Store a device power matrix (needs X-Api-Key)")
             .WithDescription(
@@ -31,16 +24,16 @@ public static class DeviceApi
                 "hs_m\\te_s or hs_m\\tp_s; the rest of the first line are period bin centres (s), the first column Hs bin centres (m), the body " +
                 "power in kW. Bins must strictly increase, power be finite and at or above 0 and not 0 everywhere; every problem is reported " +
                 "with its line and column and nothing is stored.")
-            .Accepts<IFormFile>("multipart/form-data", "text/csv")
-            .AddEndpointFilter<ApiKeyFilter>();
+            .AcceptsUpload<DeviceRegistered>("text/csv");
         group.MapDelete("/{device}", DeleteAsync).WithName("DeleteDevice")
             .WithSummary("Remove a device (needs X-Api-Key)")
-            .AddEndpointFilter<ApiKeyFilter>();
+            .ProducesProblems(StatusCodes.Status404NotFound)
+            .RequireApiKey();
         return routes;
     }
 
     public static async Task<Ok<DeviceList>> ListAsync(NpgsqlDataSource dataSource, CancellationToken cancel) =>
-        TypedResults.Ok(new DeviceList([.. (await new DeviceStore(dataSource).ListAsync(cancel)).Select(DeviceItem.From)], InterpolationNote, AtlasCaution.Text));
+        TypedResults.Ok(new DeviceList([.. (await new DeviceStore(dataSource).ListAsync(cancel)).Select(DeviceItem.From)], MatrixInterpolationQuery.Note, AtlasCaution.Text));
 
     public static async Task<Results<Ok<DeviceItem>, ProblemHttpResult>> DescribeAsync(string device, NpgsqlDataSource dataSource, CancellationToken cancel) =>
         await new DeviceStore(dataSource).FindAsync(device, cancel) is { } found ? TypedResults.Ok(DeviceItem.From(found)) : ApiProblems.UnknownDevice(device);
@@ -49,11 +42,8 @@ public static class DeviceApi
     {
         var (upload, problem) = await UploadReader.ReadAsync(request, "power-matrix.csv", cancel);
         if (upload is null) return problem!;
-        var errors = new Dictionary<string, string[]>();
-        var name = upload.Field("name")?.Trim();
-        var slug = name is null ? null : ReferenceSlug.From(name);
-        if (name is null) errors["name"] = ["name is required: the device's name, your own."];
-        else if (slug is null) errors["name"] = [$"name '{name}' needs at least one letter or digit."];
+        var errors = new QueryErrors();
+        var name = upload.Name("device's", errors);
         var rated = upload.Number("rated_kw", double.Epsilon, 1e9, "the rated power in kW, above 0", errors, required: false);
         if (errors.Count > 0) return TypedResults.ValidationProblem(errors, title: "The device description has invalid fields");
 
@@ -62,12 +52,11 @@ public static class DeviceApi
         {
             var loaded = await new DeviceLoader(dataSource).LoadAsync(name!, upload.Content, upload.FileName, rated, cancel);
             var result = new DeviceRegistered(DeviceItem.From(loaded.Device), loaded.AlreadyRegistered, AtlasCaution.Text);
-            return loaded.AlreadyRegistered ? TypedResults.Ok(result) : TypedResults.Created($"/api/v1/devices/{loaded.Device.Slug}", result);
+            return Upload.Registered(loaded.AlreadyRegistered, $"/api/v1/devices/{loaded.Device.Slug}", result);
         }
         catch (CsvInputException e)
         {
-            return TypedResults.ValidationProblem(new Dictionary<string, string[]> { ["file"] = [.. e.Errors.Select(x => x.ToString())] },
-                title: $"The power matrix {upload.FileName} has {e.Errors.Count} {(e.Errors.Count == 1 ? "error" : "errors")}; nothing was stored");
+            return upload.Refused("power matrix", [.. e.Errors.Select(x => x.ToString())], "error");
         }
         catch (ArgumentOutOfRangeException e)
         {
@@ -75,7 +64,7 @@ public static class DeviceApi
         }
         catch (DuplicateDeviceException e)
         {
-            return TypedResults.Problem(statusCode: 409, title: "The device conflicts with a stored one", detail: e.Message);
+            return ApiProblems.Conflict("The device conflicts with a stored one", e.Message);
         }
     }
 

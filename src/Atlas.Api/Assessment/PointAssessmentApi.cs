@@ -1,11 +1,8 @@
-using Atlas.Api.Apis;
-using Atlas.Api.Infrastructure;
-using Atlas.Api.Model;
 using Atlas.Api.Points;
-using Atlas.Assessment;
 using Atlas.Assessment.Access;
 using Atlas.Assessment.Extremes;
 using Atlas.Assessment.Yield;
+using Atlas.Assessment;
 using Atlas.Ingest.Assessment;
 using Atlas.Ingest.Series;
 using Atlas.Ingest.Validation;
@@ -13,7 +10,6 @@ using Atlas.Statistics;
 using Atlas.Storage.Devices;
 using Atlas.Storage.Series;
 using Atlas.WavePhysics;
-using Microsoft.AspNetCore.Http.HttpResults;
 using Npgsql;
 
 namespace Atlas.Api.Assessment;
@@ -33,14 +29,16 @@ public static class PointAssessmentApi
                 "lat, lon: degrees. device: a stored device's name or slug. interpolation: bilinear (default) or nearest. from, to: calendar years " +
                 "(inclusive). Mean annual energy (MWh/yr), capacity factor, production per calendar month and per year with the inter-annual " +
                 "coefficient of variation, and the share of time the sea state lies outside the matrix (counted at 0 kW).")
-            .RequireRateLimiting(RateLimits.Expensive);
+            .ProducesProblems(StatusCodes.Status404NotFound, StatusCodes.Status422UnprocessableEntity)
+            .RequireExpensiveLimit();
         group.MapGet("/windows", WindowsAsync).WithName("PointWindows")
             .WithSummary("Weather windows for access limits at the wet cell nearest a position")
             .WithDescription(
                 "lat, lon: degrees. hs_max: the Hs limit, m. tp_max (optional): the Tp limit, s. hours: the duration an operation needs. from, to: " +
                 "calendar years. Per calendar month: the probability that a window starts at a random time, the mean number of windows, the mean " +
                 "waiting time for the next window start; calm and storm spell persistence; the share of time within limits.")
-            .RequireRateLimiting(RateLimits.Expensive);
+            .ProducesProblems(StatusCodes.Status404NotFound, StatusCodes.Status422UnprocessableEntity)
+            .RequireExpensiveLimit();
         group.MapGet("/extremes", ExtremesAsync).WithName("PointExtremes")
             .WithSummary("Extreme Hs return levels at the wet cell nearest a position")
             .WithDescription(
@@ -48,12 +46,13 @@ public static class PointAssessmentApi
                 "storm peaks), or both when left out. threshold (m) or threshold_quantile (default 0.99) and separation_hours (default 48) for " +
                 "peaks over threshold. Return levels for 1, 5, 10, 50 and 100 years with 95 % profile-likelihood intervals, the fit against the " +
                 "data (probability-plot points) and cautions, strongest first in strong_caution when the record is short for the return period.")
-            .RequireRateLimiting(RateLimits.Expensive);
+            .ProducesProblems(StatusCodes.Status404NotFound, StatusCodes.Status422UnprocessableEntity)
+            .RequireExpensiveLimit();
         return routes;
     }
 
-    /// <summary>A located point with its series over the asked years.</summary>
-    private sealed record PointContext(LocatedPoint Point, PointCell Cell, PointSeries Series, YearWindow Window);
+    /// <summary>A located point with its series over the asked years, and its Hs on regular steps (every analysis uses them).</summary>
+    private sealed record PointContext(LocatedPoint Point, PointCell Cell, PointSeries Series, YearWindow Window, RegularSeries Hs);
 
     private static async Task<(PointContext? Context, ProblemHttpResult? Problem)> ReadAsync(string slug, (double Latitude, double Longitude) position,
         YearWindow window, PointLocator locator, DatasetCatalog catalog, SeriesStore series, CancellationToken cancel)
@@ -66,34 +65,36 @@ public static class PointAssessmentApi
             return (null, ApiProblems.Unprocessable("Too little series in the window",
                 $"Cell {point.Nearest.Cell.CellId} of '{slug}' has {decoded.Times.Length} stored step(s) in the years asked; stored years are " +
                 $"{(timelines.Count == 0 ? "none" : $"{timelines.Keys.First()}..{timelines.Keys.Last()}")}."));
-        return (new PointContext(point, PointApi.CellOf(point), decoded, window), null);
+        var (hs, irregular) = Regular(slug, decoded, decoded.Hs);
+        return hs is null ? (null, irregular) : (new PointContext(point, point.Cell, decoded, window, hs), null);
     }
 
     /// <summary>The values on regular steps, or the problem when the dataset's time line has no common step.</summary>
-    private static (RegularSeries? Series, ProblemHttpResult? Problem) Regular(PointContext context, float[] values)
+    private static (RegularSeries? Series, ProblemHttpResult? Problem) Regular(PointContext context, float[] values) =>
+        Regular(context.Point.Dataset.Slug, context.Series, values);
+
+    private static (RegularSeries? Series, ProblemHttpResult? Problem) Regular(string slug, PointSeries series, float[] values)
     {
         try
         {
-            return (AssessmentSeries.Regular(context.Series.Times, values), null);
+            return (AssessmentSeries.Regular(series.Times, values), null);
         }
         catch (ArgumentException e)
         {
             return (null, ApiProblems.Unprocessable("The time line is not regular",
-                $"The analyses need steps on a common interval, but the time line of '{context.Point.Dataset.Slug}' is not: {e.Message.Split(" (Parameter")[0]}"));
+                $"The analyses need steps on a common interval, but the time line of '{slug}' is not: {e.Message.Split(" (Parameter")[0]}"));
         }
     }
 
     public static async Task<Results<Ok<PointYield>, ProblemHttpResult, ValidationProblem>> YieldAsync(
-        string slug, string? lat, string? lon, string? device, string? interpolation, string? from, string? to,
+        string slug, [AsParameters] PointPosition at, [AsParameters] PointYieldQuery query,
         PointLocator locator, DatasetCatalog catalog, SeriesStore series, NpgsqlDataSource dataSource, ProvenanceBuilder provenance, CancellationToken cancel)
     {
-        var errors = new Dictionary<string, string[]>();
-        var position = PointLocator.ParsePosition(lat, lon, errors);
-        var window = YearWindow.Parse(from, to, null, errors);
-        if (string.IsNullOrWhiteSpace(device)) errors["device"] = ["device is required: a stored device's name or slug (GET /api/v1/devices)."];
-        var reading = PowerMatrixInterpolation.Bilinear;
-        if (interpolation is "nearest") reading = PowerMatrixInterpolation.NearestBin;
-        else if (interpolation is not (null or "bilinear")) errors["interpolation"] = [$"'{interpolation}' is not a matrix interpolation: use bilinear or nearest."];
+        var errors = new QueryErrors();
+        var position = at.Position(errors);
+        var window = at.Window(errors);
+        var device = query.DeviceName(errors);
+        var reading = MatrixInterpolationQuery.Read(query.Interpolation, errors);
         if (errors.Count > 0 || position is null || window is null) return TypedResults.ValidationProblem(errors, title: "The yield request has invalid query values");
 
         if (await new DeviceStore(dataSource).FindAsync(device!, cancel) is not { } stored) return ApiProblems.UnknownDevice(device!);
@@ -101,11 +102,9 @@ public static class PointAssessmentApi
         if (context is null) return problem!;
         var (period, periodSource) = PeriodFor(stored.AxisKind, context.Series);
         if (period is null) return ApiProblems.Unprocessable("No wave period stored", $"Dataset '{slug}' stores neither Te nor Tp, so no device production can be computed.");
-        var (hs, hsProblem) = Regular(context, context.Series.Hs);
-        if (hs is null) return hsProblem!;
         var (regularPeriod, _) = Regular(context, period);
         var matrix = DeviceMatrices.ToPowerMatrix(stored);
-        var result = DeviceYield.FromSeries(matrix, hs, regularPeriod!, matrix.PeriodKind, new YieldOptions { Interpolation = reading });
+        var result = DeviceYield.FromSeries(matrix, context.Hs, regularPeriod!, matrix.PeriodKind, new YieldOptions { Interpolation = reading });
         var summary = new DeviceSummary(stored.Name, stored.Slug, DeviceStore.AxisName(stored.AxisKind), stored.RatedPowerKw);
         return TypedResults.Ok(PointYield.From(slug, context.Cell, summary, periodSource, window.FromYear, window.ToYear, result,
             await provenance.ForAsync(context.Point.Dataset, cancel)));
@@ -133,14 +132,14 @@ public static class PointAssessmentApi
     }
 
     public static async Task<Results<Ok<PointWindows>, ProblemHttpResult, ValidationProblem>> WindowsAsync(
-        string slug, string? lat, string? lon, string? hs_max, string? tp_max, string? hours, string? from, string? to,
+        string slug, [AsParameters] PointPosition at, [AsParameters] AccessLimitsQuery query,
         PointLocator locator, DatasetCatalog catalog, SeriesStore series, ProvenanceBuilder provenance, CancellationToken cancel)
     {
-        var errors = new Dictionary<string, string[]>();
-        var position = PointLocator.ParsePosition(lat, lon, errors);
-        var window = YearWindow.Parse(from, to, null, errors);
-        var limits = ParseLimits(hs_max, tp_max, errors);
-        var duration = Positive("hours", hours, "the duration the operation needs, in hours", errors, required: true);
+        var errors = new QueryErrors();
+        var position = at.Position(errors);
+        var window = at.Window(errors);
+        var limits = query.Limits(errors);
+        var duration = query.Duration("the duration the operation needs, in hours", errors, required: true);
         if (errors.Count > 0 || position is null || window is null || limits is null || duration is null)
             return TypedResults.ValidationProblem(errors, title: "The windows request has invalid query values");
 
@@ -148,61 +147,35 @@ public static class PointAssessmentApi
         if (context is null) return problem!;
         if (limits.TpLimitSeconds is not null && !context.Series.HasTp)
             return ApiProblems.Unprocessable("No Tp stored", $"Dataset '{slug}' stores no peak period, so a Tp limit cannot be applied; leave tp_max out.");
-        var (hs, hsProblem) = Regular(context, context.Series.Hs);
-        if (hs is null) return hsProblem!;
+        var hs = context.Hs;
         var tp = limits.TpLimitSeconds is null ? null : Regular(context, context.Series.Tp).Series;
         var result = WeatherWindowAnalysis.Analyse(hs, tp, limits, duration.Value);
         return TypedResults.Ok(PointWindows.From(slug, context.Cell, window.FromYear, window.ToYear, result, await provenance.ForAsync(context.Point.Dataset, cancel)));
     }
 
-    /// <summary>Access limits from hs_max (required) and tp_max (optional), or null with errors.</summary>
-    public static AccessLimits? ParseLimits(string? hsMax, string? tpMax, Dictionary<string, string[]> errors)
-    {
-        var hs = Positive("hs_max", hsMax, "the Hs limit in metres", errors, required: true);
-        var tp = Positive("tp_max", tpMax, "the Tp limit in seconds", errors, required: false);
-        return hs is { } h && !errors.ContainsKey("tp_max") ? new AccessLimits(h, tp) : null;
-    }
-
-    public static double? Positive(string name, string? text, string meaning, Dictionary<string, string[]> errors, bool required) =>
-        QueryNumbers.Read(name, text, meaning, errors, required, min: 0, aboveMin: true);
-
     public static async Task<Results<Ok<PointExtremes>, ProblemHttpResult, ValidationProblem>> ExtremesAsync(
-        string slug, string? lat, string? lon, string? method, string? threshold, string? threshold_quantile, string? separation_hours,
-        string? from, string? to, PointLocator locator, DatasetCatalog catalog, SeriesStore series, ProvenanceBuilder provenance, CancellationToken cancel)
+        string slug, [AsParameters] PointPosition at, [AsParameters] PointExtremesQuery query,
+        PointLocator locator, DatasetCatalog catalog, SeriesStore series, ProvenanceBuilder provenance, CancellationToken cancel)
     {
-        var errors = new Dictionary<string, string[]>();
-        var position = PointLocator.ParsePosition(lat, lon, errors);
-        var window = YearWindow.Parse(from, to, null, errors);
-        if (method is not (null or "annual-maxima" or "peaks-over-threshold"))
-            errors["method"] = [$"'{method}' is not an extremes method: use annual-maxima or peaks-over-threshold (or leave it out for both)."];
-        var pot = new PeaksOverThresholdOptions();
-        if (Positive("threshold", threshold, "the Hs threshold in metres", errors, required: false) is { } u) pot = pot with { Threshold = u };
-        if (Positive("threshold_quantile", threshold_quantile, "the threshold as a quantile of Hs, between 0 and 1", errors, required: false) is { } q)
-        {
-            if (q >= 1) errors["threshold_quantile"] = [$"threshold_quantile {threshold_quantile} must be below 1 (e.g. 0.99)."];
-            else pot = pot with { ThresholdQuantile = q };
-        }
-        if (separation_hours is not null)
-        {
-            if (!QueryNumbers.TryParse(separation_hours, out var s) || s < 0)
-                errors["separation_hours"] = [$"separation_hours '{separation_hours}' must be a number of hours at or above 0."];
-            else pot = pot with { SeparationHours = s };
-        }
+        var errors = new QueryErrors();
+        var position = at.Position(errors);
+        var window = at.Window(errors);
+        var method = query.OneMethod(errors);
+        var pot = query.PeaksOptions(errors);
         if (errors.Count > 0 || position is null || window is null) return TypedResults.ValidationProblem(errors, title: "The extremes request has invalid query values");
 
         var (context, problem) = await ReadAsync(slug, position.Value, window, locator, catalog, series, cancel);
         if (context is null) return problem!;
-        var (hs, hsProblem) = Regular(context, context.Series.Hs);
-        if (hs is null) return hsProblem!;
+        var hs = context.Hs;
 
         AnnualMaximaExtremes? annual = null;
         PeaksOverThresholdExtremes? peaks = null;
-        if (method is null or "annual-maxima")
+        if (method is null or PointExtremesQuery.AnnualMaxima)
         {
             annual = AnnualMaximaOf(hs);
             if (!annual.Available && method is not null) return ApiProblems.Unprocessable("Annual maxima cannot be fitted", annual.Reason!);
         }
-        if (method is null or "peaks-over-threshold")
+        if (method is null or PointExtremesQuery.PeaksOverThreshold)
         {
             peaks = PeaksOf(hs, pot);
             if (!peaks.Available && method is not null) return ApiProblems.Unprocessable("Peaks over threshold cannot be fitted", peaks.Reason!);

@@ -1,4 +1,3 @@
-using Atlas.Api.Model;
 using Atlas.Assessment.Access;
 using Atlas.Assessment.Extremes;
 using Atlas.Assessment.Yield;
@@ -23,12 +22,12 @@ public sealed record PointYield(
 {
     public static PointYield From(string dataset, PointCell cell, DeviceSummary device, string periodSource, int? fromYear, int? toYear,
         SeriesYield y, Provenance provenance) => new(
-        dataset, cell, device, y.Interpolation == PowerMatrixInterpolation.Bilinear ? "bilinear" : "nearest", DeviceApi.InterpolationNote, periodSource,
+        dataset, cell, device, MatrixInterpolationQuery.Name(y.Interpolation), MatrixInterpolationQuery.Note, periodSource,
         fromYear, toYear, SkillRow.Finite(y.AnnualEnergyMwh), SkillRow.Finite(y.MeanPowerKw), SkillRow.Finite(y.CapacityFactor), SkillRow.Finite(y.OutsideMatrixFraction),
         y.Steps, y.ValidSteps, y.MissingSteps, y.OutsideMatrixSteps,
         [.. y.Months.Select(m => new MonthlyYieldRow(m.Month, m.ValidSteps, SkillRow.Finite(m.MeanPowerKw), SkillRow.Finite(m.MeanEnergyMwh)))],
         [.. y.Years.Select(a => new YearlyYieldRow(a.Year, a.ValidSteps, a.Coverage, SkillRow.Finite(a.MeanPowerKw), SkillRow.Finite(a.EnergyMwh), a.IsComplete))],
-        SkillRow.Finite(y.InterannualCoefficientOfVariation), y.CompleteYears, YieldMethod, provenance, Atlas.Api.Infrastructure.AtlasCaution.Text);
+        SkillRow.Finite(y.InterannualCoefficientOfVariation), y.CompleteYears, YieldMethod, provenance, AtlasCaution.Text);
 
     public const string YieldMethod = DeviceYield.MethodNote;
 }
@@ -58,7 +57,7 @@ public sealed record PointWindows(
         [.. r.Months.Select(m => new MonthlyWindowRow(m.Month, m.Steps, m.DeterminedSteps, m.WindowStartSteps, SkillRow.Finite(m.WindowStartProbability), m.WindowCount,
             m.EquivalentMonths, SkillRow.Finite(m.MeanWindowsPerMonth), m.WaitingSamples, SkillRow.Finite(m.MeanWaitingHours), SkillRow.Finite(m.Accessibility.Fraction)))],
         SpellRow.From(r.CalmSpells), SpellRow.From(r.StormSpells), SkillRow.Finite(r.Accessibility.Fraction), WindowMethod, provenance,
-        Atlas.Api.Infrastructure.AtlasCaution.Text);
+        AtlasCaution.Text);
 
     public const string WindowMethod = WeatherWindowAnalysis.MethodNote;
 }

@@ -1,11 +1,10 @@
-using Atlas.Api.Infrastructure;
-using Atlas.Assessment;
+using Atlas.Api.Data;
 using Atlas.Assessment.Validation;
+using Atlas.Assessment;
 using Atlas.Hindcast.Stations;
 using Atlas.Ingest.Assessment;
 using Atlas.Ingest.Validation;
 using Atlas.Storage.Stations;
-using Microsoft.AspNetCore.Http.HttpResults;
 using Npgsql;
 
 namespace Atlas.Api.Assessment;
@@ -17,7 +16,8 @@ public static class StationApi
     {
         var group = routes.MapGroup("/api/v1/stations").WithTags("Stations");
         group.MapGet("/", ListAsync).WithName("ListStations").WithSummary("The registered measuring stations");
-        group.MapGet("/{station}", DescribeAsync).WithName("DescribeStation").WithSummary("One station, by name or slug");
+        group.MapGet("/{station}", DescribeAsync).WithName("DescribeStation").WithSummary("One station, by name or slug")
+            .ProducesProblems(StatusCodes.Status404NotFound);
         group.MapPost("/", AddAsync).WithName("AddStation")
             .WithSummary("Register a station with its record (needs X-Api-Key)")
             .WithDescription(
@@ -28,11 +28,11 @@ public static class StationApi
                 "as flagged); or a CF-NetCDF point time series (featureType timeSeries), whose stated position may replace lat and lon. " +
                 "Every bad row is reported with its line number (or variable and index) and nothing is stored. Loading the same file under the same name " +
                 "again changes nothing (200); a new station answers 201.")
-            .Accepts<IFormFile>("multipart/form-data", "text/csv", "application/x-netcdf")
-            .AddEndpointFilter<ApiKeyFilter>();
+            .AcceptsUpload<StationRegistered>("text/csv", "application/x-netcdf");
         group.MapDelete("/{station}", DeleteAsync).WithName("DeleteStation")
             .WithSummary("Remove a station and its record (needs X-Api-Key)")
-            .AddEndpointFilter<ApiKeyFilter>();
+            .ProducesProblems(StatusCodes.Status404NotFound)
+            .RequireApiKey();
         return routes;
     }
 
@@ -47,19 +47,16 @@ public static class StationApi
         var (upload, problem) = await UploadReader.ReadAsync(request, "station.csv", cancel);
         if (upload is null) return problem!;
 
-        var errors = new Dictionary<string, string[]>();
-        var name = upload.Field("name")?.Trim();
-        var slug = name is null ? null : ReferenceSlug.From(name);
-        if (name is null) errors["name"] = ["name is required: the station's name, your own."];
-        else if (slug is null) errors["name"] = [$"name '{name}' needs at least one letter or digit."];
+        var errors = new QueryErrors();
+        var name = upload.Name("station's", errors);
         // A CF-NetCDF record may state the station position itself; a CSV record cannot.
         var positionRequired = !StationFileReader.IsNetCdf(upload.Content);
         var latitude = upload.Number("lat", -90, 90, "the latitude in degrees north, -90..90", errors, required: positionRequired);
         var longitude = upload.Number("lon", -180, 180, "the longitude in degrees east, -180..180", errors, required: positionRequired);
         var depth = upload.Number("depth_m", 0, StationLoader.MaximumDepthMetres, "the water depth in metres, above 0", errors, required: false);
-        if (depth is 0) errors["depth_m"] = ["depth_m must be above 0 m; leave it out when unknown."];
+        if (depth is 0) errors.Add("depth_m", "depth_m must be above 0 m; leave it out when unknown.");
         var instrument = upload.Field("instrument")?.Trim();
-        if (instrument is null) errors["instrument"] = ["instrument is required: the kind of instrument (e.g. directional wave buoy)."];
+        if (instrument is null) errors.Add("instrument", "instrument is required: the kind of instrument (e.g. directional wave buoy).");
         if (!StationStore.TryParseRole(upload.Field("role"), out var role))
             errors["role"] = [$"role {(upload.Field("role") is { } r ? $"'{r}' " : "")}must be calibration (used to tune the hindcast) or validation (kept aside)."];
         if (errors.Count > 0) return TypedResults.ValidationProblem(errors, title: "The station description has invalid fields");
@@ -70,17 +67,15 @@ public static class StationApi
         {
             var loaded = await new StationLoader(dataSource).LoadAsync(described, upload.Content, cancel);
             var result = new StationRegistered(StationItem.From(loaded.Station), loaded.AlreadyRegistered, loaded.Content.MissingHsCount, AtlasCaution.Text);
-            return loaded.AlreadyRegistered ? TypedResults.Ok(result) : TypedResults.Created($"/api/v1/stations/{loaded.Station.Slug}", result);
+            return Upload.Registered(loaded.AlreadyRegistered, $"/api/v1/stations/{loaded.Station.Slug}", result);
         }
         catch (CsvInputException e)
         {
-            return TypedResults.ValidationProblem(new Dictionary<string, string[]> { ["file"] = [.. e.Errors.Select(x => x.ToString())] },
-                title: $"The station record {upload.FileName} has {e.Errors.Count} {(e.Errors.Count == 1 ? "error" : "errors")}; nothing was stored");
+            return upload.Refused("station record", [.. e.Errors.Select(x => x.ToString())], "error");
         }
         catch (StationFileException e)
         {
-            return TypedResults.ValidationProblem(new Dictionary<string, string[]> { ["file"] = [.. e.Problems] },
-                title: $"The station record {upload.FileName} has {e.Problems.Count} {(e.Problems.Count == 1 ? "problem" : "problems")}; nothing was stored");
+            return upload.Refused("station record", e.Problems, "problem");
         }
         catch (ArgumentException e)
         {
@@ -99,7 +94,7 @@ public static class StationApi
         }
         catch (DuplicateStationException e)
         {
-            return TypedResults.Problem(statusCode: 409, title: "The station conflicts with a registered one", detail: e.Message);
+            return ApiProblems.Conflict("The station conflicts with a registered one", e.Message);
         }
     }
 

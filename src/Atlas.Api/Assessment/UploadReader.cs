@@ -1,4 +1,4 @@
-using Atlas.Api.Infrastructure;
+using Atlas.Storage.Stations;
 using Microsoft.AspNetCore.Http.Features;
 
 namespace Atlas.Api.Assessment;
@@ -9,8 +9,29 @@ public sealed record Upload(byte[] Content, string FileName, IReadOnlyDictionary
     public string? Field(string name) => Fields.TryGetValue(name, out var value) && value.Length > 0 ? value : null;
 
     /// <summary>A numeric field in [min, max]; null (with an error when required or unparsable) otherwise.</summary>
-    public double? Number(string name, double min, double max, string meaning, Dictionary<string, string[]> errors, bool required) =>
+    public double? Number(string name, double min, double max, string meaning, QueryErrors errors, bool required) =>
         QueryNumbers.Read(name, Field(name), meaning, errors, required, min, max);
+
+    /// <summary>The name field (required, with a letter or digit for its slug), or null with the fault.</summary>
+    /// <param name="owner">Whose name it is, as it reads after "the" (e.g. "station's").</param>
+    public string? Name(string owner, QueryErrors errors)
+    {
+        var name = Field("name")?.Trim();
+        if (name is null) errors.Add("name", $"name is required: the {owner} name, your own.");
+        else if (ReferenceSlug.From(name) is null) errors.Add("name", $"name '{name}' needs at least one letter or digit.");
+        return name;
+    }
+
+    /// <summary>The answer to a file with faults: each fault under <c>file</c>, and a title that says nothing was stored.</summary>
+    /// <param name="what">What the file is (e.g. "station record").</param>
+    /// <param name="kind">What a fault is called (error, problem).</param>
+    public ValidationProblem Refused(string what, IReadOnlyCollection<string> faults, string kind) =>
+        TypedResults.ValidationProblem(new Dictionary<string, string[]> { ["file"] = [.. faults] },
+            title: $"The {what} {FileName} has {faults.Count} {kind}{(faults.Count == 1 ? "" : "s")}; nothing was stored");
+
+    /// <summary>201 with the new reference's location, or 200 when the same file under the same name was stored already.</summary>
+    public static IResult Registered<T>(bool alreadyRegistered, string location, T result) =>
+        alreadyRegistered ? TypedResults.Ok(result) : TypedResults.Created(location, result);
 }
 
 /// <summary>
@@ -22,6 +43,19 @@ public static class UploadReader
 {
     /// <summary>The largest upload accepted, bytes: a decade of 10-minute buoy records as CSV is about 30 MB.</summary>
     public const long MaximumBytes = 64L << 20;
+
+    /// <summary>
+    /// Declares an upload endpoint: the file in the form part <c>file</c> or as the body of <paramref name="contentTypes"/>,
+    /// answered with 201 (new) or 200 (the same file again), 400 for faults, 409 for a conflict and 413 beyond the limit;
+    /// writing needs the API key.
+    /// </summary>
+    public static RouteHandlerBuilder AcceptsUpload<TRegistered>(this RouteHandlerBuilder endpoint, params string[] contentTypes) =>
+        endpoint.Accepts<IFormFile>("multipart/form-data", contentTypes)
+            .Produces<TRegistered>(StatusCodes.Status200OK)
+            .Produces<TRegistered>(StatusCodes.Status201Created)
+            .ProducesValidationProblem()
+            .ProducesProblems(StatusCodes.Status409Conflict, StatusCodes.Status413PayloadTooLarge)
+            .RequireApiKey();
 
     /// <summary>The upload, or the problem (400 without a file, 413 beyond the limit).</summary>
     public static async Task<(Upload? Upload, IResult? Problem)> ReadAsync(HttpRequest request, string defaultFileName, CancellationToken cancel)

@@ -1,14 +1,11 @@
 using System.Globalization;
 using System.Text;
-using Atlas.Api.Infrastructure;
-using Atlas.Api.Model;
 using Atlas.Api.Points;
 using Atlas.Assessment.Validation;
 using Atlas.Ingest.Validation;
 using Atlas.Storage.Datasets;
 using Atlas.Storage.Series;
 using Atlas.Storage.Stations;
-using Microsoft.AspNetCore.Http.HttpResults;
 using Npgsql;
 
 namespace Atlas.Api.Assessment;
@@ -31,26 +28,33 @@ public static class ValidationApi
                 "Each observation is paired with the nearest wet cell, linearly interpolated in time between the bracketing model steps within " +
                 "the tolerance (the larger of 1.5 h and the model step). role calibration/validation and independent say whether a station was " +
                 "used to tune the hindcast or kept aside. Stations outside the dataset are listed under not_covered.")
-            .RequireRateLimiting(RateLimits.Expensive);
+            .Produces<ValidationTable>(StatusCodes.Status200OK, "application/json", "text/csv")
+            .ProducesProblems(StatusCodes.Status404NotFound)
+            .RequireExpensiveLimit();
         dataset.MapGet("/{station}/pairs", PairsAsync).WithName("ValidationPairs")
             .WithSummary("Plot data at one station: matched pairs (scatter and time series), the 1:1 line, quantile pairs and the model series")
             .WithDescription("variable: hs (default), tp, te or dir. format: json (default) or csv (the pairs only, after '#' provenance lines). " +
                              "Quantiles are matched at probabilities 0.01..0.99 (Hyndman-Fan type 7, observed and modelled sorted separately).")
-            .RequireRateLimiting(RateLimits.Expensive);
+            .Produces<ValidationPlotData>(StatusCodes.Status200OK, "application/json", "text/csv")
+            .ProducesProblems(StatusCodes.Status404NotFound, StatusCodes.Status422UnprocessableEntity)
+            .RequireExpensiveLimit();
         routes.MapGet("/api/v1/validation/compare", CompareAsync).WithTags("Validation").WithName("ValidationComparison")
             .WithSummary("Several hindcast runs compared station by station, ranked by scatter index with bias shown")
             .WithDescription("datasets: two or more dataset slugs, comma separated. variable: hs (default), tp or te. Per station the runs are ranked " +
                              "by scatter index (1 = smallest); the ranking over all stations uses the mean scatter index of the stations each run covers.")
-            .RequireRateLimiting(RateLimits.Expensive);
+            .ProducesProblems(StatusCodes.Status404NotFound)
+            .RequireExpensiveLimit();
         return routes;
     }
 
     public static async Task<Results<Ok<ValidationTable>, FileContentHttpResult, ProblemHttpResult, ValidationProblem>> TableAsync(
-        string slug, string? station, string? format, DatasetCatalog catalog, ValidationService service,
+        string slug, [AsParameters] ValidationTableQuery query, DatasetCatalog catalog, ValidationService service,
         ProvenanceBuilder provenance, CancellationToken cancel)
     {
-        if (format is not (null or "json" or "csv"))
-            return TypedResults.ValidationProblem(new Dictionary<string, string[]> { ["format"] = [$"'{format}' is not a validation format: use json or csv."] });
+        var errors = new QueryErrors();
+        var csv = query.Csv(errors);
+        if (errors.Count > 0) return TypedResults.ValidationProblem(errors);
+        var station = query.Station;
         var dataset = await catalog.FindAsync(slug, cancel);
         if (dataset is null) return ApiProblems.UnknownDataset(slug);
         IReadOnlyList<StoredStation> stations;
@@ -62,19 +66,17 @@ public static class ValidationApi
         else stations = await service.Stations.ListAsync(cancel);
         var (covered, notCovered) = await service.AtStationsAsync(dataset, stations, cancel);
         var table = new ValidationTable(slug, covered, notCovered, await provenance.ForAsync(dataset, cancel), AtlasCaution.Text);
-        if (format == "csv") return TypedResults.File(ValidationCsv.Csv(table), "text/csv; charset=utf-8", $"{slug}_validation.csv");
+        if (csv) return TypedResults.File(ValidationCsv.Csv(table), "text/csv; charset=utf-8", $"{slug}_validation.csv");
         return TypedResults.Ok(table);
     }
 
     public static async Task<Results<Ok<ValidationPlotData>, FileContentHttpResult, ProblemHttpResult, ValidationProblem>> PairsAsync(
-        string slug, string station, string? variable, string? format, DatasetCatalog catalog, ValidationService service,
+        string slug, string station, [AsParameters] ValidationPairsQuery query, DatasetCatalog catalog, ValidationService service,
         ProvenanceBuilder provenance, CancellationToken cancel)
     {
-        var errors = new Dictionary<string, string[]>();
-        var wanted = WaveParameter.Hs;
-        if (variable is not null && !StationValidator.TryParse(variable, out wanted))
-            errors["variable"] = [$"'{variable}' is not a station variable: use hs, tp, te or dir."];
-        if (format is not (null or "json" or "csv")) errors["format"] = [$"'{format}' is not a pairs format: use json or csv."];
+        var errors = new QueryErrors();
+        var wanted = query.Compared(errors);
+        var csv = query.Csv(errors);
         if (errors.Count > 0) return TypedResults.ValidationProblem(errors, title: "The pairs request has invalid query values");
 
         var dataset = await catalog.FindAsync(slug, cancel);
@@ -92,7 +94,7 @@ public static class ValidationApi
         var skill = ValidationReporting.Skill(validation);
         var source = await provenance.ForAsync(dataset, cancel);
         var symbol = wanted.Symbol();
-        if (format == "csv") return TypedResults.File(PairsCsv(slug, skill, wanted, list, source), "text/csv; charset=utf-8", $"{slug}_{found.Slug}_{symbol}_pairs.csv");
+        if (csv) return TypedResults.File(PairsCsv(slug, skill, wanted, list, source), "text/csv; charset=utf-8", $"{slug}_{found.Slug}_{symbol}_pairs.csv");
 
         var quantiles = compared.Scalar is { } scalar
             ? scalar.Quantiles.Select(q => new QuantileRow(q.Probability, SkillRow.Finite(q.ObservedQuantile), SkillRow.Finite(q.ModelledQuantile))).ToArray()
@@ -102,15 +104,12 @@ public static class ValidationApi
     }
 
     public static async Task<Results<Ok<ValidationComparison>, ProblemHttpResult, ValidationProblem>> CompareAsync(
-        string? datasets, string? variable, DatasetCatalog catalog, ValidationService service,
+        [AsParameters] ValidationCompareQuery query, DatasetCatalog catalog, ValidationService service,
         ProvenanceBuilder provenance, CancellationToken cancel)
     {
-        var errors = new Dictionary<string, string[]>();
-        var slugs = (datasets ?? "").Split(',', StringSplitOptions.TrimEntries | StringSplitOptions.RemoveEmptyEntries).Distinct().ToArray();
-        if (slugs.Length < 2) errors["datasets"] = ["datasets needs two or more dataset slugs, comma separated (datasets=run-a,run-b)."];
-        var wanted = WaveParameter.Hs;
-        if (variable is not null && (!StationValidator.TryParse(variable, out wanted) || wanted == WaveParameter.Dir))
-            errors["variable"] = [$"'{variable}' cannot be ranked by scatter index: use hs, tp or te."];
+        var errors = new QueryErrors();
+        var slugs = query.Slugs(errors);
+        var wanted = query.Ranked(errors);
         if (errors.Count > 0) return TypedResults.ValidationProblem(errors, title: "The comparison request has invalid query values");
 
         var records = new List<DatasetRecord>();

@@ -1,6 +1,5 @@
 using System.Globalization;
 using System.Text;
-using Atlas.Api.Model;
 using Atlas.Ingest.Validation;
 
 namespace Atlas.Api.Assessment;

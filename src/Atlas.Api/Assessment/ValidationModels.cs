@@ -1,4 +1,3 @@
-using Atlas.Api.Model;
 using Atlas.Assessment.Validation;
 using Atlas.Ingest.Validation;
 using Atlas.Storage.Stations;

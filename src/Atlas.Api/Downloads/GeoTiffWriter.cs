@@ -78,7 +78,7 @@ public static class GeoTiffWriter
         if (main)
         {
             tiff.SetField(TiffTag.IMAGEDESCRIPTION, metadata.Description);
-            tiff.SetField(TiffTag.SOFTWARE, $"atlas {Infrastructure.ProvenanceBuilder.SoftwareVersion}");
+            tiff.SetField(TiffTag.SOFTWARE, $"atlas {Catalog.ProvenanceBuilder.SoftwareVersion}");
             tiff.SetField(TiffTag.DATETIME, generatedAtUtc.ToString("yyyy:MM:dd HH:mm:ss", CultureInfo.InvariantCulture));
             if (metadata.Licence is { } licence) tiff.SetField(TiffTag.COPYRIGHT, licence);
             tiff.SetField(ModelPixelScale, 3, new[] { level.PixelWidth, level.PixelHeight, 0.0 });

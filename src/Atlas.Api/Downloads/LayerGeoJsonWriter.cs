@@ -1,7 +1,9 @@
-using System.Text.Json;
 using Atlas.Api.Footprints;
 using Atlas.Api.Layers;
 using Atlas.Statistics;
+using Atlas.Storage.Statistics;
+using NetTopologySuite.Features;
+using NetTopologySuite.Geometries;
 
 namespace Atlas.Api.Downloads;
 
@@ -12,13 +14,9 @@ namespace Atlas.Api.Downloads;
 /// </summary>
 public static class LayerGeoJsonWriter
 {
-    public static byte[] Write(LayerData data, IReadOnlyDictionary<int, CellFootprint>? footprints)
-    {
-        using var buffer = new MemoryStream();
-        using (var json = new Utf8JsonWriter(buffer))
+    public static byte[] Write(LayerData data, IReadOnlyDictionary<int, CellFootprint>? footprints) =>
+        GeoJsonWriter.FeatureCollection(json =>
         {
-            json.WriteStartObject();
-            json.WriteString("type", "FeatureCollection");
             json.WriteStartObject("layer");
             json.WriteString("parameter", data.Request.Parameter.Symbol());
             json.WriteString("statistic", data.Request.Statistic.Name());
@@ -27,62 +25,21 @@ public static class LayerGeoJsonWriter
             json.WriteString("units", data.Units);
             json.WriteString("geometry", footprints is null ? "cell centre points" : "cell footprint polygons");
             json.WriteEndObject();
-            json.WritePropertyName("provenance");
-            JsonSerializer.Serialize(json, data.Provenance, GeoJsonSerialisation.Options);
+            GeoJsonWriter.WriteMember(json, "provenance", data.Provenance);
             json.WriteString("caution", data.Provenance.Caution);
-            json.WriteStartArray("features");
-            foreach (var v in data.Values)
-            {
-                json.WriteStartObject();
-                json.WriteString("type", "Feature");
-                json.WriteNumber("id", v.CellId);
-                json.WriteStartObject("geometry");
-                CellFootprint? footprint = null;
-                if (footprints is not null && footprints.TryGetValue(v.CellId, out var found)) footprint = found;
-                if (footprint is not null)
-                {
-                    json.WriteString("type", "Polygon");
-                    json.WriteStartArray("coordinates");
-                    json.WriteStartArray();
-                    // RFC 7946: exterior rings counter-clockwise.
-                    var ring = footprint.Polygon.Shell.IsCCW ? footprint.Polygon.Shell.Coordinates : footprint.Polygon.Shell.Coordinates.Reverse().ToArray();
-                    foreach (var p in ring) WritePosition(json, p.X, p.Y);
-                    json.WriteEndArray();
-                    json.WriteEndArray();
-                }
-                else
-                {
-                    json.WriteString("type", "Point");
-                    json.WritePropertyName("coordinates");
-                    WritePosition(json, v.Longitude, v.Latitude);
-                }
-                json.WriteEndObject();
-                json.WriteStartObject("properties");
-                json.WriteNumber("cell_id", v.CellId);
-                json.WriteNumber("value", Math.Round(v.Value, 6));
-                if (v.DepthMetres is { } depth) json.WriteNumber("depth_m", Math.Round(depth, 2));
-                else json.WriteNull("depth_m");
-                if (footprint is not null) json.WriteNumber("area_km2", Math.Round(footprint.SquareKilometres, 6));
-                json.WriteEndObject();
-                json.WriteEndObject();
-            }
-            json.WriteEndArray();
-            json.WriteEndObject();
-        }
-        return buffer.ToArray();
-    }
+        }, data.Values.Select(v => Feature(v, footprints is not null && footprints.TryGetValue(v.CellId, out var found) ? found : null)));
 
-    public static void WritePosition(Utf8JsonWriter json, double longitude, double latitude)
+    private static Feature Feature(LayerValue v, CellFootprint? footprint)
     {
-        json.WriteStartArray();
-        json.WriteNumberValue(Math.Round(longitude, 7));
-        json.WriteNumberValue(Math.Round(latitude, 7));
-        json.WriteEndArray();
+        var properties = new AttributesTable
+        {
+            { GeoJsonWriter.IdAttribute, v.CellId },
+            { "cell_id", v.CellId },
+            { "value", Math.Round(v.Value, 6) },
+            { "depth_m", v.DepthMetres is { } depth ? Math.Round(depth, 2) : null },
+        };
+        if (footprint is not null) properties.Add("area_km2", Math.Round(footprint.SquareKilometres, 6));
+        Geometry geometry = footprint is not null ? GeoJsonWriter.Shell(footprint.Polygon) : GeoJsonWriter.Point(v.Longitude, v.Latitude);
+        return new Feature(geometry, properties);
     }
-}
-
-/// <summary>The JSON conventions of the API (snake_case members), for documents written by hand.</summary>
-public static class GeoJsonSerialisation
-{
-    public static readonly JsonSerializerOptions Options = new() { PropertyNamingPolicy = JsonNamingPolicy.SnakeCaseLower };
 }

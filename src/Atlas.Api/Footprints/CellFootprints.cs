@@ -1,4 +1,3 @@
-using Atlas.Api.Infrastructure;
 using Atlas.Api.Rasters;
 using Atlas.Hindcast.Geodesy;
 using Atlas.Storage.Cells;

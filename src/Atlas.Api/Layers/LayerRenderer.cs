@@ -2,7 +2,6 @@ using System.Security.Cryptography;
 using Atlas.Api.Downloads;
 using Atlas.Api.Footprints;
 using Atlas.Api.Infrastructure;
-using Atlas.Api.Model;
 using Atlas.Api.Rasters;
 using Atlas.Api.Vocabulary;
 using Atlas.Statistics;

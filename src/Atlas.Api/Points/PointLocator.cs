@@ -1,29 +1,33 @@
 using Atlas.Api.Infrastructure;
+using Atlas.Statistics;
 using Atlas.Storage.Cells;
 using Atlas.Storage.Datasets;
-using Microsoft.AspNetCore.Http.HttpResults;
 using Microsoft.Extensions.Options;
 
 namespace Atlas.Api.Points;
 
 /// <summary>A position resolved to its dataset and nearest wet cell.</summary>
-public sealed record LocatedPoint(DatasetRecord Dataset, NearestCell Nearest, double LimitKilometres);
+public sealed record LocatedPoint(DatasetRecord Dataset, NearestCell Nearest, double LimitKilometres)
+{
+    /// <summary>The cell as point answers describe it.</summary>
+    public PointCell Cell
+    {
+        get
+        {
+            var c = Nearest.Cell;
+            // Depth and coast distance are stored as floats: written at their own precision, not their double expansion.
+            return new PointCell(c.CellId, c.Latitude, c.Longitude, c.DepthMetres is { } d ? DataPrecisionJsonConverter.Round(d) : null,
+                Math.Round(Nearest.DistanceMetres, 1), c.CoastDistanceMetres is { } k ? Math.Round(k, 1) : null);
+        }
+    }
+}
 
 /// <summary>
-/// Turns lat and lon query values into the nearest wet cell of a dataset, or into the problem that says what to
-/// fix: a missing or non-numeric coordinate, one off the globe, a position outside the dataset's extent, or one
-/// farther from every wet cell than the distance limit (a fixed km, or a multiple of the typical cell spacing).
+/// Turns a position into the nearest wet cell of a dataset, or into the problem that says what to fix: a position
+/// outside the dataset's extent, or one farther from every wet cell than the distance limit (a fixed km, or a multiple of the typical cell spacing).
 /// </summary>
 public sealed class PointLocator(DatasetCatalog catalog, CellStore cells, IOptions<AtlasApiOptions> options)
 {
-    /// <summary>Parses lat and lon into <paramref name="errors"/>; returns null when either is unusable.</summary>
-    public static (double Latitude, double Longitude)? ParsePosition(string? lat, string? lon, Dictionary<string, string[]> errors)
-    {
-        var latitude = Coordinate("lat", lat, 90, "latitude in degrees north, -90..90", errors);
-        var longitude = Coordinate("lon", lon, 180, "longitude in degrees east, -180..180", errors);
-        return latitude is { } y && longitude is { } x ? (y, x) : null;
-    }
-
     public async Task<(LocatedPoint? Point, ProblemHttpResult? Problem)> LocateAsync(string slug, double latitude, double longitude, CancellationToken cancel)
     {
         var dataset = await catalog.FindAsync(slug, cancel);
@@ -49,6 +53,4 @@ public sealed class PointLocator(DatasetCatalog catalog, CellStore cells, IOptio
 
     private static ProblemHttpResult Problem(ReachRefusal refusal) => ApiProblems.Unprocessable(refusal.Title, refusal.Detail);
 
-    private static double? Coordinate(string name, string? text, double bound, string meaning, Dictionary<string, string[]> errors) =>
-        QueryNumbers.Read(name, text, "the " + meaning, errors, required: true, -bound, bound);
 }

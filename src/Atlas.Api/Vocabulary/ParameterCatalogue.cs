@@ -1,4 +1,3 @@
-using Atlas.Api.Model;
 using Atlas.Statistics;
 
 namespace Atlas.Api.Vocabulary;
@@ -39,5 +38,18 @@ public static class ParameterCatalogue
         StatisticKind.Count => "number of valid steps",
         StatisticKind.Coverage => "coverage (valid over expected steps)",
         _ => statistic.Name(),
+    };
+
+    /// <summary>
+    /// The statistics a parameter's layers have: all for summarised parameters; for dir the power-weighted mean, the
+    /// circular spread of directions (as sd), count and coverage; for d the period coefficient (as mean), count and
+    /// coverage; for depth the cell depth (as mean).
+    /// </summary>
+    public static IReadOnlyList<StatisticKind> StatisticsOf(WaveParameter parameter) => parameter switch
+    {
+        WaveParameter.Dir => [StatisticKind.Mean, StatisticKind.Sd, StatisticKind.Count, StatisticKind.Coverage],
+        WaveParameter.D => [StatisticKind.Mean, StatisticKind.Count, StatisticKind.Coverage],
+        WaveParameter.Depth => [StatisticKind.Mean],
+        _ => StatisticKindNames.All,
     };
 }

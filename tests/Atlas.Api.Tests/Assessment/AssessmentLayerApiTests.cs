@@ -33,7 +33,7 @@ public sealed class AssessmentLayerApiTests(AtlasApiFixture atlas)
             Assert.Equal(expected, cells[SyntheticAtlas.CellId(i, j)].GetProperty("annual_energy_mwh").GetDouble(), expected * 1e-12);
         }
         Assert.Equal("MWh/yr", layer.GetProperty("layer").GetProperty("units").GetString());
-        Assert.Equal(Atlas.Api.Infrastructure.AtlasCaution.Text, layer.GetProperty("caution").GetString());
+        Assert.Equal(Atlas.Api.Model.AtlasCaution.Text, layer.GetProperty("caution").GetString());
     }
 
     [Fact]
@@ -43,7 +43,7 @@ public sealed class AssessmentLayerApiTests(AtlasApiFixture atlas)
         var csv = await _client.GetStringAsync($"{Layers}/yield/test-absorber.csv");
         var lines = csv.Split('\n', StringSplitOptions.RemoveEmptyEntries);
         Assert.Contains(lines, l => l.StartsWith("# source_file: " + SyntheticAtlas.SourceFileName, StringComparison.Ordinal));
-        Assert.Contains(lines, l => l == "# caution: " + Atlas.Api.Infrastructure.AtlasCaution.Text);
+        Assert.Contains(lines, l => l == "# caution: " + Atlas.Api.Model.AtlasCaution.Text);
         var rows = lines.SkipWhile(l => l.StartsWith('#')).ToArray();
         Assert.Equal("cell_id,lon,lat,annual_energy_mwh,capacity_factor,outside_matrix_fraction,mean_power_kw", rows[0]);
         Assert.Equal(SyntheticAtlas.FirstDryColumn * SyntheticAtlas.Ny, rows.Length - 1);

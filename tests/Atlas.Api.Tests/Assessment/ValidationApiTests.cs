@@ -62,7 +62,7 @@ public sealed class ValidationApiTests(AtlasApiFixture atlas)
         Assert.Equal(SyntheticAtlas.CoastSlug, root.GetProperty("provenance").GetProperty("dataset").GetString());
     }
 
-    private static string AtlasApiFixtureCaution => Atlas.Api.Infrastructure.AtlasCaution.Text;
+    private static string AtlasApiFixtureCaution => Atlas.Api.Model.AtlasCaution.Text;
 
     [Fact]
     public async Task SkillAgreesWithNumPyOnTheServedPairs()
@@ -150,7 +150,7 @@ public sealed class ValidationApiTests(AtlasApiFixture atlas)
         var response = await _client.GetAsync($"{Coast}/validation?station=offset-buoy&format=csv");
         Assert.Equal("text/csv", response.Content.Headers.ContentType?.MediaType);
         var lines = (await response.Content.ReadAsStringAsync()).Split('\n', StringSplitOptions.RemoveEmptyEntries);
-        Assert.Contains(lines, l => l == "# caution: " + Atlas.Api.Infrastructure.AtlasCaution.Text);
+        Assert.Contains(lines, l => l == "# caution: " + Atlas.Api.Model.AtlasCaution.Text);
         Assert.Contains(lines, l => l.StartsWith("# source_file: " + SyntheticAtlas.SourceFileName, StringComparison.Ordinal));
         var data = lines.SkipWhile(l => l.StartsWith('#')).ToArray();
         Assert.Equal("station,role,independent,cell_id,distance_m,variable,group,n,mean_observed,mean_modelled,bias,rmse,scatter_index,pearson_r,symmetric_slope", data[0]);
@@ -286,7 +286,7 @@ public sealed class ValidationApiTests(AtlasApiFixture atlas)
         Assert.Equal("validation", offset.GetProperty("role").GetString());
         // ... and the head of the assessment downloads of that dataset (once the server's few-second row cache lets go,
         // which the test does at once rather than wait).
-        atlas.Factory.Services.GetRequiredService<Atlas.Api.Infrastructure.DatasetCatalog>().Forget(AssessmentAtlas.ScaledSlug);
+        atlas.Factory.Services.GetRequiredService<Atlas.Api.Catalog.DatasetCatalog>().Forget(AssessmentAtlas.ScaledSlug);
         var csv = await _client.GetStringAsync($"/api/v1/datasets/{AssessmentAtlas.ScaledSlug}/layers/accessibility.csv?hs_max=2");
         Assert.Contains(string.Create(CultureInfo.InvariantCulture, $"# validation: Offset Buoy (validation): hs N={expected.N}, bias={expected.Bias:0.###} m"), csv);
     }

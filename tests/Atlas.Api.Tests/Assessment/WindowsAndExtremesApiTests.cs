@@ -52,7 +52,7 @@ public sealed class WindowsAndExtremesApiTests(AtlasApiFixture atlas)
         Same(expected.StormSpells.MeanHours, root.GetProperty("storm_spells").GetProperty("mean_hours"));
         Assert.Equal(expected.CalmSpells.CensoredCount, root.GetProperty("calm_spells").GetProperty("censored_count").GetInt32());
         Same(expected.Accessibility.Fraction, root.GetProperty("accessible_fraction"));
-        Assert.Equal(Atlas.Api.Infrastructure.AtlasCaution.Text, root.GetProperty("caution").GetString());
+        Assert.Equal(Atlas.Api.Model.AtlasCaution.Text, root.GetProperty("caution").GetString());
     }
 
     [Fact]
@@ -103,7 +103,7 @@ public sealed class WindowsAndExtremesApiTests(AtlasApiFixture atlas)
         Assert.Contains("STRONG CAUTION", root.GetProperty("strong_caution").GetString());
         Assert.Contains(am.GetProperty("cautions").EnumerateArray(), c => c.GetProperty("kind").GetString() == "general");
         Assert.Equal(7.0, root.GetProperty("record_years").GetDouble(), 0.01);
-        Assert.Equal(Atlas.Api.Infrastructure.AtlasCaution.Text, root.GetProperty("caution").GetString());
+        Assert.Equal(Atlas.Api.Model.AtlasCaution.Text, root.GetProperty("caution").GetString());
     }
 
     [Fact]

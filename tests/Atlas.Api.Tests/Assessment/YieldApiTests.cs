@@ -66,7 +66,7 @@ public sealed class YieldApiTests(AtlasApiFixture atlas)
         var years = root.GetProperty("years").EnumerateArray().ToArray();
         Assert.Equal(SyntheticAtlas.Years, years.Select(y => y.GetProperty("year").GetInt32()).ToArray());
         for (var y = 0; y < years.Length; y++) Close(expected.Years[y].EnergyMwh, years[y].GetProperty("energy_mwh"));
-        Assert.Equal(Atlas.Api.Infrastructure.AtlasCaution.Text, root.GetProperty("caution").GetString());
+        Assert.Equal(Atlas.Api.Model.AtlasCaution.Text, root.GetProperty("caution").GetString());
         Assert.Equal(SyntheticAtlas.SourceFileName, root.GetProperty("provenance").GetProperty("source_files")[0].GetProperty("name").GetString());
     }
 

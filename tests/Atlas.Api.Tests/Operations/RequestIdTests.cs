@@ -1,6 +1,6 @@
 using System.Net;
 using System.Text.Json;
-using Atlas.Api.Infrastructure;
+using Atlas.Api.Operations;
 using Atlas.Api.Tests.Support;
 using Microsoft.AspNetCore.Hosting;
 using Microsoft.AspNetCore.Mvc.Testing;

@@ -1,3 +1,4 @@
+using Atlas.Api.Infrastructure;
 using Atlas.Api.Tests.Support;
 using Microsoft.Extensions.Options;
 

@@ -1,4 +1,5 @@
 using Atlas.Api.Infrastructure;
+using Atlas.Api.Security;
 using Atlas.TestSupport;
 using Microsoft.AspNetCore.Hosting;
 using Microsoft.AspNetCore.Mvc.Testing;

@@ -1,14 +1,15 @@
+using Atlas.Api.Data;
 using Microsoft.AspNetCore.Diagnostics;
 using Microsoft.AspNetCore.Mvc;
 
-namespace Atlas.Api.Infrastructure;
+namespace Atlas.Api.Errors;
 
 /// <summary>
 /// Turns exceptions into problem details: a database outage is 503 with Retry-After, a malformed request that the
 /// framework rejected keeps its status, a value the database cannot take as text (a NUL) is 400, anything else is 500
 /// without internals.
 /// </summary>
-public sealed class ProblemExceptionHandler(IProblemDetailsService problems, ILogger<ProblemExceptionHandler> logger) : IExceptionHandler
+public sealed partial class ProblemExceptionHandler(IProblemDetailsService problems, ILogger<ProblemExceptionHandler> logger) : IExceptionHandler
 {
     public const int RetryAfterSeconds = 10;
 
@@ -17,7 +18,7 @@ public sealed class ProblemExceptionHandler(IProblemDetailsService problems, ILo
         ProblemDetails problem;
         if (DatabaseOutage.Is(exception))
         {
-            ApiLog.DatabaseUnavailable(logger, context.Request.Path, exception);
+            DatabaseUnavailable(logger, context.Request.Path, exception);
             context.Response.StatusCode = StatusCodes.Status503ServiceUnavailable;
             context.Response.Headers.RetryAfter = RetryAfterSeconds.ToString(System.Globalization.CultureInfo.InvariantCulture);
             problem = new ProblemDetails
@@ -55,7 +56,7 @@ public sealed class ProblemExceptionHandler(IProblemDetailsService problems, ILo
         }
         else
         {
-            ApiLog.UnhandledError(logger, context.Request.Path, exception);
+            UnhandledError(logger, context.Request.Path, exception);
             context.Response.StatusCode = 500;
             problem = new ProblemDetails
             {
@@ -66,4 +67,10 @@ public sealed class ProblemExceptionHandler(IProblemDetailsService problems, ILo
         }
         return await problems.TryWriteAsync(new ProblemDetailsContext { HttpContext = context, ProblemDetails = problem, Exception = exception });
     }
+
+    [LoggerMessage(EventId = 1, Level = LogLevel.Warning, Message = "Database unavailable while serving {Path}")]
+    private static partial void DatabaseUnavailable(ILogger logger, string path, Exception exception);
+
+    [LoggerMessage(EventId = 2, Level = LogLevel.Error, Message = "Unhandled error while serving {Path}")]
+    private static partial void UnhandledError(ILogger logger, string path, Exception exception);
 }

@@ -1,14 +1,19 @@
 using System.Globalization;
 using System.Threading.RateLimiting;
+using Atlas.Api.Infrastructure;
 using Microsoft.AspNetCore.Mvc;
 using Microsoft.AspNetCore.RateLimiting;
 
-namespace Atlas.Api.Infrastructure;
+namespace Atlas.Api.Security;
 
 /// <summary>The rate-limit policy of the expensive endpoints: a fixed one-minute window per client address.</summary>
 public static class RateLimits
 {
     public const string Expensive = "expensive";
+
+    /// <summary>Puts an endpoint under the expensive-request limit and documents its 429 problem answer.</summary>
+    public static RouteHandlerBuilder RequireExpensiveLimit(this RouteHandlerBuilder endpoint) =>
+        endpoint.RequireRateLimiting(Expensive).ProducesProblem(StatusCodes.Status429TooManyRequests);
 
     public static void Configure(RateLimiterOptions limiter, AtlasApiOptions options)
     {

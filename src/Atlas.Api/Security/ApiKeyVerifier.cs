@@ -1,8 +1,9 @@
 using System.Security.Cryptography;
 using System.Text;
+using Atlas.Api.Infrastructure;
 using Microsoft.Extensions.Options;
 
-namespace Atlas.Api.Infrastructure;
+namespace Atlas.Api.Security;
 
 /// <summary>
 /// Checks an API key against the configured SHA-256 digests. The key is hashed and compared with every digest in

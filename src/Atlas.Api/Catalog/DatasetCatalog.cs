@@ -1,3 +1,4 @@
+using Atlas.Api.Infrastructure;
 using Atlas.Api.Points;
 using Atlas.Storage.Cells;
 using Atlas.Storage.Datasets;
@@ -5,7 +6,7 @@ using Atlas.Storage.Queries;
 using Microsoft.Extensions.Caching.Memory;
 using Microsoft.Extensions.Options;
 
-namespace Atlas.Api.Infrastructure;
+namespace Atlas.Api.Catalog;
 
 /// <summary>
 /// Dataset look-ups shared by every endpoint, cached briefly in memory: a point request must not pay for the

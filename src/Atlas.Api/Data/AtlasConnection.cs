@@ -1,6 +1,6 @@
 using Atlas.Storage;
 
-namespace Atlas.Api.Infrastructure;
+namespace Atlas.Api.Data;
 
 /// <summary>
 /// Which database the API uses: the connection string <c>ConnectionStrings:Atlas</c> from configuration, else the

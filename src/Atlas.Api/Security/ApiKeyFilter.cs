@@ -1,4 +1,6 @@
-namespace Atlas.Api.Infrastructure;
+using Atlas.Api.Infrastructure;
+
+namespace Atlas.Api.Security;
 
 /// <summary>Lets a write endpoint run only with a valid <c>X-Api-Key</c> header.</summary>
 public sealed class ApiKeyFilter(ApiKeyVerifier verifier) : IEndpointFilter
@@ -23,4 +25,13 @@ public sealed class ApiKeyFilter(ApiKeyVerifier verifier) : IEndpointFilter
         }
         return await next(context);
     }
+}
+
+public static class ApiKeyEndpoints
+{
+    /// <summary>Lets the endpoint run only with a valid API key, and documents the 401 and 403 problem answers.</summary>
+    public static RouteHandlerBuilder RequireApiKey(this RouteHandlerBuilder endpoint) =>
+        endpoint.AddEndpointFilter<ApiKeyFilter>()
+            .ProducesProblem(StatusCodes.Status401Unauthorized)
+            .ProducesProblem(StatusCodes.Status403Forbidden);
 }

@@ -1,6 +1,4 @@
-using Microsoft.AspNetCore.Http.HttpResults;
-
-namespace Atlas.Api.Infrastructure;
+namespace Atlas.Api.Errors;
 
 /// <summary>The problem responses shared by several endpoints, worded to say what to change; every "not found" is here.</summary>
 public static class ApiProblems
@@ -20,6 +18,9 @@ public static class ApiProblems
 
     public static ProblemHttpResult NotFound(string title, string detail) =>
         TypedResults.Problem(statusCode: 404, title: title, detail: detail);
+
+    public static ProblemHttpResult Conflict(string title, string detail) =>
+        TypedResults.Problem(statusCode: 409, title: title, detail: detail);
 
     public static ProblemHttpResult TooLarge(string detail) =>
         TypedResults.Problem(statusCode: 413, title: "The request is too large", detail: detail);

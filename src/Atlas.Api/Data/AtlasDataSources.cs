@@ -1,9 +1,9 @@
-using Atlas.Storage;
 using Atlas.Storage.Jobs;
 using Atlas.Storage.Queries;
+using Atlas.Storage;
 using Npgsql;
 
-namespace Atlas.Api.Infrastructure;
+namespace Atlas.Api.Data;
 
 /// <summary>
 /// The API's two connections. The plain <see cref="NpgsqlDataSource"/> that every read endpoint takes is the reader:

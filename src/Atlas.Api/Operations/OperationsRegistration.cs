@@ -1,6 +1,6 @@
 using Atlas.Ingest.Hosting;
 
-namespace Atlas.Api.Infrastructure;
+namespace Atlas.Api.Operations;
 
 /// <summary>What an operator needs from the running API: metrics at <c>/metrics</c> and request ids in logs and headers.</summary>
 public static class OperationsRegistration

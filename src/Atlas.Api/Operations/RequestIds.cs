@@ -1,4 +1,4 @@
-namespace Atlas.Api.Infrastructure;
+namespace Atlas.Api.Operations;
 
 /// <summary>
 /// Gives every request one id, echoed in the <c>X-Request-Id</c> response header, carried by problem details as

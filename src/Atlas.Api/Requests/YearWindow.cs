@@ -1,6 +1,6 @@
 using System.Globalization;
 
-namespace Atlas.Api.Points;
+namespace Atlas.Api.Requests;
 
 /// <summary>
 /// The from/to/months window of a point request: whole calendar years (UTC) from..to inclusive, and optionally a

@@ -1,10 +1,9 @@
 using System.Reflection;
 using System.Text.Json;
-using Atlas.Api.Model;
 using Atlas.Storage.Datasets;
 using Microsoft.Extensions.Caching.Memory;
 
-namespace Atlas.Api.Infrastructure;
+namespace Atlas.Api.Catalog;
 
 /// <summary>Assembles the provenance of a dataset's figures: source files and checksums, software, dates, method.</summary>
 public sealed class ProvenanceBuilder(DatasetStore datasets, DatasetCatalog catalog, IMemoryCache cache)

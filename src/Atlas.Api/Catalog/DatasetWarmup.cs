@@ -1,13 +1,13 @@
 using Atlas.Storage.Datasets;
 
-namespace Atlas.Api.Infrastructure;
+namespace Atlas.Api.Catalog;
 
 /// <summary>
 /// Loads each dataset's cell table, nearest-cell index, extent, spacing and time lines into memory once the server
 /// has started, so that the first point request after a start does not wait seconds for them on a large dataset.
 /// Runs in the background; a failure (the database not up yet, say) is logged and the requests load what they need.
 /// </summary>
-public sealed class DatasetWarmup(DatasetStore datasets, DatasetCatalog catalog, ILogger<DatasetWarmup> logger) : BackgroundService
+public sealed partial class DatasetWarmup(DatasetStore datasets, DatasetCatalog catalog, ILogger<DatasetWarmup> logger) : BackgroundService
 {
     protected override async Task ExecuteAsync(CancellationToken stoppingToken)
     {
@@ -22,14 +22,20 @@ public sealed class DatasetWarmup(DatasetStore datasets, DatasetCatalog catalog,
                 await catalog.TypicalSpacingMetresAsync(dataset, stoppingToken);
                 await catalog.TimelinesAsync(dataset, stoppingToken);
             }
-            ApiLog.DatasetsWarmed(logger, list.Count);
+            DatasetsWarmed(logger, list.Count);
         }
         catch (OperationCanceledException) when (stoppingToken.IsCancellationRequested)
         {
         }
         catch (Exception e)
         {
-            ApiLog.WarmupFailed(logger, e);
+            WarmupFailed(logger, e);
         }
     }
+
+    [LoggerMessage(EventId = 11, Level = LogLevel.Information, Message = "Cell tables and time lines of {Count} dataset(s) loaded into memory")]
+    private static partial void DatasetsWarmed(ILogger logger, int count);
+
+    [LoggerMessage(EventId = 12, Level = LogLevel.Warning, Message = "Datasets could not be loaded into memory at start-up; requests will load them")]
+    private static partial void WarmupFailed(ILogger logger, Exception exception);
 }

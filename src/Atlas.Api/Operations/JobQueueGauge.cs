@@ -1,14 +1,15 @@
 using System.Diagnostics.Metrics;
+using Atlas.Api.Data;
 using Atlas.Storage.Jobs;
 
-namespace Atlas.Api.Infrastructure;
+namespace Atlas.Api.Operations;
 
 /// <summary>
 /// The gauge <c>atlas.job.queue</c>: jobs in the shared queue by kind and state, read from the database at each
 /// scrape. The API runs no jobs itself, so this is how its scrape shows a queue that backs up or jobs that fail,
 /// whichever worker ran them. A scrape while the database is down simply carries no queue figures.
 /// </summary>
-public sealed class JobQueueGauge : IDisposable
+public sealed partial class JobQueueGauge : IDisposable
 {
     public const string MeterName = "Atlas.Api";
 
@@ -34,7 +35,7 @@ public sealed class JobQueueGauge : IDisposable
         }
         catch (Exception e) when (DatabaseOutage.Is(e) || e is OperationCanceledException)
         {
-            ApiLog.JobQueueUnreadable(_logger, e.Message);
+            JobQueueUnreadable(_logger, e.Message);
             return [];
         }
         return counts.Select(c => new Measurement<long>(c.Count,
@@ -42,4 +43,7 @@ public sealed class JobQueueGauge : IDisposable
     }
 
     public void Dispose() => _meter.Dispose();
+
+    [LoggerMessage(EventId = 9, Level = LogLevel.Warning, Message = "The job queue could not be read for the metrics scrape: {Error}")]
+    private static partial void JobQueueUnreadable(ILogger logger, string error);
 }

@@ -1,8 +1,11 @@
 using System.Globalization;
 
-namespace Atlas.Api.Infrastructure;
+namespace Atlas.Api.Requests;
 
-/// <summary>Parses numbers from query strings and form fields: invariant culture, finite values only.</summary>
+/// <summary>
+/// The one reader of numbers in query strings and form fields: invariant culture, finite values only, each fault
+/// reported under the value's name with what to give instead.
+/// </summary>
 public static class QueryNumbers
 {
     public static bool TryParse(string? text, out double value) =>
@@ -24,6 +27,11 @@ public static class QueryNumbers
         }
         if (!TryParse(text, out var value)) { errors[name] = [$"{name} '{text}' is not a number: give {meaning}, with a decimal point."]; return null; }
         if (aboveMin && value <= min) { errors[name] = [$"{name} {text} must be above {min.ToString(CultureInfo.InvariantCulture)}: give {meaning}."]; return null; }
+        if (value < min && max == double.MaxValue)
+        {
+            errors[name] = [$"{name} {text} must be at or above {min.ToString(CultureInfo.InvariantCulture)}: give {meaning}."];
+            return null;
+        }
         if (value < min || value > max) { errors[name] = [$"{name} {text} is out of range: give {meaning}."]; return null; }
         return value;
     }

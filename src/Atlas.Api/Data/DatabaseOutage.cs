@@ -1,7 +1,7 @@
 using System.Net.Sockets;
 using Npgsql;
 
-namespace Atlas.Api.Infrastructure;
+namespace Atlas.Api.Data;
 
 /// <summary>Tells a database outage (no connection, server shutting down, pool exhausted) from other failures.</summary>
 public static class DatabaseOutage

@@ -1,4 +1,4 @@
-namespace Atlas.Api.Infrastructure;
+namespace Atlas.Api.Requests;
 
 /// <summary>Reads a request body into memory, refusing to read past a limit (whatever Content-Length claims).</summary>
 public static class RequestBody

@@ -1,4 +1,4 @@
-namespace Atlas.Api.Infrastructure;
+namespace Atlas.Api.Model;
 
 /// <summary>The caution that every response carrying resource figures repeats.</summary>
 public static class AtlasCaution
