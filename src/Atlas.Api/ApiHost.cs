@@ -1,7 +1,3 @@
-using Atlas.Api.Apis;
-using Atlas.Api.Assessment;
-using Atlas.Api.Operations;
-
 namespace Atlas.Api;
 
 /// <summary>Builds the atlas web application: services, middleware, the endpoints and the map page.</summary>

@@ -1,8 +1,3 @@
-using Atlas.Api.Data;
-using Atlas.Storage.Datasets;
-using Atlas.Storage.Jobs;
-using Npgsql;
-
 namespace Atlas.Api.Apis;
 
 /// <summary>The write endpoints: queue a statistics job, delete a dataset. Both need an API key.</summary>
@@ -11,21 +6,22 @@ public static partial class AdminApi
     public static IEndpointRouteBuilder MapAdminApi(this IEndpointRouteBuilder routes)
     {
         var group = routes.MapGroup("/api/v1/datasets/{slug}").WithTags("Administration");
-        group.MapPost("/jobs", EnqueueStatisticsAsync).WithName("QueueStatisticsJob")
-            .WithSummary("Queue a statistics job for a dataset (needs X-Api-Key)")
-            .WithDescription("A worker (atlas serve or any worker sharing the database) claims the job and recomputes the statistics " +
-                             "of every cell whose series changed. Poll the returned status link for progress.")
+        group.MapPost("/jobs", EnqueueStatisticsAsync)
             .ProducesProblems(StatusCodes.Status404NotFound)
             .RequireApiKey();
-        group.MapGet("/jobs/{jobId:long}", JobStatusAsync).WithName("JobStatus").WithSummary("The state of a queued job")
+        group.MapGet("/jobs/{jobId:long}", JobStatusAsync)
             .ProducesProblems(StatusCodes.Status404NotFound);
-        group.MapDelete("/", DeleteAsync).WithName("DeleteDataset")
-            .WithSummary("Delete a dataset and everything stored for it (needs X-Api-Key)")
+        group.MapDelete("/", DeleteAsync)
             .ProducesProblems(StatusCodes.Status404NotFound)
             .RequireApiKey();
         return routes;
     }
 
+    [EndpointName("QueueStatisticsJob")]
+    [EndpointSummary("Queue a statistics job for a dataset (needs X-Api-Key)")]
+    [EndpointDescription(
+        "A worker (atlas serve or any worker sharing the database) claims the job and recomputes the statistics " +
+        "of every cell whose series changed. Poll the returned status link for progress.")]
     public static async Task<Results<Accepted<JobAccepted>, ProblemHttpResult>> EnqueueStatisticsAsync(string slug, DatasetStore datasets,
         JobQueue jobs, ILogger<JobQueue> logger, CancellationToken cancel)
     {
@@ -36,6 +32,8 @@ public static partial class AdminApi
         return TypedResults.Accepted(status, new JobAccepted(id, "statistics", slug, "queued", status));
     }
 
+    [EndpointName("JobStatus")]
+    [EndpointSummary("The state of a queued job")]
     public static async Task<Results<Ok<JobStatus>, ProblemHttpResult>> JobStatusAsync(string slug, long jobId, JobQueue jobs, CancellationToken cancel)
     {
         var job = await jobs.FindAsync(jobId, cancel);
@@ -45,6 +43,8 @@ public static partial class AdminApi
             job.FinishedAtUtc, job.ProgressJson, job.Error, job.Summary));
     }
 
+    [EndpointName("DeleteDataset")]
+    [EndpointSummary("Delete a dataset and everything stored for it (needs X-Api-Key)")]
     public static async Task<Results<NoContent, ProblemHttpResult>> DeleteAsync(string slug,
         [FromKeyedServices(AtlasDataSources.Writer)] NpgsqlDataSource writer, DatasetCatalog catalog, ILogger<DatasetStore> logger, CancellationToken cancel)
     {

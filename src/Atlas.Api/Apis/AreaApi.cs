@@ -1,13 +1,4 @@
-using Atlas.Api.Areas;
-using Atlas.Api.Footprints;
-using Atlas.Api.Infrastructure;
-using Atlas.Api.Vocabulary;
-using Atlas.Statistics;
-using Atlas.Storage.Queries;
-using Atlas.Storage.Statistics;
-using Microsoft.Extensions.Options;
 using NetTopologySuite.Geometries.Prepared;
-using NetTopologySuite.Geometries;
 
 namespace Atlas.Api.Apis;
 
@@ -22,19 +13,20 @@ public static class AreaApi
 
     public static IEndpointRouteBuilder MapAreaApi(this IEndpointRouteBuilder routes)
     {
-        routes.MapPost("/api/v1/datasets/{slug}/area", AreaAsync).WithTags("Areas").WithName("AreaStatistics")
-            .WithSummary("Statistics of one layer over the wet cells inside a polygon")
-            .WithDescription(
-                "Body: a GeoJSON Polygon or MultiPolygon (or a Feature with one, or {\"bbox\": [west, south, east, north]}), degrees. " +
-                "Query: parameter (default j), statistic (default mean), period (default annual), threshold (optional, in the layer's unit). " +
-                "Rejected with a problem saying what to fix: invalid or self-intersecting rings (422), areas above the size limit (422), " +
-                "too many vertices or too large a body (413), areas holding no wet cell (422).")
+        routes.MapPost("/api/v1/datasets/{slug}/area", AreaAsync).WithTags("Areas")
             .Accepts<object>("application/geo+json", "application/json")
             .ProducesProblems(StatusCodes.Status404NotFound, StatusCodes.Status413PayloadTooLarge, StatusCodes.Status422UnprocessableEntity)
             .RequireExpensiveLimit();
         return routes;
     }
 
+    [EndpointName("AreaStatistics")]
+    [EndpointSummary("Statistics of one layer over the wet cells inside a polygon")]
+    [EndpointDescription(
+        "Body: a GeoJSON Polygon or MultiPolygon (or a Feature with one, or {\"bbox\": [west, south, east, north]}), degrees. " +
+        "Query: parameter (default j), statistic (default mean), period (default annual), threshold (optional, in the layer's unit). " +
+        "Rejected with a problem saying what to fix: invalid or self-intersecting rings (422), areas above the size limit (422), " +
+        "too many vertices or too large a body (413), areas holding no wet cell (422).")]
     public static async Task<Results<Ok<AreaStatistics>, ProblemHttpResult, ValidationProblem>> AreaAsync(
         string slug, [AsParameters] AreaQuery query,
         HttpRequest request, DatasetCatalog catalog, StatisticsStore statistics, AreaQueries areas, CellFootprints footprints,

@@ -1,7 +1,3 @@
-using System.Text.Json;
-using Atlas.Api.Vocabulary;
-using Atlas.Storage.Datasets;
-
 namespace Atlas.Api.Apis;
 
 /// <summary><c>/api/v1/datasets</c>: the catalogue and what each dataset holds.</summary>
@@ -10,17 +6,15 @@ public static class DatasetApi
     public static IEndpointRouteBuilder MapDatasetApi(this IEndpointRouteBuilder routes)
     {
         var group = routes.MapGroup("/api/v1/datasets").WithTags("Datasets");
-        group.MapGet("/", ListAsync).WithName("ListDatasets")
-            .WithSummary("The datasets this server holds")
-            .WithDescription("Slug, title, grid kind, extent, cell counts and time coverage of every dataset.");
-        group.MapGet("/{slug}", DescribeAsync).WithName("DescribeDataset")
-            .WithSummary("What one dataset holds")
-            .WithDescription("Extent, grid kind, cell counts, time coverage and step, variables with units, source files with " +
-                             "SHA-256 checksums, method notes, licence and citation, the validation summary when one is stored, and the caution.")
+        group.MapGet("/", ListAsync);
+        group.MapGet("/{slug}", DescribeAsync)
             .ProducesProblems(StatusCodes.Status404NotFound);
         return routes;
     }
 
+    [EndpointName("ListDatasets")]
+    [EndpointSummary("The datasets this server holds")]
+    [EndpointDescription("Slug, title, grid kind, extent, cell counts and time coverage of every dataset.")]
     public static async Task<Ok<DatasetList>> ListAsync(DatasetStore datasets, CancellationToken cancel)
     {
         var items = new List<DatasetListItem>();
@@ -34,6 +28,11 @@ public static class DatasetApi
         return TypedResults.Ok(new DatasetList(items, AtlasCaution.Text));
     }
 
+    [EndpointName("DescribeDataset")]
+    [EndpointSummary("What one dataset holds")]
+    [EndpointDescription(
+        "Extent, grid kind, cell counts, time coverage and step, variables with units, source files with " +
+        "SHA-256 checksums, method notes, licence and citation, the validation summary when one is stored, and the caution.")]
     public static async Task<Results<Ok<DatasetDetail>, ProblemHttpResult>> DescribeAsync(string slug, DatasetStore datasets,
         ProvenanceBuilder provenance, CancellationToken cancel)
     {
@@ -45,8 +44,8 @@ public static class DatasetApi
         using var metadata = JsonDocument.Parse(dataset.MetadataJson);
         var root = metadata.RootElement.Clone();
         return TypedResults.Ok(new DatasetDetail(
-            dataset.Slug, dataset.Title, dataset.GridKind, dataset.Nx, dataset.Ny, dataset.PointCount, summary.WetCellCount,
-            summary.StatisticsCellCount, ExtentOf(summary), TimeOf(summary),
+            dataset.Slug, dataset.Title, dataset.GridKind, ExtentOf(summary), dataset.Nx, dataset.Ny, dataset.PointCount,
+            summary.WetCellCount, summary.StatisticsCellCount, TimeOf(summary),
             Member(root, "variables"), ParameterCatalogue.Items,
             files.Select(f => new SourceFileItem(f.FileName, f.Sha256, f.SizeBytes, f.TimeStartUtc, f.TimeEndUtc, f.StepCount, f.LoadedAtUtc)).ToArray(),
             source.MethodNotes, source.Licence, source.Citation, Member(root, "validation"), root, dataset.CreatedAtUtc,

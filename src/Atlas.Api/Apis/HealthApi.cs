@@ -1,6 +1,3 @@
-using Atlas.Storage;
-using Npgsql;
-
 namespace Atlas.Api.Apis;
 
 /// <summary><c>/healthz</c> (the process answers) and <c>/readyz</c> (the database answers and its schema is current).</summary>
@@ -10,12 +7,13 @@ public static class HealthApi
     {
         routes.MapGet("/healthz", () => TypedResults.Ok(new Liveness("ok"))).WithTags("Health").WithName("Liveness")
             .WithSummary("The process is up (it does not touch the database)");
-        routes.MapGet("/readyz", ReadinessAsync).WithTags("Health").WithName("Readiness")
-            .WithSummary("The database answers and every schema migration is applied")
+        routes.MapGet("/readyz", ReadinessAsync).WithTags("Health")
             .ProducesProblems(StatusCodes.Status503ServiceUnavailable);
         return routes;
     }
 
+    [EndpointName("Readiness")]
+    [EndpointSummary("The database answers and every schema migration is applied")]
     public static async Task<Results<Ok<Readiness>, ProblemHttpResult>> ReadinessAsync(NpgsqlDataSource dataSource, CancellationToken cancel)
     {
         var available = SchemaMigrator.AvailableMigrationCount;

@@ -1,10 +1,3 @@
-using Atlas.Api.Downloads;
-using Atlas.Api.Footprints;
-using Atlas.Api.Rasters;
-using Atlas.Storage.Cells;
-using Microsoft.Extensions.Caching.Memory;
-using NetTopologySuite.Features;
-using NetTopologySuite.Geometries;
 using NetTopologySuite.Operation.Union;
 
 namespace Atlas.Api.Apis;
@@ -20,17 +13,17 @@ public static class LandMaskApi
     public static IEndpointRouteBuilder MapLandMaskApi(this IEndpointRouteBuilder routes)
     {
         routes.MapGet("/api/v1/datasets/{slug}/land", LandAsync).WithTags("Datasets").WithName(RouteName)
-            .WithSummary("The dataset's land mask: its dry cells merged into GeoJSON polygons")
-            .WithDescription(
-                "A GeoJSON FeatureCollection with one MultiPolygon feature (EPSG:4326 degrees) covering the dry cells: on a regular " +
-                "grid each dry cell is the rectangle halfway to its neighbouring grid lines (as the wet cells' footprints are); elsewhere " +
-                "it is its Voronoi region among all cells, clipped to one typical spacing. dry_cell_count says how many cells it holds; " +
-                "a dataset with no dry cell (a mesh of wet nodes only) gives an empty collection.")
             .ProducesFile("application/geo+json")
             .ProducesProblems(StatusCodes.Status404NotFound);
         return routes;
     }
 
+    [EndpointSummary("The dataset's land mask: its dry cells merged into GeoJSON polygons")]
+    [EndpointDescription(
+        "A GeoJSON FeatureCollection with one MultiPolygon feature (EPSG:4326 degrees) covering the dry cells: on a regular " +
+        "grid each dry cell is the rectangle halfway to its neighbouring grid lines (as the wet cells' footprints are); elsewhere " +
+        "it is its Voronoi region among all cells, clipped to one typical spacing. dry_cell_count says how many cells it holds; " +
+        "a dataset with no dry cell (a mesh of wet nodes only) gives an empty collection.")]
     public static async Task<Results<FileContentHttpResult, ProblemHttpResult>> LandAsync(
         string slug, HttpContext http, DatasetCatalog catalog, CellStore cells, IMemoryCache cache, CancellationToken cancel)
     {

@@ -1,10 +1,3 @@
-using Atlas.Api.Downloads;
-using Atlas.Api.Infrastructure;
-using Atlas.Api.Layers;
-using Atlas.Api.Vocabulary;
-using Atlas.Statistics;
-using Atlas.Storage.Queries;
-using Microsoft.Extensions.Options;
 using Microsoft.Net.Http.Headers;
 
 namespace Atlas.Api.Apis;
@@ -15,18 +8,9 @@ public static class LayerApi
     public static IEndpointRouteBuilder MapLayerApi(this IEndpointRouteBuilder routes)
     {
         var group = routes.MapGroup("/api/v1/datasets/{slug}/layers").WithTags("Layers");
-        group.MapGet("/", ListAsync).WithName("ListLayers")
-            .WithSummary("The parameter x statistic x period combinations a dataset has, with units and percentile bin widths")
+        group.MapGet("/", ListAsync)
             .ProducesProblems(StatusCodes.Status404NotFound);
-        group.MapGet("/{parameter}/{statistic}/{period}.{format}", DownloadAsync).WithName("DownloadLayer")
-            .WithSummary("One layer as GeoTIFF, CSV, GeoJSON, NetCDF or a PNG figure")
-            .WithDescription(
-                "parameter: hs, te, tp, j, dir, spread, d, depth. statistic: mean, sd, min, max, p10, p50, p90, p99, count, coverage. " +
-                "period: jan..dec, djf, mam, jja, son, annual, y2019. format: tif (Cloud Optimised GeoTIFF, Float32, EPSG:4326, " +
-                "nodata -9999, 256 x 256 tiles with overviews; provenance in the GDAL metadata), csv (cell_id,lon,lat,value after a # header), " +
-                "geojson (points, or cell footprints with ?geometry=polygon; provenance as a top-level member), nc (CF-1.8 NetCDF-4), " +
-                "png (a captioned map figure). Mesh and curvilinear datasets are drawn on a raster by linear interpolation in triangles. " +
-                "Responses carry an ETag and Cache-Control; send If-None-Match to revalidate. GeoTIFF downloads answer Range requests.")
+        group.MapGet("/{parameter}/{statistic}/{period}.{format}", DownloadAsync)
             .ProducesFile(LayerFormat.Tif.ContentType(), [.. Enum.GetValues<LayerFormat>().Skip(1).Select(f => f.ContentType())])
             .Produces(StatusCodes.Status304NotModified)
             .ProducesProblems(StatusCodes.Status404NotFound, StatusCodes.Status422UnprocessableEntity)
@@ -34,6 +18,8 @@ public static class LayerApi
         return routes;
     }
 
+    [EndpointName("ListLayers")]
+    [EndpointSummary("The parameter x statistic x period combinations a dataset has, with units and percentile bin widths")]
     public static async Task<Results<Ok<LayerCatalogue>, ProblemHttpResult>> ListAsync(string slug, DatasetCatalog catalog,
         DatasetGeometryQueries geometry, LayerRenderer renderer, CancellationToken cancel)
     {
@@ -72,6 +58,15 @@ public static class LayerApi
             AtlasCaution.Text));
     }
 
+    [EndpointName("DownloadLayer")]
+    [EndpointSummary("One layer as GeoTIFF, CSV, GeoJSON, NetCDF or a PNG figure")]
+    [EndpointDescription(
+        "parameter: hs, te, tp, j, dir, spread, d, depth. statistic: mean, sd, min, max, p10, p50, p90, p99, count, coverage. " +
+        "period: jan..dec, djf, mam, jja, son, annual, y2019. format: tif (Cloud Optimised GeoTIFF, Float32, EPSG:4326, " +
+        "nodata -9999, 256 x 256 tiles with overviews; provenance in the GDAL metadata), csv (cell_id,lon,lat,value after a # header), " +
+        "geojson (points, or cell footprints with ?geometry=polygon; provenance as a top-level member), nc (CF-1.8 NetCDF-4), " +
+        "png (a captioned map figure). Mesh and curvilinear datasets are drawn on a raster by linear interpolation in triangles. " +
+        "Responses carry an ETag and Cache-Control; send If-None-Match to revalidate. GeoTIFF downloads answer Range requests.")]
     public static async Task<Results<FileContentHttpResult, ProblemHttpResult, ValidationProblem>> DownloadAsync(
         string slug, [AsParameters] LayerDownloadRoute route, HttpContext http, DatasetCatalog catalog, LayerRenderer renderer,
         IOptions<AtlasApiOptions> options, CancellationToken cancel)

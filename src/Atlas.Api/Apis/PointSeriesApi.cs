@@ -1,14 +1,4 @@
-using System.Globalization;
-using System.Text.Json;
-using System.Text;
-using Atlas.Api.Downloads;
-using Atlas.Api.Infrastructure;
-using Atlas.Api.Points;
-using Atlas.Ingest.Series;
-using Atlas.Statistics;
 using Atlas.WavePhysics;
-using Atlas.Storage.Series;
-using Microsoft.Extensions.Options;
 
 namespace Atlas.Api.Apis;
 
@@ -16,16 +6,17 @@ namespace Atlas.Api.Apis;
 public static class PointSeriesApi
 {
     public static RouteHandlerBuilder MapPointSeries(this RouteGroupBuilder group) =>
-        group.MapGet("/point/series", SeriesAsync).WithName("PointSeries")
-            .WithSummary("The time series (time, hs, te, tp, dir, spread, j) of the wet cell nearest a position")
-            .WithDescription(
-                "lat, lon: degrees. from, to: calendar years, inclusive (default: the whole record when it is within the per-request " +
-                "limit of AtlasApiOptions:SeriesMaxYearsPerRequest years). format: csv (default; '#' header lines with provenance, units " +
-                "and the caution) or json. Missing steps are empty (csv) or null (json). j is computed per step at the cell depth.")
+        group.MapGet("/point/series", SeriesAsync)
             .ProducesFile("text/csv", "application/json")
             .ProducesProblems(StatusCodes.Status404NotFound, StatusCodes.Status422UnprocessableEntity)
             .RequireExpensiveLimit();
 
+    [EndpointName("PointSeries")]
+    [EndpointSummary("The time series (time, hs, te, tp, dir, spread, j) of the wet cell nearest a position")]
+    [EndpointDescription(
+        "lat, lon: degrees. from, to: calendar years, inclusive (default: the whole record when it is within the per-request " +
+        "limit of AtlasApiOptions:SeriesMaxYearsPerRequest years). format: csv (default; '#' header lines with provenance, units " +
+        "and the caution) or json. Missing steps are empty (csv) or null (json). j is computed per step at the cell depth.")]
     public static async Task<Results<PushStreamHttpResult, ProblemHttpResult, ValidationProblem>> SeriesAsync(
         string slug, [AsParameters] PointPosition at, [AsParameters] PointSeriesQuery query,
         PointLocator locator, DatasetCatalog catalog, SeriesStore series, ProvenanceBuilder provenance,

@@ -1,12 +1,4 @@
-using System.Globalization;
-using System.Text.Json;
-using System.Text;
-using Atlas.Api.Points;
-using Atlas.Ingest.Series;
-using Atlas.Statistics;
-using Atlas.Storage.Series;
 using Microsoft.AspNetCore.Http.Json;
-using Microsoft.Extensions.Options;
 
 namespace Atlas.Api.Apis;
 
@@ -14,8 +6,7 @@ namespace Atlas.Api.Apis;
 public static class PointStatisticsApi
 {
     public static RouteHandlerBuilder MapPointStatistics(this RouteGroupBuilder group) =>
-        group.MapGet("/point", PointAsync).WithName("PointStatistics")
-            .WithSummary("Exact statistics of every parameter at the wet cell nearest a position")
+        group.MapGet("/point", PointAsync)
             .WithDescription(
                 "lat, lon: degrees. period: one of jan..dec, djf, mam, jja, son, annual, y2019, or all (default). from, to: calendar " +
                 "years (inclusive) and months: calendar months 1..12 (comma separated) restrict the series used; the annual period is " +
@@ -34,6 +25,8 @@ public static class PointStatisticsApi
             .ProducesProblems(StatusCodes.Status404NotFound, StatusCodes.Status422UnprocessableEntity)
             .RequireExpensiveLimit();
 
+    [EndpointName("PointStatistics")]
+    [EndpointSummary("Exact statistics of every parameter at the wet cell nearest a position")]
     public static async Task<Results<FileContentHttpResult, StatusCodeHttpResult, ProblemHttpResult, ValidationProblem>> PointAsync(
         string slug, [AsParameters] PointPosition at, [AsParameters] PointStatisticsQuery query,
         PointLocator locator, DatasetCatalog catalog, SeriesStore series, ProvenanceBuilder provenance, PointResponseCache responses,

@@ -1,11 +1,3 @@
-using System.Text.Json;
-using Atlas.Api.Downloads;
-using Atlas.Api.Footprints;
-using Atlas.Api.Vocabulary;
-using Atlas.Statistics;
-using Atlas.Storage.Queries;
-using NetTopologySuite.Features;
-
 namespace Atlas.Api.Apis;
 
 /// <summary><c>GET /api/v1/datasets/{slug}/screen</c>: the wet cells that meet site-screening criteria.</summary>
@@ -13,20 +5,21 @@ public static class ScreeningApi
 {
     public static IEndpointRouteBuilder MapScreeningApi(this IEndpointRouteBuilder routes)
     {
-        routes.MapGet("/api/v1/datasets/{slug}/screen", ScreenAsync).WithTags("Screening").WithName("ScreenSites")
-            .WithSummary("Cells meeting site-screening criteria, as GeoJSON with their count and total area")
-            .WithDescription(
-                "Criteria (each optional; all given must hold): min_power_kw_m (mean power of the period, kW/m), min_depth_m and " +
-                "max_depth_m (depth positive down; a cell of unknown depth fails a depth criterion), max_coast_distance_km " +
-                "(distance to the nearest dry cell of the dataset), max_hs_p90_m (90th percentile of Hs). period defaults to annual. " +
-                "The answer is a GeoJSON FeatureCollection of cell centres with count, total_area_km2 (footprints on the spheroid), " +
-                "the criteria, the provenance and the caution as top-level members.")
+        routes.MapGet("/api/v1/datasets/{slug}/screen", ScreenAsync).WithTags("Screening")
             .ProducesFile("application/geo+json")
             .ProducesProblems(StatusCodes.Status404NotFound)
             .RequireExpensiveLimit();
         return routes;
     }
 
+    [EndpointName("ScreenSites")]
+    [EndpointSummary("Cells meeting site-screening criteria, as GeoJSON with their count and total area")]
+    [EndpointDescription(
+        "Criteria (each optional; all given must hold): min_power_kw_m (mean power of the period, kW/m), min_depth_m and " +
+        "max_depth_m (depth positive down; a cell of unknown depth fails a depth criterion), max_coast_distance_km " +
+        "(distance to the nearest dry cell of the dataset), max_hs_p90_m (90th percentile of Hs). period defaults to annual. " +
+        "The answer is a GeoJSON FeatureCollection of cell centres with count, total_area_km2 (footprints on the spheroid), " +
+        "the criteria, the provenance and the caution as top-level members.")]
     public static async Task<Results<FileContentHttpResult, ProblemHttpResult, ValidationProblem>> ScreenAsync(
         string slug, [AsParameters] ScreeningQuery query, DatasetCatalog catalog, ScreeningQueries screening, CellFootprints footprints,
         ProvenanceBuilder provenance, CancellationToken cancel)

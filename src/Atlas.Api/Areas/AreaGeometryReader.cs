@@ -1,5 +1,3 @@
-using System.Text.Json;
-using NetTopologySuite.Geometries;
 using NetTopologySuite.IO.Converters;
 using NetTopologySuite.Operation.Valid;
 

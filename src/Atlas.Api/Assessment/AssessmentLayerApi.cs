@@ -1,11 +1,3 @@
-using Atlas.Api.Downloads;
-using Atlas.Assessment.Yield;
-using Atlas.Ingest.Assessment;
-using Atlas.Storage.Cells;
-using Atlas.Storage.Devices;
-using Atlas.Storage.Queries;
-using Npgsql;
-
 namespace Atlas.Api.Assessment;
 
 /// <summary>
@@ -17,22 +9,21 @@ public static class AssessmentLayerApi
     public static IEndpointRouteBuilder MapAssessmentLayerApi(this IEndpointRouteBuilder routes)
     {
         var group = routes.MapGroup("/api/v1/datasets/{slug}/layers").WithTags("Layers");
-        group.MapGet("/yield/{device}.{format}", YieldAsync).WithName("YieldLayer")
-            .WithSummary("Mean annual energy of a device at every wet cell (MWh/yr), with capacity factor and share outside the matrix")
-            .WithDescription("device: a stored device's slug. format: json, csv, geojson or tif (the annual energy on the grid). interpolation: " +
-                             "bilinear (default) or nearest. Computed from every cell's exact series on first request (this takes a while for a " +
-                             "large dataset), then served from the layer cache until the dataset's statistics are recomputed.")
+        group.MapGet("/yield/{device}.{format}", YieldAsync)
             .ProducesLayerFiles()
             .RequireExpensiveLimit();
-        group.MapGet("/accessibility.{format}", AccessibilityAsync).WithName("AccessibilityLayer")
-            .WithSummary("Share of time within access limits at every wet cell, or the probability of a window of a given length")
-            .WithDescription("hs_max: the Hs limit, m. tp_max (optional): the Tp limit, s. hours (optional): a required window length; the value is " +
-                             "then the probability that such a window starts at a random time. format: json, csv, geojson or tif. Cached like the yield layer.")
+        group.MapGet("/accessibility.{format}", AccessibilityAsync)
             .ProducesLayerFiles()
             .RequireExpensiveLimit();
         return routes;
     }
 
+    [EndpointName("YieldLayer")]
+    [EndpointSummary("Mean annual energy of a device at every wet cell (MWh/yr), with capacity factor and share outside the matrix")]
+    [EndpointDescription(
+        "device: a stored device's slug. format: json, csv, geojson or tif (the annual energy on the grid). interpolation: " +
+        "bilinear (default) or nearest. Computed from every cell's exact series on first request (this takes a while for a " +
+        "large dataset), then served from the layer cache until the dataset's statistics are recomputed.")]
     public static async Task<Results<FileContentHttpResult, ProblemHttpResult, ValidationProblem>> YieldAsync(
         string slug, string device, string format, [AsParameters] YieldLayerQuery query, DatasetCatalog catalog, CellStore cells, NpgsqlDataSource dataSource,
         LayerCacheStore cache, ProvenanceBuilder provenance, CancellationToken cancel)
@@ -50,6 +41,11 @@ public static class AssessmentLayerApi
         return await RenderAsync(format, dataset, layer, $"{slug}_yield_{stored.Slug}.{format}", cells, provenance, cancel);
     }
 
+    [EndpointName("AccessibilityLayer")]
+    [EndpointSummary("Share of time within access limits at every wet cell, or the probability of a window of a given length")]
+    [EndpointDescription(
+        "hs_max: the Hs limit, m. tp_max (optional): the Tp limit, s. hours (optional): a required window length; the value is " +
+        "then the probability that such a window starts at a random time. format: json, csv, geojson or tif. Cached like the yield layer.")]
     public static async Task<Results<FileContentHttpResult, ProblemHttpResult, ValidationProblem>> AccessibilityAsync(
         string slug, string format, [AsParameters] AccessLimitsQuery query, DatasetCatalog catalog, CellStore cells, NpgsqlDataSource dataSource,
         LayerCacheStore cache, ProvenanceBuilder provenance, CancellationToken cancel)

@@ -1,15 +1,3 @@
-using System.Globalization;
-using System.Text.Json;
-using System.Text;
-using Atlas.Api.Downloads;
-using Atlas.Api.Rasters;
-using Atlas.Ingest.Assessment;
-using Atlas.Ingest.Validation;
-using Atlas.Storage.Cells;
-using Atlas.Storage.Datasets;
-using Atlas.Storage.Statistics;
-using NetTopologySuite.Features;
-
 namespace Atlas.Api.Assessment;
 
 /// <summary>

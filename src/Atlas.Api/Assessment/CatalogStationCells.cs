@@ -1,8 +1,3 @@
-using Atlas.Api.Points;
-using Atlas.Ingest.Validation;
-using Atlas.Storage.Cells;
-using Atlas.Storage.Datasets;
-
 namespace Atlas.Api.Assessment;
 
 /// <summary>Stations' cells as the API finds them: through the point locator and the dataset catalogue, so a station is covered exactly when a point request there is answered.</summary>

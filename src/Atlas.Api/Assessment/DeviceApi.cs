@@ -1,43 +1,29 @@
-using Atlas.Api.Data;
-using Atlas.Assessment.Yield;
-using Atlas.Assessment;
-using Atlas.Ingest.Assessment;
-using Atlas.Storage.Devices;
-using Npgsql;
-
 namespace Atlas.Api.Assessment;
 
 /// <summary><c>/api/v1/devices</c>: wave-energy converters' power matrices, for production estimates.</summary>
 public static class DeviceApi
 {
-    public static IEndpointRouteBuilder MapDeviceApi(this IEndpointRouteBuilder routes)
-    {
-        var group = routes.MapGroup("/api/v1/devices").WithTags("Devices");
-        group.MapGet("/", ListAsync).WithName("ListDevices").WithSummary("The stored device power matrices");
-        group.MapGet("/{device}", DescribeAsync).WithName("DescribeDevice").WithSummary("One device, by name or slug")
-            .ProducesProblems(StatusCodes.Status404NotFound);
-        group.MapPost("/", AddAsync).WithName("AddDevice")
-            .WithSummary("Store a device power matrix (needs X-Api-Key)")
-            .WithDescription(
-                "multipart/form-data with the matrix in the part 'file', or the matrix as a text/csv body; name (required) and rated_kw " +
-                "(optional, default the largest matrix value) as form fields or query values. The CSV's first cell names the axes, " +
-                "hs_m\\te_s or hs_m\\tp_s; the rest of the first line are period bin centres (s), the first column Hs bin centres (m), the body " +
-                "power in kW. Bins must strictly increase, power be finite and at or above 0 and not 0 everywhere; every problem is reported " +
-                "with its line and column and nothing is stored.")
-            .AcceptsUpload<DeviceRegistered>("text/csv");
-        group.MapDelete("/{device}", DeleteAsync).WithName("DeleteDevice")
-            .WithSummary("Remove a device (needs X-Api-Key)")
-            .ProducesProblems(StatusCodes.Status404NotFound)
-            .RequireApiKey();
-        return routes;
-    }
+    public static IEndpointRouteBuilder MapDeviceApi(this IEndpointRouteBuilder routes) =>
+        routes.MapReferenceRegistry<DeviceRegistered>("/api/v1/devices", "Devices", "device", ListAsync, DescribeAsync, AddAsync, DeleteAsync, "text/csv");
 
+    [EndpointName("ListDevices")]
+    [EndpointSummary("The stored device power matrices")]
     public static async Task<Ok<DeviceList>> ListAsync(NpgsqlDataSource dataSource, CancellationToken cancel) =>
         TypedResults.Ok(new DeviceList([.. (await new DeviceStore(dataSource).ListAsync(cancel)).Select(DeviceItem.From)], MatrixInterpolationQuery.Note, AtlasCaution.Text));
 
+    [EndpointName("DescribeDevice")]
+    [EndpointSummary("One device, by name or slug")]
     public static async Task<Results<Ok<DeviceItem>, ProblemHttpResult>> DescribeAsync(string device, NpgsqlDataSource dataSource, CancellationToken cancel) =>
         await new DeviceStore(dataSource).FindAsync(device, cancel) is { } found ? TypedResults.Ok(DeviceItem.From(found)) : ApiProblems.UnknownDevice(device);
 
+    [EndpointName("AddDevice")]
+    [EndpointSummary("Store a device power matrix (needs X-Api-Key)")]
+    [EndpointDescription(
+        "multipart/form-data with the matrix in the part 'file', or the matrix as a text/csv body; name (required) and rated_kw " +
+        "(optional, default the largest matrix value) as form fields or query values. The CSV's first cell names the axes, " +
+        "hs_m\\te_s or hs_m\\tp_s; the rest of the first line are period bin centres (s), the first column Hs bin centres (m), the body " +
+        "power in kW. Bins must strictly increase, power be finite and at or above 0 and not 0 everywhere; every problem is reported " +
+        "with its line and column and nothing is stored.")]
     public static async Task<IResult> AddAsync(HttpRequest request, [FromKeyedServices(AtlasDataSources.Writer)] NpgsqlDataSource dataSource, CancellationToken cancel)
     {
         var (upload, problem) = await UploadReader.ReadAsync(request, "power-matrix.csv", cancel);
@@ -68,6 +54,8 @@ public static class DeviceApi
         }
     }
 
+    [EndpointName("DeleteDevice")]
+    [EndpointSummary("Remove a device (needs X-Api-Key)")]
     public static async Task<Results<NoContent, ProblemHttpResult>> DeleteAsync(string device, [FromKeyedServices(AtlasDataSources.Writer)] NpgsqlDataSource dataSource, CancellationToken cancel) =>
         await new DeviceStore(dataSource).DeleteAsync(device, cancel) ? TypedResults.NoContent() : ApiProblems.UnknownDevice(device);
 

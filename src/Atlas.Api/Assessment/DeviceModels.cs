@@ -1,6 +1,3 @@
-using Atlas.Ingest.Assessment;
-using Atlas.Storage.Devices;
-
 namespace Atlas.Api.Assessment;
 
 /// <summary>A stored device as the API shows it; <c>power_kw</c> rows follow <c>hs_centres_m</c>, columns <c>period_centres_s</c>.</summary>

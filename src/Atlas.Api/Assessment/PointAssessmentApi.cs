@@ -1,16 +1,4 @@
-using Atlas.Api.Points;
-using Atlas.Assessment.Access;
-using Atlas.Assessment.Extremes;
-using Atlas.Assessment.Yield;
-using Atlas.Assessment;
-using Atlas.Ingest.Assessment;
-using Atlas.Ingest.Series;
-using Atlas.Ingest.Validation;
-using Atlas.Statistics;
-using Atlas.Storage.Devices;
-using Atlas.Storage.Series;
 using Atlas.WavePhysics;
-using Npgsql;
 
 namespace Atlas.Api.Assessment;
 
@@ -23,29 +11,13 @@ public static class PointAssessmentApi
     public static IEndpointRouteBuilder MapPointAssessmentApi(this IEndpointRouteBuilder routes)
     {
         var group = routes.MapGroup("/api/v1/datasets/{slug}/point").WithTags("Points");
-        group.MapGet("/yield", YieldAsync).WithName("PointYield")
-            .WithSummary("A device's energy production at the wet cell nearest a position")
-            .WithDescription(
-                "lat, lon: degrees. device: a stored device's name or slug. interpolation: bilinear (default) or nearest. from, to: calendar years " +
-                "(inclusive). Mean annual energy (MWh/yr), capacity factor, production per calendar month and per year with the inter-annual " +
-                "coefficient of variation, and the share of time the sea state lies outside the matrix (counted at 0 kW).")
+        group.MapGet("/yield", YieldAsync)
             .ProducesProblems(StatusCodes.Status404NotFound, StatusCodes.Status422UnprocessableEntity)
             .RequireExpensiveLimit();
-        group.MapGet("/windows", WindowsAsync).WithName("PointWindows")
-            .WithSummary("Weather windows for access limits at the wet cell nearest a position")
-            .WithDescription(
-                "lat, lon: degrees. hs_max: the Hs limit, m. tp_max (optional): the Tp limit, s. hours: the duration an operation needs. from, to: " +
-                "calendar years. Per calendar month: the probability that a window starts at a random time, the mean number of windows, the mean " +
-                "waiting time for the next window start; calm and storm spell persistence; the share of time within limits.")
+        group.MapGet("/windows", WindowsAsync)
             .ProducesProblems(StatusCodes.Status404NotFound, StatusCodes.Status422UnprocessableEntity)
             .RequireExpensiveLimit();
-        group.MapGet("/extremes", ExtremesAsync).WithName("PointExtremes")
-            .WithSummary("Extreme Hs return levels at the wet cell nearest a position")
-            .WithDescription(
-                "lat, lon: degrees. method: annual-maxima (Gumbel and GEV by maximum likelihood), peaks-over-threshold (GPD on runs-declustered " +
-                "storm peaks), or both when left out. threshold (m) or threshold_quantile (default 0.99) and separation_hours (default 48) for " +
-                "peaks over threshold. Return levels for 1, 5, 10, 50 and 100 years with 95 % profile-likelihood intervals, the fit against the " +
-                "data (probability-plot points) and cautions, strongest first in strong_caution when the record is short for the return period.")
+        group.MapGet("/extremes", ExtremesAsync)
             .ProducesProblems(StatusCodes.Status404NotFound, StatusCodes.Status422UnprocessableEntity)
             .RequireExpensiveLimit();
         return routes;
@@ -86,6 +58,12 @@ public static class PointAssessmentApi
         }
     }
 
+    [EndpointName("PointYield")]
+    [EndpointSummary("A device's energy production at the wet cell nearest a position")]
+    [EndpointDescription(
+        "lat, lon: degrees. device: a stored device's name or slug. interpolation: bilinear (default) or nearest. from, to: calendar years " +
+        "(inclusive). Mean annual energy (MWh/yr), capacity factor, production per calendar month and per year with the inter-annual " +
+        "coefficient of variation, and the share of time the sea state lies outside the matrix (counted at 0 kW).")]
     public static async Task<Results<Ok<PointYield>, ProblemHttpResult, ValidationProblem>> YieldAsync(
         string slug, [AsParameters] PointPosition at, [AsParameters] PointYieldQuery query,
         PointLocator locator, DatasetCatalog catalog, SeriesStore series, NpgsqlDataSource dataSource, ProvenanceBuilder provenance, CancellationToken cancel)
@@ -131,6 +109,12 @@ public static class PointAssessmentApi
         return (tp, "tp derived as te / 0.9 (JONSWAP gamma 3.3): the dataset stores no peak period");
     }
 
+    [EndpointName("PointWindows")]
+    [EndpointSummary("Weather windows for access limits at the wet cell nearest a position")]
+    [EndpointDescription(
+        "lat, lon: degrees. hs_max: the Hs limit, m. tp_max (optional): the Tp limit, s. hours: the duration an operation needs. from, to: " +
+        "calendar years. Per calendar month: the probability that a window starts at a random time, the mean number of windows, the mean " +
+        "waiting time for the next window start; calm and storm spell persistence; the share of time within limits.")]
     public static async Task<Results<Ok<PointWindows>, ProblemHttpResult, ValidationProblem>> WindowsAsync(
         string slug, [AsParameters] PointPosition at, [AsParameters] AccessLimitsQuery query,
         PointLocator locator, DatasetCatalog catalog, SeriesStore series, ProvenanceBuilder provenance, CancellationToken cancel)
@@ -153,6 +137,13 @@ public static class PointAssessmentApi
         return TypedResults.Ok(PointWindows.From(slug, context.Cell, window.FromYear, window.ToYear, result, await provenance.ForAsync(context.Point.Dataset, cancel)));
     }
 
+    [EndpointName("PointExtremes")]
+    [EndpointSummary("Extreme Hs return levels at the wet cell nearest a position")]
+    [EndpointDescription(
+        "lat, lon: degrees. method: annual-maxima (Gumbel and GEV by maximum likelihood), peaks-over-threshold (GPD on runs-declustered " +
+        "storm peaks), or both when left out. threshold (m) or threshold_quantile (default 0.99) and separation_hours (default 48) for " +
+        "peaks over threshold. Return levels for 1, 5, 10, 50 and 100 years with 95 % profile-likelihood intervals, the fit against the " +
+        "data (probability-plot points) and cautions, strongest first in strong_caution when the record is short for the return period.")]
     public static async Task<Results<Ok<PointExtremes>, ProblemHttpResult, ValidationProblem>> ExtremesAsync(
         string slug, [AsParameters] PointPosition at, [AsParameters] PointExtremesQuery query,
         PointLocator locator, DatasetCatalog catalog, SeriesStore series, ProvenanceBuilder provenance, CancellationToken cancel)

@@ -1,8 +1,3 @@
-using Atlas.Assessment.Access;
-using Atlas.Assessment.Extremes;
-using Atlas.Assessment.Yield;
-using Atlas.Ingest.Validation;
-
 namespace Atlas.Api.Assessment;
 
 public sealed record DeviceSummary(string Name, string Slug, string Axis, double RatedPowerKw);

@@ -1,47 +1,33 @@
-using Atlas.Api.Data;
-using Atlas.Assessment.Validation;
-using Atlas.Assessment;
 using Atlas.Hindcast.Stations;
-using Atlas.Ingest.Assessment;
-using Atlas.Ingest.Validation;
-using Atlas.Storage.Stations;
-using Npgsql;
 
 namespace Atlas.Api.Assessment;
 
 /// <summary><c>/api/v1/stations</c>: the measuring stations whose records validate the hindcasts.</summary>
 public static class StationApi
 {
-    public static IEndpointRouteBuilder MapStationApi(this IEndpointRouteBuilder routes)
-    {
-        var group = routes.MapGroup("/api/v1/stations").WithTags("Stations");
-        group.MapGet("/", ListAsync).WithName("ListStations").WithSummary("The registered measuring stations");
-        group.MapGet("/{station}", DescribeAsync).WithName("DescribeStation").WithSummary("One station, by name or slug")
-            .ProducesProblems(StatusCodes.Status404NotFound);
-        group.MapPost("/", AddAsync).WithName("AddStation")
-            .WithSummary("Register a station with its record (needs X-Api-Key)")
-            .WithDescription(
-                "multipart/form-data with the record in the part 'file', or the record as a text/csv body; the description in form fields or " +
-                "query values: name, lat, lon (degrees), depth_m (optional), instrument, role (calibration or validation), file_name (body uploads). " +
-                "The record is CSV with the header time,hs_m[,tp_s][,te_s][,dir_deg][,qc] in any order: time ISO 8601 UTC (2021-01-01T03:00:00Z), " +
-                "Hs in m, periods in s, the direction waves come from in degrees true, qc 0 for a good row (other values are kept and counted " +
-                "as flagged); or a CF-NetCDF point time series (featureType timeSeries), whose stated position may replace lat and lon. " +
-                "Every bad row is reported with its line number (or variable and index) and nothing is stored. Loading the same file under the same name " +
-                "again changes nothing (200); a new station answers 201.")
-            .AcceptsUpload<StationRegistered>("text/csv", "application/x-netcdf");
-        group.MapDelete("/{station}", DeleteAsync).WithName("DeleteStation")
-            .WithSummary("Remove a station and its record (needs X-Api-Key)")
-            .ProducesProblems(StatusCodes.Status404NotFound)
-            .RequireApiKey();
-        return routes;
-    }
+    public static IEndpointRouteBuilder MapStationApi(this IEndpointRouteBuilder routes) =>
+        routes.MapReferenceRegistry<StationRegistered>("/api/v1/stations", "Stations", "station", ListAsync, DescribeAsync, AddAsync, DeleteAsync, "text/csv", "application/x-netcdf");
 
+    [EndpointName("ListStations")]
+    [EndpointSummary("The registered measuring stations")]
     public static async Task<Ok<StationList>> ListAsync(NpgsqlDataSource dataSource, CancellationToken cancel) =>
         TypedResults.Ok(new StationList([.. (await new StationStore(dataSource).ListAsync(cancel)).Select(StationItem.From)], AtlasCaution.Text));
 
+    [EndpointName("DescribeStation")]
+    [EndpointSummary("One station, by name or slug")]
     public static async Task<Results<Ok<StationItem>, ProblemHttpResult>> DescribeAsync(string station, NpgsqlDataSource dataSource, CancellationToken cancel) =>
         await new StationStore(dataSource).FindAsync(station, cancel) is { } found ? TypedResults.Ok(StationItem.From(found)) : ApiProblems.UnknownStation(station);
 
+    [EndpointName("AddStation")]
+    [EndpointSummary("Register a station with its record (needs X-Api-Key)")]
+    [EndpointDescription(
+        "multipart/form-data with the record in the part 'file', or the record as a text/csv body; the description in form fields or " +
+        "query values: name, lat, lon (degrees), depth_m (optional), instrument, role (calibration or validation), file_name (body uploads). " +
+        "The record is CSV with the header time,hs_m[,tp_s][,te_s][,dir_deg][,qc] in any order: time ISO 8601 UTC (2021-01-01T03:00:00Z), " +
+        "Hs in m, periods in s, the direction waves come from in degrees true, qc 0 for a good row (other values are kept and counted " +
+        "as flagged); or a CF-NetCDF point time series (featureType timeSeries), whose stated position may replace lat and lon. " +
+        "Every bad row is reported with its line number (or variable and index) and nothing is stored. Loading the same file under the same name " +
+        "again changes nothing (200); a new station answers 201.")]
     public static async Task<IResult> AddAsync(HttpRequest request, [FromKeyedServices(AtlasDataSources.Writer)] NpgsqlDataSource dataSource, CancellationToken cancel)
     {
         var (upload, problem) = await UploadReader.ReadAsync(request, "station.csv", cancel);
@@ -98,6 +84,8 @@ public static class StationApi
         }
     }
 
+    [EndpointName("DeleteStation")]
+    [EndpointSummary("Remove a station and its record (needs X-Api-Key)")]
     public static async Task<Results<NoContent, ProblemHttpResult>> DeleteAsync(string station, [FromKeyedServices(AtlasDataSources.Writer)] NpgsqlDataSource dataSource, CancellationToken cancel) =>
         await new StationStore(dataSource).DeleteAsync(station, cancel) ? TypedResults.NoContent() : ApiProblems.UnknownStation(station);
 

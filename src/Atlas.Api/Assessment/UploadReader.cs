@@ -1,4 +1,3 @@
-using Atlas.Storage.Stations;
 using Microsoft.AspNetCore.Http.Features;
 
 namespace Atlas.Api.Assessment;

@@ -1,13 +1,3 @@
-using System.Globalization;
-using System.Text;
-using Atlas.Api.Points;
-using Atlas.Assessment.Validation;
-using Atlas.Ingest.Validation;
-using Atlas.Storage.Datasets;
-using Atlas.Storage.Series;
-using Atlas.Storage.Stations;
-using Npgsql;
-
 namespace Atlas.Api.Assessment;
 
 /// <summary>
@@ -19,34 +9,29 @@ public static class ValidationApi
     public static IEndpointRouteBuilder MapValidationApi(this IEndpointRouteBuilder routes)
     {
         var dataset = routes.MapGroup("/api/v1/datasets/{slug}/validation").WithTags("Validation");
-        dataset.MapGet("/", TableAsync).WithName("ValidationTable")
-            .WithSummary("Skill of the dataset at each registered station: overall, by season and by Hs class")
-            .WithDescription(
-                "station: a station's name or slug (default: every station). format: json (default) or csv. For Hs, Tp, Te: N, mean observed " +
-                "and modelled, bias = mean(model - observed), RMSE, scatter index = RMSE / mean observed, bias-corrected scatter index, Pearson r, " +
-                "symmetric slope and the least-squares line; for direction the circular bias, circular RMSE and mean absolute difference. " +
-                "Each observation is paired with the nearest wet cell, linearly interpolated in time between the bracketing model steps within " +
-                "the tolerance (the larger of 1.5 h and the model step). role calibration/validation and independent say whether a station was " +
-                "used to tune the hindcast or kept aside. Stations outside the dataset are listed under not_covered.")
+        dataset.MapGet("/", TableAsync)
             .Produces<ValidationTable>(StatusCodes.Status200OK, "application/json", "text/csv")
             .ProducesProblems(StatusCodes.Status404NotFound)
             .RequireExpensiveLimit();
-        dataset.MapGet("/{station}/pairs", PairsAsync).WithName("ValidationPairs")
-            .WithSummary("Plot data at one station: matched pairs (scatter and time series), the 1:1 line, quantile pairs and the model series")
-            .WithDescription("variable: hs (default), tp, te or dir. format: json (default) or csv (the pairs only, after '#' provenance lines). " +
-                             "Quantiles are matched at probabilities 0.01..0.99 (Hyndman-Fan type 7, observed and modelled sorted separately).")
+        dataset.MapGet("/{station}/pairs", PairsAsync)
             .Produces<ValidationPlotData>(StatusCodes.Status200OK, "application/json", "text/csv")
             .ProducesProblems(StatusCodes.Status404NotFound, StatusCodes.Status422UnprocessableEntity)
             .RequireExpensiveLimit();
-        routes.MapGet("/api/v1/validation/compare", CompareAsync).WithTags("Validation").WithName("ValidationComparison")
-            .WithSummary("Several hindcast runs compared station by station, ranked by scatter index with bias shown")
-            .WithDescription("datasets: two or more dataset slugs, comma separated. variable: hs (default), tp or te. Per station the runs are ranked " +
-                             "by scatter index (1 = smallest); the ranking over all stations uses the mean scatter index of the stations each run covers.")
+        routes.MapGet("/api/v1/validation/compare", CompareAsync).WithTags("Validation")
             .ProducesProblems(StatusCodes.Status404NotFound)
             .RequireExpensiveLimit();
         return routes;
     }
 
+    [EndpointName("ValidationTable")]
+    [EndpointSummary("Skill of the dataset at each registered station: overall, by season and by Hs class")]
+    [EndpointDescription(
+        "station: a station's name or slug (default: every station). format: json (default) or csv. For Hs, Tp, Te: N, mean observed " +
+        "and modelled, bias = mean(model - observed), RMSE, scatter index = RMSE / mean observed, bias-corrected scatter index, Pearson r, " +
+        "symmetric slope and the least-squares line; for direction the circular bias, circular RMSE and mean absolute difference. " +
+        "Each observation is paired with the nearest wet cell, linearly interpolated in time between the bracketing model steps within " +
+        "the tolerance (the larger of 1.5 h and the model step). role calibration/validation and independent say whether a station was " +
+        "used to tune the hindcast or kept aside. Stations outside the dataset are listed under not_covered.")]
     public static async Task<Results<Ok<ValidationTable>, FileContentHttpResult, ProblemHttpResult, ValidationProblem>> TableAsync(
         string slug, [AsParameters] ValidationTableQuery query, DatasetCatalog catalog, ValidationService service,
         ProvenanceBuilder provenance, CancellationToken cancel)
@@ -70,6 +55,11 @@ public static class ValidationApi
         return TypedResults.Ok(table);
     }
 
+    [EndpointName("ValidationPairs")]
+    [EndpointSummary("Plot data at one station: matched pairs (scatter and time series), the 1:1 line, quantile pairs and the model series")]
+    [EndpointDescription(
+        "variable: hs (default), tp, te or dir. format: json (default) or csv (the pairs only, after '#' provenance lines). " +
+        "Quantiles are matched at probabilities 0.01..0.99 (Hyndman-Fan type 7, observed and modelled sorted separately).")]
     public static async Task<Results<Ok<ValidationPlotData>, FileContentHttpResult, ProblemHttpResult, ValidationProblem>> PairsAsync(
         string slug, string station, [AsParameters] ValidationPairsQuery query, DatasetCatalog catalog, ValidationService service,
         ProvenanceBuilder provenance, CancellationToken cancel)
@@ -103,6 +93,11 @@ public static class ValidationApi
             OneToOne(pairs, wanted), list, quantiles, ModelSeries(validation, wanted), source, AtlasCaution.Text));
     }
 
+    [EndpointName("ValidationComparison")]
+    [EndpointSummary("Several hindcast runs compared station by station, ranked by scatter index with bias shown")]
+    [EndpointDescription(
+        "datasets: two or more dataset slugs, comma separated. variable: hs (default), tp or te. Per station the runs are ranked " +
+        "by scatter index (1 = smallest); the ranking over all stations uses the mean scatter index of the stations each run covers.")]
     public static async Task<Results<Ok<ValidationComparison>, ProblemHttpResult, ValidationProblem>> CompareAsync(
         [AsParameters] ValidationCompareQuery query, DatasetCatalog catalog, ValidationService service,
         ProvenanceBuilder provenance, CancellationToken cancel)

@@ -1,7 +1,3 @@
-using System.Globalization;
-using System.Text;
-using Atlas.Ingest.Validation;
-
 namespace Atlas.Api.Assessment;
 
 /// <summary>The validation skill table as a CSV download.</summary>

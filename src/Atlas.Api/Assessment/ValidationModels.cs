@@ -1,7 +1,3 @@
-using Atlas.Assessment.Validation;
-using Atlas.Ingest.Validation;
-using Atlas.Storage.Stations;
-
 namespace Atlas.Api.Assessment;
 
 public sealed record StationList(IReadOnlyList<StationItem> Stations, string Caution);

@@ -1,5 +1,3 @@
-using Atlas.Storage.Cells;
-
 namespace Atlas.Api.Catalog;
 
 /// <summary>Every cell of a dataset, wet and dry, found by its cell id (a grid point index or a mesh node).</summary>

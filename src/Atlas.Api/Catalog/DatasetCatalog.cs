@@ -1,11 +1,3 @@
-using Atlas.Api.Infrastructure;
-using Atlas.Api.Points;
-using Atlas.Storage.Cells;
-using Atlas.Storage.Datasets;
-using Atlas.Storage.Queries;
-using Microsoft.Extensions.Caching.Memory;
-using Microsoft.Extensions.Options;
-
 namespace Atlas.Api.Catalog;
 
 /// <summary>

@@ -1,5 +1,3 @@
-using Atlas.Storage.Datasets;
-
 namespace Atlas.Api.Catalog;
 
 /// <summary>

@@ -1,8 +1,3 @@
-using System.Reflection;
-using System.Text.Json;
-using Atlas.Storage.Datasets;
-using Microsoft.Extensions.Caching.Memory;
-
 namespace Atlas.Api.Catalog;
 
 /// <summary>Assembles the provenance of a dataset's figures: source files and checksums, software, dates, method.</summary>

@@ -1,5 +1,3 @@
-using Atlas.Storage;
-
 namespace Atlas.Api.Data;
 
 /// <summary>

@@ -1,8 +1,3 @@
-using Atlas.Storage.Jobs;
-using Atlas.Storage.Queries;
-using Atlas.Storage;
-using Npgsql;
-
 namespace Atlas.Api.Data;
 
 /// <summary>

@@ -1,5 +1,4 @@
 using System.Net.Sockets;
-using Npgsql;
 
 namespace Atlas.Api.Data;
 

@@ -1,6 +1,3 @@
-using System.Text.Json;
-using NetTopologySuite.Features;
-using NetTopologySuite.Geometries;
 using NetTopologySuite.IO.Converters;
 
 namespace Atlas.Api.Downloads;

@@ -1,8 +1,4 @@
-using System.Globalization;
-using System.IO.Compression;
 using System.Security;
-using System.Text;
-using Atlas.Api.Rasters;
 using BitMiracle.LibTiff.Classic;
 
 namespace Atlas.Api.Downloads;

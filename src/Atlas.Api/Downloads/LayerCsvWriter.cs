@@ -1,8 +1,3 @@
-using System.Globalization;
-using System.Text;
-using Atlas.Api.Layers;
-using Atlas.Statistics;
-
 namespace Atlas.Api.Downloads;
 
 /// <summary>

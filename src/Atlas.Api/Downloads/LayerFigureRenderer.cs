@@ -1,6 +1,3 @@
-using System.Globalization;
-using Atlas.Api.Layers;
-using Atlas.Api.Rasters;
 using SkiaSharp;
 
 namespace Atlas.Api.Downloads;

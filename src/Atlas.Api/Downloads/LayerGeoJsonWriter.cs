@@ -1,10 +1,3 @@
-using Atlas.Api.Footprints;
-using Atlas.Api.Layers;
-using Atlas.Statistics;
-using Atlas.Storage.Statistics;
-using NetTopologySuite.Features;
-using NetTopologySuite.Geometries;
-
 namespace Atlas.Api.Downloads;
 
 /// <summary>

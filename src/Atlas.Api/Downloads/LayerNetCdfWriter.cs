@@ -1,7 +1,4 @@
-using Atlas.Api.Layers;
-using Atlas.Api.Rasters;
 using Atlas.Hindcast;
-using Atlas.Statistics;
 
 namespace Atlas.Api.Downloads;
 

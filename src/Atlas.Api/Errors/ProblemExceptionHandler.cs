@@ -1,6 +1,5 @@
-using Atlas.Api.Data;
-using Microsoft.AspNetCore.Diagnostics;
 using Microsoft.AspNetCore.Mvc;
+using Microsoft.AspNetCore.Diagnostics;
 
 namespace Atlas.Api.Errors;
 

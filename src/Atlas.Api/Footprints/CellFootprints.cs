@@ -1,9 +1,4 @@
-using Atlas.Api.Rasters;
 using Atlas.Hindcast.Geodesy;
-using Atlas.Storage.Cells;
-using Atlas.Storage.Datasets;
-using Microsoft.Extensions.Caching.Memory;
-using NetTopologySuite.Geometries;
 using NetTopologySuite.Triangulate;
 
 namespace Atlas.Api.Footprints;

@@ -1,17 +1,3 @@
-using System.Security.Cryptography;
-using Atlas.Api.Downloads;
-using Atlas.Api.Footprints;
-using Atlas.Api.Infrastructure;
-using Atlas.Api.Rasters;
-using Atlas.Api.Vocabulary;
-using Atlas.Statistics;
-using Atlas.Storage.Cells;
-using Atlas.Storage.Datasets;
-using Atlas.Storage.Queries;
-using Atlas.Storage.Statistics;
-using Microsoft.Extensions.Caching.Memory;
-using Microsoft.Extensions.Options;
-
 namespace Atlas.Api.Layers;
 
 /// <summary>A layer's values with what is needed to draw and describe them.</summary>

@@ -1,5 +1,3 @@
-using Atlas.Statistics;
-
 namespace Atlas.Api.Layers;
 
 /// <summary>One layer download: parameter, statistic, period, format, and for GeoJSON the cell geometry.</summary>

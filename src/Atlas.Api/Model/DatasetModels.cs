@@ -1,5 +1,3 @@
-using System.Text.Json;
-
 namespace Atlas.Api.Model;
 
 public sealed record Extent(double West, double South, double East, double North);
@@ -28,12 +26,12 @@ public sealed record DatasetDetail(
     string Slug,
     string Title,
     string GridKind,
+    Extent? Extent,
     int? Nx,
     int? Ny,
     int PointCount,
     int WetCellCount,
     int StatisticsCellCount,
-    Extent? Extent,
     TimeCoverage Time,
     JsonElement? Variables,
     IReadOnlyList<ParameterItem> Parameters,

@@ -1,5 +1,3 @@
-using Atlas.Statistics;
-
 namespace Atlas.Api.Model;
 
 /// <summary>The exact statistics at the wet cell nearest a position.</summary>

@@ -1,5 +1,3 @@
-using Atlas.Storage.Datasets;
-
 namespace Atlas.Api.Model;
 
 /// <summary>Where a figure comes from: carried by every download and every computed response.</summary>

@@ -1,6 +1,4 @@
 using System.Diagnostics.Metrics;
-using Atlas.Api.Data;
-using Atlas.Storage.Jobs;
 
 namespace Atlas.Api.Operations;
 

@@ -1,6 +1,3 @@
-using Atlas.Api.Infrastructure;
-using Atlas.Storage;
-
 namespace Atlas.Api.Operations;
 
 /// <summary>Finds the map page folder: the configured path, else <c>wwwroot</c> in the checkout (beside Atlas.sln).</summary>

@@ -1,5 +1,3 @@
-using Atlas.Statistics;
-
 namespace Atlas.Api.Points;
 
 /// <summary>

@@ -1,9 +1,3 @@
-using Atlas.Api.Infrastructure;
-using Atlas.Statistics;
-using Atlas.Storage.Cells;
-using Atlas.Storage.Datasets;
-using Microsoft.Extensions.Options;
-
 namespace Atlas.Api.Points;
 
 /// <summary>A position resolved to its dataset and nearest wet cell.</summary>

@@ -1,10 +1,4 @@
 using System.Collections.Concurrent;
-using System.IO.Compression;
-using System.Security.Cryptography;
-using System.Text;
-using Atlas.Api.Infrastructure;
-using Microsoft.Extensions.Caching.Memory;
-using Microsoft.Extensions.Options;
 
 namespace Atlas.Api.Points;
 

@@ -1,5 +1,3 @@
-using System.Text.Json;
-
 namespace Atlas.Api.Rasters;
 
 /// <summary>

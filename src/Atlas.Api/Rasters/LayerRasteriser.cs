@@ -1,6 +1,3 @@
-using Atlas.Storage.Statistics;
-using NetTopologySuite.Geometries;
-
 namespace Atlas.Api.Rasters;
 
 /// <summary>

@@ -1,4 +1,3 @@
-using Atlas.Assessment.Access;
 using Microsoft.AspNetCore.Mvc;
 
 namespace Atlas.Api.Requests;

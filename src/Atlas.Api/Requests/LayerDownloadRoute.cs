@@ -1,6 +1,3 @@
-using Atlas.Api.Layers;
-using Atlas.Api.Vocabulary;
-using Atlas.Statistics;
 using Microsoft.AspNetCore.Mvc;
 
 namespace Atlas.Api.Requests;

@@ -1,5 +1,3 @@
-using Atlas.Assessment.Yield;
-
 namespace Atlas.Api.Requests;
 
 /// <summary>How a power matrix is read between its bins: the interpolation query value and the note every answer states.</summary>

@@ -1,4 +1,3 @@
-using Atlas.Assessment.Extremes;
 using Microsoft.AspNetCore.Mvc;
 
 namespace Atlas.Api.Requests;

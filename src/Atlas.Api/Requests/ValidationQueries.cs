@@ -1,5 +1,3 @@
-using Atlas.Assessment.Validation;
-using Atlas.Ingest.Validation;
 using Microsoft.AspNetCore.Mvc;
 
 namespace Atlas.Api.Requests;

@@ -1,5 +1,3 @@
-using System.Globalization;
-
 namespace Atlas.Api.Requests;
 
 /// <summary>

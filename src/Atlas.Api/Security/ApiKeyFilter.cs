@@ -1,5 +1,3 @@
-using Atlas.Api.Infrastructure;
-
 namespace Atlas.Api.Security;
 
 /// <summary>Lets a write endpoint run only with a valid <c>X-Api-Key</c> header.</summary>

@@ -1,8 +1,3 @@
-using System.Security.Cryptography;
-using System.Text;
-using Atlas.Api.Infrastructure;
-using Microsoft.Extensions.Options;
-
 namespace Atlas.Api.Security;
 
 /// <summary>

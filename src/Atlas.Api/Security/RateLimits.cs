@@ -1,7 +1,5 @@
-using System.Globalization;
-using System.Threading.RateLimiting;
-using Atlas.Api.Infrastructure;
 using Microsoft.AspNetCore.Mvc;
+using System.Threading.RateLimiting;
 using Microsoft.AspNetCore.RateLimiting;
 
 namespace Atlas.Api.Security;

@@ -1,5 +1,3 @@
-using Atlas.Statistics;
-
 namespace Atlas.Api.Vocabulary;
 
 /// <summary>What the API says about each wave parameter and statistic: name and unit.</summary>

@@ -1,5 +1,3 @@
-using Atlas.Statistics;
-
 namespace Atlas.Api.Vocabulary;
 
 /// <summary>What to say when a request names a parameter, statistic or period the atlas does not have.</summary>

@@ -1,3 +1,4 @@
+using Atlas.Storage;
 using Atlas.Storage.Cells;
 using Atlas.Storage.Datasets;
 using Atlas.Storage.Queries;
@@ -22,11 +23,7 @@ public static class ValidationRegistration
             .BindConfiguration(StationCellOptions.Section)
             .ValidateDataAnnotations()
             .ValidateOnStart();
-        services.TryAddSingleton<DatasetStore>();
-        services.TryAddSingleton<DatasetGeometryQueries>();
-        services.TryAddSingleton<CellStore>();
-        services.TryAddSingleton<SeriesStore>();
-        services.TryAddSingleton<StationStore>();
+        services.AddAtlasStores();
         services.TryAddSingleton<IStationCellFinder, StoredStationCells>();
         services.AddSingleton<ValidationService>();
         return services;

@@ -92,7 +92,12 @@ public sealed class BinnedCellCalculator
         SummaryStatistics hs = _hs.Summarise(period, expected);
         SummaryStatistics power = _power.Summarise(period, expected);
         double coreCoverage = hasPower ? power.Coverage : hs.Coverage;
-        PeriodDirectionality directionality = _directionality.Summarise(period, expected);
+        // Directions merge the period's (year, month) slots, each calendar month weighted by its expected steps when balanced.
+        Span<long> expectedByMonth = stackalloc long[12];
+        calendar.ExpectedByMonth(period, expectedByMonth);
+        ReadOnlySpan<int> slots = calendar.SlotsOf(period);
+        bool balanced = MonthBalance.Applies(period);
+        PeriodDirectionality directionality = _directionality.Summarise(slots, expected, expectedByMonth, balanced);
         return new PeriodStatistics(
             period,
             expected,
@@ -102,7 +107,7 @@ public sealed class BinnedCellCalculator
             power,
             _spread.Summarise(period, expected),
             directionality.AsSummary(),
-            _direction.Summarise(period, expected) with
+            _direction.Summarise(slots, expected, expectedByMonth, balanced) with
             {
                 DirectionalityCoefficient = directionality.Coefficient,
                 MaxPowerFromDeg = directionality.MaxPowerFromDegrees,

@@ -52,14 +52,6 @@ internal sealed class DirectionAccumulator
         }
     }
 
-    public DirectionStatistics Summarise(AtlasPeriod period, long expectedSteps)
-    {
-        if (!HasSeries) return DirectionStatistics.Empty;
-        Span<long> expectedByMonth = stackalloc long[12];
-        _calendar!.ExpectedByMonth(period, expectedByMonth);
-        return Summarise(_calendar.SlotsOf(period), expectedSteps, expectedByMonth, MonthBalance.Applies(period));
-    }
-
     /// <summary>
     /// The statistics over a set of slots (a period restricted to a window, in the point analysis), each calendar
     /// month weighted by <see cref="MonthBalance"/> when <paramref name="balanced"/>.

@@ -51,15 +51,6 @@ internal sealed class DirectionalityAccumulator
         }
     }
 
-    /// <summary>The directionality of a period of the current cell (see <see cref="Summarise(ReadOnlySpan{int}, long, ReadOnlySpan{long}, bool)"/>).</summary>
-    public PeriodDirectionality Summarise(AtlasPeriod period, long expectedSteps)
-    {
-        if (!HasSeries) return PeriodDirectionality.Empty;
-        Span<long> expectedByMonth = stackalloc long[12];
-        _calendar!.ExpectedByMonth(period, expectedByMonth);
-        return Summarise(_calendar.SlotsOf(period), expectedSteps, expectedByMonth, MonthBalance.Applies(period));
-    }
-
     /// <summary>
     /// The directionality over a set of slots: the slots' harmonic sums merged (each calendar month weighted by
     /// <see cref="MonthBalance"/> when <paramref name="balanced"/>), J_theta maximised over theta.
