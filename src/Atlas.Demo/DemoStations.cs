@@ -2,7 +2,7 @@ namespace Atlas.Demo;
 
 /// <summary>
 /// The two invented buoys and the invented device of the demo. Each buoy is moored at the centre
-/// of the wet cell nearest to a chosen spot in the local kilometre frame: Skelvane Outer about
+/// of the wet cell nearest to a chosen spot in the local kilometre frame: Gannetby Deep about
 /// 20 km off the open coast in some 50 m of water (the calibration station, unbiased), and
 /// Quellmouth Approach between the hook of Corrack Head and Feltrum Isle in the partly sheltered
 /// approach to the bay (the validation station, whose Hs reads 4 % high).
@@ -13,21 +13,21 @@ public static class DemoStations
 
     private static readonly Mooring[] Moorings =
     [
-        new("Skelvane Outer", "buoy-skelvane-outer.csv", BuoyRole.Calibration,
-            "0.9 m spherical directional wave buoy (heave, pitch and roll)", 140.0, 42.0, 0.0, 11),
+        new("Gannetby Deep", "buoy-gannetby-deep.csv", BuoyRole.Calibration,
+            "directional wave buoy (heave, pitch and roll)", 140.0, 42.0, 0.0, 11),
         new("Quellmouth Approach", "buoy-quellmouth-approach.csv", BuoyRole.Validation,
             "2.5 m discus buoy with a motion reference unit", 146.0, 86.0, 0.04, 12),
     ];
 
     /// <summary>The device whose power matrix the demo writes.</summary>
     public static DemoDevice Device { get; } = new(
-        "Wrenfold PA-750", "heaving point absorber", 750.0, "power-matrix-wrenfold-pa750.csv");
+        "Tarnlow HF-380", "heave float", 380.0, "power-matrix-tarnlow-hf380.csv");
 
     /// <summary>Resonance (energy) period of the device, s.</summary>
-    public const double DeviceResonancePeriodSeconds = 8.5;
+    public const double DeviceResonancePeriodSeconds = 8.0;
 
     /// <summary>Largest capture width of the device, m.</summary>
-    public const double DevicePeakCaptureWidthMetres = 14.0;
+    public const double DevicePeakCaptureWidthMetres = 11.0;
 
     /// <summary>The device's power matrix.</summary>
     public static DevicePowerMatrix DevicePowerMatrix() =>

@@ -40,7 +40,7 @@ public sealed class DevicePowerMatrix
     /// <summary>
     /// The matrix of a point absorber rated <paramref name="ratedKilowatts"/> whose capture width
     /// peaks at <paramref name="peakCaptureWidthMetres"/> at <paramref name="resonancePeriodSeconds"/>,
-    /// on Hs bins 0.5..8 m by 0.5 m and Te bins 5..15 s by 1 s.
+    /// on Hs bins centred 0.25..6.75 m by 0.5 m and Te bins centred 4.5..16.5 s by 1 s.
     /// </summary>
     public static DevicePowerMatrix PointAbsorber(string name, double ratedKilowatts, double resonancePeriodSeconds, double peakCaptureWidthMetres)
     {
@@ -48,8 +48,8 @@ public sealed class DevicePowerMatrix
         ArgumentOutOfRangeException.ThrowIfNegativeOrZero(ratedKilowatts);
         ArgumentOutOfRangeException.ThrowIfNegativeOrZero(resonancePeriodSeconds);
         ArgumentOutOfRangeException.ThrowIfNegativeOrZero(peakCaptureWidthMetres);
-        double[] hs = [.. Enumerable.Range(1, 16).Select(i => 0.5 * i)];
-        double[] te = [.. Enumerable.Range(5, 11).Select(i => (double)i)];
+        double[] hs = [.. Enumerable.Range(0, 14).Select(i => 0.25 + 0.5 * i)];
+        double[] te = [.. Enumerable.Range(0, 13).Select(i => 4.5 + i)];
         var kw = new double[hs.Length, te.Length];
         for (int j = 0; j < te.Length; j++)
         {

@@ -29,11 +29,11 @@ public static class PowerMatrixCsvWriter
         ArgumentNullException.ThrowIfNull(matrix);
         var invariant = CultureInfo.InvariantCulture;
         writer.Write(Corner);
-        foreach (double te in matrix.TeCentres) writer.Write("," + te.ToString("F1", invariant));
+        foreach (double te in matrix.TeCentres) writer.Write("," + te.ToString("0.0##", invariant));
         writer.WriteLine();
         for (int i = 0; i < matrix.HsCentres.Length; i++)
         {
-            writer.Write(matrix.HsCentres[i].ToString("F1", invariant));
+            writer.Write(matrix.HsCentres[i].ToString("0.0##", invariant));
             for (int j = 0; j < matrix.TeCentres.Length; j++)
                 writer.Write("," + matrix.Kilowatts[i, j].ToString("F0", invariant));
             writer.WriteLine();

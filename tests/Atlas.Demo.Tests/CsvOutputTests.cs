@@ -44,23 +44,24 @@ public class CsvOutputTests(WrittenScenarioFixture written)
         using var doc = JsonDocument.Parse(ExternalProcess.RunPythonScript("check_csv.py", "matrix", written.PathOf(device.FileName)));
         var r = doc.RootElement;
         Assert.Equal("hs_m\\te_s", r.GetProperty("corner").GetString());
-        Assert.Equal(Enumerable.Range(5, 11).Select(i => (double)i), r.GetProperty("te").EnumerateArray().Select(e => e.GetDouble()));
-        Assert.Equal(Enumerable.Range(1, 16).Select(i => 0.5 * i), r.GetProperty("hs").EnumerateArray().Select(e => e.GetDouble()));
+        Assert.Equal(Enumerable.Range(0, 13).Select(i => 4.5 + i), r.GetProperty("te").EnumerateArray().Select(e => e.GetDouble()));
+        Assert.Equal(Enumerable.Range(0, 14).Select(i => 0.25 + 0.5 * i), r.GetProperty("hs").EnumerateArray().Select(e => e.GetDouble()));
         double[][] power = [.. r.GetProperty("power").EnumerateArray().Select(row => row.EnumerateArray().Select(e => e.GetDouble()).ToArray())];
         Assert.All(power, row => Assert.All(row, p => Assert.InRange(p, 0.0, device.RatedKilowatts)));
         Assert.Equal(device.RatedKilowatts, power.Max(row => row.Max()));
         // Rises with Hs in every Te column.
-        for (int j = 0; j < 11; j++)
-            for (int i = 1; i < 16; i++)
+        for (int j = 0; j < 13; j++)
+            for (int i = 1; i < 14; i++)
                 Assert.True(power[i][j] >= power[i - 1][j], $"Te column {j}, Hs row {i}");
         // Below the rating power follows wave power, proportional to Hs^2 (IEC TS 62600-101,
-        // from memory): doubling Hs from 0.5 to 1 m at Te = 10 s gives 4 times, within 5 % (kW rounding).
-        Assert.Equal(4.0, power[1][5] / power[0][5], 0.2);
-        // Peaks near resonance and falls off at short and long periods (Hs = 2 m row).
-        double[] twoMetres = power[3];
-        int best = Array.IndexOf(twoMetres, twoMetres.Max());
-        Assert.InRange(best + 5, 8, 11);
-        Assert.True(twoMetres[0] < 0.4 * twoMetres[best] && twoMetres[10] < 0.4 * twoMetres[best]);
+        // from memory): Hs from 0.75 to 1.25 m at Te = 9.5 s gives (5/3)^2 = 2.78 times, within 5 % (kW rounding and the
+        // onset of the rating).
+        Assert.Equal(25.0 / 9.0, power[2][5] / power[1][5], 0.14);
+        // Peaks near resonance and falls off at short and long periods (Hs = 2.25 m row).
+        double[] row = power[4];
+        int best = Array.IndexOf(row, row.Max());
+        Assert.InRange(4.5 + best, 7.5, 10.5);
+        Assert.True(row[0] < 0.4 * row[best] && row[12] < 0.4 * row[best]);
     }
 
     [Fact]

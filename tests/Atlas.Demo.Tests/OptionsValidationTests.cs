@@ -51,7 +51,7 @@ public class OptionsValidationTests
         Assert.Equal(3, scenario.StepHours);
         Assert.Contains(scenario.Buoys, b => b.Role == BuoyRole.Calibration);
         Assert.Contains(scenario.Buoys, b => b.Role == BuoyRole.Validation);
-        Assert.Equal(750.0, scenario.Device.RatedKilowatts);
+        Assert.Equal(380.0, scenario.Device.RatedKilowatts);
         Assert.Contains(scenario.DescribeLines(), l => l.Contains("Skelvane Reach"));
     }
 }

@@ -5,7 +5,7 @@ namespace Atlas.Storage.Stations;
 
 /// <summary>
 /// The URL name of a station or a device: the name lower-cased, letters and digits kept (accents dropped), every other
-/// run of characters turned into one hyphen, at most 63 characters ("Skelvane Outer" becomes "skelvane-outer").
+/// run of characters turned into one hyphen, at most 63 characters ("Gannetby Deep" becomes "gannetby-deep").
 /// </summary>
 public static class ReferenceSlug
 {
