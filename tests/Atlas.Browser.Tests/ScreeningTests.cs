@@ -51,7 +51,7 @@ public class ScreeningTests(AtlasSite site)
         Assert.Equal(expected, highlighted);
         var outline = await OutlineKeyColourAsync(page);
         // Along a line from each highlighted cell's centre to its western neighbour's, across the edge between them.
-        var step = GridStep(cells);
+        var step = SeaCells.GridStep(cells, c => c.Lon);
         var westLines = cells.Where(c => expected.Contains(c.Id)).Select(c => (c.Lat, c.Lon, c.Lat, c.Lon - step)).ToArray();
         var westEdges = await PageMap.CanvasColoursAlongAsync(page, westLines);
         Assert.All(westEdges, line => Assert.Contains(line, rgba => IsOutline(rgba, outline)));
@@ -75,6 +75,18 @@ public class ScreeningTests(AtlasSite site)
         Assert.Empty(session.Errors);
     }
 
+    [Fact]
+    public async Task ReversedDepthWindowShowsTheApisProblem()
+    {
+        await using var session = await site.OpenAsync();
+        var page = session.Page;
+        await page.FillAsync("input[name='min_depth_m']", "300");
+        await page.FillAsync("input[name='max_depth_m']", "20");
+        await page.ClickAsync("#screen-form button[type='submit']");
+        await page.WaitForSelectorAsync("#screen-result.error");
+        Assert.Contains("reversed", await page.TextContentAsync("#screen-result"));
+    }
+
     /// <summary>Two canvas pixels of the same colour (a cell's solid fill is painted identically each time).</summary>
     private static bool SameColour(int[] a, int[] b) => a.Zip(b).All(p => Math.Abs(p.First - p.Second) <= 1);
 
@@ -93,24 +105,5 @@ public class ScreeningTests(AtlasSite site)
         var rgb = Regex.Match(css, @"rgba?\((\d+), (\d+), (\d+)");
         Assert.True(rgb.Success, $"the outline key's colour is '{css}'");
         return [.. Enumerable.Range(1, 3).Select(g => int.Parse(rgb.Groups[g].Value, CultureInfo.InvariantCulture))];
-    }
-
-    /// <summary>The grid's step in longitude: the smallest gap between cell centres' longitudes.</summary>
-    private static double GridStep(IReadOnlyList<LayerCell> cells)
-    {
-        var lons = cells.Select(c => c.Lon).Distinct().Order().ToArray();
-        return lons.Zip(lons.Skip(1), (a, b) => b - a).Where(d => d > 1e-9).Min();
-    }
-
-    [Fact]
-    public async Task ReversedDepthWindowShowsTheApisProblem()
-    {
-        await using var session = await site.OpenAsync();
-        var page = session.Page;
-        await page.FillAsync("input[name='min_depth_m']", "300");
-        await page.FillAsync("input[name='max_depth_m']", "20");
-        await page.ClickAsync("#screen-form button[type='submit']");
-        await page.WaitForSelectorAsync("#screen-result.error");
-        Assert.Contains("reversed", await page.TextContentAsync("#screen-result"));
     }
 }
