@@ -7,8 +7,8 @@ namespace Atlas.Browser.Tests;
 /// <summary>
 /// The layer as a person sees it: its download links (written once the layer is painted), the facts line under
 /// the selectors ("1,234 cells with a value, from ...") and the read-out under the colour bar of the cell the pointer
-/// rests on. Waits use Playwright's auto-waiting assertions, which retry
-/// until the page shows the expected state (the suite-wide limit is CI's, set in <see cref="AtlasSite"/>).
+/// rests on. Waits use Playwright's auto-waiting assertions, which retry until the page shows the expected state (the
+/// suite-wide limit is CI's, set in <see cref="AtlasSite"/>).
 /// </summary>
 public static class ShownLayer
 {
@@ -27,7 +27,7 @@ public static class ShownLayer
 
     /// <summary>
     /// The current layer's value of a cell with its unit, as the read-out under the colour bar shows it while the pointer
-    /// rests on the cell's centre ("Pointer, cell 812: 31.4159 kW/m"). The read-out follows a new layer at once, so
+    /// rests on the cell's centre ("Under the pointer, cell 812: 31.4159 kW/m"). The read-out follows a new layer at once, so
     /// after <see cref="WaitForAsync"/> it shows the new layer's value for a pointer that has not moved.
     /// </summary>
     public static async Task<string> CellValueAsync(IPage page, LayerCell cell)

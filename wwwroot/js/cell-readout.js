@@ -1,7 +1,7 @@
 // The value read-out under the colour bar: the current layer's value of one cell, as text with its unit. The colour
 // bar gives a value only roughly; the read-out gives the number itself. It follows the pointer over the map; a tap or
-// click (a touch screen has no pointer to follow) reads the cell tapped; and while the map has the keyboard focus it
-// reads the cell at the map centre after each move, the cell Enter would open.
+// click (a touch screen has no pointer to follow) reads the cell tapped; and a move of the focused map with the keys
+// reads the cell at the map centre, the cell Enter would open.
 
 import { FootprintIndex } from './footprint-index.js';
 import { el } from './format.js';
