@@ -6,7 +6,7 @@
 import { FootprintIndex } from './footprint-index.js';
 import { el } from './format.js';
 
-const hint = 'Point at a sea cell to read its value.';
+const hint = 'Point at or tap a sea cell to read its value.';
 
 // The keys with which the map pans and zooms (the map library's keyboard handler).
 const keysThatMove = new Set(['ArrowUp', 'ArrowDown', 'ArrowLeft', 'ArrowRight', '+', '-', '=', '_']);
