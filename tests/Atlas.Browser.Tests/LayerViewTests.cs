@@ -34,7 +34,7 @@ public class LayerViewTests(AtlasSite site)
             var reference = await SeaCells.LayerAsync(site.Http, parameter, statistic, period);
             Assert.Equal(reference.Count, await ShownLayer.CellsWithAValueAsync(page));
             var expected = reference.Single(c => c.Id == cell.Id).Value;
-            Assert.Equal(expected, await page.EvaluateAsync<double>($"() => window.atlasPage.layers.current.values.get({cell.Id})"), 4);
+            ShownNumber.MatchesTo(4, expected, await ShownLayer.CellValueAsync(page, cell), $"{parameter} {statistic} {period} of cell {cell.Id}");
 
             await page.WaitForFunctionAsync($"() => Number(document.querySelector('canvas.cell-canvas').dataset.draws) > {draws}");
             draws = await PageMap.DrawsAsync(page);

@@ -27,8 +27,10 @@ public class PageLoadTests(AtlasSite site)
         var layer = await SeaCells.LayerAsync(site.Http, "j", "mean", "annual");
         var drawn = await ShownLayer.CellsWithAValueAsync(page);
         Assert.Equal(layer.Count, drawn);
-        var value = await page.EvaluateAsync<double>($"() => window.atlasPage.layers.current.values.get({cell.Id})");
-        Assert.Equal(cell.Value, value, 4);
+        // The value the read-out under the colour bar shows for the cell under the pointer, with the layer's unit.
+        var shown = await ShownLayer.CellValueAsync(page, cell);
+        ShownNumber.MatchesTo(4, cell.Value, shown, $"cell {cell.Id}");
+        Assert.EndsWith(" kW/m", shown);
 
         await page.ScreenshotAsync(new PageScreenshotOptions { Path = Path.Combine(site.ScreenshotFolder, "wide-layer.png") });
     }

@@ -32,4 +32,11 @@ public static class SeaCells
         double lon = west + (east - west) / 3, lat = (south + north) / 2;
         return cells.MinBy(c => Math.Pow(c.Lon - lon, 2) + Math.Pow(c.Lat - lat, 2))!;
     }
+
+    /// <summary>The grid's step along one coordinate: the smallest gap between the cell centres' distinct values.</summary>
+    public static double GridStep(IEnumerable<LayerCell> cells, Func<LayerCell, double> coordinate)
+    {
+        var values = cells.Select(coordinate).Distinct().Order().ToArray();
+        return values.Zip(values.Skip(1), (a, b) => b - a).Where(d => d > 1e-9).Min();
+    }
 }

@@ -5,9 +5,10 @@ using Microsoft.Playwright;
 namespace Atlas.Browser.Tests;
 
 /// <summary>
-/// The layer as a person sees it: its download links (written once the layer is painted) and the facts line under
-/// the selectors ("1,234 cells with a value, from ..."). Waits use Playwright's auto-waiting assertions, which retry
-/// until the page shows the expected state (the suite-wide limit is CI's, set in <see cref="AtlasSite"/>).
+/// The layer as a person sees it: its download links (written once the layer is painted), the facts line under
+/// the selectors ("1,234 cells with a value, from ...") and the read-out under the colour bar of the cell the pointer
+/// rests on. Waits use Playwright's auto-waiting assertions, which retry until the page shows the expected state (the
+/// suite-wide limit is CI's, set in <see cref="AtlasSite"/>).
 /// </summary>
 public static class ShownLayer
 {
@@ -23,6 +24,20 @@ public static class ShownLayer
 
     /// <summary>Waits until the land mask is drawn, as the person sees it: the colour bar gains its "land (dry cells)" key.</summary>
     public static Task WaitForLandAsync(IPage page) => Assertions.Expect(page.Locator("#map-legend .swatch.land")).ToBeVisibleAsync();
+
+    /// <summary>
+    /// The current layer's value of a cell with its unit, as the read-out under the colour bar shows it while the pointer
+    /// rests on the cell's centre ("Under the pointer, cell 812: 31.4159 kW/m"). The read-out follows a new layer at once, so
+    /// after <see cref="WaitForAsync"/> it shows the new layer's value for a pointer that has not moved.
+    /// </summary>
+    public static async Task<string> CellValueAsync(IPage page, LayerCell cell)
+    {
+        var (x, y) = await PageMap.PixelOfAsync(page, cell.Lat, cell.Lon);
+        await page.Mouse.MoveAsync(x, y);
+        var readout = page.Locator("#legend-readout");
+        await Assertions.Expect(readout).ToContainTextAsync($"cell {cell.Id}:");
+        return (await readout.Locator("[data-field='cell-value']").TextContentAsync())!;
+    }
 
     /// <summary>The number of cells with a value, as the facts line shows it.</summary>
     public static async Task<int> CellsWithAValueAsync(IPage page)

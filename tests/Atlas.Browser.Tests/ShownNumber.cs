@@ -23,8 +23,21 @@ public static partial class ShownNumber
     public static void Matches(double expected, string shown, string what)
     {
         var (value, decimals) = Parse(shown);
-        var halfUnit = 0.5 * Math.Pow(10, -decimals);
+        Within(expected, value, 0.5 * Math.Pow(10, -decimals), shown, what);
+    }
+
+    /// <summary>
+    /// Asserts that <paramref name="shown"/> gives <paramref name="expected"/> to <paramref name="decimals"/> decimals:
+    /// it shows at least that many, and differs from the value by at most half a unit of the last of them.
+    /// </summary>
+    public static void MatchesTo(int decimals, double expected, string shown, string what)
+    {
+        var (value, shownDecimals) = Parse(shown);
+        Assert.True(shownDecimals >= decimals, $"{what}: the page shows '{shown}', fewer than {decimals} decimals");
+        Within(expected, value, 0.5 * Math.Pow(10, -decimals), shown, what);
+    }
+
+    private static void Within(double expected, double value, double halfUnit, string shown, string what) =>
         Assert.True(Math.Abs(value - expected) <= halfUnit * (1 + 1e-9),
             $"{what}: the page shows '{shown}', the API says {expected.ToString("R", CultureInfo.InvariantCulture)} (tolerance {halfUnit}, the display rounding)");
-    }
 }

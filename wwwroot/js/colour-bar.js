@@ -1,5 +1,5 @@
 // The colour bar under the map: the layer's title and unit, the gradient, round tick values, and keys for land,
-// the screening outline and the dataset extent.
+// the screening outline and the dataset extent, then the value read-out of one cell (kept across redraws).
 
 import { el, number } from './format.js';
 
@@ -24,7 +24,7 @@ export function niceRange(min, max) {
 }
 
 /** Fills `container` with the bar for `scale` over [lo, hi]. */
-export function drawColourBar(container, { title, units, scale, lo, hi, cyclic, highlight, land }) {
+export function drawColourBar(container, { title, units, scale, lo, hi, cyclic, highlight, land, readout }) {
   const ticks = cyclic ? [0, 90, 180, 270, 360] : niceTicks(lo, hi, 5);
   const tickRow = el('div', { class: 'legend-ticks', 'aria-hidden': 'true' });
   for (const t of ticks) {
@@ -46,5 +46,5 @@ export function drawColourBar(container, { title, units, scale, lo, hi, cyclic, 
   if (highlight) keys.append(el('li', {}, el('span', { class: 'swatch outline' }), 'meets the screening criteria'));
   container.replaceChildren(
     el('p', { class: 'legend-title', id: 'legend-title' }, `${title} (${units})`),
-    bar, tickRow, keys);
+    bar, tickRow, keys, ...(readout ? [readout] : []));
 }

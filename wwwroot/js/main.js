@@ -6,6 +6,7 @@
 import { apiRoot, datasetUrl, getJson, layerUrl } from './api.js';
 import { AreaTool } from './area-tool.js';
 import { CellCanvasLayer } from './cell-layer.js';
+import { CellReadout } from './cell-readout.js';
 import { el, number, periodName, position } from './format.js';
 import { LayerView } from './layer-view.js';
 import { PointPanel } from './point-panel.js';
@@ -110,6 +111,7 @@ class Atlas {
     }).catch(error => this.status(`The land mask could not be loaded. ${error.message}`, 'error'));
 
     this.layers = new LayerView(this);
+    this.readout = new CellReadout(this);
     this.point = new PointPanel(this);
     this.screening = new Screening(this);
     this.area = new AreaTool(this);
@@ -123,6 +125,7 @@ class Atlas {
       }
     });
     this.layers.onChange(layer => this.writeHash(layer));
+    this.layers.onChange(() => this.readout.refresh());
 
     if (catalogue.parameters.length === 0) {
       this.status('This dataset has no statistics yet: run atlas stats for it.', 'error');
