@@ -20,6 +20,18 @@ public sealed class HostTests(AtlasApiFixture atlas)
     }
 
     [Fact]
+    public async Task PointDocumentationQuotesTheConfiguredCoverageThreshold()
+    {
+        await using var configured = atlas.Create(new Dictionary<string, string?> { ["Statistics:LowCoverageThreshold"] = "0.6" });
+        string Description(JsonElement document) =>
+            document.GetProperty("paths").GetProperty("/api/v1/datasets/{slug}/point").GetProperty("get").GetProperty("description").GetString()!;
+        var document = JsonDocument.Parse(await configured.CreateClient().GetStringAsync("/swagger/v1/swagger.json")).RootElement;
+        Assert.Matches("below 60 ?% are flagged low_coverage", Description(document));
+        var defaults = JsonDocument.Parse(await _client.GetStringAsync("/swagger/v1/swagger.json")).RootElement;
+        Assert.Matches("below 80 ?% are flagged low_coverage", Description(defaults));
+    }
+
+    [Fact]
     public async Task DatabaseOutageIsAServiceUnavailableProblemWithRetryAfter()
     {
         // Nothing listens on port 1 of the loopback: every connection attempt is refused at once.

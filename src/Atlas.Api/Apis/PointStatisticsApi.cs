@@ -7,23 +7,26 @@ public static class PointStatisticsApi
 {
     public static RouteHandlerBuilder MapPointStatistics(this RouteGroupBuilder group) =>
         group.MapGet("/point", PointAsync)
-            .WithDescription(
-                "lat, lon: degrees. period: one of jan..dec, djf, mam, jja, son, annual, y2019, or all (default). from, to: calendar " +
-                "years (inclusive) and months: calendar months 1..12 (comma separated) restrict the series used; the annual period is " +
-                "then the whole window. include: comma-separated parts among exceedance (Hs and J exceedance curves over the window), " +
-                "joint (Hm0 x Te occurrence, 0.5 m x 1 s bins, with mean power and share of energy per bin), rose (16-sector power rose), " +
-                "interannual (yearly annual and seasonal means and coefficients of variation); all by default, none for summaries only. " +
-                "Statistics are computed exactly from the stored series (percentiles Hyndman-Fan type 7); the cell (id, lat, lon, depth_m, " +
-                "distance_m) is the nearest wet cell. Coverage: " + MethodNotes.Coverage(StatisticsOptions.DefaultLowCoverageThreshold) + ". " +
-                "Seasons and the annual period: " + MethodNotes.Climatology + "; weighted percentiles: " + MethodNotes.WeightedPercentiles + ". " +
-                "Inter-annual: " + MethodNotes.Seasons + "; " + MethodNotes.InterAnnual + ". Each period's direction block carries " +
-                "directionality_coefficient and max_power_from_deg: " + MethodNotes.Directionality + ". The cell (id, lat, lon, depth_m, " +
-                "distance_m) is the nearest wet cell, refused (422) beyond the distance limit or outside the extent. " +
-                "format=csv gives the period table after '#' lines of provenance, units and the caution.")
+            .WithDescription(Description(((IEndpointRouteBuilder)group).ServiceProvider.GetRequiredService<StatisticsOptions>().LowCoverageThreshold))
             .Produces<PointStatistics>(StatusCodes.Status200OK, "application/json", "text/csv")
             .Produces(StatusCodes.Status304NotModified)
             .ProducesProblems(StatusCodes.Status404NotFound, StatusCodes.Status422UnprocessableEntity)
             .RequireExpensiveLimit();
+
+    /// <summary>The endpoint's description, with the coverage threshold the server is configured with.</summary>
+    private static string Description(double lowCoverageThreshold) =>
+        "lat, lon: degrees. period: one of jan..dec, djf, mam, jja, son, annual, y2019, or all (default). from, to: calendar " +
+            "years (inclusive) and months: calendar months 1..12 (comma separated) restrict the series used; the annual period is " +
+            "then the whole window. include: comma-separated parts among exceedance (Hs and J exceedance curves over the window), " +
+            "joint (Hm0 x Te occurrence, 0.5 m x 1 s bins, with mean power and share of energy per bin), rose (16-sector power rose), " +
+            "interannual (yearly annual and seasonal means and coefficients of variation); all by default, none for summaries only. " +
+            "Statistics are computed exactly from the stored series (percentiles Hyndman-Fan type 7); the cell (id, lat, lon, depth_m, " +
+            "distance_m) is the nearest wet cell. Coverage: " + MethodNotes.Coverage(lowCoverageThreshold) + ". " +
+            "Seasons and the annual period: " + MethodNotes.Climatology + "; weighted percentiles: " + MethodNotes.WeightedPercentiles + ". " +
+            "Inter-annual: " + MethodNotes.Seasons + "; " + MethodNotes.InterAnnual + ". Each period's direction block carries " +
+            "directionality_coefficient and max_power_from_deg: " + MethodNotes.Directionality + ". The cell (id, lat, lon, depth_m, " +
+            "distance_m) is the nearest wet cell, refused (422) beyond the distance limit or outside the extent. " +
+            "format=csv gives the period table after '#' lines of provenance, units and the caution.";
 
     [EndpointName("PointStatistics")]
     [EndpointSummary("Exact statistics of every parameter at the wet cell nearest a position")]
