@@ -23,5 +23,6 @@ public sealed record DatasetRemoval(DatasetRemovalOutcome Outcome, IReadOnlyList
     /// <summary>Why the dataset could not be removed now, in a sentence; null unless <see cref="DatasetRemovalOutcome.Busy"/>.</summary>
     public string? BusyReason => Outcome != DatasetRemovalOutcome.Busy ? null
         : RunningJobIds.Count == 0 ? "an ingest of it is in progress"
-        : $"job {string.Join(", ", RunningJobIds)} of it is running";
+        : RunningJobIds.Count == 1 ? $"job {RunningJobIds[0]} of it is running"
+        : $"jobs {string.Join(", ", RunningJobIds)} of it are running";
 }
