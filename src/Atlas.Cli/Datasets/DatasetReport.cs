@@ -76,8 +76,8 @@ public static class DatasetReport
 
     /// <summary>What a removal takes away, in a phrase: cells, series chunks and their size, statistic blocks.</summary>
     public static string Contents(DatasetSummary summary, DatasetStorage storage) =>
-        $"{Count(summary.Dataset.PointCount)} cells, {Count(storage.SeriesChunkCount)} series chunks ({Bytes(storage.SeriesBytes)}), " +
-        $"{Count(storage.StatisticBlockCount)} statistic blocks ({Bytes(storage.StatisticBytes)})";
+        $"{Count(summary.Dataset.PointCount)} cells; {Count(storage.SeriesChunkCount)} series chunks, {Bytes(storage.SeriesBytes)}; " +
+        $"{Count(storage.StatisticBlockCount)} statistic blocks, {Bytes(storage.StatisticBytes)}";
 
     /// <summary>
     /// "none", "complete" (every wet cell computed by this program's method), or what is missing: cells not computed,

@@ -108,6 +108,26 @@ public class DatasetsCommandTests(TwoDatasets data) : IClassFixture<TwoDatasets>
     }
 
     [Fact]
+    public void RemoveOnATerminalAsksForTheSlugAndKeepsTheDatasetOnAnyOtherAnswer()
+    {
+        const string slug = "asked-on-a-terminal";
+        data.Load(slug, "--no-stats");
+        var id = Id(slug);
+        var before = Rows(id, slug);
+
+        var (kept, keptOutput) = AtlasProcess.RunOnTerminal($"datasets remove {slug}", "yes", data.Environment);
+        Assert.True(kept == 1, keptOutput);
+        Assert.Contains("Type its slug to remove it", keptOutput);
+        Assert.Contains($"'{slug}' was kept.", keptOutput);
+        Assert.Equal(before, Rows(id, slug));
+
+        var (removed, removedOutput) = AtlasProcess.RunOnTerminal($"datasets remove {slug}", slug, data.Environment);
+        Assert.True(removed == 0, removedOutput);
+        Assert.Contains($"dataset {slug}: removed with ", removedOutput);
+        Assert.Equal(0, Rows(id, slug));
+    }
+
+    [Fact]
     public async Task RemoveIsRefusedWhileAJobOfTheDatasetIsRunning()
     {
         var queue = new JobQueue(data.Database.DataSource);
