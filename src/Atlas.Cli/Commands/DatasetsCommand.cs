@@ -69,7 +69,7 @@ public static class DatasetsCommand
                     return 2;
                 }
                 Console.WriteLine($"Dataset '{name}' (\"{summary.Dataset.Title}\") holds {what}.");
-                Console.Write($"Type its slug to remove it and everything stored for it, or press Enter to keep it: ");
+                Console.Write("Type its slug to remove it and everything stored for it, or press Enter to keep it: ");
                 if (Console.ReadLine()?.Trim() != name)
                 {
                     Console.WriteLine($"'{name}' was kept.");
