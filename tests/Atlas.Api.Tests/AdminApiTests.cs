@@ -68,21 +68,44 @@ public sealed class AdminApiTests(AtlasApiFixture atlas)
         await atlas.CountAsync($"DELETE FROM job WHERE job_id = {id}");
     }
 
+    /// <summary>A dataset of one wet cell, to be deleted.</summary>
+    private async Task InsertThrowawayAsync(string slug, string title)
+    {
+        await using var connection = await atlas.DataSource.OpenConnectionAsync();
+        await using var transaction = await connection.BeginTransactionAsync();
+        var id = await DatasetStore.InsertAsync(connection, transaction, slug, title, "regular", 1, 1, 1, "{}", "{}", CancellationToken.None);
+        await CellStore.InsertAsync(connection, id, [new CellRecord(0, 0, 0, 25, 45, 10, true)], CancellationToken.None);
+        await transaction.CommitAsync();
+    }
+
     [Fact]
     public async Task DeleteWithTheKeyRemovesTheDatasetAndEverythingStoredForIt()
     {
         const string slug = "test-throwaway";
-        await using (var connection = await atlas.DataSource.OpenConnectionAsync())
-        await using (var transaction = await connection.BeginTransactionAsync())
-        {
-            var id = await DatasetStore.InsertAsync(connection, transaction, slug, "Throwaway", "regular", 1, 1, 1, "{}", "{}", CancellationToken.None);
-            await CellStore.InsertAsync(connection, id, [new CellRecord(0, 0, 0, 25, 45, 10, true)], CancellationToken.None);
-            await transaction.CommitAsync();
-        }
+        await InsertThrowawayAsync(slug, "Throwaway");
         Assert.Equal(HttpStatusCode.OK, (await _client.GetAsync($"/api/v1/datasets/{slug}")).StatusCode);
         var response = await _client.SendAsync(Request(HttpMethod.Delete, $"/api/v1/datasets/{slug}", AtlasApiFixture.ApiKey));
         Assert.Equal(HttpStatusCode.NoContent, response.StatusCode);
         Assert.Equal(0, await atlas.CountAsync($"SELECT count(*) FROM dataset WHERE slug = '{slug}'"));
         Assert.Equal(HttpStatusCode.NotFound, (await _client.GetAsync($"/api/v1/datasets/{slug}")).StatusCode);
+    }
+
+    [Fact]
+    public async Task DeleteWhileAJobOfTheDatasetRunsIsAConflictAndChangesNothing()
+    {
+        const string slug = "test-busy-throwaway";
+        await InsertThrowawayAsync(slug, "Busy throwaway");
+        var queue = new Atlas.Storage.Jobs.JobQueue(atlas.DataSource);
+        var job = await queue.EnqueueAsync(Atlas.Storage.Jobs.JobKind.Statistics, slug);
+        Assert.NotNull(await queue.ClaimAsync(job, "test-worker"));
+
+        await Problems.AssertAsync(await _client.SendAsync(Request(HttpMethod.Delete, $"/api/v1/datasets/{slug}", AtlasApiFixture.ApiKey)),
+            HttpStatusCode.Conflict, $"job {job} of it is running");
+        Assert.Equal(1, await atlas.CountAsync($"SELECT count(*) FROM dataset WHERE slug = '{slug}'"));
+        Assert.Equal(1, await atlas.CountAsync($"SELECT count(*) FROM cell c JOIN dataset d USING (dataset_id) WHERE d.slug = '{slug}'"));
+
+        await queue.FailAsync(job, "ended by the test");
+        Assert.Equal(HttpStatusCode.NoContent, (await _client.SendAsync(Request(HttpMethod.Delete, $"/api/v1/datasets/{slug}", AtlasApiFixture.ApiKey))).StatusCode);
+        Assert.Equal(0, await atlas.CountAsync($"SELECT count(*) FROM job WHERE dataset_slug = '{slug}'"));
     }
 }

@@ -12,7 +12,7 @@ public static partial class AdminApi
         group.MapGet("/jobs/{jobId:long}", JobStatusAsync)
             .ProducesProblems(StatusCodes.Status404NotFound);
         group.MapDelete("/", DeleteAsync)
-            .ProducesProblems(StatusCodes.Status404NotFound)
+            .ProducesProblems(StatusCodes.Status404NotFound, StatusCodes.Status409Conflict)
             .RequireApiKey();
         return routes;
     }
@@ -48,7 +48,10 @@ public static partial class AdminApi
     public static async Task<Results<NoContent, ProblemHttpResult>> DeleteAsync(string slug,
         [FromKeyedServices(AtlasDataSources.Writer)] NpgsqlDataSource writer, DatasetCatalog catalog, ILogger<DatasetStore> logger, CancellationToken cancel)
     {
-        if (!await new DatasetStore(writer).DeleteAsync(slug, cancel)) return ApiProblems.UnknownDataset(slug);
+        var removal = await new DatasetStore(writer).DeleteAsync(slug, cancel);
+        if (removal.Outcome == DatasetRemovalOutcome.Unknown) return ApiProblems.UnknownDataset(slug);
+        if (removal.BusyReason is { } busy)
+            return ApiProblems.Conflict("Dataset in use", $"Dataset '{slug}' was not deleted: {busy}. Delete it once that has finished.");
         catalog.Forget(slug);
         DatasetDeleted(logger, slug);
         return TypedResults.NoContent();

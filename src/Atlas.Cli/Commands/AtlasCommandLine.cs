@@ -11,6 +11,7 @@ public static class AtlasCommandLine
         root.Subcommands.Add(DemoCommand.Build());
         root.Subcommands.Add(IngestCommand.Build());
         root.Subcommands.Add(StatsCommand.Build());
+        root.Subcommands.Add(DatasetsCommand.Build());
         root.Subcommands.Add(ServeCommand.Build());
         root.Subcommands.Add(WorkerCommand.Build());
         root.Subcommands.Add(DatabaseCommands.Build());

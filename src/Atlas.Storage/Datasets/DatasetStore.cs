@@ -28,10 +28,13 @@ public sealed class DatasetStore(NpgsqlDataSource dataSource)
     /// </summary>
     public static async Task LockForIngestAsync(NpgsqlConnection connection, NpgsqlTransaction transaction, string slug, CancellationToken cancel)
     {
-        await using var command = new NpgsqlCommand("SELECT pg_advisory_xact_lock(hashtext('atlas-ingest:' || $1))", connection, transaction);
+        await using var command = new NpgsqlCommand($"SELECT pg_advisory_xact_lock({IngestLockKey})", connection, transaction);
         command.Parameters.AddWithValue(slug);
         await command.ExecuteNonQueryAsync(cancel);
     }
+
+    /// <summary>The advisory-lock key of a dataset's ingest, from the slug in parameter $1.</summary>
+    private const string IngestLockKey = "hashtext('atlas-ingest:' || $1)";
 
     public static async Task<DatasetRecord?> FindAsync(NpgsqlConnection connection, NpgsqlTransaction? transaction, string slug, CancellationToken cancel)
     {
@@ -87,26 +90,69 @@ public sealed class DatasetStore(NpgsqlDataSource dataSource)
         await command.ExecuteNonQueryAsync(cancel);
     }
 
-    /// <summary>Deletes a dataset and every row that belongs to it.</summary>
-    public async Task<bool> DeleteAsync(string slug, CancellationToken cancel = default)
+    /// <summary>
+    /// Deletes a dataset and every row keyed by it (per-cell tables, statistic blocks, time lines, source files, layer
+    /// cache, and its jobs) in one transaction. Refuses, changing nothing, while an ingest holds the dataset's lock or
+    /// one of its jobs is running: removing under a running pass would leave the pass writing rows of a dataset that
+    /// is gone.
+    /// </summary>
+    public async Task<DatasetRemoval> DeleteAsync(string slug, CancellationToken cancel = default)
     {
         await using var connection = await dataSource.OpenConnectionAsync(cancel);
         await using var transaction = await connection.BeginTransactionAsync(cancel);
         var dataset = await FindAsync(connection, transaction, slug, cancel);
-        if (dataset is null) return false;
+        if (dataset is null) return DatasetRemoval.Unknown;
+        // Held to the end of this transaction, so no ingest of the dataset starts while it is removed.
+        await using (var lockCommand = new NpgsqlCommand($"SELECT pg_try_advisory_xact_lock({IngestLockKey})", connection, transaction))
+        {
+            lockCommand.Parameters.AddWithValue(slug);
+            if (!(bool)(await lockCommand.ExecuteScalarAsync(cancel))!) return new DatasetRemoval(DatasetRemovalOutcome.Busy, []);
+        }
+        // Jobs that are not running go first: the delete locks them, so a worker's claim (which skips locked rows)
+        // cannot start one of them now; a claim already under way is waited for and then seen as running below.
+        await using (var jobs = new NpgsqlCommand("DELETE FROM job WHERE dataset_slug = $1 AND state <> 'running'", connection, transaction))
+        {
+            jobs.Parameters.AddWithValue(slug);
+            await jobs.ExecuteNonQueryAsync(cancel);
+        }
+        var running = new List<long>();
+        await using (var runningCommand = new NpgsqlCommand(
+            "SELECT job_id FROM job WHERE dataset_slug = $1 AND state = 'running' ORDER BY job_id", connection, transaction))
+        {
+            runningCommand.Parameters.AddWithValue(slug);
+            await using var reader = await runningCommand.ExecuteReaderAsync(cancel);
+            while (await reader.ReadAsync(cancel)) running.Add(reader.GetInt64(0));
+        }
+        if (running.Count > 0) return new DatasetRemoval(DatasetRemovalOutcome.Busy, running);
         foreach (var table in PerCellTables.Append(StatisticBlockTable))
         {
             await using var delete = new NpgsqlCommand($"DELETE FROM {table} WHERE dataset_id = $1", connection, transaction);
             delete.Parameters.AddWithValue(dataset.Id);
             await delete.ExecuteNonQueryAsync(cancel);
         }
+        // dataset_year, source_file and layer_cache follow by ON DELETE CASCADE.
         await using (var command = new NpgsqlCommand("DELETE FROM dataset WHERE dataset_id = $1", connection, transaction))
         {
             command.Parameters.AddWithValue(dataset.Id);
             await command.ExecuteNonQueryAsync(cancel);
         }
         await transaction.CommitAsync(cancel);
-        return true;
+        return DatasetRemoval.Removed;
+    }
+
+    /// <summary>The space the dataset's series and statistics take (see <see cref="DatasetStorage"/> for how it is counted).</summary>
+    public async Task<DatasetStorage> StorageAsync(int datasetId, CancellationToken cancel = default)
+    {
+        await using var command = dataSource.CreateCommand("""
+            SELECT (SELECT count(*) FROM series_chunk WHERE dataset_id = $1),
+                   (SELECT coalesce(sum(pg_column_size(payload)), 0) FROM series_chunk WHERE dataset_id = $1)::bigint,
+                   (SELECT count(*) FROM statistic_block WHERE dataset_id = $1),
+                   (SELECT coalesce(sum(pg_column_size(s.*)), 0) FROM statistic_block s WHERE dataset_id = $1)::bigint
+            """);
+        command.Parameters.AddWithValue(datasetId);
+        await using var reader = await command.ExecuteReaderAsync(cancel);
+        await reader.ReadAsync(cancel);
+        return new DatasetStorage(reader.GetInt64(0), reader.GetInt64(1), reader.GetInt64(2), reader.GetInt64(3));
     }
 
     /// <summary>Tables keyed by cell, which carry no foreign key to dataset (so they can be distributed by cell).</summary>

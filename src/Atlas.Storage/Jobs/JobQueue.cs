@@ -100,10 +100,15 @@ public sealed class JobQueue(NpgsqlDataSource dataSource)
     {
         await using var command = dataSource.CreateCommand($"SELECT {Columns} FROM job ORDER BY job_id DESC LIMIT $1");
         command.Parameters.AddWithValue(limit);
-        var jobs = new List<JobRecord>();
-        await using var reader = await command.ExecuteReaderAsync(cancel);
-        while (await reader.ReadAsync(cancel)) jobs.Add(Read(reader));
-        return jobs;
+        return await ReadAllAsync(command, cancel);
+    }
+
+    /// <summary>Every job of one dataset, newest first.</summary>
+    public async Task<IReadOnlyList<JobRecord>> ForDatasetAsync(string datasetSlug, CancellationToken cancel = default)
+    {
+        await using var command = dataSource.CreateCommand($"SELECT {Columns} FROM job WHERE dataset_slug = $1 ORDER BY job_id DESC");
+        command.Parameters.AddWithValue(datasetSlug);
+        return await ReadAllAsync(command, cancel);
     }
 
     /// <summary>How many jobs are in each (kind, state); states with no job are absent.</summary>
@@ -135,6 +140,14 @@ public sealed class JobQueue(NpgsqlDataSource dataSource)
     {
         await using var reader = await command.ExecuteReaderAsync(cancel);
         return await reader.ReadAsync(cancel) ? Read(reader) : null;
+    }
+
+    private static async Task<IReadOnlyList<JobRecord>> ReadAllAsync(NpgsqlCommand command, CancellationToken cancel)
+    {
+        var jobs = new List<JobRecord>();
+        await using var reader = await command.ExecuteReaderAsync(cancel);
+        while (await reader.ReadAsync(cancel)) jobs.Add(Read(reader));
+        return jobs;
     }
 
     private static JobRecord Read(NpgsqlDataReader r) => new(
