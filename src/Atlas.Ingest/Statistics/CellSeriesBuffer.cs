@@ -49,12 +49,19 @@ public sealed class CellSeriesBuffer
     {
         Times = times,
         Hs = _values[WaveParameterGroups.SeriesIndex(WaveParameter.Hs)],
-        Te = _present[WaveParameterGroups.SeriesIndex(WaveParameter.Te)] ? _values[WaveParameterGroups.SeriesIndex(WaveParameter.Te)] : ReadOnlySpan<float>.Empty,
-        Tp = _present[WaveParameterGroups.SeriesIndex(WaveParameter.Tp)] ? _values[WaveParameterGroups.SeriesIndex(WaveParameter.Tp)] : ReadOnlySpan<float>.Empty,
-        Dir = _present[WaveParameterGroups.SeriesIndex(WaveParameter.Dir)] ? _values[WaveParameterGroups.SeriesIndex(WaveParameter.Dir)] : ReadOnlySpan<float>.Empty,
-        Spread = _present[WaveParameterGroups.SeriesIndex(WaveParameter.Spread)] ? _values[WaveParameterGroups.SeriesIndex(WaveParameter.Spread)] : ReadOnlySpan<float>.Empty,
+        Te = Present(WaveParameter.Te),
+        Tp = Present(WaveParameter.Tp),
+        Dir = Present(WaveParameter.Dir),
+        Spread = Present(WaveParameter.Spread),
         DepthMetres = UsableDepth(DepthMetres),
     };
+
+    /// <summary>A variable's values, or empty when no chunk of the cell holds it.</summary>
+    private ReadOnlySpan<float> Present(WaveParameter variable)
+    {
+        int k = WaveParameterGroups.SeriesIndex(variable);
+        return _present[k] ? _values[k] : ReadOnlySpan<float>.Empty;
+    }
 
     private static double UsableDepth(double depth) => depth > 0 ? depth : double.NaN;
 }

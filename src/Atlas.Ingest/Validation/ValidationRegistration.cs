@@ -1,9 +1,4 @@
 using Atlas.Storage;
-using Atlas.Storage.Cells;
-using Atlas.Storage.Datasets;
-using Atlas.Storage.Queries;
-using Atlas.Storage.Series;
-using Atlas.Storage.Stations;
 using Microsoft.Extensions.DependencyInjection;
 using Microsoft.Extensions.DependencyInjection.Extensions;
 
