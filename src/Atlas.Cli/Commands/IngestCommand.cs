@@ -17,7 +17,8 @@ public static class IngestCommand
         var replace = new Option<bool>("--replace") { Description = "Replace time steps that are already stored with other values instead of refusing the file (a step given again with identical values is stored once without it)" };
         var mapping = new Option<string?>("--mapping") { Description = "JSON file naming the variables of a model that does not use CF standard names" };
         var noStats = new Option<bool>("--no-stats") { Description = "Do not compute statistics afterwards" };
-        var command = new Command("ingest", "Load hindcast fields from CF-NetCDF files into a dataset.") { files, dataset, title, replace, mapping, noStats };
+        var gridDataset = new Option<string?>("--grid-dataset") { Description = "For files of spectra at output points: the slug of the gridded dataset of the same hindcast, whose point answers then add the exact spectral values at the nearest output point" };
+        var command = new Command("ingest", "Load hindcast fields, or spectra at output points, from CF-NetCDF files into a dataset.") { files, dataset, title, replace, mapping, noStats, gridDataset };
         command.SetAction(async (parse, cancel) =>
         {
             await using var dataSource = await AtlasDatabase.OpenMigratedAsync(cancel: cancel);
@@ -25,7 +26,8 @@ public static class IngestCommand
             if (host is null) return 2;
             var runner = host.Services.GetRequiredService<JobRunner>();
             var payload = new IngestPayload(parse.GetValue(files)!.Select(Path.GetFullPath).ToArray(), parse.GetValue(title),
-                parse.GetValue(replace), parse.GetValue(mapping) is { } m ? Path.GetFullPath(m) : null, QueueStatistics: false);
+                parse.GetValue(replace), parse.GetValue(mapping) is { } m ? Path.GetFullPath(m) : null, QueueStatistics: false,
+                GridDataset: parse.GetValue(gridDataset));
             var slug = parse.GetValue(dataset)!;
             var ingest = await CommandLineJob.RunAsync(dataSource, runner, JobKind.Ingest, slug, payload, "ingest", "Nothing was changed in the dataset.", cancel);
             if (ingest != 0) return ingest;

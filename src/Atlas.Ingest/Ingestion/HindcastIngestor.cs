@@ -71,6 +71,8 @@ public sealed class HindcastIngestor(NpgsqlDataSource dataSource, StatisticsOpti
                 progress?.Report(new ProgressSnapshot("distances to the coast", 0, 1, loader.BytesRead, clock.Elapsed, "steps")), cancel)
             : (await MarkNewlyWetAsync(connection, transaction, datasetId, loader.HasData, cancel), (int?)null);
         var (assumptions, warnings) = await RecordSourcesAsync(connection, transaction, plan, datasetId, deepWaterCells, _assumedSpectrum, cancel);
+        IReadOnlyList<string> spectralNotes = plan.Fresh[0].Spectra is null ? []
+            : await Spectra.SpectralProductWriter.WriteAsync(connection, transaction, plan, datasetId, cancel);
         await transaction.CommitAsync(cancel);
         return new IngestSummary(request.DatasetSlug, plan.Fresh.Count, plan.Skipped, plan.FreshSteps, loader.CellYears, wetCells, loader.BytesRead,
             clock.Elapsed, plan.CreatesDataset)
@@ -78,6 +80,7 @@ public sealed class HindcastIngestor(NpgsqlDataSource dataSource, StatisticsOpti
             SharedSteps = loader.SharedStepCount,
             Assumptions = assumptions,
             Warnings = warnings,
+            SpectralNotes = spectralNotes,
         };
     }
 

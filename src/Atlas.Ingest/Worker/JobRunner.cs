@@ -35,7 +35,7 @@ public sealed class JobRunner(NpgsqlDataSource dataSource, StatisticsOptions? st
                 var payload = JsonSerializer.Deserialize<IngestPayload>(job.PayloadJson) ?? throw new IngestException($"Job {job.Id} has no ingest payload.");
                 var mapping = payload.MappingFile is { } m ? VariableMapping.Load(m) : null;
                 var result = await _ingestor.RunAsync(
-                    new IngestRequest(job.DatasetSlug, payload.Files, payload.Title, payload.Replace, mapping, job.Id), heartbeat, cancel);
+                    new IngestRequest(job.DatasetSlug, payload.Files, payload.Title, payload.Replace, mapping, job.Id) { GridDataset = payload.GridDataset }, heartbeat, cancel);
                 summary = result.Describe();
                 JobMetrics.RecordIngest(result);
                 if (result.FilesLoaded > 0 && payload.QueueStatistics)
@@ -88,7 +88,8 @@ public sealed class JobRunner(NpgsqlDataSource dataSource, StatisticsOptions? st
 }
 
 /// <summary>The payload of an ingest job.</summary>
-public sealed record IngestPayload(string[] Files, string? Title = null, bool Replace = false, string? MappingFile = null, bool QueueStatistics = true);
+public sealed record IngestPayload(string[] Files, string? Title = null, bool Replace = false, string? MappingFile = null, bool QueueStatistics = true,
+    string? GridDataset = null);
 
 /// <summary>The payload of a statistics job.</summary>
 public sealed record StatisticsPayload(bool All = false);
