@@ -34,6 +34,8 @@ public static partial class AtlasApiRegistration
         services.AddSingleton<PointLocator>();
         services.AddSingleton<IStationCellFinder, CatalogStationCells>();
         services.AddSingleton<ValidationService>();
+        services.AddSingleton<Atlas.Ingest.Spectra.StationSpectraAnswers>();
+        services.AddSingleton<OutputPoints>();
         services.AddSingleton<PointResponseCache>();
         services.AddSingleton<PointCalendars>();
         services.AddSingleton<ApiKeyVerifier>();

@@ -35,7 +35,7 @@ public class PointSpectraIngestTests(TestDatabase database) : IClassFixture<Test
         Assert.Contains("Cobble Shelf", dataset.GridJson);
         var cells = await new CellStore(database.DataSource).AllAsync(dataset.Id);
         Assert.Equal([80f, 15f, 8f], cells.Select(c => c.DepthMetres ?? float.NaN).Select(d => MathF.Round(d, 3)).ToArray());
-        Assert.Equal(-7.31, cells[1].Longitude, 5);
+        Assert.Equal(-19.71, cells[1].Longitude, 5);
 
         // Steps 0..7 from the first file, 8..14 from the second (its step 0 is the shared step 7).
         var expectedA = PointSpectraFixture.Expected(first)["steps"]!.AsArray();

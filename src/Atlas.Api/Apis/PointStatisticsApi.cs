@@ -33,7 +33,8 @@ public static class PointStatisticsApi
     public static async Task<Results<FileContentHttpResult, StatusCodeHttpResult, ProblemHttpResult, ValidationProblem>> PointAsync(
         string slug, [AsParameters] PointPosition at, [AsParameters] PointStatisticsQuery query,
         PointLocator locator, DatasetCatalog catalog, SeriesStore series, ProvenanceBuilder provenance, PointResponseCache responses,
-        PointCalendars calendars, StatisticsOptions statisticsOptions, IOptions<JsonOptions> json, HttpContext http, CancellationToken cancel)
+        PointCalendars calendars, StatisticsOptions statisticsOptions, StationSpectraAnswers stationSpectra, OutputPoints outputPoints,
+        IOptions<JsonOptions> json, HttpContext http, CancellationToken cancel)
     {
         var errors = new QueryErrors();
         var position = at.Position(errors);
@@ -46,17 +47,19 @@ public static class PointStatisticsApi
 
         var (point, problem) = await locator.LocateAsync(slug, position.Value.Latitude, position.Value.Longitude, cancel);
         if (point is null) return problem!;
-        var key = await ResponseKeyAsync(point, position.Value, window, onlyPeriod, parts, csv, catalog, cancel);
+        var nearestPoint = await outputPoints.NearestAsync(point.Dataset, position.Value.Latitude, position.Value.Longitude, cancel);
+        var key = await ResponseKeyAsync(point, position.Value, window, onlyPeriod, parts, csv, catalog, nearestPoint?.Dataset, cancel);
+        var spectral = new SpectralContext(stationSpectra, nearestPoint, position.Value);
         // Computed without the request's cancellation: other requests for the same key may be waiting on it.
         var (response, failure) = await responses.GetOrComputeAsync(key,
-            () => ComputeAsync(point, window, onlyPeriod, parts, csv, catalog, series, provenance, calendars, statisticsOptions, json.Value.SerializerOptions,
-                CancellationToken.None));
+            () => ComputeAsync(point, window, onlyPeriod, parts, csv, catalog, series, provenance, calendars, statisticsOptions, spectral,
+                json.Value.SerializerOptions, CancellationToken.None));
         return response is null ? failure! : Respond(response, http);
     }
 
     private static async Task<PointOutcome> ComputeAsync(LocatedPoint point, YearWindow window, AtlasPeriod? onlyPeriod, HashSet<string> parts,
         bool csv, DatasetCatalog catalog, SeriesStore series, ProvenanceBuilder provenance, PointCalendars calendars, StatisticsOptions statisticsOptions,
-        JsonSerializerOptions json, CancellationToken cancel)
+        SpectralContext spectral, JsonSerializerOptions json, CancellationToken cancel)
     {
         var slug = point.Dataset.Slug;
         var timelines = await catalog.TimelinesAsync(point.Dataset, cancel);
@@ -66,13 +69,37 @@ public static class PointStatisticsApi
                 $"Cell {point.Nearest.Cell.CellId} of '{slug}' has no stored series{WindowText(window)}; stored years are " +
                 $"{(timelines.Count == 0 ? "none" : $"{timelines.Keys.First()}..{timelines.Keys.Last()}")}."));
         ExactPointStatistics result;
+        var analysisWindow = new AnalysisWindow(window.FromYear, window.ToYear, window.Months);
+        bool atOutputPoint = point.Dataset.GridKind == StationSpectraAnswers.StationsKind;
+        var cellId = point.Nearest.Cell.CellId;
+        // At an output point the power per step is the one integrated from its spectra.
+        float[]? spectralPower = atOutputPoint ? (await spectral.Answers.AlignedStepsAsync(point.Dataset.Id, cellId, chunks, timelines, cancel)).Power : null;
         using (var decoded = PointSeriesReader.DecodeRented(chunks, timelines, point.Nearest.Cell.DepthMetres is { } d ? d : double.NaN))
-            result = ExactPointAnalysis.Analyse(decoded.ToCellSeries(), new ExactPointOptions
+            result = ExactPointAnalysis.Analyse(decoded.ToCellSeries() with { Power = spectralPower }, new ExactPointOptions
             {
-                Window = new AnalysisWindow(window.FromYear, window.ToYear, window.Months),
+                Window = analysisWindow,
                 Statistics = statisticsOptions,
             }, calendars.For(decoded.Times));
         var periods = result.Periods.Where(p => onlyPeriod is not { } only || p.Period == only).ToArray();
+        SpectralPointAnswer? spectralAnswer = null;
+        if (atOutputPoint)
+        {
+            // The directionality of a period from its period-mean J_theta summed over the spectra's direction bins.
+            var byPeriod = await spectral.Answers.PeriodSpectraAsync(point.Dataset, cellId, periods.Select(p => p.Period).ToList(), analysisWindow, cancel);
+            periods = periods.Select(p => byPeriod.TryGetValue(p.Period, out var s)
+                ? p with { Direction = p.Direction with { DirectionalityCoefficient = s.DirectionalityCoefficient, MaxPowerFromDeg = s.MaxPowerFromDeg } }
+                : p).ToArray();
+            var c = point.Nearest.Cell;
+            spectralAnswer = await spectral.Answers.AnswerAsync(point.Dataset, cellId, c.Latitude, c.Longitude, c.DepthMetres, null, analysisWindow, timelines, cancel);
+        }
+        else if (spectral.Nearest is { } nearest)
+        {
+            var stationTimelines = await catalog.TimelinesAsync(nearest.Dataset, cancel);
+            spectralAnswer = await spectral.Answers.AnswerAsync(nearest.Dataset, nearest.Cell.CellId, nearest.Cell.Latitude, nearest.Cell.Longitude,
+                nearest.Cell.DepthMetres, nearest.DistanceKm, analysisWindow, stationTimelines, cancel);
+        }
+        if (spectralAnswer is not null && onlyPeriod is { } one)
+            spectralAnswer = spectralAnswer with { Periods = spectralAnswer.Periods.Where(p => p.Period == one).ToList() };
         if (periods.Length == 0)
             return PointOutcome.Failed(ApiProblems.Unprocessable("The period has no steps in the window",
                 $"{onlyPeriod!.Value.Name} has no step{WindowText(window)} at cell {point.Nearest.Cell.CellId}; widen the window or choose another period."));
@@ -90,7 +117,11 @@ public static class PointStatisticsApi
             parts.Contains("joint") ? result.JointOccurrence : null,
             parts.Contains("rose") && annual is not null ? RoseOf(annual.Direction) : null,
             parts.Contains("interannual") ? result.InterAnnual : null,
-            source, AtlasCaution.Text);
+            source, AtlasCaution.Text)
+        {
+            PowerFrom = atOutputPoint ? "spectra" : "Hs and Te",
+            Spectral = spectralAnswer,
+        };
         return new PointOutcome(JsonSerializer.SerializeToUtf8Bytes(statistics, json), "application/json; charset=utf-8", null, null);
     }
 
@@ -99,11 +130,13 @@ public static class PointStatisticsApi
     /// position (the cell's distance from it is part of the answer), the cell, the window, period, parts and format.
     /// </summary>
     private static async Task<string> ResponseKeyAsync(LocatedPoint point, (double Latitude, double Longitude) position, YearWindow window,
-        AtlasPeriod? onlyPeriod, HashSet<string> parts, bool csv, DatasetCatalog catalog, CancellationToken cancel)
+        AtlasPeriod? onlyPeriod, HashSet<string> parts, bool csv, DatasetCatalog catalog, DatasetRecord? outputPoints, CancellationToken cancel)
     {
         var files = await catalog.SeriesStampAsync(point.Dataset, cancel);
         var computed = await catalog.StatisticsStampAsync(point.Dataset, cancel);
-        return string.Join('|', "point", point.Dataset.Id, point.Dataset.CreatedAtUtc.Ticks, files.Token, computed.Token,
+        // The nearest output point's answer changes when its dataset is loaded again.
+        var pointsStamp = outputPoints is null ? "" : $"{outputPoints.Id}:{outputPoints.CreatedAtUtc.Ticks}:{(await catalog.SeriesStampAsync(outputPoints, cancel)).Token}";
+        return string.Join('|', "point", point.Dataset.Id, point.Dataset.CreatedAtUtc.Ticks, files.Token, computed.Token, pointsStamp,
             position.Latitude.ToString("R", CultureInfo.InvariantCulture), position.Longitude.ToString("R", CultureInfo.InvariantCulture),
             point.Nearest.Cell.CellId, window.FromYear, window.ToYear, window.Months is { } m ? string.Join(',', m) : "",
             onlyPeriod?.Name ?? "all", csv ? "csv" : string.Join(',', PointStatisticsQuery.Parts.Where(parts.Contains)));
@@ -140,6 +173,10 @@ public static class PointStatisticsApi
             }
         return false;
     }
+
+    /// <summary>What the point answer needs of the output points: the service, and the nearest point of a gridded dataset's companions.</summary>
+    private sealed record SpectralContext(StationSpectraAnswers Answers, (DatasetRecord Dataset, CellRecord Cell, double DistanceKm)? Nearest,
+        (double Latitude, double Longitude) Position);
 
     private static PowerRose RoseOf(DirectionStatistics direction) => new(
         DirectionStatistics.Sectors, DirectionStatistics.SectorWidthDegrees,

@@ -71,7 +71,10 @@ public sealed class StatisticsService(NpgsqlDataSource dataSource, StatisticsOpt
         using var linked = CancellationTokenSource.CreateLinkedTokenSource(cancel);
         var token = linked.Token;
 
-        var producer = new CellSeriesProducer(new SeriesStore(dataSource), datasetId, cells, targets.Length == cells.Count ? null : targets, timeline);
+        var producer = new CellSeriesProducer(new SeriesStore(dataSource), datasetId, cells, targets.Length == cells.Count ? null : targets, timeline)
+        {
+            SpectralPower = await SpectralPowerAsync(datasetId, cancel),
+        };
         var produced = Task.Run(() => producer.RunAsync(free.Reader, work.Writer, token), token);
         var calculators = new CellCalculators(_options, timeline.Times, workers);
         var calculated = calculators.Start(work.Reader, free.Writer, results.Writer, token);
@@ -96,6 +99,17 @@ public sealed class StatisticsService(NpgsqlDataSource dataSource, StatisticsOpt
             throw;
         }
         return (writer.CellsDone, assembler.Periods, assembler.Rows);
+    }
+
+    /// <summary>
+    /// The power integrated from the spectra of every station-year of a dataset of output points (small: five values per
+    /// station and step are stored, and a points dataset has tens of stations); null for gridded fields.
+    /// </summary>
+    private async Task<IReadOnlyDictionary<(int Cell, int Year), float[]>?> SpectralPowerAsync(int datasetId, CancellationToken cancel)
+    {
+        await using var connection = await dataSource.OpenConnectionAsync(cancel);
+        var steps = await Atlas.Storage.Spectra.StationSpectraStore.ReadStepsAsync(connection, null, datasetId, null, null, cancel);
+        return steps.Count == 0 ? null : steps.ToDictionary(kv => kv.Key, kv => kv.Value.PowerSpectral);
     }
 
     private static StatisticsOptions Checked(StatisticsOptions options)

@@ -22,7 +22,7 @@ freq = (0.035 * 1.1 ** np.arange(32)).astype(np.float32).astype(np.float64)
 to_dirs = (90.0 - 15.0 * np.arange(24)) % 360          # travelling to: 90, 75, ..., 105
 from_dirs = (to_dirs + 180.0) % 360
 names = ["Harrow Deep", "Cobble Shelf", "Wick Inner"]
-lons = np.array([-7.42, -7.31, -7.25]); lats = np.array([55.12, 55.18, 55.21]); depths = np.array([80.0, 15.0, 8.0])
+lons = np.array([-19.92, -19.71, -19.58]); lats = np.array([50.12, 50.21, 50.33]); depths = np.array([80.0, 15.0, 8.0])
 times = start_hours + 3.0 * np.arange(steps)
 
 def jonswap(f, hs, tp, gamma=3.3):
