@@ -16,16 +16,19 @@ public static class PointSeriesApi
     [EndpointDescription(
         "lat, lon: degrees. from, to: calendar years, inclusive (default: the whole record when it is within the per-request " +
         "limit of AtlasApiOptions:SeriesMaxYearsPerRequest years). format: csv (default; '#' header lines with provenance, units " +
-        "and the caution) or json. Missing steps are empty (csv) or null (json). j is computed per step at the cell depth.")]
+        "and the caution), json, or nc (CF-1.8 NetCDF-4, featureType timeSeries). Missing steps are empty (csv), null (json) or " +
+        "NaN (nc). j is computed per step at the cell depth from Hm0 and Te; at an output point of a spectral hindcast it is the " +
+        "power integrated from the spectrum, followed by j_parametric, directionality, max_power_from_deg and spectral_width.")]
     public static async Task<Results<PushStreamHttpResult, ProblemHttpResult, ValidationProblem>> SeriesAsync(
         string slug, [AsParameters] PointPosition at, [AsParameters] PointSeriesQuery query,
         PointLocator locator, DatasetCatalog catalog, SeriesStore series, ProvenanceBuilder provenance,
-        IOptions<AtlasApiOptions> options, StatisticsOptions statistics, CancellationToken cancel)
+        IOptions<AtlasApiOptions> options, StatisticsOptions statistics, StationSpectraAnswers stationSpectra, CancellationToken cancel)
     {
         var errors = new QueryErrors();
         var position = at.Position(errors);
         var window = at.Window(errors);
-        var csv = query.Csv(errors);
+        var format = query.Chosen(errors);
+        var csv = format == "csv";
         if (errors.Count > 0 || position is null || window is null)
             return TypedResults.ValidationProblem(errors, title: "The series request has invalid query values");
 
@@ -47,49 +50,50 @@ public static class PointSeriesApi
         var chunks = await series.ReadCellAsync(point.Dataset.Id, point.Nearest.Cell.CellId, first, last, cancel);
         var depth = point.Nearest.Cell.DepthMetres is { } d ? d : double.NaN;
         var decoded = PointSeriesReader.Decode(chunks, timelines, depth);
+        // At an output point of a spectral hindcast the spectral values per step join the series.
+        var atOutputPoint = point.Dataset.GridKind == StationSpectraAnswers.StationsKind;
+        var spectral = atOutputPoint ? await stationSpectra.AlignedStepsAsync(point.Dataset.Id, point.Nearest.Cell.CellId, chunks, timelines, cancel) : null;
+        var (columns, teFromTp) = SeriesColumns.Of(decoded, statistics.AssumedSpectrum, spectral);
         var source = await provenance.ForAsync(point.Dataset, cancel);
         var cell = point.Cell;
-        var fileName = $"{slug}_series_{cell.Id}_{first}-{last}.{(csv ? "csv" : "json")}";
+        var fileName = $"{slug}_series_{cell.Id}_{first}-{last}.{format}";
+        if (format == "nc")
+        {
+            var name = atOutputPoint ? StationSpectraAnswers.StationName(point.Dataset, cell.Id) : $"cell {cell.Id}";
+            var bytes = SeriesNetCdfWriter.Write(decoded, columns, cell, name, source);
+            return TypedResults.Stream(stream => stream.WriteAsync(bytes, cancel).AsTask(), "application/x-netcdf", fileName);
+        }
         return TypedResults.Stream(
-            stream => csv ? WriteCsvAsync(stream, decoded, statistics.AssumedSpectrum, cell, source, first, last, cancel)
-                          : WriteJsonAsync(stream, decoded, statistics.AssumedSpectrum, cell, source, first, last, cancel),
+            stream => csv ? WriteCsvAsync(stream, decoded, columns, teFromTp, statistics.AssumedSpectrum, cell, source, first, last, cancel)
+                          : WriteJsonAsync(stream, decoded, columns, teFromTp, cell, source, first, last, cancel),
             csv ? "text/csv; charset=utf-8" : "application/json", fileName);
     }
 
-    private const string Units = "time UTC (ISO 8601); hs m; te s; tp s; dir degree (true, direction waves come from); spread degree; j kW/m";
-
-    private static async Task WriteCsvAsync(Stream stream, PointSeries s, SpectrumShape spectrum, PointCell cell, Provenance source, int first, int last,
-        CancellationToken cancel)
+    private static async Task WriteCsvAsync(Stream stream, PointSeries s, IReadOnlyList<SeriesColumn> columns, bool teFromTp, SpectrumShape spectrum,
+        PointCell cell, Provenance source, int first, int last, CancellationToken cancel)
     {
-        var (te, power, teFromTp) = s.Derived(spectrum);
         await using var writer = new StreamWriter(stream, new UTF8Encoding(false), 64 * 1024);
         await writer.WriteAsync($"# series of cell {cell.Id} at lat {F(cell.Lat)} lon {F(cell.Lon)}, depth_m {(cell.DepthM is { } d ? F(d) : "unknown (deep water assumed)")}, " +
                                 $"{cell.DistanceM:0.#} m from the requested position; years {first}..{last}\n");
-        await writer.WriteAsync($"# units: {Units}\n");
+        await writer.WriteAsync($"# units: {SeriesColumns.UnitsLine(columns)}\n");
         if (teFromTp) await writer.WriteAsync($"# te: derived from tp for the {MethodNotes.AssumedSpectrum(spectrum)}, the dataset has no energy period\n");
         foreach (var line in source.HeaderLines()) await writer.WriteAsync(line + "\n");
-        await writer.WriteAsync("time,hs,te,tp,dir,spread,j\n");
+        await writer.WriteAsync("time," + string.Join(',', columns.Select(c => c.Name)) + "\n");
         var line8 = new StringBuilder(96);
         for (var i = 0; i < s.Times.Length; i++)
         {
             line8.Clear();
             line8.Append(DateTimeOffset.FromUnixTimeSeconds(s.Times[i]).UtcDateTime.ToString("yyyy-MM-dd'T'HH:mm:ss'Z'", CultureInfo.InvariantCulture));
-            Append(line8, s.Hs[i], "0.###");
-            Append(line8, te[i], "0.###");
-            Append(line8, s.HasTp ? s.Tp[i] : float.NaN, "0.##");
-            Append(line8, s.HasDir ? s.Dir[i] : float.NaN, "0.##");
-            Append(line8, s.HasSpread ? s.Spread[i] : float.NaN, "0.##");
-            Append(line8, power[i], "0.###");
+            foreach (var column in columns) Append(line8, column.Values[i], column.CsvPattern);
             line8.Append('\n');
             await writer.WriteAsync(line8, cancel);
         }
         await writer.FlushAsync(cancel);
     }
 
-    private static async Task WriteJsonAsync(Stream stream, PointSeries s, SpectrumShape spectrum, PointCell cell, Provenance source, int first, int last,
-        CancellationToken cancel)
+    private static async Task WriteJsonAsync(Stream stream, PointSeries s, IReadOnlyList<SeriesColumn> columns, bool teFromTp, PointCell cell,
+        Provenance source, int first, int last, CancellationToken cancel)
     {
-        var (te, power, teFromTp) = s.Derived(spectrum);
         // The writer fills a buffer that is copied to the response asynchronously (the server forbids synchronous writes).
         var buffer = new System.Buffers.ArrayBufferWriter<byte>(64 * 1024);
         await using var json = new Utf8JsonWriter(buffer);
@@ -98,7 +102,7 @@ public static class PointSeriesApi
         JsonSerializer.Serialize(json, cell, GeoJsonWriter.Options);
         json.WriteNumber("from_year", first);
         json.WriteNumber("to_year", last);
-        json.WriteString("units", Units);
+        json.WriteString("units", SeriesColumns.UnitsLine(columns));
         json.WriteBoolean("te_from_tp", teFromTp);
         json.WritePropertyName("provenance");
         JsonSerializer.Serialize(json, source, GeoJsonWriter.Options);
@@ -108,12 +112,7 @@ public static class PointSeriesApi
         {
             json.WriteStartObject();
             json.WriteString("time", DateTimeOffset.FromUnixTimeSeconds(s.Times[i]).UtcDateTime);
-            Write(json, "hs", s.Hs[i], 3);
-            Write(json, "te", te[i], 3);
-            Write(json, "tp", s.HasTp ? s.Tp[i] : float.NaN, 2);
-            Write(json, "dir", s.HasDir ? s.Dir[i] : float.NaN, 2);
-            Write(json, "spread", s.HasSpread ? s.Spread[i] : float.NaN, 2);
-            Write(json, "j", power[i], 3);
+            foreach (var column in columns) Write(json, column.Name, column.Values[i], column.JsonDigits);
             json.WriteEndObject();
             if (json.BytesPending + buffer.WrittenCount > 32 * 1024) await DrainAsync(json, buffer, stream, cancel);
         }

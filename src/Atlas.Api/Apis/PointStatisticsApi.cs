@@ -73,7 +73,7 @@ public static class PointStatisticsApi
         bool atOutputPoint = point.Dataset.GridKind == StationSpectraAnswers.StationsKind;
         var cellId = point.Nearest.Cell.CellId;
         // At an output point the power per step is the one integrated from its spectra.
-        float[]? spectralPower = atOutputPoint ? (await spectral.Answers.AlignedStepsAsync(point.Dataset.Id, cellId, chunks, timelines, cancel)).Power : null;
+        float[]? spectralPower = atOutputPoint ? (await spectral.Answers.AlignedStepsAsync(point.Dataset.Id, cellId, chunks, timelines, cancel))[SpectralProduct.Power] : null;
         using (var decoded = PointSeriesReader.DecodeRented(chunks, timelines, point.Nearest.Cell.DepthMetres is { } d ? d : double.NaN))
             result = ExactPointAnalysis.Analyse(decoded.ToCellSeries() with { Power = spectralPower }, new ExactPointOptions
             {

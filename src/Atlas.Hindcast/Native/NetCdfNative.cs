@@ -169,4 +169,5 @@ internal static unsafe class NetCdfNative
     [DllImport(Library, ExactSpelling = true)] public static extern int nc_put_vara_int(int ncid, int varid, nuint* start, nuint* count, int* data);
     [DllImport(Library, ExactSpelling = true)] public static extern int nc_put_vara_schar(int ncid, int varid, nuint* start, nuint* count, sbyte* data);
     [DllImport(Library, ExactSpelling = true)] public static extern int nc_put_vara_uchar(int ncid, int varid, nuint* start, nuint* count, byte* data);
+    [DllImport(Library, ExactSpelling = true)] public static extern int nc_put_vara_text(int ncid, int varid, nuint* start, nuint* count, byte* data);
 }

@@ -49,7 +49,8 @@ public sealed class PointSpectraFile : IDisposable
         {
             (_factor, var conversion) = SpectralDensityUnits.ToSi(_density.TextAttribute("units"), Directional);
             _decoder = CfValueDecoder.Create(_density, PhysicalQuantity.Length, unitsOverride: "m");
-            notes.Add($"spectrum '{_density.Name}' ({(Directional ? "directional" : "frequency")} variance density): units {conversion}");
+            notes.Add($"spectrum '{_density.Name}' ({(Directional ? "directional" : "frequency")} variance density): " +
+                (conversion == "none" ? $"units {_density.TextAttribute("units")}, used as they are" : $"units {conversion}"));
         }
         catch (FormatException e)
         {

@@ -164,6 +164,21 @@ public sealed unsafe class NetCdfWriter : IDisposable
         Check(status, variable, "nc_put_vara_" + typeof(T).Name.ToLowerInvariant());
     }
 
+    /// <summary>Writes UTF-8 text into a 1-D char variable (a label such as a station name), padded with NULs.</summary>
+    public void WriteText(string variable, string text)
+    {
+        EndDefinitions();
+        var (varid, type, rank) = _variables.TryGetValue(variable, out var v) ? v : throw new ArgumentException($"variable '{variable}' is not defined");
+        if (type != NetCdfType.Char || rank != 1) throw new ArgumentException($"variable '{variable}' is not a 1-D char variable");
+        var bytes = Encoding.UTF8.GetBytes(text);
+        nuint start = 0, count = (nuint)bytes.Length;
+        if (bytes.Length == 0) return;
+        int status;
+        fixed (byte* p = bytes)
+            lock (NetCdfNative.Gate) status = NetCdfNative.nc_put_vara_text(_handle.Id, varid, &start, &count, p);
+        Check(status, variable, "nc_put_vara_text");
+    }
+
     /// <summary>Closes the file, throwing when netCDF-C reports that the data could not be flushed.</summary>
     public void Close()
     {

@@ -38,7 +38,7 @@ public sealed class SourceFile : IDisposable
         if (spectra.HasDepth) fields.Add(WaveParameter.Depth);
         Variables = fields.ToHashSet();
         Sources = fields.ToDictionary(v => v, v => v == WaveParameter.Depth
-            ? new VariableSource(spectra.SpectrumVariable, "the output points' depths", string.Join("; ", spectra.Notes.Where(n => n.Contains("depth"))))
+            ? new VariableSource(spectra.SpectrumVariable, "the output points' depths", string.Join("; ", spectra.Notes.Where(n => n.StartsWith("depth") || n.StartsWith("no depth"))))
             : new VariableSource(spectra.SpectrumVariable, "integrated from the spectrum", "none"));
         _file = spectra;
     }

@@ -31,35 +31,29 @@ public sealed class StationSpectraAnswers(NpgsqlDataSource dataSource, StationSp
     /// The spectral power per step of a station, aligned with <see cref="PointSeriesReader.DecodeRented"/> of the same
     /// chunks and time lines (NaN where a year has no stored spectral values).
     /// </summary>
-    public async Task<(float[] Power, float[] Parametric, float[] Width)> AlignedStepsAsync(int datasetId, int cellId, IReadOnlyList<SeriesChunk> chunks,
+    public async Task<AlignedStationSteps> AlignedStepsAsync(int datasetId, int cellId, IReadOnlyList<SeriesChunk> chunks,
         IReadOnlyDictionary<int, long[]> timelines, CancellationToken cancel)
     {
         var usable = chunks.Where(c => timelines.TryGetValue(c.Year, out var t) && t.Length == SeriesCodec.StepCountOf(c.Payload)).ToArray();
         await using var connection = await dataSource.OpenConnectionAsync(cancel);
         var stored = await StationSpectraStore.ReadStepsAsync(connection, null, datasetId, usable.Select(c => c.Year).ToArray(), cellId, cancel);
         int total = usable.Sum(c => SeriesCodec.StepCountOf(c.Payload));
-        var power = new float[total];
-        var parametric = new float[total];
-        var width = new float[total];
+        var values = new float[SpectralProducts.Count][];
+        for (int k = 0; k < values.Length; k++) values[k] = new float[total];
         int offset = 0;
         foreach (var chunk in usable)
         {
             int n = SeriesCodec.StepCountOf(chunk.Payload);
             if (stored.TryGetValue((cellId, chunk.Year), out var record) && record.PowerSpectral.Length == n)
             {
-                record.PowerSpectral.CopyTo(power, offset);
-                record.PowerParametric.CopyTo(parametric, offset);
-                record.SpectralWidth.CopyTo(width, offset);
+                float[][] columns = [record.PowerSpectral, record.PowerParametric, record.Directionality, record.MaximumPowerFrom, record.SpectralWidth];
+                for (int k = 0; k < values.Length; k++) columns[k].CopyTo(values[k], offset);
             }
             else
-            {
-                power.AsSpan(offset, n).Fill(float.NaN);
-                parametric.AsSpan(offset, n).Fill(float.NaN);
-                width.AsSpan(offset, n).Fill(float.NaN);
-            }
+                foreach (var column in values) column.AsSpan(offset, n).Fill(float.NaN);
             offset += n;
         }
-        return (power, parametric, width);
+        return new AlignedStationSteps(values);
     }
 
     /// <summary>
@@ -71,7 +65,8 @@ public sealed class StationSpectraAnswers(NpgsqlDataSource dataSource, StationSp
     {
         var chunks = await series.ReadCellAsync(dataset.Id, cellId, window.FirstYear, window.LastYear, cancel);
         if (chunks.Count == 0) return null;
-        var (power, parametric, width) = await AlignedStepsAsync(dataset.Id, cellId, chunks, timelines, cancel);
+        var aligned = await AlignedStepsAsync(dataset.Id, cellId, chunks, timelines, cancel);
+        var (power, parametric, width) = (aligned[SpectralProduct.Power], aligned[SpectralProduct.ParametricPower], aligned[SpectralProduct.SpectralWidth]);
         ExactPointStatistics spectral, bulk;
         long[] times;
         using (var decoded = PointSeriesReader.DecodeRented(chunks, timelines, depth ?? double.NaN))
@@ -108,14 +103,17 @@ public sealed class StationSpectraAnswers(NpgsqlDataSource dataSource, StationSp
         return PeriodSpectra.Of(months, periods, window, Axes(dataset, cellId).Directions).ToDictionary(p => p.Period);
     }
 
+    /// <summary>The name of an output point of a dataset of points.</summary>
+    public static string StationName(DatasetRecord dataset, int cellId) =>
+        JsonNode.Parse(dataset.MetadataJson)?["spectra"]?["stations"]?.AsArray().ElementAtOrDefault(cellId)?["name"]?.GetValue<string>() ?? $"station {cellId + 1}";
+
     private static (double[] Frequencies, double[] Directions, string Station) Axes(DatasetRecord dataset, int cellId)
     {
         var spectra = JsonNode.Parse(dataset.MetadataJson)?["spectra"]
             ?? throw new InvalidOperationException($"dataset '{dataset.Slug}' has no spectral metadata");
         var frequencies = spectra["frequencies_hz"]!.AsArray().Select(v => v!.GetValue<double>()).ToArray();
         var directions = spectra["directions_from_deg"]!.AsArray().Select(v => v!.GetValue<double>()).ToArray();
-        var station = spectra["stations"]?.AsArray().ElementAtOrDefault(cellId)?["name"]?.GetValue<string>() ?? $"station {cellId + 1}";
-        return (frequencies, directions, station);
+        return (frequencies, directions, StationName(dataset, cellId));
     }
 
     private static double PooledMean(long[] times, float[] values, AtlasPeriod period, AnalysisWindow window)

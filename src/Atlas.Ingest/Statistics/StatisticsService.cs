@@ -51,7 +51,7 @@ public sealed class StatisticsService(NpgsqlDataSource dataSource, StatisticsOpt
         var timeline = DatasetTimeline.Of(await datasets.TimelinesAsync(dataset.Id, cancel));
         var computedAt = DateTime.UtcNow;
         var (done, periods, rows) = await ComputeAsync(dataset.Id, cells, targets, timeline, computedAt, progress, clock, cancel);
-        await datasets.MergeMetadataAsync(dataset.Id, MethodNotes(computedAt), cancel);
+        await datasets.MergeMetadataAsync(dataset.Id, MethodNotes(computedAt, dataset.GridKind == Spectra.StationSpectraAnswers.StationsKind), cancel);
         return new StatisticsSummary(slug, done, periods, rows, (long)done * timeline.Times.Length, clock.Elapsed, methodChanged, optionsChanged);
     }
 
@@ -133,7 +133,7 @@ public sealed class StatisticsService(NpgsqlDataSource dataSource, StatisticsOpt
         return wetCells.Where(c => blocks.Contains(StatisticBlock.BlockOf(c))).Order().ToArray();
     }
 
-    private string MethodNotes(DateTime computedAt)
+    private string MethodNotes(DateTime computedAt, bool outputPoints)
     {
         var notes = new JsonObject
         {
@@ -142,8 +142,13 @@ public sealed class StatisticsService(NpgsqlDataSource dataSource, StatisticsOpt
                 ["computed_at"] = computedAt.ToString("O"),
                 ["method_version"] = Atlas.Statistics.MethodNotes.Version,
                 ["software_version"] = typeof(StatisticsService).Assembly.GetName().Version?.ToString(),
-                ["power"] = "omnidirectional power per time step from Hm0 and Te with the linear-theory group velocity at Te and the cell depth " +
-                            "(rho 1025 kg/m3, g 9.81 m/s2; deep water where the depth is unknown), then averaged; never from mean Hs and mean Te",
+                ["power"] = outputPoints
+                    ? "omnidirectional power per time step integrated from the output point's spectrum, J = rho g sum cg(f, h) S(f) df with each " +
+                      "frequency's group velocity at the station depth (trapezoidal rule over the given frequencies; rho 1025 kg/m3, g 9.81 m/s2), " +
+                      "then averaged. The point answers give the power from Hm0 and Te beside it and the directionality from the period-mean " +
+                      "J_theta of the spectra; the directionality of these layers models each step's spreading from its spread, as for gridded fields"
+                    : "omnidirectional power per time step from Hm0 and Te with the linear-theory group velocity at Te and the cell depth " +
+                      "(rho 1025 kg/m3, g 9.81 m/s2; deep water where the depth is unknown), then averaged; never from mean Hs and mean Te",
                 ["energy_period"] = $"Te from the source; where absent, assumed from Tp for the {Atlas.Statistics.MethodNotes.AssumedSpectrum(_options.AssumedSpectrum)}",
                 ["direction"] = "power-weighted circular mean of the direction waves come from; 16-sector power rose",
                 ["directionality"] = Atlas.Statistics.MethodNotes.Directionality,
