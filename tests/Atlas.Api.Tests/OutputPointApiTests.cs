@@ -96,4 +96,43 @@ public sealed class OutputPointApiTests : IAsyncLifetime
         // cos 50.3 deg = 1.42 km; common practice for a check of order).
         Assert.InRange(spectral.GetProperty("distance_km").GetDouble(), 3.4, 3.9);
     }
+
+    // The series at an output point: j is the power integrated from the spectra (the script's NumPy/SciPy values, to the
+    // 3 decimals written), followed by the spectral values; the NetCDF form read back by netCDF4-python (a reader the project
+    // did not write) holds the same numbers as the JSON form.
+    [Fact]
+    public async Task SeriesAtAnOutputPointCarryTheSpectralValuesInEveryFormat()
+    {
+        var client = _factory.CreateClient();
+        const string query = "/api/v1/datasets/points/point/series?lat=50.21&lon=-19.71";
+        var csv = (await client.GetStringAsync(query + "&format=csv")).Split('\n').Where(l => l.Length > 0 && !l.StartsWith('#')).ToArray();
+        Assert.Equal("time,hs,te,tp,dir,spread,j,j_parametric,directionality,max_power_from_deg,spectral_width", csv[0]);
+        var steps = PointSpectraFixture.Expected(_points)["steps"]!.AsArray().Select(s => s![1]!).ToList();
+        for (int t = 0; t < steps.Count; t++)
+        {
+            var cells = csv[t + 1].Split(',');
+            Assert.Equal(steps[t]["j"]!.GetValue<double>(), double.Parse(cells[6], System.Globalization.CultureInfo.InvariantCulture), 0.0006);
+            Assert.Equal(steps[t]["directionality"]!.GetValue<double>(), double.Parse(cells[8], System.Globalization.CultureInfo.InvariantCulture), 0.00006);
+        }
+
+        var json = JsonDocument.Parse(await client.GetStringAsync(query + "&format=json")).RootElement.GetProperty("steps");
+        var nc = Path.Combine(Directory.CreateTempSubdirectory("atlas-series-nc-").FullName, "series.nc");
+        await File.WriteAllBytesAsync(nc, await client.GetByteArrayAsync(query + "&format=nc"));
+        var script = "import sys, json\nfrom netCDF4 import Dataset\nd = Dataset(sys.argv[1])\n" +
+                     "print(json.dumps({'featureType': d.featureType, 'station': d['station_name'][:].tobytes().decode().strip(), " +
+                     "'j': [float(v) for v in d['j'][:]], 'width': [float(v) for v in d['spectral_width'][:]], 'time0': float(d['time'][0])}))";
+        var start = new System.Diagnostics.ProcessStartInfo("/usr/bin/python3") { RedirectStandardOutput = true, RedirectStandardError = true };
+        start.ArgumentList.Add("-c"); start.ArgumentList.Add(script); start.ArgumentList.Add(nc);
+        using var python = System.Diagnostics.Process.Start(start)!;
+        var output = await python.StandardOutput.ReadToEndAsync();
+        await python.WaitForExitAsync();
+        Assert.True(python.ExitCode == 0, await python.StandardError.ReadToEndAsync());
+        var read = JsonDocument.Parse(output).RootElement;
+        Assert.Equal("timeSeries", read.GetProperty("featureType").GetString());
+        Assert.Equal("Cobble Shelf", read.GetProperty("station").GetString());
+        Assert.Equal(new DateTimeOffset(2021, 1, 1, 0, 0, 0, TimeSpan.Zero).ToUnixTimeSeconds(), read.GetProperty("time0").GetDouble());
+        var j = read.GetProperty("j").EnumerateArray().Select(v => v.GetDouble()).ToArray();
+        Assert.Equal(json.GetArrayLength(), j.Length);
+        for (int t = 0; t < j.Length; t++) Assert.Equal(json[t].GetProperty("j").GetDouble(), j[t], 0.0006);
+    }
 }

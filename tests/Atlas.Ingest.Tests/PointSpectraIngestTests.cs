@@ -94,6 +94,38 @@ public class PointSpectraIngestTests(TestDatabase database) : IClassFixture<Test
         Assert.Null(await new DatasetStore(database.DataSource).FindAsync(slug));
     }
 
+    // S(f) alone, and spectra per degree: the parameters the integration gives are the script's (NumPy trapezoid, SciPy
+    // brentq) within float32 rounding; depths come from a mapping file where the file has none.
+    [Theory]
+    [InlineData("frequency_only")]
+    [InlineData("per_degree")]
+    public async Task FrequencySpectraAndSpectraPerDegreeGiveTheSameParameters(string variant)
+    {
+        var folder = Folder();
+        var file = PointSpectraFixture.Make(Path.Combine(folder, $"{variant}.nc"), 0, 6, variant);
+        var mapping = variant == "frequency_only"
+            ? VariableMapping.Parse("{ \"station_depths_m\": { \"Harrow Deep\": 80, \"Cobble Shelf\": 15, \"Wick Inner\": 8 } }", "depths.json")
+            : null;
+        var slug = "points-" + variant.Replace('_', '-');
+        var summary = await new HindcastIngestor(database.DataSource).RunAsync(new IngestRequest(slug, [file], Mapping: mapping));
+        if (variant == "frequency_only") Assert.Contains(summary.SpectralNotes, n => n.Contains("depths of 3 station(s) from the mapping"));
+        else Assert.Contains(summary.SpectralNotes, n => n.Contains("per degree to per radian"));
+        var dataset = (await new DatasetStore(database.DataSource).FindAsync(slug))!;
+        var expected = PointSpectraFixture.Expected(file)["steps"]!.AsArray();
+        var steps = await StationSpectraStoreSteps(dataset.Id, 1);
+        var chunk = (await new SeriesStore(database.DataSource).ReadCellAsync(dataset.Id, 1)).Single();
+        var hs = new float[6];
+        SeriesCodec.Decode(chunk.Payload, WaveParameter.Hs, hs);
+        for (int t = 0; t < 6; t++)
+        {
+            var e = expected[t]![1]!;
+            Assert.Equal(e["hm0"]!.GetValue<double>(), hs[t], 0.0006);
+            AssertRelative(e["j"]!.GetValue<double>(), steps.PowerSpectral[t], 1e-5);
+            if (variant == "frequency_only") Assert.True(float.IsNaN(steps.Directionality[t]));
+            else Assert.Equal(e["directionality"]!.GetValue<double>(), steps.Directionality[t], 1e-5);
+        }
+    }
+
     private async Task<StationStepRecord> StationSpectraStoreSteps(int datasetId, int cell) =>
         (await new StationSpectraStore(database.DataSource).StepsOfStationAsync(datasetId, cell, default))[2021];
 

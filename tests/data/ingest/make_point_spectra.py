@@ -82,17 +82,25 @@ if variant != "no_coordinates":
     v = nc.createVariable("latitude", "f4", ("time", "station")); v.units = "degree_north"; v.standard_name = "latitude"; v[:] = np.tile(lats, (steps, 1))
 v = nc.createVariable("frequency", "f4", ("frequency",)); v.units = "s-1"; v.standard_name = "sea_surface_wave_frequency"
 v[:] = freq[::-1] if variant == "frequencies_decreasing" else freq
-v = nc.createVariable("direction", "f4", ("direction",)); v.units = "degree"; v.standard_name = "sea_surface_wave_to_direction"
-v[:] = to_dirs
-if variant == "half_circle":
-    v[:] = (np.arange(24) * 7.5).astype(np.float32)
-v = nc.createVariable("dpt", "f4", ("time", "station"), fill_value=np.float32(9.96921e36)); v.units = "m"; v.long_name = "depth"; v[:] = np.tile(depths, (steps, 1))
-v = nc.createVariable("efth", "f4", ("time", "station", "frequency", "direction"), fill_value=np.float32(9.96921e36))
-v.units = {"units_unknown": "m2 s furlong-1"}.get(variant, "m2 s rad-1")
-v.standard_name = "sea_surface_wave_directional_variance_spectral_density"
-if variant == "negative":
-    efth[1, 2, 5, 3] = -0.25
-v[:] = efth
-nc.close()
+if variant == "frequency_only":
+    # S(f) only, per hertz, no depth in the file (the test gives the depths in a mapping file).
+    v = nc.createVariable("ef", "f4", ("time", "station", "frequency"), fill_value=np.float32(9.96921e36))
+    v.units = "m2 Hz-1"; v.standard_name = "sea_surface_wave_variance_spectral_density"
+    v[:] = (efth.astype(np.float64).sum(axis=3) * dtheta).astype(np.float32)
+    nc.close()
+else:
+    v = nc.createVariable("direction", "f4", ("direction",)); v.units = "degree"; v.standard_name = "sea_surface_wave_to_direction"
+    v[:] = to_dirs
+    if variant == "half_circle":
+        v[:] = (np.arange(24) * 7.5).astype(np.float32)
+    v = nc.createVariable("dpt", "f4", ("time", "station"), fill_value=np.float32(9.96921e36)); v.units = "m"; v.long_name = "depth"; v[:] = np.tile(depths, (steps, 1))
+    v = nc.createVariable("efth", "f4", ("time", "station", "frequency", "direction"), fill_value=np.float32(9.96921e36))
+    v.units = {"units_unknown": "m2 s furlong-1", "per_degree": "m2 Hz-1 degree-1"}.get(variant, "m2 s rad-1")
+    v.standard_name = "sea_surface_wave_directional_variance_spectral_density"
+    if variant == "negative":
+        efth[1, 2, 5, 3] = -0.25
+    # Per degree: the same spectra divided by 180/pi, which the reader must multiply back.
+    v[:] = efth * np.float32(np.pi / 180) if variant == "per_degree" else efth
+    nc.close()
 with open(path + ".expected.json", "w") as out:
     json.dump(expected, out)
