@@ -147,12 +147,22 @@ public sealed class DatasetStore(NpgsqlDataSource dataSource)
             SELECT (SELECT count(*) FROM series_chunk WHERE dataset_id = $1),
                    (SELECT coalesce(sum(pg_column_size(payload)), 0) FROM series_chunk WHERE dataset_id = $1)::bigint,
                    (SELECT count(*) FROM statistic_block WHERE dataset_id = $1),
-                   (SELECT coalesce(sum(pg_column_size(s.*)), 0) FROM statistic_block s WHERE dataset_id = $1)::bigint
+                   (SELECT coalesce(sum(pg_column_size(s.*)), 0) FROM statistic_block s WHERE dataset_id = $1)::bigint,
+                   (SELECT count(*) FROM station_step WHERE dataset_id = $1),
+                   (SELECT coalesce(sum(pg_column_size(s.*)), 0) FROM station_step s WHERE dataset_id = $1)::bigint,
+                   (SELECT count(*) FROM station_spectrum_month WHERE dataset_id = $1),
+                   (SELECT coalesce(sum(pg_column_size(s.*)), 0) FROM station_spectrum_month s WHERE dataset_id = $1)::bigint
             """);
         command.Parameters.AddWithValue(datasetId);
         await using var reader = await command.ExecuteReaderAsync(cancel);
         await reader.ReadAsync(cancel);
-        return new DatasetStorage(reader.GetInt64(0), reader.GetInt64(1), reader.GetInt64(2), reader.GetInt64(3));
+        return new DatasetStorage(reader.GetInt64(0), reader.GetInt64(1), reader.GetInt64(2), reader.GetInt64(3))
+        {
+            SpectralYearCount = reader.GetInt64(4),
+            SpectralBytes = reader.GetInt64(5),
+            SpectrumMonthCount = reader.GetInt64(6),
+            SpectrumMonthBytes = reader.GetInt64(7),
+        };
     }
 
     /// <summary>Tables keyed by cell, which carry no foreign key to dataset (so they can be distributed by cell).</summary>
