@@ -21,6 +21,7 @@ public sealed class SpectralIntegrator
     private readonly ResolvedPowerSweep? _sweep;
     private readonly double[] _frequencySpectrum;
     private readonly double[] _directionPowers;
+    private readonly double[] _directionEnergy;
 
     /// <param name="axes">The spectrum's axes.</param>
     /// <param name="depthMetres">The point's depth, m; NaN or +infinity means deep water.</param>
@@ -51,6 +52,7 @@ public sealed class SpectralIntegrator
         _sweep = nd > 0 ? new ResolvedPowerSweep(axes.DirectionsFrom) : null;
         _frequencySpectrum = new double[nf];
         _directionPowers = new double[nd];
+        _directionEnergy = new double[nd];
     }
 
     public SpectralAxes Axes => _axes;
@@ -89,17 +91,21 @@ public sealed class SpectralIntegrator
         else
         {
             Array.Clear(_directionPowers);
+            Array.Clear(_directionEnergy);
+            var powers = _directionPowers.AsSpan(0, nd);
+            var energy = _directionEnergy.AsSpan(0, nd);
             for (int i = 0; i < nf; i++)
             {
                 var row = density.Slice(i * nd, nd);
-                double sum = 0, weight = _powerWeights[i];
-                for (int j = 0; j < nd; j++)
+                double sum = 0, weight = _powerWeights[i], trapezoid = _m0[i];
+                for (int j = 0; j < row.Length; j++)
                 {
                     float s = row[j];
-                    if (float.IsNaN(s)) { missing = true; break; }
                     sum += s;
-                    _directionPowers[j] += weight * s;
+                    powers[j] += weight * s;
+                    energy[j] += trapezoid * s;
                 }
+                if (double.IsNaN(sum)) { missing = true; break; }
                 _frequencySpectrum[i] = sum * binWidth;
             }
             for (int j = 0; j < nd; j++) _directionPowers[j] *= binWidth;
@@ -133,8 +139,7 @@ public sealed class SpectralIntegrator
             double a1 = 0, b1 = 0, energy = 0;
             for (int j = 0; j < nd; j++)
             {
-                double e = 0;
-                for (int i = 0; i < nf; i++) e += _m0[i] * density[i * nd + j];
+                double e = _directionEnergy[j];
                 a1 += e * _directionCos[j];
                 b1 += e * _directionSin[j];
                 energy += e;

@@ -3,6 +3,9 @@ using Atlas.Ingest.Spectra;
 
 namespace Atlas.Api.Points;
 
+/// <summary>An output point of a spectral hindcast, as the page draws it.</summary>
+public sealed record OutputPointItem(string Dataset, string Name, int CellId, double Lat, double Lon, double? DepthM);
+
 /// <summary>
 /// The output points of a spectral hindcast beside its gridded dataset: the datasets of output points that name the gridded
 /// one, and the nearest of their points to a position (geodesic distance on WGS 84).
@@ -24,6 +27,21 @@ public sealed class OutputPoints(DatasetStore datasets, DatasetCatalog catalog)
             }
         }
         return best;
+    }
+
+    /// <summary>
+    /// The output points to draw with a dataset: its own (a dataset of points) or those of the datasets of points that name
+    /// it (a gridded dataset).
+    /// </summary>
+    public async Task<IReadOnlyList<OutputPointItem>> ListAsync(DatasetRecord dataset, CancellationToken cancel)
+    {
+        IReadOnlyList<DatasetRecord> sources = dataset.GridKind == StationSpectraAnswers.StationsKind ? [dataset] : await CompanionsAsync(dataset, cancel);
+        var items = new List<OutputPointItem>();
+        foreach (var source in sources)
+            foreach (var cell in (await catalog.CellsAsync(source, cancel)).All.Where(c => c.Wet))
+                items.Add(new OutputPointItem(source.Slug, StationSpectraAnswers.StationName(source, cell.CellId), cell.CellId,
+                    cell.Latitude, cell.Longitude, cell.DepthMetres));
+        return items;
     }
 
     /// <summary>The datasets of output points that name <paramref name="gridDataset"/> as theirs.</summary>
