@@ -34,6 +34,7 @@ public sealed class PointSpectraFile : IDisposable
     private readonly double _factor;
     private readonly int _timeAxis, _stationAxis, _frequencyAxis, _directionAxis;
     private readonly int[] _directionOrder; // sorted position -> file index
+    private float[] _raw = [];              // the last block as read, reused from block to block
 
     private PointSpectraFile(NetCdfFile file, VariableMapping? mapping)
     {
@@ -153,8 +154,9 @@ public sealed class PointSpectraFile : IDisposable
         var count = _density.Shape;
         start[_timeAxis] = timeStart;
         count[_timeAxis] = timeCount;
-        var raw = new float[needed];
-        _file.Read(_density, start, count, raw.AsSpan());
+        if (_raw.Length < needed) _raw = new float[needed];
+        var raw = _raw.AsSpan(0, (int)needed);
+        _file.Read(_density, start, count, raw);
         _decoder.DecodeInPlace(raw);
 
         // Strides of each role in the raw (file-ordered) slab.
@@ -164,21 +166,26 @@ public sealed class PointSpectraFile : IDisposable
         long st = strides[_timeAxis], sf = strides[_frequencyAxis];
         long ss = _stationAxis >= 0 ? strides[_stationAxis] : 0, sd = _directionAxis >= 0 ? strides[_directionAxis] : 0;
         float factor = (float)_factor;
-        long o = 0;
+        var order = _directionOrder.Length > 0 ? _directionOrder : [0];
+        int o = 0;
         for (int t = 0; t < timeCount; t++)
             for (int s = 0; s < stations; s++)
                 for (int i = 0; i < nf; i++)
                 {
                     long rowBase = t * st + s * ss + i * sf;
-                    for (int j = 0; j < nd; j++)
+                    var row = destination.Slice(o, nd);
+                    float smallest = 0;
+                    for (int j = 0; j < row.Length; j++)
                     {
-                        float v = raw[rowBase + (_directionAxis >= 0 ? _directionOrder[j] * sd : 0)];
-                        if (v < 0)
-                            throw new HindcastFormatException(Path, _density.Name,
-                                $"has a negative density {v} at station '{Stations[s].Name}', {CfTime.Iso(TimesUtc[timeStart + t])}, " +
-                                $"frequency {FrequenciesHz[i]:0.#####} Hz; a variance density cannot be negative");
-                        destination[(int)o++] = v * factor;
+                        float v = raw[(int)(rowBase + order[j] * sd)];
+                        smallest = Math.Min(smallest, v);
+                        row[j] = v * factor;
                     }
+                    if (smallest < 0)
+                        throw new HindcastFormatException(Path, _density.Name,
+                            $"has a negative density {smallest} at station '{Stations[s].Name}', {CfTime.Iso(TimesUtc[timeStart + t])}, " +
+                            $"frequency {FrequenciesHz[i]:0.#####} Hz; a variance density cannot be negative");
+                    o += nd;
                 }
     }
 

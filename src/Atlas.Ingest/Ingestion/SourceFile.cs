@@ -91,9 +91,25 @@ public sealed class SourceFile : IDisposable
     public static SourceFile Open(string path, VariableMapping? mapping)
     {
         if (!System.IO.File.Exists(path)) throw new IngestException($"{path}: no such file.");
-        string sha;
-        using (var stream = new FileStream(path, FileMode.Open, FileAccess.Read, FileShare.Read, 1 << 20))
-            sha = Convert.ToHexStringLower(SHA256.HashData(stream));
+        // The checksum reads the file once more: it runs beside the decoding (and a spectral file's integration).
+        var checksum = Task.Run(() =>
+        {
+            using var stream = new FileStream(path, FileMode.Open, FileAccess.Read, FileShare.Read, 1 << 20);
+            return Convert.ToHexStringLower(SHA256.HashData(stream));
+        });
+        try
+        {
+            return OpenDecoded(path, mapping, checksum);
+        }
+        finally
+        {
+            // A failed decoding still waits for the checksum, so that no read of the file outlives the call.
+            try { checksum.Wait(); } catch (AggregateException) { }
+        }
+    }
+
+    private static SourceFile OpenDecoded(string path, VariableMapping? mapping, Task<string> checksum)
+    {
         Dictionary<string, string> attributes;
         bool spectral;
         using (var raw = NetCdfFile.Open(path))
@@ -105,7 +121,8 @@ public sealed class SourceFile : IDisposable
         {
             using var points = PointSpectraFile.Open(path, mapping);
             if (points.TimesUtc.Count == 0) throw new IngestException($"{System.IO.Path.GetFileName(path)}: the time axis is empty; there is nothing to load.");
-            return new SourceFile(IntegratedSpectra.Integrate(points), mapping, sha, new FileInfo(path).Length, attributes, path);
+            var integrated = IntegratedSpectra.Integrate(points);
+            return new SourceFile(integrated, mapping, checksum.GetAwaiter().GetResult(), new FileInfo(path).Length, attributes, path);
         }
         var file = HindcastFile.Open(path, mapping);
         DepthLookalike? lookalike = null;
@@ -116,7 +133,7 @@ public sealed class SourceFile : IDisposable
             file.Dispose();
             throw new IngestException($"{System.IO.Path.GetFileName(path)}: the time axis is empty; there is nothing to load.");
         }
-        return new SourceFile(file, mapping, sha, new FileInfo(path).Length, attributes, lookalike);
+        return new SourceFile(file, mapping, checksum.GetAwaiter().GetResult(), new FileInfo(path).Length, attributes, lookalike);
     }
 
     /// <summary>Closes the file (and frees its caches) until it is next needed.</summary>

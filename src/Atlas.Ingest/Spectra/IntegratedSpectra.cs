@@ -13,8 +13,8 @@ namespace Atlas.Ingest.Spectra;
 /// </summary>
 public sealed class IntegratedSpectra : IStepReader
 {
-    /// <summary>Steps read from the file at a time: bounded so that one raw block stays near 64 MB.</summary>
-    private const long BlockValues = 16 << 20;
+    /// <summary>Steps read from the file at a time: bounded so that one raw block stays near 16 MB.</summary>
+    private const long BlockValues = 4 << 20;
 
     private readonly Dictionary<WaveParameter, float[]> _series = [];   // [station * steps + step]
     private readonly float[][] _products;                                // per product, [station * steps + step]
