@@ -124,13 +124,13 @@ public sealed class DatasetStore(NpgsqlDataSource dataSource)
             while (await reader.ReadAsync(cancel)) running.Add(reader.GetInt64(0));
         }
         if (running.Count > 0) return new DatasetRemoval(DatasetRemovalOutcome.Busy, running);
-        foreach (var table in PerCellTables.Append(StatisticBlockTable))
+        foreach (var table in PerCellTables.Append(StatisticBlockTable).Append(StatisticStageTable))
         {
             await using var delete = new NpgsqlCommand($"DELETE FROM {table} WHERE dataset_id = $1", connection, transaction);
             delete.Parameters.AddWithValue(dataset.Id);
             await delete.ExecuteNonQueryAsync(cancel);
         }
-        // dataset_year, source_file and layer_cache follow by ON DELETE CASCADE.
+        // dataset_year, source_file, layer_cache and pass (with the jobs of its parts) follow by ON DELETE CASCADE.
         await using (var command = new NpgsqlCommand("DELETE FROM dataset WHERE dataset_id = $1", connection, transaction))
         {
             command.Parameters.AddWithValue(dataset.Id);
@@ -163,6 +163,9 @@ public sealed class DatasetStore(NpgsqlDataSource dataSource)
     /// like the per-cell tables it carries no foreign key to dataset.
     /// </summary>
     public const string StatisticBlockTable = "statistic_block";
+
+    /// <summary>Statistic blocks of passes in parts not yet finished (<see cref="Passes.PassStore"/>), keyed by pass, dataset and block.</summary>
+    public const string StatisticStageTable = "statistic_block_stage";
 
     public async Task<DatasetSummary?> SummariseAsync(string slug, CancellationToken cancel = default)
     {
