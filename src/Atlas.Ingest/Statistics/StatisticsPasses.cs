@@ -101,7 +101,7 @@ public sealed class StatisticsPasses(NpgsqlDataSource dataSource, StatisticsOpti
         {
             PartOutcome.Lost => throw new PartLostException(part.Id, part.ClaimedBy),
             PartOutcome.PassGone => $"{summary}; the pass ended meanwhile, so nothing of this part was kept",
-            PartOutcome.PassCompleted => $"{summary}; pass complete: the statistics of its {PassCells(pass)} cells are now served",
+            PartOutcome.PassCompleted => summary + PassStore.PassCompletedNote,
             _ => summary,
         };
     }
@@ -114,9 +114,6 @@ public sealed class StatisticsPasses(NpgsqlDataSource dataSource, StatisticsOpti
         return RecordedStatisticsOptions.Read(metadata.ToJsonString())
                ?? throw new IngestException($"Pass {pass.Id} records no statistics options; queue the pass again.");
     }
-
-    private static string PassCells(PassRecord pass) =>
-        JsonNode.Parse(pass.PayloadJson)?["cells"] is JsonValue v && v.TryGetValue(out int cells) ? cells.ToString("N0") : "target";
 }
 
 /// <summary>The payload of a part: the blocks of 1,024 cell ids it computes.</summary>

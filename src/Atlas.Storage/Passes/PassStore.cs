@@ -182,9 +182,18 @@ public sealed class PassStore(NpgsqlDataSource dataSource)
             }
         }
         await CompleteAsync(connection, transaction, pass, cancel);
+        await using (var note = new NpgsqlCommand("UPDATE job SET summary = summary || $2 WHERE job_id = $1", connection, transaction))
+        {
+            note.Parameters.AddWithValue(part.Id);
+            note.Parameters.AddWithValue(PassCompletedNote);
+            await note.ExecuteNonQueryAsync(cancel);
+        }
         await transaction.CommitAsync(cancel);
         return PartOutcome.PassCompleted;
     }
+
+    /// <summary>What the summary of the part that completed its pass ends with.</summary>
+    public const string PassCompletedNote = "; pass complete: its statistics are now served";
 
     private static async Task CompleteAsync(NpgsqlConnection connection, NpgsqlTransaction transaction, PassRecord pass, CancellationToken cancel)
     {
