@@ -41,7 +41,7 @@ public static class DatasetsCommand
             if (await store.SummariseAsync(parse.GetValue(slug)!, cancel) is not { } summary) return Unknown("show", parse.GetValue(slug)!);
             var storage = await store.StorageAsync(summary.Dataset.Id, cancel);
             var jobs = await new JobQueue(dataSource).ForDatasetAsync(summary.Dataset.Slug, cancel);
-            var passes = await new PassStore(dataSource).ProgressAsync(summary.Dataset.Id, cancel: cancel);
+            var passes = await new PassStore(dataSource).ProgressAsync(summary.Dataset.Slug, cancel: cancel);
             Console.Write(DatasetReport.Describe(summary, storage, jobs, passes));
             return 0;
         });

@@ -1,7 +1,6 @@
 using System.CommandLine;
 using Atlas.Cli.Jobs;
 using Atlas.Storage;
-using Atlas.Storage.Datasets;
 using Atlas.Storage.Jobs;
 using Atlas.Storage.Passes;
 
@@ -22,22 +21,12 @@ public static class JobsCommand
         {
             await using var dataSource = await AtlasDatabase.OpenMigratedAsync(cancel: cancel);
             var queue = new JobQueue(dataSource);
-            int? datasetId = null;
             var slug = parse.GetValue(dataset);
-            if (slug is not null)
-            {
-                if (await new DatasetStore(dataSource).FindAsync(slug, cancel) is not { } found)
-                {
-                    Console.Error.WriteLine($"atlas jobs: there is no dataset '{slug}' (atlas datasets list)");
-                    return 2;
-                }
-                datasetId = found.Id;
-            }
             var counts = await queue.CountByStateAsync(cancel);
             Console.WriteLine(counts.Count == 0 ? "queue: empty"
                 : "queue: " + string.Join("; ", counts.GroupBy(c => c.Kind).OrderBy(g => g.Key)
                     .Select(g => $"{g.Key} " + string.Join(", ", g.OrderBy(c => c.State).Select(c => $"{c.Count} {c.State}")))));
-            var passes = await new PassStore(dataSource).ProgressAsync(datasetId, parse.GetValue(limit), cancel);
+            var passes = await new PassStore(dataSource).ProgressAsync(slug, parse.GetValue(limit), cancel);
             foreach (var pass in passes) Console.WriteLine(PassReport.Line(pass, DateTime.UtcNow));
             var jobs = slug is null ? await queue.RecentAsync(parse.GetValue(limit) * 4, cancel) : await queue.ForDatasetAsync(slug, cancel);
             foreach (var job in jobs.Where(j => j.PassId is null).Take(parse.GetValue(limit)))

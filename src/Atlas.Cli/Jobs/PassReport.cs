@@ -11,7 +11,7 @@ public static class PassReport
     {
         var pass = p.Pass;
         var line = string.Create(CultureInfo.InvariantCulture,
-            $"pass {pass.Id}  statistics  {p.DatasetSlug}  {pass.State}  parts: {p.Done} done, {p.Running} running, {p.Queued} queued, {p.Failed} failed of {pass.PartCount}");
+            $"pass {pass.Id}  {PassStore.KindName(pass.Kind)}  {pass.DatasetSlug}  {pass.State}  parts: {p.Done} done, {p.Running} running, {p.Queued} queued, {p.Failed} failed of {pass.PartCount}");
         if (p.Remaining(nowUtc) is { } left) line += $"; about {ProgressSnapshot.FormatDuration(left)} left";
         else if (pass.State == "open" && p.Done == 0) line += "; time left known once a part is done";
         if (pass.FinishedAtUtc is { } finished && p.FirstClaimUtc is { } first)

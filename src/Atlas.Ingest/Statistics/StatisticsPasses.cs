@@ -55,7 +55,7 @@ public sealed class StatisticsPasses(NpgsqlDataSource dataSource, StatisticsOpti
         };
         var unsettled = plan.All && RecordedStatisticsOptions.Differ(plan.Dataset.MetadataJson, _options)
             ? RecordedStatisticsOptions.Unsettled(plan.Dataset.MetadataJson) : null;
-        var pass = await new PassStore(dataSource).OpenAsync(plan.Dataset.Id, slug, payload.ToJsonString(), blocks, parts, computedAt, unsettled, cancel);
+        var pass = await new PassStore(dataSource).OpenAsync(PassKind.Statistics, plan.Dataset.Id, slug, payload.ToJsonString(), blocks, parts, computedAt, unsettled, cancel);
         return new QueuedPass(pass, slug, plan.Targets.Length, plan.MethodChanged, plan.OptionsChanged);
     }
 

@@ -38,7 +38,7 @@ public sealed class StatisticsService(NpgsqlDataSource dataSource, StatisticsOpt
         var plan = await PlanAsync(slug, all, cancel);
         if (plan.Targets.Length == 0) return new StatisticsSummary(slug, 0, 0, 0, 0, clock.Elapsed);
         // A pass in parts publishes its blocks at its end: a plain pass under way meanwhile would interleave with it.
-        if (await new PassStore(dataSource).OpenPassAsync(plan.Dataset.Id, cancel) is { } open) throw new PassOpenException(slug, open.Id);
+        if (await new PassStore(dataSource).OpenPassAsync(slug, cancel) is { } open) throw new PassOpenException(slug, open.Id, open.Kind);
         var datasets = new DatasetStore(dataSource);
         await MarkUnsettledAsync(plan, cancel);
         var timeline = DatasetTimeline.Of(await datasets.TimelinesAsync(plan.Dataset.Id, cancel));

@@ -25,6 +25,7 @@ public sealed class JobRunner(NpgsqlDataSource dataSource, StatisticsOptions? st
     private readonly HindcastIngestor _ingestor = new(dataSource, statistics);
     private readonly StatisticsService _statistics = new(dataSource, statistics);
     private readonly StatisticsPasses _passes = new(dataSource, statistics);
+    private readonly IngestInParts _ingestParts = new(dataSource, statistics);
     private readonly PassStore _passStore = new(dataSource);
 
     /// <summary>How many times a part is tried in all before a database outage fails it (and its pass).</summary>
@@ -39,9 +40,11 @@ public sealed class JobRunner(NpgsqlDataSource dataSource, StatisticsOptions? st
         try
         {
             string summary;
-            if (job.Kind == JobKind.StatisticsPart)
+            if (job.Kind is JobKind.StatisticsPart or JobKind.IngestPart)
             {
-                summary = await _passes.RunPartAsync(job, heartbeat, cancel);
+                summary = job.Kind == JobKind.IngestPart
+                    ? await _ingestParts.RunPartAsync(job, heartbeat, cancel)
+                    : await _passes.RunPartAsync(job, heartbeat, cancel);
                 // A part stored is done already; one that found its pass ended is done here, with nothing kept.
                 await _queue.CompleteIfHeldAsync(job.Id, job.ClaimedBy ?? "", summary, CancellationToken.None);
                 JobMetrics.RecordFinished(job.Kind, "done", clock.Elapsed);
@@ -75,7 +78,7 @@ public sealed class JobRunner(NpgsqlDataSource dataSource, StatisticsOptions? st
             JobMetrics.RecordFinished(job.Kind, "lost", clock.Elapsed);
             throw;
         }
-        catch (Exception e) when (job.Kind == JobKind.StatisticsPart && e is not OperationCanceledException && IsOutage(e) && job.Attempts < PartAttempts)
+        catch (Exception e) when (job.PassId is not null && e is not OperationCanceledException && IsOutage(e) && job.Attempts < PartAttempts)
         {
             // The lease's session may be gone with the server; if this release cannot reach it either, the lease check
             // of the next worker to look queues the part again.

@@ -44,13 +44,17 @@ public sealed class DatasetStore(NpgsqlDataSource dataSource)
         return rows.Count == 0 ? null : rows[0];
     }
 
-    /// <summary>Inserts a dataset and returns its id. The caller's transaction makes it visible with its data.</summary>
+    /// <summary>
+    /// Inserts a dataset and returns its id: a new one, or <paramref name="reservedId"/> (taken from the id sequence
+    /// earlier by an ingest in parts, whose series already carry it). The caller's transaction makes it visible with its data.
+    /// </summary>
     public static async Task<int> InsertAsync(NpgsqlConnection connection, NpgsqlTransaction transaction, string slug, string title,
-        string gridKind, int? nx, int? ny, int pointCount, string gridJson, string metadataJson, CancellationToken cancel)
+        string gridKind, int? nx, int? ny, int pointCount, string gridJson, string metadataJson, CancellationToken cancel, int? reservedId = null)
     {
         await using var command = new NpgsqlCommand("""
-            INSERT INTO dataset (slug, title, grid_kind, nx, ny, point_count, grid, metadata)
-            VALUES ($1, $2, $3, $4, $5, $6, $7::jsonb, $8::jsonb) RETURNING dataset_id
+            INSERT INTO dataset (dataset_id, slug, title, grid_kind, nx, ny, point_count, grid, metadata) OVERRIDING SYSTEM VALUE
+            VALUES (coalesce($9, nextval(pg_get_serial_sequence('dataset', 'dataset_id'))::int), $1, $2, $3, $4, $5, $6, $7::jsonb, $8::jsonb)
+            RETURNING dataset_id
             """, connection, transaction);
         command.Parameters.AddWithValue(slug);
         command.Parameters.AddWithValue(title);
@@ -60,6 +64,7 @@ public sealed class DatasetStore(NpgsqlDataSource dataSource)
         command.Parameters.AddWithValue(pointCount);
         command.Parameters.AddWithValue(gridJson);
         command.Parameters.AddWithValue(metadataJson);
+        command.Parameters.AddWithValue(NpgsqlDbType.Integer, (object?)reservedId ?? DBNull.Value);
         return (int)(await command.ExecuteScalarAsync(cancel))!;
     }
 
@@ -130,7 +135,14 @@ public sealed class DatasetStore(NpgsqlDataSource dataSource)
             delete.Parameters.AddWithValue(dataset.Id);
             await delete.ExecuteNonQueryAsync(cancel);
         }
-        // dataset_year, source_file, layer_cache and pass (with the jobs of its parts) follow by ON DELETE CASCADE.
+        // Passes name the dataset by id and slug without a foreign key (an ingest pass comes before its dataset row);
+        // the jobs of their parts follow them.
+        await using (var passes = new NpgsqlCommand("DELETE FROM pass WHERE dataset_slug = $1", connection, transaction))
+        {
+            passes.Parameters.AddWithValue(slug);
+            await passes.ExecuteNonQueryAsync(cancel);
+        }
+        // dataset_year, source_file and layer_cache follow by ON DELETE CASCADE.
         await using (var command = new NpgsqlCommand("DELETE FROM dataset WHERE dataset_id = $1", connection, transaction))
         {
             command.Parameters.AddWithValue(dataset.Id);

@@ -156,7 +156,8 @@ public sealed class JobQueue(NpgsqlDataSource dataSource)
     {
         JobKind.Ingest => "ingest",
         JobKind.Statistics => "statistics",
-        _ => "statistics-part",
+        JobKind.StatisticsPart => "statistics-part",
+        _ => "ingest-part",
     };
 
     public static JobKind KindOf(string name) => name switch
@@ -164,6 +165,7 @@ public sealed class JobQueue(NpgsqlDataSource dataSource)
         "ingest" => JobKind.Ingest,
         "statistics" => JobKind.Statistics,
         "statistics-part" => JobKind.StatisticsPart,
+        "ingest-part" => JobKind.IngestPart,
         _ => throw new ArgumentOutOfRangeException(nameof(name), name, "Not a job kind."),
     };
 

@@ -1,7 +1,7 @@
 namespace Atlas.Storage.Jobs;
 
-/// <summary>What a job does: a whole ingest, a whole statistics pass, or one part of a statistics pass in parts.</summary>
-public enum JobKind { Ingest, Statistics, StatisticsPart }
+/// <summary>What a job does: a whole ingest, a whole statistics pass, or one part of a statistics pass or of an ingest in parts.</summary>
+public enum JobKind { Ingest, Statistics, StatisticsPart, IngestPart }
 
 /// <param name="PassId">The pass a part belongs to (<see cref="Passes.PassStore"/>); null for a whole job.</param>
 /// <param name="Part">The part's number within its pass, from 0; null for a whole job.</param>

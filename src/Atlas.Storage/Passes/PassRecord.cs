@@ -1,13 +1,18 @@
 namespace Atlas.Storage.Passes;
 
-/// <summary>A statistics pass run in parts (table <c>pass</c>).</summary>
+/// <summary>What a pass in parts does: a statistics pass by blocks of cells, or the first load of a dataset by ranges of cells.</summary>
+public enum PassKind { Statistics, Ingest }
+
+/// <summary>A pass run in parts (table <c>pass</c>).</summary>
+/// <param name="DatasetId">The dataset's id; for an ingest pass, the id reserved for the dataset it creates.</param>
 /// <param name="State">open (parts queued or running), done (stored as a whole) or failed (nothing of it stored).</param>
-/// <param name="Blocks">The blocks of 1,024 cell ids the pass recomputes, ascending.</param>
+/// <param name="Blocks">The blocks of 1,024 cell ids a statistics pass recomputes, ascending; empty for an ingest pass.</param>
 /// <param name="ComputedAtUtc">The time its cells are stamped computed at: its start, as for a plain pass.</param>
 public sealed record PassRecord(
     long Id,
     int DatasetId,
-    string Kind,
+    string DatasetSlug,
+    PassKind Kind,
     string State,
     string PayloadJson,
     int PartCount,
@@ -20,7 +25,7 @@ public sealed record PassRecord(
 /// <summary>A pass with how many of its parts are in each state.</summary>
 /// <param name="FirstClaimUtc">When its first part was claimed, or null before any.</param>
 /// <param name="LastDoneUtc">When its latest part was done, or null before any.</param>
-public sealed record PassProgress(PassRecord Pass, string DatasetSlug, int Done, int Running, int Queued, int Failed, DateTime? FirstClaimUtc,
+public sealed record PassProgress(PassRecord Pass, int Done, int Running, int Queued, int Failed, DateTime? FirstClaimUtc,
     DateTime? LastDoneUtc)
 {
     /// <summary>
@@ -52,9 +57,9 @@ public enum PartOutcome
 }
 
 /// <summary>Another pass of the dataset is open: two passes of one dataset never interleave.</summary>
-public sealed class PassOpenException(string datasetSlug, long? openPassId)
-    : InvalidOperationException($"dataset '{datasetSlug}' already has a statistics pass in parts under way" +
-        (openPassId is { } id ? $" (pass {id})" : "") + "; wait for it to finish (atlas jobs shows its parts) and queue again.")
+public sealed class PassOpenException(string datasetSlug, long? openPassId, PassKind? openKind = null)
+    : InvalidOperationException($"dataset '{datasetSlug}' already has {(openKind == PassKind.Ingest ? "an ingest" : "a statistics pass")} in parts under way" +
+        (openPassId is { } id ? $" (pass {id})" : "") + "; wait for it to finish (atlas jobs shows its parts) and try again.")
 {
     public long? OpenPassId { get; } = openPassId;
 }
