@@ -74,7 +74,7 @@ public sealed class PassInPartsTests(TestDatabase database) : IClassFixture<Test
         Assert.Single(await RunPartsAsync("worker-b", 1));
         Assert.Empty(await BlocksAsync(partedId));
         Assert.Equal("none", (await StampAsync(partedId)).Token);
-        var progress = Assert.Single(await new PassStore(database.DataSource).ProgressAsync(partedId));
+        var progress = Assert.Single(await new PassStore(database.DataSource).ProgressAsync("parts-queued"));
         Assert.Equal((2, 0, 1, 0), (progress.Done, progress.Running, progress.Queued, progress.Failed));
 
         var last = Assert.Single(await RunPartsAsync("worker-a"));
