@@ -68,6 +68,35 @@ public sealed class PassWorkerKillTests(TestDatabase database) : IClassFixture<T
         Assert.Contains("parts: 1 done, 0 running, 0 queued, 0 failed of 1", jobs);
     }
 
+    [Fact]
+    public async Task AWorkerKilledMidCopyOfAnIngestPartLeavesThePartToTheNextWorkerAndTheFileIsLoadedOnceAndFully()
+    {
+        var file = HindcastFixture.Make(_folder, "load.nc", Steps, Nx, Ny);
+        // Two parts of 40 grid rows each.
+        Run($"ingest \"{file}\" --dataset kill-load --queue --part-cells 3200");
+        var queue = new JobQueue(database.DataSource);
+        Assert.Equal(2, (await queue.ForDatasetAsync("kill-load")).Count(j => j.Kind == JobKind.IngestPart));
+
+        using (var first = new RunningAtlas("worker", Environment))
+        {
+            await Patience.UntilAsync(async () => await StoredHindcast.CopyBackendAsync(database.DataSource, database.Name) is not null,
+                $"the worker to start a part's COPY\n{first.Output}");
+            first.Kill();
+        }
+        Assert.Null(await new DatasetStore(database.DataSource).FindAsync("kill-load"));
+
+        using (var second = new RunningAtlas("worker --until-idle", Environment))
+        {
+            await Patience.UntilAsync(() => Task.FromResult(second.HasExited), $"the second worker to load the parts and stop\n{second.Output}");
+            Assert.True(second.Terminate() == 0, second.Output);
+        }
+        var parts = (await queue.ForDatasetAsync("kill-load")).Where(j => j.Kind == JobKind.IngestPart).ToList();
+        Assert.All(parts, p => Assert.True(p.State == "done", p.Error));
+        Assert.Contains(parts, p => p.Attempts == 2);
+        // Every step once, every wet cell, the file's values (the closed form make_fixture.py writes).
+        await StoredHindcast.AssertHoldsExactlyAsync(database.DataSource, "kill-load", Steps, Nx, Ny);
+    }
+
     private async Task<int> DatasetIdAsync(string slug) => (await new DatasetStore(database.DataSource).FindAsync(slug))!.Id;
 
     /// <summary>Every stored statistic block of a dataset, all columns as text, in key order.</summary>
