@@ -16,6 +16,9 @@ public sealed partial class QueueWorker(NpgsqlDataSource dataSource, JobRunner r
     IHostApplicationLifetime lifetime, WorkerRunOptions? run = null) : BackgroundService
 {
     public static readonly TimeSpan StaleAfter = TimeSpan.FromMinutes(2);
+
+    /// <summary>How often a worker run until idle looks again while other workers' jobs are running.</summary>
+    public static readonly TimeSpan IdleCheckInterval = TimeSpan.FromMilliseconds(250);
     private readonly string _name = $"{Environment.MachineName}:{Environment.ProcessId}";
 
     protected override async Task ExecuteAsync(CancellationToken stoppingToken)
@@ -37,7 +40,9 @@ public sealed partial class QueueWorker(NpgsqlDataSource dataSource, JobRunner r
                         lifetime.StopApplication();
                         break;
                     }
-                    await Task.Delay(TimeSpan.FromSeconds(2), stoppingToken);
+                    // Run until idle, the worker waits for the last jobs of others (and the requeue of a dead one's) at a
+                    // shorter interval, so that its exit follows theirs closely.
+                    await Task.Delay(run?.UntilIdle == true ? IdleCheckInterval : TimeSpan.FromSeconds(2), stoppingToken);
                     continue;
                 }
                 LogClaimed(job.Id, JobQueue.KindName(job.Kind), job.DatasetSlug);
