@@ -23,17 +23,8 @@ report="$out/parts-${nx}x${ny}x${nt}.txt"
 cat "$file" > /dev/null   # page cache, for every run alike
 
 # A database of its own, made afresh, so that the queue holds this run's passes alone.
-port="${ATLAS_PG_PORT:-54329}"
-if [ -z "${ATLAS_DB:-}" ]; then
-  "$atlas" db start > /dev/null
-  server="host=127.0.0.1 port=$port user=atlas"
-else
-  server=$(sed -e 's/;/ /g' -e 's/Host=/host=/I; s/Port=/port=/I; s/Username=/user=/I; s/Password=/password=/I; s/Database=[^ ]*//I' <<<"$ATLAS_DB")
-fi
-psql "$server dbname=postgres" -qc "DROP DATABASE IF EXISTS atlas_parts_bench WITH (FORCE)" -c "CREATE DATABASE atlas_parts_bench"
-export ATLAS_DB="Host=127.0.0.1;Port=$port;Username=atlas;Database=atlas_parts_bench"
-[ -n "${server##*host=127.0.0.1 port=$port*}" ] && ATLAS_DB="$(sed -e 's/ /;/g' <<<"$server");Database=atlas_parts_bench"
-psql_cmd() { psql "$server dbname=atlas_parts_bench" -Atc "$1"; }
+source "$here/tests/benchmarks/fresh_database.sh"
+fresh_database atlas_parts_bench
 "$atlas" db migrate > /dev/null
 
 now() { date +%s.%N; }

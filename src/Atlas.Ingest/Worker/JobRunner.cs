@@ -4,6 +4,7 @@ using Atlas.Ingest.Ingestion;
 using Atlas.Ingest.Progress;
 using Atlas.Ingest.Statistics;
 using Atlas.Statistics;
+using Atlas.Storage;
 using Atlas.Storage.Jobs;
 using Atlas.Storage.Passes;
 using Npgsql;
@@ -78,12 +79,12 @@ public sealed class JobRunner(NpgsqlDataSource dataSource, StatisticsOptions? st
             JobMetrics.RecordFinished(job.Kind, "lost", clock.Elapsed);
             throw;
         }
-        catch (Exception e) when (job.PassId is not null && e is not OperationCanceledException && IsOutage(e) && job.Attempts < PartAttempts)
+        catch (Exception e) when (job.PassId is not null && e is not OperationCanceledException && DatabaseOutage.Is(e) && job.Attempts < PartAttempts)
         {
             // The lease's session may be gone with the server; if this release cannot reach it either, the lease check
             // of the next worker to look queues the part again.
             try { await _queue.ReleaseAsync(job.Id, CancellationToken.None); }
-            catch (Exception again) when (IsOutage(again)) { }
+            catch (Exception again) when (DatabaseOutage.Is(again)) { }
             JobMetrics.RecordFinished(job.Kind, "retried", clock.Elapsed);
             throw;
         }
@@ -102,24 +103,6 @@ public sealed class JobRunner(NpgsqlDataSource dataSource, StatisticsOptions? st
             JobMetrics.RecordFinished(job.Kind, "failed", clock.Elapsed);
             throw;
         }
-    }
-
-    /// <summary>A failure of the database rather than of the job: the server restarting or unreachable, a connection lost.</summary>
-    public static bool IsOutage(Exception exception)
-    {
-        for (var e = exception; e is not null; e = e.InnerException)
-            switch (e)
-            {
-                case PostgresException p:
-                    // Class 08 connection exceptions, 53 insufficient resources, 57P operator intervention (a restart).
-                    return p.SqlState.StartsWith("08", StringComparison.Ordinal) || p.SqlState.StartsWith("53", StringComparison.Ordinal)
-                        || p.SqlState.StartsWith("57P", StringComparison.Ordinal);
-                case NpgsqlException { IsTransient: true }:
-                case System.Net.Sockets.SocketException:
-                case IOException:
-                    return true;
-            }
-        return false;
     }
 
     private sealed class HeartbeatProgress(JobQueue queue, long jobId, IProgress<ProgressSnapshot>? display) : IProgress<ProgressSnapshot>

@@ -55,9 +55,9 @@ public sealed class PassWorkerKillTests(TestDatabase database) : IClassFixture<T
 
         var plain = await DatasetIdAsync("kill-plain");
         var parts = await DatasetIdAsync("kill-parts");
-        var expected = await BlocksAsync(plain);
+        var expected = await StoredStatistics.BlocksAsync(database.DataSource, "kill-plain");
         Assert.NotEmpty(expected);
-        Assert.Equal(expected, await BlocksAsync(parts));
+        Assert.Equal(expected, await StoredStatistics.BlocksAsync(database.DataSource, "kill-parts"));
         Assert.Equal(await CountAsync("SELECT count(*) FROM cell_statistic_state WHERE dataset_id = $1", plain),
             await CountAsync("SELECT count(*) FROM cell_statistic_state WHERE dataset_id = $1", parts));
         Assert.Equal((long)(Nx * Ny - 1), await CountAsync("SELECT count(*) FROM cell_statistic_state WHERE dataset_id = $1", parts));
@@ -98,20 +98,6 @@ public sealed class PassWorkerKillTests(TestDatabase database) : IClassFixture<T
     }
 
     private async Task<int> DatasetIdAsync(string slug) => (await new DatasetStore(database.DataSource).FindAsync(slug))!.Id;
-
-    /// <summary>Every stored statistic block of a dataset, all columns as text, in key order.</summary>
-    private async Task<List<string>> BlocksAsync(int datasetId)
-    {
-        await using var command = database.DataSource.CreateCommand("""
-            SELECT concat_ws('|', parameter, period, block, cell_ids, count, coverage, mean, sd, min, max, p10, p50, p90, p99, extra_width, extra)
-              FROM statistic_block WHERE dataset_id = $1 ORDER BY parameter, period, block
-            """);
-        command.Parameters.AddWithValue(datasetId);
-        var rows = new List<string>();
-        await using var reader = await command.ExecuteReaderAsync();
-        while (await reader.ReadAsync()) rows.Add(reader.GetString(0));
-        return rows;
-    }
 
     private Task<long> CountAsync(string sql, params object[] parameters) => StoredHindcast.CountAsync(database.DataSource, sql, parameters);
 

@@ -20,15 +20,6 @@ public sealed class IngestInPartsTests(TestDatabase database) : IClassFixture<Te
 
     private static IngestPayload Payload(string file) => new([file], QueueStatistics: false);
 
-    private async Task<List<string>> RunPartsAsync(string worker, int count = int.MaxValue)
-    {
-        var summaries = new List<string>();
-        var runner = new JobRunner(database.DataSource);
-        while (summaries.Count < count && await Queue.ClaimAsync(worker) is { } job)
-            summaries.Add(await runner.RunAsync(job, null, CancellationToken.None));
-        return summaries;
-    }
-
     /// <summary>What a dataset stores, as text: every series chunk's bytes (digested), its cells, time lines and files.</summary>
     private async Task<List<string>> StoredAsync(string slug)
     {
@@ -60,12 +51,12 @@ public sealed class IngestInPartsTests(TestDatabase database) : IClassFixture<Te
         Assert.NotNull(queued.Pass);
         Assert.Equal(3, queued.Pass!.PartCount);   // 16 rows of 60 points a part: rows 0-15, 16-31, 32-39
 
-        Assert.Single(await RunPartsAsync("worker-a", 1));
-        Assert.Single(await RunPartsAsync("worker-b", 1));
+        Assert.Single(await QueuedParts.RunAsync(database.DataSource, "worker-a", 1));
+        Assert.Single(await QueuedParts.RunAsync(database.DataSource, "worker-b", 1));
         Assert.Null(await new DatasetStore(database.DataSource).FindAsync("load-parts"));
         Assert.Empty(await StoredAsync("load-parts"));
 
-        var last = Assert.Single(await RunPartsAsync("worker-a"));
+        var last = Assert.Single(await QueuedParts.RunAsync(database.DataSource, "worker-a"));
         Assert.Contains("dataset load-parts created", last);
         var expected = (await StoredAsync("load-plain")).Select(r => r.Replace("load-plain", "load-parts")).ToList();
         Assert.Equal(Nx * Ny - 1, expected.Count(r => r.StartsWith("chunk ", StringComparison.Ordinal)));
@@ -79,7 +70,7 @@ public sealed class IngestInPartsTests(TestDatabase database) : IClassFixture<Te
         var file = FixtureFiles.Make("parts-fail.nc", 0, Steps, $"--nx {Nx} --ny {Ny}");
         var queued = await new IngestInParts(database.DataSource).QueueAsync(Payload(file), "load-failing", partCells: 1000);
         var pass = queued.Pass!;
-        Assert.Single(await RunPartsAsync("worker", 1));
+        Assert.Single(await QueuedParts.RunAsync(database.DataSource, "worker", 1));
         Assert.True(await CountSeriesAsync(pass.DatasetId) > 0);
 
         // The second part's file went missing before a worker claimed it.
@@ -107,13 +98,13 @@ public sealed class IngestInPartsTests(TestDatabase database) : IClassFixture<Te
         var queued = await parts.QueueAsync(Payload(first), "load-twice", partCells: 1000);
         await Assert.ThrowsAsync<PassOpenException>(() => parts.QueueAsync(Payload(first), "load-twice"));
         await Assert.ThrowsAsync<PassOpenException>(() => new HindcastIngestor(database.DataSource).RunAsync(new IngestRequest("load-twice", [first])));
-        Assert.Equal(queued.Pass!.PartCount, (await RunPartsAsync("worker")).Count);
+        Assert.Equal(queued.Pass!.PartCount, (await QueuedParts.RunAsync(database.DataSource, "worker")).Count);
 
         var whole = await parts.QueueAsync(Payload(second), "load-twice");
         Assert.Null(whole.Pass);
         var job = (await Queue.FindAsync(whole.WholeJobId!.Value))!;
         Assert.Equal(JobKind.Ingest, job.Kind);
-        Assert.Contains($"{Steps:N0} time steps", Assert.Single(await RunPartsAsync("worker")));
+        Assert.Contains($"{Steps:N0} time steps", Assert.Single(await QueuedParts.RunAsync(database.DataSource, "worker")));
         Assert.Equal("nothing new", (await parts.QueueAsync(Payload(second), "load-twice")).Describe().Split(": ")[1][..11]);
     }
 

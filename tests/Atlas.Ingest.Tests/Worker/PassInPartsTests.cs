@@ -29,29 +29,7 @@ public sealed class PassInPartsTests(TestDatabase database) : IClassFixture<Test
         return (await new DatasetStore(database.DataSource).FindAsync(slug))!.Id;
     }
 
-    /// <summary>Claims and runs queued parts as <paramref name="worker"/> until <paramref name="count"/> have run (or none is left).</summary>
-    private async Task<List<string>> RunPartsAsync(string worker, int count = int.MaxValue)
-    {
-        var summaries = new List<string>();
-        var runner = new JobRunner(database.DataSource);
-        while (summaries.Count < count && await Queue.ClaimAsync(worker) is { } job)
-            summaries.Add(await runner.RunAsync(job, null, CancellationToken.None));
-        return summaries;
-    }
-
-    /// <summary>Every stored statistic block of a dataset, all columns as text, in key order.</summary>
-    private async Task<List<string>> BlocksAsync(int datasetId)
-    {
-        await using var command = database.DataSource.CreateCommand("""
-            SELECT concat_ws('|', parameter, period, block, cell_ids, count, coverage, mean, sd, min, max, p10, p50, p90, p99, extra_width, extra)
-              FROM statistic_block WHERE dataset_id = $1 ORDER BY parameter, period, block
-            """);
-        command.Parameters.AddWithValue(datasetId);
-        var rows = new List<string>();
-        await using var reader = await command.ExecuteReaderAsync();
-        while (await reader.ReadAsync()) rows.Add(reader.GetString(0));
-        return rows;
-    }
+    private Task<List<string>> BlocksAsync(string slug) => StoredStatistics.BlocksAsync(database.DataSource, slug);
 
     private Task<StatisticsStamp> StampAsync(int datasetId) => new DatasetGeometryQueries(database.DataSource).StatisticsStampAsync(datasetId);
 
@@ -60,7 +38,7 @@ public sealed class PassInPartsTests(TestDatabase database) : IClassFixture<Test
     {
         var plainId = await LoadAsync("parts-plain");
         await new StatisticsService(database.DataSource).RunAsync("parts-plain", all: false);
-        var expected = await BlocksAsync(plainId);
+        var expected = await BlocksAsync("parts-plain");
         Assert.NotEmpty(expected);
 
         var partedId = await LoadAsync("parts-queued");
@@ -70,16 +48,16 @@ public sealed class PassInPartsTests(TestDatabase database) : IClassFixture<Test
         Assert.Equal(Nx * Ny - 1, queued.Cells);
 
         // Two of the three parts done, by two workers: nothing is served yet, and the stamp has not moved.
-        Assert.Single(await RunPartsAsync("worker-a", 1));
-        Assert.Single(await RunPartsAsync("worker-b", 1));
-        Assert.Empty(await BlocksAsync(partedId));
+        Assert.Single(await QueuedParts.RunAsync(database.DataSource, "worker-a", 1));
+        Assert.Single(await QueuedParts.RunAsync(database.DataSource, "worker-b", 1));
+        Assert.Empty(await BlocksAsync("parts-queued"));
         Assert.Equal("none", (await StampAsync(partedId)).Token);
         var progress = Assert.Single(await new PassStore(database.DataSource).ProgressAsync("parts-queued"));
         Assert.Equal((2, 0, 1, 0), (progress.Done, progress.Running, progress.Queued, progress.Failed));
 
-        var last = Assert.Single(await RunPartsAsync("worker-a"));
+        var last = Assert.Single(await QueuedParts.RunAsync(database.DataSource, "worker-a"));
         Assert.Contains("pass complete", last);
-        Assert.Equal(expected, await BlocksAsync(partedId));
+        Assert.Equal(expected, await BlocksAsync("parts-queued"));
         var stamp = await StampAsync(partedId);
         Assert.Equal(Nx * Ny - 1, stamp.CellCount);
         Assert.Equal(queued.Pass.ComputedAtUtc, stamp.ComputedAtUtc);
@@ -121,9 +99,9 @@ public sealed class PassInPartsTests(TestDatabase database) : IClassFixture<Test
         }
         Assert.Equal(1, await RequeueAsync(dead.Id));
 
-        var summaries = await RunPartsAsync("live-worker");
+        var summaries = await QueuedParts.RunAsync(database.DataSource, "live-worker");
         Assert.Equal(3, summaries.Count);
-        Assert.Equal(await BlocksAsync(plainId), await BlocksAsync(partedId));
+        Assert.Equal(await BlocksAsync("redo-plain"), await BlocksAsync("redo-queued"));
         Assert.Equal(2, (await Queue.FindAsync(dead.Id))!.Attempts);
     }
 
@@ -137,9 +115,9 @@ public sealed class PassInPartsTests(TestDatabase database) : IClassFixture<Test
         Assert.Equal(first.Pass.Id, refused.OpenPassId);
         Assert.Contains($"pass {first.Pass.Id}", refused.Message);
         await Assert.ThrowsAsync<PassOpenException>(() => new StatisticsService(database.DataSource).RunAsync("twice", all: true));
-        Assert.Equal(3, (await RunPartsAsync("worker")).Count);
+        Assert.Equal(3, (await QueuedParts.RunAsync(database.DataSource, "worker")).Count);
         Assert.NotNull(await passes.QueueAsync("twice", all: true, partCells: 1024));
-        Assert.Equal(3, (await RunPartsAsync("worker")).Count);
+        Assert.Equal(3, (await QueuedParts.RunAsync(database.DataSource, "worker")).Count);
     }
 
     [Fact]
@@ -147,10 +125,10 @@ public sealed class PassInPartsTests(TestDatabase database) : IClassFixture<Test
     {
         var id = await LoadAsync("failing");
         await new StatisticsService(database.DataSource).RunAsync("failing", all: false);
-        var before = await BlocksAsync(id);
+        var before = await BlocksAsync("failing");
         var stampBefore = await StampAsync(id);
         var queued = (await new StatisticsPasses(database.DataSource).QueueAsync("failing", all: true, partCells: 1024))!;
-        Assert.Single(await RunPartsAsync("worker", 1));
+        Assert.Single(await QueuedParts.RunAsync(database.DataSource, "worker", 1));
 
         // The second part's payload names no blocks array: it fails as a malformed job would, for good.
         await using (var spoil = database.DataSource.CreateCommand("UPDATE job SET payload = '{\"Blocks\": \"spoilt\"}' WHERE pass_id = $1 AND part = 1"))
@@ -165,7 +143,7 @@ public sealed class PassInPartsTests(TestDatabase database) : IClassFixture<Test
         Assert.Equal("failed", pass.State);
         Assert.Contains("part 2", pass.Error);
         Assert.Null(await Queue.ClaimAsync("worker"));
-        Assert.Equal(before, await BlocksAsync(id));
+        Assert.Equal(before, await BlocksAsync("failing"));
         Assert.Equal(stampBefore, await StampAsync(id));
         Assert.Equal(0L, await CountAsync("SELECT count(*) FROM statistic_block_stage WHERE pass_id = " + queued.Pass.Id));
     }
