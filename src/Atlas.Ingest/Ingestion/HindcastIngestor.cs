@@ -1,6 +1,6 @@
 using System.Diagnostics;
 using Atlas.Ingest.Progress;
-using Atlas.Ingest.Statistics;
+using Atlas.Ingest.Worker;
 using Atlas.Statistics;
 using Atlas.Storage.Cells;
 using Atlas.Storage.Datasets;

@@ -3,6 +3,7 @@ using System.Text.Json;
 using System.Text.Json.Nodes;
 using Atlas.Ingest.Ingestion;
 using Atlas.Ingest.Progress;
+using Atlas.Ingest.Worker;
 using Atlas.Statistics;
 using Atlas.Storage.Cells;
 using Atlas.Storage.Datasets;
@@ -128,10 +129,6 @@ public sealed record QueuedPass(PassRecord Pass, string DatasetSlug, int Cells, 
         (MethodChanged ? "; every cell: the stored statistics came from an earlier version of the method" : "") +
         (OptionsChanged ? "; every cell: the stored statistics were computed with other statistics options (section Statistics)" : "");
 }
-
-/// <summary>A part was taken from its worker (its lease lapsed and it went back to the queue); the worker drops it.</summary>
-public sealed class PartLostException(long jobId, string? worker)
-    : Exception($"job {jobId}: the part is no longer held by {worker ?? "this worker"} (its heartbeat lapsed and it was queued again); nothing of it was kept here");
 
 /// <summary>Thrown inside a part when its pass is no longer open: the part stops and keeps nothing.</summary>
 internal sealed class PassEndedException() : Exception("The pass is no longer open.");

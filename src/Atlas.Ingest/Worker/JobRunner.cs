@@ -97,8 +97,9 @@ public sealed class JobRunner(NpgsqlDataSource dataSource, StatisticsOptions? st
         }
         catch (Exception e) when (e is not OperationCanceledException)
         {
-            await _queue.FailAsync(job.Id, e.Message, CancellationToken.None);
-            if (job.PassId is { } passId)
+            if (job.PassId is not { } passId) await _queue.FailAsync(job.Id, e.Message, CancellationToken.None);
+            // A part fails its pass only while this worker holds it: once requeued, it is another worker's to run.
+            else if (await _queue.FailIfHeldAsync(job.Id, job.ClaimedBy ?? "", e.Message, CancellationToken.None))
                 await _passStore.FailAsync(passId, $"part {job.Part + 1} (job {job.Id}) failed: {e.Message}", CancellationToken.None);
             JobMetrics.RecordFinished(job.Kind, "failed", clock.Elapsed);
             throw;

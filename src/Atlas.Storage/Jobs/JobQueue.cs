@@ -67,6 +67,17 @@ public sealed class JobQueue(NpgsqlDataSource dataSource)
         await command.ExecuteNonQueryAsync(cancel);
     }
 
+    /// <summary>Marks a job failed when <paramref name="worker"/> still holds it running; returns whether it did.</summary>
+    public async Task<bool> FailIfHeldAsync(long jobId, string worker, string error, CancellationToken cancel = default)
+    {
+        await using var command = dataSource.CreateCommand(
+            "UPDATE job SET state = 'failed', error = $3, finished_at = now() WHERE job_id = $1 AND state = 'running' AND claimed_by = $2");
+        command.Parameters.AddWithValue(jobId);
+        command.Parameters.AddWithValue(worker);
+        command.Parameters.AddWithValue(error);
+        return await command.ExecuteNonQueryAsync(cancel) == 1;
+    }
+
     /// <summary>Whether any job is queued or running (a worker run until idle stops when none is).</summary>
     public async Task<bool> AnyPendingAsync(CancellationToken cancel = default)
     {
