@@ -54,9 +54,8 @@ public sealed class StatisticsPasses(NpgsqlDataSource dataSource, StatisticsOpti
             ["options_changed"] = plan.OptionsChanged,
             ["metadata"] = JsonNode.Parse(service.MethodNotes(computedAt)),
         };
-        var unsettled = plan.All && RecordedStatisticsOptions.Differ(plan.Dataset.MetadataJson, _options)
-            ? RecordedStatisticsOptions.Unsettled(plan.Dataset.MetadataJson) : null;
-        var pass = await new PassStore(dataSource).OpenAsync(PassKind.Statistics, plan.Dataset.Id, slug, payload.ToJsonString(), blocks, parts, computedAt, unsettled, cancel);
+        var pass = await new PassStore(dataSource).OpenAsync(PassKind.Statistics, plan.Dataset.Id, slug, payload.ToJsonString(), blocks, parts,
+            computedAt, service.UnsettledMetadata(plan), cancel);
         return new QueuedPass(pass, slug, plan.Targets.Length, plan.MethodChanged, plan.OptionsChanged);
     }
 

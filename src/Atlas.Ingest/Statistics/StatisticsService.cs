@@ -40,7 +40,7 @@ public sealed class StatisticsService(NpgsqlDataSource dataSource, StatisticsOpt
         // A pass in parts publishes its blocks at its end: a plain pass under way meanwhile would interleave with it.
         if (await new PassStore(dataSource).OpenPassAsync(slug, cancel) is { } open) throw new PassOpenException(slug, open.Id, open.Kind);
         var datasets = new DatasetStore(dataSource);
-        await MarkUnsettledAsync(plan, cancel);
+        if (UnsettledMetadata(plan) is { } unsettled) await datasets.MergeMetadataAsync(plan.Dataset.Id, unsettled, cancel);
         var timeline = DatasetTimeline.Of(await datasets.TimelinesAsync(plan.Dataset.Id, cancel));
         var computedAt = DateTime.UtcNow;
         var store = new StatisticsStore(dataSource);
@@ -67,14 +67,12 @@ public sealed class StatisticsService(NpgsqlDataSource dataSource, StatisticsOpt
     }
 
     /// <summary>
-    /// Until a pass of every cell with other options ends, the stored statistics are partly of either options: says so
-    /// in the metadata, so that a pass that fails half-way is followed by one that recomputes every cell.
+    /// Until a pass of every cell with other options ends, the stored statistics are partly of either options: the
+    /// metadata to merge as the pass begins says so, so that a pass that fails half-way is followed by one that
+    /// recomputes every cell. Null when the pass keeps the recorded options.
     /// </summary>
-    internal async Task MarkUnsettledAsync(StatisticsPlan plan, CancellationToken cancel)
-    {
-        if (plan.All && RecordedStatisticsOptions.Differ(plan.Dataset.MetadataJson, _options))
-            await new DatasetStore(dataSource).MergeMetadataAsync(plan.Dataset.Id, RecordedStatisticsOptions.Unsettled(plan.Dataset.MetadataJson), cancel);
-    }
+    internal string? UnsettledMetadata(StatisticsPlan plan) =>
+        plan.All && RecordedStatisticsOptions.Differ(plan.Dataset.MetadataJson, _options) ? RecordedStatisticsOptions.Unsettled(plan.Dataset.MetadataJson) : null;
 
     /// <summary>
     /// Runs the four stages over <paramref name="targets"/>; returns the cells stored, the periods and the rows. The
