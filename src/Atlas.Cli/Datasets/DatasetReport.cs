@@ -4,6 +4,7 @@ using System.Text.Json;
 using Atlas.Ingest.Statistics;
 using Atlas.Storage.Datasets;
 using Atlas.Storage.Jobs;
+using Atlas.Storage.Passes;
 
 namespace Atlas.Cli.Datasets;
 
@@ -24,7 +25,9 @@ public static class DatasetReport
     }
 
     /// <summary>The whole description of one dataset, line by line.</summary>
-    public static string Describe(DatasetSummary summary, DatasetStorage storage, IReadOnlyList<JobRecord> jobs)
+    /// <param name="passes">The dataset's statistics passes in parts, newest first; their parts are summed up there
+    /// rather than listed among the jobs.</param>
+    public static string Describe(DatasetSummary summary, DatasetStorage storage, IReadOnlyList<JobRecord> jobs, IReadOnlyList<PassProgress> passes)
     {
         var d = summary.Dataset;
         using var metadata = JsonDocument.Parse(d.MetadataJson);
@@ -75,8 +78,14 @@ public static class DatasetReport
                 : "unknown: a pass with other options began and did not finish").Append('\n');
         }
 
-        text.Append("  jobs:").Append(jobs.Count == 0 ? " none\n" : "\n");
-        foreach (var job in jobs) text.Append("    ").Append(JobLine(job)).Append('\n');
+        if (passes.Count > 0)
+        {
+            text.Append("  passes in parts:\n");
+            foreach (var pass in passes) text.Append("    ").Append(Jobs.PassReport.Line(pass, DateTime.UtcNow)).Append('\n');
+        }
+        var whole = jobs.Where(j => j.PassId is null).ToList();
+        text.Append("  jobs:").Append(whole.Count == 0 ? " none\n" : "\n");
+        foreach (var job in whole) text.Append("    ").Append(JobLine(job)).Append('\n');
         return text.ToString();
     }
 
@@ -116,7 +125,7 @@ public static class DatasetReport
         return problems.Count == 0 ? "complete" : "partial (" + string.Join("; ", problems) + ")";
     }
 
-    private static string JobLine(JobRecord job)
+    public static string JobLine(JobRecord job)
     {
         var line = $"job {job.Id}  {JobQueue.KindName(job.Kind)}  {job.State}  queued {Time(job.CreatedAtUtc)}";
         if (job.FinishedAtUtc is { } finished) line += $", finished {Time(finished)}";

@@ -7,6 +7,7 @@ namespace Atlas.Ingest.Ingestion;
 /// <param name="ReplaceOverlap">When false (the default) a file whose time steps are already stored is refused;
 /// when true its values replace the stored ones.</param>
 /// <param name="MemoryBudgetBytes">Bytes of series buffered at once; the cells are processed in blocks that fit.</param>
+/// <param name="Cells">The grid points to load (a part of an ingest in parts), or null for all of them.</param>
 public sealed record IngestRequest(
     string DatasetSlug,
     IReadOnlyList<string> Files,
@@ -14,11 +15,18 @@ public sealed record IngestRequest(
     bool ReplaceOverlap = false,
     VariableMapping? Mapping = null,
     long? JobId = null,
-    long MemoryBudgetBytes = 256L << 20)
+    long MemoryBudgetBytes = 256L << 20,
+    CellRange? Cells = null)
 {
     /// <summary>For output points: the slug of the gridded dataset of the same hindcast, whose point answers then add the
     /// exact spectral values at the nearest of these points.</summary>
     public string? GridDataset { get; init; }
+}
+
+/// <summary>Grid points <paramref name="First"/> to <paramref name="Last"/>, both included.</summary>
+public readonly record struct CellRange(int First, int Last)
+{
+    public int Count => Last - First + 1;
 }
 
 /// <summary>The one-line outcome of an ingest.</summary>
