@@ -36,6 +36,8 @@ public static partial class AtlasApiRegistration
         services.AddSingleton<ValidationService>();
         services.AddSingleton<PointResponseCache>();
         services.AddSingleton<PointCalendars>();
+        services.AddSingleton<PointStatisticsService>();
+        services.AddSingleton<PointAssessments>();
         services.AddSingleton<ApiKeyVerifier>();
         services.AddHostedService<SchemaStartup>();
         services.AddHostedService<DatasetWarmup>();
