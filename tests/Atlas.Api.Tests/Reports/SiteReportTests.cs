@@ -4,6 +4,7 @@ using System.Text.Json;
 using System.Text.RegularExpressions;
 using Atlas.Api.Tests.Assessment;
 using Atlas.Api.Tests.Support;
+using Atlas.TestSupport;
 
 namespace Atlas.Api.Tests.Reports;
 
@@ -20,12 +21,12 @@ public sealed partial class SiteReportTests(AtlasApiFixture atlas)
     private static readonly string Coast = $"/api/v1/datasets/{SyntheticAtlas.CoastSlug}";
     private static string At => AssessmentAtlas.At(SyntheticAtlas.Latitude(J), SyntheticAtlas.Longitude(I));
 
-    private async Task<ReportReader> ReportAsync(string query, string name)
+    private async Task<PopplerReport> ReportAsync(string query, string name)
     {
         var response = await _client.GetAsync($"{Coast}/point/report.pdf?{query}");
         Assert.True(response.StatusCode == HttpStatusCode.OK, await response.Content.ReadAsStringAsync());
         Assert.Equal("application/pdf", response.Content.Headers.ContentType?.MediaType);
-        return new ReportReader(await response.Content.ReadAsByteArrayAsync(), name);
+        return new PopplerReport(await response.Content.ReadAsByteArrayAsync(), name);
     }
 
     [Fact]
@@ -33,10 +34,10 @@ public sealed partial class SiteReportTests(AtlasApiFixture atlas)
     {
         var report = await ReportAsync(At, "site-report-pages");
         Assert.True(report.Pages >= 7, $"{report.Pages} pages");
-        var caution = ReportReader.Flatten(Atlas.Api.Model.AtlasCaution.Text);
+        var caution = PopplerReport.Flatten(Atlas.Api.Model.AtlasCaution.Text);
         for (var page = 1; page <= report.Pages; page++)
         {
-            var text = ReportReader.Flatten(report.Page(page, layout: false));
+            var text = PopplerReport.Flatten(report.Page(page, layout: false));
             Assert.Contains(caution, text);
             Assert.Contains($"Page {page} of {report.Pages}", text);
         }
