@@ -27,7 +27,6 @@ public static partial class AtlasApiRegistration
         builder.AddAtlasOperations();
         services.AddAtlasPointServices();
         services.AddSingleton<LayerRenderer>();
-        services.AddSingleton<CellFootprints>();
         services.AddSingleton<PointResponseCache>();
         services.AddSingleton<ApiKeyVerifier>();
         services.AddHostedService<SchemaStartup>();

@@ -11,14 +11,21 @@ public static class LocationMap
 {
     private static readonly SKColor Sea = new(0xEE, 0xF2, 0xF5), Land = new(0xC9, 0xC3, 0xB6), LandEdge = new(0x9A, 0x93, 0x85);
 
-    public static void Draw(ReportPage page, SKRect frame, DatasetLand land, (double West, double South, double East, double North) extent,
-        IEnumerable<Geometry> outlines, IReadOnlyList<(double Lat, double Lon, string Label, bool Asked)> marks)
+    /// <param name="extent">The grid's extent (cell centres), drawn dashed.</param>
+    /// <param name="view">The part of the world the map shows (the extent when null), widened by a small margin.</param>
+    /// <param name="fills">Cell footprints filled with a colour (a layer), drawn under the land.</param>
+    /// <param name="outlines">Polygons drawn as outlines over everything (an asked area).</param>
+    /// <returns>The map's rectangle on the page: the frame's top-left part that keeps the map's proportions.</returns>
+    public static SKRect Draw(ReportPage page, SKRect frame, DatasetLand land, (double West, double South, double East, double North) extent,
+        IEnumerable<Geometry> outlines, IReadOnlyList<(double Lat, double Lon, string Label, bool Asked)> marks,
+        (double West, double South, double East, double North)? view = null, IEnumerable<(Polygon Footprint, SKColor Colour)>? fills = null)
     {
         var canvas = page.Canvas;
+        var shown = view ?? extent;
         // Half a cell of margin beyond the cell centres, so that border cells are whole.
-        var padLon = Math.Max((extent.East - extent.West) * 0.03, 1e-3);
-        var padLat = Math.Max((extent.North - extent.South) * 0.03, 1e-3);
-        double west = extent.West - padLon, east = extent.East + padLon, south = extent.South - padLat, north = extent.North + padLat;
+        var padLon = Math.Max((shown.East - shown.West) * 0.03, 1e-3);
+        var padLat = Math.Max((shown.North - shown.South) * 0.03, 1e-3);
+        double west = shown.West - padLon, east = shown.East + padLon, south = shown.South - padLat, north = shown.North + padLat;
         var cos = Math.Cos((south + north) / 2 * Math.PI / 180);
         var scale = Math.Min(frame.Width / ((east - west) * cos), frame.Height / (north - south));
         var width = (float)((east - west) * cos * scale);
@@ -29,6 +36,13 @@ public static class LocationMap
         canvas.Save();
         canvas.ClipRect(map);
         using (var sea = new SKPaint { Color = Sea }) canvas.DrawRect(map, sea);
+        using (var fill = new SKPaint { IsAntialias = false })
+            foreach (var (footprint, colour) in fills ?? [])
+            {
+                fill.Color = colour;
+                using var path = PathOf(footprint, At);
+                canvas.DrawPath(path, fill);
+            }
         using (var fill = new SKPaint { Color = Land, IsAntialias = true })
         using (var edge = new SKPaint { Color = LandEdge, IsStroke = true, StrokeWidth = 0.4f, IsAntialias = true })
             if (land.Land is { } shape)
@@ -70,6 +84,7 @@ public static class LocationMap
         }
         Graticule(page, map, west, east, south, north, At);
         ScaleBar(page, map, cos, scale, (south + north) / 2);
+        return map;
     }
 
     private static SKPath PathOf(Polygon polygon, Func<double, double, SKPoint> at)

@@ -6,18 +6,24 @@ namespace Atlas.Api.Reports;
 /// </summary>
 public static class MethodSection
 {
-    public static FlowSection For(SiteReportContent content)
+    /// <summary>The site report's notes: the dataset's, then how the point's percentiles, depth and energy period were taken.</summary>
+    public static FlowSection For(SiteReportContent content) => For(content.Statistics.Provenance,
+        [$"Percentiles at a point are exact, from the sorted series ({PlainWords.Of(content.Statistics.QuantileDefinition.ToString())}). " +
+            (content.Statistics.DeepWaterAssumed ? "The cell's depth is unknown, so deep water was assumed for the group velocity. " : "") +
+            (content.Statistics.EnergyPeriodSource == EnergyPeriodSource.Provided ? "" : "The dataset stores no energy period: Te was derived from the peak period. ")],
+        Citation(content.Statistics.Provenance, $"Site report for {ReportNumbers.Position(content.Statistics.Cell.Lat, content.Statistics.Cell.Lon)} (cell {content.Statistics.Cell.Id})",
+            content.GeneratedAtUtc));
+
+    /// <summary>The dataset's method notes, then <paramref name="notes"/>, the ingest's assumptions and warnings, provenance, citation and caution.</summary>
+    public static FlowSection For(Provenance source, IEnumerable<string> notes, string citation)
     {
-        var source = content.Statistics.Provenance;
         var blocks = new List<FlowBlock>
         {
             new(FlowBlockKind.Heading, "Method notes"),
             new(FlowBlockKind.Paragraph, PlainWords.Of(source.MethodNotes)),
-            new(FlowBlockKind.Paragraph, $"Percentiles at a point are exact, from the sorted series ({PlainWords.Of(content.Statistics.QuantileDefinition.ToString())}). " +
-                (content.Statistics.DeepWaterAssumed ? "The cell's depth is unknown, so deep water was assumed for the group velocity. " : "") +
-                (content.Statistics.EnergyPeriodSource == EnergyPeriodSource.Provided ? "" : "The dataset stores no energy period: Te was derived from the peak period. ")),
-            new(FlowBlockKind.Heading, "What was assumed when the files were loaded"),
         };
+        blocks.AddRange(notes.Select(n => new FlowBlock(FlowBlockKind.Paragraph, PlainWords.Of(n))));
+        blocks.Add(new(FlowBlockKind.Heading, "What was assumed when the files were loaded"));
         if (source.Assumptions is { Count: > 0 } assumed)
             blocks.AddRange(assumed.Select(a => new FlowBlock(FlowBlockKind.Small, "• " + PlainWords.Of(a.Describe()))));
         else blocks.Add(new(FlowBlockKind.Paragraph, "Not recorded: the dataset was loaded before the ingest kept its assumptions."));
@@ -27,19 +33,16 @@ public static class MethodSection
             $"{(source.StatisticsComputedAtUtc is { } t ? t.ToString("yyyy-MM-dd HH:mm", CultureInfo.InvariantCulture) + " UTC" : "not recorded")}; " +
             $"{source.SourceFiles.Count} source file(s), listed with their SHA-256 checksums in the appendix."));
         if (source.Licence is { } licence) blocks.Add(new(FlowBlockKind.Paragraph, "Licence: " + licence));
-        blocks.Add(new(FlowBlockKind.Emphasis, "Cite as: " + Citation(content)));
+        blocks.Add(new(FlowBlockKind.Emphasis, "Cite as: " + citation));
         blocks.Add(new(FlowBlockKind.Heading, "Caution"));
         blocks.Add(new(FlowBlockKind.Paragraph, source.Caution));
         return new FlowSection(blocks);
     }
 
-    /// <summary>The dataset's own citation when it has one, else one made of its title, the software and the date.</summary>
-    public static string Citation(SiteReportContent content)
+    /// <summary>The dataset's own citation when it has one, else its title; then what the report shows, the software and the date.</summary>
+    public static string Citation(Provenance source, string what, DateTime generatedAtUtc)
     {
-        var source = content.Statistics.Provenance;
-        var cell = content.Statistics.Cell;
         var own = source.Citation is { } c ? c + ". " : $"{source.Title} (dataset {source.Dataset}). ";
-        return own + $"Site report for {ReportNumbers.Position(cell.Lat, cell.Lon)} " +
-            $"(cell {cell.Id}), {source.Software} {source.SoftwareVersion}, generated {content.GeneratedAtUtc:yyyy-MM-dd}.";
+        return own + $"{what}, {source.Software} {source.SoftwareVersion}, generated {generatedAtUtc.ToString("yyyy-MM-dd", CultureInfo.InvariantCulture)}.";
     }
 }

@@ -6,17 +6,17 @@ namespace Atlas.Api.Reports;
 /// </summary>
 public static class ReportNumbers
 {
-    public const string Missing = "–";
+    public const string NoValue = "–";
 
     public static string Fixed(double value, int decimals) =>
-        double.IsFinite(value) ? value.ToString("F" + decimals.ToString(CultureInfo.InvariantCulture), CultureInfo.InvariantCulture) : Missing;
+        double.IsFinite(value) ? value.ToString("F" + decimals.ToString(CultureInfo.InvariantCulture), CultureInfo.InvariantCulture) : NoValue;
 
-    public static string Fixed(double? value, int decimals) => value is { } v ? Fixed(v, decimals) : Missing;
+    public static string Fixed(double? value, int decimals) => value is { } v ? Fixed(v, decimals) : NoValue;
 
     /// <summary>A fraction 0..1 as a percentage.</summary>
-    public static string Percent(double fraction, int decimals = 1) => double.IsFinite(fraction) ? Fixed(100 * fraction, decimals) + " %" : Missing;
+    public static string Percent(double fraction, int decimals = 1) => double.IsFinite(fraction) ? Fixed(100 * fraction, decimals) + " %" : NoValue;
 
-    public static string Percent(double? fraction, int decimals = 1) => fraction is { } f ? Percent(f, decimals) : Missing;
+    public static string Percent(double? fraction, int decimals = 1) => fraction is { } f ? Percent(f, decimals) : NoValue;
 
     /// <summary>Hs, Te, Tp (m, s): two decimals.</summary>
     public static string Metric(double value) => Fixed(value, 2);

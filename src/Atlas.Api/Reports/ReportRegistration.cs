@@ -22,7 +22,10 @@ public static class ReportRegistration
         services.TryAddSingleton<DryCellLand>();
         services.TryAddSingleton<IStationCellFinder, CatalogStationCells>();
         services.TryAddSingleton<ValidationService>();
+        services.TryAddSingleton<CellFootprints>();
+        services.TryAddSingleton<AreaStatisticsService>();
         services.TryAddSingleton<SiteReportService>();
+        services.TryAddSingleton<AreaReportService>();
         return services;
     }
 }

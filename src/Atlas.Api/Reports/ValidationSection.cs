@@ -34,7 +34,7 @@ public sealed class ValidationSection(SiteReportContent content) : IReportSectio
                 rows.Add([v.Variable + " (" + v.Unit + ")", o.N.ToString(CultureInfo.InvariantCulture), Fixed(o.Bias, 3), Fixed(o.Rmse, 3), Fixed(o.ScatterIndex, 3),
                     Fixed(o.PearsonR, 3), Fixed(o.RegressionSlope, 3), Fixed(o.RegressionIntercept, 3)]);
             else if (v.Directional is { } d)
-                rows.Add([v.Variable + " (degrees)", d.N.ToString(CultureInfo.InvariantCulture), Fixed(d.CircularBias, 1), Fixed(d.CircularRmse, 1), ReportNumbers.Missing, ReportNumbers.Missing, ReportNumbers.Missing, ReportNumbers.Missing]);
+                rows.Add([v.Variable + " (degrees)", d.N.ToString(CultureInfo.InvariantCulture), Fixed(d.CircularBias, 1), Fixed(d.CircularRmse, 1), ReportNumbers.NoValue, ReportNumbers.NoValue, ReportNumbers.NoValue, ReportNumbers.NoValue]);
         page.Table(["variable", "N", "bias", "RMSE", "scatter\nindex", "r", "fitted\nslope", "fitted\nintercept"], rows, [92, 50, 56, 56, 64, 56, 66, 71]);
 
         if (nearest.Skill.Find("hs") is { } hs)
