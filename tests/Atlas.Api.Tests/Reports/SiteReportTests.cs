@@ -59,13 +59,13 @@ public sealed partial class SiteReportTests(AtlasApiFixture atlas)
         {
             var row = Row(first, label);
             var p = periods[period];
-            Printed(p.GetProperty("hs").GetProperty("mean").GetDouble(), row[0], 2);
-            Printed(p.GetProperty("hs").GetProperty("p90").GetDouble(), row[1], 2);
-            Printed(p.GetProperty("te").GetProperty("mean").GetDouble(), row[2], 2);
-            Printed(p.GetProperty("tp").GetProperty("mean").GetDouble(), row[3], 2);
-            Printed(p.GetProperty("j").GetProperty("mean").GetDouble(), row[4], 1);
-            Printed(p.GetProperty("direction").GetProperty("directionality_coefficient").GetDouble(), row[6], 2);
-            Printed(p.GetProperty("direction").GetProperty("mean").GetDouble(), row[7], 0);
+            PrintedNumber.Equal(p.GetProperty("hs").GetProperty("mean").GetDouble(), row[0], 2);
+            PrintedNumber.Equal(p.GetProperty("hs").GetProperty("p90").GetDouble(), row[1], 2);
+            PrintedNumber.Equal(p.GetProperty("te").GetProperty("mean").GetDouble(), row[2], 2);
+            PrintedNumber.Equal(p.GetProperty("tp").GetProperty("mean").GetDouble(), row[3], 2);
+            PrintedNumber.Equal(p.GetProperty("j").GetProperty("mean").GetDouble(), row[4], 1);
+            PrintedNumber.Equal(p.GetProperty("direction").GetProperty("directionality_coefficient").GetDouble(), row[6], 2);
+            PrintedNumber.Equal(p.GetProperty("direction").GetProperty("mean").GetDouble(), row[7], 0);
         }
 
         // The joint table's most frequent bin and its share, against the argmax of fraction_of_time.
@@ -78,21 +78,21 @@ public sealed partial class SiteReportTests(AtlasApiFixture atlas)
         var flat = report.Flat();
         var most = MostFrequent().Match(flat);
         Assert.True(most.Success, "no most-frequent line in the report");
-        Printed(joint.GetProperty("hs_bin_lower_edges")[bestRow].GetDouble(), most.Groups["hs"].Value, 1);
-        Printed(joint.GetProperty("te_bin_lower_edges")[bestColumn].GetDouble(), most.Groups["te"].Value, 0);
-        Printed(100 * shares[bestRow][bestColumn], most.Groups["share"].Value, 2);
+        PrintedNumber.Equal(joint.GetProperty("hs_bin_lower_edges")[bestRow].GetDouble(), most.Groups["hs"].Value, 1);
+        PrintedNumber.Equal(joint.GetProperty("te_bin_lower_edges")[bestColumn].GetDouble(), most.Groups["te"].Value, 0);
+        PrintedNumber.Equal(100 * shares[bestRow][bestColumn], most.Groups["share"].Value, 2);
 
         // The device's mean annual energy, against /point/yield for the same point.
         var yield = await AssessmentAtlas.JsonAsync(await _client.GetAsync($"{Coast}/point/yield?{At}&device=test-absorber"));
         var energy = Regex.Match(flat, @"mean annual energy (\d+) MWh/yr");
         Assert.True(energy.Success, "no annual energy in the report");
-        Printed(yield.GetProperty("annual_energy_mwh").GetDouble(), energy.Groups[1].Value, 0);
+        PrintedNumber.Equal(yield.GetProperty("annual_energy_mwh").GetDouble(), energy.Groups[1].Value, 0);
 
         // Weather windows: the share of time within the report's default limits, against /point/windows with them.
         var windows = await AssessmentAtlas.JsonAsync(await _client.GetAsync($"{Coast}/point/windows?{At}&hs_max=2&hours=12"));
         var within = Regex.Match(flat, @"Time within the limits: ([\d.]+) %");
         Assert.True(within.Success, "no time within limits in the report");
-        Printed(100 * windows.GetProperty("accessible_fraction").GetDouble(), within.Groups[1].Value, 1);
+        PrintedNumber.Equal(100 * windows.GetProperty("accessible_fraction").GetDouble(), within.Groups[1].Value, 1);
 
         // Provenance: the source file and its checksum in the appendix; no code identifier in the words.
         Assert.Contains(SyntheticAtlas.SourceFileName, flat);
@@ -140,13 +140,6 @@ public sealed partial class SiteReportTests(AtlasApiFixture atlas)
     {
         var line = page.Split('\n').Select(l => l.Trim()).First(l => l.StartsWith(label + " ", StringComparison.Ordinal));
         return line[label.Length..].Split(' ', StringSplitOptions.RemoveEmptyEntries);
-    }
-
-    /// <summary>The printed number equals the API's value at the printed precision (within half a unit of its last decimal).</summary>
-    private static void Printed(double api, string printed, int decimals)
-    {
-        var value = double.Parse(printed, NumberStyles.Float, CultureInfo.InvariantCulture);
-        Assert.True(Math.Abs(value - api) <= 0.5 * Math.Pow(10, -decimals) + 1e-9, $"printed {printed}, the API says {api}");
     }
 
     [GeneratedRegex(@"Most frequent sea state: Hs (?<hs>[\d.]+)–[\d.]+ m, Te (?<te>[\d.]+)–[\d.]+ s, (?<share>[\d.]+) % of the time")]
