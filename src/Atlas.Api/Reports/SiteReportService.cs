@@ -8,7 +8,7 @@ namespace Atlas.Api.Reports;
 /// anything is written.
 /// </summary>
 public sealed class SiteReportService(PointLocator locator, DatasetCatalog catalog, PointStatisticsService statistics, PointAssessments assessments,
-    ValidationService validation, DryCellLand land)
+    ValidationService validation, DryCellLand land, StatisticsOptions statisticsOptions)
 {
     /// <summary>The report's content, or the problem (unknown dataset or device, a position off the sea cells, no steps in the window).</summary>
     public async Task<(SiteReportContent? Content, ProblemHttpResult? Problem)> GatherAsync(SiteReportRequest request, CancellationToken cancel)
@@ -40,8 +40,11 @@ public sealed class SiteReportService(PointLocator locator, DatasetCatalog catal
             if (yield is null) return (null, problem);
         }
 
+        // Power per step as the series endpoint derives it (Te from Tp for the assumed spectrum where Te is not stored).
+        var (_, power, _) = context.Series.Derived(statisticsOptions.AssumedSpectrum);
+        var series = new PointTimeSeries(context.Series.Times, [.. context.Series.Hs.Select(v => (double)v)], [.. power.Select(v => (double)v)]);
         var extent = await catalog.ExtentAsync(point.Dataset, cancel);
-        return (new SiteReportContent(request, pointStatistics, windows, extremes, yield, await NearestStationAsync(point, cancel),
+        return (new SiteReportContent(request, pointStatistics, windows, extremes, yield, series, await NearestStationAsync(point, cancel),
             await land.ForAsync(point.Dataset, cancel), extent!.Value, pointStatistics.Provenance.GeneratedAtUtc), null);
     }
 
@@ -68,7 +71,9 @@ public sealed class SiteReportService(PointLocator locator, DatasetCatalog catal
                 var observed = new double[p.Count];
                 var modelled = new double[p.Count];
                 for (var i = 0; i < p.Count; i++) (observed[i], modelled[i]) = (p.Observed[i], p.Modelled[i]);
-                pairs = new ValidationPlotSeries(observed, modelled,
+                var times = new long[p.Count];
+                for (var i = 0; i < p.Count; i++) times[i] = p.TimesUnixSeconds[i];
+                pairs = new ValidationPlotSeries(times, observed, modelled,
                     [.. scalar.Quantiles.Select(q => q.ObservedQuantile)], [.. scalar.Quantiles.Select(q => q.ModelledQuantile)]);
             }
             return new NearestStationSkill(skill, metres, pairs);
