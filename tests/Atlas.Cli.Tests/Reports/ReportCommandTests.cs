@@ -26,6 +26,11 @@ public class ReportCommandTests(TwoDatasets data) : IClassFixture<TwoDatasets>
         var report = new PopplerReport(path);
         Assert.True(report.Pages >= 7, $"{report.Pages} pages");
         Assert.Contains($"Page {report.Pages} of {report.Pages}", PopplerReport.Flatten(report.Page(report.Pages, layout: false)));
+        // The demo's buoys lie in the dataset: the nearest one's skill, scatter (with its fitted line) and QQ plot are there.
+        var text = report.Flat();
+        Assert.Contains("Validation against the nearest measuring station", text);
+        Assert.Contains("fitted:", text);
+        Assert.Contains("quantile against quantile", text);
 
         // The served answer for the same position: the report's annual row prints its means.
         var port = RunningAtlas.FreePort();
