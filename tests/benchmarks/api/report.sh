@@ -13,6 +13,7 @@ base="http://127.0.0.1:$port"
 out="$top/tests/artifacts/benchmarks"; mkdir -p "$out"
 work=$(mktemp -d)
 name=report
+needs_wrk=no
 source "$here/serve.sh"
 trap 'kill "$server" 2>/dev/null || true; wait "$server" 2>/dev/null || true; rm -f "$log"; rm -rf "$work"' EXIT
 
