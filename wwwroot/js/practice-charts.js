@@ -62,6 +62,16 @@ export function timeSeriesChart(steps, buoy) {
   return figure('Hs and wave power J through time', note, build, { 'data-chart': 'time-series' });
 }
 
+/** The frame both validation charts share: square, both axes from 0 to top, zoom by dragging a box. */
+function squareFrame(width, height, top) {
+  return {
+    width, height: Math.min(height, width),
+    legend: { show: true, live: false },
+    cursor: { drag: { x: true, y: true, setScale: true } },
+    scales: { x: { time: false, range: [0, top] }, y: { range: [0, top] } },
+  };
+}
+
 /** Counts of (measured, modelled) pairs in square bins of the plot's span: the 2-D histogram of a dense scatter. */
 export function histogram2d(observed, modelled, top, bins) {
   const counts = new Array(bins * bins).fill(0);
@@ -102,10 +112,7 @@ export function scatterChart(pairs, fit, { label, unit }) {
   const ys = order.map(k => modelled[k]);
   const lineAt = (slope, intercept) => xs.map((v, k) => (k === 0 || k === xs.length - 1) ? intercept + slope * v : null);
   const build = (target, width) => new uPlot({
-    width, height: Math.min(320, width),
-    legend: { show: true, live: false },
-    cursor: { drag: { x: true, y: true, setScale: true } },
-    scales: { x: { time: false, range: [0, top] }, y: { range: [0, top] } },
+    ...squareFrame(width, 320, top),
     series: [
       { label: `measured ${label} (${unit})` },
       { label: dense ? `pairs (${pairs.length.toLocaleString('en-GB')}, as a 2-D histogram)` : `pairs (${pairs.length.toLocaleString('en-GB')})`,
@@ -129,10 +136,7 @@ export function quantileChart(quantiles, { label, unit }) {
   const xs = rows.map(q => q.observed), ys = rows.map(q => q.modelled);
   const top = Math.max(...xs, ...ys) * 1.05 || 1;
   const build = (target, width) => new uPlot({
-    width, height: Math.min(300, width),
-    legend: { show: true, live: false },
-    cursor: { drag: { x: true, y: true, setScale: true } },
-    scales: { x: { time: false, range: [0, top] }, y: { range: [0, top] } },
+    ...squareFrame(width, 300, top),
     series: [
       { label: `measured quantile (${unit})` },
       { label: 'quantile pairs', stroke: seriesColours.j, paths: () => null, points: { show: true, size: 4 } },
