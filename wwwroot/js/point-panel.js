@@ -51,6 +51,7 @@ export class PointPanel {
       json: base + query(at),
       csv: base + query({ ...at, format: 'csv' }),
       series: `${base}/series` + query(at),
+      report: `${base}/report.pdf` + query(at),
     };
   }
 
@@ -109,7 +110,8 @@ export class PointPanel {
       el('div', { class: 'links' },
         el('a', { class: 'button-link', href: urls.json, 'data-link': 'point-json' }, 'These statistics as JSON'),
         el('a', { class: 'button-link', href: urls.csv, download: `${this.atlas.slug}_point_${cell.id}.csv`, 'data-link': 'point-csv' }, 'as CSV'),
-        el('a', { class: 'button-link', href: urls.series, download: `${this.atlas.slug}_series_${cell.id}.csv`, 'data-link': 'series-csv' }, 'Time series (CSV)')),
+        el('a', { class: 'button-link', href: urls.series, download: `${this.atlas.slug}_series_${cell.id}.csv`, 'data-link': 'series-csv' }, 'Time series (CSV)'),
+        el('a', { class: 'button-link', href: urls.report, download: `${this.atlas.slug}_site_report_cell_${cell.id}.pdf`, 'data-link': 'site-report' }, 'Report (PDF)')),
     );
 
     const tableHolder = el('div');

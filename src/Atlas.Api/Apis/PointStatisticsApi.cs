@@ -32,8 +32,7 @@ public static class PointStatisticsApi
     [EndpointSummary("Exact statistics of every parameter at the wet cell nearest a position")]
     public static async Task<Results<FileContentHttpResult, StatusCodeHttpResult, ProblemHttpResult, ValidationProblem>> PointAsync(
         string slug, [AsParameters] PointPosition at, [AsParameters] PointStatisticsQuery query,
-        PointLocator locator, DatasetCatalog catalog, SeriesStore series, ProvenanceBuilder provenance, PointResponseCache responses,
-        PointCalendars calendars, StatisticsOptions statisticsOptions, StationSpectraAnswers stationSpectra, OutputPoints outputPoints,
+        PointLocator locator, DatasetCatalog catalog, PointStatisticsService statistics, PointResponseCache responses, OutputPoints outputPoints,
         IOptions<JsonOptions> json, HttpContext http, CancellationToken cancel)
     {
         var errors = new QueryErrors();
@@ -49,80 +48,21 @@ public static class PointStatisticsApi
         if (point is null) return problem!;
         var nearestPoint = await outputPoints.NearestAsync(point.Dataset, position.Value.Latitude, position.Value.Longitude, cancel);
         var key = await ResponseKeyAsync(point, position.Value, window, onlyPeriod, parts, csv, catalog, nearestPoint?.Dataset, cancel);
-        var spectral = new SpectralContext(stationSpectra, nearestPoint, position.Value);
         // Computed without the request's cancellation: other requests for the same key may be waiting on it.
         var (response, failure) = await responses.GetOrComputeAsync(key,
-            () => ComputeAsync(point, window, onlyPeriod, parts, csv, catalog, series, provenance, calendars, statisticsOptions, spectral,
-                json.Value.SerializerOptions, CancellationToken.None));
+            () => ComputeAsync(point, window, onlyPeriod, parts, csv, statistics, json.Value.SerializerOptions, CancellationToken.None));
         return response is null ? failure! : Respond(response, http);
     }
 
     private static async Task<PointOutcome> ComputeAsync(LocatedPoint point, YearWindow window, AtlasPeriod? onlyPeriod, HashSet<string> parts,
-        bool csv, DatasetCatalog catalog, SeriesStore series, ProvenanceBuilder provenance, PointCalendars calendars, StatisticsOptions statisticsOptions,
-        SpectralContext spectral, JsonSerializerOptions json, CancellationToken cancel)
+        bool csv, PointStatisticsService statistics, JsonSerializerOptions json, CancellationToken cancel)
     {
+        var (analysis, problem) = await statistics.AnalyseAsync(point, window, onlyPeriod, cancel);
+        if (analysis is null) return PointOutcome.Failed(problem!);
         var slug = point.Dataset.Slug;
-        var timelines = await catalog.TimelinesAsync(point.Dataset, cancel);
-        var chunks = await series.ReadCellAsync(point.Dataset.Id, point.Nearest.Cell.CellId, window.FromYear, window.ToYear, cancel);
-        if (chunks.Count == 0)
-            return PointOutcome.Failed(ApiProblems.Unprocessable("No series in the window",
-                $"Cell {point.Nearest.Cell.CellId} of '{slug}' has no stored series{WindowText(window)}; stored years are " +
-                $"{(timelines.Count == 0 ? "none" : $"{timelines.Keys.First()}..{timelines.Keys.Last()}")}."));
-        ExactPointStatistics result;
-        var analysisWindow = new AnalysisWindow(window.FromYear, window.ToYear, window.Months);
-        bool atOutputPoint = point.Dataset.GridKind == StationSpectraAnswers.StationsKind;
-        var cellId = point.Nearest.Cell.CellId;
-        // At an output point the power per step is the one integrated from its spectra.
-        float[]? spectralPower = atOutputPoint ? (await spectral.Answers.AlignedStepsAsync(point.Dataset.Id, cellId, chunks, timelines, cancel))[SpectralProduct.Power] : null;
-        using (var decoded = PointSeriesReader.DecodeRented(chunks, timelines, point.Nearest.Cell.DepthMetres is { } d ? d : double.NaN))
-            result = ExactPointAnalysis.Analyse(decoded.ToCellSeries() with { Power = spectralPower }, new ExactPointOptions
-            {
-                Window = analysisWindow,
-                Statistics = statisticsOptions,
-            }, calendars.For(decoded.Times));
-        var periods = result.Periods.Where(p => onlyPeriod is not { } only || p.Period == only).ToArray();
-        SpectralPointAnswer? spectralAnswer = null;
-        if (atOutputPoint)
-        {
-            // The directionality of a period from its period-mean J_theta summed over the spectra's direction bins.
-            var byPeriod = await spectral.Answers.PeriodSpectraAsync(point.Dataset, cellId, periods.Select(p => p.Period).ToList(), analysisWindow, cancel);
-            periods = periods.Select(p => byPeriod.TryGetValue(p.Period, out var s)
-                ? p with { Direction = p.Direction with { DirectionalityCoefficient = s.DirectionalityCoefficient, MaxPowerFromDeg = s.MaxPowerFromDeg } }
-                : p).ToArray();
-            var c = point.Nearest.Cell;
-            spectralAnswer = await spectral.Answers.AnswerAsync(point.Dataset, cellId, c.Latitude, c.Longitude, c.DepthMetres, null, analysisWindow, timelines, cancel);
-        }
-        else if (spectral.Nearest is { } nearest)
-        {
-            var stationTimelines = await catalog.TimelinesAsync(nearest.Dataset, cancel);
-            spectralAnswer = await spectral.Answers.AnswerAsync(nearest.Dataset, nearest.Cell.CellId, nearest.Cell.Latitude, nearest.Cell.Longitude,
-                nearest.Cell.DepthMetres, nearest.DistanceKm, analysisWindow, stationTimelines, cancel);
-        }
-        if (spectralAnswer is not null && onlyPeriod is { } one)
-            spectralAnswer = spectralAnswer with { Periods = spectralAnswer.Periods.Where(p => p.Period == one).ToList() };
-        if (periods.Length == 0)
-            return PointOutcome.Failed(ApiProblems.Unprocessable("The period has no steps in the window",
-                $"{onlyPeriod!.Value.Name} has no step{WindowText(window)} at cell {point.Nearest.Cell.CellId}; widen the window or choose another period."));
-
-        var source = await provenance.ForAsync(point.Dataset, cancel);
         var cell = point.Cell;
-        var units = WaveParameterNames.All.ToDictionary(p => p.Symbol(), p => p.Unit());
-        if (csv) return new PointOutcome(Csv(slug, cell, window, periods, source), "text/csv; charset=utf-8", $"{slug}_point_{cell.Id}.csv", null);
-
-        var annual = result.Find(AtlasPeriod.Annual);
-        var statistics = new PointStatistics(
-            slug, cell, new PointWindow(window.FromYear, window.ToYear, window.Months), result.StepsInWindow, result.DeepWaterAssumed,
-            result.EnergyPeriodSource, result.QuantileDefinition, units, periods,
-            parts.Contains("exceedance") ? new PointExceedance(result.HsExceedance, result.PowerExceedance) : null,
-            parts.Contains("joint") ? result.JointOccurrence : null,
-            parts.Contains("rose") && annual is not null ? RoseOf(annual.Direction) : null,
-            parts.Contains("interannual") ? result.InterAnnual : null,
-            source, AtlasCaution.Text)
-        {
-            PowerFrom = atOutputPoint ? "spectra" : "Hs and Te",
-            Spectral = spectralAnswer,
-        };
-        return new PointOutcome(JsonSerializer.SerializeToUtf8Bytes(statistics, json), "application/json; charset=utf-8", null, null);
+        if (csv) return new PointOutcome(Csv(slug, cell, window, analysis.Periods, analysis.Source), "text/csv; charset=utf-8", $"{slug}_point_{cell.Id}.csv", null);
+        return new PointOutcome(JsonSerializer.SerializeToUtf8Bytes(PointStatisticsService.Statistics(analysis, parts), json), "application/json; charset=utf-8", null, null);
     }
 
     /// <summary>
@@ -174,15 +114,6 @@ public static class PointStatisticsApi
         return false;
     }
 
-    /// <summary>What the point answer needs of the output points: the service, and the nearest point of a gridded dataset's companions.</summary>
-    private sealed record SpectralContext(StationSpectraAnswers Answers, (DatasetRecord Dataset, CellRecord Cell, double DistanceKm)? Nearest,
-        (double Latitude, double Longitude) Position);
-
-    private static PowerRose RoseOf(DirectionStatistics direction) => new(
-        DirectionStatistics.Sectors, DirectionStatistics.SectorWidthDegrees,
-        Enumerable.Range(0, DirectionStatistics.Sectors).Select(k => k * DirectionStatistics.SectorWidthDegrees).ToArray(),
-        direction.PowerRose);
-
     private static readonly WaveParameter[] Summarised = [WaveParameter.Hs, WaveParameter.Te, WaveParameter.Tp, WaveParameter.J, WaveParameter.Spread, WaveParameter.D];
 
     private static byte[] Csv(string slug, PointCell cell, YearWindow window, IReadOnlyList<PeriodStatistics> periods, Provenance source)
@@ -225,7 +156,4 @@ public static class PointStatisticsApi
         // At the precision of the single-precision data, as in the JSON answers.
         if (double.IsFinite(value)) text.Append(DataPrecisionJsonConverter.Round(value).ToString("R", CultureInfo.InvariantCulture));
     }
-
-    private static string WindowText(YearWindow w) =>
-        w.FromYear is null && w.ToYear is null && w.Months is null ? "" : $" in the window {w.FromYear?.ToString(CultureInfo.InvariantCulture) ?? "..."}-{w.ToYear?.ToString(CultureInfo.InvariantCulture) ?? "..."}" + (w.Months is { } m ? $" months {string.Join(',', m)}" : "");
 }

@@ -19,6 +19,7 @@ public static class AtlasCommandLine
         root.Subcommands.Add(StationsCommand.Build());
         root.Subcommands.Add(DevicesCommand.Build());
         root.Subcommands.Add(ValidateCommand.Build());
+        root.Subcommands.Add(ReportCommand.Build());
         return root;
     }
 }

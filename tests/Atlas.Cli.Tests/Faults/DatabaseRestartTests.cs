@@ -163,6 +163,7 @@ public sealed class DatabaseRestartTests : IAsyncLifetime
             var (code, output) = AtlasProcess.Run(arguments, environment);
             Assert.True(code == 0, $"atlas {arguments}:\n{output}");
         }
+        const int Steps = 2920, Nx = 80, Ny = 60;
         var file = HindcastFixture.Make(_home, "restart.nc", Steps, Nx, Ny);
         Run($"ingest \"{file}\" --dataset restart-plain");
         Run($"ingest \"{file}\" --dataset restart-parts --no-stats");
