@@ -17,7 +17,10 @@ public static class PointStatisticsApi
     private static string Description(double lowCoverageThreshold) =>
         "lat, lon: degrees. period: one of jan..dec, djf, mam, jja, son, annual, y2019, or all (default). from, to: calendar " +
             "years (inclusive) and months: calendar months 1..12 (comma separated) restrict the series used; the annual period is " +
-            "then the whole window. include: comma-separated parts among exceedance (Hs and J exceedance curves over the window), " +
+            "then the whole window. include: comma-separated parts among exceedance (Hs and J exceedance curves over the window: " +
+            "Hs every 0.1 m; J every j_step kW/m when given (0.1 or more; j_step=1 for the fine curve), by default every 1 kW/m " +
+            $"or, where that would take more than {PointStatisticsService.DefaultPowerCurveThresholds} thresholds up to the largest J, " +
+            "the smallest step of 2, 5, 10, 20, 50 ... kW/m that does not; each fraction is exact), " +
             "joint (Hm0 x Te occurrence, 0.5 m x 1 s bins, with mean power and share of energy per bin), rose (16-sector power rose), " +
             "interannual (yearly annual and seasonal means and coefficients of variation); all by default, none for summaries only. " +
             "Statistics are computed exactly from the stored series (percentiles Hyndman-Fan type 7); the cell (id, lat, lon, depth_m, " +
@@ -41,23 +44,26 @@ public static class PointStatisticsApi
         var onlyPeriod = query.OnePeriod(errors);
         var parts = query.IncludedParts(errors);
         var csv = query.Csv(errors);
+        var powerCurveStep = query.PowerCurveStep(errors);
         if (errors.Count > 0 || position is null || window is null || parts is null)
             return TypedResults.ValidationProblem(errors, title: "The point request has invalid query values");
 
         var (point, problem) = await locator.LocateAsync(slug, position.Value.Latitude, position.Value.Longitude, cancel);
         if (point is null) return problem!;
         var nearestPoint = await outputPoints.NearestAsync(point.Dataset, position.Value.Latitude, position.Value.Longitude, cancel);
-        var key = await ResponseKeyAsync(point, position.Value, window, onlyPeriod, parts, csv, catalog, nearestPoint?.Dataset, cancel);
+        var key = await ResponseKeyAsync(point, position.Value, window, onlyPeriod, parts, powerCurveStep, csv, catalog, nearestPoint?.Dataset, cancel);
         // Computed without the request's cancellation: other requests for the same key may be waiting on it.
         var (response, failure) = await responses.GetOrComputeAsync(key,
-            () => ComputeAsync(point, window, onlyPeriod, parts, csv, statistics, json.Value.SerializerOptions, CancellationToken.None));
+            () => ComputeAsync(point, window, onlyPeriod, parts, powerCurveStep, csv, statistics, json.Value.SerializerOptions, CancellationToken.None));
         return response is null ? failure! : Respond(response, http);
     }
 
     private static async Task<PointOutcome> ComputeAsync(LocatedPoint point, YearWindow window, AtlasPeriod? onlyPeriod, HashSet<string> parts,
-        bool csv, PointStatisticsService statistics, JsonSerializerOptions json, CancellationToken cancel)
+        double? powerCurveStep, bool csv, PointStatisticsService statistics, JsonSerializerOptions json, CancellationToken cancel)
     {
-        var (analysis, problem) = await statistics.AnalyseAsync(point, window, onlyPeriod, cancel);
+        // The CSV is the period table alone; JSON computes the parts it carries and no others.
+        var (analysis, problem) = await statistics.AnalyseAsync(point, window, onlyPeriod, cancel,
+            csv ? ExactParts.None : PointStatisticsQuery.AnalysisParts(parts), powerCurveStep);
         if (analysis is null) return PointOutcome.Failed(problem!);
         var slug = point.Dataset.Slug;
         var cell = point.Cell;
@@ -70,7 +76,8 @@ public static class PointStatisticsApi
     /// position (the cell's distance from it is part of the answer), the cell, the window, period, parts and format.
     /// </summary>
     private static async Task<string> ResponseKeyAsync(LocatedPoint point, (double Latitude, double Longitude) position, YearWindow window,
-        AtlasPeriod? onlyPeriod, HashSet<string> parts, bool csv, DatasetCatalog catalog, DatasetRecord? outputPoints, CancellationToken cancel)
+        AtlasPeriod? onlyPeriod, HashSet<string> parts, double? powerCurveStep, bool csv, DatasetCatalog catalog, DatasetRecord? outputPoints,
+        CancellationToken cancel)
     {
         var files = await catalog.SeriesStampAsync(point.Dataset, cancel);
         var computed = await catalog.StatisticsStampAsync(point.Dataset, cancel);
@@ -79,7 +86,8 @@ public static class PointStatisticsApi
         return string.Join('|', "point", point.Dataset.Id, point.Dataset.CreatedAtUtc.Ticks, files.Token, computed.Token, pointsStamp,
             position.Latitude.ToString("R", CultureInfo.InvariantCulture), position.Longitude.ToString("R", CultureInfo.InvariantCulture),
             point.Nearest.Cell.CellId, window.FromYear, window.ToYear, window.Months is { } m ? string.Join(',', m) : "",
-            onlyPeriod?.Name ?? "all", csv ? "csv" : string.Join(',', PointStatisticsQuery.Parts.Where(parts.Contains)));
+            onlyPeriod?.Name ?? "all", csv ? "csv" : string.Join(',', PointStatisticsQuery.Parts.Where(parts.Contains)),
+            csv || !parts.Contains("exceedance") ? "" : powerCurveStep?.ToString("R", CultureInfo.InvariantCulture) ?? "auto");
     }
 
     /// <summary>

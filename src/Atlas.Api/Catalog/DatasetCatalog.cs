@@ -39,6 +39,27 @@ public sealed class DatasetCatalog(DatasetStore datasets, DatasetGeometryQueries
     public Task<StatisticsStamp> StatisticsStampAsync(DatasetRecord dataset, CancellationToken cancel) =>
         CachedAsync(("stamp", dataset.Id, dataset.CreatedAtUtc), StampLifetime, () => geometry.StatisticsStampAsync(dataset.Id, CancellationToken.None), cancel);
 
+    /// <summary>The stamp of the whole catalogue: it moves when a dataset is added, removed or loaded again.</summary>
+    public Task<CatalogStamp> CatalogStampAsync(CancellationToken cancel) =>
+        CachedAsync("catalog-stamp", StampLifetime, () => geometry.CatalogStampAsync(CancellationToken.None), cancel);
+
+    /// <summary>Every dataset, ordered by slug, kept until the catalogue's stamp moves.</summary>
+    public async Task<IReadOnlyList<DatasetRecord>> ListAsync(CancellationToken cancel)
+    {
+        var stamp = await CatalogStampAsync(cancel);
+        return await SharedAsync(("datasets", stamp.Token), () => datasets.ListAsync(CancellationToken.None)).WaitAsync(cancel);
+    }
+
+    /// <summary>
+    /// A value derived from the list of datasets (the output points that name a gridded dataset, say), computed once per
+    /// state of the catalogue: kept until its stamp moves.
+    /// </summary>
+    public async Task<T> FromListAsync<T>(object key, Func<IReadOnlyList<DatasetRecord>, T> derive, CancellationToken cancel)
+    {
+        var stamp = await CatalogStampAsync(cancel);
+        return await SharedAsync(("from-list", key, stamp.Token), async () => derive(await ListAsync(CancellationToken.None))).WaitAsync(cancel);
+    }
+
     /// <summary>When the dataset's files were last loaded: a token that moves whenever series or wet cells may have changed.</summary>
     public Task<SeriesStamp> SeriesStampAsync(DatasetRecord dataset, CancellationToken cancel) =>
         CachedAsync(("series-stamp", dataset.Id, dataset.CreatedAtUtc), StampLifetime, () => geometry.SeriesStampAsync(dataset.Id, CancellationToken.None), cancel);
@@ -85,7 +106,12 @@ public sealed class DatasetCatalog(DatasetStore datasets, DatasetGeometryQueries
     public Task<(double West, double South, double East, double North)?> ExtentAsync(DatasetRecord dataset, CancellationToken cancel) =>
         CachedAsync(("extent", dataset.Id, dataset.CreatedAtUtc), TimelineLifetime, () => geometry.GridExtentAsync(dataset.Id, CancellationToken.None), cancel);
 
-    public void Forget(string slug) => cache.Remove(("dataset", slug));
+    /// <summary>Forgets a deleted dataset's row and the catalogue's stamp, so that lists and output points drop it at once.</summary>
+    public void Forget(string slug)
+    {
+        cache.Remove(("dataset", slug));
+        cache.Remove("catalog-stamp");
+    }
 
     /// <summary>
     /// A large value loaded once per key however many requests ask for it at the same moment, then kept while it is

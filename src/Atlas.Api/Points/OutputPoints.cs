@@ -10,7 +10,7 @@ public sealed record OutputPointItem(string Dataset, string Name, int CellId, do
 /// The output points of a spectral hindcast beside its gridded dataset: the datasets of output points that name the gridded
 /// one, and the nearest of their points to a position (geodesic distance on WGS 84).
 /// </summary>
-public sealed class OutputPoints(DatasetStore datasets, DatasetCatalog catalog)
+public sealed class OutputPoints(DatasetCatalog catalog)
 {
     /// <summary>The nearest output point to the position among the datasets of points that name <paramref name="gridDataset"/>; null when none does.</summary>
     public async Task<(DatasetRecord Dataset, CellRecord Cell, double DistanceKm)?> NearestAsync(DatasetRecord gridDataset, double latitude, double longitude,
@@ -44,11 +44,14 @@ public sealed class OutputPoints(DatasetStore datasets, DatasetCatalog catalog)
         return items;
     }
 
-    /// <summary>The datasets of output points that name <paramref name="gridDataset"/> as theirs.</summary>
+    /// <summary>
+    /// The datasets of output points that name <paramref name="gridDataset"/> as theirs: worked out from the catalogue once
+    /// per state of it (every point request asks), and again as soon as a dataset is added, removed or loaded.
+    /// </summary>
     public async Task<IReadOnlyList<DatasetRecord>> CompanionsAsync(DatasetRecord gridDataset, CancellationToken cancel)
     {
         if (gridDataset.GridKind == StationSpectraAnswers.StationsKind) return [];
-        var all = await datasets.ListAsync(cancel);
-        return StationSpectraAnswers.CompanionsOf(all, gridDataset.Slug).ToList();
+        return await catalog.FromListAsync<IReadOnlyList<DatasetRecord>>(("companions", gridDataset.Slug),
+            all => StationSpectraAnswers.CompanionsOf(all, gridDataset.Slug).ToList(), cancel);
     }
 }

@@ -12,14 +12,22 @@ public sealed record PointAnalysis(LocatedPoint Point, YearWindow Window, ExactP
 /// read the nearest cell's stored series and analyse it here, so that a report prints the very numbers the API answers.
 /// </summary>
 public sealed class PointStatisticsService(DatasetCatalog catalog, SeriesStore series, ProvenanceBuilder provenance, PointCalendars calendars,
-    StatisticsOptions statisticsOptions, StationSpectraAnswers spectra, OutputPoints outputPoints)
+    StatisticsOptions statisticsOptions, StationSpectraAnswers spectra, OutputPoints outputPoints, OutputPointRecords outputPointRecords)
 {
     /// <summary>
+    /// The most thresholds of the J exceedance curve by default: its step is 1 kW/m, or the smallest 2, 5, 10, 20, 50 ...
+    /// kW/m that keeps it to this many up to the largest J (a chart or a script reads no more); a step asked for is kept.
+    /// </summary>
+    public const int DefaultPowerCurveThresholds = 100;
+
+    /// <summary>
     /// The analysis of the point's cell over the window (every period, or only <paramref name="onlyPeriod"/>), or the
-    /// problem when the window holds no series or the period no step.
+    /// problem when the window holds no series or the period no step. <paramref name="parts"/> leaves out what nobody
+    /// reads (the period summaries are always made); <paramref name="powerCurveStep"/> is the J exceedance curve's step
+    /// in kW/m, or null for the default (see <see cref="DefaultPowerCurveThresholds"/>).
     /// </summary>
     public async Task<(PointAnalysis? Analysis, ProblemHttpResult? Problem)> AnalyseAsync(LocatedPoint point, YearWindow window, AtlasPeriod? onlyPeriod,
-        CancellationToken cancel)
+        CancellationToken cancel, ExactParts parts = ExactParts.All, double? powerCurveStep = null)
     {
         var slug = point.Dataset.Slug;
         var timelines = await catalog.TimelinesAsync(point.Dataset, cancel);
@@ -39,6 +47,9 @@ public sealed class PointStatisticsService(DatasetCatalog catalog, SeriesStore s
             {
                 Window = analysisWindow,
                 Statistics = statisticsOptions,
+                Parts = parts | ExactParts.OtherSummaries | ExactParts.Directions,
+                PowerCurveStepKilowattsPerMetre = powerCurveStep ?? 1.0,
+                PowerCurveMaxThresholds = powerCurveStep is null ? DefaultPowerCurveThresholds : null,
             }, calendars.For(decoded.Times));
         var periods = result.Periods.Where(p => onlyPeriod is not { } only || p.Period == only).ToArray();
         SpectralPointAnswer? spectral = null;
@@ -50,14 +61,13 @@ public sealed class PointStatisticsService(DatasetCatalog catalog, SeriesStore s
                 ? p with { Direction = p.Direction with { DirectionalityCoefficient = s.DirectionalityCoefficient, MaxPowerFromDeg = s.MaxPowerFromDeg } }
                 : p).ToArray();
             var c = point.Nearest.Cell;
-            spectral = await spectra.AnswerAsync(point.Dataset, cellId, c.Latitude, c.Longitude, c.DepthMetres, null, analysisWindow, timelines, cancel);
+            if (await outputPointRecords.ForAsync(point.Dataset, c, cancel) is { } record)
+                spectral = spectra.Answer(point.Dataset, record, c.Latitude, c.Longitude, c.DepthMetres, null, analysisWindow);
         }
-        else if (await outputPoints.NearestAsync(point.Dataset, point.Asked.Latitude, point.Asked.Longitude, cancel) is { } nearest)
-        {
-            var stationTimelines = await catalog.TimelinesAsync(nearest.Dataset, cancel);
-            spectral = await spectra.AnswerAsync(nearest.Dataset, nearest.Cell.CellId, nearest.Cell.Latitude, nearest.Cell.Longitude,
-                nearest.Cell.DepthMetres, nearest.DistanceKm, analysisWindow, stationTimelines, cancel);
-        }
+        else if (await outputPoints.NearestAsync(point.Dataset, point.Asked.Latitude, point.Asked.Longitude, cancel) is { } nearest
+                 && await outputPointRecords.ForAsync(nearest.Dataset, nearest.Cell, cancel) is { } record)
+            spectral = spectra.Answer(nearest.Dataset, record, nearest.Cell.Latitude, nearest.Cell.Longitude, nearest.Cell.DepthMetres,
+                nearest.DistanceKm, analysisWindow);
         if (spectral is not null && onlyPeriod is { } one)
             spectral = spectral with { Periods = spectral.Periods.Where(p => p.Period == one).ToList() };
         if (periods.Length == 0)

@@ -19,6 +19,7 @@ public static class ReportRegistration
         services.TryAddSingleton<PointCalendars>();
         services.TryAddSingleton<Atlas.Ingest.Spectra.StationSpectraAnswers>();
         services.TryAddSingleton<OutputPoints>();
+        services.TryAddSingleton<OutputPointRecords>();
         services.TryAddSingleton<PointStatisticsService>();
         services.TryAddSingleton<PointAssessments>();
         services.TryAddSingleton<DryCellLand>();

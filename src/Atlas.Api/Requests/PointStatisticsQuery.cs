@@ -2,12 +2,16 @@ using Microsoft.AspNetCore.Mvc;
 
 namespace Atlas.Api.Requests;
 
-/// <summary>The query of <c>GET /point</c> besides the position: the months, one period or all, the parts and the format.</summary>
+/// <summary>
+/// The query of <c>GET /point</c> besides the position: the months, one period or all, the parts, the step of the J
+/// exceedance curve and the format.
+/// </summary>
 public sealed record PointStatisticsQuery(
     [property: FromQuery(Name = "period")] string? Period,
     [property: FromQuery(Name = "months")] string? Months,
     [property: FromQuery(Name = "include")] string? Include,
-    [property: FromQuery(Name = "format")] string? Format)
+    [property: FromQuery(Name = "format")] string? Format,
+    [property: FromQuery(Name = "j_step")] string? JStep = null)
 {
     public static readonly string[] Parts = ["exceedance", "joint", "rose", "interannual"];
 
@@ -37,6 +41,21 @@ public sealed record PointStatisticsQuery(
         }
         return parts;
     }
+
+    /// <summary>
+    /// The step of the J exceedance curve in kW/m (at least 0.1, so that a curve stays a few thousand thresholds at most),
+    /// or null for the default: 1 kW/m, coarsened to keep the curve to
+    /// <see cref="PointStatisticsService.DefaultPowerCurveThresholds"/> thresholds.
+    /// </summary>
+    public double? PowerCurveStep(QueryErrors errors) =>
+        QueryNumbers.Read("j_step", JStep, "the threshold step of the J exceedance curve in kW/m, 0.1 or more (1 for the fine curve)",
+            errors, required: false, min: 0.1, max: 1000);
+
+    /// <summary>The parts of the exact analysis that the asked parts read (the period summaries are always made).</summary>
+    public static ExactParts AnalysisParts(IReadOnlySet<string> parts) =>
+        (parts.Contains("exceedance") ? ExactParts.ExceedanceCurves : ExactParts.None)
+        | (parts.Contains("joint") ? ExactParts.JointOccurrence : ExactParts.None)
+        | (parts.Contains("interannual") ? ExactParts.InterAnnual : ExactParts.None);
 
     /// <summary>True for CSV, false for JSON (the default).</summary>
     public bool Csv(QueryErrors errors) => errors.Choice("format", Format, "point format", "json", "csv") == "csv";

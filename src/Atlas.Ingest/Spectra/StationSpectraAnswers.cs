@@ -61,37 +61,69 @@ public sealed class StationSpectraAnswers(NpgsqlDataSource dataSource, StationSp
     /// power and with the parametric one, and its monthly spectra.
     /// </summary>
     public async Task<SpectralPointAnswer?> AnswerAsync(DatasetRecord dataset, int cellId, double lat, double lon, double? depth, double? distanceKm,
-        AnalysisWindow window, IReadOnlyDictionary<int, long[]> timelines, CancellationToken cancel)
+        AnalysisWindow window, IReadOnlyDictionary<int, long[]> timelines, CancellationToken cancel) =>
+        await RecordAsync(dataset, cellId, depth, timelines, cancel) is { } record ? Answer(dataset, record, lat, lon, depth, distanceKm, window) : null;
+
+    /// <summary>
+    /// Everything stored for one output point over every usable year, decoded (null when it has no stored series), for
+    /// <see cref="Answer"/> to answer any window from.
+    /// </summary>
+    public async Task<OutputPointRecord?> RecordAsync(DatasetRecord dataset, int cellId, double? depth, IReadOnlyDictionary<int, long[]> timelines,
+        CancellationToken cancel)
     {
-        var chunks = await series.ReadCellAsync(dataset.Id, cellId, window.FirstYear, window.LastYear, cancel);
+        var chunks = await series.ReadCellAsync(dataset.Id, cellId, null, null, cancel);
         if (chunks.Count == 0) return null;
         var aligned = await AlignedStepsAsync(dataset.Id, cellId, chunks, timelines, cancel);
-        var (power, parametric, width) = (aligned[SpectralProduct.Power], aligned[SpectralProduct.ParametricPower], aligned[SpectralProduct.SpectralWidth]);
-        ExactPointStatistics spectral, bulk;
-        long[] times;
-        using (var decoded = PointSeriesReader.DecodeRented(chunks, timelines, depth ?? double.NaN))
-        {
-            var exact = new ExactPointOptions { Window = window, Statistics = options };
-            times = decoded.Times.ToArray();
-            var calendar = new TimelineCalendar(decoded.Times);
-            spectral = ExactPointAnalysis.Analyse(decoded.ToCellSeries() with { Power = power }, exact, calendar);
-            bulk = ExactPointAnalysis.Analyse(decoded.ToCellSeries() with { Power = parametric }, exact, calendar);
-        }
+        var decoded = PointSeriesReader.Decode(chunks, timelines, depth ?? double.NaN);
+        var usable = chunks.Where(c => timelines.TryGetValue(c.Year, out var t) && t.Length == SeriesCodec.StepCountOf(c.Payload)).ToArray();
+        var starts = new int[usable.Length + 1];
+        for (int k = 0; k < usable.Length; k++) starts[k + 1] = starts[k] + SeriesCodec.StepCountOf(usable[k].Payload);
         var months = (await store.MonthSumsAsync(dataset.Id, cellId, cancel))
             .Select(m => new MonthSpectrum(m.Year, m.Month, m.Steps, m.FrequencySum, m.DirectionSum)).ToList();
         var (frequencies, directions, station) = Axes(dataset, cellId);
-        var periods = spectral.Periods.Select(p => p.Period).ToList();
-        var spectra = PeriodSpectra.Of(months, periods, window, directions).ToDictionary(p => p.Period);
-        var result = new List<SpectralPeriod>();
-        foreach (var p in spectral.Periods)
+        return new OutputPointRecord(cellId, station, frequencies, directions, [.. usable.Select(c => (int)c.Year)], starts, decoded, aligned, months);
+    }
+
+    /// <summary>
+    /// The answer for one output point over <paramref name="window"/> from its record: the steps of the window's years (those
+    /// a read of their chunks gives), J analysed exactly with the spectral power and with the parametric one (J's period
+    /// summaries alone), the pooled spectral width and the period spectra from the monthly sums.
+    /// </summary>
+    public SpectralPointAnswer Answer(DatasetRecord dataset, OutputPointRecord record, double lat, double lon, double? depth, double? distanceKm,
+        AnalysisWindow window)
+    {
+        var range = record.StepsOf(window.FirstYear, window.LastYear);
+        var s = record.Series;
+        var times = s.Times.AsSpan(range);
+        var cell = new CellSeries
         {
+            Times = times,
+            Hs = s.Hs.AsSpan(range),
+            Te = s.HasTe ? s.Te.AsSpan(range) : default,
+            Tp = s.HasTp ? s.Tp.AsSpan(range) : default,
+            Dir = s.HasDir ? s.Dir.AsSpan(range) : default,
+            Spread = s.HasSpread ? s.Spread.AsSpan(range) : default,
+            DepthMetres = s.DepthMetres,
+        };
+        // Only J's summaries are read from either analysis: the other parts are not computed.
+        var exact = new ExactPointOptions { Window = window, Statistics = options, Parts = ExactParts.None };
+        var calendar = new TimelineCalendar(times);
+        var spectral = ExactPointAnalysis.Analyse(cell with { Power = record.Steps[SpectralProduct.Power].AsSpan(range) }, exact, calendar);
+        var bulk = ExactPointAnalysis.Analyse(cell with { Power = record.Steps[SpectralProduct.ParametricPower].AsSpan(range) }, exact, calendar);
+        var periods = spectral.Periods.Select(p => p.Period).ToList();
+        var spectra = PeriodSpectra.Of(record.Months, periods, window, record.Directions).ToDictionary(p => p.Period);
+        var widths = PooledMeans(calendar, record.Steps[SpectralProduct.SpectralWidth].AsSpan(range), periods, window);
+        var result = new List<SpectralPeriod>();
+        for (int i = 0; i < spectral.Periods.Count; i++)
+        {
+            var p = spectral.Periods[i];
             double meanSpectral = p.J.Mean, meanParametric = bulk.Find(p.Period)?.J.Mean ?? double.NaN;
-            spectra.TryGetValue(p.Period, out var s);
+            spectra.TryGetValue(p.Period, out var sp);
             result.Add(new SpectralPeriod(p.Period, p.J.Count, meanSpectral, meanParametric, meanParametric / meanSpectral,
-                s?.DirectionalityCoefficient ?? double.NaN, s?.MaxPowerFromDeg ?? double.NaN, PooledMean(times, width, p.Period, window),
-                s?.FrequencySpectrum ?? [], s?.DirectionPower ?? []));
+                sp?.DirectionalityCoefficient ?? double.NaN, sp?.MaxPowerFromDeg ?? double.NaN, widths[i],
+                sp?.FrequencySpectrum ?? [], sp?.DirectionPower ?? []));
         }
-        return new SpectralPointAnswer(dataset.Slug, station, cellId, lat, lon, depth, distanceKm, frequencies, directions, result, Method);
+        return new SpectralPointAnswer(dataset.Slug, record.Station, record.CellId, lat, lon, depth, distanceKm, record.Frequencies, record.Directions, result, Method);
     }
 
     /// <summary>The period's directionality and direction of largest resolved power from the monthly spectra, for the main answer's periods.</summary>
@@ -116,29 +148,41 @@ public sealed class StationSpectraAnswers(NpgsqlDataSource dataSource, StationSp
         return (frequencies, directions, StationName(dataset, cellId));
     }
 
-    private static double PooledMean(long[] times, float[] values, AtlasPeriod period, AnalysisWindow window)
+    /// <summary>
+    /// The plain mean of the valid values of each period (inside the window), every period's sum taken in step order. One
+    /// pass: each step adds to its month, its season, its year and the whole window.
+    /// </summary>
+    private static double[] PooledMeans(TimelineCalendar calendar, ReadOnlySpan<float> values, IReadOnlyList<AtlasPeriod> periods, AnalysisWindow window)
     {
-        double sum = 0;
-        long count = 0;
-        for (int k = 0; k < times.Length; k++)
+        var index = new Dictionary<AtlasPeriod, int>();
+        for (int i = 0; i < periods.Count; i++) index[periods[i]] = i;
+        var sums = new double[periods.Count];
+        var counts = new long[periods.Count];
+        int annual = index.GetValueOrDefault(AtlasPeriod.Annual, -1);
+        // Per slot: the indices of its month, season and year among the periods (-1 when not asked or outside the window).
+        var slotPeriods = new int[calendar.SlotCount * 3];
+        var slotInside = new bool[calendar.SlotCount];
+        for (int slot = 0; slot < calendar.SlotCount; slot++)
+        {
+            int year = calendar.YearOfSlot(slot), month = TimelineCalendar.MonthOfSlot(slot);
+            slotInside[slot] = window.Contains(year, month);
+            slotPeriods[3 * slot] = index.GetValueOrDefault(AtlasPeriod.Month(month), -1);
+            slotPeriods[3 * slot + 1] = index.GetValueOrDefault(AtlasPeriod.SeasonOf(month), -1);
+            slotPeriods[3 * slot + 2] = index.GetValueOrDefault(AtlasPeriod.Year(year), -1);
+        }
+        ReadOnlySpan<int> stepSlots = calendar.StepSlots;
+        for (int k = 0; k < values.Length; k++)
         {
             float v = values[k];
-            if (float.IsNaN(v)) continue;
-            var at = DateTimeOffset.FromUnixTimeSeconds(times[k]).UtcDateTime;
-            if (!window.Contains(at.Year, at.Month)) continue;
-            bool inside = period.Kind switch
-            {
-                PeriodKind.Annual => true,
-                PeriodKind.Month => AtlasPeriod.Month(at.Month) == period,
-                PeriodKind.Season => AtlasPeriod.SeasonOf(at.Month) == period,
-                PeriodKind.Year => AtlasPeriod.Year(at.Year) == period,
-                _ => false,
-            };
-            if (!inside) continue;
-            sum += v;
-            count++;
+            int slot = stepSlots[k];
+            if (float.IsNaN(v) || !slotInside[slot]) continue;
+            if (annual >= 0) { sums[annual] += v; counts[annual]++; }
+            for (int j = 0; j < 3; j++)
+                if (slotPeriods[3 * slot + j] is var p and >= 0) { sums[p] += v; counts[p]++; }
         }
-        return count == 0 ? double.NaN : sum / count;
+        var means = new double[periods.Count];
+        for (int i = 0; i < means.Length; i++) means[i] = counts[i] == 0 ? double.NaN : sums[i] / counts[i];
+        return means;
     }
 
     /// <summary>The datasets of output points that name <paramref name="gridSlug"/> as their gridded dataset.</summary>

@@ -53,22 +53,35 @@ public static class ExactPointAnalysis
         DerivedSeries derived = buffers.Derive(series, settings);
         bool hasPower = derived.Power.Length > 0;
         QuantileDefinition definition = options.QuantileDefinition;
+        ExactParts parts = options.Parts;
+        bool others = parts.HasFlag(ExactParts.OtherSummaries), curvesAsked = parts.HasFlag(ExactParts.ExceedanceCurves);
+        bool jointAsked = parts.HasFlag(ExactParts.JointOccurrence), interAnnualAsked = parts.HasFlag(ExactParts.InterAnnual);
 
         int n = series.Times.Length;
         using var columns = new RentedColumns();
+        // Only the columns some asked part reads are copied: Hs and Te for their summaries, the joint table and the
+        // yearly means (Hs also for the coverage of a series without power), the direction and spread for directions.
+        bool hsNeeded = others || jointAsked || interAnnualAsked || !hasPower, teNeeded = others || jointAsked || interAnnualAsked;
+        bool directionsAsked = parts.HasFlag(ExactParts.Directions);
         float[]?[] values =
         [
-            columns.Copy(series.Hs), columns.Copy(derived.Te), columns.Copy(series.Tp), columns.Copy(derived.Power),
-            columns.Copy(series.Spread),
+            hsNeeded ? columns.Copy(series.Hs) : null, teNeeded ? columns.Copy(derived.Te) : null, others ? columns.Copy(series.Tp) : null,
+            columns.Copy(derived.Power), others || directionsAsked ? columns.Copy(series.Spread) : null,
         ];
-        float[]? directions = hasPower ? columns.Copy(series.Dir) : null;
+        float[]? directions = hasPower && directionsAsked ? columns.Copy(series.Dir) : null;
         WaveParameter[] parameters = [WaveParameter.Hs, WaveParameter.Te, WaveParameter.Tp, WaveParameter.J, WaveParameter.Spread];
-        const int hsIndex = 0, teIndex = 1, powerIndex = 3;
+        const int hsIndex = 0, teIndex = 1, powerIndex = 3, spreadIndex = 4;
         // Hs, Te and J are also summed per slot while they are packed, for the inter-annual means.
         var sums = new SlotSums?[values.Length];
-        sums[hsIndex] = new SlotSums(calendar.SlotCount);
-        sums[teIndex] = new SlotSums(calendar.SlotCount);
-        sums[powerIndex] = new SlotSums(calendar.SlotCount);
+        if (interAnnualAsked)
+        {
+            sums[hsIndex] = new SlotSums(calendar.SlotCount);
+            sums[teIndex] = new SlotSums(calendar.SlotCount);
+            sums[powerIndex] = new SlotSums(calendar.SlotCount);
+        }
+        // The summaries of a parameter are made when asked for, and always for J (and for Hs when there is no power:
+        // its coverage is the period's).
+        bool Summarised(int task) => task == powerIndex || others || (task == hsIndex && !hasPower);
 
         var sorted = new SortedPeriodValues?[values.Length];
         var summaries = new SummaryStatistics[values.Length][];
@@ -78,12 +91,20 @@ public static class ExactPointAnalysis
         JointOccurrenceTable? joint = null;
         var direction = new DirectionAccumulator();
         var directionality = new DirectionalityAccumulator();
-        float[]? spreads = values[4];
+        float[]? spreads = values[spreadIndex];
         void Run(int task)
         {
             if (task < values.Length)
             {
                 float[]? v = values[task];
+                if (!Summarised(task))
+                {
+                    // Not asked for: no summaries, but still the yearly sums when those are.
+                    if (v is not null && sums[task] is { } slotSums) window.SumPerSlot(v.AsSpan(0, n), parameters[task], slotSums);
+                    summaries[task] = [.. window.Periods.Select(_ => SummaryStatistics.Empty)];
+                    exceedances[task] = new ExceedanceFraction[window.Periods.Count][];
+                    return;
+                }
                 SortedPeriodValues? s = sorted[task] = v is null ? null : window.SortPerPeriod(v.AsSpan(0, n), parameters[task], sums[task]);
                 (IReadOnlyList<double>? thresholds, double curveStep) = task switch
                 {
@@ -102,10 +123,11 @@ public static class ExactPointAnalysis
                         : balanced?.Summary(period.Expected, definition) ?? ExactSummary.Of(s.Of(i), period.Expected, definition);
                     if (thresholds is null) continue;
                     exceedances[task][i] = Exceedances(s, i, balanced, thresholds);
-                    if (i == annual) curves[task] = Curve(parameters[task], s, i, balanced, curveStep);
+                    if (i == annual && curvesAsked)
+                        curves[task] = Curve(parameters[task], s, i, balanced, task == powerIndex ? CoarsenedStep(s, i, curveStep, options.PowerCurveMaxThresholds) : curveStep);
                 }
             }
-            else if (task == JointTask)
+            else if (task == JointTask && jointAsked)
                 joint = JointOccurrence(Span(values[hsIndex], n), Span(values[teIndex], n), Span(values[powerIndex], n), window, annual, options);
             else if (task == DirectionTask && directions is not null)
             {
@@ -154,8 +176,8 @@ public static class ExactPointAnalysis
                 periods,
                 curves[hsIndex] ?? Curve(WaveParameter.Hs, null, annual, null, options.HsCurveStepMetres),
                 curves[powerIndex] ?? Curve(WaveParameter.J, null, annual, null, options.PowerCurveStepKilowattsPerMetre),
-                joint!,
-                InterAnnual(sums[hsIndex]!, sums[teIndex]!, sums[powerIndex]!, hasPower, window, settings.LowCoverageThreshold));
+                joint ?? new JointOccurrenceTable(options.JointHsBinMetres, options.JointTeBinSeconds, [], [], [], [], [], [], 0),
+                interAnnualAsked ? InterAnnual(sums[hsIndex]!, sums[teIndex]!, sums[powerIndex]!, hasPower, window, settings.LowCoverageThreshold) : []);
         }
         finally
         {
@@ -179,6 +201,24 @@ public static class ExactPointAnalysis
             result[t] = new ExceedanceFraction(thresholds[t], fraction);
         }
         return result;
+    }
+
+    /// <summary>
+    /// The threshold step of a curve over the sorted values: <paramref name="step"/>, or when that needs more than
+    /// <paramref name="maxThresholds"/> thresholds up to the largest value, the smallest 1, 2 or 5 times a power of ten
+    /// times it that needs no more.
+    /// </summary>
+    internal static double CoarsenedStep(SortedPeriodValues? values, int annual, double step, int? maxThresholds)
+    {
+        ReadOnlySpan<double> sorted = values is null || annual < 0 ? [] : values.Of(annual);
+        if (maxThresholds is not { } most || sorted.Length == 0) return step;
+        double largest = sorted[^1];
+        for (double decade = 1; ; decade *= 10)
+            foreach (int factor in (ReadOnlySpan<int>)[1, 2, 5])
+            {
+                double candidate = Math.Round(step * factor * decade, 9);
+                if (Math.Ceiling(largest / candidate) + 1 <= most) return candidate;
+            }
     }
 
     private static ExceedanceCurve Curve(WaveParameter parameter, SortedPeriodValues? values, int annual, BalancedValues? balanced, double step)

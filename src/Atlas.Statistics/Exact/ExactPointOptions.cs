@@ -18,6 +18,17 @@ public sealed record ExactPointOptions
     /// <summary>Threshold spacing of the power exceedance curve, kW/m (default 1).</summary>
     public double PowerCurveStepKilowattsPerMetre { get; init; } = 1.0;
 
+    /// <summary>
+    /// At most this many thresholds on the power exceedance curve: when the largest power needs more at
+    /// <see cref="PowerCurveStepKilowattsPerMetre"/>, the step grows to the smallest of 1, 2 or 5 times a power of ten
+    /// times that step which needs no more (null, the default: the step as given, however many thresholds it takes).
+    /// Each fraction stays exact; only fewer thresholds are read.
+    /// </summary>
+    public int? PowerCurveMaxThresholds { get; init; }
+
+    /// <summary>The parts to compute (default all); J's period summaries are always computed.</summary>
+    public ExactParts Parts { get; init; } = ExactParts.All;
+
     /// <summary>Hs bin of the joint occurrence table, m (default 0.5).</summary>
     public double JointHsBinMetres { get; init; } = 0.5;
 
@@ -35,6 +46,8 @@ public sealed record ExactPointOptions
         Positive(HsCurveStepMetres, nameof(HsCurveStepMetres));
         Positive(PowerCurveStepKilowattsPerMetre, nameof(PowerCurveStepKilowattsPerMetre));
         Positive(JointHsBinMetres, nameof(JointHsBinMetres));
+        if (PowerCurveMaxThresholds is < 2)
+            throw new ArgumentException($"{nameof(PowerCurveMaxThresholds)} is {PowerCurveMaxThresholds}; a curve needs at least 2 thresholds.", nameof(PowerCurveMaxThresholds));
         Positive(JointTeBinSeconds, nameof(JointTeBinSeconds));
     }
 
@@ -43,4 +56,33 @@ public sealed record ExactPointOptions
         if (!(value > 0) || !double.IsFinite(value))
             throw new ArgumentException($"{name} is {value}; it must be positive and finite.", name);
     }
+}
+
+/// <summary>
+/// The parts of an exact point analysis beyond J's period summaries. A part left out is not computed at all: its
+/// summaries are empty (count 0), its curves, table and series empty. What is computed is the same either way.
+/// </summary>
+[Flags]
+public enum ExactParts
+{
+    /// <summary>J's period summaries and exceedance fractions only.</summary>
+    None = 0,
+
+    /// <summary>The period summaries and exceedance fractions of Hs, Te, Tp and spread.</summary>
+    OtherSummaries = 1,
+
+    /// <summary>Each period's direction statistics, power rose and directionality.</summary>
+    Directions = 2,
+
+    /// <summary>The exceedance curves of Hs and J over the window.</summary>
+    ExceedanceCurves = 4,
+
+    /// <summary>The joint Hm0-Te occurrence table.</summary>
+    JointOccurrence = 8,
+
+    /// <summary>The yearly means and their coefficients of variation.</summary>
+    InterAnnual = 16,
+
+    /// <summary>Everything (the default).</summary>
+    All = OtherSummaries | Directions | ExceedanceCurves | JointOccurrence | InterAnnual,
 }

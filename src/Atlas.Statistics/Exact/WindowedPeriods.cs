@@ -102,6 +102,20 @@ internal sealed class WindowedPeriods
         }
     }
 
+    /// <summary>
+    /// The count and sum per slot of the valid values inside the window (in step order, as <see cref="SortPerPeriod"/>
+    /// adds them), for a parameter whose period summaries were not asked for.
+    /// </summary>
+    public void SumPerSlot(ReadOnlySpan<float> values, WaveParameter parameter, SlotSums sums)
+    {
+        ReadOnlySpan<int> stepSlots = Calendar.StepSlots;
+        for (int i = 0; i < values.Length; i++)
+        {
+            int slot = stepSlots[i];
+            if (_included[slot] && ParameterValidity.IsValid(parameter, values[i])) sums.Add(slot, values[i]);
+        }
+    }
+
     private int Pack(ReadOnlySpan<float> values, WaveParameter parameter, Span<long> keys, SlotSums? sums)
     {
         ReadOnlySpan<int> stepSlots = Calendar.StepSlots;

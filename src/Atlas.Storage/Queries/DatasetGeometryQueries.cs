@@ -18,6 +18,17 @@ public sealed record SeriesStamp(int FileCount, DateTime? LastLoadedUtc)
     public string Token => LastLoadedUtc is { } t ? $"{t.Ticks:x}-{FileCount:x}" : "none";
 }
 
+/// <summary>
+/// The catalogue as a whole: how many datasets there are, the newest dataset id and when any file of any dataset was last
+/// loaded. It moves whenever a dataset is added, removed or loaded again (its metadata, such as the gridded dataset a
+/// dataset of output points names, is written with its files).
+/// </summary>
+public sealed record CatalogStamp(int DatasetCount, int LastDatasetId, int FileCount, DateTime? LastLoadedUtc)
+{
+    /// <summary>A short token that changes whenever the catalogue changes (for cache keys).</summary>
+    public string Token => $"{DatasetCount:x}-{LastDatasetId:x}-{FileCount:x}-{LastLoadedUtc?.Ticks ?? 0:x}";
+}
+
 /// <summary>A (parameter, period) pair that has statistics rows in a dataset, with the number of cells that have it.</summary>
 public readonly record struct LayerCombination(WaveParameter Parameter, AtlasPeriod Period);
 
@@ -67,6 +78,18 @@ public sealed class DatasetGeometryQueries(NpgsqlDataSource dataSource)
         await using var reader = await command.ExecuteReaderAsync(cancel);
         await reader.ReadAsync(cancel);
         return new StatisticsStamp(reader.IsDBNull(0) ? null : reader.GetDateTime(0).ToUniversalTime(), reader.GetInt32(1));
+    }
+
+    /// <summary>The stamp of the whole catalogue (counts and maxima of the small dataset and source_file tables).</summary>
+    public async Task<CatalogStamp> CatalogStampAsync(CancellationToken cancel = default)
+    {
+        await using var command = dataSource.CreateCommand("""
+            SELECT (SELECT count(*)::int FROM dataset), (SELECT coalesce(max(dataset_id), 0) FROM dataset),
+                   (SELECT count(*)::int FROM source_file), (SELECT max(loaded_at) FROM source_file)
+            """);
+        await using var reader = await command.ExecuteReaderAsync(cancel);
+        await reader.ReadAsync(cancel);
+        return new CatalogStamp(reader.GetInt32(0), reader.GetInt32(1), reader.GetInt32(2), reader.IsDBNull(3) ? null : reader.GetDateTime(3).ToUniversalTime());
     }
 
     public async Task<SeriesStamp> SeriesStampAsync(int datasetId, CancellationToken cancel = default)
