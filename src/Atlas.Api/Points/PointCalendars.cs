@@ -4,11 +4,12 @@ namespace Atlas.Api.Points;
 /// The calendars of the last few point timelines. The cells of a dataset share their time lines, so point requests
 /// for the same years share a timeline, and building its calendar again (a pass over decades of hourly steps, and
 /// megabytes of arrays) would cost each request a millisecond or more. A handful are kept, whatever the datasets and
-/// windows asked, so that the memory they hold stays bounded.
+/// windows asked, so that the memory they hold stays bounded: enough for the year ranges a script asks of a cell and of
+/// the output point beside it at once.
 /// </summary>
 public sealed class PointCalendars
 {
-    private const int Kept = 4;
+    private const int Kept = 8;
     private readonly TimelineCalendar?[] _recent = new TimelineCalendar?[Kept];
     private int _next;
     private readonly Lock _gate = new();

@@ -3,10 +3,35 @@ using System.Collections.Concurrent;
 namespace Atlas.Api.Points;
 
 /// <summary>
-/// A finished point response: its bytes, the same bytes gzip-compressed once (null when too small to gain), media
-/// type, download name (CSV) and entity tag.
+/// A finished point response: its bytes, media type, download name (CSV) and entity tag, and the same bytes
+/// gzip-compressed once, when a client first asks for gzip (most answers to scripts' new windows are read once, by a
+/// client that may not ask for it at all).
 /// </summary>
-public sealed record PointResponse(byte[] Content, byte[]? Gzipped, string ContentType, string? FileName, string ETag);
+public sealed class PointResponse(byte[] content, string contentType, string? fileName, string etag)
+{
+    private readonly Lazy<byte[]?> _gzipped = new(() => Gzip(content));
+
+    public byte[] Content => content;
+
+    public string ContentType => contentType;
+
+    public string? FileName => fileName;
+
+    public string ETag => etag;
+
+    /// <summary>The content gzip-compressed, made on first use and kept; null when too small to gain.</summary>
+    public byte[]? Gzipped => _gzipped.Value;
+
+    // Compressed once, instead of by the compression middleware on every request: JSON and CSV of statistics shrink
+    // about fivefold, and most HTTP clients ask for gzip.
+    private static byte[]? Gzip(byte[] content)
+    {
+        if (content.Length < 1024) return null;
+        using var buffer = new MemoryStream(content.Length / 4);
+        using (var gzip = new GZipStream(buffer, CompressionLevel.Fastest, leaveOpen: true)) gzip.Write(content);
+        return buffer.ToArray();
+    }
+}
 
 /// <summary>What computing a point response gave: its content, or the problem that prevented it (never cached).</summary>
 public sealed record PointOutcome(byte[]? Content, string ContentType, string? FileName, ProblemHttpResult? Problem)
@@ -55,23 +80,14 @@ public sealed class PointResponseCache : IDisposable
     private PointResponse Store(string key, byte[] content, string contentType, string? fileName)
     {
         var digest = SHA256.HashData(Encoding.UTF8.GetBytes(key));
-        var response = new PointResponse(content, Gzip(content), contentType, fileName, $"\"p-{Convert.ToHexStringLower(digest, 0, 12)}\"");
+        var response = new PointResponse(content, contentType, fileName, $"\"p-{Convert.ToHexStringLower(digest, 0, 12)}\"");
         _cache?.Set(key, response, new MemoryCacheEntryOptions
         {
-            Size = content.Length + (response.Gzipped?.Length ?? 0) + 2 * key.Length + 256,
+            // The compressed form, made when first asked for, is counted ahead (about a quarter of the content, or less).
+            Size = content.Length + content.Length / 4 + 2 * key.Length + 256,
             SlidingExpiration = TimeSpan.FromMinutes(30),
         });
         return response;
-    }
-
-    // Compressed once, when the answer is made, instead of by the compression middleware on every request:
-    // JSON and CSV of statistics shrink about fivefold, and most HTTP clients ask for gzip.
-    private static byte[]? Gzip(byte[] content)
-    {
-        if (content.Length < 1024) return null;
-        using var buffer = new MemoryStream(content.Length / 4);
-        using (var gzip = new GZipStream(buffer, CompressionLevel.Fastest, leaveOpen: true)) gzip.Write(content);
-        return buffer.ToArray();
     }
 
     public void Dispose() => _cache?.Dispose();

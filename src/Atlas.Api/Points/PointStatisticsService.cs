@@ -62,12 +62,12 @@ public sealed class PointStatisticsService(DatasetCatalog catalog, SeriesStore s
                 : p).ToArray();
             var c = point.Nearest.Cell;
             if (await outputPointRecords.ForAsync(point.Dataset, c, cancel) is { } record)
-                spectral = spectra.Answer(point.Dataset, record, c.Latitude, c.Longitude, c.DepthMetres, null, analysisWindow);
+                spectral = spectra.Answer(point.Dataset, record, c.Latitude, c.Longitude, c.DepthMetres, null, analysisWindow, calendars.For);
         }
         else if (await outputPoints.NearestAsync(point.Dataset, point.Asked.Latitude, point.Asked.Longitude, cancel) is { } nearest
                  && await outputPointRecords.ForAsync(nearest.Dataset, nearest.Cell, cancel) is { } record)
             spectral = spectra.Answer(nearest.Dataset, record, nearest.Cell.Latitude, nearest.Cell.Longitude, nearest.Cell.DepthMetres,
-                nearest.DistanceKm, analysisWindow);
+                nearest.DistanceKm, analysisWindow, calendars.For);
         if (spectral is not null && onlyPeriod is { } one)
             spectral = spectral with { Periods = spectral.Periods.Where(p => p.Period == one).ToList() };
         if (periods.Length == 0)

@@ -89,8 +89,9 @@ public sealed class StationSpectraAnswers(NpgsqlDataSource dataSource, StationSp
     /// a read of their chunks gives), J analysed exactly with the spectral power and with the parametric one (J's period
     /// summaries alone), the pooled spectral width and the period spectra from the monthly sums.
     /// </summary>
+    /// <param name="calendarOf">The calendar of the steps' times, from a caller that keeps recent ones (built afresh when null).</param>
     public SpectralPointAnswer Answer(DatasetRecord dataset, OutputPointRecord record, double lat, double lon, double? depth, double? distanceKm,
-        AnalysisWindow window)
+        AnalysisWindow window, Func<ReadOnlySpan<long>, TimelineCalendar>? calendarOf = null)
     {
         var range = record.StepsOf(window.FirstYear, window.LastYear);
         var s = record.Series;
@@ -107,7 +108,7 @@ public sealed class StationSpectraAnswers(NpgsqlDataSource dataSource, StationSp
         };
         // Only J's summaries are read from either analysis: the other parts are not computed.
         var exact = new ExactPointOptions { Window = window, Statistics = options, Parts = ExactParts.None };
-        var calendar = new TimelineCalendar(times);
+        var calendar = calendarOf?.Invoke(times) ?? new TimelineCalendar(times);
         var spectral = ExactPointAnalysis.Analyse(cell with { Power = record.Steps[SpectralProduct.Power].AsSpan(range) }, exact, calendar);
         var bulk = ExactPointAnalysis.Analyse(cell with { Power = record.Steps[SpectralProduct.ParametricPower].AsSpan(range) }, exact, calendar);
         var periods = spectral.Periods.Select(p => p.Period).ToList();
@@ -154,7 +155,7 @@ public sealed class StationSpectraAnswers(NpgsqlDataSource dataSource, StationSp
     /// </summary>
     private static double[] PooledMeans(TimelineCalendar calendar, ReadOnlySpan<float> values, IReadOnlyList<AtlasPeriod> periods, AnalysisWindow window)
     {
-        var index = new Dictionary<AtlasPeriod, int>();
+        var index = new Dictionary<AtlasPeriod, int>(periods.Count);
         for (int i = 0; i < periods.Count; i++) index[periods[i]] = i;
         var sums = new double[periods.Count];
         var counts = new long[periods.Count];

@@ -24,12 +24,15 @@ internal sealed class DirectionAccumulator
     }
 
     /// <summary>One pass over direction (degrees from) and power (kW/m) of the current cell.</summary>
-    public void Accumulate(ReadOnlySpan<float> directionDegrees, ReadOnlySpan<float> power)
+    /// <param name="includedSlots">When given, only the steps of the slots marked true are read (the others are never summarised).</param>
+    public void Accumulate(ReadOnlySpan<float> directionDegrees, ReadOnlySpan<float> power, ReadOnlySpan<bool> includedSlots = default)
     {
         TimelineCalendar calendar = _calendar ?? throw new InvalidOperationException("Prepare the accumulator for a calendar first.");
         HasSeries = true;
         foreach (StepRun run in calendar.Runs)
         {
+            // A slot outside the caller's window is never summarised: its sums stay zero.
+            if (!includedSlots.IsEmpty && !includedSlots[run.Slot]) continue;
             double weight = 0, cosine = 0, sine = 0;
             long n = 0;
             Span<double> sectors = _sectorSums.AsSpan(run.Slot * Sectors, Sectors);

@@ -29,12 +29,15 @@ internal sealed class DirectionalityAccumulator
     }
 
     /// <summary>One pass over the mean direction (degrees from), spread (degrees) and power (kW/m) of the current cell.</summary>
-    public void Accumulate(ReadOnlySpan<float> directionDegrees, ReadOnlySpan<float> spreadDegrees, ReadOnlySpan<float> power)
+    /// <param name="includedSlots">When given, only the steps of the slots marked true are read (the others are never summarised).</param>
+    public void Accumulate(ReadOnlySpan<float> directionDegrees, ReadOnlySpan<float> spreadDegrees, ReadOnlySpan<float> power, ReadOnlySpan<bool> includedSlots = default)
     {
         TimelineCalendar calendar = _calendar ?? throw new InvalidOperationException("Prepare the accumulator for a calendar first.");
         HasSeries = true;
         foreach (StepRun run in calendar.Runs)
         {
+            // A slot outside the caller's window is never summarised: its sums stay zero.
+            if (!includedSlots.IsEmpty && !includedSlots[run.Slot]) continue;
             var harmonics = new HarmonicAccumulator();
             long n = 0;
             int end = run.Start + run.Length;

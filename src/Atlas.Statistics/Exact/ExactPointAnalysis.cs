@@ -132,11 +132,11 @@ public static class ExactPointAnalysis
             else if (task == DirectionTask && directions is not null)
             {
                 direction.Prepare(calendar);
-                direction.Accumulate(directions.AsSpan(0, n), Span(values[powerIndex], n));
+                direction.Accumulate(directions.AsSpan(0, n), Span(values[powerIndex], n), window.IncludedSlots);
                 if (spreads is not null)
                 {
                     directionality.Prepare(calendar);
-                    directionality.Accumulate(directions.AsSpan(0, n), spreads.AsSpan(0, n), Span(values[powerIndex], n));
+                    directionality.Accumulate(directions.AsSpan(0, n), spreads.AsSpan(0, n), Span(values[powerIndex], n), window.IncludedSlots);
                 }
             }
         }

@@ -66,6 +66,9 @@ internal sealed class WindowedPeriods
 
     public IReadOnlyList<WindowPeriod> Periods { get; }
 
+    /// <summary>Per slot, true when it is inside the window.</summary>
+    public ReadOnlySpan<bool> IncludedSlots => _included;
+
     /// <summary>True when the slot is inside the window (it may hold no step: a missing month).</summary>
     public bool Includes(int slot) => _included[slot];
 
