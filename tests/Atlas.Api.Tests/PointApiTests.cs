@@ -212,7 +212,39 @@ public sealed class PointApiTests(AtlasApiFixture atlas)
         Assert.Equal(stored[(0, 0)].Mean!.Value, Convert.ToDouble(frame["mean"][row], CultureInfo.InvariantCulture), stored[(0, 0)].Mean!.Value * 2e-6);
     }
 
+    // The J exceedance curve: by default at most 100 thresholds (1 kW/m unless the largest J needs a coarser step of 2,
+    // 5, 10 ... kW/m), j_step asks for its own step; at the thresholds both share the fractions are equal, and asking for
+    // the curve leaves the period table unchanged.
+    [Fact]
+    public async Task PowerCurveDefaultsToAtMostAHundredThresholdsAndJStepAsksForAnother()
+    {
+        static (double Step, double[] Thresholds, double[] Fractions) Curve(JsonElement root)
+        {
+            var j = root.GetProperty("exceedance").GetProperty("j");
+            return (j.GetProperty("step").GetDouble(), [.. j.GetProperty("thresholds").EnumerateArray().Select(t => t.GetDouble())],
+                [.. j.GetProperty("fractions").EnumerateArray().Select(t => t.GetDouble())]);
+        }
+        var byDefault = JsonDocument.Parse(await _client.GetStringAsync($"{Point}?{At(5, 5)}&include=exceedance")).RootElement;
+        var fine = JsonDocument.Parse(await _client.GetStringAsync($"{Point}?{At(5, 5)}&include=exceedance&j_step=1")).RootElement;
+        var half = JsonDocument.Parse(await _client.GetStringAsync($"{Point}?{At(5, 5)}&include=exceedance&j_step=0.5")).RootElement;
+        var none = JsonDocument.Parse(await _client.GetStringAsync($"{Point}?{At(5, 5)}&include=none")).RootElement;
+        var (step, thresholds, fractions) = Curve(byDefault);
+        Assert.True(thresholds.Length <= 100, $"{thresholds.Length} thresholds");
+        Assert.Contains(step, new[] { 1.0, 2, 5, 10, 20, 50, 100 });
+        var (fineStep, fineThresholds, fineFractions) = Curve(fine);
+        Assert.Equal(1.0, fineStep);
+        Assert.Equal(0.5, Curve(half).Step);
+        for (var k = 0; k < thresholds.Length; k++)
+        {
+            var at = Array.FindIndex(fineThresholds, t => Math.Abs(t - thresholds[k]) < 1e-9);
+            Assert.Equal(at < 0 ? 0 : fineFractions[at], fractions[k]);
+        }
+        Assert.Equal(none.GetProperty("periods").ToString(), byDefault.GetProperty("periods").ToString());
+    }
+
     [Theory]
+    [InlineData("lat=40.5&lon=20.5&j_step=0", "j_step")]
+    [InlineData("lat=40.5&lon=20.5&j_step=fine", "j_step")]
     [InlineData("lat=abc&lon=20.5", "lat")]
     [InlineData("lat=91&lon=20.5", "lat")]
     [InlineData("lat=40.5&lon=-181", "lon")]

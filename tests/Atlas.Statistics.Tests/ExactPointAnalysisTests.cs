@@ -89,6 +89,64 @@ public class ExactPointAnalysisTests(InventedSeriesReference reference)
             }
     }
 
+    // Parts left out are not computed, and what is computed does not change: J's period summaries and exceedance
+    // fractions alone (ExactParts.None), or everything but the curves, joint table and yearly means, give the very same
+    // numbers as the whole analysis, with and without a window (compared to the bit through their JSON).
+    [Fact]
+    public void PartsLeftOutLeaveTheComputedOnesUnchanged()
+    {
+        var data = new InventedSeries(firstYear: 2010, years: 3, stepHours: 1, seed: 5);
+        var json = new JsonSerializerOptions { NumberHandling = System.Text.Json.Serialization.JsonNumberHandling.AllowNamedFloatingPointLiterals };
+        foreach (AnalysisWindow? window in new[] { null, new AnalysisWindow(2011, 2012, [12, 1, 2, 7]) })
+        {
+            ExactPointStatistics all = ExactPointAnalysis.Analyse(data.Series(), new ExactPointOptions { Window = window });
+            ExactPointStatistics summaries = ExactPointAnalysis.Analyse(data.Series(),
+                new ExactPointOptions { Window = window, Parts = ExactParts.OtherSummaries | ExactParts.Directions });
+            Assert.Equal(JsonSerializer.Serialize(all.Periods, json), JsonSerializer.Serialize(summaries.Periods, json));
+            Assert.Empty(summaries.HsExceedance.Thresholds);
+            Assert.Equal(0, summaries.JointOccurrence.TotalCount);
+            Assert.Empty(summaries.InterAnnual);
+
+            ExactPointStatistics power = ExactPointAnalysis.Analyse(data.Series(), new ExactPointOptions { Window = window, Parts = ExactParts.None });
+            Assert.Equal(all.Periods.Select(p => p.Period), power.Periods.Select(p => p.Period));
+            for (int i = 0; i < all.Periods.Count; i++)
+            {
+                Assert.Equal(JsonSerializer.Serialize(all.Periods[i].J, json), JsonSerializer.Serialize(power.Periods[i].J, json));
+                Assert.Equal(JsonSerializer.Serialize(all.Periods[i].PowerExceedance, json), JsonSerializer.Serialize(power.Periods[i].PowerExceedance, json));
+                Assert.Equal(all.Periods[i].LowCoverage, power.Periods[i].LowCoverage);
+                Assert.Equal(0, power.Periods[i].Hs.Count);
+                Assert.Equal(0, power.Periods[i].Direction.Count);
+            }
+        }
+    }
+
+    // A curve kept to at most N thresholds reads the same exact fractions at its coarser thresholds as the 1 kW/m curve
+    // at the same values: the step is the smallest 1, 2, 5 x 10^k kW/m that needs no more than N thresholds up to the
+    // largest J (common practice for chart axes), and a step that already needs no more is kept.
+    [Fact]
+    public void CoarseningThePowerCurveKeepsItsFractionsExact()
+    {
+        var data = new InventedSeries(firstYear: 2010, years: 2, stepHours: 1, seed: 3);
+        ExactPointStatistics fine = ExactPointAnalysis.Analyse(data.Series());
+        double largest = fine.PowerExceedance.Thresholds[^1];
+        foreach (int most in new[] { 2, 5, 12, 40, 100, 10_000 })
+        {
+            ExactPointStatistics coarse = ExactPointAnalysis.Analyse(data.Series(), new ExactPointOptions { PowerCurveMaxThresholds = most });
+            ExceedanceCurve curve = coarse.PowerExceedance;
+            Assert.True(curve.Thresholds.Count <= most, $"{curve.Thresholds.Count} thresholds for at most {most}");
+            double expected = new[] { 1.0, 2, 5, 10, 20, 50, 100, 200, 500, 1000 }.First(step => Math.Ceiling(largest / step) + 1 <= most || step >= 1000);
+            Assert.Equal(expected, curve.Step);
+            Assert.Equal(fine.PowerExceedance.Count, curve.Count);
+            for (int k = 0; k < curve.Thresholds.Count; k++)
+            {
+                int atFine = (int)Math.Round(curve.Thresholds[k]);
+                if (atFine < fine.PowerExceedance.Thresholds.Count) Assert.Equal(fine.PowerExceedance.Fractions[atFine], curve.Fractions[k]);
+                else Assert.Equal(0, curve.Fractions[k]);
+            }
+        }
+        Assert.Throws<ArgumentException>(() => ExactPointAnalysis.Analyse(data.Series(), new ExactPointOptions { PowerCurveMaxThresholds = 1 }));
+    }
+
     // A calendar kept from an earlier analysis is used only for the timeline it was built for: with another
     // timeline the analysis builds the right one and gives what it gives without a kept calendar.
     [Fact]

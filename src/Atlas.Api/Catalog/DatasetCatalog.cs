@@ -11,7 +11,6 @@ public sealed class DatasetCatalog(DatasetStore datasets, DatasetGeometryQueries
     private static readonly TimeSpan RowLifetime = TimeSpan.FromSeconds(5);
     private static readonly TimeSpan TimelineLifetime = TimeSpan.FromSeconds(30);
     private static readonly TimeSpan StampLifetime = TimeSpan.FromSeconds(2);
-    private static readonly TimeSpan SpacingLifetime = TimeSpan.FromMinutes(10);
     private static readonly TimeSpan LargeValueIdleLifetime = TimeSpan.FromMinutes(10);
     private readonly Lock _gate = new();
 
@@ -98,13 +97,25 @@ public sealed class DatasetCatalog(DatasetStore datasets, DatasetGeometryQueries
                 : null);
     }
 
-    /// <summary>The median distance between neighbouring wet cells, metres (null with fewer than two wet cells).</summary>
-    public Task<double?> TypicalSpacingMetresAsync(DatasetRecord dataset, CancellationToken cancel) =>
-        CachedAsync(("spacing", dataset.Id, dataset.CreatedAtUtc), SpacingLifetime, () => geometry.TypicalSpacingMetresAsync(dataset.Id, CancellationToken.None), cancel);
+    /// <summary>
+    /// The median distance between neighbouring wet cells, metres (null with fewer than two wet cells). Kept until the
+    /// dataset's files are loaded again (only a load changes the cells): on a large grid it takes a tenth of a second or
+    /// more, which a point request should not pay every few minutes.
+    /// </summary>
+    public async Task<double?> TypicalSpacingMetresAsync(DatasetRecord dataset, CancellationToken cancel)
+    {
+        var stamp = await SeriesStampAsync(dataset, cancel);
+        return await SharedAsync(("spacing", dataset.Id, dataset.CreatedAtUtc, stamp.Token),
+            () => geometry.TypicalSpacingMetresAsync(dataset.Id, CancellationToken.None)).WaitAsync(cancel);
+    }
 
-    /// <summary>The envelope of the grid (wet and dry cell centres), or null when the dataset has no cell.</summary>
-    public Task<(double West, double South, double East, double North)?> ExtentAsync(DatasetRecord dataset, CancellationToken cancel) =>
-        CachedAsync(("extent", dataset.Id, dataset.CreatedAtUtc), TimelineLifetime, () => geometry.GridExtentAsync(dataset.Id, CancellationToken.None), cancel);
+    /// <summary>The envelope of the grid (wet and dry cell centres), or null when the dataset has no cell; kept until its files are loaded again.</summary>
+    public async Task<(double West, double South, double East, double North)?> ExtentAsync(DatasetRecord dataset, CancellationToken cancel)
+    {
+        var stamp = await SeriesStampAsync(dataset, cancel);
+        return await SharedAsync(("extent", dataset.Id, dataset.CreatedAtUtc, stamp.Token),
+            () => geometry.GridExtentAsync(dataset.Id, CancellationToken.None)).WaitAsync(cancel);
+    }
 
     /// <summary>Forgets a deleted dataset's row and the catalogue's stamp, so that lists and output points drop it at once.</summary>
     public void Forget(string slug)

@@ -29,11 +29,16 @@ public sealed class PointLocator(DatasetCatalog catalog, CellStore cells, IOptio
     {
         var dataset = await catalog.FindAsync(slug, cancel);
         if (dataset is null) return (null, ApiProblems.UnknownDataset(slug));
-        var limitKm = await LimitKilometresAsync(dataset, cancel);
-        if (await catalog.ExtentAsync(dataset, cancel) is not { } extent) return (null, Problem(WetCellReach.NoWetCellsYet(slug)));
+        // The spacing, the extent and the in-memory index of a dataset not yet in memory (the first request after a start,
+        // or after a load) are loaded side by side rather than one after the other.
+        var limitLoad = LimitKilometresAsync(dataset, cancel);
+        var extentLoad = catalog.ExtentAsync(dataset, cancel);
+        var indexLoad = catalog.WetCellsAsync(dataset, cancel);
+        var limitKm = await limitLoad;
+        if (await extentLoad is not { } extent) return (null, Problem(WetCellReach.NoWetCellsYet(slug)));
         // Allow positions just outside the envelope of the grid's cell centres, as far as the distance limit reaches.
         if (WetCellReach.OutsideExtent(slug, latitude, longitude, extent, limitKm) is { } outside) return (null, Problem(outside));
-        var nearest = await catalog.WetCellsAsync(dataset, cancel) is { } index
+        var nearest = await indexLoad is { } index
             ? index.Nearest(latitude, longitude)
             : await cells.NearestWetAsync(dataset.Id, latitude, longitude, cancel);
         if (nearest is null) return (null, Problem(WetCellReach.NoWetCells(slug)));
