@@ -32,6 +32,18 @@ public sealed class ProvenanceBuilder(DatasetStore datasets, DatasetCatalog cata
             return await datasets.SourceFilesAsync(dataset.Id, cancel);
         });
         var stamp = await catalog.StatisticsStampAsync(dataset, cancel);
+        // Everything but the time it is generated follows from the dataset row, its files and its statistics: made once per
+        // state of those (the metadata text itself is part of the key), then stamped afresh.
+        var made = cache.GetOrCreate(("provenance", dataset.Id, dataset.CreatedAtUtc, loaded.Token, stamp.Token, dataset.Title, dataset.MetadataJson), entry =>
+        {
+            entry.SlidingExpiration = TimeSpan.FromMinutes(10);
+            return Make(dataset, files!, stamp);
+        })!;
+        return made with { GeneratedAtUtc = DateTime.UtcNow };
+    }
+
+    private static Provenance Make(DatasetRecord dataset, IReadOnlyList<SourceFileRecord> files, StatisticsStamp stamp)
+    {
         using var metadata = JsonDocument.Parse(dataset.MetadataJson);
         var root = metadata.RootElement;
         var method = Method;
@@ -44,7 +56,7 @@ public sealed class ProvenanceBuilder(DatasetStore datasets, DatasetCatalog cata
             foreach (var name in RecordedNotes)
                 if (Text(notes, name) is { } note) method += $" {name.Replace('_', ' ')}: {note}.";
         return new Provenance(dataset.Slug, dataset.Title,
-            files!.Select(f => new ProvenanceFile(f.FileName, f.Sha256, f.TimeStartUtc, f.TimeEndUtc)).ToArray(),
+            files.Select(f => new ProvenanceFile(f.FileName, f.Sha256, f.TimeStartUtc, f.TimeEndUtc)).ToArray(),
             Software, SoftwareVersion, stamp.ComputedAtUtc, DateTime.UtcNow, method,
             Text(root, "licence"), Text(root, "citation"), AtlasCaution.Text, VariableAssumption.ListFrom(root), Warnings(root));
     }
