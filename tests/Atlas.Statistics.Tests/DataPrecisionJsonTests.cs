@@ -24,6 +24,25 @@ public class DataPrecisionJsonTests
         Assert.Equal(3.781118, back.Mean);
     }
 
+    // The converter writes the seven digits it formats without reading them back; the text is the one the JSON writer
+    // gives the rounded value (its shortest round-trip form), over values from 1e-12 to 1e12, negative, zero and -0.
+    [Fact]
+    public void WrittenDigitsAreThoseOfTheRoundedValue()
+    {
+        var random = new Random(7);
+        var values = new List<double> { 0, -0.0, 1, -1, 0.1, 1e-5, 9.9999995e-5, 1234567, 12345675, 9999999.5, 1e7, 1e15, 1e16, float.MaxValue, float.Epsilon };
+        for (int k = 0; k < 20_000; k++) values.Add((random.NextDouble() - 0.3) * Math.Pow(10, random.Next(-12, 13)));
+        var converter = new DataPrecisionJsonConverter();
+        foreach (double v in values)
+        {
+            using var written = new MemoryStream();
+            using (var writer = new Utf8JsonWriter(written)) converter.Write(writer, v, JsonSerializerOptions.Default);
+            using var expected = new MemoryStream();
+            using (var writer = new Utf8JsonWriter(expected)) writer.WriteNumberValue(DataPrecisionJsonConverter.Round(v));
+            Assert.Equal(System.Text.Encoding.UTF8.GetString(expected.ToArray()), System.Text.Encoding.UTF8.GetString(written.ToArray()));
+        }
+    }
+
     [Fact]
     public void ExceedanceThresholdsReadAsTheirDecimalSteps()
     {

@@ -101,7 +101,8 @@ public static class PointStatisticsApi
         headers.CacheControl = "public, no-cache";
         headers.Vary = "Accept-Encoding";
         if (http.Request.Headers.IfNoneMatch.Contains(response.ETag)) return TypedResults.StatusCode(StatusCodes.Status304NotModified);
-        if (response.Gzipped is { } gzipped && AcceptsGzip(http.Request))
+        // Asked first: the compressed form is made only for a client that takes it.
+        if (AcceptsGzip(http.Request) && response.Gzipped is { } gzipped)
         {
             headers.ContentEncoding = "gzip";
             return TypedResults.File(gzipped, response.ContentType, response.FileName);

@@ -30,7 +30,21 @@ public sealed class DataPrecisionJsonConverter : JsonConverter<double>
     /// <inheritdoc/>
     public override void Write(Utf8JsonWriter writer, double value, JsonSerializerOptions options)
     {
-        if (double.IsFinite(value)) writer.WriteNumberValue(Round(value));
-        else writer.WriteNullValue();
+        if (!double.IsFinite(value)) writer.WriteNullValue();
+        else if (TryFormatPlain(value, stackalloc byte[32], out var digits)) writer.WriteRawValue(digits, skipInputValidation: true);
+        else writer.WriteNumberValue(Round(value));
+    }
+
+    /// <summary>
+    /// The value's seven significant digits in plain notation, as <see cref="Utf8JsonWriter.WriteNumberValue(double)"/>
+    /// writes <see cref="Round"/> of it (the shortest digits that read back are those seven, trailing zeros dropped), without
+    /// the text round trip; false when they need an exponent, whose notation differs between the two formats.
+    /// </summary>
+    private static bool TryFormatPlain(double value, Span<byte> buffer, out ReadOnlySpan<byte> digits)
+    {
+        digits = default;
+        if (!value.TryFormat(buffer, out int written, "G7", CultureInfo.InvariantCulture) || buffer[..written].IndexOfAny((byte)'E', (byte)'e') >= 0) return false;
+        digits = buffer[..written];
+        return true;
     }
 }
