@@ -45,6 +45,37 @@ public class SeriesCodecTests
         }
     }
 
+    // Every one of the 65,536 codes of every variable, at lengths that leave a tail after the whole vectors, decodes
+    // to the bits of the plain formula: the code times the variable's float step in double, rounded to float; NaN for
+    // the missing code.
+    [Fact]
+    public void EveryCodeDecodesToTheBitsOfThePlainFormula()
+    {
+        WaveParameter[] variables = [WaveParameter.Hs, WaveParameter.Te, WaveParameter.Tp, WaveParameter.Dir, WaveParameter.Spread];
+        foreach (int steps in new[] { 65_536, 65_536 - 5, 17, 3 })
+        {
+            var payload = SeriesCodec.CreateEmpty(steps, variables.Aggregate(0, (m, v) => m | SeriesCodec.BitOf(v)));
+            for (int v = 0; v < variables.Length; v++)
+            {
+                var offset = SeriesCodec.OffsetOf(payload[1], steps, variables[v]);
+                for (int i = 0; i < steps; i++)
+                    System.Buffers.Binary.BinaryPrimitives.WriteUInt16LittleEndian(payload.AsSpan(offset + 2 * i), (ushort)((i * 7919 + v) & 0xFFFF));
+            }
+            var decoded = new float[steps];
+            for (int v = 0; v < variables.Length; v++)
+            {
+                Assert.True(SeriesCodec.Decode(payload, variables[v], decoded));
+                float step = (float)SeriesCodec.StepOf(variables[v]);
+                for (int i = 0; i < steps; i++)
+                {
+                    var q = (ushort)((i * 7919 + v) & 0xFFFF);
+                    float expected = q == SeriesCodec.Missing ? float.NaN : (float)(q * (double)step);
+                    Assert.Equal(BitConverter.SingleToInt32Bits(expected), BitConverter.SingleToInt32Bits(decoded[i]));
+                }
+            }
+        }
+    }
+
     [Fact]
     public void AbsentVariablesDecodeAsMissingAndTakeNoSpace()
     {

@@ -11,6 +11,10 @@ public sealed class CellSeriesBuffer
 {
     private readonly float[][] _values;
     private readonly bool[] _present = new bool[SeriesCodec.VariableCount];
+    // Per variable, the years whose steps a chunk has written; the other years of a present variable are made missing
+    // once the cell is complete (rather than every value made missing first and most of them written again).
+    private readonly HashSet<int>[] _written;
+    private IReadOnlyDictionary<int, (int Offset, int Count)>? _yearOffsets;
     private readonly float[] _power;
     private bool _hasPower;
 
@@ -18,6 +22,7 @@ public sealed class CellSeriesBuffer
     {
         _values = new float[SeriesCodec.VariableCount][];
         for (var v = 0; v < _values.Length; v++) _values[v] = new float[stepCount];
+        _written = [.. Enumerable.Range(0, SeriesCodec.VariableCount).Select(_ => new HashSet<int>())];
         _power = new float[stepCount];
     }
 
@@ -30,7 +35,7 @@ public sealed class CellSeriesBuffer
         CellId = cellId;
         DepthMetres = depthMetres;
         Array.Clear(_present);
-        foreach (var values in _values) values.AsSpan().Fill(float.NaN);
+        foreach (var years in _written) years.Clear();
         _hasPower = false;
     }
 
@@ -56,9 +61,32 @@ public sealed class CellSeriesBuffer
         var steps = SeriesCodec.StepCountOf(payload);
         if (steps != place.Count)
             throw new InvalidDataException($"Cell {CellId}, year {year}: the chunk has {steps} steps but the year's time line has {place.Count}.");
+        _yearOffsets = yearOffsets;
+        // Only the variables the chunk holds are decoded: the others stay as they are until the cell is complete.
         for (var v = 0; v < SeriesCodec.VariableCount; v++)
-            if (SeriesCodec.Decode(payload, WaveParameterGroups.SeriesFields[v], _values[v].AsSpan(place.Offset, steps)))
+            if (SeriesCodec.Has(payload, WaveParameterGroups.SeriesFields[v]))
+            {
+                SeriesCodec.Decode(payload, WaveParameterGroups.SeriesFields[v], _values[v].AsSpan(place.Offset, steps));
                 _present[v] = true;
+                _written[v].Add(year);
+            }
+    }
+
+    /// <summary>
+    /// Makes missing every step of a present variable in the years none of the cell's chunks wrote it (a year without
+    /// a chunk, or whose chunk lacks the variable), so that the series reads NaN there. Hs is always read, so it counts as
+    /// present. Called once the cell's last chunk is added.
+    /// </summary>
+    public void Complete()
+    {
+        var hs = WaveParameterGroups.SeriesIndex(WaveParameter.Hs);
+        for (var v = 0; v < SeriesCodec.VariableCount; v++)
+        {
+            if (!_present[v] && v != hs) continue;
+            if (_yearOffsets is null) { _values[v].AsSpan().Fill(float.NaN); continue; }
+            foreach (var (year, place) in _yearOffsets)
+                if (!_written[v].Contains(year)) _values[v].AsSpan(place.Offset, place.Count).Fill(float.NaN);
+        }
     }
 
     public CellSeries AsSeries(long[] times) => new()

@@ -28,7 +28,7 @@ public sealed class CellSeriesProducer(SeriesStore series, int datasetId, IReadO
             {
                 if (chunk.CellId != current)
                 {
-                    if (buffer is not null) await work.WriteAsync(buffer, cancel);
+                    if (buffer is not null) await HandOnAsync(buffer, work, cancel);
                     buffer = null;
                     current = chunk.CellId;
                     if (wetCells.TryGetValue(current, out var cell))
@@ -41,7 +41,7 @@ public sealed class CellSeriesProducer(SeriesStore series, int datasetId, IReadO
                 if (buffer is not null && SpectralPower?.GetValueOrDefault((chunk.CellId, chunk.Year)) is { } power)
                     buffer.AddPower(chunk.Year, power, timeline.Years);
             }
-            if (buffer is not null) await work.WriteAsync(buffer, cancel);
+            if (buffer is not null) await HandOnAsync(buffer, work, cancel);
             work.Complete();
         }
         catch (Exception e)
@@ -49,5 +49,12 @@ public sealed class CellSeriesProducer(SeriesStore series, int datasetId, IReadO
             work.Complete(e);
             throw;
         }
+    }
+
+    /// <summary>A cell's buffer, its missing years made missing, handed to the calculators.</summary>
+    private static ValueTask HandOnAsync(CellSeriesBuffer buffer, ChannelWriter<CellSeriesBuffer> work, CancellationToken cancel)
+    {
+        buffer.Complete();
+        return work.WriteAsync(buffer, cancel);
     }
 }

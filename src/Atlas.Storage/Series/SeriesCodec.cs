@@ -1,3 +1,5 @@
+using System.Runtime.InteropServices;
+using System.Runtime.Intrinsics;
 using System.Buffers.Binary;
 
 namespace Atlas.Storage.Series;
@@ -158,12 +160,42 @@ public static class SeriesCodec
         for (var v = 0; v < SlotOf(variable); v++) if ((mask & (1 << v)) != 0) index++;
         var source = payload.Slice(HeaderBytes + 2 * steps * index, 2 * steps);
         var step = (float)Steps[SlotOf(variable)];
-        for (var i = 0; i < steps; i++)
+        var done = BitConverter.IsLittleEndian ? DecodeVectors(source, step, destination[..steps]) : 0;
+        for (var i = done; i < steps; i++)
         {
             var q = BinaryPrimitives.ReadUInt16LittleEndian(source.Slice(2 * i));
             destination[i] = q == Missing ? float.NaN : (float)(q * (double)step);
         }
         return true;
+    }
+
+    /// <summary>
+    /// The leading whole vectors of 16 codes decoded as the scalar loop does (each code times the float step, in double,
+    /// rounded to float; NaN for <see cref="Missing"/>): the same operations lane by lane, so the same bits. Returns the
+    /// values decoded; the caller decodes the rest.
+    /// </summary>
+    private static int DecodeVectors(ReadOnlySpan<byte> source, float step, Span<float> destination)
+    {
+        if (!Vector256.IsHardwareAccelerated) return 0;
+        var codes = MemoryMarshal.Cast<byte, ushort>(source);
+        var scale = Vector256.Create((double)step);
+        var missing = Vector256.Create((uint)Missing);
+        var nan = Vector256.Create(float.NaN);
+        int done = 0;
+        for (; done + Vector256<ushort>.Count <= destination.Length; done += Vector256<ushort>.Count)
+        {
+            var (low, high) = Vector256.Widen(Vector256.Create(codes.Slice(done, Vector256<ushort>.Count)));
+            Half(low).CopyTo(destination.Slice(done, Vector256<float>.Count));
+            Half(high).CopyTo(destination.Slice(done + Vector256<float>.Count, Vector256<float>.Count));
+        }
+        return done;
+
+        Vector256<float> Half(Vector256<uint> q)
+        {
+            var (a, b) = Vector256.Widen(q);
+            var values = Vector256.Narrow(Vector256.ConvertToDouble(a) * scale, Vector256.ConvertToDouble(b) * scale);
+            return Vector256.ConditionalSelect(Vector256.Equals(q, missing).AsSingle(), nan, values);
+        }
     }
 
     private static void CheckHeader(ReadOnlySpan<byte> payload)
