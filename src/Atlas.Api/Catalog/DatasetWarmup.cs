@@ -11,11 +11,13 @@ namespace Atlas.Api.Catalog;
 /// they need.
 /// </summary>
 public sealed partial class DatasetWarmup(DatasetStore datasets, DatasetCatalog catalog, PointLocator locator, PointStatisticsService statistics,
-    IOptions<JsonOptions> json, ILogger<DatasetWarmup> logger) : IHostedService, IDisposable
+    IOptions<JsonOptions> json, ILogger<DatasetWarmup> logger) : IHostedService
 {
     /// <summary>The longest the start waits for the warm-up before the server listens anyway.</summary>
     public static readonly TimeSpan WaitAtStart = TimeSpan.FromSeconds(20);
 
+    // Never disposed: it has no timer, and a host may stop its services after the container disposed them (a test host
+    // that failed to start, say), when a disposed source would throw.
     private readonly CancellationTokenSource _stopping = new();
     private Task _warming = Task.CompletedTask;
 
@@ -73,8 +75,6 @@ public sealed partial class DatasetWarmup(DatasetStore datasets, DatasetCatalog 
         JsonSerializer.SerializeToUtf8Bytes(PointStatisticsService.Statistics(analysis, PointStatisticsQuery.Parts.ToHashSet()), json.Value.SerializerOptions);
         return true;
     }
-
-    public void Dispose() => _stopping.Dispose();
 
     [LoggerMessage(EventId = 11, Level = LogLevel.Information, Message = "Cell tables and time lines of {Count} dataset(s) loaded into memory")]
     private static partial void DatasetsWarmed(ILogger logger, int count);

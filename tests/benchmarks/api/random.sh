@@ -40,8 +40,15 @@ socket_errors() { awk '/Socket errors:/ {gsub(",", ""); s = $4 + $6 + $8 + $10} 
 wrk -t"$threads" -c"$connections" -d3s "$base/healthz" >/dev/null
 wrk -t"$threads" -c"$connections" -d3s -s "$here/random_window.lua" "$base" -- "${args[@]}" "$((seed + 1000))" >/dev/null
 
+# The server's CPU time over each load (user + system, from /proc): on a shared machine the CPU per answer is the
+# steadier figure beside the rates, which the other work on the machine moves.
+cpu_ticks() { awk '{print $14 + $15}' "/proc/$server/stat"; }
+c0=$(cpu_ticks)
 ceiling=$(wrk -t"$threads" -c"$connections" -d"$duration" --latency "$base/healthz")
+c1=$(cpu_ticks)
 load=$(wrk -t"$threads" -c"$connections" -d"$duration" --latency -s "$here/random_window.lua" "$base" -- "${args[@]}" "$seed")
+c2=$(cpu_ticks)
+tick=$(getconf CLK_TCK)
 
 ceiling_rps=$(awk '/^Requests\/sec:/ {print $2}' <<<"$ceiling")
 ceiling_p99=$(p99_ms <<<"$ceiling")
@@ -62,6 +69,13 @@ printf '%-44s %12.1f %10.2f %14.4f\n' "point, random position and window (all)" 
 two_xx_rps=$(awk -v r="$load_rps" -v k="$ok" -v n="$total" 'BEGIN {print r * k / n}')
 printf '%-44s %12.1f %10s %14.4f\n' "point, 2xx answers only" "$two_xx_rps" "-" \
   "$(awk -v a="$two_xx_rps" -v b="$ceiling_rps" 'BEGIN {print a / b}')"
+ceiling_requests=$(awk '/requests in/ {print $1}' <<<"$ceiling")
+load_requests=$(awk '/requests in/ {print $1}' <<<"$load")
+printf 'server CPU per request: healthz %.3f ms, point %.3f ms (ratio %.1f); load average %s\n' \
+  "$(awk -v t=$((c1 - c0)) -v k="$tick" -v n="$ceiling_requests" 'BEGIN {print 1000 * t / k / n}')" \
+  "$(awk -v t=$((c2 - c1)) -v k="$tick" -v n="$load_requests" 'BEGIN {print 1000 * t / k / n}')" \
+  "$(awk -v a=$((c2 - c1)) -v b=$((c1 - c0)) -v m="$load_requests" -v n="$ceiling_requests" 'BEGIN {print (a / m) / (b / n)}')" \
+  "$(cut -d' ' -f1-3 /proc/loadavg)"
 printf 'p99 ratio point/healthz = %.1f\n' "$(awk -v a="$load_p99" -v b="$ceiling_p99" 'BEGIN {print a / b}')"
 printf 'answers: %d 2xx, %d refused as too far from a wet cell (422, %.1f %%), %d other non-2xx, %d socket errors; healthz errors %d\n' \
   "$ok" "$refused" "$(awk -v k="$refused" -v n="$total" 'BEGIN {print 100 * k / n}')" "$other" "$load_socket" "$ceiling_errors"
