@@ -7,7 +7,7 @@ public static class PointSeriesApi
 {
     public static RouteHandlerBuilder MapPointSeries(this RouteGroupBuilder group) =>
         group.MapGet("/point/series", SeriesAsync)
-            .ProducesFile("text/csv", "application/json")
+            .ProducesFile("text/csv", "application/json", CsvwMetadataWriter.MediaType)
             .ProducesProblems(StatusCodes.Status404NotFound, StatusCodes.Status422UnprocessableEntity)
             .RequireExpensiveLimit();
 
@@ -15,17 +15,18 @@ public static class PointSeriesApi
     [EndpointSummary("The time series (time, hs, te, tp, dir, spread, j) of the wet cell nearest a position")]
     [EndpointDescription(
         "lat, lon: degrees. from, to: calendar years, inclusive (default: the whole record when it is within the per-request " +
-        "limit of AtlasApiOptions:SeriesMaxYearsPerRequest years). format: csv (default; '#' header lines with provenance, units " +
-        "and the caution) or json. Missing steps are empty (csv) or null (json). j is computed per step at the cell depth.")]
+        "limit of AtlasApiOptions:SeriesMaxYearsPerRequest years). format: csv (default; plain RFC 4180, one header row, no comment " +
+        "lines; its units, provenance and the caution are in its W3C CSV on the Web metadata, format=csvw with the same query, " +
+        "application/csvm+json, named by the CSV answer's Link header with rel=describedby), json, or csvw. Missing steps are empty (csv) or null (json). j is computed per step at the cell depth.")]
     public static async Task<Results<PushStreamHttpResult, ProblemHttpResult, ValidationProblem>> SeriesAsync(
         string slug, [AsParameters] PointPosition at, [AsParameters] PointSeriesQuery query,
         PointLocator locator, DatasetCatalog catalog, SeriesStore series, ProvenanceBuilder provenance,
-        IOptions<AtlasApiOptions> options, StatisticsOptions statistics, CancellationToken cancel)
+        IOptions<AtlasApiOptions> options, StatisticsOptions statistics, HttpContext http, CancellationToken cancel)
     {
         var errors = new QueryErrors();
         var position = at.Position(errors);
         var window = at.Window(errors);
-        var csv = query.Csv(errors);
+        var form = query.Form(errors);
         if (errors.Count > 0 || position is null || window is null)
             return TypedResults.ValidationProblem(errors, title: "The series request has invalid query values");
 
@@ -49,41 +50,61 @@ public static class PointSeriesApi
         var decoded = PointSeriesReader.Decode(chunks, timelines, depth);
         var source = await provenance.ForAsync(point.Dataset, cancel);
         var cell = point.Cell;
-        var fileName = $"{slug}_series_{cell.Id}_{first}-{last}.{(csv ? "csv" : "json")}";
+        var fileName = $"{slug}_series_{cell.Id}_{first}-{last}";
+        if (form == TableFormat.CsvMetadata)
+        {
+            var table = CsvTableOf(cell, source, first, last, decoded.Derived(statistics.AssumedSpectrum).TeFromTp, statistics.AssumedSpectrum);
+            var metadata = CsvwMetadataWriter.Write(table, CsvMetadataLinks.FormatForm(http.Request, "csv"));
+            return TypedResults.Stream(stream => stream.WriteAsync(metadata, cancel).AsTask(), CsvwMetadataWriter.MediaType, fileName + ".csv-metadata.json");
+        }
+        var csv = form == TableFormat.Csv;
+        if (csv) CsvMetadataLinks.Describe(http.Response, CsvMetadataLinks.FormatForm(http.Request, CsvMetadataLinks.FormatValue));
         return TypedResults.Stream(
             stream => csv ? WriteCsvAsync(stream, decoded, statistics.AssumedSpectrum, cell, source, first, last, cancel)
                           : WriteJsonAsync(stream, decoded, statistics.AssumedSpectrum, cell, source, first, last, cancel),
-            csv ? "text/csv; charset=utf-8" : "application/json", fileName);
+            csv ? CsvTable.ContentType : "application/json", fileName + (csv ? ".csv" : ".json"));
     }
 
     private const string Units = "time UTC (ISO 8601); hs m; te s; tp s; dir degree (true, direction waves come from); spread degree; j kW/m";
+
+    /// <summary>The description of the series CSV, from which its header and its CSVW metadata are written.</summary>
+    private static CsvTable CsvTableOf(PointCell cell, Provenance source, int first, int last, bool teFromTp, SpectrumShape spectrum)
+    {
+        var depth = cell.DepthM is { } d ? F(d) + " m" : "unknown (deep water assumed)";
+        List<string> notes = [$"Units: {Units}.", "Missing steps are empty fields; j is computed per step at the cell depth."];
+        if (teFromTp) notes.Add($"te is derived from tp for the {MethodNotes.AssumedSpectrum(spectrum)}: the dataset has no energy period.");
+        return new CsvTable(
+            string.Create(CultureInfo.InvariantCulture, $"Time series of cell {cell.Id} of dataset {source.Dataset}, {first} to {last}"),
+            string.Create(CultureInfo.InvariantCulture,
+                $"One row per stored time step of cell {cell.Id} (lat {F(cell.Lat)}, lon {F(cell.Lon)}, depth {depth}), {cell.DistanceM:0.#} m from the requested position; years {first} to {last}."),
+            [
+                CsvColumn.Time("time", "time of the step"),
+                CsvColumn.Double("hs", "significant wave height Hm0", "m"),
+                CsvColumn.Double("te", "energy period Tm-1,0", "s", teFromTp ? $"derived from tp ({MethodNotes.AssumedSpectrum(spectrum)})" : null),
+                CsvColumn.Double("tp", "peak period", "s"),
+                CsvColumn.Double("dir", "mean direction waves come from", "degree true"),
+                CsvColumn.Double("spread", "directional spread", "degree"),
+                CsvColumn.Double("j", "omnidirectional wave power", "kW/m", "computed per step at the cell depth"),
+            ],
+            source, notes);
+    }
 
     private static async Task WriteCsvAsync(Stream stream, PointSeries s, SpectrumShape spectrum, PointCell cell, Provenance source, int first, int last,
         CancellationToken cancel)
     {
         var (te, power, teFromTp) = s.Derived(spectrum);
-        await using var writer = new StreamWriter(stream, new UTF8Encoding(false), 64 * 1024);
-        await writer.WriteAsync($"# series of cell {cell.Id} at lat {F(cell.Lat)} lon {F(cell.Lon)}, depth_m {(cell.DepthM is { } d ? F(d) : "unknown (deep water assumed)")}, " +
-                                $"{cell.DistanceM:0.#} m from the requested position; years {first}..{last}\n");
-        await writer.WriteAsync($"# units: {Units}\n");
-        if (teFromTp) await writer.WriteAsync($"# te: derived from tp for the {MethodNotes.AssumedSpectrum(spectrum)}, the dataset has no energy period\n");
-        foreach (var line in source.HeaderLines()) await writer.WriteAsync(line + "\n");
-        await writer.WriteAsync("time,hs,te,tp,dir,spread,j\n");
-        var line8 = new StringBuilder(96);
+        await using var rows = CsvTableWriter.Open(stream, CsvTableOf(cell, source, first, last, teFromTp, spectrum));
         for (var i = 0; i < s.Times.Length; i++)
         {
-            line8.Clear();
-            line8.Append(DateTimeOffset.FromUnixTimeSeconds(s.Times[i]).UtcDateTime.ToString("yyyy-MM-dd'T'HH:mm:ss'Z'", CultureInfo.InvariantCulture));
-            Append(line8, s.Hs[i], "0.###");
-            Append(line8, te[i], "0.###");
-            Append(line8, s.HasTp ? s.Tp[i] : float.NaN, "0.##");
-            Append(line8, s.HasDir ? s.Dir[i] : float.NaN, "0.##");
-            Append(line8, s.HasSpread ? s.Spread[i] : float.NaN, "0.##");
-            Append(line8, power[i], "0.###");
-            line8.Append('\n');
-            await writer.WriteAsync(line8, cancel);
+            rows.Time(DateTimeOffset.FromUnixTimeSeconds(s.Times[i]).UtcDateTime)
+                .Number(s.Hs[i], "0.###")
+                .Number(te[i], "0.###")
+                .Number(s.HasTp ? s.Tp[i] : float.NaN, "0.##")
+                .Number(s.HasDir ? s.Dir[i] : float.NaN, "0.##")
+                .Number(s.HasSpread ? s.Spread[i] : float.NaN, "0.##")
+                .Number(power[i], "0.###");
+            await rows.EndRowAsync(cancel);
         }
-        await writer.FlushAsync(cancel);
     }
 
     private static async Task WriteJsonAsync(Stream stream, PointSeries s, SpectrumShape spectrum, PointCell cell, Provenance source, int first, int last,
@@ -127,12 +148,6 @@ public static class PointSeriesApi
         json.Flush();
         await stream.WriteAsync(buffer.WrittenMemory, cancel);
         buffer.ResetWrittenCount();
-    }
-
-    private static void Append(StringBuilder line, float value, string pattern)
-    {
-        line.Append(',');
-        if (!float.IsNaN(value)) line.Append(value.ToString(pattern, CultureInfo.InvariantCulture));
     }
 
     private static void Write(Utf8JsonWriter json, string name, float value, int digits)

@@ -19,7 +19,7 @@ public static class LayerFormats
     public static string ContentType(this LayerFormat format) => format switch
     {
         LayerFormat.Tif => "image/tiff; application=geotiff; profile=cloud-optimized",
-        LayerFormat.Csv => "text/csv; charset=utf-8",
+        LayerFormat.Csv => CsvTable.ContentType,
         LayerFormat.GeoJson => "application/geo+json",
         LayerFormat.Nc => "application/x-netcdf",
         _ => "image/png",

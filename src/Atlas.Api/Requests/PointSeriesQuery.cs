@@ -5,6 +5,6 @@ namespace Atlas.Api.Requests;
 /// <summary>The query of <c>GET /point/series</c> besides the position: the format (csv by default).</summary>
 public sealed record PointSeriesQuery([property: FromQuery(Name = "format")] string? Format)
 {
-    /// <summary>True for CSV (the default), false for JSON.</summary>
-    public bool Csv(QueryErrors errors) => errors.Choice("format", Format, "series format", "csv", "json") is null or "csv";
+    /// <summary>CSV (the default), JSON, or the CSV's CSVW metadata.</summary>
+    public TableFormat Form(QueryErrors errors) => TableFormats.Read(errors, Format, "series format", TableFormat.Csv);
 }
