@@ -31,6 +31,7 @@ public static partial class AtlasApiRegistration
         services.AddSingleton<ProvenanceBuilder>();
         services.AddSingleton<LayerRenderer>();
         services.AddSingleton<CellFootprints>();
+        services.AddSingleton<LandMask>();
         services.AddSingleton<PointLocator>();
         services.AddSingleton<IStationCellFinder, CatalogStationCells>();
         services.AddSingleton<ValidationService>();

@@ -13,6 +13,7 @@ const formats = [
   ['geojson', 'GeoJSON'],
   ['nc', 'NetCDF'],
   ['png', 'PNG figure'],
+  ['svg', 'SVG figure'],
 ];
 
 const parameterOrder = ['j', 'hs', 'te', 'tp', 'dir', 'spread', 'd', 'depth'];

@@ -1,4 +1,3 @@
-using NetTopologySuite.Operation.Union;
 
 namespace Atlas.Api.Apis;
 
@@ -25,38 +24,20 @@ public static class LandMaskApi
         "it is its Voronoi region among all cells, clipped to one typical spacing. dry_cell_count says how many cells it holds; " +
         "a dataset with no dry cell (a mesh of wet nodes only) gives an empty collection.")]
     public static async Task<Results<FileContentHttpResult, ProblemHttpResult>> LandAsync(
-        string slug, HttpContext http, DatasetCatalog catalog, CellStore cells, IMemoryCache cache, CancellationToken cancel)
+        string slug, HttpContext http, DatasetCatalog catalog, LandMask mask, CancellationToken cancel)
     {
         var dataset = await catalog.FindAsync(slug, cancel);
         if (dataset is null) return ApiProblems.UnknownDataset(slug);
-        var body = await cache.GetOrCreateAsync(("land", dataset.Id, dataset.CreatedAtUtc), async entry =>
-        {
-            entry.AbsoluteExpirationRelativeToNow = TimeSpan.FromMinutes(30);
-            var all = await cells.AllAsync(dataset.Id, cancel);
-            var dry = all.Where(c => !c.Wet).ToArray();
-            IEnumerable<Polygon> footprints;
-            if (dry.Length == 0) footprints = [];
-            else if (dataset.GridKind == "regular" && GridAxes.From(dataset.GridJson) is { } axes)
-                footprints = CellFootprints.OnRegularGrid(axes, dry).Values.Select(f => f.Polygon);
-            else
-            {
-                var spacing = await catalog.TypicalSpacingMetresAsync(dataset, cancel) ?? 1000;
-                var dryIds = dry.Select(c => c.CellId).ToHashSet();
-                footprints = CellFootprints.Voronoi(all, spacing).Values.Where(f => dryIds.Contains(f.CellId)).Select(f => f.Polygon);
-            }
-            var polygons = footprints.ToArray();
-            var land = polygons.Length == 0 ? null : UnaryUnionOp.Union(polygons);
-            return Write(land, dry.Length);
-        });
+        var (land, dryCells) = await mask.ForAsync(dataset, cancel);
+        var body = Write(land, dryCells);
         http.Response.Headers.CacheControl = "public, max-age=3600";
         return TypedResults.File(body!, "application/geo+json");
     }
 
     /// <summary>One MultiPolygon feature of the land's polygons (none when there is no land), with the count of dry cells.</summary>
-    private static byte[] Write(Geometry? land, int dryCells)
+    private static byte[] Write(IReadOnlyList<Polygon> parts, int dryCells)
     {
-        var parts = Enumerable.Range(0, land?.NumGeometries ?? 0).Select(k => land!.GetGeometryN(k)).OfType<Polygon>().ToArray();
-        IFeature[] features = parts.Length == 0 ? [] : [new Feature(GeoJsonWriter.MultiPolygon(parts), new AttributesTable { { "kind", "land (dry cells)" } })];
+        IFeature[] features = parts.Count == 0 ? [] : [new Feature(GeoJsonWriter.MultiPolygon([.. parts]), new AttributesTable { { "kind", "land (dry cells)" } })];
         return GeoJsonWriter.FeatureCollection(json => json.WriteNumber("dry_cell_count", dryCells), features);
     }
 }

@@ -67,11 +67,13 @@ public static class LayerApi
         "units, provenance, method notes and the caution are in its W3C CSV on the Web metadata at the same path with -metadata.json added " +
         "(.../annual.csv-metadata.json, media type application/csvm+json), named by the answer's Link header with rel=describedby), " +
         "geojson (points, or cell footprints with ?geometry=polygon; provenance as a top-level member), nc (CF-1.8 NetCDF-4), " +
-        "png (a captioned map figure). Mesh and curvilinear datasets are drawn on a raster by linear interpolation in triangles. " +
+        "png and svg (a consent figure: the map in the house colour scale with the land mask, graticule, north arrow, scale bar, " +
+        "colour bar and a short caption; the full provenance is in the file's metadata, PNG iTXt chunks or SVG <metadata>, and in " +
+        "the sidecar .figure.json beside it, e.g. .../annual.figure.json). Mesh and curvilinear datasets are drawn on a raster by linear interpolation in triangles. " +
         "Responses carry an ETag and Cache-Control; send If-None-Match to revalidate. GeoTIFF downloads answer Range requests.")]
     public static async Task<Results<FileContentHttpResult, ProblemHttpResult, ValidationProblem>> DownloadAsync(
         string slug, [AsParameters] LayerDownloadRoute route, HttpContext http, DatasetCatalog catalog, LayerRenderer renderer,
-        IOptions<AtlasApiOptions> options, CancellationToken cancel)
+        IOptions<AtlasApiOptions> options, IOptions<Microsoft.AspNetCore.Http.Json.JsonOptions> json, CancellationToken cancel)
     {
         var dataset = await catalog.FindAsync(slug, cancel);
         if (dataset is null) return ApiProblems.UnknownDataset(slug);
@@ -79,18 +81,20 @@ public static class LayerApi
         var request = route.Read(errors, out var notFound);
         if (notFound is not null) return notFound;
         if (request is null) return TypedResults.ValidationProblem(errors);
-        if (request.CsvMetadata)
+        if (request.Companion != LayerCompanion.None)
         {
             if (await renderer.LoadAsync(dataset, request, cancel) is not { } data) return NoLayer(slug, request);
-            return TypedResults.File(CsvwMetadataWriter.Write(LayerCsvWriter.Table(data), CsvMetadataLinks.PathForm(http.Request, metadata: false)),
-                CsvwMetadataWriter.MediaType, request.FileName);
+            return request.Companion == LayerCompanion.CsvMetadata
+                ? TypedResults.File(CsvwMetadataWriter.Write(LayerCsvWriter.Table(data), CsvMetadataLinks.PathForm(http.Request, metadata: false)),
+                    CsvwMetadataWriter.MediaType, request.FileName)
+                : TypedResults.File(LayerFigureRenderer.ProvenanceOf(data).SidecarJson(json.Value.SerializerOptions), "application/json", request.FileName);
         }
         Storage.Queries.CachedLayer? layer;
         try
         {
             layer = await renderer.RenderAsync(dataset, request, cancel);
         }
-        catch (ArgumentException e) when (request.Format is LayerFormat.Tif or LayerFormat.Nc or LayerFormat.Png)
+        catch (ArgumentException e) when (request.Format is LayerFormat.Tif or LayerFormat.Nc or LayerFormat.Png or LayerFormat.Svg)
         {
             // A mesh whose valued nodes form no complete triangle cannot be drawn on a raster; the cell formats still work.
             return ApiProblems.Unprocessable("The layer cannot be drawn as a raster", $"{e.Message} Download it as .csv or .geojson instead.");

@@ -20,7 +20,7 @@ public sealed record LayerDownloadRoute(
     public LayerRequest? Read(QueryErrors errors, out ProblemHttpResult? notFound)
     {
         var (period, format) = (Period, Format);
-        var metadata = CsvMetadataLinks.AsksForMetadata(ref period, ref format);
+        var companion = LayerCompanions.Read(ref period, ref format);
         notFound = Unknown(period, format);
         if (notFound is not null) return null;
         WaveParameterNames.TryParse(Parameter, out var p);
@@ -30,7 +30,7 @@ public sealed record LayerDownloadRoute(
         if (Geometry is not null && f != LayerFormat.GeoJson) errors.Add("geometry", "geometry applies to .geojson downloads only; remove it.");
         else if (Geometry is not (null or "point" or "polygon"))
             errors.Add("geometry", $"'{Geometry}' is not a geometry: use point (cell centres, the default) or polygon (cell footprints).");
-        return errors.Count > 0 ? null : new LayerRequest(p, s, t, f, Geometry == "polygon", metadata);
+        return errors.Count > 0 ? null : new LayerRequest(p, s, t, f, Geometry == "polygon", companion);
     }
 
     private ProblemHttpResult? Unknown(string period, string format)
@@ -40,7 +40,7 @@ public sealed record LayerDownloadRoute(
         if (!AtlasPeriod.TryParse(period, out _)) return ApiProblems.NotFound("Unknown period", VocabularyMessages.UnknownPeriod(period));
         if (!LayerFormats.TryParse(format, out _))
             return ApiProblems.NotFound("Unknown format",
-                $"'.{format}' is not a layer format: use {string.Join(", ", LayerFormats.Extensions.Select(e => "." + e))} (and .csv-metadata.json for the CSV's metadata).");
+                $"'.{format}' is not a layer format: use {string.Join(", ", LayerFormats.Extensions.Select(e => "." + e))} (and .csv-metadata.json for the CSV's metadata, .figure.json for the figure's provenance).");
         var offered = ParameterCatalogue.StatisticsOf(p);
         if (!offered.Contains(s))
             return ApiProblems.NotFound("No such layer", $"{p.Symbol()} has no '{s.Name()}' layer: its layers are {string.Join(", ", offered.Select(x => x.Name()))}.");
