@@ -20,6 +20,7 @@ public static class ApiHost
         app.MapScreeningApi();
         app.MapAdminApi();
         app.MapAssessmentApis();
+        app.MapReportApi();
         return app;
     }
 }

@@ -21,26 +21,16 @@ public static partial class AtlasApiRegistration
             InitialData = new Dictionary<string, string?> { ["Logging:LogLevel:Microsoft.AspNetCore"] = "Warning" },
         });
         var services = builder.Services;
-        services.AddOptions<AtlasApiOptions>().BindConfiguration(nameof(AtlasApiOptions)).ValidateDataAnnotations().ValidateOnStart();
         services.AddStatisticsOptions();
 
         services.AddAtlasDataSources();
         builder.AddAtlasOperations();
-        services.AddAtlasStores();
-        services.AddSingleton<DatasetCatalog>();
-        services.AddSingleton<ProvenanceBuilder>();
+        services.AddAtlasPointServices();
         services.AddSingleton<LayerRenderer>();
-        services.AddSingleton<CellFootprints>();
-        services.AddSingleton<LandMask>();
-        services.AddSingleton<PointLocator>();
-        services.AddSingleton<IStationCellFinder, CatalogStationCells>();
-        services.AddSingleton<ValidationService>();
         services.AddSingleton<PointResponseCache>();
-        services.AddSingleton<PointCalendars>();
         services.AddSingleton<ApiKeyVerifier>();
         services.AddHostedService<SchemaStartup>();
         services.AddHostedService<DatasetWarmup>();
-        services.AddMemoryCache();
 
         services.ConfigureHttpJsonOptions(json =>
         {

@@ -76,8 +76,17 @@ public sealed record DemoScenario(
             options.Seed,
             [.. months.Select(FieldFileName)],
             [.. DemoStations.Place(grid, options.BuoyIntervalMinutes).Select(p => p.Buoy)],
-            DemoStations.Device);
+            DemoStations.Device)
+        {
+            OutputPointNames = [.. DemoOutputPoints.Place(grid).Select(p => p.Name)],
+        };
     }
+
+    /// <summary>The names of the output points where the demo writes spectra.</summary>
+    public IReadOnlyList<string> OutputPointNames { get; init; } = [];
+
+    /// <summary>The files of spectra at the output points, one per calendar year, in time order.</summary>
+    public IReadOnlyList<string> PointFiles => [.. Years.Select(SpectralPointsFileWriter.FileName)];
 
     /// <summary>Name of the hindcast file of the month starting at <paramref name="month"/>.</summary>
     public static string FieldFileName(DateTime month) =>
@@ -94,5 +103,6 @@ public sealed record DemoScenario(
         foreach (var b in Buoys)
             yield return string.Create(c, $"  buoy {b.Name} ({b.Role.ToString().ToLowerInvariant()}): {b.Latitude:F3} N {-b.Longitude:F3} W, {b.DepthMetres:F0} m, {b.Instrument}, every {b.IntervalMinutes} min -> {b.FileName}");
         yield return string.Create(c, $"  device {Device.Name}: {Device.Kind}, rated {Device.RatedKilowatts:F0} kW -> {Device.FileName}");
+        yield return string.Create(c, $"  spectra at {OutputPointNames.Count} output points ({string.Join(", ", OutputPointNames)}) -> {PointFiles.Count} yearly files");
     }
 }

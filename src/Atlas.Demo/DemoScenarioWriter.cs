@@ -29,7 +29,7 @@ public static class DemoScenarioWriter
         var scenario = DemoScenario.Describe(options, grid);
         var model = new SeaStateModel(grid, new OffshoreForcing(options.Seed, options.Start, options.End));
         RemoveStaleFieldFiles(folder, scenario);
-        int total = scenario.FieldFiles.Count + scenario.Buoys.Count + 3;
+        int total = scenario.FieldFiles.Count + scenario.PointFiles.Count + scenario.Buoys.Count + 3;
         int done = 0;
         var files = new List<DemoFile>();
         void Report(string name)
@@ -39,6 +39,13 @@ public static class DemoScenarioWriter
         }
 
         WriteFields(folder, options, scenario, grid, model, Report);
+        var outputPoints = DemoOutputPoints.Place(grid);
+        foreach (var year in scenario.Years)
+        {
+            var name = SpectralPointsFileWriter.FileName(year);
+            SpectralPointsFileWriter.Write(Path.Combine(folder, name), scenario, model, outputPoints, year);
+            Report(name);
+        }
 
         foreach (var (buoy, cell, stream) in DemoStations.Place(grid, options.BuoyIntervalMinutes))
         {
@@ -111,7 +118,7 @@ public static class DemoScenarioWriter
 
     private static void RemoveStaleFieldFiles(string folder, DemoScenario scenario)
     {
-        var current = new HashSet<string>(scenario.FieldFiles, StringComparer.Ordinal);
+        var current = new HashSet<string>(scenario.FieldFiles.Concat(scenario.PointFiles), StringComparer.Ordinal);
         foreach (string path in Directory.EnumerateFiles(folder, DemoScenario.FieldFileStem + "-*.nc"))
             if (!current.Contains(Path.GetFileName(path)))
                 File.Delete(path);

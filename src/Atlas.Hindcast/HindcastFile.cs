@@ -7,7 +7,7 @@ namespace Atlas.Hindcast;
 /// (metres, seconds, degrees the waves come from) with NaN for missing. Reads are hyperslabs, so files larger
 /// than memory stream through in blocks. Dispose to close the file.
 /// </summary>
-public sealed class HindcastFile : IDisposable
+public sealed class HindcastFile : IStepReader
 {
     /// <summary>Upper bound of the scratch buffer used when a point block does not cover whole grid rows.</summary>
     private const long ScratchValues = 16 << 20;
@@ -387,7 +387,7 @@ public sealed class HindcastFile : IDisposable
             _file.SetChunkCache(variable, 0, 0);
     }
 
-    private static (NetCdfDimension Time, NetCdfVariable Variable) FindTime(NetCdfFile file, NetCdfVariable hs, VariableMapping? mapping)
+    internal static (NetCdfDimension Time, NetCdfVariable Variable) FindTime(NetCdfFile file, NetCdfVariable hs, VariableMapping? mapping)
     {
         if (mapping?.TimeVariable is { } name)
         {
@@ -408,7 +408,7 @@ public sealed class HindcastFile : IDisposable
             $"has no time dimension: none of ({Dims(hs)}) has a coordinate variable with units '<unit> since <date>'");
     }
 
-    private static IReadOnlyList<DateTime> DecodeTimes(NetCdfFile file, NetCdfVariable time)
+    internal static IReadOnlyList<DateTime> DecodeTimes(NetCdfFile file, NetCdfVariable time)
     {
         if (time.Dimensions[0].Length == 0) throw new HindcastFormatException(file.Path, time.Name, "has no time steps");
         try
@@ -441,7 +441,7 @@ public sealed class HindcastFile : IDisposable
     }
 
     /// <summary>Refuses a time axis that does not increase strictly, naming the step index and both times.</summary>
-    private static void CheckIncreasing(NetCdfFile file, NetCdfVariable time, IReadOnlyList<DateTime> times, string note = "")
+    internal static void CheckIncreasing(NetCdfFile file, NetCdfVariable time, IReadOnlyList<DateTime> times, string note = "")
     {
         try
         {

@@ -81,7 +81,36 @@ public sealed class EmbeddedCluster
             "max_wal_size = 4GB",
             "synchronous_commit = off",
             "default_toast_compression = 'lz4'",
+            // PostgreSQL 15's defaults, stated: enough WAL for a streaming standby (CreateStandby; pg_hba.conf of
+            // initdb --auth=trust already lets loopback connect for replication).
+            "wal_level = replica",
+            "max_wal_senders = 10",
             ""));
+    }
+
+    /// <summary>
+    /// Creates a streaming standby of this running cluster in <paramref name="home"/> on <paramref name="port"/>
+    /// (loopback): a base backup taken with <c>pg_basebackup -R</c>, which also writes the standby's connection to
+    /// this cluster, so that once started it replays this cluster's WAL and answers read-only queries. Start it with
+    /// <see cref="EnsureRunningAsync"/>.
+    /// </summary>
+    public EmbeddedCluster CreateStandby(string home, int port)
+    {
+        var standby = new EmbeddedCluster(home, port);
+        if (standby.IsCreated) throw new InvalidOperationException($"A cluster already exists in {standby.DataDirectory}.");
+        Directory.CreateDirectory(home);
+        Directory.CreateDirectory(standby.SocketDirectory);
+        HandToServiceUser(home);
+        RunServerTool("pg_basebackup",
+            $"-h 127.0.0.1 -p {Port} -U {SuperUser} -D \"{standby.DataDirectory}\" -R -X stream -c fast", 600);
+        File.AppendAllText(Path.Combine(standby.DataDirectory, "postgresql.conf"), string.Join('\n',
+            "",
+            "# written by atlas: a streaming standby on a port of its own",
+            $"port = {port}",
+            $"unix_socket_directories = '{standby.SocketDirectory}'",
+            ""));
+        HandToServiceUser(standby.DataDirectory);
+        return standby;
     }
 
     public bool IsRunning()

@@ -2,6 +2,7 @@ using Atlas.Storage.Cells;
 using Atlas.Storage.Datasets;
 using Atlas.Storage.Queries;
 using Atlas.Storage.Series;
+using Atlas.Storage.Spectra;
 using Atlas.Storage.Stations;
 using Atlas.Storage.Statistics;
 using Microsoft.Extensions.DependencyInjection;
@@ -18,7 +19,7 @@ public static class StorageRegistration
     /// <summary>The stores and queries: each takes the data source and keeps no state of its own.</summary>
     public static IReadOnlyList<Type> Stores { get; } =
     [
-        typeof(DatasetStore), typeof(CellStore), typeof(SeriesStore), typeof(StatisticsStore), typeof(StationStore),
+        typeof(DatasetStore), typeof(CellStore), typeof(SeriesStore), typeof(StatisticsStore), typeof(StationStore), typeof(StationSpectraStore),
         typeof(AreaQueries), typeof(ScreeningQueries), typeof(DatasetGeometryQueries),
     ];
 

@@ -37,6 +37,26 @@ public class AssessmentPanelTests(AtlasSite site)
         ShownNumber.Matches(hs.GetProperty("rmse").GetDouble(), (await row.Nth(2).TextContentAsync())!, "Hs RMSE");
         ShownNumber.Matches(hs.GetProperty("scatter_index").GetDouble(), (await row.Nth(3).TextContentAsync())!, "Hs scatter index");
 
+        // Skill by season and by class of the measured Hs, as the validation answer gives it.
+        var hsVariable = skill.GetProperty("variables").EnumerateArray().Single(v => v.GetProperty("variable").GetString() == "hs");
+        // Groups without pairs (the browser's reduced demo covers a few months) are left out of the table.
+        static bool HasPairs(JsonElement g) => g.GetProperty("skill").ValueKind == JsonValueKind.Object && g.GetProperty("skill").GetProperty("n").GetInt32() > 0;
+        foreach (var group in hsVariable.GetProperty("by_season").EnumerateArray().Where(HasPairs))
+        {
+            var cells = page.Locator($"#validation-groups-hs tr[data-group='{group.GetProperty("season").GetString()}'] td");
+            Assert.Equal(group.GetProperty("skill").GetProperty("n").GetInt32().ToString(), await cells.Nth(0).TextContentAsync());
+            ShownNumber.Matches(group.GetProperty("skill").GetProperty("bias").GetDouble(), (await cells.Nth(1).TextContentAsync())!, "seasonal Hs bias");
+        }
+        Assert.Equal(hsVariable.GetProperty("by_hs_class").EnumerateArray().Count(HasPairs),
+            await page.Locator("#validation-groups-hs tr[data-group^='hs-']").CountAsync());
+        // The time series with the buoy over it, the scatter of model against measurement and the QQ plot are drawn.
+        Assert.Equal(1, await page.Locator("figure[data-chart='time-series'] canvas").CountAsync());
+        Assert.Contains("measured Hs", await page.TextContentAsync("figure[data-chart='time-series']"));
+        Assert.Equal(1, await page.Locator("figure[data-chart='validation-scatter'] canvas").CountAsync());
+        Assert.Equal(1, await page.Locator("figure[data-chart='validation-qq'] canvas").CountAsync());
+        ShownNumber.Matches(hs.GetProperty("regression_slope").GetDouble(),
+            System.Text.RegularExpressions.Regex.Match((await page.TextContentAsync("figure[data-chart='validation-scatter']"))!, @"fitted: ([\d.]+) x").Groups[1].Value, "fitted slope");
+
         var device = (await PageMap.GetJsonAsync(site.Http, "/api/v1/devices")).GetProperty("devices")[0].GetProperty("slug").GetString();
         var yield = await PageMap.GetJsonAsync(site.Http, $"/api/v1/datasets/{AtlasSite.Slug}/point/yield?{at}&device={device}");
         ShownNumber.Matches(yield.GetProperty("annual_energy_mwh").GetDouble(), (await page.TextContentAsync("[data-field='annual-energy']"))!, "annual energy");

@@ -1,4 +1,5 @@
 using System.Globalization;
+using System.Text;
 using System.Text.Json;
 using Microsoft.Playwright;
 
@@ -65,6 +66,13 @@ public class PointPanelTests(AtlasSite site)
         var csvText = await csv.Content.ReadAsStringAsync();
         var annualJ = csvText.Split('\n').Single(l => l.StartsWith("annual,j,", StringComparison.Ordinal)).Split(',');
         Assert.Equal(annual.GetProperty("j").GetProperty("mean").GetDouble(), double.Parse(annualJ[2], CultureInfo.InvariantCulture), 9);
+
+        // The report link gives the site report of the same position as a PDF (its contents are read back by the API's tests).
+        Assert.Equal("Report (PDF)", await page.TextContentAsync("a[data-link='site-report']"));
+        var reportHref = (await page.GetAttributeAsync("a[data-link='site-report']", "href"))!;
+        using var report = await site.Http.GetAsync(reportHref);
+        Assert.Equal("application/pdf", report.Content.Headers.ContentType?.MediaType);
+        Assert.StartsWith("%PDF-", Encoding.ASCII.GetString(await report.Content.ReadAsByteArrayAsync(), 0, 5));
 
         Assert.Empty(session.Errors);
         await page.ScreenshotAsync(new PageScreenshotOptions { Path = Path.Combine(site.ScreenshotFolder, "wide-point.png") });

@@ -24,6 +24,7 @@ public class MigrationTests(TestDatabase database) : IClassFixture<TestDatabase>
         foreach (var table in Datasets.DatasetStore.PerCellTables.Where(t => t != "mesh_triangle"))
             Assert.StartsWith("dataset_id,cell_id", await PrimaryKeyAsync(table));
         Assert.Equal("dataset_id,parameter,period,block", await PrimaryKeyAsync(Datasets.DatasetStore.StatisticBlockTable));
+        Assert.Equal("pass_id,dataset_id,parameter,period,block", await PrimaryKeyAsync(Datasets.DatasetStore.StatisticStageTable));
     }
 
     private async Task<string> PrimaryKeyAsync(string table)

@@ -29,17 +29,8 @@ measure() { # name command...
 seconds() { awk -F': ' '/Elapsed \(wall clock\)/ {n=split($2,a,":"); s=0; for(i=1;i<=n;i++) s=s*60+a[i]; print s}' "$work/$1.time"; }
 
 # A database of its own, made afresh, so that sizes and timings belong to this run alone.
-port="${ATLAS_PG_PORT:-54329}"   # the embedded cluster's port, as the atlas command reads it
-if [ -z "${ATLAS_DB:-}" ]; then
-  "$atlas" db start > /dev/null
-  server="host=127.0.0.1 port=$port user=atlas"
-else
-  server=$(sed -e 's/;/ /g' -e 's/Host=/host=/I; s/Port=/port=/I; s/Username=/user=/I; s/Password=/password=/I; s/Database=[^ ]*//I' <<<"$ATLAS_DB")
-fi
-psql "$server dbname=postgres" -qc "DROP DATABASE IF EXISTS atlas_bench WITH (FORCE)" -c "CREATE DATABASE atlas_bench"
-export ATLAS_DB="Host=127.0.0.1;Port=$port;Username=atlas;Database=atlas_bench"
-[ -n "${server##*host=127.0.0.1 port=$port*}" ] && ATLAS_DB="$(sed -e 's/ /;/g' <<<"$server");Database=atlas_bench"
-psql_cmd() { psql "$server dbname=atlas_bench" -Atc "$1"; }
+source "$here/tests/benchmarks/fresh_database.sh"
+fresh_database atlas_bench
 
 {
   echo "# pipeline benchmark $(date -u +%FT%TZ), $(nproc) cores, file $(du -h "$file" | cut -f1) (${nx}x${ny} cells x ${nt} steps)"

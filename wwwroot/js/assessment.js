@@ -3,6 +3,7 @@
 
 import { apiRoot, datasetUrl, getJson, query } from './api.js';
 import { el, fixed, number, percent, months } from './format.js';
+import { quantileChart, scatterChart, timeSeriesChart } from './practice-charts.js';
 
 const monthNames = months.map(m => m[0].toUpperCase() + m.slice(1));
 const cache = new Map();
@@ -39,11 +40,70 @@ function table(caption, headers, rows, attributes = {}) {
     el('tbody', {}, rows.map(r => el('tr', r.attributes ?? {}, r.cells.map((v, i) => i === 0 ? el('th', { scope: 'row' }, v) : el('td', {}, v)))))));
 }
 
-async function validationSection(atlas, point, at) {
+/** The registered station nearest the point's cell ({ s, km }), or null when none is registered. */
+async function nearestStation(point) {
   const stations = (await cachedJson(`${apiRoot}/stations`)).stations ?? [];
   if (!stations.length) return null;
   const cell = point.cell;
-  const nearest = stations.map(s => ({ s, km: distanceKm(cell.lat, cell.lon, s.lat, s.lon) })).sort((a, b) => a.km - b.km)[0];
+  return stations.map(s => ({ s, km: distanceKm(cell.lat, cell.lon, s.lat, s.lon) })).sort((a, b) => a.km - b.km)[0];
+}
+
+const symbols = { hs: 'Hs', tp: 'Tp', te: 'Te' };
+
+/** Skill of one variable by season and by class of the measured Hs, as the validation answer gives it. */
+function groupedSkillTable(variable) {
+  const rows = [...(variable.by_season ?? []), ...(variable.by_hs_class ?? [])].filter(g => g.skill?.n > 0).map(g => ({
+    attributes: { 'data-group': g.season ?? `hs-${g.hs_lower_m}` },
+    cells: [g.season ? g.season.toUpperCase() : (g.hs_upper_m == null ? `Hs ≥ ${number(g.hs_lower_m)} m` : `Hs ${number(g.hs_lower_m)}–${number(g.hs_upper_m)} m`),
+      String(g.skill.n), number(g.skill.bias), number(g.skill.rmse), number(g.skill.scatter_index), number(g.skill.pearson_r)],
+  }));
+  return table(`${symbols[variable.variable] ?? variable.variable} by season and by class of the measured Hs (${variable.unit}).`,
+    ['', 'N', 'bias', 'RMSE', 'scatter index', 'r'], rows, { id: `validation-groups-${variable.variable}` });
+}
+
+/** The nearest buoy's measured Hs at the pairs' times, or null (no station, or the dataset does not cover it). */
+async function buoyRecord(atlas, point) {
+  const nearest = await nearestStation(point);
+  if (!nearest) return null;
+  try {
+    const plot = await cachedJson(`${datasetUrl(atlas.slug)}/validation/${encodeURIComponent(nearest.s.slug)}/pairs` + query({ variable: 'hs' }));
+    return { name: nearest.s.name, km: nearest.km, plot };
+  } catch {
+    return null;
+  }
+}
+
+async function seriesSection(atlas, point, at) {
+  const holder = section('time-series', 'Time series');
+  try {
+    const [answer, buoy] = await Promise.all([getJson(`${datasetUrl(atlas.slug)}/point/series` + query({ ...at, format: 'json' })), buoyRecord(atlas, point)]);
+    const steps = answer.steps ?? [];
+    if (steps.length < 2) {
+      holder.append(el('p', { class: 'muted' }, 'Too few stored steps for a time series.'));
+      return holder;
+    }
+    let overlay = null;
+    if (buoy) {
+      // Each measurement on the nearest model step (within half a step): the chart has one time axis.
+      const x0 = Date.parse(steps[0].time) / 1000, dt = Date.parse(steps[1].time) / 1000 - x0;
+      const times = [], hs = [];
+      for (const p of buoy.plot.pairs) {
+        const t = Date.parse(p.time) / 1000;
+        const k = Math.round((t - x0) / dt);
+        if (k >= 0 && k < steps.length && Math.abs(t - (x0 + k * dt)) <= dt / 2) { times.push(x0 + k * dt); hs.push(p.observed); }
+      }
+      if (times.length) overlay = { name: buoy.name, km: buoy.km, times, hs };
+    }
+    holder.append(timeSeriesChart(steps, overlay));
+  } catch (error) {
+    holder.append(problemBox(error));
+  }
+  return holder;
+}
+
+async function validationSection(atlas, point, at) {
+  const nearest = await nearestStation(point);
+  if (!nearest) return null;
   const url = `${datasetUrl(atlas.slug)}/validation` + query({ station: nearest.s.slug });
   const holder = section('validation', 'Validation at the nearest buoy');
   try {
@@ -69,7 +129,14 @@ async function validationSection(atlas, point, at) {
         })), { id: 'validation-table' }),
       direction?.directional ? el('p', { class: 'muted' },
         `Direction: circular bias ${fixed(direction.directional.circular_bias, 1)}°, circular RMSE ${fixed(direction.directional.circular_rmse, 1)}° over ${direction.directional.n} pairs.`) : null,
+      ...scalar.filter(v => v.variable === 'hs').map(groupedSkillTable),
       el('div', { class: 'links' }, jsonLink(url), jsonLink(url + '&format=csv', 'as CSV')));
+    const hs = scalar.find(v => v.variable === 'hs');
+    const record = hs ? await buoyRecord(atlas, point) : null;
+    if (record && record.plot.pairs.length > 1) {
+      const fit = hs.overall.regression_slope != null ? { slope: hs.overall.regression_slope, intercept: hs.overall.regression_intercept } : null;
+      holder.append(scatterChart(record.plot.pairs, fit, { label: 'Hs', unit: 'm' }), quantileChart(record.plot.quantiles, { label: 'Hs', unit: 'm' }));
+    }
   } catch (error) {
     holder.append(problemBox(error));
   }
@@ -178,6 +245,7 @@ export async function renderAssessments(body, atlas, point, endpoints, stillCurr
   const base = `${apiRoot}/datasets/{slug}`;
   const at = { lat: point.cell.lat.toFixed(5), lon: point.cell.lon.toFixed(5) };
   const planned = [
+    endpoints.has(`${base}/point/series`) ? () => seriesSection(atlas, point, at) : null,
     endpoints.has(`${apiRoot}/stations`) && endpoints.has(`${base}/validation`) ? () => validationSection(atlas, point, at) : null,
     endpoints.has(`${apiRoot}/devices`) && endpoints.has(`${base}/point/yield`) ? () => yieldSection(atlas, at) : null,
     endpoints.has(`${base}/point/windows`) ? () => windowsSection(atlas, at) : null,
@@ -188,7 +256,11 @@ export async function renderAssessments(body, atlas, point, endpoints, stillCurr
   await Promise.all(planned.map(async (make, k) => {
     try {
       const made = await make();
-      if (made && stillCurrent()) slots[k].replaceWith(made);
+      if (made && stillCurrent()) {
+        slots[k].replaceWith(made);
+        // Charts are drawn once in the document, where they have a width.
+        for (const chart of made.querySelectorAll('figure.chart-figure')) chart.mount?.();
+      }
     } catch (error) {
       if (stillCurrent()) slots[k].replaceWith(problemBox(error));
     }

@@ -10,6 +10,7 @@ import { CellReadout } from './cell-readout.js';
 import { loadColourScales } from './colour-scale.js';
 import { el, number, periodName, position } from './format.js';
 import { LayerView } from './layer-view.js';
+import { drawOutputPoints } from './output-points.js';
 import { PointPanel } from './point-panel.js';
 import { Screening } from './screening.js';
 
@@ -112,6 +113,7 @@ class Atlas {
       this.detail = detail;
       if (detail.caution) document.getElementById('caution-text').textContent = detail.caution;
       this.describe(detail);
+      this.outputPoints = drawOutputPoints(this, detail);
     }).catch(error => this.status(`The dataset description could not be loaded. ${error.message}`, 'error'));
     const catalogue = await (fromBoot ? early.catalogue : getJson(`${datasetUrl(this.slug)}/layers`));
     this.catalogue = catalogue;

@@ -7,6 +7,7 @@ import { renderAssessments } from './assessment.js';
 import { exceedanceChart, interAnnualChart, monthlyMeansChart, seriesColours } from './charts.js';
 import { el, fixed, number, percent, periodName, position } from './format.js';
 import { jointOccurrenceTable } from './joint-table.js';
+import { spectralSection } from './output-points.js';
 import { powerRoseSvg } from './power-rose.js';
 
 const rows = [
@@ -50,6 +51,7 @@ export class PointPanel {
       json: base + query(at),
       csv: base + query({ ...at, format: 'csv' }),
       series: `${base}/series` + query(at),
+      report: `${base}/report.pdf` + query(at),
     };
   }
 
@@ -108,14 +110,15 @@ export class PointPanel {
       el('div', { class: 'links' },
         el('a', { class: 'button-link', href: urls.json, 'data-link': 'point-json' }, 'These statistics as JSON'),
         el('a', { class: 'button-link', href: urls.csv, download: `${this.atlas.slug}_point_${cell.id}.csv`, 'data-link': 'point-csv' }, 'as CSV'),
-        el('a', { class: 'button-link', href: urls.series, download: `${this.atlas.slug}_series_${cell.id}.csv`, 'data-link': 'series-csv' }, 'Time series (CSV)')),
+        el('a', { class: 'button-link', href: urls.series, download: `${this.atlas.slug}_series_${cell.id}.csv`, 'data-link': 'series-csv' }, 'Time series (CSV)'),
+        el('a', { class: 'button-link', href: urls.report, download: `${this.atlas.slug}_site_report_cell_${cell.id}.pdf`, 'data-link': 'site-report' }, 'Report (PDF)')),
     );
 
     const tableHolder = el('div');
     const periodSelect = el('select', { id: 'point-period' },
       point.periods.map(p => el('option', { value: p.period }, periodName(p.period))));
     periodSelect.value = annual?.period ?? '';
-    const drawTable = () => tableHolder.replaceChildren(this.summaryTable(point.periods.find(p => p.period === periodSelect.value)));
+    const drawTable = () => tableHolder.replaceChildren(this.summaryTable(point.periods.find(p => p.period === periodSelect.value), point.power_from));
     periodSelect.addEventListener('change', drawTable);
     drawTable();
 
@@ -158,12 +161,15 @@ export class PointPanel {
       }
       sections.push(this.variationTable(point.inter_annual));
     }
+    const spectral = spectralSection(point);
+    sections.push(...spectral.sections);
+    figures.push(...spectral.figures);
     sections.push(el('div', { id: 'assessment-sections' }));
     this.body.replaceChildren(...sections);
     for (const figure of figures) figure.mount();
   }
 
-  summaryTable(period) {
+  summaryTable(period, powerFrom) {
     if (!period) return el('p', { class: 'muted' }, 'No period.');
     const head = ['', 'mean', 'p10', 'p50', 'p90', 'p99', 'max'];
     const body = rows.map(([key, label, units]) => {
@@ -181,7 +187,8 @@ export class PointPanel {
       el('th', { scope: 'row' }, 'Directionality d (1)'),
       el('td', { 'data-statistic': 'mean' }, number(d?.directionality_coefficient)),
       el('td', { colspan: '5', class: 'muted' }, d?.max_power_from_deg == null ? '' :
-        `largest mean resolved power from ${fixed(d.max_power_from_deg, 0)}°; each step's spreading modelled (cosine-2s)`)));
+        `largest mean resolved power from ${fixed(d.max_power_from_deg, 0)}°; ` +
+        (powerFrom === 'spectra' ? 'from the period-mean resolved power of the spectra' : "each step's spreading modelled (cosine-2s)"))));
     const coverages = [...rows.map(([key, label]) => [label, period[key]?.coverage]), ['Direction', d?.coverage]];
     const same = coverages.every(([, c]) => c === coverages[0][1]);
     const coverageText = same ? `coverage ${percent(coverages[0][1], 0)}`

@@ -34,7 +34,7 @@ public static class DatasetApi
         "Extent, grid kind, cell counts, time coverage and step, variables with units, source files with " +
         "SHA-256 checksums, method notes, licence and citation, the validation summary when one is stored, and the caution.")]
     public static async Task<Results<Ok<DatasetDetail>, ProblemHttpResult>> DescribeAsync(string slug, DatasetStore datasets,
-        ProvenanceBuilder provenance, CancellationToken cancel)
+        ProvenanceBuilder provenance, OutputPoints outputPoints, CancellationToken cancel)
     {
         var summary = await datasets.SummariseAsync(slug, cancel);
         if (summary is null) return ApiProblems.UnknownDataset(slug);
@@ -49,7 +49,10 @@ public static class DatasetApi
             Member(root, "variables"), ParameterCatalogue.Items,
             files.Select(f => new SourceFileItem(f.FileName, f.Sha256, f.SizeBytes, f.TimeStartUtc, f.TimeEndUtc, f.StepCount, f.LoadedAtUtc)).ToArray(),
             source.MethodNotes, source.Licence, source.Citation, Member(root, "validation"), root, dataset.CreatedAtUtc,
-            AtlasCaution.Text, LinksOf(dataset.Slug)));
+            AtlasCaution.Text, LinksOf(dataset.Slug))
+        {
+            OutputPoints = await outputPoints.ListAsync(dataset, cancel),
+        });
     }
 
     private static JsonElement? Member(JsonElement root, string name) =>

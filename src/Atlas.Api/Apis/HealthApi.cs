@@ -24,7 +24,7 @@ public static class HealthApi
             await ping.ExecuteScalarAsync(cancel);
             applied = await SchemaMigrator.AppliedVersionsAsync(dataSource, cancel);
         }
-        catch (Exception e) when (Data.DatabaseOutage.Is(e))
+        catch (Exception e) when (DatabaseOutage.Is(e))
         {
             return TypedResults.Problem(statusCode: 503, title: "Not ready: the database is unavailable",
                 detail: $"The database cannot be reached ({e.Message}). Start it (atlas db start) or fix the connection string.");

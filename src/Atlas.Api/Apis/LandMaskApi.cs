@@ -1,4 +1,3 @@
-
 namespace Atlas.Api.Apis;
 
 /// <summary>
@@ -24,12 +23,12 @@ public static class LandMaskApi
         "it is its Voronoi region among all cells, clipped to one typical spacing. dry_cell_count says how many cells it holds; " +
         "a dataset with no dry cell (a mesh of wet nodes only) gives an empty collection.")]
     public static async Task<Results<FileContentHttpResult, ProblemHttpResult>> LandAsync(
-        string slug, HttpContext http, DatasetCatalog catalog, LandMask mask, CancellationToken cancel)
+        string slug, HttpContext http, DatasetCatalog catalog, DryCellLand land, CancellationToken cancel)
     {
         var dataset = await catalog.FindAsync(slug, cancel);
         if (dataset is null) return ApiProblems.UnknownDataset(slug);
-        var (land, dryCells) = await mask.ForAsync(dataset, cancel);
-        var body = Write(land, dryCells);
+        var found = await land.ForAsync(dataset, cancel);
+        var body = Write(found.Polygons, found.DryCellCount);
         http.Response.Headers.CacheControl = "public, max-age=3600";
         return TypedResults.File(body!, "application/geo+json");
     }

@@ -81,6 +81,10 @@ public static class LayerApi
         var request = route.Read(errors, out var notFound);
         if (notFound is not null) return notFound;
         if (request is null) return TypedResults.ValidationProblem(errors);
+        if (dataset.GridKind == StationSpectraAnswers.StationsKind && request.Format is LayerFormat.Tif or LayerFormat.Nc or LayerFormat.Png or LayerFormat.Svg)
+            return ApiProblems.Unprocessable("Output points have no raster",
+                $"Dataset '{slug}' holds output points of a spectral hindcast, values at points with no area between them, so it is not drawn as a " +
+                "raster. Download the layer as .geojson or .csv (one feature or row per output point).");
         if (request.Companion != LayerCompanion.None)
         {
             if (await renderer.LoadAsync(dataset, request, cancel) is not { } data) return NoLayer(slug, request);

@@ -7,7 +7,7 @@ public static class PointSeriesApi
 {
     public static RouteHandlerBuilder MapPointSeries(this RouteGroupBuilder group) =>
         group.MapGet("/point/series", SeriesAsync)
-            .ProducesFile("text/csv", "application/json", CsvwMetadataWriter.MediaType)
+            .ProducesFile("text/csv", "application/json", "application/x-netcdf", CsvwMetadataWriter.MediaType)
             .ProducesProblems(StatusCodes.Status404NotFound, StatusCodes.Status422UnprocessableEntity)
             .RequireExpensiveLimit();
 
@@ -17,11 +17,14 @@ public static class PointSeriesApi
         "lat, lon: degrees. from, to: calendar years, inclusive (default: the whole record when it is within the per-request " +
         "limit of AtlasApiOptions:SeriesMaxYearsPerRequest years). format: csv (default; plain RFC 4180, one header row, no comment " +
         "lines; its units, provenance and the caution are in its W3C CSV on the Web metadata, format=csvw with the same query, " +
-        "application/csvm+json, named by the CSV answer's Link header with rel=describedby), json, or csvw. Missing steps are empty (csv) or null (json). j is computed per step at the cell depth.")]
+        "application/csvm+json, named by the CSV answer's Link header with rel=describedby), json, nc (CF-1.8 NetCDF-4, featureType " +
+        "timeSeries) or csvw. Missing steps are empty (csv), null (json) or NaN (nc). j is computed per step at the cell depth from " +
+        "Hm0 and Te; at an output point of a spectral hindcast it is the power integrated from the spectrum, followed by " +
+        "j_parametric, directionality, max_power_from_deg and spectral_width.")]
     public static async Task<Results<PushStreamHttpResult, ProblemHttpResult, ValidationProblem>> SeriesAsync(
         string slug, [AsParameters] PointPosition at, [AsParameters] PointSeriesQuery query,
         PointLocator locator, DatasetCatalog catalog, SeriesStore series, ProvenanceBuilder provenance,
-        IOptions<AtlasApiOptions> options, StatisticsOptions statistics, HttpContext http, CancellationToken cancel)
+        IOptions<AtlasApiOptions> options, StatisticsOptions statistics, StationSpectraAnswers stationSpectra, HttpContext http, CancellationToken cancel)
     {
         var errors = new QueryErrors();
         var position = at.Position(errors);
@@ -48,69 +51,70 @@ public static class PointSeriesApi
         var chunks = await series.ReadCellAsync(point.Dataset.Id, point.Nearest.Cell.CellId, first, last, cancel);
         var depth = point.Nearest.Cell.DepthMetres is { } d ? d : double.NaN;
         var decoded = PointSeriesReader.Decode(chunks, timelines, depth);
+        // At an output point of a spectral hindcast the spectral values per step join the series.
+        var atOutputPoint = point.Dataset.GridKind == StationSpectraAnswers.StationsKind;
+        var spectral = atOutputPoint ? await stationSpectra.AlignedStepsAsync(point.Dataset.Id, point.Nearest.Cell.CellId, chunks, timelines, cancel) : null;
+        var (columns, teFromTp) = SeriesColumns.Of(decoded, statistics.AssumedSpectrum, spectral);
         var source = await provenance.ForAsync(point.Dataset, cancel);
         var cell = point.Cell;
         var fileName = $"{slug}_series_{cell.Id}_{first}-{last}";
+        if (form == TableFormat.NetCdf)
+        {
+            var name = atOutputPoint ? StationSpectraAnswers.StationName(point.Dataset, cell.Id) : $"cell {cell.Id}";
+            var bytes = SeriesNetCdfWriter.Write(decoded, columns, cell, name, source);
+            return TypedResults.Stream(stream => stream.WriteAsync(bytes, cancel).AsTask(), "application/x-netcdf", fileName + ".nc");
+        }
+        var table = CsvTableOf(cell, source, first, last, columns, teFromTp, statistics.AssumedSpectrum, atOutputPoint);
         if (form == TableFormat.CsvMetadata)
         {
-            var table = CsvTableOf(cell, source, first, last, decoded.Derived(statistics.AssumedSpectrum).TeFromTp, statistics.AssumedSpectrum);
             var metadata = CsvwMetadataWriter.Write(table, CsvMetadataLinks.FormatForm(http.Request, "csv"));
             return TypedResults.Stream(stream => stream.WriteAsync(metadata, cancel).AsTask(), CsvwMetadataWriter.MediaType, fileName + ".csv-metadata.json");
         }
         var csv = form == TableFormat.Csv;
         if (csv) CsvMetadataLinks.Describe(http.Response, CsvMetadataLinks.FormatForm(http.Request, CsvMetadataLinks.FormatValue));
         return TypedResults.Stream(
-            stream => csv ? WriteCsvAsync(stream, decoded, statistics.AssumedSpectrum, cell, source, first, last, cancel)
-                          : WriteJsonAsync(stream, decoded, statistics.AssumedSpectrum, cell, source, first, last, cancel),
+            stream => csv ? WriteCsvAsync(stream, decoded, columns, table, cancel)
+                          : WriteJsonAsync(stream, decoded, columns, teFromTp, cell, source, first, last, cancel),
             csv ? CsvTable.ContentType : "application/json", fileName + (csv ? ".csv" : ".json"));
     }
 
-    private const string Units = "time UTC (ISO 8601); hs m; te s; tp s; dir degree (true, direction waves come from); spread degree; j kW/m";
-
-    /// <summary>The description of the series CSV, from which its header and its CSVW metadata are written.</summary>
-    private static CsvTable CsvTableOf(PointCell cell, Provenance source, int first, int last, bool teFromTp, SpectrumShape spectrum)
+    /// <summary>
+    /// The description of the series CSV, from which its header and its CSVW metadata are written: time, then the
+    /// columns of <see cref="SeriesColumns"/> with their units.
+    /// </summary>
+    private static CsvTable CsvTableOf(PointCell cell, Provenance source, int first, int last, IReadOnlyList<SeriesColumn> columns, bool teFromTp,
+        SpectrumShape spectrum, bool atOutputPoint)
     {
         var depth = cell.DepthM is { } d ? F(d) + " m" : "unknown (deep water assumed)";
-        List<string> notes = [$"Units: {Units}.", "Missing steps are empty fields; j is computed per step at the cell depth."];
+        var where = atOutputPoint ? "output point" : "cell";
+        List<string> notes = [$"Units: {SeriesColumns.UnitsLine(columns)}.", "Missing steps are empty fields."];
         if (teFromTp) notes.Add($"te is derived from tp for the {MethodNotes.AssumedSpectrum(spectrum)}: the dataset has no energy period.");
         return new CsvTable(
-            string.Create(CultureInfo.InvariantCulture, $"Time series of cell {cell.Id} of dataset {source.Dataset}, {first} to {last}"),
+            string.Create(CultureInfo.InvariantCulture, $"Time series of {where} {cell.Id} of dataset {source.Dataset}, {first} to {last}"),
             string.Create(CultureInfo.InvariantCulture,
-                $"One row per stored time step of cell {cell.Id} (lat {F(cell.Lat)}, lon {F(cell.Lon)}, depth {depth}), {cell.DistanceM:0.#} m from the requested position; years {first} to {last}."),
+                $"One row per stored time step of {where} {cell.Id} (lat {F(cell.Lat)}, lon {F(cell.Lon)}, depth {depth}), {cell.DistanceM:0.#} m from the requested position; years {first} to {last}."),
             [
                 CsvColumn.Time("time", "time of the step"),
-                CsvColumn.Double("hs", "significant wave height Hm0", "m"),
-                CsvColumn.Double("te", "energy period Tm-1,0", "s", teFromTp ? $"derived from tp ({MethodNotes.AssumedSpectrum(spectrum)})" : null),
-                CsvColumn.Double("tp", "peak period", "s"),
-                CsvColumn.Double("dir", "mean direction waves come from", "degree true"),
-                CsvColumn.Double("spread", "directional spread", "degree"),
-                CsvColumn.Double("j", "omnidirectional wave power", "kW/m", "computed per step at the cell depth"),
+                .. columns.Select(c => CsvColumn.Double(c.Name, c.LongName, c.Units == "kW m-1" ? "kW/m" : c.Units,
+                    c.Name == "te" && teFromTp ? $"derived from tp ({MethodNotes.AssumedSpectrum(spectrum)})" : c.StandardName is { } cf ? $"CF standard name {cf}" : null)),
             ],
             source, notes);
     }
 
-    private static async Task WriteCsvAsync(Stream stream, PointSeries s, SpectrumShape spectrum, PointCell cell, Provenance source, int first, int last,
-        CancellationToken cancel)
+    private static async Task WriteCsvAsync(Stream stream, PointSeries s, IReadOnlyList<SeriesColumn> columns, CsvTable table, CancellationToken cancel)
     {
-        var (te, power, teFromTp) = s.Derived(spectrum);
-        await using var rows = CsvTableWriter.Open(stream, CsvTableOf(cell, source, first, last, teFromTp, spectrum));
+        await using var rows = CsvTableWriter.Open(stream, table);
         for (var i = 0; i < s.Times.Length; i++)
         {
-            rows.Time(DateTimeOffset.FromUnixTimeSeconds(s.Times[i]).UtcDateTime)
-                .Number(s.Hs[i], "0.###")
-                .Number(te[i], "0.###")
-                .Number(s.HasTp ? s.Tp[i] : float.NaN, "0.##")
-                .Number(s.HasDir ? s.Dir[i] : float.NaN, "0.##")
-                .Number(s.HasSpread ? s.Spread[i] : float.NaN, "0.##")
-                .Number(power[i], "0.###");
+            rows.Time(DateTimeOffset.FromUnixTimeSeconds(s.Times[i]).UtcDateTime);
+            foreach (var column in columns) rows.Number(column.Values[i], column.CsvPattern);
             await rows.EndRowAsync(cancel);
         }
     }
 
-    private static async Task WriteJsonAsync(Stream stream, PointSeries s, SpectrumShape spectrum, PointCell cell, Provenance source, int first, int last,
-        CancellationToken cancel)
+    private static async Task WriteJsonAsync(Stream stream, PointSeries s, IReadOnlyList<SeriesColumn> columns, bool teFromTp, PointCell cell,
+        Provenance source, int first, int last, CancellationToken cancel)
     {
-        var (te, power, teFromTp) = s.Derived(spectrum);
         // The writer fills a buffer that is copied to the response asynchronously (the server forbids synchronous writes).
         var buffer = new System.Buffers.ArrayBufferWriter<byte>(64 * 1024);
         await using var json = new Utf8JsonWriter(buffer);
@@ -119,7 +123,7 @@ public static class PointSeriesApi
         JsonSerializer.Serialize(json, cell, GeoJsonWriter.Options);
         json.WriteNumber("from_year", first);
         json.WriteNumber("to_year", last);
-        json.WriteString("units", Units);
+        json.WriteString("units", SeriesColumns.UnitsLine(columns));
         json.WriteBoolean("te_from_tp", teFromTp);
         json.WritePropertyName("provenance");
         JsonSerializer.Serialize(json, source, GeoJsonWriter.Options);
@@ -129,12 +133,7 @@ public static class PointSeriesApi
         {
             json.WriteStartObject();
             json.WriteString("time", DateTimeOffset.FromUnixTimeSeconds(s.Times[i]).UtcDateTime);
-            Write(json, "hs", s.Hs[i], 3);
-            Write(json, "te", te[i], 3);
-            Write(json, "tp", s.HasTp ? s.Tp[i] : float.NaN, 2);
-            Write(json, "dir", s.HasDir ? s.Dir[i] : float.NaN, 2);
-            Write(json, "spread", s.HasSpread ? s.Spread[i] : float.NaN, 2);
-            Write(json, "j", power[i], 3);
+            foreach (var column in columns) Write(json, column.Name, column.Values[i], column.JsonDigits);
             json.WriteEndObject();
             if (json.BytesPending + buffer.WrittenCount > 32 * 1024) await DrainAsync(json, buffer, stream, cancel);
         }

@@ -34,8 +34,8 @@ public static class PointStatisticsApi
     [EndpointSummary("Exact statistics of every parameter at the wet cell nearest a position")]
     public static async Task<Results<FileContentHttpResult, StatusCodeHttpResult, ProblemHttpResult, ValidationProblem>> PointAsync(
         string slug, [AsParameters] PointPosition at, [AsParameters] PointStatisticsQuery query,
-        PointLocator locator, DatasetCatalog catalog, SeriesStore series, ProvenanceBuilder provenance, PointResponseCache responses,
-        PointCalendars calendars, StatisticsOptions statisticsOptions, IOptions<JsonOptions> json, HttpContext http, CancellationToken cancel)
+        PointLocator locator, DatasetCatalog catalog, PointStatisticsService statistics, PointResponseCache responses, OutputPoints outputPoints,
+        ProvenanceBuilder provenance, IOptions<JsonOptions> json, HttpContext http, CancellationToken cancel)
     {
         var errors = new QueryErrors();
         var position = at.Position(errors);
@@ -53,52 +53,23 @@ public static class PointStatisticsApi
                 CsvMetadataLinks.FormatForm(http.Request, "csv")), CsvwMetadataWriter.MediaType, $"{slug}_point_{point.Cell.Id}.csv-metadata.json");
         var csv = form == TableFormat.Csv;
         if (csv) CsvMetadataLinks.Describe(http.Response, CsvMetadataLinks.FormatForm(http.Request, CsvMetadataLinks.FormatValue));
-        var key = await ResponseKeyAsync(point, position.Value, window, onlyPeriod, parts, csv, catalog, cancel);
+        var nearestPoint = await outputPoints.NearestAsync(point.Dataset, position.Value.Latitude, position.Value.Longitude, cancel);
+        var key = await ResponseKeyAsync(point, position.Value, window, onlyPeriod, parts, csv, catalog, nearestPoint?.Dataset, cancel);
         // Computed without the request's cancellation: other requests for the same key may be waiting on it.
         var (response, failure) = await responses.GetOrComputeAsync(key,
-            () => ComputeAsync(point, window, onlyPeriod, parts, csv, catalog, series, provenance, calendars, statisticsOptions, json.Value.SerializerOptions,
-                CancellationToken.None));
+            () => ComputeAsync(point, window, onlyPeriod, parts, csv, statistics, json.Value.SerializerOptions, CancellationToken.None));
         return response is null ? failure! : Respond(response, http);
     }
 
     private static async Task<PointOutcome> ComputeAsync(LocatedPoint point, YearWindow window, AtlasPeriod? onlyPeriod, HashSet<string> parts,
-        bool csv, DatasetCatalog catalog, SeriesStore series, ProvenanceBuilder provenance, PointCalendars calendars, StatisticsOptions statisticsOptions,
-        JsonSerializerOptions json, CancellationToken cancel)
+        bool csv, PointStatisticsService statistics, JsonSerializerOptions json, CancellationToken cancel)
     {
+        var (analysis, problem) = await statistics.AnalyseAsync(point, window, onlyPeriod, cancel);
+        if (analysis is null) return PointOutcome.Failed(problem!);
         var slug = point.Dataset.Slug;
-        var timelines = await catalog.TimelinesAsync(point.Dataset, cancel);
-        var chunks = await series.ReadCellAsync(point.Dataset.Id, point.Nearest.Cell.CellId, window.FromYear, window.ToYear, cancel);
-        if (chunks.Count == 0)
-            return PointOutcome.Failed(ApiProblems.Unprocessable("No series in the window",
-                $"Cell {point.Nearest.Cell.CellId} of '{slug}' has no stored series{WindowText(window)}; stored years are " +
-                $"{(timelines.Count == 0 ? "none" : $"{timelines.Keys.First()}..{timelines.Keys.Last()}")}."));
-        ExactPointStatistics result;
-        using (var decoded = PointSeriesReader.DecodeRented(chunks, timelines, point.Nearest.Cell.DepthMetres is { } d ? d : double.NaN))
-            result = ExactPointAnalysis.Analyse(decoded.ToCellSeries(), new ExactPointOptions
-            {
-                Window = new AnalysisWindow(window.FromYear, window.ToYear, window.Months),
-                Statistics = statisticsOptions,
-            }, calendars.For(decoded.Times));
-        var periods = result.Periods.Where(p => onlyPeriod is not { } only || p.Period == only).ToArray();
-        if (periods.Length == 0)
-            return PointOutcome.Failed(ApiProblems.Unprocessable("The period has no steps in the window",
-                $"{onlyPeriod!.Value.Name} has no step{WindowText(window)} at cell {point.Nearest.Cell.CellId}; widen the window or choose another period."));
-
-        var source = await provenance.ForAsync(point.Dataset, cancel);
         var cell = point.Cell;
-        var units = WaveParameterNames.All.ToDictionary(p => p.Symbol(), p => p.Unit());
-        if (csv) return new PointOutcome(Csv(slug, cell, window, periods, source), CsvTable.ContentType, $"{slug}_point_{cell.Id}.csv", null);
-
-        var annual = result.Find(AtlasPeriod.Annual);
-        var statistics = new PointStatistics(
-            slug, cell, new PointWindow(window.FromYear, window.ToYear, window.Months), result.StepsInWindow, result.DeepWaterAssumed,
-            result.EnergyPeriodSource, result.QuantileDefinition, units, periods,
-            parts.Contains("exceedance") ? new PointExceedance(result.HsExceedance, result.PowerExceedance) : null,
-            parts.Contains("joint") ? result.JointOccurrence : null,
-            parts.Contains("rose") && annual is not null ? RoseOf(annual.Direction) : null,
-            parts.Contains("interannual") ? result.InterAnnual : null,
-            source, AtlasCaution.Text);
-        return new PointOutcome(JsonSerializer.SerializeToUtf8Bytes(statistics, json), "application/json; charset=utf-8", null, null);
+        if (csv) return new PointOutcome(Csv(slug, cell, window, analysis.Periods, analysis.Source), CsvTable.ContentType, $"{slug}_point_{cell.Id}.csv", null);
+        return new PointOutcome(JsonSerializer.SerializeToUtf8Bytes(PointStatisticsService.Statistics(analysis, parts), json), "application/json; charset=utf-8", null, null);
     }
 
     /// <summary>
@@ -106,11 +77,13 @@ public static class PointStatisticsApi
     /// position (the cell's distance from it is part of the answer), the cell, the window, period, parts and format.
     /// </summary>
     private static async Task<string> ResponseKeyAsync(LocatedPoint point, (double Latitude, double Longitude) position, YearWindow window,
-        AtlasPeriod? onlyPeriod, HashSet<string> parts, bool csv, DatasetCatalog catalog, CancellationToken cancel)
+        AtlasPeriod? onlyPeriod, HashSet<string> parts, bool csv, DatasetCatalog catalog, DatasetRecord? outputPoints, CancellationToken cancel)
     {
         var files = await catalog.SeriesStampAsync(point.Dataset, cancel);
         var computed = await catalog.StatisticsStampAsync(point.Dataset, cancel);
-        return string.Join('|', "point", point.Dataset.Id, point.Dataset.CreatedAtUtc.Ticks, files.Token, computed.Token,
+        // The nearest output point's answer changes when its dataset is loaded again.
+        var pointsStamp = outputPoints is null ? "" : $"{outputPoints.Id}:{outputPoints.CreatedAtUtc.Ticks}:{(await catalog.SeriesStampAsync(outputPoints, cancel)).Token}";
+        return string.Join('|', "point", point.Dataset.Id, point.Dataset.CreatedAtUtc.Ticks, files.Token, computed.Token, pointsStamp,
             position.Latitude.ToString("R", CultureInfo.InvariantCulture), position.Longitude.ToString("R", CultureInfo.InvariantCulture),
             point.Nearest.Cell.CellId, window.FromYear, window.ToYear, window.Months is { } m ? string.Join(',', m) : "",
             onlyPeriod?.Name ?? "all", csv ? "csv" : string.Join(',', PointStatisticsQuery.Parts.Where(parts.Contains)));
@@ -147,11 +120,6 @@ public static class PointStatisticsApi
             }
         return false;
     }
-
-    private static PowerRose RoseOf(DirectionStatistics direction) => new(
-        DirectionStatistics.Sectors, DirectionStatistics.SectorWidthDegrees,
-        Enumerable.Range(0, DirectionStatistics.Sectors).Select(k => k * DirectionStatistics.SectorWidthDegrees).ToArray(),
-        direction.PowerRose);
 
     private static readonly WaveParameter[] Summarised = [WaveParameter.Hs, WaveParameter.Te, WaveParameter.Tp, WaveParameter.J, WaveParameter.Spread, WaveParameter.D];
 
@@ -209,6 +177,4 @@ public static class PointStatisticsApi
     private static void Number(CsvTableWriter rows, double value) =>
         rows.Number(double.IsFinite(value) ? DataPrecisionJsonConverter.Round(value) : double.NaN);
 
-    private static string WindowText(YearWindow w) =>
-        w.FromYear is null && w.ToYear is null && w.Months is null ? "" : $" in the window {w.FromYear?.ToString(CultureInfo.InvariantCulture) ?? "..."}-{w.ToYear?.ToString(CultureInfo.InvariantCulture) ?? "..."}" + (w.Months is { } m ? $" months {string.Join(',', m)}" : "");
 }

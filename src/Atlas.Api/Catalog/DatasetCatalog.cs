@@ -24,9 +24,17 @@ public sealed class DatasetCatalog(DatasetStore datasets, DatasetGeometryQueries
         return found;
     }
 
-    /// <summary>The time line (Unix seconds) of every stored year, by year.</summary>
-    public Task<SortedDictionary<int, long[]>> TimelinesAsync(DatasetRecord dataset, CancellationToken cancel) =>
-        CachedAsync(("timelines", dataset.Id, dataset.CreatedAtUtc), TimelineLifetime, () => datasets.TimelinesAsync(dataset.Id, CancellationToken.None), cancel);
+    /// <summary>
+    /// The time line (Unix seconds) of every stored year, by year. Keyed by the files stamp: a load that lengthens a
+    /// year's time line also rewrites its chunks, and chunks read fresh against a time line kept from before would not
+    /// match (the year would be left out of point answers until the time line expired).
+    /// </summary>
+    public async Task<SortedDictionary<int, long[]>> TimelinesAsync(DatasetRecord dataset, CancellationToken cancel)
+    {
+        var stamp = await SeriesStampAsync(dataset, cancel);
+        return await CachedAsync(("timelines", dataset.Id, dataset.CreatedAtUtc, stamp.Token), TimelineLifetime,
+            () => datasets.TimelinesAsync(dataset.Id, CancellationToken.None), cancel);
+    }
 
     public Task<StatisticsStamp> StatisticsStampAsync(DatasetRecord dataset, CancellationToken cancel) =>
         CachedAsync(("stamp", dataset.Id, dataset.CreatedAtUtc), StampLifetime, () => geometry.StatisticsStampAsync(dataset.Id, CancellationToken.None), cancel);

@@ -35,6 +35,9 @@ public sealed class ProvenanceBuilder(DatasetStore datasets, DatasetCatalog cata
         using var metadata = JsonDocument.Parse(dataset.MetadataJson);
         var root = metadata.RootElement;
         var method = Method;
+        if (dataset.GridKind == StationSpectraAnswers.StationsKind && root.TryGetProperty("statistics", out var pass)
+            && Text(pass, "power") is { } spectralPower)
+            method = "At these output points of a spectral hindcast: " + spectralPower + ". " + method.Replace("Wave power is computed", "At grid cells wave power is computed");
         if (Text(root, "depth_note") is { } depthNote) method += " Depth: " + depthNote + ".";
         // The statistics service records its own method notes (thresholds, bin widths) under "statistics".
         if (root.ValueKind == JsonValueKind.Object && root.TryGetProperty("statistics", out var notes) && notes.ValueKind == JsonValueKind.Object)

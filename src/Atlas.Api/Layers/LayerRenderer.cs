@@ -17,7 +17,7 @@ public sealed class LayerRenderer(
     LayerCacheStore layerCache,
     ProvenanceBuilder provenance,
     CellFootprints footprints,
-    LandMask landMask,
+    DryCellLand land,
     IMemoryCache memory,
     IOptions<AtlasApiOptions> options)
 {
@@ -36,8 +36,8 @@ public sealed class LayerRenderer(
             LayerFormat.GeoJson => LayerGeoJsonWriter.Write(data, request.Polygons ? await footprints.ForAsync(dataset, cancel) : null),
             LayerFormat.Tif => GeoTiffWriter.Write(await RasteriseAsync(data, cancel), GeoTiffMetadataOf(data), data.Provenance.GeneratedAtUtc),
             LayerFormat.Nc => LayerNetCdfWriter.Write(await RasteriseAsync(data, cancel), data),
-            LayerFormat.Svg => LayerFigureRenderer.RenderSvg(await RasteriseAsync(data, cancel), data, (await landMask.ForAsync(dataset, cancel)).Land),
-            _ => LayerFigureRenderer.RenderPng(await RasteriseAsync(data, cancel), data, (await landMask.ForAsync(dataset, cancel)).Land),
+            LayerFormat.Svg => LayerFigureRenderer.RenderSvg(await RasteriseAsync(data, cancel), data, (await land.ForAsync(dataset, cancel)).Polygons),
+            _ => LayerFigureRenderer.RenderPng(await RasteriseAsync(data, cancel), data, (await land.ForAsync(dataset, cancel)).Polygons),
         };
         var etag = "\"" + Convert.ToHexStringLower(SHA256.HashData(content))[..32] + "\"";
         var layer = new CachedLayer(etag, request.Format.ContentType(), content);

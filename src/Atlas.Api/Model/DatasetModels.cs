@@ -43,7 +43,11 @@ public sealed record DatasetDetail(
     JsonElement Metadata,
     DateTime CreatedAtUtc,
     string Caution,
-    DatasetLinks Links);
+    DatasetLinks Links)
+{
+    /// <summary>Output points of a spectral hindcast drawn with this dataset: its own, or those loaded beside it (empty when none).</summary>
+    public IReadOnlyList<OutputPointItem> OutputPoints { get; init; } = [];
+}
 
 /// <summary>A served parameter: its trade symbol, what it is and its unit.</summary>
 public sealed record ParameterItem(string Symbol, string Name, string Units);

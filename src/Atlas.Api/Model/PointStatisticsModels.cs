@@ -16,7 +16,17 @@ public sealed record PointStatistics(
     PowerRose? PowerRose,
     IReadOnlyList<InterAnnualSeries>? InterAnnual,
     Provenance Provenance,
-    string Caution);
+    string Caution)
+{
+    /// <summary>What the power per step comes from: "spectra" at an output point, "Hs and Te" for a cell of gridded fields.</summary>
+    public string PowerFrom { get; init; } = "Hs and Te";
+
+    /// <summary>
+    /// Exact spectral values: of this output point (a dataset of output points), or of the nearest output point of the same
+    /// hindcast (a gridded dataset whose output points were loaded naming it), with its distance; null when there is none.
+    /// </summary>
+    public Atlas.Ingest.Spectra.SpectralPointAnswer? Spectral { get; init; }
+}
 
 public sealed record PointExceedance(ExceedanceCurve Hs, ExceedanceCurve J);
 

@@ -3,6 +3,9 @@ namespace Atlas.Api.Points;
 /// <summary>A position resolved to its dataset and nearest wet cell.</summary>
 public sealed record LocatedPoint(DatasetRecord Dataset, NearestCell Nearest, double LimitKilometres)
 {
+    /// <summary>The position asked for (degrees north and east).</summary>
+    public (double Latitude, double Longitude) Asked { get; init; }
+
     /// <summary>The cell as point answers describe it.</summary>
     public PointCell Cell
     {
@@ -35,7 +38,7 @@ public sealed class PointLocator(DatasetCatalog catalog, CellStore cells, IOptio
             : await cells.NearestWetAsync(dataset.Id, latitude, longitude, cancel);
         if (nearest is null) return (null, Problem(WetCellReach.NoWetCells(slug)));
         if (WetCellReach.TooFar(slug, nearest, limitKm) is { } tooFar) return (null, Problem(tooFar));
-        return (new LocatedPoint(dataset, nearest, limitKm), null);
+        return (new LocatedPoint(dataset, nearest, limitKm) { Asked = (latitude, longitude) }, null);
     }
 
     private async Task<double> LimitKilometresAsync(DatasetRecord dataset, CancellationToken cancel)

@@ -14,10 +14,12 @@ public static class AtlasCommandLine
         root.Subcommands.Add(DatasetsCommand.Build());
         root.Subcommands.Add(ServeCommand.Build());
         root.Subcommands.Add(WorkerCommand.Build());
+        root.Subcommands.Add(JobsCommand.Build());
         root.Subcommands.Add(DatabaseCommands.Build());
         root.Subcommands.Add(StationsCommand.Build());
         root.Subcommands.Add(DevicesCommand.Build());
         root.Subcommands.Add(ValidateCommand.Build());
+        root.Subcommands.Add(ReportCommand.Build());
         return root;
     }
 }

@@ -15,12 +15,14 @@ namespace Atlas.Cli.Commands;
 public static class CommandHost
 {
     /// <summary>The host, built but not started (nothing runs in the background, and its start-up lines would mix with the output).</summary>
-    public static IHost Build(NpgsqlDataSource dataSource)
+    /// <param name="more">Services a command adds to the common ones (<c>atlas report</c> adds the point and report services of the API).</param>
+    public static IHost Build(NpgsqlDataSource dataSource, Action<IServiceCollection>? more = null)
     {
         var builder = Host.CreateApplicationBuilder();
         builder.Services.AddSingleton(dataSource);
         builder.Services.AddAtlasJobs();
         builder.Services.AddStationValidation();
+        more?.Invoke(builder.Services);
         return builder.Build();
     }
 
@@ -51,9 +53,9 @@ public static class CommandHost
     }
 
     /// <summary>Builds the host and checks its options; on a problem, says so as <paramref name="command"/> and gives null.</summary>
-    public static IHost? BuildChecked(NpgsqlDataSource dataSource, string command)
+    public static IHost? BuildChecked(NpgsqlDataSource dataSource, string command, Action<IServiceCollection>? more = null)
     {
-        var host = Build(dataSource);
+        var host = Build(dataSource, more);
         if (Problems(host) is not { } problems) return host;
         host.Dispose();
         Console.Error.WriteLine($"atlas {command}: not started: {problems}");

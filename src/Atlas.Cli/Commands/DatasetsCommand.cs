@@ -3,6 +3,7 @@ using Atlas.Cli.Datasets;
 using Atlas.Storage;
 using Atlas.Storage.Datasets;
 using Atlas.Storage.Jobs;
+using Atlas.Storage.Passes;
 using Npgsql;
 
 namespace Atlas.Cli.Commands;
@@ -40,7 +41,8 @@ public static class DatasetsCommand
             if (await store.SummariseAsync(parse.GetValue(slug)!, cancel) is not { } summary) return Unknown("show", parse.GetValue(slug)!);
             var storage = await store.StorageAsync(summary.Dataset.Id, cancel);
             var jobs = await new JobQueue(dataSource).ForDatasetAsync(summary.Dataset.Slug, cancel);
-            Console.Write(DatasetReport.Describe(summary, storage, jobs));
+            var passes = await new PassStore(dataSource).ProgressAsync(summary.Dataset.Slug, cancel: cancel);
+            Console.Write(DatasetReport.Describe(summary, storage, jobs, passes));
             return 0;
         });
         return command;

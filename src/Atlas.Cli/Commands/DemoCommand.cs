@@ -26,6 +26,9 @@ public static class DemoCommand
 {
     public const string DatasetSlug = "skelvane-reach";
 
+    /// <summary>The dataset of the demo's spectra at its output points, loaded beside <see cref="DatasetSlug"/>.</summary>
+    public const string PointsDatasetSlug = "skelvane-reach-points";
+
     private static async Task<FileStream> AcquireLockAsync(string path, CancellationToken cancel)
     {
         var announced = false;
@@ -65,7 +68,8 @@ public static class DemoCommand
             }
             var scenario = DemoScenario.Describe(options);
             var files = scenario.FieldFiles.Select(f => Path.Combine(folder, f)).ToArray();
-            if (parse.GetValue(regenerate) || !files.All(File.Exists) || !File.Exists(Path.Combine(folder, DemoScenario.ManifestFileName)))
+            var pointFiles = scenario.PointFiles.Select(f => Path.Combine(folder, f)).ToArray();
+            if (parse.GetValue(regenerate) || !files.All(File.Exists) || !pointFiles.All(File.Exists) || !File.Exists(Path.Combine(folder, DemoScenario.ManifestFileName)))
             {
                 Console.WriteLine($"atlas demo: generating {scenario.Name} into {folder}");
                 var display = new ConsoleProgress();
@@ -86,6 +90,12 @@ public static class DemoCommand
             if (ingest != 0) return ingest;
             var stats = await StatsCommand.RunAsync(dataSource, runner, DatasetSlug, all: false, cancel);
             if (stats != 0) return stats;
+            // The spectra at the output points, beside the gridded dataset of the same hindcast.
+            var points = new IngestPayload(pointFiles, $"{scenario.Name} output points (invented demo coast)", QueueStatistics: false, GridDataset: DatasetSlug);
+            var pointsIngest = await CommandLineJob.RunAsync(dataSource, runner, JobKind.Ingest, PointsDatasetSlug, points, "demo", afterFailure: null, cancel);
+            if (pointsIngest != 0) return pointsIngest;
+            var pointsStats = await StatsCommand.RunAsync(dataSource, runner, PointsDatasetSlug, all: false, cancel);
+            if (pointsStats != 0) return pointsStats;
             var assessment = await LoadAssessmentAsync(dataSource, folder, cancel);
             if (assessment != 0) return assessment;
             if (!parse.GetValue(serve))

@@ -4,6 +4,7 @@ using System.Text.Json;
 using Atlas.Ingest.Statistics;
 using Atlas.Storage.Datasets;
 using Atlas.Storage.Jobs;
+using Atlas.Storage.Passes;
 
 namespace Atlas.Cli.Datasets;
 
@@ -24,7 +25,9 @@ public static class DatasetReport
     }
 
     /// <summary>The whole description of one dataset, line by line.</summary>
-    public static string Describe(DatasetSummary summary, DatasetStorage storage, IReadOnlyList<JobRecord> jobs)
+    /// <param name="passes">The dataset's statistics passes in parts, newest first; their parts are summed up there
+    /// rather than listed among the jobs.</param>
+    public static string Describe(DatasetSummary summary, DatasetStorage storage, IReadOnlyList<JobRecord> jobs, IReadOnlyList<PassProgress> passes)
     {
         var d = summary.Dataset;
         using var metadata = JsonDocument.Parse(d.MetadataJson);
@@ -42,6 +45,7 @@ public static class DatasetReport
                      (summary.MedianStepSeconds is { } step ? $", typically {Count(step)} s apart" : "") +
                      (summary.FirstTimeUtc is { } first && summary.LastTimeUtc is { } last ? $", {Time(first)} to {Time(last)})" : ")"));
         Row("variables", Variables(metadata.RootElement));
+        if (metadata.RootElement.TryGetProperty("spectra", out var spectra)) OutputPoints(spectra, Row);
 
         var assumptions = VariableAssumption.ListFrom(metadata.RootElement);
         text.Append("  assumed at ingest:").Append(assumptions.Count == 0 ? " not recorded (loaded before assumptions were kept)\n" : "\n");
@@ -56,6 +60,11 @@ public static class DatasetReport
         text.Append("  stored size (sums of pg_column_size over the dataset's rows; indexes and row headers not counted):\n");
         text.Append("    series       ").Append(Count(storage.SeriesChunkCount)).Append(" chunks, ").Append(Bytes(storage.SeriesBytes)).Append('\n');
         text.Append("    statistics   ").Append(Count(storage.StatisticBlockCount)).Append(" blocks, ").Append(Bytes(storage.StatisticBytes)).Append('\n');
+        if (storage.SpectralYearCount > 0)
+        {
+            text.Append("    spectral     ").Append(Count(storage.SpectralYearCount)).Append(" station-years of per-step values, ").Append(Bytes(storage.SpectralBytes))
+                .Append("; ").Append(Count(storage.SpectrumMonthCount)).Append(" station-months of spectrum sums, ").Append(Bytes(storage.SpectrumMonthBytes)).Append('\n');
+        }
 
         text.Append("  statistics: ").Append(StatisticsState(summary)).Append('\n');
         if (summary.StatisticsCellCount > 0)
@@ -69,9 +78,29 @@ public static class DatasetReport
                 : "unknown: a pass with other options began and did not finish").Append('\n');
         }
 
-        text.Append("  jobs:").Append(jobs.Count == 0 ? " none\n" : "\n");
-        foreach (var job in jobs) text.Append("    ").Append(JobLine(job)).Append('\n');
+        if (passes.Count > 0)
+        {
+            text.Append("  passes in parts:\n");
+            foreach (var pass in passes) text.Append("    ").Append(Jobs.PassReport.Line(pass, DateTime.UtcNow)).Append('\n');
+        }
+        var whole = jobs.Where(j => j.PassId is null).ToList();
+        text.Append("  jobs:").Append(whole.Count == 0 ? " none\n" : "\n");
+        foreach (var job in whole) text.Append("    ").Append(JobLine(job)).Append('\n');
         return text.ToString();
+    }
+
+    /// <summary>The output points of a dataset of spectra: their names and depths, the spectral axes, the gridded dataset they belong to.</summary>
+    private static void OutputPoints(JsonElement spectra, Action<string, string> row)
+    {
+        var stations = spectra.TryGetProperty("stations", out var list) ? list.EnumerateArray().ToList() : [];
+        row("points", string.Join(", ", stations.Select(s => s.GetProperty("name").GetString() +
+            (s.TryGetProperty("depth_m", out var depth) && depth.ValueKind == JsonValueKind.Number ? $" ({depth.GetDouble():0.#} m)" : " (no depth: deep water)"))));
+        var frequencies = spectra.GetProperty("frequencies_hz").EnumerateArray().Select(f => f.GetDouble()).ToArray();
+        var directions = spectra.GetProperty("directions_from_deg").GetArrayLength();
+        row("spectra", $"{spectra.GetProperty("kind").GetString()}, {frequencies.Length} frequencies {frequencies[0]:0.####} to {frequencies[^1]:0.####} Hz" +
+            (directions > 0 ? $", {directions} directions of {360.0 / directions:0.##} degrees" : ""));
+        if (spectra.TryGetProperty("grid_dataset", out var grid) && grid.ValueKind == JsonValueKind.String)
+            row("beside", $"gridded dataset '{grid.GetString()}' (its point answers add the nearest of these points)");
     }
 
     /// <summary>What a removal takes away, in a phrase: cells, series chunks and their size, statistic blocks.</summary>
@@ -96,7 +125,7 @@ public static class DatasetReport
         return problems.Count == 0 ? "complete" : "partial (" + string.Join("; ", problems) + ")";
     }
 
-    private static string JobLine(JobRecord job)
+    public static string JobLine(JobRecord job)
     {
         var line = $"job {job.Id}  {JobQueue.KindName(job.Kind)}  {job.State}  queued {Time(job.CreatedAtUtc)}";
         if (job.FinishedAtUtc is { } finished) line += $", finished {Time(finished)}";

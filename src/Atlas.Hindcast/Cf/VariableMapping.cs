@@ -58,6 +58,22 @@ public sealed class VariableMapping
     /// <summary>Name of the time coordinate variable, or null to find it by its units.</summary>
     public string? TimeVariable { get; }
 
+    /// <summary>Name of a point file's spectral density variable, or null to find it by its standard name.</summary>
+    public string? Spectrum { get; init; }
+
+    /// <summary>Name of a point file's frequency coordinate, or null to find it by its standard name or name.</summary>
+    public string? Frequency { get; init; }
+
+    /// <summary>Name of a point file's direction coordinate, or null to find it by its standard name.</summary>
+    public string? SpectrumDirection { get; init; }
+
+    /// <summary>True when the mapped direction coordinate gives the direction the waves travel to.</summary>
+    public bool SpectrumDirectionIsTowards { get; init; }
+
+    /// <summary>Water depth of output points by station name, m positive down (used where the file gives none, and
+    /// over the file's value when given).</summary>
+    public IReadOnlyDictionary<string, double> StationDepths { get; init; } = new Dictionary<string, double>();
+
     /// <summary>Where the mapping came from (its file path), for error messages.</summary>
     public string Source { get; }
 
@@ -84,6 +100,9 @@ public sealed class VariableMapping
             bool towards = false;
             bool? positiveUp = null;
             string? time = null;
+            string? spectrum = null, frequency = null, spectrumDirection = null;
+            bool spectrumTowards = false;
+            var stationDepths = new Dictionary<string, double>(StringComparer.Ordinal);
             foreach (var property in document.RootElement.EnumerateObject())
             {
                 string key = property.Name;
@@ -95,6 +114,26 @@ public sealed class VariableMapping
                     if (key == "dir_to") towards = true;
                 }
                 else if (key == "time") time = Text(property, source);
+                else if (key == "spectrum") spectrum = Text(property, source);
+                else if (key == "frequency") frequency = Text(property, source);
+                else if (key is "spectrum_direction" or "spectrum_direction_to")
+                {
+                    if (spectrumDirection is not null)
+                        throw new HindcastFormatException(source, key, "gives the spectrum's direction twice (use either 'spectrum_direction' or 'spectrum_direction_to')");
+                    spectrumDirection = Text(property, source);
+                    spectrumTowards = key == "spectrum_direction_to";
+                }
+                else if (key == "station_depths_m")
+                {
+                    if (property.Value.ValueKind != JsonValueKind.Object)
+                        throw new HindcastFormatException(source, key, "must be an object of station names and depths in metres, such as { \"outer\": 42.5 }");
+                    foreach (var d in property.Value.EnumerateObject())
+                    {
+                        if (d.Value.ValueKind != JsonValueKind.Number || !(d.Value.GetDouble() > 0) || !double.IsFinite(d.Value.GetDouble()))
+                            throw new HindcastFormatException(source, $"{key}.{d.Name}", "must be a positive depth in metres");
+                        stationDepths[d.Name] = d.Value.GetDouble();
+                    }
+                }
                 else if (key == "depth_positive")
                 {
                     positiveUp = Text(property, source) switch
@@ -116,9 +155,17 @@ public sealed class VariableMapping
                     }
                 }
                 else throw new HindcastFormatException(source, key,
-                    $"unknown key; expected one of {string.Join(", ", Keys.Keys)}, depth_positive, time, units");
+                    $"unknown key; expected one of {string.Join(", ", Keys.Keys)}, depth_positive, time, units, spectrum, frequency, " +
+                    "spectrum_direction, spectrum_direction_to, station_depths_m");
             }
-            return new VariableMapping(names, units, towards, positiveUp, time, source);
+            return new VariableMapping(names, units, towards, positiveUp, time, source)
+            {
+                Spectrum = spectrum,
+                Frequency = frequency,
+                SpectrumDirection = spectrumDirection,
+                SpectrumDirectionIsTowards = spectrumTowards,
+                StationDepths = stationDepths,
+            };
         }
     }
 

@@ -11,6 +11,8 @@ public enum GridKind
     Projected,
     /// <summary>UGRID 2-D mesh with data on the nodes.</summary>
     Mesh,
+    /// <summary>Output points of a spectral hindcast (CF timeSeries stations), unconnected.</summary>
+    Stations,
 }
 
 /// <summary>

@@ -159,6 +159,8 @@ internal static unsafe class NetCdfNative
     [DllImport(Library, ExactSpelling = true)] public static extern int nc_get_vara_longlong(int ncid, int varid, nuint* start, nuint* count, long* data);
     [DllImport(Library, ExactSpelling = true)] public static extern int nc_get_vara_schar(int ncid, int varid, nuint* start, nuint* count, sbyte* data);
     [DllImport(Library, ExactSpelling = true)] public static extern int nc_get_vara_uchar(int ncid, int varid, nuint* start, nuint* count, byte* data);
+    [DllImport(Library, ExactSpelling = true)] public static extern int nc_get_vara_text(int ncid, int varid, nuint* start, nuint* count, byte* data);
+    [DllImport(Library, ExactSpelling = true)] public static extern int nc_get_vara_string(int ncid, int varid, nuint* start, nuint* count, IntPtr* data);
 
     // Hyperslab writes.
     [DllImport(Library, ExactSpelling = true)] public static extern int nc_put_vara_float(int ncid, int varid, nuint* start, nuint* count, float* data);
@@ -167,4 +169,5 @@ internal static unsafe class NetCdfNative
     [DllImport(Library, ExactSpelling = true)] public static extern int nc_put_vara_int(int ncid, int varid, nuint* start, nuint* count, int* data);
     [DllImport(Library, ExactSpelling = true)] public static extern int nc_put_vara_schar(int ncid, int varid, nuint* start, nuint* count, sbyte* data);
     [DllImport(Library, ExactSpelling = true)] public static extern int nc_put_vara_uchar(int ncid, int varid, nuint* start, nuint* count, byte* data);
+    [DllImport(Library, ExactSpelling = true)] public static extern int nc_put_vara_text(int ncid, int varid, nuint* start, nuint* count, byte* data);
 }

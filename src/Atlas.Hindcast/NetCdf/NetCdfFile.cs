@@ -154,6 +154,52 @@ public sealed unsafe class NetCdfFile : IDisposable
     }
 
     /// <summary>
+    /// Reads a variable of text labels (station names, for example): a char variable (n, length) gives n strings cut at
+    /// their first NUL and trimmed, a string variable (n) its n strings; a 1-D char variable gives one string.
+    /// </summary>
+    public string[] ReadStrings(NetCdfVariable variable)
+    {
+        int rank = variable.Rank;
+        if (variable.Type == NetCdfType.Char)
+        {
+            if (rank is < 1 or > 2) throw new HindcastFormatException(Path, variable.Name, $"a char variable of labels must have one or two dimensions, not {rank}");
+            long count = rank == 2 ? variable.Dimensions[0].Length : 1, width = variable.Dimensions[rank - 1].Length;
+            var bytes = new byte[Math.Max(count * width, 1)];
+            nuint* s = stackalloc nuint[2];
+            nuint* c = stackalloc nuint[2];
+            for (int d = 0; d < rank; d++) { s[d] = 0; c[d] = (nuint)variable.Dimensions[d].Length; }
+            int status;
+            fixed (byte* p = bytes)
+                lock (NetCdfNative.Gate) status = NetCdfNative.nc_get_vara_text(_handle.Id, variable.Id, s, c, p);
+            Check(status, variable.Name, "nc_get_vara_text");
+            var labels = new string[count];
+            for (long k = 0; k < count; k++)
+            {
+                var text = Encoding.UTF8.GetString(bytes, (int)(k * width), (int)width);
+                labels[k] = (text.IndexOf('\0') is >= 0 and var nul ? text[..nul] : text).Trim();
+            }
+            return labels;
+        }
+        if (variable.Type == NetCdfType.String)
+        {
+            if (rank != 1) throw new HindcastFormatException(Path, variable.Name, $"a string variable of labels must have one dimension, not {rank}");
+            long count = variable.Dimensions[0].Length;
+            var pointers = new IntPtr[Math.Max(count, 1)];
+            nuint start = 0, length = (nuint)count;
+            int status;
+            fixed (IntPtr* p = pointers)
+            {
+                lock (NetCdfNative.Gate) status = NetCdfNative.nc_get_vara_string(_handle.Id, variable.Id, &start, &length, p);
+                Check(status, variable.Name, "nc_get_vara_string");
+                var labels = pointers.Take((int)count).Select(ptr => (Marshal.PtrToStringUTF8(ptr) ?? "").Trim()).ToArray();
+                lock (NetCdfNative.Gate) NetCdfNative.nc_free_string(length, p);
+                return labels;
+            }
+        }
+        throw new HindcastFormatException(Path, variable.Name, $"has type {variable.Type}; labels must be char or string");
+    }
+
+    /// <summary>
     /// Sets the HDF5 chunk cache of one variable (NetCDF-4 only; a no-op for the classic formats). A zero size makes
     /// HDF5 read the selected bytes of uncompressed chunks straight from the file rather than whole chunks.
     /// </summary>

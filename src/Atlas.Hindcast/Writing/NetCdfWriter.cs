@@ -164,6 +164,41 @@ public sealed unsafe class NetCdfWriter : IDisposable
         Check(status, variable, "nc_put_vara_" + typeof(T).Name.ToLowerInvariant());
     }
 
+    /// <summary>Writes UTF-8 text into a 1-D char variable (a label such as a station name), padded with NULs.</summary>
+    public void WriteText(string variable, string text)
+    {
+        EndDefinitions();
+        var (varid, type, rank) = _variables.TryGetValue(variable, out var v) ? v : throw new ArgumentException($"variable '{variable}' is not defined");
+        if (type != NetCdfType.Char || rank != 1) throw new ArgumentException($"variable '{variable}' is not a 1-D char variable");
+        var bytes = Encoding.UTF8.GetBytes(text);
+        nuint start = 0, count = (nuint)bytes.Length;
+        if (bytes.Length == 0) return;
+        int status;
+        fixed (byte* p = bytes)
+            lock (NetCdfNative.Gate) status = NetCdfNative.nc_put_vara_text(_handle.Id, varid, &start, &count, p);
+        Check(status, variable, "nc_put_vara_text");
+    }
+
+    /// <summary>Writes the hyperslab <paramref name="start"/>/<paramref name="count"/> of a char variable from bytes (labels, NUL padded).</summary>
+    public void WriteText(string variable, ReadOnlySpan<long> start, ReadOnlySpan<long> count, ReadOnlySpan<byte> bytes)
+    {
+        EndDefinitions();
+        var (varid, type, rank) = _variables.TryGetValue(variable, out var v) ? v : throw new ArgumentException($"variable '{variable}' is not defined");
+        if (type != NetCdfType.Char) throw new ArgumentException($"variable '{variable}' is not a char variable");
+        if (start.Length != rank || count.Length != rank)
+            throw new ArgumentException($"variable '{variable}' has {rank} dimensions; start/count have {start.Length}/{count.Length}");
+        long total = 1;
+        nuint* s = stackalloc nuint[Math.Max(rank, 1)];
+        nuint* c = stackalloc nuint[Math.Max(rank, 1)];
+        for (int d = 0; d < rank; d++) { s[d] = (nuint)start[d]; c[d] = (nuint)count[d]; total *= count[d]; }
+        if (bytes.Length < total) throw new ArgumentException($"variable '{variable}': {bytes.Length} bytes for a slab of {total}");
+        if (total == 0) return;
+        int status;
+        fixed (byte* p = bytes)
+            lock (NetCdfNative.Gate) status = NetCdfNative.nc_put_vara_text(_handle.Id, varid, s, c, p);
+        Check(status, variable, "nc_put_vara_text");
+    }
+
     /// <summary>Closes the file, throwing when netCDF-C reports that the data could not be flushed.</summary>
     public void Close()
     {

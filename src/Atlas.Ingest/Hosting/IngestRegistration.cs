@@ -20,6 +20,8 @@ public static class IngestRegistration
     {
         services.AddStatisticsOptions();
         services.TryAddSingleton(sp => new JobRunner(sp.GetRequiredService<NpgsqlDataSource>(), sp.GetRequiredService<StatisticsOptions>()));
+        services.TryAddSingleton(sp => new StatisticsPasses(sp.GetRequiredService<NpgsqlDataSource>(), sp.GetRequiredService<StatisticsOptions>()));
+        services.TryAddSingleton(sp => new Ingestion.IngestInParts(sp.GetRequiredService<NpgsqlDataSource>(), sp.GetRequiredService<StatisticsOptions>()));
         return services;
     }
 

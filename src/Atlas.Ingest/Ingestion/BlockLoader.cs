@@ -12,17 +12,20 @@ namespace Atlas.Ingest.Ingestion;
 /// steps from every new file with hyperslab reads, scatters them onto the cells' time lines (after the year's stored
 /// steps, when the year exists) and writes the block by binary COPY while the next block is read. Everything runs in
 /// the caller's transaction; the load is refused at the end, naming the largest difference, when a step given twice
-/// differs.
+/// differs. A part of an ingest in parts loads its range of cells (the request's <see cref="IngestRequest.Cells"/>)
+/// and leaves the time lines to the part that creates the dataset (<paramref name="writeTimelines"/> false).
 /// </summary>
 public sealed class BlockLoader(NpgsqlConnection connection, NpgsqlTransaction transaction, IngestPlan plan, int datasetId,
-    IProgress<ProgressSnapshot>? progress, Stopwatch clock)
+    IProgress<ProgressSnapshot>? progress, Stopwatch clock, bool writeTimelines = true)
 {
+    private readonly CellRange _cells = plan.Request.Cells ?? new CellRange(0, plan.Grid.PointCount - 1);
+
     /// <summary>The largest float buffer of one hyperslab read: steps read at once are bounded by it.</summary>
     private const int MaxSlabBytes = 64 << 20;
 
     private readonly SharedStepConflicts _conflicts = new();
     private readonly string _storedName = $"dataset '{plan.Request.DatasetSlug}' (already stored)";
-    private readonly long _totalWork = (long)plan.FreshSteps * plan.Grid.PointCount;
+    private long TotalWork => (long)plan.FreshSteps * _cells.Count;
     private long _doneWork;
 
     /// <summary>Per grid point: did the load store a series with a wave height for it?</summary>
@@ -49,13 +52,13 @@ public sealed class BlockLoader(NpgsqlConnection connection, NpgsqlTransaction t
             foreach (var year in years)
             {
                 SharedStepCount += year.Shared.Count;
-                for (var p0 = 0; p0 < plan.Grid.PointCount; p0 += year.BlockSize)
+                for (var p0 = _cells.First; p0 <= _cells.Last; p0 += year.BlockSize)
                 {
                     cancel.ThrowIfCancellationRequested();
                     // The other block's COPY was awaited before this block's last one began: this one is free.
                     var block = blocks[turn];
                     turn ^= 1;
-                    block.Begin(year.Year, p0, Math.Min(year.BlockSize, plan.Grid.PointCount - p0), year.Timeline.Length, plan.Mask);
+                    block.Begin(year.Year, p0, Math.Min(year.BlockSize, _cells.Last + 1 - p0), year.Timeline.Length, plan.Mask);
                     if (year.StoredTimeline is not null)
                     {
                         await pendingWrite;
@@ -70,7 +73,7 @@ public sealed class BlockLoader(NpgsqlConnection connection, NpgsqlTransaction t
                     pendingWrite = Task.Run(() => SeriesStore.WriteAsync(connection, datasetId, chunks, cancel), cancel);
                 }
                 await pendingWrite;
-                await DatasetStore.UpsertTimelineAsync(connection, transaction, datasetId, year.Year, year.Timeline, cancel);
+                if (writeTimelines) await DatasetStore.UpsertTimelineAsync(connection, transaction, datasetId, year.Year, year.Timeline, cancel);
             }
             // Differences are gathered over the whole load so the refusal names the largest; the transaction then rolls
             // back, so nothing stored changes.
@@ -97,7 +100,7 @@ public sealed class BlockLoader(NpgsqlConnection connection, NpgsqlTransaction t
     private void ReadFiles(YearPlan year, CellBlock block, CancellationToken cancel)
     {
         var count = block.Count;
-        var lastBlock = block.FirstCell + count >= plan.Grid.PointCount;
+        var lastBlock = block.FirstCell + count > _cells.Last;
         for (var k = 0; k < plan.Fresh.Count; k++)
         {
             var file = plan.Fresh[k];
@@ -121,7 +124,7 @@ public sealed class BlockLoader(NpgsqlConnection connection, NpgsqlTransaction t
                         block.Scatter(new FileSlab(file, part, variable, t0 - part.First, steps), values, shared);
                     }
                     _doneWork += (long)steps * count;
-                    progress?.Report(new ProgressSnapshot($"loading {year.Year}", _doneWork, _totalWork, BytesRead, clock.Elapsed, "cell-steps"));
+                    progress?.Report(new ProgressSnapshot($"loading {year.Year}", _doneWork, TotalWork, BytesRead, clock.Elapsed, "cell-steps"));
                 }
             }
             finally

@@ -37,7 +37,9 @@ public static class DatasetMetadata
             ["source_comment"] = first.Attribute("comment"),
             ["licence"] = first.Attribute("license") ?? first.Attribute("licence") ?? "not stated in the source files",
             ["citation"] = first.Attribute("references") ?? first.Attribute("citation"),
-            ["depth_note"] = hasDepth
+            ["depth_note"] = first.Spectra is not null
+                ? hasDepth ? "finite-depth power from each output point's depth" : "the source gives no depth at the output points: power is computed for deep water"
+                : hasDepth
                 ? "finite-depth power from the cell depth"
                 : "the source has no depth: power is computed for deep water",
             ["assumptions"] = IngestAssumptions.ToJson(assumptions ?? []),

@@ -57,7 +57,7 @@ public sealed class GridDescription
         }
     }
 
-    public string Describe() => Nx is { } nx ? $"{Kind} {nx} x {Ny}" : $"{Kind}, {PointCount} nodes";
+    public string Describe() => Nx is { } nx ? $"{Kind} {nx} x {Ny}" : _grid is MeshGrid ? $"{Kind}, {PointCount} nodes" : $"{Kind}, {PointCount} points";
 
     /// <summary>The jsonb document stored in dataset.grid.</summary>
     public string ToJson()
@@ -76,6 +76,7 @@ public sealed class GridDescription
         }
         if (_grid is ProjectedGrid projected) json["grid_mapping"] = projected.GridMappingName;
         if (_grid is MeshGrid mesh) { json["mesh"] = mesh.MeshName; json["triangle_count"] = mesh.TriangleCount; }
+        if (_grid is Hindcast.Spectra.StationGrid stations) json["stations"] = new JsonArray([.. stations.Names.Select(n => (JsonNode)JsonValue.Create(n))]);
         return json.ToJsonString();
     }
 

@@ -1,8 +1,12 @@
 using System.Diagnostics;
 using Atlas.Ingest.Progress;
+using Atlas.Ingest.Worker;
 using Atlas.Statistics;
 using Atlas.Storage.Cells;
 using Atlas.Storage.Datasets;
+using Atlas.Storage.Jobs;
+using Atlas.Storage.Passes;
+using Atlas.Storage.Series;
 using Atlas.WavePhysics;
 using Npgsql;
 
@@ -25,7 +29,21 @@ public sealed class HindcastIngestor(NpgsqlDataSource dataSource, StatisticsOpti
 {
     private readonly SpectrumShape _assumedSpectrum = (statistics ?? new StatisticsOptions()).AssumedSpectrum;
 
-    public async Task<IngestSummary> RunAsync(IngestRequest request, IProgress<ProgressSnapshot>? progress = null, CancellationToken cancel = default)
+    public Task<IngestSummary> RunAsync(IngestRequest request, IProgress<ProgressSnapshot>? progress = null, CancellationToken cancel = default) =>
+        WithFilesAsync(request, progress, (files, clock) => LoadAsync(request, files, progress, clock, cancel), cancel);
+
+    /// <summary>
+    /// Runs one part of an ingest in parts (<see cref="IngestInParts"/>): loads the request's range of cells of a new
+    /// dataset under the id the pass reserved, in one transaction that also marks the part done; the part that is done
+    /// last creates the dataset row, its cells, time lines, source files and metadata in the same transaction. Returns
+    /// the part's summary line. Throws <see cref="PartLostException"/> when the part was taken from this worker.
+    /// </summary>
+    public Task<string> RunPartAsync(IngestRequest request, JobRecord part, PassRecord pass, IProgress<ProgressSnapshot>? progress, CancellationToken cancel) =>
+        WithFilesAsync(request, progress, (files, clock) => LoadPartAsync(request, part, pass, files, progress, clock, cancel), cancel);
+
+    /// <summary>Opens the request's files (checksums, grids, times), runs <paramref name="load"/> with them and closes them.</summary>
+    private static async Task<T> WithFilesAsync<T>(IngestRequest request, IProgress<ProgressSnapshot>? progress,
+        Func<List<SourceFile>, Stopwatch, Task<T>> load, CancellationToken cancel)
     {
         var clock = Stopwatch.StartNew();
         if (request.Files.Count == 0) throw new IngestException("No files were given to ingest.");
@@ -40,12 +58,55 @@ public sealed class HindcastIngestor(NpgsqlDataSource dataSource, StatisticsOpti
                 files.Add(opened);
                 progress?.Report(new ProgressSnapshot("opening files", files.Count, request.Files.Count, 0, clock.Elapsed, "files"));
             }
-            return await LoadAsync(request, files, progress, clock, cancel);
+            return await load(files, clock);
         }
         finally
         {
             foreach (var file in files) file.Dispose();
         }
+    }
+
+    private async Task<string> LoadPartAsync(IngestRequest request, JobRecord part, PassRecord pass, List<SourceFile> files,
+        IProgress<ProgressSnapshot>? progress, Stopwatch clock, CancellationToken cancel)
+    {
+        var name = $"ingest {request.DatasetSlug} pass {pass.Id} part {part.Part + 1} of {pass.PartCount}";
+        await using var connection = await dataSource.OpenConnectionAsync(cancel);
+        await using var transaction = await connection.BeginTransactionAsync(cancel);
+        var plan = await IngestPlan.BuildAsync(connection, transaction, request, files, cancel);
+        if (!plan.CreatesDataset)
+            throw new IngestException($"dataset '{request.DatasetSlug}' was created by another load while this ingest in parts ran; nothing of it was kept.");
+        var loader = new BlockLoader(connection, transaction, plan, pass.DatasetId, progress, clock, writeTimelines: false);
+        await loader.LoadAsync(cancel);
+        var cells = request.Cells ?? new CellRange(0, plan.Grid.PointCount - 1);
+        var summary = $"{name}: grid points {cells.First:N0} to {cells.Last:N0}, {loader.CellYears:N0} cell-years, {loader.BytesRead / 1e6:F0} MB in " +
+                      ProgressSnapshot.FormatDuration(clock.Elapsed);
+        var (outcome, _) = await PassStore.MarkPartDoneAsync(connection, transaction, part, part.ClaimedBy ?? "", summary, cancel);
+        switch (outcome)
+        {
+            case PartOutcome.Lost:
+                throw new PartLostException(part.Id, part.ClaimedBy);
+            case PartOutcome.PassGone:
+                return $"{summary}; the pass ended meanwhile, so nothing of this part was kept";
+            case PartOutcome.Stored:
+                await transaction.CommitAsync(cancel);
+                return summary;
+        }
+        // The last part: the dataset appears with all its series at this commit.
+        await DatasetStore.LockForIngestAsync(connection, transaction, request.DatasetSlug, cancel);
+        if (await DatasetStore.FindAsync(connection, transaction, request.DatasetSlug, cancel) is not null)
+            throw new IngestException($"dataset '{request.DatasetSlug}' was created by another load while this ingest in parts ran; nothing of it was kept.");
+        var grid = plan.Grid;
+        await DatasetStore.InsertAsync(connection, transaction, request.DatasetSlug, request.Title ?? plan.Fresh[0].Attribute("title") ?? request.DatasetSlug,
+            grid.Kind, grid.Nx, grid.Ny, grid.PointCount, grid.ToJson(), "{}", cancel, pass.DatasetId);
+        foreach (var year in plan.Years)
+            await DatasetStore.UpsertTimelineAsync(connection, transaction, pass.DatasetId, year, plan.MergedTimelines[year], cancel);
+        var hasData = new bool[grid.PointCount];
+        foreach (var cell in await SeriesStore.CellsWithSeriesAsync(connection, transaction, pass.DatasetId, cancel)) hasData[cell] = true;
+        var (wetCells, deepWaterCells) = await InsertCellsAsync(connection, transaction, plan, pass.DatasetId, hasData, () => { }, cancel);
+        await RecordSourcesAsync(connection, transaction, plan, pass.DatasetId, deepWaterCells, _assumedSpectrum, cancel);
+        await PassStore.MarkPassDoneAsync(connection, transaction, pass.Id, cancel);
+        await transaction.CommitAsync(cancel);
+        return $"{summary}{PassStore.PassCompletedNote}: dataset {request.DatasetSlug} created with {wetCells:N0} wet cells of {grid.PointCount:N0}";
     }
 
     private async Task<IngestSummary> LoadAsync(IngestRequest request, List<SourceFile> files, IProgress<ProgressSnapshot>? progress,
@@ -54,6 +115,9 @@ public sealed class HindcastIngestor(NpgsqlDataSource dataSource, StatisticsOpti
         await using var connection = await dataSource.OpenConnectionAsync(cancel);
         await using var transaction = await connection.BeginTransactionAsync(cancel);
         await DatasetStore.LockForIngestAsync(connection, transaction, request.DatasetSlug, cancel);
+        // An ingest in parts of the dataset creates it at its end: a load now would race it for the slug.
+        if (await new PassStore(dataSource).OpenPassAsync(request.DatasetSlug, cancel) is { Kind: PassKind.Ingest } open)
+            throw new PassOpenException(request.DatasetSlug, open.Id, open.Kind);
 
         var plan = await IngestPlan.BuildAsync(connection, transaction, request, files, cancel);
         if (plan.Fresh.Count == 0)
@@ -71,6 +135,8 @@ public sealed class HindcastIngestor(NpgsqlDataSource dataSource, StatisticsOpti
                 progress?.Report(new ProgressSnapshot("distances to the coast", 0, 1, loader.BytesRead, clock.Elapsed, "steps")), cancel)
             : (await MarkNewlyWetAsync(connection, transaction, datasetId, loader.HasData, cancel), (int?)null);
         var (assumptions, warnings) = await RecordSourcesAsync(connection, transaction, plan, datasetId, deepWaterCells, _assumedSpectrum, cancel);
+        IReadOnlyList<string> spectralNotes = plan.Fresh[0].Spectra is null ? []
+            : await Spectra.SpectralProductWriter.WriteAsync(connection, transaction, plan, datasetId, cancel);
         await transaction.CommitAsync(cancel);
         return new IngestSummary(request.DatasetSlug, plan.Fresh.Count, plan.Skipped, plan.FreshSteps, loader.CellYears, wetCells, loader.BytesRead,
             clock.Elapsed, plan.CreatesDataset)
@@ -78,6 +144,7 @@ public sealed class HindcastIngestor(NpgsqlDataSource dataSource, StatisticsOpti
             SharedSteps = loader.SharedStepCount,
             Assumptions = assumptions,
             Warnings = warnings,
+            SpectralNotes = spectralNotes,
         };
     }
 

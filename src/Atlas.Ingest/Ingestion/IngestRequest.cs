@@ -7,6 +7,7 @@ namespace Atlas.Ingest.Ingestion;
 /// <param name="ReplaceOverlap">When false (the default) a file whose time steps are already stored is refused;
 /// when true its values replace the stored ones.</param>
 /// <param name="MemoryBudgetBytes">Bytes of series buffered at once; the cells are processed in blocks that fit.</param>
+/// <param name="Cells">The grid points to load (a part of an ingest in parts), or null for all of them.</param>
 public sealed record IngestRequest(
     string DatasetSlug,
     IReadOnlyList<string> Files,
@@ -14,7 +15,19 @@ public sealed record IngestRequest(
     bool ReplaceOverlap = false,
     VariableMapping? Mapping = null,
     long? JobId = null,
-    long MemoryBudgetBytes = 256L << 20);
+    long MemoryBudgetBytes = 256L << 20,
+    CellRange? Cells = null)
+{
+    /// <summary>For output points: the slug of the gridded dataset of the same hindcast, whose point answers then add the
+    /// exact spectral values at the nearest of these points.</summary>
+    public string? GridDataset { get; init; }
+}
+
+/// <summary>Grid points <paramref name="First"/> to <paramref name="Last"/>, both included.</summary>
+public readonly record struct CellRange(int First, int Last)
+{
+    public int Count => Last - First + 1;
+}
 
 /// <summary>The one-line outcome of an ingest.</summary>
 public sealed record IngestSummary(
@@ -37,6 +50,9 @@ public sealed record IngestSummary(
     /// <summary>Warnings about the record as a whole (for instance shorter than one month).</summary>
     public IReadOnlyList<string> Warnings { get; init; } = [];
 
+    /// <summary>For spectral output points: how the spectra were read and integrated, in words.</summary>
+    public IReadOnlyList<string> SpectralNotes { get; init; } = [];
+
     /// <summary>The one-line outcome, then one line per wave variable and one per warning.</summary>
     public string Describe()
     {
@@ -46,6 +62,7 @@ public sealed record IngestSummary(
                    (FilesSkipped > 0 ? $"; {FilesSkipped} file(s) already loaded were skipped" : "") +
                    (SharedSteps > 0 ? $"; {SharedSteps:N0} step(s) given twice with identical values were stored once" : "") +
                    (DatasetCreated ? " (new dataset)" : "");
-        return string.Join('\n', [line, .. Assumptions.Select(a => "  " + a.Describe()), .. Warnings.Select(w => "  warning: " + w)]);
+        return string.Join('\n', [line, .. Assumptions.Select(a => "  " + a.Describe()), .. SpectralNotes.Select(n => "  spectra: " + n),
+            .. Warnings.Select(w => "  warning: " + w)]);
     }
 }

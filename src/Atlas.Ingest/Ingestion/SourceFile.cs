@@ -1,43 +1,75 @@
 using System.Security.Cryptography;
 using Atlas.Hindcast;
+using Atlas.Hindcast.Spectra;
+using Atlas.Ingest.Spectra;
 
 namespace Atlas.Ingest.Ingestion;
 
-/// <summary>An opened hindcast file with its checksum and time line (Unix seconds).</summary>
+/// <summary>
+/// An opened hindcast file with its checksum and time line (Unix seconds): a gridded or mesh file of wave fields, or a
+/// file of spectra at output points, whose spectra are integrated on opening (<see cref="IntegratedSpectra"/>) and then
+/// read as fields of stations.
+/// </summary>
 public sealed class SourceFile : IDisposable
 {
     private readonly VariableMapping? _mapping;
-    private HindcastFile? _file;
+    private IStepReader? _file;
 
     private SourceFile(HindcastFile file, VariableMapping? mapping, string sha256, long sizeBytes, IReadOnlyDictionary<string, string> attributes,
         DepthLookalike? depthLookalike)
+        : this(file.Path, file.Grid, file.TimesUtc, mapping, sha256, sizeBytes, attributes)
     {
-        Attributes = attributes;
         DepthLookalike = depthLookalike;
         Sources = WaveParameterGroups.HindcastFields.Where(file.Has).ToDictionary(v => v, v =>
         {
             var resolved = file.Source(v)!;
             return new VariableSource(resolved.Name, resolved.HowFound, resolved.DescribeConversion(file.DecoderOf(v)!));
         });
-        _file = file;
-        _mapping = mapping;
-        Path = file.Path;
-        Grid = file.Grid;
         Variables = WaveParameterGroups.HindcastFields.Where(file.Has).ToHashSet();
+        _file = file;
+    }
+
+    private SourceFile(IntegratedSpectra spectra, VariableMapping? mapping, string sha256, long sizeBytes, IReadOnlyDictionary<string, string> attributes,
+        string path)
+        : this(path, spectra.Grid, spectra.TimesUtc, mapping, sha256, sizeBytes, attributes)
+    {
+        Spectra = spectra;
+        var fields = WaveParameterGroups.SeriesFields.Where(v => spectra.Axes.IsDirectional || v is not (WaveParameter.Dir or WaveParameter.Spread)).ToList();
+        if (spectra.HasDepth) fields.Add(WaveParameter.Depth);
+        Variables = fields.ToHashSet();
+        Sources = fields.ToDictionary(v => v, v => v == WaveParameter.Depth
+            ? new VariableSource(spectra.SpectrumVariable, "the output points' depths", string.Join("; ", spectra.Notes.Where(n => n.StartsWith("depth") || n.StartsWith("no depth"))))
+            : new VariableSource(spectra.SpectrumVariable, "integrated from the spectrum", "none"));
+        _file = spectra;
+    }
+
+    private SourceFile(string path, HindcastGrid grid, IReadOnlyList<DateTime> times, VariableMapping? mapping, string sha256, long sizeBytes,
+        IReadOnlyDictionary<string, string> attributes)
+    {
+        Attributes = attributes;
+        _mapping = mapping;
+        Path = path;
+        Grid = grid;
         Sha256 = sha256;
         SizeBytes = sizeBytes;
-        Times = file.TimesUtc.Select(t => new DateTimeOffset(DateTime.SpecifyKind(t, DateTimeKind.Utc)).ToUnixTimeSeconds()).ToArray();
+        Times = times.Select(t => new DateTimeOffset(DateTime.SpecifyKind(t, DateTimeKind.Utc)).ToUnixTimeSeconds()).ToArray();
+        Variables = new HashSet<WaveParameter>();
+        Sources = new Dictionary<WaveParameter, VariableSource>();
     }
 
     /// <summary>
     /// The open file, opened again on demand after <see cref="Release"/>. Files are released as soon as the ingest
     /// is done with them, so that netCDF-C's per-variable chunk caches of many files never pile up in memory.
+    /// Integrated spectra stay: they are what the products' writer stores after the series.
     /// </summary>
-    public HindcastFile File => _file ??= HindcastFile.Open(Path, _mapping);
+    public IStepReader File => _file ??= HindcastFile.Open(Path, _mapping);
+
+    /// <summary>The integrated spectra of a point file; null for a file of fields.</summary>
+    public IntegratedSpectra? Spectra { get; }
 
     public string Path { get; }
     public HindcastGrid Grid { get; }
-    public IReadOnlySet<WaveParameter> Variables { get; }
+    public IReadOnlySet<WaveParameter> Variables { get; private init; }
     public bool Has(WaveParameter variable) => Variables.Contains(variable);
     public string Name => System.IO.Path.GetFileName(Path);
     public string Sha256 { get; }
@@ -50,37 +82,64 @@ public sealed class SourceFile : IDisposable
     public string? Attribute(string name) => Attributes.GetValueOrDefault(name);
 
     /// <summary>The file variable behind each wave variable the file has, how it was found and how it is converted.</summary>
-    public IReadOnlyDictionary<WaveParameter, VariableSource> Sources { get; }
+    public IReadOnlyDictionary<WaveParameter, VariableSource> Sources { get; private init; }
 
     /// <summary>A variable named like the water depth that was not taken for it, and why; null when there is none.</summary>
-    public DepthLookalike? DepthLookalike { get; }
+    public DepthLookalike? DepthLookalike { get; private init; }
 
     /// <summary>Opens and decodes a file, and checksums its bytes (SHA-256, streamed).</summary>
     public static SourceFile Open(string path, VariableMapping? mapping)
     {
         if (!System.IO.File.Exists(path)) throw new IngestException($"{path}: no such file.");
-        string sha;
-        using (var stream = new FileStream(path, FileMode.Open, FileAccess.Read, FileShare.Read, 1 << 20))
-            sha = Convert.ToHexStringLower(SHA256.HashData(stream));
-        var file = HindcastFile.Open(path, mapping);
+        // The checksum reads the file once more: it runs beside the decoding (and a spectral file's integration).
+        var checksum = Task.Run(() =>
+        {
+            using var stream = new FileStream(path, FileMode.Open, FileAccess.Read, FileShare.Read, 1 << 20);
+            return Convert.ToHexStringLower(SHA256.HashData(stream));
+        });
+        try
+        {
+            return OpenDecoded(path, mapping, checksum);
+        }
+        finally
+        {
+            // A failed decoding still waits for the checksum, so that no read of the file outlives the call.
+            try { checksum.Wait(); } catch (AggregateException) { }
+        }
+    }
+
+    private static SourceFile OpenDecoded(string path, VariableMapping? mapping, Task<string> checksum)
+    {
         Dictionary<string, string> attributes;
-        DepthLookalike? lookalike = null;
+        bool spectral;
         using (var raw = NetCdfFile.Open(path))
         {
             attributes = raw.GlobalAttributes.Where(a => a.IsText).ToDictionary(a => a.Name, a => a.Text!, StringComparer.OrdinalIgnoreCase);
-            if (!file.Has(WaveParameter.Depth)) lookalike = CfDecoder.WaterDepthLookalike(raw);
+            spectral = PointSpectraFile.HoldsSpectra(raw, mapping);
         }
+        if (spectral)
+        {
+            using var points = PointSpectraFile.Open(path, mapping);
+            if (points.TimesUtc.Count == 0) throw new IngestException($"{System.IO.Path.GetFileName(path)}: the time axis is empty; there is nothing to load.");
+            var integrated = IntegratedSpectra.Integrate(points);
+            return new SourceFile(integrated, mapping, checksum.GetAwaiter().GetResult(), new FileInfo(path).Length, attributes, path);
+        }
+        var file = HindcastFile.Open(path, mapping);
+        DepthLookalike? lookalike = null;
+        if (!file.Has(WaveParameter.Depth))
+            using (var raw = NetCdfFile.Open(path)) lookalike = CfDecoder.WaterDepthLookalike(raw);
         if (file.TimesUtc.Count == 0)
         {
             file.Dispose();
             throw new IngestException($"{System.IO.Path.GetFileName(path)}: the time axis is empty; there is nothing to load.");
         }
-        return new SourceFile(file, mapping, sha, new FileInfo(path).Length, attributes, lookalike);
+        return new SourceFile(file, mapping, checksum.GetAwaiter().GetResult(), new FileInfo(path).Length, attributes, lookalike);
     }
 
     /// <summary>Closes the file (and frees its caches) until it is next needed.</summary>
     public void Release()
     {
+        if (Spectra is not null) return;
         _file?.Dispose();
         _file = null;
     }

@@ -11,11 +11,14 @@ public sealed class CellSeriesBuffer
 {
     private readonly float[][] _values;
     private readonly bool[] _present = new bool[SeriesCodec.VariableCount];
+    private readonly float[] _power;
+    private bool _hasPower;
 
     public CellSeriesBuffer(int stepCount)
     {
         _values = new float[SeriesCodec.VariableCount][];
         for (var v = 0; v < _values.Length; v++) _values[v] = new float[stepCount];
+        _power = new float[stepCount];
     }
 
     public int CellId { get; private set; }
@@ -28,6 +31,19 @@ public sealed class CellSeriesBuffer
         DepthMetres = depthMetres;
         Array.Clear(_present);
         foreach (var values in _values) values.AsSpan().Fill(float.NaN);
+        _hasPower = false;
+    }
+
+    /// <summary>
+    /// Places one year of power integrated from an output point's spectra (aligned with the year's time line): the cell's
+    /// power is then this rather than the one derived from Hs and Te. Steps of years without it stay missing.
+    /// </summary>
+    public void AddPower(int year, ReadOnlySpan<float> power, IReadOnlyDictionary<int, (int Offset, int Count)> yearOffsets)
+    {
+        if (!yearOffsets.TryGetValue(year, out var place) || power.Length != place.Count) return;
+        if (!_hasPower) _power.AsSpan().Fill(float.NaN);
+        power.CopyTo(_power.AsSpan(place.Offset, place.Count));
+        _hasPower = true;
     }
 
     /// <summary>
@@ -53,6 +69,7 @@ public sealed class CellSeriesBuffer
         Tp = Present(WaveParameter.Tp),
         Dir = Present(WaveParameter.Dir),
         Spread = Present(WaveParameter.Spread),
+        Power = _hasPower ? _power : ReadOnlySpan<float>.Empty,
         DepthMetres = UsableDepth(DepthMetres),
     };
 

@@ -13,6 +13,9 @@ namespace Atlas.Ingest.Statistics;
 public sealed class CellSeriesProducer(SeriesStore series, int datasetId, IReadOnlyDictionary<int, CellRecord> wetCells, int[]? onlyCells,
     DatasetTimeline timeline)
 {
+    /// <summary>For a dataset of output points: each station-year's power integrated from the spectra, by (cell, year).</summary>
+    public IReadOnlyDictionary<(int Cell, int Year), float[]>? SpectralPower { get; init; }
+
     /// <summary>Produces every cell's series into <paramref name="work"/> and completes it (with the error, on failure).</summary>
     public async Task RunAsync(ChannelReader<CellSeriesBuffer> free, ChannelWriter<CellSeriesBuffer> work, CancellationToken cancel)
     {
@@ -35,6 +38,8 @@ public sealed class CellSeriesProducer(SeriesStore series, int datasetId, IReadO
                     }
                 }
                 buffer?.Add(chunk.Year, chunk.Payload.Span, timeline.Years);
+                if (buffer is not null && SpectralPower?.GetValueOrDefault((chunk.CellId, chunk.Year)) is { } power)
+                    buffer.AddPower(chunk.Year, power, timeline.Years);
             }
             if (buffer is not null) await work.WriteAsync(buffer, cancel);
             work.Complete();

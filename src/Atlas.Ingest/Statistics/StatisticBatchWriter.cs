@@ -1,16 +1,15 @@
 using System.Threading.Channels;
 using Atlas.Ingest.Progress;
-using Atlas.Storage.Statistics;
 
 namespace Atlas.Ingest.Statistics;
 
 /// <summary>
-/// The write stage of a statistics pass: batches are stored by writers of their own (StatisticsStore, binary COPY, one
-/// transaction per batch), so the calculators keep computing while PostgreSQL stores them, on several connections so
+/// The write stage of a statistics pass: batches are stored by writers of their own (<paramref name="store"/>: the
+/// StatisticsStore or a pass's staging table, binary COPY, one transaction per batch), so the calculators keep computing while PostgreSQL stores them, on several connections so
 /// that one batch's COPY overlaps another's commit. Batches hold disjoint blocks, so their transactions never wait on
 /// each other. A writer that fails cancels the whole pass.
 /// </summary>
-public sealed class StatisticBatchWriter(StatisticsStore store, int datasetId, DateTime computedAtUtc, int targetCells,
+public sealed class StatisticBatchWriter(Func<StatisticBatch, CancellationToken, Task> store, int targetCells,
     IProgress<ProgressSnapshot>? progress, System.Diagnostics.Stopwatch clock)
 {
     private int _done;
@@ -34,7 +33,7 @@ public sealed class StatisticBatchWriter(StatisticsStore store, int datasetId, D
         {
             await foreach (var batch in batches.ReadAllAsync(pass.Token))
             {
-                await store.ReplaceBlocksAsync(datasetId, batch.Cells, batch.Blocks, computedAtUtc, pass.Token);
+                await store(batch, pass.Token);
                 var cellsDone = Interlocked.Add(ref _done, batch.Cells.Count);
                 progress?.Report(new ProgressSnapshot("statistics", cellsDone, targetCells, 0, clock.Elapsed, "cells"));
             }

@@ -6,6 +6,7 @@ using Atlas.Ingest.Progress;
 using Atlas.Statistics;
 using Atlas.Storage.Cells;
 using Atlas.Storage.Datasets;
+using Atlas.Storage.Passes;
 using Atlas.Storage.Series;
 using Atlas.Storage.Statistics;
 using Npgsql;
@@ -34,33 +35,54 @@ public sealed class StatisticsService(NpgsqlDataSource dataSource, StatisticsOpt
     public async Task<StatisticsSummary> RunAsync(string slug, bool all, IProgress<ProgressSnapshot>? progress = null, CancellationToken cancel = default)
     {
         var clock = Stopwatch.StartNew();
+        var plan = await PlanAsync(slug, all, cancel);
+        if (plan.Targets.Length == 0) return new StatisticsSummary(slug, 0, 0, 0, 0, clock.Elapsed);
+        // A pass in parts publishes its blocks at its end: a plain pass under way meanwhile would interleave with it.
+        if (await new PassStore(dataSource).OpenPassAsync(slug, cancel) is { } open) throw new PassOpenException(slug, open.Id, open.Kind);
         var datasets = new DatasetStore(dataSource);
-        var dataset = await datasets.FindAsync(slug, cancel) ?? throw new IngestException($"There is no dataset '{slug}'.");
+        if (UnsettledMetadata(plan) is { } unsettled) await datasets.MergeMetadataAsync(plan.Dataset.Id, unsettled, cancel);
+        var timeline = DatasetTimeline.Of(await datasets.TimelinesAsync(plan.Dataset.Id, cancel));
+        var computedAt = DateTime.UtcNow;
+        var store = new StatisticsStore(dataSource);
+        var (done, periods, rows) = await ComputeAsync(plan.Dataset.Id, plan.Cells, plan.Targets, plan.Targets.Length == plan.Cells.Count ? null : plan.Targets,
+            timeline, (batch, token) => store.ReplaceBlocksAsync(plan.Dataset.Id, batch.Cells, batch.Blocks, computedAt, token), progress, clock, cancel);
+        await datasets.MergeMetadataAsync(plan.Dataset.Id, MethodNotes(computedAt, plan.Dataset.GridKind == Spectra.StationSpectraAnswers.StationsKind), cancel);
+        return new StatisticsSummary(slug, done, periods, rows, (long)done * timeline.Times.Length, clock.Elapsed, plan.MethodChanged, plan.OptionsChanged);
+    }
+
+    /// <summary>
+    /// What a pass over <paramref name="slug"/> recomputes: the wet cells whose series changed (whole blocks), or every
+    /// wet cell when asked, or when the stored statistics came from another method version or other options.
+    /// </summary>
+    internal async Task<StatisticsPlan> PlanAsync(string slug, bool all, CancellationToken cancel)
+    {
+        var dataset = await new DatasetStore(dataSource).FindAsync(slug, cancel) ?? throw new IngestException($"There is no dataset '{slug}'.");
         var cells = (await new CellStore(dataSource).AllAsync(dataset.Id, cancel)).Where(c => c.Wet).ToDictionary(c => c.CellId);
         // Statistics of an earlier method or of other options are all recomputed, whatever changed: old and new values never mix.
         var methodChanged = !all && StoredMethodVersion(dataset.MetadataJson) is { } stored && stored != Atlas.Statistics.MethodNotes.Version;
         var optionsChanged = !all && !methodChanged && RecordedStatisticsOptions.Differ(dataset.MetadataJson, _options);
         all |= methodChanged || optionsChanged;
         var targets = all ? cells.Keys.Order().ToArray() : WholeBlocks(await new StatisticsStore(dataSource).StaleCellsAsync(dataset.Id, cancel), cells.Keys);
-        if (targets.Length == 0) return new StatisticsSummary(slug, 0, 0, 0, 0, clock.Elapsed);
-
-        // Until this pass ends the stored statistics are partly of either options: say so, so that a pass that fails
-        // half-way is followed by one that recomputes every cell.
-        if (all && RecordedStatisticsOptions.Differ(dataset.MetadataJson, _options))
-            await datasets.MergeMetadataAsync(dataset.Id, RecordedStatisticsOptions.Unsettled(dataset.MetadataJson), cancel);
-        var timeline = DatasetTimeline.Of(await datasets.TimelinesAsync(dataset.Id, cancel));
-        var computedAt = DateTime.UtcNow;
-        var (done, periods, rows) = await ComputeAsync(dataset.Id, cells, targets, timeline, computedAt, progress, clock, cancel);
-        await datasets.MergeMetadataAsync(dataset.Id, MethodNotes(computedAt), cancel);
-        return new StatisticsSummary(slug, done, periods, rows, (long)done * timeline.Times.Length, clock.Elapsed, methodChanged, optionsChanged);
+        return new StatisticsPlan(dataset, cells, targets, all, methodChanged, optionsChanged);
     }
+
+    /// <summary>
+    /// Until a pass of every cell with other options ends, the stored statistics are partly of either options: the
+    /// metadata to merge as the pass begins says so, so that a pass that fails half-way is followed by one that
+    /// recomputes every cell. Null when the pass keeps the recorded options.
+    /// </summary>
+    internal string? UnsettledMetadata(StatisticsPlan plan) =>
+        plan.All && RecordedStatisticsOptions.Differ(plan.Dataset.MetadataJson, _options) ? RecordedStatisticsOptions.Unsettled(plan.Dataset.MetadataJson) : null;
 
     /// <summary>
     /// Runs the four stages over <paramref name="targets"/>; returns the cells stored, the periods and the rows. The
     /// first stage to fail cancels the others, and its error is the one reported.
     /// </summary>
-    private async Task<(int Cells, int Periods, long Rows)> ComputeAsync(int datasetId, IReadOnlyDictionary<int, CellRecord> cells, int[] targets,
-        DatasetTimeline timeline, DateTime computedAt, IProgress<ProgressSnapshot>? progress, Stopwatch clock, CancellationToken cancel)
+    /// <param name="onlyCells">The cells to stream, or null for every cell of the dataset (when the targets are all of them).</param>
+    /// <param name="store">Stores one batch of whole blocks, in one transaction.</param>
+    internal async Task<(int Cells, int Periods, long Rows)> ComputeAsync(int datasetId, IReadOnlyDictionary<int, CellRecord> cells, int[] targets,
+        int[]? onlyCells, DatasetTimeline timeline, Func<StatisticBatch, CancellationToken, Task> store, IProgress<ProgressSnapshot>? progress,
+        Stopwatch clock, CancellationToken cancel)
     {
         var workers = Math.Max(1, Environment.ProcessorCount);
         var free = Channel.CreateUnbounded<CellSeriesBuffer>();
@@ -71,11 +93,14 @@ public sealed class StatisticsService(NpgsqlDataSource dataSource, StatisticsOpt
         using var linked = CancellationTokenSource.CreateLinkedTokenSource(cancel);
         var token = linked.Token;
 
-        var producer = new CellSeriesProducer(new SeriesStore(dataSource), datasetId, cells, targets.Length == cells.Count ? null : targets, timeline);
+        var producer = new CellSeriesProducer(new SeriesStore(dataSource), datasetId, cells, onlyCells, timeline)
+        {
+            SpectralPower = await SpectralPowerAsync(datasetId, cancel),
+        };
         var produced = Task.Run(() => producer.RunAsync(free.Reader, work.Writer, token), token);
         var calculators = new CellCalculators(_options, timeline.Times, workers);
         var calculated = calculators.Start(work.Reader, free.Writer, results.Writer, token);
-        var writer = new StatisticBatchWriter(new StatisticsStore(dataSource), datasetId, computedAt, targets.Length, progress, clock);
+        var writer = new StatisticBatchWriter(store, targets.Length, progress, clock);
         var written = writer.Start(batches.Reader, WriterConnections, linked);
         var assembler = new StatisticBlockAssembler(targets, CellsPerBatch);
         try
@@ -96,6 +121,17 @@ public sealed class StatisticsService(NpgsqlDataSource dataSource, StatisticsOpt
             throw;
         }
         return (writer.CellsDone, assembler.Periods, assembler.Rows);
+    }
+
+    /// <summary>
+    /// The power integrated from the spectra of every station-year of a dataset of output points (small: five values per
+    /// station and step are stored, and a points dataset has tens of stations); null for gridded fields.
+    /// </summary>
+    private async Task<IReadOnlyDictionary<(int Cell, int Year), float[]>?> SpectralPowerAsync(int datasetId, CancellationToken cancel)
+    {
+        await using var connection = await dataSource.OpenConnectionAsync(cancel);
+        var steps = await Atlas.Storage.Spectra.StationSpectraStore.ReadStepsAsync(connection, null, datasetId, null, null, cancel);
+        return steps.Count == 0 ? null : steps.ToDictionary(kv => kv.Key, kv => kv.Value.PowerSpectral);
     }
 
     private static StatisticsOptions Checked(StatisticsOptions options)
@@ -119,7 +155,8 @@ public sealed class StatisticsService(NpgsqlDataSource dataSource, StatisticsOpt
         return wetCells.Where(c => blocks.Contains(StatisticBlock.BlockOf(c))).Order().ToArray();
     }
 
-    private string MethodNotes(DateTime computedAt)
+    /// <summary>The method notes a pass records in the dataset's metadata (member <c>statistics</c>), as a JSON object.</summary>
+    internal string MethodNotes(DateTime computedAt, bool outputPoints)
     {
         var notes = new JsonObject
         {
@@ -128,8 +165,13 @@ public sealed class StatisticsService(NpgsqlDataSource dataSource, StatisticsOpt
                 ["computed_at"] = computedAt.ToString("O"),
                 ["method_version"] = Atlas.Statistics.MethodNotes.Version,
                 ["software_version"] = typeof(StatisticsService).Assembly.GetName().Version?.ToString(),
-                ["power"] = "omnidirectional power per time step from Hm0 and Te with the linear-theory group velocity at Te and the cell depth " +
-                            "(rho 1025 kg/m3, g 9.81 m/s2; deep water where the depth is unknown), then averaged; never from mean Hs and mean Te",
+                ["power"] = outputPoints
+                    ? "omnidirectional power per time step integrated from the output point's spectrum, J = rho g sum cg(f, h) S(f) df with each " +
+                      "frequency's group velocity at the station depth (trapezoidal rule over the given frequencies; rho 1025 kg/m3, g 9.81 m/s2), " +
+                      "then averaged. The point answers give the power from Hm0 and Te beside it and the directionality from the period-mean " +
+                      "J_theta of the spectra; the directionality of these layers models each step's spreading from its spread, as for gridded fields"
+                    : "omnidirectional power per time step from Hm0 and Te with the linear-theory group velocity at Te and the cell depth " +
+                      "(rho 1025 kg/m3, g 9.81 m/s2; deep water where the depth is unknown), then averaged; never from mean Hs and mean Te",
                 ["energy_period"] = $"Te from the source; where absent, assumed from Tp for the {Atlas.Statistics.MethodNotes.AssumedSpectrum(_options.AssumedSpectrum)}",
                 ["direction"] = "power-weighted circular mean of the direction waves come from; 16-sector power rose",
                 ["directionality"] = Atlas.Statistics.MethodNotes.Directionality,
@@ -150,3 +192,10 @@ public sealed class StatisticsService(NpgsqlDataSource dataSource, StatisticsOpt
         return notes.ToJsonString();
     }
 }
+
+/// <summary>What a statistics pass recomputes (<see cref="StatisticsService.PlanAsync"/>).</summary>
+/// <param name="Cells">The dataset's wet cells, by id.</param>
+/// <param name="Targets">The cells to recompute, ascending: whole blocks of cells.</param>
+/// <param name="All">True when every wet cell is recomputed.</param>
+internal sealed record StatisticsPlan(DatasetRecord Dataset, Dictionary<int, CellRecord> Cells, int[] Targets, bool All, bool MethodChanged,
+    bool OptionsChanged);

@@ -31,6 +31,12 @@ public readonly ref struct CellSeries
     /// <summary>Directional spread per step, degrees; empty when absent.</summary>
     public ReadOnlySpan<float> Spread { get; init; }
 
+    /// <summary>
+    /// Power per step integrated from the spectrum, kW/m (an output point of a spectral hindcast); empty for a cell of
+    /// gridded fields, whose power is derived from Hs and Te at the cell depth. When given it is used as the power.
+    /// </summary>
+    public ReadOnlySpan<float> Power { get; init; }
+
     /// <summary>Cell depth, m (positive down); NaN when unknown, which means deep water.</summary>
     public double DepthMetres { get; init; }
 
@@ -45,6 +51,7 @@ public readonly ref struct CellSeries
         CheckOptional(Tp.Length, n, nameof(Tp));
         CheckOptional(Dir.Length, n, nameof(Dir));
         CheckOptional(Spread.Length, n, nameof(Spread));
+        CheckOptional(Power.Length, n, nameof(Power));
         double depth = DepthMetres;
         if (!double.IsNaN(depth) && !double.IsPositiveInfinity(depth) && !(depth > 0))
             throw new ArgumentException($"CellSeries.DepthMetres is {depth}; a depth must be positive (m), or NaN when unknown.", "series");

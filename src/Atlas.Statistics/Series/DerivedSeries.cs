@@ -26,7 +26,8 @@ internal sealed class DerivedSeriesBuffers(ArrayPool<float>? pool = null) : IDis
     /// Te is the dataset's when it has any valid step; otherwise ratio x Tp when Tp is given (the ratio of
     /// <see cref="StatisticsOptions.AssumedSpectrum"/>); otherwise unavailable. A step with Te present but missing stays
     /// missing (Te and Tp are never mixed within one series). Power needs Hs and Te at the step and uses the group
-    /// velocity at the cell depth, deep water when the depth is unknown.
+    /// velocity at the cell depth, deep water when the depth is unknown; a power given with the series (integrated from
+    /// a spectrum) is used as it is.
     /// </summary>
     public DerivedSeries Derive(in CellSeries series, StatisticsOptions options)
     {
@@ -54,7 +55,8 @@ internal sealed class DerivedSeriesBuffers(ArrayPool<float>? pool = null) : IDis
         }
 
         ReadOnlySpan<float> power = [];
-        if (te.Length == n && n > 0)
+        if (series.Power.Length == n && n > 0) power = series.Power;
+        else if (te.Length == n && n > 0)
         {
             WavePower.OmnidirectionalPower(series.Hs, te, new GroupVelocityTable(series.DepthMetres), _power.AsSpan(0, n));
             power = _power.AsSpan(0, n);

@@ -41,6 +41,14 @@ public sealed class BinaryCopyEncoder(Stream target)
         Int32Raw(value);
     }
 
+    public void WriteInt64(long value)
+    {
+        Ensure(12);
+        Int32Raw(8);
+        BinaryPrimitives.WriteInt64BigEndian(_buffer.AsSpan(_used), value);
+        _used += 8;
+    }
+
     public void WriteInt16(short value)
     {
         Ensure(6);

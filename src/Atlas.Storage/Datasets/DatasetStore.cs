@@ -44,13 +44,17 @@ public sealed class DatasetStore(NpgsqlDataSource dataSource)
         return rows.Count == 0 ? null : rows[0];
     }
 
-    /// <summary>Inserts a dataset and returns its id. The caller's transaction makes it visible with its data.</summary>
+    /// <summary>
+    /// Inserts a dataset and returns its id: a new one, or <paramref name="reservedId"/> (taken from the id sequence
+    /// earlier by an ingest in parts, whose series already carry it). The caller's transaction makes it visible with its data.
+    /// </summary>
     public static async Task<int> InsertAsync(NpgsqlConnection connection, NpgsqlTransaction transaction, string slug, string title,
-        string gridKind, int? nx, int? ny, int pointCount, string gridJson, string metadataJson, CancellationToken cancel)
+        string gridKind, int? nx, int? ny, int pointCount, string gridJson, string metadataJson, CancellationToken cancel, int? reservedId = null)
     {
         await using var command = new NpgsqlCommand("""
-            INSERT INTO dataset (slug, title, grid_kind, nx, ny, point_count, grid, metadata)
-            VALUES ($1, $2, $3, $4, $5, $6, $7::jsonb, $8::jsonb) RETURNING dataset_id
+            INSERT INTO dataset (dataset_id, slug, title, grid_kind, nx, ny, point_count, grid, metadata) OVERRIDING SYSTEM VALUE
+            VALUES (coalesce($9, nextval(pg_get_serial_sequence('dataset', 'dataset_id'))::int), $1, $2, $3, $4, $5, $6, $7::jsonb, $8::jsonb)
+            RETURNING dataset_id
             """, connection, transaction);
         command.Parameters.AddWithValue(slug);
         command.Parameters.AddWithValue(title);
@@ -60,6 +64,7 @@ public sealed class DatasetStore(NpgsqlDataSource dataSource)
         command.Parameters.AddWithValue(pointCount);
         command.Parameters.AddWithValue(gridJson);
         command.Parameters.AddWithValue(metadataJson);
+        command.Parameters.AddWithValue(NpgsqlDbType.Integer, (object?)reservedId ?? DBNull.Value);
         return (int)(await command.ExecuteScalarAsync(cancel))!;
     }
 
@@ -124,11 +129,18 @@ public sealed class DatasetStore(NpgsqlDataSource dataSource)
             while (await reader.ReadAsync(cancel)) running.Add(reader.GetInt64(0));
         }
         if (running.Count > 0) return new DatasetRemoval(DatasetRemovalOutcome.Busy, running);
-        foreach (var table in PerCellTables.Append(StatisticBlockTable))
+        foreach (var table in PerCellTables.Append(StatisticBlockTable).Append(StatisticStageTable))
         {
             await using var delete = new NpgsqlCommand($"DELETE FROM {table} WHERE dataset_id = $1", connection, transaction);
             delete.Parameters.AddWithValue(dataset.Id);
             await delete.ExecuteNonQueryAsync(cancel);
+        }
+        // Passes name the dataset by id and slug without a foreign key (an ingest pass comes before its dataset row);
+        // the jobs of their parts follow them.
+        await using (var passes = new NpgsqlCommand("DELETE FROM pass WHERE dataset_slug = $1", connection, transaction))
+        {
+            passes.Parameters.AddWithValue(slug);
+            await passes.ExecuteNonQueryAsync(cancel);
         }
         // dataset_year, source_file and layer_cache follow by ON DELETE CASCADE.
         await using (var command = new NpgsqlCommand("DELETE FROM dataset WHERE dataset_id = $1", connection, transaction))
@@ -147,12 +159,22 @@ public sealed class DatasetStore(NpgsqlDataSource dataSource)
             SELECT (SELECT count(*) FROM series_chunk WHERE dataset_id = $1),
                    (SELECT coalesce(sum(pg_column_size(payload)), 0) FROM series_chunk WHERE dataset_id = $1)::bigint,
                    (SELECT count(*) FROM statistic_block WHERE dataset_id = $1),
-                   (SELECT coalesce(sum(pg_column_size(s.*)), 0) FROM statistic_block s WHERE dataset_id = $1)::bigint
+                   (SELECT coalesce(sum(pg_column_size(s.*)), 0) FROM statistic_block s WHERE dataset_id = $1)::bigint,
+                   (SELECT count(*) FROM station_step WHERE dataset_id = $1),
+                   (SELECT coalesce(sum(pg_column_size(s.*)), 0) FROM station_step s WHERE dataset_id = $1)::bigint,
+                   (SELECT count(*) FROM station_spectrum_month WHERE dataset_id = $1),
+                   (SELECT coalesce(sum(pg_column_size(s.*)), 0) FROM station_spectrum_month s WHERE dataset_id = $1)::bigint
             """);
         command.Parameters.AddWithValue(datasetId);
         await using var reader = await command.ExecuteReaderAsync(cancel);
         await reader.ReadAsync(cancel);
-        return new DatasetStorage(reader.GetInt64(0), reader.GetInt64(1), reader.GetInt64(2), reader.GetInt64(3));
+        return new DatasetStorage(reader.GetInt64(0), reader.GetInt64(1), reader.GetInt64(2), reader.GetInt64(3))
+        {
+            SpectralYearCount = reader.GetInt64(4),
+            SpectralBytes = reader.GetInt64(5),
+            SpectrumMonthCount = reader.GetInt64(6),
+            SpectrumMonthBytes = reader.GetInt64(7),
+        };
     }
 
     /// <summary>Tables keyed by cell, which carry no foreign key to dataset (so they can be distributed by cell).</summary>
@@ -163,6 +185,9 @@ public sealed class DatasetStore(NpgsqlDataSource dataSource)
     /// like the per-cell tables it carries no foreign key to dataset.
     /// </summary>
     public const string StatisticBlockTable = "statistic_block";
+
+    /// <summary>Statistic blocks of passes in parts not yet finished (<see cref="Passes.PassStore"/>), keyed by pass, dataset and block.</summary>
+    public const string StatisticStageTable = "statistic_block_stage";
 
     public async Task<DatasetSummary?> SummariseAsync(string slug, CancellationToken cancel = default)
     {

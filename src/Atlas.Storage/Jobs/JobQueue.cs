@@ -56,6 +56,35 @@ public sealed class JobQueue(NpgsqlDataSource dataSource)
 
     public Task CompleteAsync(long jobId, string summary, CancellationToken cancel = default) => FinishAsync(jobId, "done", null, summary, cancel);
 
+    /// <summary>Marks a job done when <paramref name="worker"/> still holds it running; otherwise changes nothing.</summary>
+    public async Task CompleteIfHeldAsync(long jobId, string worker, string summary, CancellationToken cancel = default)
+    {
+        await using var command = dataSource.CreateCommand(
+            "UPDATE job SET state = 'done', summary = $3, finished_at = now() WHERE job_id = $1 AND state = 'running' AND claimed_by = $2");
+        command.Parameters.AddWithValue(jobId);
+        command.Parameters.AddWithValue(worker);
+        command.Parameters.AddWithValue(summary);
+        await command.ExecuteNonQueryAsync(cancel);
+    }
+
+    /// <summary>Marks a job failed when <paramref name="worker"/> still holds it running; returns whether it did.</summary>
+    public async Task<bool> FailIfHeldAsync(long jobId, string worker, string error, CancellationToken cancel = default)
+    {
+        await using var command = dataSource.CreateCommand(
+            "UPDATE job SET state = 'failed', error = $3, finished_at = now() WHERE job_id = $1 AND state = 'running' AND claimed_by = $2");
+        command.Parameters.AddWithValue(jobId);
+        command.Parameters.AddWithValue(worker);
+        command.Parameters.AddWithValue(error);
+        return await command.ExecuteNonQueryAsync(cancel) == 1;
+    }
+
+    /// <summary>Whether any job is queued or running (a worker run until idle stops when none is).</summary>
+    public async Task<bool> AnyPendingAsync(CancellationToken cancel = default)
+    {
+        await using var command = dataSource.CreateCommand("SELECT EXISTS (SELECT 1 FROM job WHERE state IN ('queued', 'running'))");
+        return (bool)(await command.ExecuteScalarAsync(cancel))!;
+    }
+
     public Task FailAsync(long jobId, string error, CancellationToken cancel = default) => FinishAsync(jobId, "failed", error, null, cancel);
 
     /// <summary>Puts a job back in the queue (its worker is shutting down before finishing it).</summary>
@@ -132,9 +161,24 @@ public sealed class JobQueue(NpgsqlDataSource dataSource)
         await command.ExecuteNonQueryAsync(cancel);
     }
 
-    private const string Columns = "job_id, kind, dataset_slug, state, payload::text, attempts, claimed_by, created_at, finished_at, progress::text, error, summary";
+    private const string Columns = "job_id, kind, dataset_slug, state, payload::text, attempts, claimed_by, created_at, finished_at, progress::text, error, summary, pass_id, part";
 
-    public static string KindName(JobKind kind) => kind == JobKind.Ingest ? "ingest" : "statistics";
+    public static string KindName(JobKind kind) => kind switch
+    {
+        JobKind.Ingest => "ingest",
+        JobKind.Statistics => "statistics",
+        JobKind.StatisticsPart => "statistics-part",
+        _ => "ingest-part",
+    };
+
+    public static JobKind KindOf(string name) => name switch
+    {
+        "ingest" => JobKind.Ingest,
+        "statistics" => JobKind.Statistics,
+        "statistics-part" => JobKind.StatisticsPart,
+        "ingest-part" => JobKind.IngestPart,
+        _ => throw new ArgumentOutOfRangeException(nameof(name), name, "Not a job kind."),
+    };
 
     private static async Task<JobRecord?> ReadOneAsync(NpgsqlCommand command, CancellationToken cancel)
     {
@@ -151,8 +195,9 @@ public sealed class JobQueue(NpgsqlDataSource dataSource)
     }
 
     private static JobRecord Read(NpgsqlDataReader r) => new(
-        r.GetInt64(0), r.GetString(1) == "ingest" ? JobKind.Ingest : JobKind.Statistics, r.GetString(2), r.GetString(3), r.GetString(4),
+        r.GetInt64(0), KindOf(r.GetString(1)), r.GetString(2), r.GetString(3), r.GetString(4),
         r.GetInt32(5), r.IsDBNull(6) ? null : r.GetString(6), r.GetDateTime(7).ToUniversalTime(),
         r.IsDBNull(8) ? null : r.GetDateTime(8).ToUniversalTime(), r.IsDBNull(9) ? null : r.GetString(9),
-        r.IsDBNull(10) ? null : r.GetString(10), r.IsDBNull(11) ? null : r.GetString(11));
+        r.IsDBNull(10) ? null : r.GetString(10), r.IsDBNull(11) ? null : r.GetString(11),
+        r.IsDBNull(12) ? null : r.GetInt64(12), r.IsDBNull(13) ? null : r.GetInt32(13));
 }

@@ -1,7 +1,10 @@
 namespace Atlas.Storage.Jobs;
 
-public enum JobKind { Ingest, Statistics }
+/// <summary>What a job does: a whole ingest, a whole statistics pass, or one part of a statistics pass or of an ingest in parts.</summary>
+public enum JobKind { Ingest, Statistics, StatisticsPart, IngestPart }
 
+/// <param name="PassId">The pass a part belongs to (<see cref="Passes.PassStore"/>); null for a whole job.</param>
+/// <param name="Part">The part's number within its pass, from 0; null for a whole job.</param>
 public sealed record JobRecord(
     long Id,
     JobKind Kind,
@@ -14,4 +17,6 @@ public sealed record JobRecord(
     DateTime? FinishedAtUtc,
     string? ProgressJson,
     string? Error,
-    string? Summary);
+    string? Summary,
+    long? PassId = null,
+    int? Part = null);

@@ -29,6 +29,17 @@ public sealed class SeriesStore(NpgsqlDataSource dataSource)
             }, cancel);
     }
 
+    /// <summary>The cells that have at least one chunk in the dataset, ascending.</summary>
+    public static async Task<int[]> CellsWithSeriesAsync(NpgsqlConnection connection, NpgsqlTransaction transaction, int datasetId, CancellationToken cancel)
+    {
+        await using var command = new NpgsqlCommand("SELECT DISTINCT cell_id FROM series_chunk WHERE dataset_id = $1 ORDER BY cell_id", connection, transaction);
+        command.Parameters.AddWithValue(datasetId);
+        var ids = new List<int>();
+        await using var reader = await command.ExecuteReaderAsync(cancel);
+        while (await reader.ReadAsync(cancel)) ids.Add(reader.GetInt32(0));
+        return ids.ToArray();
+    }
+
     /// <summary>Deletes the chunks of the given years for cells in [firstCell, lastCell].</summary>
     public static async Task DeleteAsync(NpgsqlConnection connection, NpgsqlTransaction transaction, int datasetId, int year,
         int firstCell, int lastCell, CancellationToken cancel)

@@ -11,7 +11,8 @@ namespace Atlas.Storage.Statistics;
 /// </summary>
 public sealed class StatisticsStore(NpgsqlDataSource dataSource)
 {
-    private const string BlockColumns = "parameter, period, block, cell_ids, count, coverage, mean, sd, min, max, p10, p50, p90, p99, extra_width, extra";
+    /// <summary>The columns of a stored block after dataset_id (statistic_block and the pass staging table share them).</summary>
+    public const string BlockColumns = "parameter, period, block, cell_ids, count, coverage, mean, sd, min, max, p10, p50, p90, p99, extra_width, extra";
 
     /// <summary>
     /// Replaces the statistics of the given cells in one transaction and stamps them computed at
@@ -57,27 +58,7 @@ public sealed class StatisticsStore(NpgsqlDataSource dataSource)
             delete.Parameters.AddWithValue(ids);
             await delete.ExecuteNonQueryAsync(cancel);
         }
-        await using (var copy = await connection.BeginRawBinaryCopyAsync($"COPY statistic_block (dataset_id, {BlockColumns}) FROM STDIN (FORMAT BINARY)", cancel))
-        {
-            var encoder = new BinaryCopyEncoder(copy);
-            encoder.WriteHeader();
-            foreach (var block in blocks)
-            {
-                cancel.ThrowIfCancellationRequested();
-                encoder.StartRow(17);
-                encoder.WriteInt32(datasetId);
-                encoder.WriteInt16(StatisticCodes.Of(block.Parameter));
-                encoder.WriteInt16(block.Period.Code);
-                encoder.WriteInt32(block.Block);
-                encoder.WriteInt32Array(block.CellIds);
-                encoder.WriteInt32Array(block.Count);
-                foreach (var column in new[] { block.Coverage, block.Mean, block.Sd, block.Min, block.Max, block.P10, block.P50, block.P90, block.P99 })
-                    encoder.WriteRealArray(column.AsSpan());
-                encoder.WriteInt16((short)block.FractionsWidth);
-                encoder.WriteRealArray(block.Fractions);
-            }
-            encoder.WriteTrailer();
-        }
+        await CopyBlocksAsync(connection, datasetId, blocks, null, cancel);
         await using (var writer = await connection.BeginBinaryImportAsync(
             "COPY cell_statistic_state (dataset_id, cell_id, computed_at) FROM STDIN (FORMAT BINARY)", cancel))
         {
@@ -96,6 +77,35 @@ public sealed class StatisticsStore(NpgsqlDataSource dataSource)
             await clear.ExecuteNonQueryAsync(cancel);
         }
         await transaction.CommitAsync(cancel);
+    }
+
+    /// <summary>
+    /// Writes packed blocks by binary COPY in the caller's transaction: into <c>statistic_block</c>, or with
+    /// <paramref name="passId"/> into the staging table of that pass (<see cref="Passes.PassStore"/>).
+    /// </summary>
+    public static async Task CopyBlocksAsync(NpgsqlConnection connection, int datasetId, IEnumerable<StatisticBlock> blocks, long? passId, CancellationToken cancel)
+    {
+        var target = passId is null ? "statistic_block (dataset_id" : "statistic_block_stage (pass_id, dataset_id";
+        await using var copy = await connection.BeginRawBinaryCopyAsync($"COPY {target}, {BlockColumns}) FROM STDIN (FORMAT BINARY)", cancel);
+        var encoder = new BinaryCopyEncoder(copy);
+        encoder.WriteHeader();
+        foreach (var block in blocks)
+        {
+            cancel.ThrowIfCancellationRequested();
+            encoder.StartRow((short)(passId is null ? 17 : 18));
+            if (passId is { } pass) encoder.WriteInt64(pass);
+            encoder.WriteInt32(datasetId);
+            encoder.WriteInt16(StatisticCodes.Of(block.Parameter));
+            encoder.WriteInt16(block.Period.Code);
+            encoder.WriteInt32(block.Block);
+            encoder.WriteInt32Array(block.CellIds);
+            encoder.WriteInt32Array(block.Count);
+            foreach (var column in new[] { block.Coverage, block.Mean, block.Sd, block.Min, block.Max, block.P10, block.P50, block.P90, block.P99 })
+                encoder.WriteRealArray(column.AsSpan());
+            encoder.WriteInt16((short)block.FractionsWidth);
+            encoder.WriteRealArray(block.Fractions);
+        }
+        encoder.WriteTrailer();
     }
 
     /// <summary>

@@ -3,13 +3,17 @@ using System.Diagnostics;
 using System.Net;
 using System.Text.Json;
 using Atlas.Storage;
+using Atlas.Storage.Jobs;
+using Atlas.Storage.Passes;
 using Atlas.TestSupport;
 
 namespace Atlas.Cli.Tests.Faults;
 
 /// <summary>
-/// PostgreSQL stopped and started again under a steady load on a running <c>atlas serve</c>. The database is a
-/// throwaway embedded cluster in a temp folder on a port of its own, so no other test sees the outage.
+/// PostgreSQL stopped and started again under a steady load on a running <c>atlas serve</c>, and under a worker running
+/// a statistics pass in parts: the part in hand fails on the outage and goes back to the queue, the worker carries on
+/// once the server is back, and the pass completes with the blocks a plain pass stores. The database is a throwaway
+/// embedded cluster in a temp folder on a port of its own (one per test), so no other test sees the outage.
 /// </summary>
 public sealed class DatabaseRestartTests : IAsyncLifetime
 {
@@ -144,5 +148,54 @@ public sealed class DatabaseRestartTests : IAsyncLifetime
         var entry = JsonDocument.Parse(outageLine!).RootElement;
         Assert.Contains(entry.GetProperty("Scopes").EnumerateArray(), s => s.ValueKind == JsonValueKind.Object && s.TryGetProperty("RequestId", out _));
         Assert.Equal(0, server.Terminate());
+    }
+
+    [Fact]
+    public async Task APassInPartsCompletesIdenticallyAfterThePrimaryRestartsUnderIt()
+    {
+        var environment = new Dictionary<string, string>
+        {
+            ["ATLAS_DB"] = _cluster.ConnectionString.Replace("Timeout=15", "Timeout=3"),
+            ["ATLAS_HOME"] = _home,
+        };
+        void Run(string arguments)
+        {
+            var (code, output) = AtlasProcess.Run(arguments, environment);
+            Assert.True(code == 0, $"atlas {arguments}:\n{output}");
+        }
+        const int Steps = 2920, Nx = 80, Ny = 60;
+        var file = HindcastFixture.Make(_home, "restart.nc", Steps, Nx, Ny);
+        Run($"ingest \"{file}\" --dataset restart-plain");
+        Run($"ingest \"{file}\" --dataset restart-parts --no-stats");
+        // Two parts: cell ids 0-4095 (three batches of up to 2,000 cells) and the rest.
+        Run("stats restart-parts --queue --part-cells 4096");
+        await using var dataSource = AtlasDatabase.CreateDataSource(_cluster.ConnectionString);
+        var pass = Assert.Single(await new PassStore(dataSource).ProgressAsync("restart-parts")).Pass;
+
+        using var worker = new RunningAtlas("worker", environment);
+        // The first part under way, its first batch staged and two thirds of it still to compute: the server stops and
+        // starts under the worker.
+        await Patience.UntilAsync(async () =>
+        {
+            var progress = Assert.Single(await new PassStore(dataSource).ProgressAsync("restart-parts"));
+            await using var staged = dataSource.CreateCommand("SELECT count(*) FROM statistic_block_stage");
+            return progress is { Done: 0, Running: 1 } && (long)(await staged.ExecuteScalarAsync())! > 0;
+        }, $"the first part to stage its first batch\n{worker.Output}");
+        _cluster.Stop();
+        await _cluster.EnsureRunningAsync();
+        // The test's own pooled connections died with the server too.
+        dataSource.Clear();
+
+        var done = await Patience.UntilAsync(() => new PassStore(dataSource).FindAsync(pass.Id), p => p!.State != "open",
+            $"the pass to end after the restart\n{worker.Output}");
+        Assert.True(done!.State == "done", $"{done.Error}\n{worker.Output}");
+        var parts = (await new JobQueue(dataSource).ForDatasetAsync("restart-parts")).Where(j => j.PassId == pass.Id).ToList();
+        Assert.All(parts, p => Assert.Equal("done", p.State));
+        Assert.True(parts.Sum(p => p.Attempts) > parts.Count, "no part was retried: the restart came between parts");
+        Assert.False(worker.HasExited, worker.Output);
+
+        var expected = await StoredStatistics.BlocksAsync(dataSource, "restart-plain");
+        Assert.NotEmpty(expected);
+        Assert.Equal(expected, await StoredStatistics.BlocksAsync(dataSource, "restart-parts"));
     }
 }

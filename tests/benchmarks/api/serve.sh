@@ -1,7 +1,8 @@
 # Sourced by the API load scripts: builds the Release binary unless ATLAS_BIN names one, starts `atlas serve` on
 # $base (rate limit lifted, warnings only) in the background as $server, stops it on exit, and waits for /healthz.
 # Needs: top (the checkout), base (http://127.0.0.1:PORT), name (for messages).
-command -v wrk >/dev/null || { echo "$name: wrk is not installed (apt-get install -y wrk)" >&2; exit 2; }
+# Scripts that time single requests with curl set needs_wrk=no before sourcing.
+[ "${needs_wrk:-yes}" = no ] || command -v wrk >/dev/null || { echo "$name: wrk is not installed (apt-get install -y wrk)" >&2; exit 2; }
 
 atlas=${ATLAS_BIN:-"$top/src/Atlas.Cli/bin/Release/net10.0/atlas"}
 if [ -z "${ATLAS_BIN:-}" ]; then  # keep the Release build current

@@ -1,8 +1,12 @@
 using System.Net.Sockets;
+using Npgsql;
 
-namespace Atlas.Api.Data;
+namespace Atlas.Storage;
 
-/// <summary>Tells a database outage (no connection, server shutting down, pool exhausted) from other failures.</summary>
+/// <summary>
+/// Tells a database outage (no connection, server shutting down, pool exhausted) from other failures: the API answers
+/// it with 503, and a worker puts a part of a pass back in the queue instead of failing the pass.
+/// </summary>
 public static class DatabaseOutage
 {
     public static bool Is(Exception exception)

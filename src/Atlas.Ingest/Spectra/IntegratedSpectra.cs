@@ -1,0 +1,139 @@
+using Atlas.Hindcast;
+using Atlas.Hindcast.Spectra;
+using Atlas.WavePhysics;
+
+namespace Atlas.Ingest.Spectra;
+
+/// <summary>
+/// Every spectrum of a point file integrated once (<see cref="SpectralIntegrator"/>, at each station's depth) and kept
+/// in memory: the per-step parameters the series store (Hs, Te, Tp, mean direction, spread), the per-step spectral
+/// products (<see cref="SpectralProduct"/>), and each step's frequency spectrum and direction-bin powers, from which the
+/// period means are summed. Serves the ingest's reads as a gridded file would (<see cref="IStepReader"/>), so point
+/// files go through the same plan, checks, shared-step rules and COPY as grids.
+/// </summary>
+public sealed class IntegratedSpectra : IStepReader
+{
+    /// <summary>Steps read from the file at a time: bounded so that one raw block stays near 16 MB.</summary>
+    private const long BlockValues = 4 << 20;
+
+    private readonly Dictionary<WaveParameter, float[]> _series = [];   // [station * steps + step]
+    private readonly float[][] _products;                                // per product, [station * steps + step]
+
+    private IntegratedSpectra(PointSpectraFile file, IReadOnlyList<string> notes)
+    {
+        Stations = file.Stations;
+        Grid = file.Grid;
+        Axes = new SpectralAxes(file.FrequenciesHz, file.DirectionsFrom);
+        TimesUtc = file.TimesUtc;
+        Notes = notes;
+        SpectrumVariable = file.SpectrumVariable;
+        int stations = Stations.Count, steps = TimesUtc.Count;
+        foreach (var parameter in WaveParameterGroups.SeriesFields) _series[parameter] = new float[stations * steps];
+        _products = new float[SpectralProducts.Count][];
+        for (int k = 0; k < _products.Length; k++) _products[k] = new float[stations * steps];
+        FrequencySpectra = new float[(long)stations * steps * Axes.FrequencyCount];
+        DirectionPowers = new float[(long)stations * steps * Axes.DirectionCount];
+    }
+
+    public IReadOnlyList<SpectralStation> Stations { get; }
+
+    public StationGrid Grid { get; }
+
+    public SpectralAxes Axes { get; }
+
+    public IReadOnlyList<DateTime> TimesUtc { get; }
+
+    public string SpectrumVariable { get; }
+
+    /// <summary>What was converted and assumed, in words: the reader's notes and the integration rule.</summary>
+    public IReadOnlyList<string> Notes { get; }
+
+    /// <summary>S(f) of every station and step, m^2 s: [(station * steps + step) * frequencies + i].</summary>
+    public float[] FrequencySpectra { get; }
+
+    /// <summary>Power of each direction bin of every station and step, kW/m: [(station * steps + step) * directions + j].</summary>
+    public float[] DirectionPowers { get; }
+
+    /// <summary>One product of one station, per step.</summary>
+    public ReadOnlySpan<float> Product(SpectralProduct product, int station) =>
+        _products[(int)product].AsSpan(station * TimesUtc.Count, TimesUtc.Count);
+
+    /// <summary>One series parameter of one station, per step.</summary>
+    public ReadOnlySpan<float> Series(WaveParameter parameter, int station) =>
+        _series[parameter].AsSpan(station * TimesUtc.Count, TimesUtc.Count);
+
+    /// <summary>Reads and integrates every step of <paramref name="file"/>.</summary>
+    public static IntegratedSpectra Integrate(PointSpectraFile file)
+    {
+        var notes = file.Notes.Append(
+            "per step: Hm0 = 4 sqrt(m0), Te = m-1/m0, Tp = 1/f at the largest density (no fitting between frequencies), " +
+            "J = rho g sum cg(f, h) S(f) df with each frequency's group velocity at the station depth (rho 1025 kg/m3, g 9.81 m/s2), " +
+            "mean direction and spread from the first circular moment, directionality from the largest directionally resolved power, " +
+            "spectral width eps0; frequency integrals by the trapezoidal rule over the given frequencies").ToList();
+        var result = new IntegratedSpectra(file, notes);
+        result.Fill(file);
+        return result;
+    }
+
+    private void Fill(PointSpectraFile file)
+    {
+        int stations = Stations.Count, steps = TimesUtc.Count, perSpectrum = file.ValuesPerSpectrum;
+        int nf = Axes.FrequencyCount, nd = Axes.DirectionCount;
+        var integrators = Stations.Select(s => new SpectralIntegrator(Axes, s.DepthMetres)).ToArray();
+        int block = (int)Math.Clamp(BlockValues / Math.Max(1L, (long)stations * perSpectrum), 1, Math.Max(steps, 1));
+        var buffer = new float[(long)block * stations * perSpectrum];
+        var hs = _series[WaveParameter.Hs]; var te = _series[WaveParameter.Te]; var tp = _series[WaveParameter.Tp];
+        var dir = _series[WaveParameter.Dir]; var spread = _series[WaveParameter.Spread];
+        for (int t0 = 0; t0 < steps; t0 += block)
+        {
+            int n = Math.Min(block, steps - t0);
+            file.ReadSteps(t0, n, buffer);
+            Parallel.For(0, stations, s =>
+            {
+                var integrator = integrators[s];
+                for (int k = 0; k < n; k++)
+                {
+                    int t = t0 + k;
+                    var state = integrator.Integrate(buffer.AsSpan((k * stations + s) * perSpectrum, perSpectrum));
+                    int at = s * steps + t;
+                    hs[at] = (float)state.Hm0;
+                    te[at] = (float)state.EnergyPeriod;
+                    tp[at] = (float)state.PeakPeriod;
+                    dir[at] = (float)state.MeanDirectionFrom;
+                    spread[at] = (float)state.DirectionalSpread;
+                    _products[(int)SpectralProduct.Power][at] = (float)state.Power;
+                    _products[(int)SpectralProduct.ParametricPower][at] = (float)state.ParametricPower;
+                    _products[(int)SpectralProduct.Directionality][at] = (float)state.Directionality;
+                    _products[(int)SpectralProduct.MaximumPowerFrom][at] = (float)state.MaximumPowerFrom;
+                    _products[(int)SpectralProduct.SpectralWidth][at] = (float)state.SpectralWidth;
+                    var spectrum = integrator.FrequencySpectrum;
+                    for (int i = 0; i < nf; i++) FrequencySpectra[(long)at * nf + i] = (float)spectrum[i];
+                    var powers = integrator.DirectionPowers;
+                    for (int j = 0; j < nd; j++) DirectionPowers[(long)at * nd + j] = (float)powers[j];
+                }
+            });
+        }
+    }
+
+    public void ReadSteps(WaveParameter variable, int timeStart, int timeCount, int pointStart, int pointCount, Span<float> destination)
+    {
+        if (!_series.TryGetValue(variable, out var values))
+            throw new InvalidOperationException($"a spectral point file gives no {variable.Symbol()} per step");
+        int steps = TimesUtc.Count;
+        for (int t = 0; t < timeCount; t++)
+            for (int p = 0; p < pointCount; p++)
+                destination[t * pointCount + p] = values[(pointStart + p) * steps + timeStart + t];
+    }
+
+    public DepthField ReadDepthField()
+    {
+        var metres = Stations.Select(s => (float)s.DepthMetres).ToArray();
+        return new DepthField(metres, metres.Select(m => float.IsNaN(m) ? 0 : 1).ToArray(), 1, false);
+    }
+
+    /// <summary>True when at least one station has a depth.</summary>
+    public bool HasDepth => Stations.Any(s => !double.IsNaN(s.DepthMetres));
+
+    /// <summary>Nothing to release: the integrated values stay with the source file for the products' writer.</summary>
+    public void Dispose() { }
+}

@@ -1,0 +1,46 @@
+using System.Text.Json.Serialization;
+
+namespace Atlas.Ingest.Spectra;
+
+/// <summary>The exact spectral values of one output point: what its spectra give that gridded fields cannot.</summary>
+/// <param name="Dataset">The dataset of output points.</param>
+/// <param name="Station">The output point's name.</param>
+/// <param name="CellId">Its cell id in that dataset.</param>
+/// <param name="DistanceKm">Geodesic distance from the asked position, km; null when the answer is the point's own.</param>
+/// <param name="FrequenciesHz">The frequencies of <see cref="SpectralPeriod.FrequencySpectrum"/>.</param>
+/// <param name="DirectionsFromDeg">The direction bins of <see cref="SpectralPeriod.DirectionPower"/>, waves coming from.</param>
+/// <param name="Periods">One entry per period with steps.</param>
+/// <param name="Method">How every value was computed, in words.</param>
+public sealed record SpectralPointAnswer(
+    string Dataset,
+    string Station,
+    int CellId,
+    double Lat,
+    double Lon,
+    double? DepthM,
+    [property: JsonConverter(typeof(DataPrecisionJsonConverter))] double? DistanceKm,
+    IReadOnlyList<double> FrequenciesHz,
+    IReadOnlyList<double> DirectionsFromDeg,
+    IReadOnlyList<SpectralPeriod> Periods,
+    string Method);
+
+/// <summary>One period at an output point.</summary>
+/// <param name="MeanPowerSpectral">Mean J integrated from the spectra, kW/m (month-balanced like every period mean).</param>
+/// <param name="MeanPowerParametric">Mean J from Hm0 and Te alone at the same depth, kW/m, for comparison.</param>
+/// <param name="ParametricOverSpectral">MeanPowerParametric / MeanPowerSpectral.</param>
+/// <param name="DirectionalityCoefficient">From the period-mean J_theta of the spectra (IEC TS 62600-101).</param>
+/// <param name="MaxPowerFromDeg">Direction of the largest period-mean J_theta, waves coming from, degrees.</param>
+/// <param name="MeanSpectralWidth">Mean eps0 over the period's steps.</param>
+/// <param name="FrequencySpectrum">Period-mean S(f), m^2/Hz.</param>
+/// <param name="DirectionPower">Period-mean power per direction bin, kW/m.</param>
+public sealed record SpectralPeriod(
+    AtlasPeriod Period,
+    long Steps,
+    [property: JsonConverter(typeof(DataPrecisionJsonConverter))] double MeanPowerSpectral,
+    [property: JsonConverter(typeof(DataPrecisionJsonConverter))] double MeanPowerParametric,
+    [property: JsonConverter(typeof(DataPrecisionJsonConverter))] double ParametricOverSpectral,
+    [property: JsonConverter(typeof(DataPrecisionJsonConverter))] double DirectionalityCoefficient,
+    [property: JsonConverter(typeof(DataPrecisionJsonConverter))] double MaxPowerFromDeg,
+    [property: JsonConverter(typeof(DataPrecisionJsonConverter))] double MeanSpectralWidth,
+    [property: JsonConverter(typeof(DataPrecisionListJsonConverter))] IReadOnlyList<double> FrequencySpectrum,
+    [property: JsonConverter(typeof(DataPrecisionListJsonConverter))] IReadOnlyList<double> DirectionPower);

@@ -1,0 +1,169 @@
+namespace Atlas.WavePhysics;
+
+/// <summary>
+/// Integrates the spectra of one output point, step after step: every parameter of <see cref="SpectralSeaState"/> in
+/// one pass over S(f, theta), plus the power of each direction bin (the directionally resolved power's components) and
+/// the frequency spectrum, which period means are built from.
+/// </summary>
+/// <remarks>
+/// Frequency integrals use the trapezoidal weights of <see cref="SpectralAxes"/>; direction integrals are sums times the
+/// bin width. The group velocity of each frequency is solved once at the point's depth (deep water when the depth is
+/// unknown). Densities are m^2 s rad^-1 for a directional spectrum, m^2 s for a frequency spectrum; a missing step (any
+/// density NaN) gives NaN parameters. Densities must not be negative: the caller checks and names the file.
+/// One integrator per point and thread; it keeps scratch buffers.
+/// </remarks>
+public sealed class SpectralIntegrator
+{
+    private readonly SpectralAxes _axes;
+    private readonly double[] _powerWeights;   // rho g cg(f, h) w(f) / 1000: kW/m per (m^2 s) of density
+    private readonly double[] _mMinus1, _mMinus2, _m0;
+    private readonly double[] _directionCos, _directionSin;
+    private readonly ResolvedPowerSweep? _sweep;
+    private readonly double[] _frequencySpectrum;
+    private readonly double[] _directionPowers;
+    private readonly double[] _directionEnergy;
+
+    /// <param name="axes">The spectrum's axes.</param>
+    /// <param name="depthMetres">The point's depth, m; NaN or +infinity means deep water.</param>
+    public SpectralIntegrator(SpectralAxes axes, double depthMetres)
+    {
+        _axes = axes;
+        DispersionRelation.CheckDepth(depthMetres);
+        DepthMetres = depthMetres;
+        int nf = axes.FrequencyCount, nd = axes.DirectionCount;
+        _powerWeights = new double[nf];
+        _m0 = new double[nf];
+        _mMinus1 = new double[nf];
+        _mMinus2 = new double[nf];
+        var f = axes.Frequencies;
+        var w = axes.FrequencyWeights;
+        double rhoG = PhysicalConstants.SeawaterDensity * PhysicalConstants.Gravity / 1000.0;
+        for (int i = 0; i < nf; i++)
+        {
+            _m0[i] = w[i];
+            _mMinus1[i] = w[i] / f[i];
+            _mMinus2[i] = w[i] / (f[i] * f[i]);
+            _powerWeights[i] = rhoG * DispersionRelation.GroupVelocity(1 / f[i], depthMetres) * w[i];
+        }
+        _directionCos = new double[nd];
+        _directionSin = new double[nd];
+        for (int j = 0; j < nd; j++)
+            (_directionSin[j], _directionCos[j]) = Math.SinCos(axes.DirectionsFrom[j] * Math.PI / 180);
+        _sweep = nd > 0 ? new ResolvedPowerSweep(axes.DirectionsFrom) : null;
+        _frequencySpectrum = new double[nf];
+        _directionPowers = new double[nd];
+        _directionEnergy = new double[nd];
+    }
+
+    public SpectralAxes Axes => _axes;
+
+    public double DepthMetres { get; }
+
+    /// <summary>S(f) of the last step integrated, m^2 s (m^2/Hz).</summary>
+    public ReadOnlySpan<double> FrequencySpectrum => _frequencySpectrum;
+
+    /// <summary>The power of each direction bin of the last step, kW/m (empty for a frequency spectrum).</summary>
+    public ReadOnlySpan<double> DirectionPowers => _directionPowers;
+
+    /// <summary>Integrates one step.</summary>
+    /// <param name="density">
+    /// S(f, theta) frequency-major (density[i * directions + j]) in m^2 s rad^-1, or S(f) in m^2 s when the axes have no
+    /// directions.
+    /// </param>
+    public SpectralSeaState Integrate(ReadOnlySpan<float> density)
+    {
+        int nf = _axes.FrequencyCount, nd = _axes.DirectionCount;
+        int perFrequency = Math.Max(nd, 1);
+        if (density.Length != nf * perFrequency)
+            throw new ArgumentException($"A step has {density.Length} densities; {nf} frequencies x {perFrequency} directions need {nf * perFrequency}.", nameof(density));
+
+        double binWidth = _axes.DirectionBinRadians;
+        bool missing = false;
+        if (nd == 0)
+        {
+            for (int i = 0; i < nf; i++)
+            {
+                float s = density[i];
+                if (float.IsNaN(s)) missing = true;
+                _frequencySpectrum[i] = s;
+            }
+        }
+        else
+        {
+            Array.Clear(_directionPowers);
+            Array.Clear(_directionEnergy);
+            var powers = _directionPowers.AsSpan(0, nd);
+            var energy = _directionEnergy.AsSpan(0, nd);
+            for (int i = 0; i < nf; i++)
+            {
+                var row = density.Slice(i * nd, nd);
+                double sum = 0, weight = _powerWeights[i], trapezoid = _m0[i];
+                for (int j = 0; j < row.Length; j++)
+                {
+                    float s = row[j];
+                    sum += s;
+                    powers[j] += weight * s;
+                    energy[j] += trapezoid * s;
+                }
+                if (double.IsNaN(sum)) { missing = true; break; }
+                _frequencySpectrum[i] = sum * binWidth;
+            }
+            for (int j = 0; j < nd; j++) _directionPowers[j] *= binWidth;
+        }
+        if (missing) return Missing();
+
+        double m0 = 0, mMinus1 = 0, mMinus2 = 0, power = 0, peakDensity = -1;
+        int peak = 0;
+        for (int i = 0; i < nf; i++)
+        {
+            double s = _frequencySpectrum[i];
+            m0 += _m0[i] * s;
+            mMinus1 += _mMinus1[i] * s;
+            mMinus2 += _mMinus2[i] * s;
+            power += _powerWeights[i] * s;
+            if (s > peakDensity) { peakDensity = s; peak = i; }
+        }
+        if (!(m0 > 0))
+            return new SpectralSeaState(0, double.NaN, double.NaN, 0, 0, double.NaN, double.NaN, double.NaN, double.NaN, double.NaN);
+
+        double hm0 = 4 * Math.Sqrt(m0);
+        double te = mMinus1 / m0;
+        double width = Math.Sqrt(Math.Max(0, m0 * mMinus2 / (mMinus1 * mMinus1) - 1));
+        double parametric = WavePower.OmnidirectionalPower(hm0, te, DepthMetres);
+
+        double meanFrom = double.NaN, spread = double.NaN, d = double.NaN, maxFrom = double.NaN;
+        if (nd > 0)
+        {
+            // Energy per direction bin: sum_i w_i S(f_i, theta_j) dtheta; its first circular moment gives the mean
+            // direction and the spread sqrt(2 (1 - r1)).
+            double a1 = 0, b1 = 0, energy = 0;
+            for (int j = 0; j < nd; j++)
+            {
+                double e = _directionEnergy[j];
+                a1 += e * _directionCos[j];
+                b1 += e * _directionSin[j];
+                energy += e;
+            }
+            double r1 = Math.Sqrt(a1 * a1 + b1 * b1) / energy;
+            meanFrom = Degrees(Math.Atan2(b1, a1));
+            spread = Math.Sqrt(Math.Max(0, 2 * (1 - r1))) * 180 / Math.PI;
+            var resolved = _sweep!.Maximum(_directionPowers);
+            d = resolved.Coefficient;
+            maxFrom = resolved.DirectionOfMaximumDegrees;
+        }
+        return new SpectralSeaState(hm0, te, 1 / _axes.Frequencies[peak], power, parametric, width, meanFrom, spread, d, maxFrom);
+    }
+
+    private SpectralSeaState Missing()
+    {
+        Array.Fill(_frequencySpectrum, double.NaN);
+        Array.Fill(_directionPowers, double.NaN);
+        return new SpectralSeaState(double.NaN, double.NaN, double.NaN, double.NaN, double.NaN, double.NaN, double.NaN, double.NaN, double.NaN, double.NaN);
+    }
+
+    private static double Degrees(double radians)
+    {
+        double d = radians * 180 / Math.PI % 360;
+        return d < 0 ? d + 360 : d;
+    }
+}

@@ -1,0 +1,138 @@
+using System.Text.Json;
+using Atlas.Api.Infrastructure;
+using Atlas.Ingest.Ingestion;
+using Atlas.TestSupport;
+using Microsoft.AspNetCore.Hosting;
+using Microsoft.AspNetCore.Mvc.Testing;
+
+namespace Atlas.Api.Tests;
+
+/// <summary>
+/// Spectral output points in the point answers: a dataset of points loaded from spectra written by netCDF4-python
+/// (tests/data/ingest/make_point_spectra.py) beside a gridded dataset of the same invented hindcast (make_fixture.py), in
+/// a database of their own. Expected values come from the script's NumPy/SciPy integration of every step.
+/// </summary>
+public sealed class OutputPointApiTests : IAsyncLifetime
+{
+    private readonly TestDatabase _database = new();
+    private WebApplicationFactory<Program> _factory = null!;
+    private string _points = "";
+
+    public async Task InitializeAsync()
+    {
+        await _database.InitializeAsync();
+        var folder = Directory.CreateTempSubdirectory("atlas-output-points-").FullName;
+        var grid = NetCdf4PythonFixture.Make(Path.Combine(folder, "grid.nc"), 0, 16);
+        _points = PointSpectraFixture.Make(Path.Combine(folder, "points.nc"), 0, 16);
+        var ingest = new HindcastIngestor(_database.DataSource);
+        await ingest.RunAsync(new IngestRequest("grid", [grid]));
+        await ingest.RunAsync(new IngestRequest("points", [_points]) { GridDataset = "grid" });
+        _factory = new WebApplicationFactory<Program>().WithWebHostBuilder(host =>
+        {
+            host.UseEnvironment("Production");
+            host.UseSetting("ConnectionStrings:Atlas", _database.ConnectionString);
+            host.UseSetting("AtlasApiOptions:WebRootPath", folder);
+            host.UseSetting("AtlasApiOptions:ExpensiveRequestsPerMinute", "100000");
+        });
+    }
+
+    public async Task DisposeAsync()
+    {
+        await _factory.DisposeAsync();
+        await _database.DisposeAsync();
+    }
+
+    private static JsonElement Period(JsonElement periods, string name) =>
+        periods.EnumerateArray().Single(p => p.GetProperty("period").GetString() == name);
+
+    [Fact]
+    public async Task AnOutputPointAnswersWithTheSpectralPowerAndDirectionality()
+    {
+        var client = _factory.CreateClient();
+        var root = JsonDocument.Parse(await client.GetStringAsync("/api/v1/datasets/points/point?lat=50.21&lon=-19.71&include=none")).RootElement;
+        Assert.Equal("spectra", root.GetProperty("power_from").GetString());
+        var steps = PointSpectraFixture.Expected(_points)["steps"]!.AsArray().Select(s => s![1]!).ToList();
+        // All 16 steps lie in January: the annual means are plain means of the script's per-step values.
+        double meanJ = steps.Average(s => s["j"]!.GetValue<double>());
+        double meanParametric = steps.Average(s => s["j_parametric"]!.GetValue<double>());
+        var annual = Period(root.GetProperty("periods"), "annual");
+        Assert.Equal(meanJ, annual.GetProperty("j").GetProperty("mean").GetDouble(), 1e-5 * meanJ);
+        var spectral = root.GetProperty("spectral");
+        Assert.Equal("Cobble Shelf", spectral.GetProperty("station").GetString());
+        Assert.Equal(JsonValueKind.Null, spectral.GetProperty("distance_km").ValueKind);
+        var annualSpectral = Period(spectral.GetProperty("periods"), "annual");
+        Assert.Equal(meanParametric, annualSpectral.GetProperty("mean_power_parametric").GetDouble(), 1e-5 * meanParametric);
+        Assert.True(annualSpectral.GetProperty("parametric_over_spectral").GetDouble() > 1.0);
+
+        // The period directionality from the period-mean J_theta: the script's direction-bin powers, averaged over the
+        // steps and maximised here on a 0.01-degree grid (IEC TS 62600-101 definition; the grid maximum is at most 1e-7
+        // below the true one for this smooth J_theta).
+        var meanPowers = Enumerable.Range(0, 24).Select(j => steps.Average(s => s["direction_powers"]!.AsArray()[j]!.GetValue<double>())).ToArray();
+        var directionsFrom = Enumerable.Range(0, 24).Select(j => ((90.0 - 15.0 * j) % 360 + 360 + 180) % 360).ToArray();
+        double best = 0;
+        for (int k = 0; k < 36000; k++)
+        {
+            double theta = k * 0.01 * Math.PI / 180, sum = 0;
+            for (int j = 0; j < 24; j++) sum += meanPowers[j] * Math.Max(0, Math.Cos(theta - directionsFrom[j] * Math.PI / 180));
+            best = Math.Max(best, sum);
+        }
+        double expectedD = best / meanPowers.Sum();
+        Assert.Equal(expectedD, annual.GetProperty("direction").GetProperty("directionality_coefficient").GetDouble(), 2e-6);
+        Assert.Equal(expectedD, annualSpectral.GetProperty("directionality_coefficient").GetDouble(), 2e-6);
+        Assert.Equal(32, annualSpectral.GetProperty("frequency_spectrum").GetArrayLength());
+        Assert.Equal(24, annualSpectral.GetProperty("direction_power").GetArrayLength());
+    }
+
+    [Fact]
+    public async Task TheGriddedDatasetAddsTheNearestOutputPointAndItsDistance()
+    {
+        var client = _factory.CreateClient();
+        var root = JsonDocument.Parse(await client.GetStringAsync("/api/v1/datasets/grid/point?lat=50.3&lon=-19.6&include=none")).RootElement;
+        Assert.Equal("Hs and Te", root.GetProperty("power_from").GetString());
+        var spectral = root.GetProperty("spectral");
+        Assert.Equal("points", spectral.GetProperty("dataset").GetString());
+        Assert.Equal("Wick Inner", spectral.GetProperty("station").GetString());
+        // 50.33 N 19.58 W from 50.3 N 19.6 W: about 3.6 km (spherical estimate: dlat 0.03 deg = 3.34 km, dlon 0.02 deg x
+        // cos 50.3 deg = 1.42 km; common practice for a check of order).
+        Assert.InRange(spectral.GetProperty("distance_km").GetDouble(), 3.4, 3.9);
+    }
+
+    // The series at an output point: j is the power integrated from the spectra (the script's NumPy/SciPy values, to the
+    // 3 decimals written), followed by the spectral values; the NetCDF form read back by netCDF4-python (a reader the project
+    // did not write) holds the same numbers as the JSON form.
+    [Fact]
+    public async Task SeriesAtAnOutputPointCarryTheSpectralValuesInEveryFormat()
+    {
+        var client = _factory.CreateClient();
+        const string query = "/api/v1/datasets/points/point/series?lat=50.21&lon=-19.71";
+        var csv = (await client.GetStringAsync(query + "&format=csv")).Split('\n').Where(l => l.Length > 0 && !l.StartsWith('#')).ToArray();
+        Assert.Equal("time,hs,te,tp,dir,spread,j,j_parametric,directionality,max_power_from_deg,spectral_width", csv[0]);
+        var steps = PointSpectraFixture.Expected(_points)["steps"]!.AsArray().Select(s => s![1]!).ToList();
+        for (int t = 0; t < steps.Count; t++)
+        {
+            var cells = csv[t + 1].Split(',');
+            Assert.Equal(steps[t]["j"]!.GetValue<double>(), double.Parse(cells[6], System.Globalization.CultureInfo.InvariantCulture), 0.0006);
+            Assert.Equal(steps[t]["directionality"]!.GetValue<double>(), double.Parse(cells[8], System.Globalization.CultureInfo.InvariantCulture), 0.00006);
+        }
+
+        var json = JsonDocument.Parse(await client.GetStringAsync(query + "&format=json")).RootElement.GetProperty("steps");
+        var nc = Path.Combine(Directory.CreateTempSubdirectory("atlas-series-nc-").FullName, "series.nc");
+        await File.WriteAllBytesAsync(nc, await client.GetByteArrayAsync(query + "&format=nc"));
+        var script = "import sys, json\nfrom netCDF4 import Dataset\nd = Dataset(sys.argv[1])\n" +
+                     "print(json.dumps({'featureType': d.featureType, 'station': d['station_name'][:].tobytes().decode().strip(), " +
+                     "'j': [float(v) for v in d['j'][:]], 'width': [float(v) for v in d['spectral_width'][:]], 'time0': float(d['time'][0])}))";
+        var start = new System.Diagnostics.ProcessStartInfo("/usr/bin/python3") { RedirectStandardOutput = true, RedirectStandardError = true };
+        start.ArgumentList.Add("-c"); start.ArgumentList.Add(script); start.ArgumentList.Add(nc);
+        using var python = System.Diagnostics.Process.Start(start)!;
+        var output = await python.StandardOutput.ReadToEndAsync();
+        await python.WaitForExitAsync();
+        Assert.True(python.ExitCode == 0, await python.StandardError.ReadToEndAsync());
+        var read = JsonDocument.Parse(output).RootElement;
+        Assert.Equal("timeSeries", read.GetProperty("featureType").GetString());
+        Assert.Equal("Cobble Shelf", read.GetProperty("station").GetString());
+        Assert.Equal(new DateTimeOffset(2021, 1, 1, 0, 0, 0, TimeSpan.Zero).ToUnixTimeSeconds(), read.GetProperty("time0").GetDouble());
+        var j = read.GetProperty("j").EnumerateArray().Select(v => v.GetDouble()).ToArray();
+        Assert.Equal(json.GetArrayLength(), j.Length);
+        for (int t = 0; t < j.Length; t++) Assert.Equal(json[t].GetProperty("j").GetDouble(), j[t], 0.0006);
+    }
+}

@@ -1,0 +1,47 @@
+#!/usr/bin/env bash
+# Ingest and statistics of spectra at output points against a NumPy + netCDF4-python script computing the same per-step
+# parameters and period means (tests/benchmarks/spectra/reference.py), in one run, on one machine.
+# usage: tests/benchmarks/spectra.sh [STATIONS YEARS]   (default 50 10: 50 stations x 10 years of 3-hourly 45 x 24 spectra)
+# Writes tests/artifacts/benchmarks/spectra-STATIONSxYEARS.txt. Needs /usr/bin/time, python3-netcdf4, python3-scipy, a
+# built atlas (Release). Goals: atlas (ingest + statistics) at most 0.5 x the script's time; atlas peak RSS under 1 GB.
+set -euo pipefail
+here="$(cd "$(dirname "${BASH_SOURCE[0]}")/../.." && pwd)"
+cd "$here"
+stations=${1:-50}; years=${2:-10}
+atlas="$here/src/Atlas.Cli/bin/Release/net10.0/atlas"
+work="${ATLAS_BENCH_DIR:-/tmp/atlas-bench}/spectra-${stations}x${years}"; mkdir -p "$work"
+out="$here/tests/artifacts/benchmarks"; mkdir -p "$out"
+report="$out/spectra-${stations}x${years}.txt"
+slug="bench-spectra-${stations}x${years}"
+
+ls "$work"/points-*.nc > /dev/null 2>&1 || /usr/bin/python3 tests/benchmarks/spectra/make_spectra.py "$work" "$stations" "$years" > /dev/null
+files=("$work"/points-*.nc)
+cat "${files[@]}" > /dev/null   # page cache, for both contenders alike
+
+measure() { # name command...
+  local name=$1; shift
+  /usr/bin/time -v -o "$work/$name.time" "$@" > "$work/$name.out" 2>&1
+  echo "$name wall=$(awk -F': ' '/Elapsed \(wall clock\)/ {print $2}' "$work/$name.time") rss_kb=$(awk -F': ' '/Maximum resident set size/ {print $2}' "$work/$name.time")"
+}
+seconds() { awk -F': ' '/Elapsed \(wall clock\)/ {n=split($2,a,":"); s=0; for(i=1;i<=n;i++) s=s*60+a[i]; print s}' "$work/$1.time"; }
+
+port="${ATLAS_PG_PORT:-54329}"
+if [ -z "${ATLAS_DB:-}" ]; then
+  "$atlas" db start > /dev/null
+  server="host=127.0.0.1 port=$port user=atlas"
+else
+  server=$(sed -e 's/;/ /g' -e 's/Host=/host=/I; s/Port=/port=/I; s/Username=/user=/I; s/Password=/password=/I; s/Database=[^ ]*//I' <<<"$ATLAS_DB")
+fi
+psql "$server dbname=postgres" -qc "DROP DATABASE IF EXISTS atlas_bench_spectra WITH (FORCE)" -c "CREATE DATABASE atlas_bench_spectra"
+export ATLAS_DB="Host=127.0.0.1;Port=$port;Username=atlas;Database=atlas_bench_spectra"
+
+{
+  echo "# spectra benchmark $(date -u +%FT%TZ), $(nproc) cores, ${#files[@]} file(s), $(du -ch "${files[@]}" | tail -1 | cut -f1), $stations stations x $years years"
+  measure numpy_reference /usr/bin/python3 tests/benchmarks/spectra/reference.py "${files[@]}"
+  measure atlas_ingest "$atlas" ingest "${files[@]}" --dataset "$slug" --no-stats
+  measure atlas_stats "$atlas" stats "$slug" --all
+  ref=$(seconds numpy_reference); ing=$(seconds atlas_ingest); st=$(seconds atlas_stats)
+  awk -v r="$ref" -v i="$ing" -v s="$st" 'BEGIN { printf "ratio atlas(ingest+stats)/numpy = %.3f (goal <= 0.5)\nratio atlas ingest/numpy = %.3f\n", (i + s) / r, i / r }'
+  tail -1 "$work/atlas_ingest.out" | head -c 300; echo
+} | tee "$report"
+psql "$server dbname=postgres" -qc "DROP DATABASE IF EXISTS atlas_bench_spectra WITH (FORCE)"
