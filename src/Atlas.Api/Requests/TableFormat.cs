@@ -23,7 +23,8 @@ public static class TableFormats
             case "nc" when netCdf: return TableFormat.NetCdf;
         }
         var (first, second) = fallback == TableFormat.Csv ? ("csv", "json") : ("json", "csv");
-        errors.Add("format", $"'{text}' is not a {what}: use {first}, {second}{(netCdf ? " or nc" : "")} ({CsvMetadataLinks.FormatValue} gives the CSV's metadata).");
+        var choices = netCdf ? $"{first}, {second} or nc" : $"{first} or {second}";
+        errors.Add("format", $"'{text}' is not a {what}: use {choices} ({CsvMetadataLinks.FormatValue} gives the CSV's metadata).");
         return fallback;
     }
 }
