@@ -1,5 +1,6 @@
 using System.Xml.Linq;
 using Atlas.Hindcast.Geodesy;
+using NetTopologySuite.Geometries.Prepared;
 using SkiaSharp;
 
 namespace Atlas.Api.Downloads;
@@ -16,9 +17,12 @@ namespace Atlas.Api.Downloads;
 public static class LayerFigureRenderer
 {
     private const int MapMaxWidth = 760, MapMaxHeight = 600;
-    private const int Left = 64, Top = 64, Right = 150, CaptionGap = 58, CaptionLine = 15, Margin = 16;
+    private const int Left = 64, Top = 64, Right = 150, CaptionGap = 78, CaptionLine = 15, Margin = 16, LegendRow = 22;
     private static readonly SKColor NoDataColour = new(0xEE, 0xEF, 0xEC);
+    // The page's land (wwwroot/js/main.js): a light stone hatched in a darker one, so that land never reads as a value
+    // at the light end of the colour scale.
     private static readonly SKColor LandColour = new(0xD8, 0xD2, 0xC4);
+    private static readonly SKColor LandHatch = new(0xA3, 0x9A, 0x86);
     private static readonly SKColor LandEdge = new(0x6F, 0x65, 0x52);
     private static readonly SKColor GraticuleColour = new(0x55, 0x61, 0x6B, 0x70);
     private static readonly SKColor Ink = new(0x22, 0x22, 0x22);
@@ -136,7 +140,10 @@ public static class LayerFigureRenderer
 
             canvas.DrawText(Capitalised(_data.Title), Left, 26, SKTextAlign.Left, titleFont, ink);
             canvas.DrawText($"{_data.Provenance.Title} ({_data.Provenance.Dataset})", Left, 46, SKTextAlign.Left, font, ink);
-            DrawColourBar(canvas, new SKRect(_map.Right + 24, _map.Top + 18, _map.Right + 42, _map.Bottom), font, small, ink, line);
+            var legend = Legend();
+            var barBottom = _map.Bottom - legend.Count * LegendRow - (legend.Count > 0 ? 12 : 0);
+            DrawColourBar(canvas, new SKRect(_map.Right + 24, _map.Top + 18, _map.Right + 42, barBottom), font, small, ink, line);
+            DrawLegend(canvas, legend, new SKPoint(_map.Right + 24, barBottom + 12), small, ink, line);
             DrawScaleBar(canvas, small, ink, line);
 
             var y = _map.Bottom + CaptionGap;
@@ -184,9 +191,61 @@ public static class LayerFigureRenderer
             canvas.ClipRect(_map);
             using (var fill = new SKPaint { Color = LandColour, IsAntialias = true })
                 canvas.DrawPath(path, fill);
+            canvas.Save();
+            canvas.ClipPath(path, antialias: true);
+            Hatch(canvas, _map);
+            canvas.Restore();
             using (var edge = new SKPaint { Color = LandEdge, IsStroke = true, StrokeWidth = 0.8f, IsAntialias = true })
                 canvas.DrawPath(path, edge);
             canvas.Restore();
+        }
+
+        /// <summary>Diagonal hatching (rising to the right, 8 px apart) over <paramref name="area"/>, as the page draws land.</summary>
+        private static void Hatch(SKCanvas canvas, SKRect area)
+        {
+            using var hatch = new SKPaint { Color = LandHatch, IsStroke = true, StrokeWidth = 1, IsAntialias = true };
+            for (var x = area.Left - area.Height; x < area.Right; x += 8)
+                canvas.DrawLine(x, area.Bottom, x + area.Height, area.Top, hatch);
+        }
+
+        /// <summary>The legend entries under the colour bar: land when the figure shows any, "no value" where cells lack one.</summary>
+        private List<string> Legend()
+        {
+            var entries = new List<string>();
+            if (_land.Count > 0) entries.Add("land");
+            // A pixel without a value under the land is land; one elsewhere (a dry cell without a footprint, a gap in a
+            // mesh, a cell whose statistic is missing) shows the no-value colour and needs its legend entry.
+            var land = _land.Count == 0 ? null
+                : PreparedGeometryFactory.Prepare(_land.Count == 1 ? _land[0] : _land[0].Factory.CreateMultiPolygon([.. _land]));
+            var (dx, dy) = (_raster.PixelWidth, _raster.PixelHeight);
+            var empty = false;
+            for (var row = 0; row < _raster.Height && !empty; row++)
+                for (var column = 0; column < _raster.Width && !empty; column++)
+                    empty = double.IsNaN(_raster[column, row]) && (land is null ||
+                        !land.Covers(land.Geometry.Factory.CreatePoint(new Coordinate(_raster.West + (column + 0.5) * dx, _raster.North - (row + 0.5) * dy))));
+            if (empty) entries.Add("no value");
+            return entries;
+        }
+
+        private static void DrawLegend(SKCanvas canvas, List<string> entries, SKPoint at, SKFont small, SKPaint ink, SKPaint line)
+        {
+            var y = at.Y;
+            foreach (var entry in entries)
+            {
+                var swatch = new SKRect(at.X, y, at.X + 18, y + 12);
+                using (var fill = new SKPaint { Color = entry == "land" ? LandColour : NoDataColour })
+                    canvas.DrawRect(swatch, fill);
+                if (entry == "land")
+                {
+                    canvas.Save();
+                    canvas.ClipRect(swatch);
+                    Hatch(canvas, swatch);
+                    canvas.Restore();
+                }
+                canvas.DrawRect(swatch, line);
+                canvas.DrawText(entry, swatch.Right + 6, swatch.Bottom - 1, SKTextAlign.Left, small, ink);
+                y += LegendRow;
+            }
         }
 
         private void DrawGraticule(SKCanvas canvas, SKFont small, SKPaint ink, SKPaint line)
@@ -261,7 +320,7 @@ public static class LayerFigureRenderer
             var kmPerPixel = metresAcross / 1000 / _map.Width;
             var km = NiceTicks.Round(kmPerPixel * _map.Width / 4);
             var length = (float)(km / kmPerPixel);
-            var y = _map.Bottom + 36;
+            var y = _map.Bottom + 38;
             var x = _map.Left;
             using var white = new SKPaint { Color = SKColors.White };
             using var black = new SKPaint { Color = Ink };
