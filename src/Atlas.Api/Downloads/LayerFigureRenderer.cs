@@ -19,11 +19,6 @@ public static class LayerFigureRenderer
     private const int MapMaxWidth = 760, MapMaxHeight = 600;
     private const int Left = 64, Top = 64, Right = 150, CaptionGap = 78, CaptionLine = 15, Margin = 16, LegendRow = 22;
     private static readonly SKColor NoDataColour = new(0xEE, 0xEF, 0xEC);
-    // The page's land (wwwroot/js/main.js): a light stone hatched in a darker one, so that land never reads as a value
-    // at the light end of the colour scale.
-    private static readonly SKColor LandColour = new(0xD8, 0xD2, 0xC4);
-    private static readonly SKColor LandHatch = new(0xA3, 0x9A, 0x86);
-    private static readonly SKColor LandEdge = new(0x6F, 0x65, 0x52);
     private static readonly SKColor GraticuleColour = new(0x55, 0x61, 0x6B, 0x70);
     private static readonly SKColor Ink = new(0x22, 0x22, 0x22);
     private const string FontFamily = "DejaVu Sans";
@@ -189,23 +184,8 @@ public static class LayerFigureRenderer
             using var path = builder.Detach();
             canvas.Save();
             canvas.ClipRect(_map);
-            using (var fill = new SKPaint { Color = LandColour, IsAntialias = true })
-                canvas.DrawPath(path, fill);
-            canvas.Save();
-            canvas.ClipPath(path, antialias: true);
-            Hatch(canvas, _map);
+            LandStyle.Draw(canvas, path, _map, 8, 0.8f);
             canvas.Restore();
-            using (var edge = new SKPaint { Color = LandEdge, IsStroke = true, StrokeWidth = 0.8f, IsAntialias = true })
-                canvas.DrawPath(path, edge);
-            canvas.Restore();
-        }
-
-        /// <summary>Diagonal hatching (rising to the right, 8 px apart) over <paramref name="area"/>, as the page draws land.</summary>
-        private static void Hatch(SKCanvas canvas, SKRect area)
-        {
-            using var hatch = new SKPaint { Color = LandHatch, IsStroke = true, StrokeWidth = 1, IsAntialias = true };
-            for (var x = area.Left - area.Height; x < area.Right; x += 8)
-                canvas.DrawLine(x, area.Bottom, x + area.Height, area.Top, hatch);
         }
 
         /// <summary>The legend entries under the colour bar: land when the figure shows any, "no value" where cells lack one.</summary>
@@ -233,15 +213,10 @@ public static class LayerFigureRenderer
             foreach (var entry in entries)
             {
                 var swatch = new SKRect(at.X, y, at.X + 18, y + 12);
-                using (var fill = new SKPaint { Color = entry == "land" ? LandColour : NoDataColour })
-                    canvas.DrawRect(swatch, fill);
-                if (entry == "land")
-                {
-                    canvas.Save();
-                    canvas.ClipRect(swatch);
-                    Hatch(canvas, swatch);
-                    canvas.Restore();
-                }
+                if (entry == "land") LandStyle.Swatch(canvas, swatch, 8, 1);
+                else
+                    using (var fill = new SKPaint { Color = NoDataColour })
+                        canvas.DrawRect(swatch, fill);
                 canvas.DrawRect(swatch, line);
                 canvas.DrawText(entry, swatch.Right + 6, swatch.Bottom - 1, SKTextAlign.Left, small, ink);
                 y += LegendRow;

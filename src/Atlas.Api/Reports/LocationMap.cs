@@ -9,7 +9,7 @@ namespace Atlas.Api.Reports;
 /// </summary>
 public static class LocationMap
 {
-    private static readonly SKColor Sea = new(0xEE, 0xF2, 0xF5), Land = new(0xC9, 0xC3, 0xB6), LandEdge = new(0x9A, 0x93, 0x85);
+    private static readonly SKColor Sea = new(0xEE, 0xF2, 0xF5);
 
     /// <param name="extent">The grid's extent (cell centres), drawn dashed.</param>
     /// <param name="view">The part of the world the map shows (the extent when null), widened by a small margin.</param>
@@ -43,16 +43,12 @@ public static class LocationMap
                 using var path = PathOf(footprint, At);
                 canvas.DrawPath(path, fill);
             }
-        using (var fill = new SKPaint { Color = Land, IsAntialias = true })
-        using (var edge = new SKPaint { Color = LandEdge, IsStroke = true, StrokeWidth = 0.4f, IsAntialias = true })
-            if (land.Land is { } shape)
-                for (var k = 0; k < shape.NumGeometries; k++)
-                    if (shape.GetGeometryN(k) is Polygon polygon)
-                    {
-                        using var path = PathOf(polygon, At);
-                        canvas.DrawPath(path, fill);
-                        canvas.DrawPath(path, edge);
-                    }
+        // Land as the page and the figures draw it (hatched), so it never reads as a value at the light end of the scale.
+        foreach (var polygon in land.Polygons)
+        {
+            using var path = PathOf(polygon, At);
+            LandStyle.Draw(canvas, path, map, 3.5f, 0.4f);
+        }
         using (var outline = new SKPaint { Color = ReportPage.Ink, IsStroke = true, StrokeWidth = 1.2f, IsAntialias = true })
             foreach (var geometry in outlines)
                 for (var k = 0; k < geometry.NumGeometries; k++)
