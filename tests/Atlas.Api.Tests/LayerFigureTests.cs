@@ -1,3 +1,4 @@
+using System.Globalization;
 using System.Text.Json;
 using System.Text.RegularExpressions;
 using System.Xml.Linq;
@@ -69,6 +70,16 @@ public sealed class LayerFigureTests(AtlasApiFixture atlas)
         var rendered = JsonDocument.Parse(ExternalTool.Run(ExternalTool.Python, "-c",
             "import json, sys\nfrom PIL import Image\nprint(json.dumps(Image.open(sys.argv[1]).size))", svgAsPng)).RootElement;
         Assert.Equal(pil.GetProperty("size")[0].GetInt32(), rendered[0].GetInt32());
+        Assert.Equal((byte)'<', (await File.ReadAllBytesAsync(svg))[0]);  // no byte order mark
+        // The vector form draws the same map: cells stay blocks of their colour (a viewer's smoothing of the embedded
+        // map must not blend neighbouring cells into colours of values that are not there). Mean absolute difference per
+        // channel of the two renderings inside the map (x 80-500, y 140-600, clear of labels, arrow and legend), by
+        // NumPy; graticule lines antialias a little differently, so 1 of 255 (a smoothed map differs by several).
+        var difference = double.Parse(ExternalTool.Run(ExternalTool.Python, "-c",
+            "import sys, numpy as np\nfrom PIL import Image\na = np.asarray(Image.open(sys.argv[1]).convert('RGB'), float)\n" +
+            "b = np.asarray(Image.open(sys.argv[2]).convert('RGB'), float)\nprint(np.abs(a[140:600, 80:500] - b[140:600, 80:500]).mean())",
+            png, svgAsPng).Trim(), CultureInfo.InvariantCulture);
+        Assert.True(difference < 1, $"the SVG's map renders {difference:0.00} of 255 away from the PNG's on average");
         var document = XDocument.Load(svg);
         XNamespace dc = "http://purl.org/dc/elements/1.1/", dcterms = "http://purl.org/dc/terms/";
         var metadata = document.Root!.Elements().Single(e => e.Name.LocalName == "metadata");

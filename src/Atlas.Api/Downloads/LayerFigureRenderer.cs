@@ -16,7 +16,7 @@ namespace Atlas.Api.Downloads;
 /// </summary>
 public static class LayerFigureRenderer
 {
-    private const int MapMaxWidth = 760, MapMaxHeight = 600;
+    private const int MapMaxWidth = 760, MapMaxHeight = 600, MaxImageSide = 1600;
     private const int Left = 64, Top = 64, Right = 150, CaptionGap = 78, CaptionLine = 15, Margin = 16, LegendRow = 22;
     private static readonly SKColor NoDataColour = new(0xEE, 0xEF, 0xEC);
     private static readonly SKColor GraticuleColour = new(0x55, 0x61, 0x6B, 0x70);
@@ -50,6 +50,8 @@ public static class LayerFigureRenderer
             dcterms = "http://purl.org/dc/terms/", rdfs = "http://www.w3.org/2000/01/rdf-schema#";
         var root = svg.Root!;
         XNamespace ns = root.Name.Namespace;
+        // Viewers that honour it draw the map's cells unsmoothed (CSS Images 3, image-rendering).
+        foreach (var image in root.Descendants(ns + "image")) image.SetAttributeValue("style", "image-rendering:pixelated");
         var items = figure.Provenance.Items.ToDictionary(i => i.Key, i => i.Value);
         var description = new XElement(rdf + "Description",
             new XElement(dc + "title", items["Title"]),
@@ -68,8 +70,10 @@ public static class LayerFigureRenderer
                     new XAttribute(XNamespace.Xmlns + "rdf", rdf.NamespaceName), new XAttribute(XNamespace.Xmlns + "dc", dc.NamespaceName),
                     new XAttribute(XNamespace.Xmlns + "dcterms", dcterms.NamespaceName), new XAttribute(XNamespace.Xmlns + "rdfs", rdfs.NamespaceName),
                     description)));
+        // UTF-8 without a byte order mark: tools that read the file as text (and XML parsers given that text) expect '<' first.
         using var output = new MemoryStream();
-        svg.Save(output, SaveOptions.DisableFormatting);
+        using (var writer = System.Xml.XmlWriter.Create(output, new System.Xml.XmlWriterSettings { Encoding = new UTF8Encoding(false), Indent = false }))
+            svg.Save(writer);
         return output.ToArray();
     }
 
@@ -152,8 +156,15 @@ public static class LayerFigureRenderer
         private (byte R, byte G, byte B)? ColourOf(double value) =>
             _cyclic ? DirectionColourScale.AtDegrees(value) : ColourScale.At((value - _min) / (_max - _min));
 
+        /// <summary>
+        /// The raster's colours, each pixel repeated to a block of whole pixels about as large as it is drawn (at most
+        /// <see cref="MaxImageSide"/> a side): a viewer that smooths an embedded image (librsvg and browsers do in SVG)
+        /// then blends only the blocks' edges, so cells stay cells and no colour of a value that is not there appears.
+        /// </summary>
         private SKImage ImageOfRaster()
         {
+            var factor = Math.Max(1, Math.Min((int)Math.Ceiling(_map.Width / _raster.Width),
+                MaxImageSide / Math.Max(_raster.Width, _raster.Height)));
             using var bitmap = new SKBitmap(new SKImageInfo(_raster.Width, _raster.Height, SKColorType.Rgba8888, SKAlphaType.Premul));
             for (var row = 0; row < _raster.Height; row++)
             for (var column = 0; column < _raster.Width; column++)
@@ -161,7 +172,10 @@ public static class LayerFigureRenderer
                 var colour = ColourOf(_raster[column, row]);
                 bitmap.SetPixel(column, row, colour is { } c ? new SKColor(c.R, c.G, c.B) : SKColors.Transparent);
             }
-            return SKImage.FromBitmap(bitmap);
+            if (factor == 1) return SKImage.FromBitmap(bitmap);
+            using var blocks = bitmap.Resize(new SKImageInfo(_raster.Width * factor, _raster.Height * factor, SKColorType.Rgba8888, SKAlphaType.Premul),
+                new SKSamplingOptions(SKFilterMode.Nearest));
+            return SKImage.FromBitmap(blocks);
         }
 
         private SKPoint ToFigure(double lon, double lat) => new(
