@@ -1,3 +1,5 @@
+using System.Runtime.CompilerServices;
+
 namespace Atlas.WavePhysics;
 
 /// <summary>
@@ -74,6 +76,7 @@ public sealed class ResolvedPowerSweep
     /// <param name="powers">Power of each component (one per direction), finite and not negative; not checked here.</param>
     /// <returns>The total, the maximum, its direction (degrees 0..360, the convention of the directions) and the
     /// coefficient; NaN maximum, direction and coefficient when the total is 0.</returns>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public DirectionalPower Maximum(ReadOnlySpan<double> powers)
     {
         if (powers.Length != _cos.Length)
@@ -113,6 +116,7 @@ public sealed class ResolvedPowerSweep
     /// Whether the direction of (a, b) lies on arc r, from its start (included) to the next start (excluded): by cross
     /// products for arcs shorter than half the circle, by the angle itself for longer ones.
     /// </summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private bool OnArc(int r, double a, double b)
     {
         int next = r + 1 < _start.Length ? r + 1 : 0;

@@ -1,3 +1,4 @@
+using System.Runtime.CompilerServices;
 using System.Runtime.Intrinsics;
 
 namespace Atlas.WavePhysics;
@@ -72,6 +73,7 @@ public sealed class SpectralIntegrator
     /// S(f, theta) frequency-major (density[i * directions + j]) in m^2 s rad^-1, or S(f) in m^2 s when the axes have no
     /// directions.
     /// </param>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public SpectralSeaState Integrate(ReadOnlySpan<float> density)
     {
         int nf = _axes.FrequencyCount, nd = _axes.DirectionCount;
@@ -155,6 +157,7 @@ public sealed class SpectralIntegrator
     /// the frequency spectrum (not yet times the bin width). Eight directions at a time in registers where the machine
     /// has 256-bit vectors, frequencies inner.
     /// </summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private void Accumulate(ReadOnlySpan<float> density, int nf, int nd, Span<double> powers, Span<double> energy)
     {
         Array.Clear(_frequencySpectrum);

@@ -1,4 +1,5 @@
 using System.Numerics;
+using System.Runtime.CompilerServices;
 
 namespace Atlas.Hindcast.Spectra;
 
@@ -142,6 +143,7 @@ public sealed class PointSpectraFile : IDisposable
     /// <paramref name="destination"/> laid out [time][station][frequency][direction, sorted], in m^2 s rad^-1 (m^2 s for
     /// S(f)), NaN where the file has a fill value. A negative density is refused, naming the station, time and frequency.
     /// </summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public void ReadSteps(int timeStart, int timeCount, Span<float> destination)
     {
         int stations = Stations.Count, nf = FrequenciesHz.Length, nd = Math.Max(DirectionsFrom.Length, 1);
@@ -216,6 +218,7 @@ public sealed class PointSpectraFile : IDisposable
     }
 
     /// <summary>Copies <paramref name="source"/> times <paramref name="factor"/>; returns the smallest value seen if below 0, else 0 (NaN passes).</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private static float ScaledCopy(ReadOnlySpan<float> source, float factor, Span<float> destination)
     {
         int j = 0, width = Vector<float>.Count;

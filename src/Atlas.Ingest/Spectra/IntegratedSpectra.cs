@@ -1,3 +1,4 @@
+using System.Runtime.CompilerServices;
 using Atlas.Hindcast;
 using Atlas.Hindcast.Spectra;
 using Atlas.WavePhysics;
@@ -78,13 +79,10 @@ public sealed class IntegratedSpectra : IStepReader
     private void Fill(PointSpectraFile file)
     {
         int stations = Stations.Count, steps = TimesUtc.Count, perSpectrum = file.ValuesPerSpectrum;
-        int nf = Axes.FrequencyCount, nd = Axes.DirectionCount;
         var integrators = Stations.Select(s => new SpectralIntegrator(Axes, s.DepthMetres)).ToArray();
         int block = (int)Math.Clamp(BlockValues / Math.Max(1L, (long)stations * perSpectrum), 1, Math.Max(steps, 1));
         // Two buffers: the file reads the next block (netCDF calls stay on one thread at a time) while this one is integrated.
         var buffers = new[] { new float[(long)block * stations * perSpectrum], new float[(long)block * stations * perSpectrum] };
-        var hs = _series[WaveParameter.Hs]; var te = _series[WaveParameter.Te]; var tp = _series[WaveParameter.Tp];
-        var dir = _series[WaveParameter.Dir]; var spread = _series[WaveParameter.Spread];
         Task? reading = steps > 0 ? Task.Run(() => file.ReadSteps(0, Math.Min(block, steps), buffers[0])) : null;
         try
         {
@@ -96,36 +94,42 @@ public sealed class IntegratedSpectra : IStepReader
                 int next = t0 + block, nextCount = Math.Min(block, steps - next);
                 var nextBuffer = buffers[turn ^ 1];
                 reading = next < steps ? Task.Run(() => file.ReadSteps(next, nextCount, nextBuffer)) : Task.CompletedTask;
-                Parallel.For(0, stations, s =>
-                {
-                    var integrator = integrators[s];
-                    for (int k = 0; k < n; k++)
-                    {
-                        int t = t0 + k;
-                        var state = integrator.Integrate(buffer.AsSpan((k * stations + s) * perSpectrum, perSpectrum));
-                        int at = s * steps + t;
-                        hs[at] = (float)state.Hm0;
-                        te[at] = (float)state.EnergyPeriod;
-                        tp[at] = (float)state.PeakPeriod;
-                        dir[at] = (float)state.MeanDirectionFrom;
-                        spread[at] = (float)state.DirectionalSpread;
-                        _products[(int)SpectralProduct.Power][at] = (float)state.Power;
-                        _products[(int)SpectralProduct.ParametricPower][at] = (float)state.ParametricPower;
-                        _products[(int)SpectralProduct.Directionality][at] = (float)state.Directionality;
-                        _products[(int)SpectralProduct.MaximumPowerFrom][at] = (float)state.MaximumPowerFrom;
-                        _products[(int)SpectralProduct.SpectralWidth][at] = (float)state.SpectralWidth;
-                        var spectrum = integrator.FrequencySpectrum;
-                        for (int i = 0; i < nf; i++) FrequencySpectra[(long)at * nf + i] = (float)spectrum[i];
-                        var powers = integrator.DirectionPowers;
-                        for (int j = 0; j < nd; j++) DirectionPowers[(long)at * nd + j] = (float)powers[j];
-                    }
-                });
+                Parallel.For(0, stations, s => IntegrateStation(integrators[s], s, t0, n, buffer, perSpectrum));
             }
         }
         finally
         {
             // A read still under way ends before the file can be closed.
             try { reading?.Wait(); } catch (AggregateException) { }
+        }
+    }
+
+    /// <summary>Integrates steps t0..t0+n of station <paramref name="s"/> from a block laid out [step][station][values].</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
+    private void IntegrateStation(SpectralIntegrator integrator, int s, int t0, int n, float[] buffer, int perSpectrum)
+    {
+        int stations = Stations.Count, steps = TimesUtc.Count, nf = Axes.FrequencyCount, nd = Axes.DirectionCount;
+        var hs = _series[WaveParameter.Hs]; var te = _series[WaveParameter.Te]; var tp = _series[WaveParameter.Tp];
+        var dir = _series[WaveParameter.Dir]; var spread = _series[WaveParameter.Spread];
+        for (int k = 0; k < n; k++)
+        {
+            int t = t0 + k;
+            var state = integrator.Integrate(buffer.AsSpan((k * stations + s) * perSpectrum, perSpectrum));
+            int at = s * steps + t;
+            hs[at] = (float)state.Hm0;
+            te[at] = (float)state.EnergyPeriod;
+            tp[at] = (float)state.PeakPeriod;
+            dir[at] = (float)state.MeanDirectionFrom;
+            spread[at] = (float)state.DirectionalSpread;
+            _products[(int)SpectralProduct.Power][at] = (float)state.Power;
+            _products[(int)SpectralProduct.ParametricPower][at] = (float)state.ParametricPower;
+            _products[(int)SpectralProduct.Directionality][at] = (float)state.Directionality;
+            _products[(int)SpectralProduct.MaximumPowerFrom][at] = (float)state.MaximumPowerFrom;
+            _products[(int)SpectralProduct.SpectralWidth][at] = (float)state.SpectralWidth;
+            var spectrum = integrator.FrequencySpectrum;
+            for (int i = 0; i < nf; i++) FrequencySpectra[(long)at * nf + i] = (float)spectrum[i];
+            var powers = integrator.DirectionPowers;
+            for (int j = 0; j < nd; j++) DirectionPowers[(long)at * nd + j] = (float)powers[j];
         }
     }
 
