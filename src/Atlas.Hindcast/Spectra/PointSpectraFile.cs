@@ -1,3 +1,4 @@
+using System.Buffers;
 using System.Numerics;
 using System.Runtime.CompilerServices;
 
@@ -136,6 +137,10 @@ public sealed class PointSpectraFile : IDisposable
     public IReadOnlyList<string> Notes { get; }
 
     /// <summary>Values per step and station: frequencies x directions (x 1 for S(f)).</summary>
+    /// <summary>Steps per chunk of the spectrum variable along time (1 when it is not chunked): reads of whole chunks
+    /// decode each chunk once.</summary>
+    public int TimeChunkSteps => _density.ChunkSizes is { } chunks && chunks[_timeAxis] > 0 ? (int)Math.Min(chunks[_timeAxis], int.MaxValue) : 1;
+
     public int ValuesPerSpectrum => FrequenciesHz.Length * Math.Max(DirectionsFrom.Length, 1);
 
     /// <summary>
@@ -158,7 +163,11 @@ public sealed class PointSpectraFile : IDisposable
         var count = _density.Shape;
         start[_timeAxis] = timeStart;
         count[_timeAxis] = timeCount;
-        if (_raw.Length < needed) _raw = new float[needed];
+        if (_raw.Length < needed)
+        {
+            if (_raw.Length > 0) ArrayPool<float>.Shared.Return(_raw);
+            _raw = ArrayPool<float>.Shared.Rent((int)needed);
+        }
         var raw = _raw.AsSpan(0, (int)needed);
         _file.Read(_density, start, count, raw);
         _decoder.DecodeInPlace(raw);
@@ -244,7 +253,12 @@ public sealed class PointSpectraFile : IDisposable
         return smallest;
     }
 
-    public void Dispose() => _file.Dispose();
+    public void Dispose()
+    {
+        _file.Dispose();
+        if (_raw.Length > 0) ArrayPool<float>.Shared.Return(_raw);
+        _raw = [];
+    }
 
     private static NetCdfVariable? FindSpectrum(NetCdfFile file, VariableMapping? mapping)
     {

@@ -64,32 +64,50 @@ public static class SpectralProductWriter
         }
 
         // Monthly sums count each step once: not when stored before, nor when an earlier file (or step) gave it already.
+        // Each file summed its months as it was integrated; the spectra of a step counted elsewhere are taken out again.
         var counted = new HashSet<long>(plan.StoredTimelines.Values.SelectMany(line => line));
         var sums = new Dictionary<(int Station, int Year, int Month), (double[] Frequency, double[] Direction, int[] Steps)>();
         foreach (var file in files)
         {
             var spectra = file.Spectra!;
             int steps = file.Times.Length;
+            var repeated = new List<int>();
             for (int t = 0; t < steps; t++)
             {
                 long time = file.Times[t];
                 int year = YearTimeline.YearOf(time);
                 int at = Array.BinarySearch(plan.MergedTimelines[year], time);
-                bool first = counted.Add(time);
-                int month = DateTimeOffset.FromUnixTimeSeconds(time).Month;
+                if (!counted.Add(time)) repeated.Add(t);
                 for (int s = 0; s < stations; s++)
                 {
                     var products = values[(s, year)];
                     foreach (var product in SpectralProducts.All) products[(int)product][at] = spectra.Product(product, s)[t];
-                    if (!first || float.IsNaN(spectra.Series(WaveParameter.Hs, s)[t])) continue;
+                }
+            }
+            for (int s = 0; s < stations; s++)
+            {
+                for (int m = 0; m < spectra.Months.Count; m++)
+                {
+                    var (year, month) = spectra.Months[m];
+                    var (frequency, direction, count) = spectra.MonthSum(m, s);
                     if (!sums.TryGetValue((s, year, month), out var sum))
                         sums[(s, year, month)] = sum = (new double[nf], new double[nd], new int[1]);
-                    long row = (long)s * steps + t;
-                    var frequency = spectra.FrequencySpectra.AsSpan((int)(row * nf), nf);
-                    for (int i = 0; i < nf; i++) sum.Frequency[i] += frequency[i];
-                    var direction = spectra.DirectionPowers.AsSpan((int)(row * nd), nd);
-                    for (int j = 0; j < nd; j++) sum.Direction[j] += direction[j];
-                    sum.Steps[0]++;
+                    Add(sum.Frequency, frequency.Span, 1);
+                    Add(sum.Direction, direction.Span, 1);
+                    sum.Steps[0] += count;
+                }
+                var hs = spectra.Series(WaveParameter.Hs, s);
+                var again = new List<int>();
+                foreach (int t in repeated) if (!float.IsNaN(hs[t])) again.Add(t);
+                if (again.Count == 0) continue;
+                var twice = spectra.SpectraOf(s, again);
+                for (int k = 0; k < again.Count; k++)
+                {
+                    var (year, month) = spectra.Months[spectra.MonthOf(again[k])];
+                    var sum = sums[(s, year, month)];
+                    Add(sum.Frequency, twice[k].Frequency, -1);
+                    Add(sum.Direction, twice[k].Direction, -1);
+                    sum.Steps[0]--;
                 }
             }
         }
@@ -99,6 +117,11 @@ public static class SpectralProductWriter
         await StationSpectraStore.AddMonthSumsAsync(connection, transaction, datasetId, monthSums, cancel);
         await DatasetStore.MergeMetadataAsync(connection, transaction, datasetId, metadata.ToJsonString(), cancel);
         return files.SelectMany(f => f.Spectra!.Notes).Distinct().ToList();
+    }
+
+    private static void Add(double[] into, ReadOnlySpan<double> values, int sign)
+    {
+        for (int i = 0; i < values.Length; i++) into[i] += sign * values[i];
     }
 
     /// <summary>The metadata under "spectra"; the axes must equal those stored by an earlier ingest of the dataset.</summary>
