@@ -10,8 +10,8 @@ namespace Atlas.Ingest.Spectra;
 /// Every spectrum of a point file integrated once (<see cref="SpectralIntegrator"/>, at each station's depth) and kept
 /// in memory: the per-step parameters the series store (Hs, Te, Tp, mean direction, spread), the per-step spectral
 /// products (<see cref="SpectralProduct"/>), and the monthly sums of each station's frequency spectrum and direction-bin
-/// powers, from which the period means are built. Serves the ingest's reads as a gridded file would (<see cref="IStepReader"/>), so point
-/// files go through the same plan, checks, shared-step rules and COPY as grids.
+/// powers, from which the period means are built. Serves the ingest's reads as a gridded file would
+/// (<see cref="IStepReader"/>), so point files go through the same plan, checks, shared-step rules and COPY as grids.
 /// </summary>
 public sealed class IntegratedSpectra : IStepReader
 {
@@ -20,6 +20,10 @@ public sealed class IntegratedSpectra : IStepReader
 
     private readonly Dictionary<WaveParameter, float[]> _series = [];   // [station * steps + step]
     private readonly float[][] _products;                                // per product, [station * steps + step]
+    private readonly int[] _monthOfStep;                                 // step -> index into Months
+    private readonly MonthSums[] _monthSums;                             // per index into Months
+    private string? _path;                                               // to read steps again (SpectraOf)
+    private VariableMapping? _mapping;
 
     private IntegratedSpectra(PointSpectraFile file, IReadOnlyList<string> notes)
     {
@@ -46,11 +50,6 @@ public sealed class IntegratedSpectra : IStepReader
         Months = months;
         _monthSums = months.Select(_ => new MonthSums(stations, Axes.FrequencyCount, Axes.DirectionCount)).ToArray();
     }
-
-    private readonly int[] _monthOfStep;
-    private readonly MonthSums[] _monthSums;
-    private string? _path;
-    private VariableMapping? _mapping;
 
     /// <summary>Sums over one calendar month of the file's steps with a spectrum, per station: S(f), each direction bin's power, the steps.</summary>
     private sealed class MonthSums(int stations, int frequencies, int directions)
