@@ -99,6 +99,26 @@ public sealed class OutputPointApiTests : IAsyncLifetime
         Assert.InRange(spectral.GetProperty("distance_km").GetDouble(), 3.4, 3.9);
     }
 
+    // The site report of a gridded cell prints the nearest output point's spectral values, read back by poppler's pdftotext
+    // (an outside reader): the same station and the same annual means as the point answer's JSON, at the printed precision.
+    [Fact]
+    public async Task TheSiteReportPrintsTheNearestOutputPointsSpectralValues()
+    {
+        var client = _factory.CreateClient();
+        const string at = "lat=50.3&lon=-19.6";
+        var answer = JsonDocument.Parse(await client.GetStringAsync($"/api/v1/datasets/grid/point?{at}&include=none")).RootElement;
+        var response = await client.GetAsync($"/api/v1/datasets/grid/point/report.pdf?{at}");
+        Assert.True(response.IsSuccessStatusCode, await response.Content.ReadAsStringAsync());
+        var report = new PopplerReport(await response.Content.ReadAsByteArrayAsync(), "site-report-output-point");
+        var text = report.Flat();
+        Assert.Contains("Exact values from the spectra", text);
+        Assert.Contains("Wick Inner", text);
+        var annual = Period(answer.GetProperty("spectral").GetProperty("periods"), "annual");
+        string Printed(string member, int decimals) => annual.GetProperty(member).GetDouble().ToString($"F{decimals}", System.Globalization.CultureInfo.InvariantCulture);
+        Assert.Contains($"{Printed("mean_power_spectral", 1)} {Printed("mean_power_parametric", 1)}", text);
+        Assert.Contains(Printed("directionality_coefficient", 3), text);
+    }
+
     // The series at an output point: j is the power integrated from the spectra (the script's NumPy/SciPy values, to the
     // 3 decimals written), followed by the spectral values; the NetCDF form read back by netCDF4-python (a reader the project
     // did not write) holds the same numbers as the JSON form.
