@@ -114,6 +114,7 @@ class Atlas {
       if (detail.caution) document.getElementById('caution-text').textContent = detail.caution;
       this.describe(detail);
       this.outputPoints = drawOutputPoints(this, detail);
+      if (this.outputPoints) this.layers?.paint();
     }).catch(error => this.status(`The dataset description could not be loaded. ${error.message}`, 'error'));
     const catalogue = await (fromBoot ? early.catalogue : getJson(`${datasetUrl(this.slug)}/layers`));
     this.catalogue = catalogue;
