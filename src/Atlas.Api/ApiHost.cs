@@ -13,6 +13,7 @@ public static class ApiHost
         app.MapOperationsApi();
         app.MapDatasetApi();
         app.MapLandMaskApi();
+        app.MapColourScaleApi();
         app.MapPointApi();
         app.MapLayerApi();
         app.MapAreaApi();

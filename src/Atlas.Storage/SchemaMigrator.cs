@@ -4,11 +4,15 @@ namespace Atlas.Storage;
 
 /// <summary>
 /// Applies the SQL migrations under db/ (copied beside the binaries) in version order with Evolve, which records
-/// each applied script and its checksum in the table <c>atlas_schema_history</c>; re-running applies nothing new.
+/// each applied script and its checksum in the table <c>atlas_migration_ledger</c>; re-running applies nothing new.
+/// A database migrated before the ledger had that name keeps its record: the former table is renamed first.
 /// </summary>
 public static class SchemaMigrator
 {
-    public const string HistoryTable = "atlas_schema_history";
+    public const string HistoryTable = "atlas_migration_ledger";
+
+    /// <summary>The ledger's name before, renamed to <see cref="HistoryTable"/> at the next start.</summary>
+    public const string FormerHistoryTable = "atlas_schema_history";
 
     public static string MigrationsFolder =>
         Environment.GetEnvironmentVariable("ATLAS_MIGRATIONS") is { Length: > 0 } configured
@@ -23,6 +27,7 @@ public static class SchemaMigrator
     {
         if (!Directory.Exists(MigrationsFolder) || Directory.GetFiles(MigrationsFolder, "*.sql").Length == 0)
             throw new InvalidOperationException($"No migrations found in {MigrationsFolder}.");
+        MoveFormerLedger(connectionString, log);
         using var connection = new NpgsqlConnection(connectionString);
         var evolve = new EvolveDb.Evolve(connection, message => log?.Invoke(message))
         {
@@ -35,6 +40,43 @@ public static class SchemaMigrator
         if (targetVersion is not null) evolve.TargetVersion = new EvolveDb.Migration.MigrationVersion(targetVersion);
         evolve.Migrate();
         return evolve.NbMigration;
+    }
+
+    /// <summary>
+    /// Renames the former ledger table (with its id sequence and primary key, as Evolve names them) to the current
+    /// name, in one transaction under an advisory lock so that two processes starting together do it once; does
+    /// nothing when there is no former table or the current one already exists (then the former is left alone for
+    /// a person to look at, and logged).
+    /// </summary>
+    private static void MoveFormerLedger(string connectionString, Action<string>? log)
+    {
+        using var connection = new NpgsqlConnection(connectionString);
+        connection.Open();
+        using var transaction = connection.BeginTransaction();
+        using (var lockLedger = new NpgsqlCommand("SELECT pg_advisory_xact_lock(hashtext('atlas migration ledger'))", connection, transaction))
+            lockLedger.ExecuteNonQuery();
+        using var state = new NpgsqlCommand("SELECT to_regclass($1) IS NOT NULL, to_regclass($2) IS NOT NULL", connection, transaction);
+        state.Parameters.AddWithValue(FormerHistoryTable);
+        state.Parameters.AddWithValue(HistoryTable);
+        bool former, current;
+        using (var reader = state.ExecuteReader())
+        {
+            reader.Read();
+            (former, current) = (reader.GetBoolean(0), reader.GetBoolean(1));
+        }
+        if (former && current)
+            log?.Invoke($"Both {FormerHistoryTable} and {HistoryTable} exist; {HistoryTable} is used and {FormerHistoryTable} is left as it is.");
+        if (former && !current)
+        {
+            using var rename = new NpgsqlCommand($"""
+                ALTER TABLE {FormerHistoryTable} RENAME TO {HistoryTable};
+                ALTER SEQUENCE IF EXISTS {FormerHistoryTable}_id_seq RENAME TO {HistoryTable}_id_seq;
+                ALTER INDEX IF EXISTS {FormerHistoryTable}_pkey RENAME TO {HistoryTable}_pkey;
+                """, connection, transaction);
+            rename.ExecuteNonQuery();
+            log?.Invoke($"Renamed the migration ledger {FormerHistoryTable} to {HistoryTable}.");
+        }
+        transaction.Commit();
     }
 
     /// <summary>The versions recorded as applied, oldest first.</summary>

@@ -1,3 +1,5 @@
+using System.Runtime.CompilerServices;
+
 namespace Atlas.WavePhysics;
 
 /// <summary>
@@ -74,6 +76,7 @@ public sealed class ResolvedPowerSweep
     /// <param name="powers">Power of each component (one per direction), finite and not negative; not checked here.</param>
     /// <returns>The total, the maximum, its direction (degrees 0..360, the convention of the directions) and the
     /// coefficient; NaN maximum, direction and coefficient when the total is 0.</returns>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public DirectionalPower Maximum(ReadOnlySpan<double> powers)
     {
         if (powers.Length != _cos.Length)
@@ -84,7 +87,9 @@ public sealed class ResolvedPowerSweep
 
         double a = 0, b = 0;
         foreach (int k in _initial) { a += powers[k] * _cos[k]; b += powers[k] * _sin[k]; }
-        double best = double.NegativeInfinity, bestAngle = 0;
+        // The best so far is an arc start (its index) or a stationary point (its vector (A, B)); its angle is found once at the end.
+        double best = double.NegativeInfinity, bestA = 0, bestB = 0;
+        int bestStart = 0;
         int arcs = _start.Length;
         for (int r = 0; r < arcs; r++)
         {
@@ -93,20 +98,32 @@ public sealed class ResolvedPowerSweep
                 foreach (int k in _entering[r]) { a += powers[k] * _cos[k]; b += powers[k] * _sin[k]; }
                 foreach (int k in _leaving[r]) { a -= powers[k] * _cos[k]; b -= powers[k] * _sin[k]; }
             }
-            double start = _start[r];
-            double length = (r + 1 < arcs ? _start[r + 1] : _start[0] + 2 * Math.PI) - start;
             double atStart = a * _startCos[r] + b * _startSin[r];
-            if (atStart > best) { best = atStart; bestAngle = start; }
-            if (a == 0 && b == 0) continue;
-            double stationary = Math.Atan2(b, a);
-            double offset = Normalise(stationary - start);
-            if (offset < length)
-            {
-                double peak = Math.Sqrt(a * a + b * b);
-                if (peak > best) { best = peak; bestAngle = stationary; }
-            }
+            if (atStart > best) { best = atStart; bestStart = r; bestA = bestB = 0; }
+            double squared = a * a + b * b;
+            // The stationary value sqrt(A^2 + B^2) is never below the value at the arc's start, so it can only win when
+            // it exceeds the best so far; only then is it asked whether atan2(B, A) lies on this arc.
+            if (squared == 0 || (best >= 0 && !(squared > best * best)) || !OnArc(r, a, b)) continue;
+            best = Math.Sqrt(squared);
+            bestA = a;
+            bestB = b;
         }
-        return new DirectionalPower(total, best, Normalise(bestAngle) * 180 / Math.PI, best / total);
+        double angle = bestA == 0 && bestB == 0 ? _start[bestStart] : Math.Atan2(bestB, bestA);
+        return new DirectionalPower(total, best, Normalise(angle) * 180 / Math.PI, best / total);
+    }
+
+    /// <summary>
+    /// Whether the direction of (a, b) lies on arc r, from its start (included) to the next start (excluded): by cross
+    /// products for arcs shorter than half the circle, by the angle itself for longer ones.
+    /// </summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
+    private bool OnArc(int r, double a, double b)
+    {
+        int next = r + 1 < _start.Length ? r + 1 : 0;
+        double length = (r + 1 < _start.Length ? _start[r + 1] : _start[0] + 2 * Math.PI) - _start[r];
+        if (length < Math.PI)
+            return _startCos[r] * b - _startSin[r] * a >= 0 && a * _startSin[next] - b * _startCos[next] > 0;
+        return Normalise(Math.Atan2(b, a) - _start[r]) < length;
     }
 
     private static double Normalise(double angle)

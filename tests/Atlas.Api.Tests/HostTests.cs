@@ -60,17 +60,17 @@ public sealed class HostTests(AtlasApiFixture atlas)
     }
 
     [Theory]
-    [InlineData("/api/v1/datasets/{slug}/point", "200:application/json,text/csv", "400", "404", "422", "429")]
-    [InlineData("/api/v1/datasets/{slug}/point/series", "200:text/csv,application/json", "400", "404", "422", "429")]
+    [InlineData("/api/v1/datasets/{slug}/point", "200:application/json,text/csv,application/csvm+json", "400", "404", "422", "429")]
+    [InlineData("/api/v1/datasets/{slug}/point/series", "200:text/csv,application/json,application/csvm+json", "400", "404", "422", "429")]
     [InlineData("/api/v1/datasets/{slug}/point/yield", "200:application/json", "400", "404", "422", "429")]
     [InlineData("/api/v1/datasets/{slug}/point/windows", "200:application/json", "400", "404", "422", "429")]
     [InlineData("/api/v1/datasets/{slug}/point/extremes", "200:application/json", "400", "404", "422", "429")]
     [InlineData("/api/v1/datasets/{slug}/layers", "200:application/json", "404")]
     [InlineData("/api/v1/datasets/{slug}/layers/{parameter}/{statistic}/{period}.{format}",
-        "200:image/tiff; application=geotiff; profile=cloud-optimized,text/csv; charset=utf-8,application/geo+json,application/x-netcdf,image/png",
+        "200:image/tiff; application=geotiff; profile=cloud-optimized,text/csv; charset=utf-8,application/geo+json,application/x-netcdf,image/png,application/csvm+json",
         "400", "404", "422", "429")]
-    [InlineData("/api/v1/datasets/{slug}/layers/accessibility.{format}", "200:application/json,application/geo+json,image/tiff", "400", "404", "422", "429")]
-    [InlineData("/api/v1/datasets/{slug}/screen", "200:application/geo+json", "400", "404", "429")]
+    [InlineData("/api/v1/datasets/{slug}/layers/accessibility.{format}", "200:application/json,application/geo+json,image/tiff,application/csvm+json", "400", "404", "422", "429")]
+    [InlineData("/api/v1/datasets/{slug}/screen", "200:application/geo+json,text/csv,application/csvm+json", "400", "404", "429")]
     public async Task OpenApiDocumentsTheAnswersAndProblemsOfPointAndLayerEndpoints(string path, string ok, params string[] problems)
     {
         // OpenAPI 3 (the Responses Object): each status an operation answers with is a key of its "responses", and

@@ -111,11 +111,13 @@ public sealed class LayerApiTests(AtlasApiFixture atlas)
     [Fact]
     public async Task CsvLayerLoadsAsADataFrameWithTheStoredValues()
     {
-        var text = await _client.GetStringAsync($"{Coast}/j/p90/djf.csv");
-        var header = text.Split('\n').TakeWhile(l => l.StartsWith('#')).ToArray();
-        Assert.Contains(header, l => l == $"# caution: {AtlasCaution.Text}");
-        Assert.Contains(header, l => l.Contains("value in kW/m"));
-        using var stream = new MemoryStream(System.Text.Encoding.UTF8.GetBytes(string.Join('\n', text.Split('\n').SkipWhile(l => l.StartsWith('#')))));
+        // GDAL, pandas and the CSVW structure: see CsvDownloadCheck.
+        var download = await CsvDownloadCheck.AssertAsync(_client, $"{Coast}/j/p90/djf.csv");
+        Assert.Equal(["cell_id", "lon", "lat", "value"], download.Header);
+        Assert.Contains(AtlasCaution.Text, CsvDownloadCheck.Notes(download.Metadata));
+        Assert.Equal("kW/m", CsvDownloadCheck.Unit(download.Metadata, "value"));
+        Assert.EndsWith("/j/p90/djf.csv-metadata.json", download.MetadataUrl);
+        using var stream = new MemoryStream(System.Text.Encoding.UTF8.GetBytes(download.Csv));
         var frame = DataFrame.LoadCsv(stream);
         var stored = await StoredLayerAsync(WaveParameter.J, AtlasPeriod.Djf, StatisticKind.P90);
         Assert.Equal(stored.Count, frame.Rows.Count);

@@ -70,8 +70,8 @@ public sealed class LayerBinWidthTests(AtlasApiFixture atlas)
         const string bins = "Hs 0.05 m, Te/Tp 0.1 s, J 0.5 kW/m, spread 0.1 degree";
         const string thresholds = "Hs 0.5, 1.5 m; J 5, 10, 20, 30, 50, 75, 100 kW/m";
 
-        var csv = await _client.GetStringAsync($"/api/v1/datasets/{Slug}/layers/hs/p90/annual.csv");
-        var method = csv.Split('\n').Single(l => l.StartsWith("# method:"));
+        var metadata = JsonDocument.Parse(await _client.GetStringAsync($"/api/v1/datasets/{Slug}/layers/hs/p90/annual.csv-metadata.json")).RootElement;
+        var method = metadata.GetProperty("dc:provenance").GetString()!;
         Assert.Contains(bins, method);
         Assert.Contains(thresholds, method);
 

@@ -1,5 +1,6 @@
 using System.Text.Json;
 using Atlas.Api.Infrastructure;
+using Atlas.Api.Tests.Support;
 using Atlas.Ingest.Ingestion;
 using Atlas.TestSupport;
 using Microsoft.AspNetCore.Hosting;
@@ -27,6 +28,7 @@ public sealed class OutputPointApiTests : IAsyncLifetime
         var ingest = new HindcastIngestor(_database.DataSource);
         await ingest.RunAsync(new IngestRequest("grid", [grid]));
         await ingest.RunAsync(new IngestRequest("points", [_points]) { GridDataset = "grid" });
+        await new Atlas.Ingest.Statistics.StatisticsService(_database.DataSource).RunAsync("points", all: false);
         _factory = new WebApplicationFactory<Program>().WithWebHostBuilder(host =>
         {
             host.UseEnvironment("Production");
@@ -97,6 +99,26 @@ public sealed class OutputPointApiTests : IAsyncLifetime
         Assert.InRange(spectral.GetProperty("distance_km").GetDouble(), 3.4, 3.9);
     }
 
+    // The site report of a gridded cell prints the nearest output point's spectral values, read back by poppler's pdftotext
+    // (an outside reader): the same station and the same annual means as the point answer's JSON, at the printed precision.
+    [Fact]
+    public async Task TheSiteReportPrintsTheNearestOutputPointsSpectralValues()
+    {
+        var client = _factory.CreateClient();
+        const string at = "lat=50.3&lon=-19.6";
+        var answer = JsonDocument.Parse(await client.GetStringAsync($"/api/v1/datasets/grid/point?{at}&include=none")).RootElement;
+        var response = await client.GetAsync($"/api/v1/datasets/grid/point/report.pdf?{at}");
+        Assert.True(response.IsSuccessStatusCode, await response.Content.ReadAsStringAsync());
+        var report = new PopplerReport(await response.Content.ReadAsByteArrayAsync(), "site-report-output-point");
+        var text = report.Flat();
+        Assert.Contains("Exact values from the spectra", text);
+        Assert.Contains("Wick Inner", text);
+        var annual = Period(answer.GetProperty("spectral").GetProperty("periods"), "annual");
+        string Printed(string member, int decimals) => annual.GetProperty(member).GetDouble().ToString($"F{decimals}", System.Globalization.CultureInfo.InvariantCulture);
+        Assert.Contains($"{Printed("mean_power_spectral", 1)} {Printed("mean_power_parametric", 1)}", text);
+        Assert.Contains(Printed("directionality_coefficient", 3), text);
+    }
+
     // The series at an output point: j is the power integrated from the spectra (the script's NumPy/SciPy values, to the
     // 3 decimals written), followed by the spectral values; the NetCDF form read back by netCDF4-python (a reader the project
     // did not write) holds the same numbers as the JSON form.
@@ -105,7 +127,11 @@ public sealed class OutputPointApiTests : IAsyncLifetime
     {
         var client = _factory.CreateClient();
         const string query = "/api/v1/datasets/points/point/series?lat=50.21&lon=-19.71";
-        var csv = (await client.GetStringAsync(query + "&format=csv")).Split('\n').Where(l => l.Length > 0 && !l.StartsWith('#')).ToArray();
+        // Plain RFC 4180 (CRLF line ends, no comment lines), read by GDAL's CSV driver and pandas with their defaults.
+        var download = await CsvDownloadCheck.AssertAsync(client, query + "&format=csv");
+        Assert.Equal("kW/m", CsvDownloadCheck.Unit(download.Metadata, "j"));
+        Assert.Equal("1", CsvDownloadCheck.Unit(download.Metadata, "directionality"));
+        var csv = download.Csv.Split("\r\n").Where(l => l.Length > 0).ToArray();
         Assert.Equal("time,hs,te,tp,dir,spread,j,j_parametric,directionality,max_power_from_deg,spectral_width", csv[0]);
         var steps = PointSpectraFixture.Expected(_points)["steps"]!.AsArray().Select(s => s![1]!).ToList();
         for (int t = 0; t < steps.Count; t++)
@@ -134,5 +160,31 @@ public sealed class OutputPointApiTests : IAsyncLifetime
         var j = read.GetProperty("j").EnumerateArray().Select(v => v.GetDouble()).ToArray();
         Assert.Equal(json.GetArrayLength(), j.Length);
         for (int t = 0; t < j.Length; t++) Assert.Equal(json[t].GetProperty("j").GetDouble(), j[t], 0.0006);
+    }
+
+    // The output points' layer downloads: the CSV is plain RFC 4180 with a station column (read by GDAL's CSV driver and
+    // pandas with their defaults, its CSVW metadata found by the describedby link); the GeoJSON has one named point
+    // feature per output point and its provenance as a foreign member; a raster form is refused with a problem answer.
+    [Fact]
+    public async Task OutputPointLayersOpenAsTheyAreWithTheStationNames()
+    {
+        var client = _factory.CreateClient();
+        const string stem = "/api/v1/datasets/points/layers/hs/mean/annual";
+        var csv = await CsvDownloadCheck.AssertAsync(client, stem + ".csv");
+        Assert.Equal(["cell_id", "station", "lon", "lat", "value"], csv.Header);
+        Assert.Equal(3, csv.Rows);
+        Assert.Equal("m", CsvDownloadCheck.Unit(csv.Metadata, "value"));
+        var names = csv.Csv.Split("\r\n").Skip(1).Where(l => l.Length > 0).Select(l => l.Split(',')[1]).ToArray();
+        Assert.Equal(["Harrow Deep", "Cobble Shelf", "Wick Inner"], names);
+
+        var geojson = JsonDocument.Parse(await client.GetStringAsync(stem + ".geojson")).RootElement;
+        Assert.Equal("output points", geojson.GetProperty("layer").GetProperty("geometry").GetString());
+        Assert.True(geojson.TryGetProperty("provenance", out _));
+        var features = geojson.GetProperty("features").EnumerateArray().ToArray();
+        Assert.Equal(names, features.Select(f => f.GetProperty("properties").GetProperty("station").GetString()).ToArray());
+        Assert.All(features, f => Assert.Equal("Point", f.GetProperty("geometry").GetProperty("type").GetString()));
+
+        var png = await client.GetAsync(stem + ".png");
+        Assert.Equal(System.Net.HttpStatusCode.UnprocessableEntity, png.StatusCode);
     }
 }

@@ -195,17 +195,17 @@ public sealed class PointApiTests(AtlasApiFixture atlas)
     }
 
     [Fact]
-    public async Task CsvHasAProvenanceHeaderAndLoadsAsADataFrame()
+    public async Task CsvOpensAsItIsAndItsMetadataCarriesTheProvenance()
     {
-        var response = await _client.GetAsync($"{Point}?{At(5, 4)}&format=csv");
-        Assert.Equal("text/csv", response.Content.Headers.ContentType?.MediaType);
-        var text = await response.Content.ReadAsStringAsync();
-        var header = text.Split('\n').TakeWhile(l => l.StartsWith('#')).ToArray();
-        Assert.Contains(header, l => l.Contains(AtlasCaution.Text));
-        Assert.Contains(header, l => l.Contains(SyntheticAtlas.SourceSha256));
-        Assert.Contains(header, l => l.StartsWith("# units:") && l.Contains("j kW/m"));
-        var csv = string.Join('\n', text.Split('\n').SkipWhile(l => l.StartsWith('#')));
-        using var stream = new MemoryStream(System.Text.Encoding.UTF8.GetBytes(csv));
+        // GDAL, pandas and the CSVW structure: see CsvDownloadCheck.
+        var download = await CsvDownloadCheck.AssertAsync(_client, $"{Point}?{At(5, 4)}&format=csv");
+        Assert.Equal("period,parameter,mean,sd,min,max,p10,p50,p90,p99,count,coverage,low_coverage", string.Join(',', download.Header));
+        var notes = CsvDownloadCheck.Notes(download.Metadata);
+        Assert.Contains(AtlasCaution.Text, notes);
+        Assert.Contains("sha256:" + SyntheticAtlas.SourceSha256, CsvDownloadCheck.SourceChecksums(download.Metadata));
+        Assert.Contains("j kW/m", notes);
+        Assert.Contains($"{Point}?{At(5, 4)}&format=csvw", download.MetadataUrl);
+        using var stream = new MemoryStream(System.Text.Encoding.UTF8.GetBytes(download.Csv));
         var frame = DataFrame.LoadCsv(stream);
         var stored = await StoredAsync(SyntheticAtlas.CellId(5, 4));
         var row = Enumerable.Range(0, (int)frame.Rows.Count).Single(r => (string)frame["period"][r] == "annual" && (string)frame["parameter"][r] == "hs");
@@ -280,10 +280,11 @@ public sealed class PointApiTests(AtlasApiFixture atlas)
     public async Task SeriesCsvStreamsEveryStepWithDecodedValues()
     {
         var url = $"{Point}/series?{At(3, 7)}&from=2020&to=2020";
-        var text = await _client.GetStringAsync(url);
-        var lines = text.Split('\n', StringSplitOptions.RemoveEmptyEntries);
-        Assert.Contains(lines, l => l.StartsWith("# caution: ") && l.EndsWith(AtlasCaution.Text));
-        var rows = lines.SkipWhile(l => l.StartsWith('#')).ToArray();
+        var download = await CsvDownloadCheck.AssertAsync(_client, url);
+        Assert.Contains(AtlasCaution.Text, CsvDownloadCheck.Notes(download.Metadata));
+        Assert.Equal("m", CsvDownloadCheck.Unit(download.Metadata, "hs"));
+        Assert.Equal("kW/m", CsvDownloadCheck.Unit(download.Metadata, "j"));
+        var rows = download.Csv.Split("\r\n", StringSplitOptions.RemoveEmptyEntries);
         Assert.Equal("time,hs,te,tp,dir,spread,j", rows[0]);
         Assert.Equal(SyntheticAtlas.Timeline(2020).Length, rows.Length - 1);
         var cell = new Atlas.Storage.Cells.CellRecord(SyntheticAtlas.CellId(3, 7), 3, 7, 0, 0, null, true);

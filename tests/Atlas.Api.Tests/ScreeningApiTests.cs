@@ -35,6 +35,24 @@ public sealed class ScreeningApiTests(AtlasApiFixture atlas)
         Assert.Equal(AtlasCaution.Text, root.GetProperty("caution").GetString());
     }
 
+    [Fact]
+    public async Task ScreeningCsvHoldsTheSameCellsAndItsMetadataTheCriteriaAndTheCaution()
+    {
+        const string criteria = "min_power_kw_m=14&min_depth_m=40&max_depth_m=130&max_coast_distance_km=60&max_hs_p90_m=3.2";
+        var root = JsonDocument.Parse(await _client.GetStringAsync($"{Screen}?{criteria}")).RootElement;
+        // GDAL, pandas and the CSVW structure: see CsvDownloadCheck.
+        var download = await CsvDownloadCheck.AssertAsync(_client, $"{Screen}?{criteria}&format=csv");
+        Assert.Equal(["cell_id", "lon", "lat", "mean_power_kw_m", "hs_p90_m", "depth_m", "coast_distance_km", "area_km2"], download.Header);
+        var ids = download.Csv.Split("\r\n", StringSplitOptions.RemoveEmptyEntries).Skip(1).Select(l => int.Parse(l.Split(',')[0], CultureInfo.InvariantCulture));
+        Assert.Equal(root.GetProperty("features").EnumerateArray().Select(f => f.GetProperty("id").GetInt32()), ids);
+        var description = download.Metadata.GetProperty("dc:description").GetString()!;
+        Assert.Contains($"The {root.GetProperty("count").GetInt32()} wet cells", description);
+        Assert.Contains("min_power_kw_m 14", description);
+        Assert.Contains(root.GetProperty("total_area_km2").GetDouble().ToString(CultureInfo.InvariantCulture) + " km2", description);
+        Assert.Equal("kW/m", CsvDownloadCheck.Unit(download.Metadata, "mean_power_kw_m"));
+        await Problems.AssertAsync(await _client.GetAsync($"{Screen}?format=xlsx"), HttpStatusCode.BadRequest, "geojson or csv");
+    }
+
     [Theory]
     [InlineData("min_depth_m=100&max_depth_m=20", "max_depth_m")]
     [InlineData("min_power_kw_m=lots", "min_power_kw_m")]

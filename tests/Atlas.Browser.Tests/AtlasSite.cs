@@ -24,6 +24,9 @@ public sealed class AtlasSite : IAsyncLifetime
 {
     public const string Slug = "browser-demo";
 
+    /// <summary>The demo's output points, loaded beside <see cref="Slug"/>.</summary>
+    public const string PointsSlug = "browser-demo-points";
+
     /// <summary>Chromium switches for a machine with no GPU, no display server and no network beyond loopback.</summary>
     public static readonly string[] ChromiumArgs =
         ["--no-sandbox", "--disable-gpu", "--disable-background-networking", "--disable-component-update", "--disable-sync", "--no-first-run"];
@@ -56,6 +59,10 @@ public sealed class AtlasSite : IAsyncLifetime
         var files = output.Scenario.FieldFiles.Select(f => Path.Combine(_demoFolder, f)).ToArray();
         await new HindcastIngestor(_database.DataSource).RunAsync(new IngestRequest(Slug, files, "Browser test coast (invented)"));
         await new StatisticsService(_database.DataSource).RunAsync(Slug, all: true);
+        // The demo's spectra at its output points, loaded beside the gridded dataset as 'atlas demo' does.
+        var points = output.Scenario.PointFiles.Select(f => Path.Combine(_demoFolder, f)).ToArray();
+        await new HindcastIngestor(_database.DataSource).RunAsync(new IngestRequest(PointsSlug, points, "Browser test output points (invented)") { GridDataset = Slug });
+        await new StatisticsService(_database.DataSource).RunAsync(PointsSlug, all: true);
         // The demo's invented buoys and device, registered as 'atlas demo' does, so the point panel has validation and yield.
         var (stations, device) = DemoReferenceFiles.Read(_demoFolder, DemoScenario.ManifestFileName);
         foreach (var s in stations)

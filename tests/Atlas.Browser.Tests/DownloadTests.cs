@@ -17,11 +17,11 @@ public class DownloadTests(AtlasSite site)
         await ShownLayer.WaitForParameterAsync(page, "hs");
         var cells = (await SeaCells.LayerAsync(site.Http, "hs", "mean", "annual")).Count;
         var links = page.Locator("#layer-downloads a");
-        Assert.Equal(5, await links.CountAsync());
+        Assert.Equal(6, await links.CountAsync());
         var folder = Directory.CreateTempSubdirectory("atlas-downloads-").FullName;
         try
         {
-            for (var k = 0; k < 5; k++)
+            for (var k = 0; k < 6; k++)
             {
                 var link = links.Nth(k);
                 var format = (await link.GetAttributeAsync("data-format"))!;
@@ -48,7 +48,9 @@ public class DownloadTests(AtlasSite site)
                         break;
                     case "csv":
                         Assert.StartsWith("text/csv", type);
-                        var lines = Encoding.UTF8.GetString(body).Split('\n', StringSplitOptions.RemoveEmptyEntries).Where(l => !l.StartsWith('#')).ToArray();
+                        // RFC 4180: the header first, CRLF line ends, no comment lines.
+                        var lines = Encoding.UTF8.GetString(body).Split("\r\n", StringSplitOptions.RemoveEmptyEntries);
+                        Assert.DoesNotContain(lines, l => l.StartsWith('#'));
                         Assert.Equal("cell_id,lon,lat,value", lines[0]);
                         Assert.Equal(cells, lines.Length - 1);
                         break;
@@ -71,6 +73,12 @@ public class DownloadTests(AtlasSite site)
                         Assert.StartsWith("image/png", type);
                         // PNG signature (RFC 2083, section 3.1).
                         Assert.Equal(new byte[] { 0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a }, body[..8]);
+                        break;
+                    case "svg":
+                        Assert.StartsWith("image/svg+xml", type);
+                        // An SVG document: XML whose root is svg in the SVG namespace (SVG 1.1, section 5.1.2).
+                        var root = System.Xml.Linq.XDocument.Parse(Encoding.UTF8.GetString(body)).Root!;
+                        Assert.Equal(System.Xml.Linq.XName.Get("svg", "http://www.w3.org/2000/svg"), root.Name);
                         break;
                     default:
                         Assert.Fail($"unexpected format {format}");

@@ -55,7 +55,7 @@ public class PointPanelTests(AtlasSite site)
         var nonEmptyBins = joint.GetProperty("counts").EnumerateArray().SelectMany(r => r.EnumerateArray()).Count(c => c.GetInt64() > 0);
         Assert.Equal(nonEmptyBins, await page.Locator(".joint-table td[title]").CountAsync());
         var sectors = api.GetProperty("power_rose").GetProperty("fractions").EnumerateArray().Count(f => f.GetDouble() > 0);
-        Assert.Equal(sectors, await page.Locator(".power-rose path").CountAsync());
+        Assert.Equal(sectors, await page.Locator(".power-rose:not(#spectral-rose .power-rose) path").CountAsync());
         Assert.Equal(api.GetProperty("inter_annual").GetArrayLength(),
             await page.Locator(".point-panel table.stats-table:has(caption:text('Coefficient of variation')) tbody tr").CountAsync());
 

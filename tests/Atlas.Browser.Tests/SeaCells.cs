@@ -13,9 +13,11 @@ public static class SeaCells
         var text = await http.GetStringAsync($"/api/v1/datasets/{AtlasSite.Slug}/layers/{parameter}/{statistic}/{period}.csv");
         var cells = new List<LayerCell>();
         var header = false;
-        foreach (var line in text.Split('\n'))
+        // RFC 4180: records end with CRLF, the header comes first and nothing precedes it.
+        foreach (var line in text.Split("\r\n"))
         {
-            if (line.Length == 0 || line.StartsWith('#')) continue;
+            Assert.False(line.StartsWith('#'), "a comment line in the layer CSV");
+            if (line.Length == 0) continue;
             if (!header) { Assert.Equal("cell_id,lon,lat,value", line); header = true; continue; }
             var p = line.Split(',');
             cells.Add(new LayerCell(int.Parse(p[0], CultureInfo.InvariantCulture), double.Parse(p[1], CultureInfo.InvariantCulture),

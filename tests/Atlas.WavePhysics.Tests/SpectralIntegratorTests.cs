@@ -98,20 +98,56 @@ public class SpectralIntegratorTests
         Assert.Equal(spreadDegrees, state.DirectionalSpread, 0.05);
     }
 
-    // The sweep gives the maximum that Directionality.FromComponents finds by evaluating every candidate afresh.
-    [Fact]
-    public void SweepAgreesWithTheCandidateSearch()
+    // The sweep gives the maximum that Directionality.FromComponents finds by evaluating every candidate afresh, for
+    // 24 bins of 15 degrees, 36 of 10, 5 of 72 and 2 opposite bins (whose arcs are half the circle), and resolves it in a
+    // direction where J_theta takes that value.
+    [Theory]
+    [InlineData(24)]
+    [InlineData(36)]
+    [InlineData(5)]
+    [InlineData(2)]
+    public void SweepAgreesWithTheCandidateSearch(int bins)
     {
         var random = new Random(7);
-        var sweep = new ResolvedPowerSweep(Directions15);
+        double[] directions = Enumerable.Range(0, bins).Select(k => 360.0 * k / bins + 3).ToArray();
+        var sweep = new ResolvedPowerSweep(directions);
         for (int trial = 0; trial < 500; trial++)
         {
-            double[] powers = Directions15.Select(_ => random.NextDouble() < 0.3 ? 0 : random.NextDouble() * 10).ToArray();
-            var expected = Directionality.FromComponents(powers, Directions15);
+            double[] powers = directions.Select(_ => random.NextDouble() < 0.3 ? 0 : random.NextDouble() * 10).ToArray();
+            var expected = Directionality.FromComponents(powers, directions);
             var actual = sweep.Maximum(powers);
             if (double.IsNaN(expected.Coefficient)) { Assert.True(double.IsNaN(actual.Coefficient)); continue; }
             Assert.Equal(expected.MaximumResolvedPower, actual.MaximumResolvedPower, 1e-9 * expected.OmnidirectionalPower);
+            double resolvedThere = powers.Select((p, k) => p * Math.Max(0, Math.Cos((actual.DirectionOfMaximumDegrees - directions[k]) * Math.PI / 180))).Sum();
+            Assert.Equal(actual.MaximumResolvedPower, resolvedThere, 1e-9 * expected.OmnidirectionalPower);
         }
+    }
+
+    // However the circle is binned (a bin count that the vector path divides, and counts that leave a remainder), a
+    // normalised spreading gives back the frequency spectrum it was built from: Hm0 = 4 sqrt(m0) by the trapezoidal rule,
+    // and in deep water J = rho g sum_i w_i S(f_i) cg_i with the deep-water group velocity cg = g / (4 pi f) (textbook
+    // linear wave theory; rho 1025 kg/m3, g 9.81 m/s2 as the atlas states).
+    [Theory]
+    [InlineData(24)]
+    [InlineData(28)]
+    [InlineData(36)]
+    [InlineData(7)]
+    public void AnyBinningGivesBackTheFrequencySpectrum(int bins)
+    {
+        double[] directions = Enumerable.Range(0, bins).Select(j => (0.5 + j) * 360.0 / bins).ToArray();
+        double[] f = [0.05, 0.08, 0.1, 0.12, 0.2];
+        double[] sf = [0.1, 1.0, 2.0, 1.0, 0.1];
+        double[] w = [0.015, 0.025, 0.02, 0.05, 0.04];   // trapezoidal weights of f
+        double[] spreading = directions.Select(d => Math.Pow(Math.Cos((d - 200) * Math.PI / 360), 8)).ToArray();
+        double norm = spreading.Sum() * 2 * Math.PI / bins;
+        var density = new float[f.Length * bins];
+        for (int i = 0; i < f.Length; i++)
+            for (int j = 0; j < bins; j++) density[i * bins + j] = (float)(sf[i] * spreading[j] / norm);
+        var state = new SpectralIntegrator(new SpectralAxes(f, directions), double.NaN).Integrate(density);
+        double m0 = f.Select((_, i) => w[i] * sf[i]).Sum();
+        double power = 1025 * 9.81 * f.Select((x, i) => w[i] * sf[i] * 9.81 / (4 * Math.PI * x)).Sum() / 1000;
+        AssertRelative(4 * Math.Sqrt(m0), state.Hm0, 1e-6);
+        AssertRelative(power, state.Power, 1e-6);
     }
 
     [Fact]

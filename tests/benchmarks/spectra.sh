@@ -21,19 +21,13 @@ cat "${files[@]}" > /dev/null   # page cache, for both contenders alike
 measure() { # name command...
   local name=$1; shift
   /usr/bin/time -v -o "$work/$name.time" "$@" > "$work/$name.out" 2>&1
-  echo "$name wall=$(awk -F': ' '/Elapsed \(wall clock\)/ {print $2}' "$work/$name.time") rss_kb=$(awk -F': ' '/Maximum resident set size/ {print $2}' "$work/$name.time")"
+  echo "$name wall=$(awk -F': ' '/Elapsed \(wall clock\)/ {print $2}' "$work/$name.time") cpu_s=$(cpu "$name") rss_kb=$(awk -F': ' '/Maximum resident set size/ {print $2}' "$work/$name.time") load=$(cut -d' ' -f1-3 /proc/loadavg)"
 }
+cpu() { awk -F': ' '/User time|System time/ {s += $2} END {printf "%.2f", s}' "$work/$1.time"; }
 seconds() { awk -F': ' '/Elapsed \(wall clock\)/ {n=split($2,a,":"); s=0; for(i=1;i<=n;i++) s=s*60+a[i]; print s}' "$work/$1.time"; }
 
-port="${ATLAS_PG_PORT:-54329}"
-if [ -z "${ATLAS_DB:-}" ]; then
-  "$atlas" db start > /dev/null
-  server="host=127.0.0.1 port=$port user=atlas"
-else
-  server=$(sed -e 's/;/ /g' -e 's/Host=/host=/I; s/Port=/port=/I; s/Username=/user=/I; s/Password=/password=/I; s/Database=[^ ]*//I' <<<"$ATLAS_DB")
-fi
-psql "$server dbname=postgres" -qc "DROP DATABASE IF EXISTS atlas_bench_spectra WITH (FORCE)" -c "CREATE DATABASE atlas_bench_spectra"
-export ATLAS_DB="Host=127.0.0.1;Port=$port;Username=atlas;Database=atlas_bench_spectra"
+source "$here/tests/benchmarks/fresh_database.sh"
+fresh_database atlas_bench_spectra
 
 {
   echo "# spectra benchmark $(date -u +%FT%TZ), $(nproc) cores, ${#files[@]} file(s), $(du -ch "${files[@]}" | tail -1 | cut -f1), $stations stations x $years years"
@@ -42,6 +36,8 @@ export ATLAS_DB="Host=127.0.0.1;Port=$port;Username=atlas;Database=atlas_bench_s
   measure atlas_stats "$atlas" stats "$slug" --all
   ref=$(seconds numpy_reference); ing=$(seconds atlas_ingest); st=$(seconds atlas_stats)
   awk -v r="$ref" -v i="$ing" -v s="$st" 'BEGIN { printf "ratio atlas(ingest+stats)/numpy = %.3f (goal <= 0.5)\nratio atlas ingest/numpy = %.3f\n", (i + s) / r, i / r }'
+  # CPU seconds (user + system) as well: on a shared machine they move less with others' load than wall time does.
+  awk -v r="$(cpu numpy_reference)" -v i="$(cpu atlas_ingest)" -v s="$(cpu atlas_stats)" 'BEGIN { printf "cpu ratio atlas(ingest+stats)/numpy = %.3f\n", (i + s) / r }'
   tail -1 "$work/atlas_ingest.out" | head -c 300; echo
 } | tee "$report"
 psql "$server dbname=postgres" -qc "DROP DATABASE IF EXISTS atlas_bench_spectra WITH (FORCE)"

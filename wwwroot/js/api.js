@@ -76,7 +76,7 @@ export const layerUrl = (slug, parameter, statistic, period, format) =>
 export function parseLayerCsv(text) {
   const ids = [], lons = [], lats = [], values = [];
   let header = false;
-  for (const line of text.split('\n')) {
+  for (const line of text.split(/\r?\n/)) {
     if (!line || line.startsWith('#')) continue;
     if (!header) { header = true; continue; }
     const parts = line.split(',');

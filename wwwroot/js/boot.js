@@ -1,6 +1,7 @@
 // Starts the requests the first picture needs while the map library and the page's modules are still loading:
 // the dataset list, then (for the dataset and layer the address names, or the defaults) the first layer with its
-// cell footprints, the layer catalogue and the dataset description. main.js picks these promises up.
+// cell footprints, the layer catalogue and the dataset description, and the colour scales. main.js picks these
+// promises up.
 (function () {
   'use strict';
   var hash = new URLSearchParams(location.hash.slice(1));
@@ -25,5 +26,8 @@
       detail: quiet(json(root)),
     };
   }));
-  window.atlasBoot = { datasets: datasets, first: first, config: quiet(json('/config.json')), openApi: quiet(json('/swagger/v1/swagger.json')) };
+  window.atlasBoot = {
+    datasets: datasets, first: first, config: quiet(json('/config.json')), openApi: quiet(json('/swagger/v1/swagger.json')),
+    colourScales: quiet(json('/api/v1/colour-scales')),
+  };
 })();

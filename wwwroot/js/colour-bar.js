@@ -24,7 +24,7 @@ export function niceRange(min, max) {
 }
 
 /** Fills `container` with the bar for `scale` over [lo, hi]. */
-export function drawColourBar(container, { title, units, scale, lo, hi, cyclic, highlight, land, readout }) {
+export function drawColourBar(container, { title, units, scale, lo, hi, cyclic, highlight, land, outputPoints, readout }) {
   const ticks = cyclic ? [0, 90, 180, 270, 360] : niceTicks(lo, hi, 5);
   const tickRow = el('div', { class: 'legend-ticks', 'aria-hidden': 'true' });
   for (const t of ticks) {
@@ -43,6 +43,7 @@ export function drawColourBar(container, { title, units, scale, lo, hi, cyclic, 
   const keys = el('ul', { class: 'legend-keys' });
   if (land) keys.append(el('li', {}, el('span', { class: 'swatch land' }), 'land (dry cells)'));
   keys.append(el('li', {}, el('span', { class: 'swatch extent' }), 'dataset extent'));
+  if (outputPoints) keys.append(el('li', {}, el('span', { class: 'swatch output-point' }), 'output point (exact spectral values)'));
   if (highlight) keys.append(el('li', {}, el('span', { class: 'swatch outline' }), 'meets the screening criteria'));
   container.replaceChildren(
     el('p', { class: 'legend-title', id: 'legend-title' }, `${title} (${units})`),

@@ -13,6 +13,7 @@ const formats = [
   ['geojson', 'GeoJSON'],
   ['nc', 'NetCDF'],
   ['png', 'PNG figure'],
+  ['svg', 'SVG figure'],
 ];
 
 const parameterOrder = ['j', 'hs', 'te', 'tp', 'dir', 'spread', 'd', 'depth'];
@@ -214,7 +215,7 @@ export class LayerView {
     drawColourBar(this.legend, {
       title: capitalised(layer.title), units: layer.units, scale, lo, hi, cyclic: layer.cyclic,
       highlight: this.atlas.highlightActive, land: this.atlas.hasLand ? this.atlas.colours.land : null,
-      readout: this.atlas.readout?.node,
+      outputPoints: Boolean(this.atlas.outputPoints), readout: this.atlas.readout?.node,
     });
     const parameter = this.parameters.find(p => p.symbol === layer.parameter);
     const binNote = ['p10', 'p50', 'p90', 'p99'].includes(layer.statistic) && parameter?.percentile_bin_width

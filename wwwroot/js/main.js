@@ -7,6 +7,7 @@ import { apiRoot, datasetUrl, getJson, layerUrl } from './api.js';
 import { AreaTool } from './area-tool.js';
 import { CellCanvasLayer } from './cell-layer.js';
 import { CellReadout } from './cell-readout.js';
+import { loadColourScales } from './colour-scale.js';
 import { el, number, periodName, position } from './format.js';
 import { LayerView } from './layer-view.js';
 import { drawOutputPoints } from './output-points.js';
@@ -40,6 +41,16 @@ function landRings(geojson) {
   return rings;
 }
 
+/** The bounding box of footprint rings ([lon, lat, ...] flat arrays) as [[south, west], [north, east]], or null when empty. */
+function ringBounds(cells) {
+  let west = Infinity, east = -Infinity, south = Infinity, north = -Infinity;
+  for (const { ring } of cells) for (let k = 0; k < ring.length; k += 2) {
+    west = Math.min(west, ring[k]); east = Math.max(east, ring[k]);
+    south = Math.min(south, ring[k + 1]); north = Math.max(north, ring[k + 1]);
+  }
+  return west <= east ? [[south, west], [north, east]] : null;
+}
+
 /** The API paths this server documents (its OpenAPI document), so optional endpoints are asked for only when present. */
 function documentedPaths() {
   const document_ = window.atlasBoot?.openApi ?? getJson('/swagger/v1/swagger.json');
@@ -66,7 +77,8 @@ class Atlas {
     const hash = readHash();
     const boot = window.atlasBoot ?? {};
     const [config, list] = await Promise.all([
-      (boot.config ?? getJson('/config.json')).catch(() => ({})), boot.datasets ?? getJson(`${apiRoot}/datasets`)]);
+      (boot.config ?? getJson('/config.json')).catch(() => ({})), boot.datasets ?? getJson(`${apiRoot}/datasets`),
+      loadColourScales(boot.colourScales)]);
     const early = await (boot.first ?? Promise.resolve(null)).catch(() => null);
     this.config = config;
     if (list.caution) document.getElementById('caution-text').textContent = list.caution;
@@ -102,6 +114,7 @@ class Atlas {
       if (detail.caution) document.getElementById('caution-text').textContent = detail.caution;
       this.describe(detail);
       this.outputPoints = drawOutputPoints(this, detail);
+      if (this.outputPoints) this.layers?.paint();
     }).catch(error => this.status(`The dataset description could not be loaded. ${error.message}`, 'error'));
     const catalogue = await (fromBoot ? early.catalogue : getJson(`${datasetUrl(this.slug)}/layers`));
     this.catalogue = catalogue;
@@ -109,6 +122,8 @@ class Atlas {
       const rings = mask ? landRings(mask) : [];
       this.hasLand = rings.length > 0;
       this.cells.setLand(rings);
+      this.landBounds = ringBounds(rings.map(ring => ({ ring })));
+      this.drawGridExtent();
       this.layers?.paint();
     }).catch(error => this.status(`The land mask could not be loaded. ${error.message}`, 'error'));
 
@@ -181,15 +196,24 @@ class Atlas {
     });
   }
 
-  /** Moves the extent outline from the cell centres (the API's extent) to the outer edges of the cell footprints. */
+  /** Takes the outer edges of the sea cells' footprints for the extent outline. */
   showCellExtent(cells) {
-    if (!this.extentRectangle || !cells.length) return;
-    let west = Infinity, east = -Infinity, south = Infinity, north = -Infinity;
-    for (const { ring } of cells) for (let k = 0; k < ring.length; k += 2) {
-      west = Math.min(west, ring[k]); east = Math.max(east, ring[k]);
-      south = Math.min(south, ring[k + 1]); north = Math.max(north, ring[k + 1]);
-    }
-    this.extentRectangle.setBounds(L.latLngBounds([south, west], [north, east]));
+    this.seaBounds = ringBounds(cells);
+    this.drawGridExtent();
+  }
+
+  /**
+   * Draws the extent outline round the whole grid: the outer edges of the sea cells' footprints and of the land
+   * mask's dry cells together (the API's extent, of cell centres, until they arrive), so that it never cuts through
+   * land at the grid's edge.
+   */
+  drawGridExtent() {
+    if (!this.extentRectangle) return;
+    const parts = [this.seaBounds, this.landBounds].filter(Boolean);
+    if (!parts.length) return;
+    const bounds = L.latLngBounds(parts[0]);
+    for (const part of parts.slice(1)) bounds.extend(part);
+    this.extentRectangle.setBounds(bounds);
   }
 
   /** Shows or hides the point column (wide screens) and lets the map use the space. */

@@ -36,7 +36,7 @@ export function spectralSection(point) {
   select.value = s.periods.some(p => p.period === 'annual') ? 'annual' : s.periods[0]?.period ?? '';
   const table = el('div');
   const spectrumHolder = el('div');
-  const roseHolder = el('div');
+  const roseHolder = el('div', { id: 'spectral-rose' });
   const figures = [];
   const draw = () => {
     const period = s.periods.find(p => p.period === select.value);

@@ -28,16 +28,15 @@ public static class LandMaskApi
         var dataset = await catalog.FindAsync(slug, cancel);
         if (dataset is null) return ApiProblems.UnknownDataset(slug);
         var found = await land.ForAsync(dataset, cancel);
-        var body = Write(found.Land, found.DryCellCount);
+        var body = Write(found.Polygons, found.DryCellCount);
         http.Response.Headers.CacheControl = "public, max-age=3600";
         return TypedResults.File(body!, "application/geo+json");
     }
 
     /// <summary>One MultiPolygon feature of the land's polygons (none when there is no land), with the count of dry cells.</summary>
-    private static byte[] Write(Geometry? land, int dryCells)
+    private static byte[] Write(IReadOnlyList<Polygon> parts, int dryCells)
     {
-        var parts = Enumerable.Range(0, land?.NumGeometries ?? 0).Select(k => land!.GetGeometryN(k)).OfType<Polygon>().ToArray();
-        IFeature[] features = parts.Length == 0 ? [] : [new Feature(GeoJsonWriter.MultiPolygon(parts), new AttributesTable { { "kind", "land (dry cells)" } })];
+        IFeature[] features = parts.Count == 0 ? [] : [new Feature(GeoJsonWriter.MultiPolygon([.. parts]), new AttributesTable { { "kind", "land (dry cells)" } })];
         return GeoJsonWriter.FeatureCollection(json => json.WriteNumber("dry_cell_count", dryCells), features);
     }
 }

@@ -11,7 +11,7 @@ public static class LayerApi
         group.MapGet("/", ListAsync)
             .ProducesProblems(StatusCodes.Status404NotFound);
         group.MapGet("/{parameter}/{statistic}/{period}.{format}", DownloadAsync)
-            .ProducesFile(LayerFormat.Tif.ContentType(), [.. Enum.GetValues<LayerFormat>().Skip(1).Select(f => f.ContentType())])
+            .ProducesFile(LayerFormat.Tif.ContentType(), [.. Enum.GetValues<LayerFormat>().Skip(1).Select(f => f.ContentType()), CsvwMetadataWriter.MediaType])
             .Produces(StatusCodes.Status304NotModified)
             .ProducesProblems(StatusCodes.Status404NotFound, StatusCodes.Status422UnprocessableEntity)
             .RequireExpensiveLimit();
@@ -63,13 +63,17 @@ public static class LayerApi
     [EndpointDescription(
         "parameter: hs, te, tp, j, dir, spread, d, depth. statistic: mean, sd, min, max, p10, p50, p90, p99, count, coverage. " +
         "period: jan..dec, djf, mam, jja, son, annual, y2019. format: tif (Cloud Optimised GeoTIFF, Float32, EPSG:4326, " +
-        "nodata -9999, 256 x 256 tiles with overviews; provenance in the GDAL metadata), csv (cell_id,lon,lat,value after a # header), " +
+        "nodata -9999, 256 x 256 tiles with overviews; provenance in the GDAL metadata), csv (plain RFC 4180: the header cell_id,lon,lat,value, then one row per cell; " +
+        "units, provenance, method notes and the caution are in its W3C CSV on the Web metadata at the same path with -metadata.json added " +
+        "(.../annual.csv-metadata.json, media type application/csvm+json), named by the answer's Link header with rel=describedby), " +
         "geojson (points, or cell footprints with ?geometry=polygon; provenance as a top-level member), nc (CF-1.8 NetCDF-4), " +
-        "png (a captioned map figure). Mesh and curvilinear datasets are drawn on a raster by linear interpolation in triangles. " +
+        "png and svg (a consent figure: the map in the house colour scale with the land mask, graticule, north arrow, scale bar, " +
+        "colour bar and a short caption; the full provenance is in the file's metadata, PNG iTXt chunks or SVG <metadata>, and in " +
+        "the sidecar .figure.json beside it, e.g. .../annual.figure.json). Mesh and curvilinear datasets are drawn on a raster by linear interpolation in triangles. " +
         "Responses carry an ETag and Cache-Control; send If-None-Match to revalidate. GeoTIFF downloads answer Range requests.")]
     public static async Task<Results<FileContentHttpResult, ProblemHttpResult, ValidationProblem>> DownloadAsync(
         string slug, [AsParameters] LayerDownloadRoute route, HttpContext http, DatasetCatalog catalog, LayerRenderer renderer,
-        IOptions<AtlasApiOptions> options, CancellationToken cancel)
+        IOptions<AtlasApiOptions> options, IOptions<Microsoft.AspNetCore.Http.Json.JsonOptions> json, CancellationToken cancel)
     {
         var dataset = await catalog.FindAsync(slug, cancel);
         if (dataset is null) return ApiProblems.UnknownDataset(slug);
@@ -77,27 +81,38 @@ public static class LayerApi
         var request = route.Read(errors, out var notFound);
         if (notFound is not null) return notFound;
         if (request is null) return TypedResults.ValidationProblem(errors);
-        if (dataset.GridKind == StationSpectraAnswers.StationsKind && request.Format is LayerFormat.Tif or LayerFormat.Nc or LayerFormat.Png)
+        if (dataset.GridKind == StationSpectraAnswers.StationsKind && request.Format is LayerFormat.Tif or LayerFormat.Nc or LayerFormat.Png or LayerFormat.Svg)
             return ApiProblems.Unprocessable("Output points have no raster",
                 $"Dataset '{slug}' holds output points of a spectral hindcast, values at points with no area between them, so it is not drawn as a " +
                 "raster. Download the layer as .geojson or .csv (one feature or row per output point).");
+        if (request.Companion != LayerCompanion.None)
+        {
+            if (await renderer.LoadAsync(dataset, request, cancel) is not { } data) return NoLayer(slug, request);
+            return request.Companion == LayerCompanion.CsvMetadata
+                ? TypedResults.File(CsvwMetadataWriter.Write(LayerCsvWriter.Table(data), CsvMetadataLinks.PathForm(http.Request, metadata: false)),
+                    CsvwMetadataWriter.MediaType, request.FileName)
+                : TypedResults.File(LayerFigureRenderer.ProvenanceOf(data).SidecarJson(json.Value.SerializerOptions), "application/json", request.FileName);
+        }
         Storage.Queries.CachedLayer? layer;
         try
         {
             layer = await renderer.RenderAsync(dataset, request, cancel);
         }
-        catch (ArgumentException e) when (request.Format is LayerFormat.Tif or LayerFormat.Nc or LayerFormat.Png)
+        catch (ArgumentException e) when (request.Format is LayerFormat.Tif or LayerFormat.Nc or LayerFormat.Png or LayerFormat.Svg)
         {
             // A mesh whose valued nodes form no complete triangle cannot be drawn on a raster; the cell formats still work.
             return ApiProblems.Unprocessable("The layer cannot be drawn as a raster", $"{e.Message} Download it as .csv or .geojson instead.");
         }
-        if (layer is null)
-            return ApiProblems.NotFound("No statistics for this layer",
-                $"Dataset '{slug}' has no {request.Statistic.Name()} of {request.Parameter.Symbol()} for {request.Period.Name}. GET /api/v1/datasets/{slug}/layers lists what it has; " +
-                "if it lists nothing, its statistics have not been computed yet (POST /api/v1/datasets/{slug}/jobs).");
+        if (layer is null) return NoLayer(slug, request);
         http.Response.Headers.CacheControl = $"public, max-age={options.Value.LayerCacheSeconds}";
+        if (request.Format == LayerFormat.Csv) CsvMetadataLinks.Describe(http.Response, CsvMetadataLinks.PathForm(http.Request, metadata: true));
         // Range requests let GIS clients read a Cloud Optimised GeoTIFF tile by tile.
         return TypedResults.File(layer.Content, layer.ContentType, request.FileName, entityTag: EntityTagHeaderValue.Parse(layer.ETag),
             enableRangeProcessing: request.Format == LayerFormat.Tif);
     }
+
+    private static ProblemHttpResult NoLayer(string slug, LayerRequest request) =>
+        ApiProblems.NotFound("No statistics for this layer",
+            $"Dataset '{slug}' has no {request.Statistic.Name()} of {request.Parameter.Symbol()} for {request.Period.Name}. GET /api/v1/datasets/{slug}/layers lists what it has; " +
+            "if it lists nothing, its statistics have not been computed yet (POST /api/v1/datasets/{slug}/jobs).");
 }

@@ -7,7 +7,7 @@ public static class PointSeriesApi
 {
     public static RouteHandlerBuilder MapPointSeries(this RouteGroupBuilder group) =>
         group.MapGet("/point/series", SeriesAsync)
-            .ProducesFile("text/csv", "application/json")
+            .ProducesFile("text/csv", "application/json", "application/x-netcdf", CsvwMetadataWriter.MediaType)
             .ProducesProblems(StatusCodes.Status404NotFound, StatusCodes.Status422UnprocessableEntity)
             .RequireExpensiveLimit();
 
@@ -15,20 +15,21 @@ public static class PointSeriesApi
     [EndpointSummary("The time series (time, hs, te, tp, dir, spread, j) of the wet cell nearest a position")]
     [EndpointDescription(
         "lat, lon: degrees. from, to: calendar years, inclusive (default: the whole record when it is within the per-request " +
-        "limit of AtlasApiOptions:SeriesMaxYearsPerRequest years). format: csv (default; '#' header lines with provenance, units " +
-        "and the caution), json, or nc (CF-1.8 NetCDF-4, featureType timeSeries). Missing steps are empty (csv), null (json) or " +
-        "NaN (nc). j is computed per step at the cell depth from Hm0 and Te; at an output point of a spectral hindcast it is the " +
-        "power integrated from the spectrum, followed by j_parametric, directionality, max_power_from_deg and spectral_width.")]
+        "limit of AtlasApiOptions:SeriesMaxYearsPerRequest years). format: csv (default; plain RFC 4180, one header row, no comment " +
+        "lines; its units, provenance and the caution are in its W3C CSV on the Web metadata, format=csvw with the same query, " +
+        "application/csvm+json, named by the CSV answer's Link header with rel=describedby), json, nc (CF-1.8 NetCDF-4, featureType " +
+        "timeSeries) or csvw. Missing steps are empty (csv), null (json) or NaN (nc). j is computed per step at the cell depth from " +
+        "Hm0 and Te; at an output point of a spectral hindcast it is the power integrated from the spectrum, followed by " +
+        "j_parametric, directionality, max_power_from_deg and spectral_width.")]
     public static async Task<Results<PushStreamHttpResult, ProblemHttpResult, ValidationProblem>> SeriesAsync(
         string slug, [AsParameters] PointPosition at, [AsParameters] PointSeriesQuery query,
         PointLocator locator, DatasetCatalog catalog, SeriesStore series, ProvenanceBuilder provenance,
-        IOptions<AtlasApiOptions> options, StatisticsOptions statistics, StationSpectraAnswers stationSpectra, CancellationToken cancel)
+        IOptions<AtlasApiOptions> options, StatisticsOptions statistics, StationSpectraAnswers stationSpectra, HttpContext http, CancellationToken cancel)
     {
         var errors = new QueryErrors();
         var position = at.Position(errors);
         var window = at.Window(errors);
-        var format = query.Chosen(errors);
-        var csv = format == "csv";
+        var form = query.Form(errors);
         if (errors.Count > 0 || position is null || window is null)
             return TypedResults.ValidationProblem(errors, title: "The series request has invalid query values");
 
@@ -56,39 +57,59 @@ public static class PointSeriesApi
         var (columns, teFromTp) = SeriesColumns.Of(decoded, statistics.AssumedSpectrum, spectral);
         var source = await provenance.ForAsync(point.Dataset, cancel);
         var cell = point.Cell;
-        var fileName = $"{slug}_series_{cell.Id}_{first}-{last}.{format}";
-        if (format == "nc")
+        var fileName = $"{slug}_series_{cell.Id}_{first}-{last}";
+        if (form == TableFormat.NetCdf)
         {
             var name = atOutputPoint ? StationSpectraAnswers.StationName(point.Dataset, cell.Id) : $"cell {cell.Id}";
             var bytes = SeriesNetCdfWriter.Write(decoded, columns, cell, name, source);
-            return TypedResults.Stream(stream => stream.WriteAsync(bytes, cancel).AsTask(), "application/x-netcdf", fileName);
+            return TypedResults.Stream(stream => stream.WriteAsync(bytes, cancel).AsTask(), "application/x-netcdf", fileName + ".nc");
         }
+        var table = CsvTableOf(cell, source, first, last, columns, teFromTp, statistics.AssumedSpectrum, atOutputPoint);
+        if (form == TableFormat.CsvMetadata)
+        {
+            var metadata = CsvwMetadataWriter.Write(table, CsvMetadataLinks.FormatForm(http.Request, "csv"));
+            return TypedResults.Stream(stream => stream.WriteAsync(metadata, cancel).AsTask(), CsvwMetadataWriter.MediaType, fileName + ".csv-metadata.json");
+        }
+        var csv = form == TableFormat.Csv;
+        if (csv) CsvMetadataLinks.Describe(http.Response, CsvMetadataLinks.FormatForm(http.Request, CsvMetadataLinks.FormatValue));
         return TypedResults.Stream(
-            stream => csv ? WriteCsvAsync(stream, decoded, columns, teFromTp, statistics.AssumedSpectrum, cell, source, first, last, cancel)
+            stream => csv ? WriteCsvAsync(stream, decoded, columns, table, cancel)
                           : WriteJsonAsync(stream, decoded, columns, teFromTp, cell, source, first, last, cancel),
-            csv ? "text/csv; charset=utf-8" : "application/json", fileName);
+            csv ? CsvTable.ContentType : "application/json", fileName + (csv ? ".csv" : ".json"));
     }
 
-    private static async Task WriteCsvAsync(Stream stream, PointSeries s, IReadOnlyList<SeriesColumn> columns, bool teFromTp, SpectrumShape spectrum,
-        PointCell cell, Provenance source, int first, int last, CancellationToken cancel)
+    /// <summary>
+    /// The description of the series CSV, from which its header and its CSVW metadata are written: time, then the
+    /// columns of <see cref="SeriesColumns"/> with their units.
+    /// </summary>
+    private static CsvTable CsvTableOf(PointCell cell, Provenance source, int first, int last, IReadOnlyList<SeriesColumn> columns, bool teFromTp,
+        SpectrumShape spectrum, bool atOutputPoint)
     {
-        await using var writer = new StreamWriter(stream, new UTF8Encoding(false), 64 * 1024);
-        await writer.WriteAsync($"# series of cell {cell.Id} at lat {F(cell.Lat)} lon {F(cell.Lon)}, depth_m {(cell.DepthM is { } d ? F(d) : "unknown (deep water assumed)")}, " +
-                                $"{cell.DistanceM:0.#} m from the requested position; years {first}..{last}\n");
-        await writer.WriteAsync($"# units: {SeriesColumns.UnitsLine(columns)}\n");
-        if (teFromTp) await writer.WriteAsync($"# te: derived from tp for the {MethodNotes.AssumedSpectrum(spectrum)}, the dataset has no energy period\n");
-        foreach (var line in source.HeaderLines()) await writer.WriteAsync(line + "\n");
-        await writer.WriteAsync("time," + string.Join(',', columns.Select(c => c.Name)) + "\n");
-        var line8 = new StringBuilder(96);
+        var depth = cell.DepthM is { } d ? F(d) + " m" : "unknown (deep water assumed)";
+        var where = atOutputPoint ? "output point" : "cell";
+        List<string> notes = [$"Units: {SeriesColumns.UnitsLine(columns)}.", "Missing steps are empty fields."];
+        if (teFromTp) notes.Add($"te is derived from tp for the {MethodNotes.AssumedSpectrum(spectrum)}: the dataset has no energy period.");
+        return new CsvTable(
+            string.Create(CultureInfo.InvariantCulture, $"Time series of {where} {cell.Id} of dataset {source.Dataset}, {first} to {last}"),
+            string.Create(CultureInfo.InvariantCulture,
+                $"One row per stored time step of {where} {cell.Id} (lat {F(cell.Lat)}, lon {F(cell.Lon)}, depth {depth}), {cell.DistanceM:0.#} m from the requested position; years {first} to {last}."),
+            [
+                CsvColumn.Time("time", "time of the step"),
+                .. columns.Select(c => CsvColumn.Double(c.Name, c.LongName, c.Units == "kW m-1" ? "kW/m" : c.Units,
+                    c.Name == "te" && teFromTp ? $"derived from tp ({MethodNotes.AssumedSpectrum(spectrum)})" : c.StandardName is { } cf ? $"CF standard name {cf}" : null)),
+            ],
+            source, notes);
+    }
+
+    private static async Task WriteCsvAsync(Stream stream, PointSeries s, IReadOnlyList<SeriesColumn> columns, CsvTable table, CancellationToken cancel)
+    {
+        await using var rows = CsvTableWriter.Open(stream, table);
         for (var i = 0; i < s.Times.Length; i++)
         {
-            line8.Clear();
-            line8.Append(DateTimeOffset.FromUnixTimeSeconds(s.Times[i]).UtcDateTime.ToString("yyyy-MM-dd'T'HH:mm:ss'Z'", CultureInfo.InvariantCulture));
-            foreach (var column in columns) Append(line8, column.Values[i], column.CsvPattern);
-            line8.Append('\n');
-            await writer.WriteAsync(line8, cancel);
+            rows.Time(DateTimeOffset.FromUnixTimeSeconds(s.Times[i]).UtcDateTime);
+            foreach (var column in columns) rows.Number(column.Values[i], column.CsvPattern);
+            await rows.EndRowAsync(cancel);
         }
-        await writer.FlushAsync(cancel);
     }
 
     private static async Task WriteJsonAsync(Stream stream, PointSeries s, IReadOnlyList<SeriesColumn> columns, bool teFromTp, PointCell cell,
@@ -126,12 +147,6 @@ public static class PointSeriesApi
         json.Flush();
         await stream.WriteAsync(buffer.WrittenMemory, cancel);
         buffer.ResetWrittenCount();
-    }
-
-    private static void Append(StringBuilder line, float value, string pattern)
-    {
-        line.Append(',');
-        if (!float.IsNaN(value)) line.Append(value.ToString(pattern, CultureInfo.InvariantCulture));
     }
 
     private static void Write(Utf8JsonWriter json, string name, float value, int digits)

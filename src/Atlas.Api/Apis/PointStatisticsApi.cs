@@ -8,7 +8,7 @@ public static class PointStatisticsApi
     public static RouteHandlerBuilder MapPointStatistics(this RouteGroupBuilder group) =>
         group.MapGet("/point", PointAsync)
             .WithDescription(Description(((IEndpointRouteBuilder)group).ServiceProvider.GetRequiredService<StatisticsOptions>().LowCoverageThreshold))
-            .Produces<PointStatistics>(StatusCodes.Status200OK, "application/json", "text/csv")
+            .Produces<PointStatistics>(StatusCodes.Status200OK, "application/json", "text/csv", CsvwMetadataWriter.MediaType)
             .Produces(StatusCodes.Status304NotModified)
             .ProducesProblems(StatusCodes.Status404NotFound, StatusCodes.Status422UnprocessableEntity)
             .RequireExpensiveLimit();
@@ -29,27 +29,34 @@ public static class PointStatisticsApi
             "Inter-annual: " + MethodNotes.Seasons + "; " + MethodNotes.InterAnnual + ". Each period's direction block carries " +
             "directionality_coefficient and max_power_from_deg: " + MethodNotes.Directionality + ". The cell (id, lat, lon, depth_m, " +
             "distance_m) is the nearest wet cell, refused (422) beyond the distance limit or outside the extent. " +
-            "format=csv gives the period table after '#' lines of provenance, units and the caution.";
+            "format=csv gives the period table as plain RFC 4180 CSV (one header row, no comment lines); its units, provenance, method " +
+            "notes and the caution are in its W3C CSV on the Web metadata (format=csvw with the same query, application/csvm+json), " +
+            "which the CSV answer names in a Link header with rel=describedby.";
 
     [EndpointName("PointStatistics")]
     [EndpointSummary("Exact statistics of every parameter at the wet cell nearest a position")]
     public static async Task<Results<FileContentHttpResult, StatusCodeHttpResult, ProblemHttpResult, ValidationProblem>> PointAsync(
         string slug, [AsParameters] PointPosition at, [AsParameters] PointStatisticsQuery query,
         PointLocator locator, DatasetCatalog catalog, PointStatisticsService statistics, PointResponseCache responses, OutputPoints outputPoints,
-        IOptions<JsonOptions> json, HttpContext http, CancellationToken cancel)
+        ProvenanceBuilder provenance, IOptions<JsonOptions> json, HttpContext http, CancellationToken cancel)
     {
         var errors = new QueryErrors();
         var position = at.Position(errors);
         var window = at.Window(errors, query.Months);
         var onlyPeriod = query.OnePeriod(errors);
         var parts = query.IncludedParts(errors);
-        var csv = query.Csv(errors);
+        var form = query.Form(errors);
         var powerCurveStep = query.PowerCurveStep(errors);
         if (errors.Count > 0 || position is null || window is null || parts is null)
             return TypedResults.ValidationProblem(errors, title: "The point request has invalid query values");
 
         var (point, problem) = await locator.LocateAsync(slug, position.Value.Latitude, position.Value.Longitude, cancel);
         if (point is null) return problem!;
+        if (form == TableFormat.CsvMetadata)
+            return TypedResults.File(CsvwMetadataWriter.Write(CsvTableOf(slug, point.Cell, window, await provenance.ForAsync(point.Dataset, cancel)),
+                CsvMetadataLinks.FormatForm(http.Request, "csv")), CsvwMetadataWriter.MediaType, $"{slug}_point_{point.Cell.Id}.csv-metadata.json");
+        var csv = form == TableFormat.Csv;
+        if (csv) CsvMetadataLinks.Describe(http.Response, CsvMetadataLinks.FormatForm(http.Request, CsvMetadataLinks.FormatValue));
         var nearestPoint = await outputPoints.NearestAsync(point.Dataset, position.Value.Latitude, position.Value.Longitude, cancel);
         var key = await ResponseKeyAsync(point, position.Value, window, onlyPeriod, parts, powerCurveStep, csv, catalog, nearestPoint?.Dataset, cancel);
         // Computed without the request's cancellation: other requests for the same key may be waiting on it.
@@ -67,7 +74,7 @@ public static class PointStatisticsApi
         if (analysis is null) return PointOutcome.Failed(problem!);
         var slug = point.Dataset.Slug;
         var cell = point.Cell;
-        if (csv) return new PointOutcome(Csv(slug, cell, window, analysis.Periods, analysis.Source), "text/csv; charset=utf-8", $"{slug}_point_{cell.Id}.csv", null);
+        if (csv) return new PointOutcome(Csv(slug, cell, window, analysis.Periods, analysis.Source), CsvTable.ContentType, $"{slug}_point_{cell.Id}.csv", null);
         return new PointOutcome(JsonSerializer.SerializeToUtf8Bytes(PointStatisticsService.Statistics(analysis, parts), json), "application/json; charset=utf-8", null, null);
     }
 
@@ -125,44 +132,58 @@ public static class PointStatisticsApi
 
     private static readonly WaveParameter[] Summarised = [WaveParameter.Hs, WaveParameter.Te, WaveParameter.Tp, WaveParameter.J, WaveParameter.Spread, WaveParameter.D];
 
-    private static byte[] Csv(string slug, PointCell cell, YearWindow window, IReadOnlyList<PeriodStatistics> periods, Provenance source)
+    /// <summary>The description of the period table's CSV, from which its header and its CSVW metadata are written.</summary>
+    private static CsvTable CsvTableOf(string slug, PointCell cell, YearWindow window, Provenance source)
     {
-        var text = new StringBuilder();
-        text.Append(CultureInfo.InvariantCulture, $"# point statistics of dataset {slug}, cell {cell.Id} at lat {cell.Lat:0.#####} lon {cell.Lon:0.#####}, ")
-            .Append(CultureInfo.InvariantCulture, $"depth_m {(cell.DepthM is { } d ? d.ToString("0.##", CultureInfo.InvariantCulture) : "unknown (deep water assumed)")}, ")
-            .Append(CultureInfo.InvariantCulture, $"distance_m {cell.DistanceM:0.#}\n");
-        text.Append("# window: ").Append(window.FromYear?.ToString(CultureInfo.InvariantCulture) ?? "first year").Append("..")
-            .Append(window.ToYear?.ToString(CultureInfo.InvariantCulture) ?? "last year")
-            .Append(window.Months is { } m ? "; months " + string.Join(' ', m) : "; all months").Append('\n');
-        text.Append("# units: hs m; te s; tp s; j kW/m; spread degree; d 1; dir degree true (power-weighted mean of the direction waves come from); count steps; coverage 1\n");
-        text.Append("# percentiles exact from the series (Hyndman-Fan type 7); sd is the population standard deviation\n");
-        foreach (var line in source.HeaderLines()) text.Append(line).Append('\n');
-        text.Append("period,parameter,mean,sd,min,max,p10,p50,p90,p99,count,coverage,low_coverage\n");
-        foreach (var p in periods)
-        {
-            foreach (var parameter in Summarised)
-            {
-                var s = p.Summary(parameter);
-                text.Append(p.Period.Name).Append(',').Append(parameter.Symbol());
-                foreach (var v in new[] { s.Mean, s.Sd, s.Min, s.Max, s.P10, s.P50, s.P90, s.P99 }) Number(text, v);
-                text.Append(',').Append(s.Count.ToString(CultureInfo.InvariantCulture));
-                Number(text, s.Coverage);
-                text.Append(',').Append(p.LowCoverage ? "true" : "false").Append('\n');
-            }
-            text.Append(p.Period.Name).Append(",dir");
-            Number(text, p.Direction.Mean);
-            text.Append(",,,,,,,");
-            text.Append(',').Append(p.Direction.Count.ToString(CultureInfo.InvariantCulture));
-            Number(text, p.Direction.Coverage);
-            text.Append(',').Append(p.LowCoverage ? "true" : "false").Append('\n');
-        }
-        return new UTF8Encoding(false).GetBytes(text.ToString());
+        string[] statistics = ["mean", "sd", "min", "max", "p10", "p50", "p90", "p99"];
+        string[] titles = ["mean", "standard deviation", "minimum", "maximum", "10th percentile", "median", "90th percentile", "99th percentile"];
+        var depth = cell.DepthM is { } d ? d.ToString("0.##", CultureInfo.InvariantCulture) + " m" : "unknown (deep water assumed)";
+        var windowText = $"years {window.FromYear?.ToString(CultureInfo.InvariantCulture) ?? "from the first"} to {window.ToYear?.ToString(CultureInfo.InvariantCulture) ?? "the last"}" +
+                         (window.Months is { } m ? ", months " + string.Join(' ', m) : ", all months");
+        return new CsvTable(
+            string.Create(CultureInfo.InvariantCulture, $"Point statistics of dataset {slug}, cell {cell.Id}"),
+            string.Create(CultureInfo.InvariantCulture,
+                $"Statistics of every parameter per period at cell {cell.Id} (lat {cell.Lat:0.#####}, lon {cell.Lon:0.#####}, depth {depth}), the wet cell nearest the asked position, " +
+                $"{cell.DistanceM:0.#} m from it; window: {windowText}. One row per period and parameter."),
+            [
+                CsvColumn.Text("period", "period", "jan..dec, djf, mam, jja, son, annual or a year such as y2019"),
+                CsvColumn.Text("parameter", "parameter", "hs (Hm0, m), te (energy period, s), tp (peak period, s), j (wave power, kW/m), spread (degree), d (directionality coefficient, 1), " +
+                    "dir (degree true, the power-weighted mean of the direction waves come from; only mean, count and coverage)"),
+                .. statistics.Select((s, i) => CsvColumn.Double(s, titles[i], "unit of the row's parameter", i == 1 ? "population standard deviation" : null)),
+                CsvColumn.Integer("count", "steps with a value", "1"),
+                CsvColumn.Double("coverage", "share of the calendar's expected steps present", "1"),
+                CsvColumn.Boolean("low_coverage", "coverage below the threshold"),
+            ],
+            source,
+            ["Percentiles are exact from the series (Hyndman-Fan type 7); sd is the population standard deviation.",
+             "Units: hs m; te s; tp s; j kW/m; spread degree; d 1; dir degree true (power-weighted mean of the direction waves come from); count steps; coverage 1."]);
     }
 
-    private static void Number(StringBuilder text, double value)
-    {
-        text.Append(',');
-        // At the precision of the single-precision data, as in the JSON answers.
-        if (double.IsFinite(value)) text.Append(DataPrecisionJsonConverter.Round(value).ToString("R", CultureInfo.InvariantCulture));
-    }
+    private static byte[] Csv(string slug, PointCell cell, YearWindow window, IReadOnlyList<PeriodStatistics> periods, Provenance source) =>
+        CsvTableOf(slug, cell, window, source).ToBytes(rows =>
+        {
+            foreach (var p in periods)
+            {
+                foreach (var parameter in Summarised)
+                {
+                    var s = p.Summary(parameter);
+                    rows.Text(p.Period.Name).Text(parameter.Symbol());
+                    foreach (var v in new[] { s.Mean, s.Sd, s.Min, s.Max, s.P10, s.P50, s.P90, s.P99 }) Number(rows, v);
+                    rows.Integer(s.Count);
+                    Number(rows, s.Coverage);
+                    rows.Boolean(p.LowCoverage).EndRow();
+                }
+                rows.Text(p.Period.Name).Text("dir");
+                Number(rows, p.Direction.Mean);
+                for (var k = 0; k < 7; k++) rows.Text(null);
+                rows.Integer(p.Direction.Count);
+                Number(rows, p.Direction.Coverage);
+                rows.Boolean(p.LowCoverage).EndRow();
+            }
+        });
+
+    // At the precision of the single-precision data, as in the JSON answers.
+    private static void Number(CsvTableWriter rows, double value) =>
+        rows.Number(double.IsFinite(value) ? DataPrecisionJsonConverter.Round(value) : double.NaN);
+
 }

@@ -11,7 +11,7 @@ public static class AssessmentLayerWriter
 
     public static string ContentType(string format) => format switch
     {
-        "csv" => "text/csv; charset=utf-8",
+        "csv" => CsvTable.ContentType,
         "geojson" => "application/geo+json",
         "tif" => "image/tiff",
         _ => "application/json",
@@ -19,7 +19,7 @@ public static class AssessmentLayerWriter
 
     public static byte[] Write(string format, DatasetRecord dataset, AssessmentLayer layer, IReadOnlyDictionary<int, CellRecord> cells, Provenance provenance) => format switch
     {
-        "csv" => Csv(layer, cells, provenance, ValidationReporting.SummaryLines(dataset.MetadataJson)),
+        "csv" => Csv(dataset, layer, cells, provenance),
         "geojson" => GeoJson(layer, cells, provenance, ValidationReporting.SummaryLines(dataset.MetadataJson), geo: true),
         "tif" => GeoTiff(dataset, layer, cells, provenance),
         _ => GeoJson(layer, cells, provenance, ValidationReporting.SummaryLines(dataset.MetadataJson), geo: false),
@@ -31,25 +31,26 @@ public static class AssessmentLayerWriter
             if (double.IsFinite(layer.Primary.Values[i]) && cells.TryGetValue(layer.CellIds[i], out var cell)) yield return (i, cell);
     }
 
-    private static byte[] Csv(AssessmentLayer layer, IReadOnlyDictionary<int, CellRecord> cells, Provenance provenance, IReadOnlyList<string> validation)
+    /// <summary>The description of the layer's CSV, from which its header and its CSVW metadata are written.</summary>
+    public static CsvTable CsvTableOf(DatasetRecord dataset, AssessmentLayer layer, Provenance provenance)
     {
-        var c = CultureInfo.InvariantCulture;
-        var text = new StringBuilder();
-        text.Append("# layer: ").Append(layer.Title).Append('\n');
-        text.Append("# method: ").Append(layer.Description).Append('\n');
-        text.Append("# units: ").Append(string.Join("; ", layer.Columns.Select(k => $"{k.Name} {k.Unit}"))).Append("; lon and lat in degrees (EPSG:4326)\n");
-        text.Append("# computed_at: ").Append(layer.ComputedAtUtc.ToString("O", c)).Append('\n');
-        foreach (var line in provenance.HeaderLines()) text.Append(line).Append('\n');
-        foreach (var line in validation) text.Append("# validation: ").Append(line).Append('\n');
-        text.Append("cell_id,lon,lat,").Append(string.Join(',', layer.Columns.Select(k => k.Name))).Append('\n');
-        foreach (var (i, cell) in Valued(layer, cells))
-        {
-            text.Append(cell.CellId.ToString(c)).Append(',').Append(cell.Longitude.ToString("0.######", c)).Append(',').Append(cell.Latitude.ToString("0.######", c));
-            foreach (var column in layer.Columns) text.Append(',').Append(double.IsFinite(column.Values[i]) ? column.Values[i].ToString("R", c) : "");
-            text.Append('\n');
-        }
-        return new UTF8Encoding(false).GetBytes(text.ToString());
+        List<string> notes = [$"Method: {layer.Description}", $"Layer computed at {layer.ComputedAtUtc.ToString("yyyy-MM-dd'T'HH:mm:ss'Z'", CultureInfo.InvariantCulture)}."];
+        notes.AddRange(ValidationReporting.SummaryLines(dataset.MetadataJson).Select(line => "Validation: " + line));
+        return new CsvTable(layer.Title, $"One row per wet cell with a value of the layer '{layer.Title}' of dataset {provenance.Dataset}, in cell order.",
+            [CsvColumn.CellId, CsvColumn.Longitude, CsvColumn.Latitude, .. layer.Columns.Select(k => CsvColumn.Double(k.Name, k.Name.Replace('_', ' '), k.Unit))],
+            provenance, notes);
     }
+
+    private static byte[] Csv(DatasetRecord dataset, AssessmentLayer layer, IReadOnlyDictionary<int, CellRecord> cells, Provenance provenance) =>
+        CsvTableOf(dataset, layer, provenance).ToBytes(rows =>
+        {
+            foreach (var (i, cell) in Valued(layer, cells))
+            {
+                rows.Integer(cell.CellId).Number(cell.Longitude, "0.######").Number(cell.Latitude, "0.######");
+                foreach (var column in layer.Columns) rows.Number(column.Values[i]);
+                rows.EndRow();
+            }
+        });
 
     private static byte[] GeoJson(AssessmentLayer layer, IReadOnlyDictionary<int, CellRecord> cells, Provenance provenance, IReadOnlyList<string> validation, bool geo)
     {

@@ -10,11 +10,11 @@ public static class ValidationApi
     {
         var dataset = routes.MapGroup("/api/v1/datasets/{slug}/validation").WithTags("Validation");
         dataset.MapGet("/", TableAsync)
-            .Produces<ValidationTable>(StatusCodes.Status200OK, "application/json", "text/csv")
+            .Produces<ValidationTable>(StatusCodes.Status200OK, "application/json", "text/csv", CsvwMetadataWriter.MediaType)
             .ProducesProblems(StatusCodes.Status404NotFound)
             .RequireExpensiveLimit();
         dataset.MapGet("/{station}/pairs", PairsAsync)
-            .Produces<ValidationPlotData>(StatusCodes.Status200OK, "application/json", "text/csv")
+            .Produces<ValidationPlotData>(StatusCodes.Status200OK, "application/json", "text/csv", CsvwMetadataWriter.MediaType)
             .ProducesProblems(StatusCodes.Status404NotFound, StatusCodes.Status422UnprocessableEntity)
             .RequireExpensiveLimit();
         routes.MapGet("/api/v1/validation/compare", CompareAsync).WithTags("Validation")
@@ -26,7 +26,9 @@ public static class ValidationApi
     [EndpointName("ValidationTable")]
     [EndpointSummary("Skill of the dataset at each registered station: overall, by season and by Hs class")]
     [EndpointDescription(
-        "station: a station's name or slug (default: every station). format: json (default) or csv. For Hs, Tp, Te: N, mean observed " +
+        "station: a station's name or slug (default: every station). format: json (default), csv (plain RFC 4180 CSV; its units, " +
+        "provenance and the caution are in its W3C CSV on the Web metadata, format=csvw with the same query, application/csvm+json, " +
+        "named by the CSV answer's Link header with rel=describedby) or csvw. For Hs, Tp, Te: N, mean observed " +
         "and modelled, bias = mean(model - observed), RMSE, scatter index = RMSE / mean observed, bias-corrected scatter index, Pearson r, " +
         "symmetric slope and the least-squares line; for direction the circular bias, circular RMSE and mean absolute difference. " +
         "Each observation is paired with the nearest wet cell, linearly interpolated in time between the bracketing model steps within " +
@@ -34,10 +36,10 @@ public static class ValidationApi
         "used to tune the hindcast or kept aside. Stations outside the dataset are listed under not_covered.")]
     public static async Task<Results<Ok<ValidationTable>, FileContentHttpResult, ProblemHttpResult, ValidationProblem>> TableAsync(
         string slug, [AsParameters] ValidationTableQuery query, DatasetCatalog catalog, ValidationService service,
-        ProvenanceBuilder provenance, CancellationToken cancel)
+        ProvenanceBuilder provenance, HttpContext http, CancellationToken cancel)
     {
         var errors = new QueryErrors();
-        var csv = query.Csv(errors);
+        var form = query.Form(errors);
         if (errors.Count > 0) return TypedResults.ValidationProblem(errors);
         var station = query.Station;
         var dataset = await catalog.FindAsync(slug, cancel);
@@ -51,22 +53,30 @@ public static class ValidationApi
         else stations = await service.Stations.ListAsync(cancel);
         var (covered, notCovered) = await service.AtStationsAsync(dataset, stations, cancel);
         var table = new ValidationTable(slug, covered, notCovered, await provenance.ForAsync(dataset, cancel), AtlasCaution.Text);
-        if (csv) return TypedResults.File(ValidationCsv.Csv(table), "text/csv; charset=utf-8", $"{slug}_validation.csv");
+        if (form == TableFormat.CsvMetadata)
+            return TypedResults.File(CsvwMetadataWriter.Write(ValidationCsv.Table(table), CsvMetadataLinks.FormatForm(http.Request, "csv")),
+                CsvwMetadataWriter.MediaType, $"{slug}_validation.csv-metadata.json");
+        if (form == TableFormat.Csv)
+        {
+            CsvMetadataLinks.Describe(http.Response, CsvMetadataLinks.FormatForm(http.Request, CsvMetadataLinks.FormatValue));
+            return TypedResults.File(ValidationCsv.Csv(table), CsvTable.ContentType, $"{slug}_validation.csv");
+        }
         return TypedResults.Ok(table);
     }
 
     [EndpointName("ValidationPairs")]
     [EndpointSummary("Plot data at one station: matched pairs (scatter and time series), the 1:1 line, quantile pairs and the model series")]
     [EndpointDescription(
-        "variable: hs (default), tp, te or dir. format: json (default) or csv (the pairs only, after '#' provenance lines). " +
+        "variable: hs (default), tp, te or dir. format: json (default), csv (the pairs only, plain RFC 4180 CSV; provenance, units " +
+        "and the caution in its W3C CSV on the Web metadata, format=csvw with the same query, named by the Link header with rel=describedby) or csvw. " +
         "Quantiles are matched at probabilities 0.01..0.99 (Hyndman-Fan type 7, observed and modelled sorted separately).")]
     public static async Task<Results<Ok<ValidationPlotData>, FileContentHttpResult, ProblemHttpResult, ValidationProblem>> PairsAsync(
         string slug, string station, [AsParameters] ValidationPairsQuery query, DatasetCatalog catalog, ValidationService service,
-        ProvenanceBuilder provenance, CancellationToken cancel)
+        ProvenanceBuilder provenance, HttpContext http, CancellationToken cancel)
     {
         var errors = new QueryErrors();
         var wanted = query.Compared(errors);
-        var csv = query.Csv(errors);
+        var form = query.Form(errors);
         if (errors.Count > 0) return TypedResults.ValidationProblem(errors, title: "The pairs request has invalid query values");
 
         var dataset = await catalog.FindAsync(slug, cancel);
@@ -84,7 +94,15 @@ public static class ValidationApi
         var skill = ValidationReporting.Skill(validation);
         var source = await provenance.ForAsync(dataset, cancel);
         var symbol = wanted.Symbol();
-        if (csv) return TypedResults.File(PairsCsv(slug, skill, wanted, list, source), "text/csv; charset=utf-8", $"{slug}_{found.Slug}_{symbol}_pairs.csv");
+        var fileName = $"{slug}_{found.Slug}_{symbol}_pairs.csv";
+        if (form == TableFormat.CsvMetadata)
+            return TypedResults.File(CsvwMetadataWriter.Write(ValidationCsv.PairsTable(slug, skill, wanted, source), CsvMetadataLinks.FormatForm(http.Request, "csv")),
+                CsvwMetadataWriter.MediaType, fileName + CsvMetadataLinks.PathSuffix);
+        if (form == TableFormat.Csv)
+        {
+            CsvMetadataLinks.Describe(http.Response, CsvMetadataLinks.FormatForm(http.Request, CsvMetadataLinks.FormatValue));
+            return TypedResults.File(ValidationCsv.PairsCsv(ValidationCsv.PairsTable(slug, skill, wanted, source), list), CsvTable.ContentType, fileName);
+        }
 
         var quantiles = compared.Scalar is { } scalar
             ? scalar.Quantiles.Select(q => new QuantileRow(q.Probability, SkillRow.Finite(q.ObservedQuantile), SkillRow.Finite(q.ModelledQuantile))).ToArray()
@@ -183,19 +201,4 @@ public static class ValidationApi
     }
 
     private static long ToUnix(DateTime utc) => (long)(utc - DateTime.UnixEpoch).TotalSeconds;
-
-    private static byte[] PairsCsv(string slug, StationSkill skill, WaveParameter variable, IReadOnlyList<ValidationPair> pairs, Provenance source)
-    {
-        var symbol = variable.Symbol();
-        var c = CultureInfo.InvariantCulture;
-        var text = new StringBuilder();
-        text.Append(c, $"# matched {symbol} pairs of dataset {slug} at station {skill.Station.Name} ({skill.Station.Role}), cell {skill.Cell.Id}, {skill.Cell.DistanceM:0.#} m away\n");
-        text.Append("# matching: ").Append(ValidationReporting.MatchingMethod).Append('\n');
-        text.Append(c, $"# units: time UTC (ISO 8601); observed and modelled in {variable.Unit()}\n");
-        foreach (var line in source.HeaderLines()) text.Append(line).Append('\n');
-        text.Append("time,observed,modelled\n");
-        foreach (var p in pairs)
-            text.Append(p.Time.ToString("yyyy-MM-dd'T'HH:mm:ss'Z'", c)).Append(',').Append(p.Observed.ToString("R", c)).Append(',').Append(p.Modelled.ToString("R", c)).Append('\n');
-        return new UTF8Encoding(false).GetBytes(text.ToString());
-    }
 }

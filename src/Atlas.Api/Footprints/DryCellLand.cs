@@ -3,7 +3,12 @@ using NetTopologySuite.Operation.Union;
 namespace Atlas.Api.Footprints;
 
 /// <summary>The land a dataset saw: its dry cells' footprints merged, and how many dry cells there are.</summary>
-public sealed record DatasetLand(Geometry? Land, int DryCellCount);
+public sealed record DatasetLand(Geometry? Land, int DryCellCount)
+{
+    /// <summary>The land's polygons one by one (none when there is no land), as a map draws them.</summary>
+    public IReadOnlyList<Polygon> Polygons { get; } =
+        Enumerable.Range(0, Land?.NumGeometries ?? 0).Select(k => Land!.GetGeometryN(k)).OfType<Polygon>().ToArray();
+}
 
 /// <summary>
 /// A dataset's own land mask, the footprints of its dry cells merged into polygons: on a regular grid each dry cell is

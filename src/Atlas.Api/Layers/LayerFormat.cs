@@ -1,11 +1,11 @@
 namespace Atlas.Api.Layers;
 
 /// <summary>The download formats of a layer, by file extension.</summary>
-public enum LayerFormat { Tif, Csv, GeoJson, Nc, Png }
+public enum LayerFormat { Tif, Csv, GeoJson, Nc, Png, Svg }
 
 public static class LayerFormats
 {
-    public static readonly string[] Extensions = ["tif", "csv", "geojson", "nc", "png"];
+    public static readonly string[] Extensions = ["tif", "csv", "geojson", "nc", "png", "svg"];
 
     public static bool TryParse(string? text, out LayerFormat format)
     {
@@ -19,9 +19,10 @@ public static class LayerFormats
     public static string ContentType(this LayerFormat format) => format switch
     {
         LayerFormat.Tif => "image/tiff; application=geotiff; profile=cloud-optimized",
-        LayerFormat.Csv => "text/csv; charset=utf-8",
+        LayerFormat.Csv => CsvTable.ContentType,
         LayerFormat.GeoJson => "application/geo+json",
         LayerFormat.Nc => "application/x-netcdf",
+        LayerFormat.Svg => "image/svg+xml",
         _ => "image/png",
     };
 }

@@ -17,6 +17,7 @@ public sealed class LayerRenderer(
     LayerCacheStore layerCache,
     ProvenanceBuilder provenance,
     CellFootprints footprints,
+    DryCellLand land,
     IMemoryCache memory,
     IOptions<AtlasApiOptions> options)
 {
@@ -35,7 +36,8 @@ public sealed class LayerRenderer(
             LayerFormat.GeoJson => LayerGeoJsonWriter.Write(data, request.Polygons ? await footprints.ForAsync(dataset, cancel) : null),
             LayerFormat.Tif => GeoTiffWriter.Write(await RasteriseAsync(data, cancel), GeoTiffMetadataOf(data), data.Provenance.GeneratedAtUtc),
             LayerFormat.Nc => LayerNetCdfWriter.Write(await RasteriseAsync(data, cancel), data),
-            _ => LayerFigureRenderer.Render(await RasteriseAsync(data, cancel), data),
+            LayerFormat.Svg => LayerFigureRenderer.RenderSvg(await RasteriseAsync(data, cancel), data, (await land.ForAsync(dataset, cancel)).Polygons),
+            _ => LayerFigureRenderer.RenderPng(await RasteriseAsync(data, cancel), data, (await land.ForAsync(dataset, cancel)).Polygons),
         };
         var etag = "\"" + Convert.ToHexStringLower(SHA256.HashData(content))[..32] + "\"";
         var layer = new CachedLayer(etag, request.Format.ContentType(), content);
@@ -51,8 +53,12 @@ public sealed class LayerRenderer(
         if (values.Count == 0 && request.Parameter == WaveParameter.Depth && request.Statistic == StatisticKind.Mean && request.Period == AtlasPeriod.Annual)
             values = await DepthsAsync(dataset, cancel);
         if (values.Count == 0) return null;
-        return new LayerData(dataset, request, values, await provenance.ForAsync(dataset, cancel),
-            ParameterCatalogue.UnitOf(request.Parameter, request.Statistic));
+        // A layer download is a function of the stored statistics alone, so it carries their time as its own: drawn
+        // again after the cache is emptied it is the same file (same ETag), and its companions (the CSV's metadata,
+        // the figure's sidecar), made on another request, state the same time as the file they describe.
+        var source = await provenance.ForAsync(dataset, cancel);
+        source = source with { GeneratedAtUtc = source.StatisticsComputedAtUtc ?? dataset.CreatedAtUtc };
+        return new LayerData(dataset, request, values, source, ParameterCatalogue.UnitOf(request.Parameter, request.Statistic));
     }
 
     /// <summary>True when some wet cell of the dataset has a depth.</summary>

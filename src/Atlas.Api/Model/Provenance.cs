@@ -26,23 +26,6 @@ public sealed record Provenance(
     public string AssumptionsText() => Assumptions is { Count: > 0 } assumed
         ? string.Join("; ", assumed.Select(a => a.Describe()).Concat((Warnings ?? []).Select(w => "warning: " + w)))
         : "not recorded (loaded before the ingest kept them)";
-
-    /// <summary>The provenance as "# key: value" lines for the head of a text download.</summary>
-    public IEnumerable<string> HeaderLines()
-    {
-        yield return $"# dataset: {Dataset} ({Title})";
-        foreach (var file in SourceFiles) yield return $"# source_file: {file.Name} sha256={file.Sha256}";
-        if (SourceFiles.Count == 0) yield return "# source_file: none recorded";
-        yield return $"# software: {Software} {SoftwareVersion}";
-        yield return $"# statistics_computed_at: {(StatisticsComputedAtUtc is { } t ? t.ToString("O") : "not computed")}";
-        yield return $"# generated_at: {GeneratedAtUtc:O}";
-        yield return $"# method: {MethodNotes}";
-        foreach (var a in Assumptions ?? []) yield return $"# assumed: {a.Describe()}";
-        foreach (var w in Warnings ?? []) yield return $"# warning: {w}";
-        if (Licence is not null) yield return $"# licence: {Licence}";
-        if (Citation is not null) yield return $"# citation: {Citation}";
-        yield return $"# caution: {Caution}";
-    }
 }
 
 public sealed record ProvenanceFile(string Name, string Sha256, DateTime TimeStartUtc, DateTime TimeEndUtc);

@@ -32,7 +32,7 @@ public sealed class AreaOverviewSection(AreaReportContent content) : IReportSect
         var map = LocationMap.Draw(page, frame, content.Land, content.Extent, [content.Area], [], content.View, fills);
         ColourBar(page, new SKRect(map.Right + 16, map.Top + 12, map.Right + 28, map.Top + Math.Min(200, map.Height - 12)), low, high, layer.Units);
         page.Y = top + 318;
-        page.Paragraph("Map: the layer's value in each wet cell (house colour scale), the dataset's land mask (its dry cells, shaded), the extent " +
+        page.Paragraph("Map: the layer's value in each wet cell (house colour scale), the dataset's land mask (its dry cells, hatched), the extent " +
             "of its grid (dashed) and the area (black outline).", page.Fonts.Tiny, colour: ReportPage.Faint);
 
         page.Heading("Statistics over the cells inside the area");

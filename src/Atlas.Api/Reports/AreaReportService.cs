@@ -32,12 +32,14 @@ public sealed class AreaReportService(AreaStatisticsService areas, ScreeningQuer
         var metKm2 = met.Sum(c => c.SquareKilometres);
         var screened = new AreaScreening(criteria, selection.Inside.Count, met.Length, metKm2, statistics.CellAreaKm2 > 0 ? metKm2 / statistics.CellAreaKm2 : double.NaN);
 
-        var extent = (await catalog.ExtentAsync(dataset, cancel))!.Value;
+        var dryCells = await land.ForAsync(dataset, cancel);
+        var allCells = await footprints.ForAsync(dataset, cancel);
+        var extent = GridOutline.Of(allCells.Values, dryCells, (await catalog.ExtentAsync(dataset, cancel))!.Value);
         var view = View(selection.Area.EnvelopeInternal, extent);
-        var cells = (await footprints.ForAsync(dataset, cancel)).Values
+        var cells = allCells.Values
             .Where(c => values.ContainsKey(c.CellId) && c.Longitude >= view.West - 1 && c.Longitude <= view.East + 1 && c.Latitude >= view.South - 1 && c.Latitude <= view.North + 1)
             .Select(c => (c.Polygon, values[c.CellId])).ToArray();
-        return (new AreaReportContent(statistics, shares, screened, selection.Area, cells, await land.ForAsync(dataset, cancel), extent, view,
+        return (new AreaReportContent(statistics, shares, screened, selection.Area, cells, dryCells, extent, view,
             statistics.Provenance.GeneratedAtUtc), null);
     }
 

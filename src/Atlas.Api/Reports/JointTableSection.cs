@@ -88,7 +88,7 @@ public sealed class JointTableSection(SiteReportContent content) : IReportSectio
                 var cell = SKRect.Create(ReportPage.Margin + labelWidth + (c - columns.First) * cellWidth, y, cellWidth, cellHeight);
                 canvas.DrawRect(cell, fill);
                 canvas.DrawRect(cell, grid);
-                var ink = ColourScale.LightnessAt(fraction) < 0.62 ? SKColors.White : ReportPage.Ink;
+                var ink = ReportCharts.WhiteReadsBetter(red, green, blue) ? SKColors.White : ReportPage.Ink;
                 page.Text(Fixed(100 * share, share >= 0.1 ? 1 : 2), cell.MidX, cell.Top + cellHeight * 0.75f, font, ink, SKTextAlign.Center);
             }
         }

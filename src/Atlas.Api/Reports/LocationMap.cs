@@ -9,9 +9,9 @@ namespace Atlas.Api.Reports;
 /// </summary>
 public static class LocationMap
 {
-    private static readonly SKColor Sea = new(0xEE, 0xF2, 0xF5), Land = new(0xC9, 0xC3, 0xB6), LandEdge = new(0x9A, 0x93, 0x85);
+    private static readonly SKColor Sea = new(0xEE, 0xF2, 0xF5);
 
-    /// <param name="extent">The grid's extent (cell centres), drawn dashed.</param>
+    /// <param name="extent">The grid's extent (the outer edges of its cells, <see cref="GridOutline"/>), drawn dashed.</param>
     /// <param name="view">The part of the world the map shows (the extent when null), widened by a small margin.</param>
     /// <param name="fills">Cell footprints filled with a colour (a layer), drawn under the land.</param>
     /// <param name="outlines">Polygons drawn as outlines over everything (an asked area).</param>
@@ -22,7 +22,7 @@ public static class LocationMap
     {
         var canvas = page.Canvas;
         var shown = view ?? extent;
-        // Half a cell of margin beyond the cell centres, so that border cells are whole.
+        // A little margin beyond what is shown, so that the dashed extent stays clear of the frame.
         var padLon = Math.Max((shown.East - shown.West) * 0.03, 1e-3);
         var padLat = Math.Max((shown.North - shown.South) * 0.03, 1e-3);
         double west = shown.West - padLon, east = shown.East + padLon, south = shown.South - padLat, north = shown.North + padLat;
@@ -43,16 +43,12 @@ public static class LocationMap
                 using var path = PathOf(footprint, At);
                 canvas.DrawPath(path, fill);
             }
-        using (var fill = new SKPaint { Color = Land, IsAntialias = true })
-        using (var edge = new SKPaint { Color = LandEdge, IsStroke = true, StrokeWidth = 0.4f, IsAntialias = true })
-            if (land.Land is { } shape)
-                for (var k = 0; k < shape.NumGeometries; k++)
-                    if (shape.GetGeometryN(k) is Polygon polygon)
-                    {
-                        using var path = PathOf(polygon, At);
-                        canvas.DrawPath(path, fill);
-                        canvas.DrawPath(path, edge);
-                    }
+        // Land as the page and the figures draw it (hatched), so it never reads as a value at the light end of the scale.
+        foreach (var polygon in land.Polygons)
+        {
+            using var path = PathOf(polygon, At);
+            LandStyle.Draw(canvas, path, map, 3.5f, 0.4f);
+        }
         using (var outline = new SKPaint { Color = ReportPage.Ink, IsStroke = true, StrokeWidth = 1.2f, IsAntialias = true })
             foreach (var geometry in outlines)
                 for (var k = 0; k < geometry.NumGeometries; k++)
@@ -61,7 +57,7 @@ public static class LocationMap
                         using var path = PathOf(polygon, At);
                         canvas.DrawPath(path, outline);
                     }
-        // The grid's extent (cell centres), dashed.
+        // The grid's extent (the outer edges of its cells), dashed.
         using (var dashed = new SKPaint { Color = ReportPage.Faint, IsStroke = true, StrokeWidth = 0.6f, PathEffect = SKPathEffect.CreateDash([3, 2], 0) })
             canvas.DrawRect(SKRect.Create(At(extent.North, extent.West), new SKSize(At(extent.South, extent.East).X - At(extent.North, extent.West).X,
                 At(extent.South, extent.East).Y - At(extent.North, extent.West).Y)), dashed);
@@ -128,11 +124,15 @@ public static class LocationMap
         var km = ReportNumbers.NiceStep(map.Width / 4 / pointsPerKm);
         var length = (float)(km * pointsPerKm);
         float x = map.Left + 8, y = map.Bottom - 10;
+        var label = $"{km.ToString("G4", CultureInfo.InvariantCulture)} km (at {latitude:0.##}° latitude)";
+        // On a light ground, so that the bar and its label read over the darkest cells too.
+        using (var halo = new SKPaint { Color = new SKColor(0xFF, 0xFF, 0xFF, 0xD8), IsAntialias = true })
+            page.Canvas.DrawRoundRect(new SKRect(x - 4, y - 13, x + Math.Max(length, page.Fonts.Tiny.MeasureText(label)) + 4, y + 5), 2, 2, halo);
         using var line = new SKPaint { Color = ReportPage.Ink, StrokeWidth = 1 };
         page.Canvas.DrawLine(x, y, x + length, y, line);
         page.Canvas.DrawLine(x, y - 3, x, y + 3, line);
         page.Canvas.DrawLine(x + length, y - 3, x + length, y + 3, line);
-        page.Text($"{km.ToString("G4", CultureInfo.InvariantCulture)} km (at {latitude:0.##}° latitude)", x, y - 5, page.Fonts.Tiny, ReportPage.Ink);
+        page.Text(label, x, y - 5, page.Fonts.Tiny, ReportPage.Ink);
     }
 
     private static string Degrees(double value, string positive, string negative) =>

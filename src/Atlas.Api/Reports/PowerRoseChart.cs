@@ -35,7 +35,9 @@ public static class PowerRoseChart
             var fraction = rose.Fractions[k];
             if (!(fraction > 0)) continue;
             var length = (float)(radius * fraction / largest);
-            var (r, g, b) = ColourScale.At(fraction / largest)!.Value;
+            // Darker for more, as the joint tables are coloured, so the largest sector stands out on the white page
+            // (the scale's light end would all but vanish); the smallest keep their outline.
+            var (r, g, b) = ColourScale.At(1 - 0.85 * fraction / largest)!.Value;
             using var fill = new SKPaint { Color = new SKColor(r, g, b), IsAntialias = true };
             using var edge = new SKPaint { Color = ReportPage.Ink, IsStroke = true, StrokeWidth = 0.4f, IsAntialias = true };
             // Sector k is centred on k x width degrees from north, clockwise; Skia's angles run clockwise from east.

@@ -27,6 +27,17 @@ public static class ReportCharts
         return new Color(r, g, b);
     }
 
+    /// <summary>
+    /// True when white text contrasts more than black with a background of these sRGB bytes (WCAG 2 relative luminance
+    /// and contrast ratio), the rule the page's tables use (wwwroot/js/colour-scale.js, textColourOn).
+    /// </summary>
+    public static bool WhiteReadsBetter(byte red, byte green, byte blue)
+    {
+        static double Linear(byte v) => v / 255.0 <= 0.04045 ? v / 255.0 / 12.92 : Math.Pow((v / 255.0 + 0.055) / 1.055, 2.4);
+        var luminance = 0.2126 * Linear(red) + 0.7152 * Linear(green) + 0.0722 * Linear(blue);
+        return 1.05 / (luminance + 0.05) > (luminance + 0.05) / 0.05;
+    }
+
     /// <summary>How much smaller than ScottPlot's screen sizes the charts' type and lines are drawn on a page.</summary>
     private const float Reduction = 0.62f;
 

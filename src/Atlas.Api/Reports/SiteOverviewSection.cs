@@ -37,7 +37,7 @@ public sealed class SiteOverviewSection(SiteReportContent content) : IReportSect
         Fact(page, factsLeft, "Window", WindowText(s.Window, s.InterAnnual));
         Fact(page, factsLeft, "Time steps in the window", s.StepsInWindow.ToString("N0", CultureInfo.InvariantCulture));
         Fact(page, factsLeft, "Energy period", s.EnergyPeriodSource == EnergyPeriodSource.Provided ? "as stored" : "derived from the peak period (see method notes)");
-        page.Paragraph("Map: the dataset's land mask (its dry cells, shaded), the extent of its grid (dashed), the nearest wet cell (dot) and the asked point (cross).",
+        page.Paragraph("Map: the dataset's land mask (its dry cells, hatched), the extent of its grid (dashed), the nearest wet cell (dot) and the asked point (cross).",
             page.Fonts.Tiny, factsLeft, ReportPage.Width - ReportPage.Margin - factsLeft, ReportPage.Faint);
 
         page.Y = Math.Max(page.Y, mapTop + 272);

@@ -10,6 +10,7 @@ public static class SiteReportLayout
         [
             new SiteOverviewSection(content),
             new SiteChartsSection(content),
+            new SpectralSection(content),
             new TimeSeriesSection(content),
             new JointTableSection(content),
             new ValidationSection(content),

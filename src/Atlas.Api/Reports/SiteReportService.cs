@@ -8,7 +8,7 @@ namespace Atlas.Api.Reports;
 /// anything is written.
 /// </summary>
 public sealed class SiteReportService(PointLocator locator, DatasetCatalog catalog, PointStatisticsService statistics, PointAssessments assessments,
-    ValidationService validation, DryCellLand land, StatisticsOptions statisticsOptions)
+    ValidationService validation, DryCellLand land, CellFootprints footprints, StatisticsOptions statisticsOptions)
 {
     /// <summary>The report's content, or the problem (unknown dataset or device, a position off the sea cells, no steps in the window).</summary>
     public async Task<(SiteReportContent? Content, ProblemHttpResult? Problem)> GatherAsync(SiteReportRequest request, CancellationToken cancel)
@@ -43,9 +43,10 @@ public sealed class SiteReportService(PointLocator locator, DatasetCatalog catal
         // Power per step as the series endpoint derives it (Te from Tp for the assumed spectrum where Te is not stored).
         var (_, power, _) = context.Series.Derived(statisticsOptions.AssumedSpectrum);
         var series = new PointTimeSeries(context.Series.Times, [.. context.Series.Hs.Select(v => (double)v)], [.. power.Select(v => (double)v)]);
-        var extent = await catalog.ExtentAsync(point.Dataset, cancel);
+        var dryCells = await land.ForAsync(point.Dataset, cancel);
+        var extent = GridOutline.Of((await footprints.ForAsync(point.Dataset, cancel)).Values, dryCells, (await catalog.ExtentAsync(point.Dataset, cancel))!.Value);
         return (new SiteReportContent(request, pointStatistics, windows, extremes, yield, series, await NearestStationAsync(point, cancel),
-            await land.ForAsync(point.Dataset, cancel), extent!.Value, pointStatistics.Provenance.GeneratedAtUtc), null);
+            dryCells, extent, pointStatistics.Provenance.GeneratedAtUtc), null);
     }
 
     /// <summary>The PDF of gathered content.</summary>

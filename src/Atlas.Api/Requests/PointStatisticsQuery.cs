@@ -57,6 +57,6 @@ public sealed record PointStatisticsQuery(
         | (parts.Contains("joint") ? ExactParts.JointOccurrence : ExactParts.None)
         | (parts.Contains("interannual") ? ExactParts.InterAnnual : ExactParts.None);
 
-    /// <summary>True for CSV, false for JSON (the default).</summary>
-    public bool Csv(QueryErrors errors) => errors.Choice("format", Format, "point format", "json", "csv") == "csv";
+    /// <summary>JSON (the default), CSV, or the CSV's CSVW metadata.</summary>
+    public TableFormat Form(QueryErrors errors) => TableFormats.Read(errors, Format, "point format", TableFormat.Json);
 }

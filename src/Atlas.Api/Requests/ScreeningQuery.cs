@@ -9,8 +9,26 @@ public sealed record ScreeningQuery(
     [property: FromQuery(Name = "max_depth_m")] string? MaxDepthM,
     [property: FromQuery(Name = "max_coast_distance_km")] string? MaxCoastDistanceKm,
     [property: FromQuery(Name = "max_hs_p90_m")] string? MaxHsP90M,
-    [property: FromQuery(Name = "period")] string? Period)
+    [property: FromQuery(Name = "period")] string? Period,
+    [property: FromQuery(Name = "format")] string? Format = null)
 {
+    /// <summary>
+    /// GeoJSON (null, the default), CSV, or the CSV's CSVW metadata; null with the fault in <paramref name="errors"/>
+    /// for anything else.
+    /// </summary>
+    public TableFormat? Form(QueryErrors errors)
+    {
+        switch (Format)
+        {
+            case null or "geojson": return null;
+            case "csv": return TableFormat.Csv;
+            case CsvMetadataLinks.FormatValue: return TableFormat.CsvMetadata;
+            default:
+                errors.Add("format", $"'{Format}' is not a screening format: use geojson or csv ({CsvMetadataLinks.FormatValue} gives the CSV's metadata).");
+                return null;
+        }
+    }
+
     /// <summary>The criteria read, or null with every fault in <paramref name="errors"/>.</summary>
     public ScreeningBounds? Read(QueryErrors errors)
     {

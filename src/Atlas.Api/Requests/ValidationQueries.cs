@@ -7,7 +7,7 @@ public sealed record ValidationTableQuery(
     [property: FromQuery(Name = "station")] string? Station,
     [property: FromQuery(Name = "format")] string? Format)
 {
-    public bool Csv(QueryErrors errors) => errors.Choice("format", Format, "validation format", "json", "csv") == "csv";
+    public TableFormat Form(QueryErrors errors) => TableFormats.Read(errors, Format, "validation format", TableFormat.Json);
 }
 
 /// <summary>The query of <c>GET /validation/{station}/pairs</c>: the variable (hs by default) and the format.</summary>
@@ -23,7 +23,7 @@ public sealed record ValidationPairsQuery(
         return wanted;
     }
 
-    public bool Csv(QueryErrors errors) => errors.Choice("format", Format, "pairs format", "json", "csv") == "csv";
+    public TableFormat Form(QueryErrors errors) => TableFormats.Read(errors, Format, "pairs format", TableFormat.Json);
 }
 
 /// <summary>The query of <c>GET /validation/compare</c>: two or more dataset slugs and the variable ranked.</summary>

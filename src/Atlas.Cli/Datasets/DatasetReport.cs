@@ -139,7 +139,7 @@ public static class DatasetReport
 
     private static string Options(Atlas.Statistics.StatisticsOptions o) =>
         $"Hs thresholds {Numbers(o.HsThresholdsMetres)} m; J thresholds {Numbers(o.PowerThresholdsKilowattsPerMetre)} kW/m; " +
-        $"low coverage below {o.LowCoverageThreshold.ToString(Invariant)}; assumed spectrum {o.AssumedSpectrum}; " +
+        $"low coverage below {o.LowCoverageThreshold.ToString(Invariant)}; Te from Tp where Te is absent: {Atlas.Statistics.MethodNotes.AssumedSpectrum(o.AssumedSpectrum)}; " +
         $"histogram bins Hs {o.HsBinning.BinWidth.ToString(Invariant)} m, Te/Tp {o.PeriodBinning.BinWidth.ToString(Invariant)} s, " +
         $"J {o.PowerBinning.BinWidth.ToString(Invariant)} kW/m, spread {o.SpreadBinning.BinWidth.ToString(Invariant)} degree";
 

@@ -1,3 +1,7 @@
+using System.Buffers;
+using System.Numerics;
+using System.Runtime.CompilerServices;
+
 namespace Atlas.Hindcast.Spectra;
 
 /// <summary>
@@ -133,6 +137,10 @@ public sealed class PointSpectraFile : IDisposable
     public IReadOnlyList<string> Notes { get; }
 
     /// <summary>Values per step and station: frequencies x directions (x 1 for S(f)).</summary>
+    /// <summary>Steps per chunk of the spectrum variable along time (1 when it is not chunked): reads of whole chunks
+    /// decode each chunk once.</summary>
+    public int TimeChunkSteps => _density.ChunkSizes is { } chunks && chunks[_timeAxis] > 0 ? (int)Math.Min(chunks[_timeAxis], int.MaxValue) : 1;
+
     public int ValuesPerSpectrum => FrequenciesHz.Length * Math.Max(DirectionsFrom.Length, 1);
 
     /// <summary>
@@ -140,6 +148,7 @@ public sealed class PointSpectraFile : IDisposable
     /// <paramref name="destination"/> laid out [time][station][frequency][direction, sorted], in m^2 s rad^-1 (m^2 s for
     /// S(f)), NaN where the file has a fill value. A negative density is refused, naming the station, time and frequency.
     /// </summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public void ReadSteps(int timeStart, int timeCount, Span<float> destination)
     {
         int stations = Stations.Count, nf = FrequenciesHz.Length, nd = Math.Max(DirectionsFrom.Length, 1);
@@ -154,7 +163,11 @@ public sealed class PointSpectraFile : IDisposable
         var count = _density.Shape;
         start[_timeAxis] = timeStart;
         count[_timeAxis] = timeCount;
-        if (_raw.Length < needed) _raw = new float[needed];
+        if (_raw.Length < needed)
+        {
+            if (_raw.Length > 0) ArrayPool<float>.Shared.Return(_raw);
+            _raw = ArrayPool<float>.Shared.Rent((int)needed);
+        }
         var raw = _raw.AsSpan(0, (int)needed);
         _file.Read(_density, start, count, raw);
         _decoder.DecodeInPlace(raw);
@@ -167,6 +180,7 @@ public sealed class PointSpectraFile : IDisposable
         long ss = _stationAxis >= 0 ? strides[_stationAxis] : 0, sd = _directionAxis >= 0 ? strides[_directionAxis] : 0;
         float factor = (float)_factor;
         var order = _directionOrder.Length > 0 ? _directionOrder : [0];
+        var runs = Runs(order);
         int o = 0;
         for (int t = 0; t < timeCount; t++)
             for (int s = 0; s < stations; s++)
@@ -175,11 +189,20 @@ public sealed class PointSpectraFile : IDisposable
                     long rowBase = t * st + s * ss + i * sf;
                     var row = destination.Slice(o, nd);
                     float smallest = 0;
-                    for (int j = 0; j < row.Length; j++)
+                    if (sd == 1 || nd == 1)
                     {
-                        float v = raw[(int)(rowBase + order[j] * sd)];
-                        smallest = Math.Min(smallest, v);
-                        row[j] = v * factor;
+                        // Directions contiguous in the file: copy each run of consecutive file indices at once.
+                        foreach (var (to, from, length) in runs)
+                            smallest = Math.Min(smallest, ScaledCopy(raw.Slice((int)rowBase + from, length), factor, row.Slice(to, length)));
+                    }
+                    else
+                    {
+                        for (int j = 0; j < row.Length; j++)
+                        {
+                            float v = raw[(int)(rowBase + order[j] * sd)];
+                            smallest = Math.Min(smallest, v);
+                            row[j] = v * factor;
+                        }
                     }
                     if (smallest < 0)
                         throw new HindcastFormatException(Path, _density.Name,
@@ -189,7 +212,53 @@ public sealed class PointSpectraFile : IDisposable
                 }
     }
 
-    public void Dispose() => _file.Dispose();
+    /// <summary>The sorted order as runs of consecutive file indices: (sorted position, file index, length).</summary>
+    private static List<(int To, int From, int Length)> Runs(int[] order)
+    {
+        var runs = new List<(int, int, int)>();
+        for (int j = 0; j < order.Length;)
+        {
+            int length = 1;
+            while (j + length < order.Length && order[j + length] == order[j] + length) length++;
+            runs.Add((j, order[j], length));
+            j += length;
+        }
+        return runs;
+    }
+
+    /// <summary>Copies <paramref name="source"/> times <paramref name="factor"/>; returns the smallest value seen if below 0, else 0 (NaN passes).</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
+    private static float ScaledCopy(ReadOnlySpan<float> source, float factor, Span<float> destination)
+    {
+        int j = 0, width = Vector<float>.Count;
+        float smallest = 0;
+        if (Vector.IsHardwareAccelerated && source.Length >= width)
+        {
+            var f = new Vector<float>(factor);
+            var low = Vector<float>.Zero;
+            for (; j <= source.Length - width; j += width)
+            {
+                var v = new Vector<float>(source.Slice(j, width));
+                low = Vector.Min(low, v);
+                (v * f).CopyTo(destination.Slice(j, width));
+            }
+            for (int k = 0; k < width; k++) smallest = Math.Min(smallest, low[k]);
+        }
+        for (; j < source.Length; j++)
+        {
+            float v = source[j];
+            smallest = Math.Min(smallest, v);
+            destination[j] = v * factor;
+        }
+        return smallest;
+    }
+
+    public void Dispose()
+    {
+        _file.Dispose();
+        if (_raw.Length > 0) ArrayPool<float>.Shared.Return(_raw);
+        _raw = [];
+    }
 
     private static NetCdfVariable? FindSpectrum(NetCdfFile file, VariableMapping? mapping)
     {

@@ -92,11 +92,7 @@ public sealed class SourceFile : IDisposable
     {
         if (!System.IO.File.Exists(path)) throw new IngestException($"{path}: no such file.");
         // The checksum reads the file once more: it runs beside the decoding (and a spectral file's integration).
-        var checksum = Task.Run(() =>
-        {
-            using var stream = new FileStream(path, FileMode.Open, FileAccess.Read, FileShare.Read, 1 << 20);
-            return Convert.ToHexStringLower(SHA256.HashData(stream));
-        });
+        var checksum = Task.Run(() => FileChecksum.Sha256(path));
         try
         {
             return OpenDecoded(path, mapping, checksum);
@@ -121,7 +117,7 @@ public sealed class SourceFile : IDisposable
         {
             using var points = PointSpectraFile.Open(path, mapping);
             if (points.TimesUtc.Count == 0) throw new IngestException($"{System.IO.Path.GetFileName(path)}: the time axis is empty; there is nothing to load.");
-            var integrated = IntegratedSpectra.Integrate(points);
+            var integrated = IntegratedSpectra.Integrate(points, mapping);
             return new SourceFile(integrated, mapping, checksum.GetAwaiter().GetResult(), new FileInfo(path).Length, attributes, path);
         }
         var file = HindcastFile.Open(path, mapping);

@@ -1,3 +1,5 @@
+using System.Buffers;
+using System.Runtime.CompilerServices;
 using Atlas.Hindcast;
 using Atlas.Hindcast.Spectra;
 using Atlas.WavePhysics;
@@ -7,9 +9,9 @@ namespace Atlas.Ingest.Spectra;
 /// <summary>
 /// Every spectrum of a point file integrated once (<see cref="SpectralIntegrator"/>, at each station's depth) and kept
 /// in memory: the per-step parameters the series store (Hs, Te, Tp, mean direction, spread), the per-step spectral
-/// products (<see cref="SpectralProduct"/>), and each step's frequency spectrum and direction-bin powers, from which the
-/// period means are summed. Serves the ingest's reads as a gridded file would (<see cref="IStepReader"/>), so point
-/// files go through the same plan, checks, shared-step rules and COPY as grids.
+/// products (<see cref="SpectralProduct"/>), and the monthly sums of each station's frequency spectrum and direction-bin
+/// powers, from which the period means are built. Serves the ingest's reads as a gridded file would
+/// (<see cref="IStepReader"/>), so point files go through the same plan, checks, shared-step rules and COPY as grids.
 /// </summary>
 public sealed class IntegratedSpectra : IStepReader
 {
@@ -18,6 +20,10 @@ public sealed class IntegratedSpectra : IStepReader
 
     private readonly Dictionary<WaveParameter, float[]> _series = [];   // [station * steps + step]
     private readonly float[][] _products;                                // per product, [station * steps + step]
+    private readonly int[] _monthOfStep;                                 // step -> index into Months
+    private readonly MonthSums[] _monthSums;                             // per index into Months
+    private string? _path;                                               // to read steps again (SpectraOf)
+    private VariableMapping? _mapping;
 
     private IntegratedSpectra(PointSpectraFile file, IReadOnlyList<string> notes)
     {
@@ -31,8 +37,26 @@ public sealed class IntegratedSpectra : IStepReader
         foreach (var parameter in WaveParameterGroups.SeriesFields) _series[parameter] = new float[stations * steps];
         _products = new float[SpectralProducts.Count][];
         for (int k = 0; k < _products.Length; k++) _products[k] = new float[stations * steps];
-        FrequencySpectra = new float[(long)stations * steps * Axes.FrequencyCount];
-        DirectionPowers = new float[(long)stations * steps * Axes.DirectionCount];
+        // One slot per calendar month the file's steps fall in (UTC).
+        _monthOfStep = new int[steps];
+        var months = new List<(int Year, int Month)>();
+        var slots = new Dictionary<(int Year, int Month), int>();
+        for (int t = 0; t < steps; t++)
+        {
+            var month = (TimesUtc[t].Year, TimesUtc[t].Month);
+            if (!slots.TryGetValue(month, out int slot)) { slots[month] = slot = months.Count; months.Add(month); }
+            _monthOfStep[t] = slot;
+        }
+        Months = months;
+        _monthSums = months.Select(_ => new MonthSums(stations, Axes.FrequencyCount, Axes.DirectionCount)).ToArray();
+    }
+
+    /// <summary>Sums over one calendar month of the file's steps with a spectrum, per station: S(f), each direction bin's power, the steps.</summary>
+    private sealed class MonthSums(int stations, int frequencies, int directions)
+    {
+        public readonly double[] Frequency = new double[stations * frequencies];
+        public readonly double[] Direction = new double[stations * directions];
+        public readonly int[] Steps = new int[stations];
     }
 
     public IReadOnlyList<SpectralStation> Stations { get; }
@@ -48,11 +72,42 @@ public sealed class IntegratedSpectra : IStepReader
     /// <summary>What was converted and assumed, in words: the reader's notes and the integration rule.</summary>
     public IReadOnlyList<string> Notes { get; }
 
-    /// <summary>S(f) of every station and step, m^2 s: [(station * steps + step) * frequencies + i].</summary>
-    public float[] FrequencySpectra { get; }
+    /// <summary>The calendar months (UTC) the file's steps fall in, in order.</summary>
+    public IReadOnlyList<(int Year, int Month)> Months { get; }
 
-    /// <summary>Power of each direction bin of every station and step, kW/m: [(station * steps + step) * directions + j].</summary>
-    public float[] DirectionPowers { get; }
+    /// <summary>
+    /// The sums over month <paramref name="month"/> (an index into <see cref="Months"/>) of one station's steps that have
+    /// a spectrum: S(f) in m^2 s, each direction bin's power in kW/m, and the number of steps.
+    /// </summary>
+    public (ReadOnlyMemory<double> Frequency, ReadOnlyMemory<double> Direction, int Steps) MonthSum(int month, int station)
+    {
+        var sums = _monthSums[month];
+        int nf = Axes.FrequencyCount, nd = Axes.DirectionCount;
+        return (sums.Frequency.AsMemory(station * nf, nf), sums.Direction.AsMemory(station * nd, nd), sums.Steps[station]);
+    }
+
+    /// <summary>The month index (into <see cref="Months"/>) of step <paramref name="step"/>.</summary>
+    public int MonthOf(int step) => _monthOfStep[step];
+
+    /// <summary>
+    /// S(f) and the direction bins' power of the given steps of one station, integrated again from the file (for the
+    /// rare steps that another file also gives, whose spectra must not be counted twice in the monthly sums).
+    /// </summary>
+    public IReadOnlyList<(double[] Frequency, double[] Direction)> SpectraOf(int station, IReadOnlyList<int> steps)
+    {
+        var path = _path ?? throw new InvalidOperationException("the file these spectra came from is not known");
+        using var file = PointSpectraFile.Open(path, _mapping);
+        var integrator = new SpectralIntegrator(Axes, Stations[station].DepthMetres);
+        var buffer = new float[(long)Stations.Count * file.ValuesPerSpectrum];
+        var result = new List<(double[], double[])>(steps.Count);
+        foreach (int t in steps)
+        {
+            file.ReadSteps(t, 1, buffer);
+            integrator.Integrate(buffer.AsSpan(station * file.ValuesPerSpectrum, file.ValuesPerSpectrum));
+            result.Add((integrator.FrequencySpectrum.ToArray(), integrator.DirectionPowers.ToArray()));
+        }
+        return result;
+    }
 
     /// <summary>One product of one station, per step.</summary>
     public ReadOnlySpan<float> Product(SpectralProduct product, int station) =>
@@ -63,14 +118,15 @@ public sealed class IntegratedSpectra : IStepReader
         _series[parameter].AsSpan(station * TimesUtc.Count, TimesUtc.Count);
 
     /// <summary>Reads and integrates every step of <paramref name="file"/>.</summary>
-    public static IntegratedSpectra Integrate(PointSpectraFile file)
+    /// <param name="mapping">The mapping the file was opened with, kept to read steps again (<see cref="SpectraOf"/>).</param>
+    public static IntegratedSpectra Integrate(PointSpectraFile file, VariableMapping? mapping = null)
     {
         var notes = file.Notes.Append(
             "per step: Hm0 = 4 sqrt(m0), Te = m-1/m0, Tp = 1/f at the largest density (no fitting between frequencies), " +
             "J = rho g sum cg(f, h) S(f) df with each frequency's group velocity at the station depth (rho 1025 kg/m3, g 9.81 m/s2), " +
             "mean direction and spread from the first circular moment, directionality from the largest directionally resolved power, " +
             "spectral width eps0; frequency integrals by the trapezoidal rule over the given frequencies").ToList();
-        var result = new IntegratedSpectra(file, notes);
+        var result = new IntegratedSpectra(file, notes) { _path = file.Path, _mapping = mapping };
         result.Fill(file);
         return result;
     }
@@ -78,40 +134,67 @@ public sealed class IntegratedSpectra : IStepReader
     private void Fill(PointSpectraFile file)
     {
         int stations = Stations.Count, steps = TimesUtc.Count, perSpectrum = file.ValuesPerSpectrum;
-        int nf = Axes.FrequencyCount, nd = Axes.DirectionCount;
         var integrators = Stations.Select(s => new SpectralIntegrator(Axes, s.DepthMetres)).ToArray();
-        int block = (int)Math.Clamp(BlockValues / Math.Max(1L, (long)stations * perSpectrum), 1, Math.Max(steps, 1));
-        var buffer = new float[(long)block * stations * perSpectrum];
+        // Whole chunks along time, so that a compressed chunk is inflated once and HDF5 copies straight into the buffer.
+        long fit = BlockValues / Math.Max(1L, (long)stations * perSpectrum);
+        int chunk = file.TimeChunkSteps <= Math.Max(fit, 1) * 8 ? Math.Max(1, file.TimeChunkSteps) : 1;   // chunks far longer than a block: not aligned
+        int block = (int)Math.Clamp(Math.Max(chunk, fit / chunk * chunk), 1, Math.Max(steps, 1));
+        // Two buffers: the file reads the next block (netCDF calls stay on one thread at a time) while this one is integrated.
+        int length = checked(block * stations * perSpectrum);
+        var buffers = new[] { ArrayPool<float>.Shared.Rent(length), ArrayPool<float>.Shared.Rent(length) };
+        Task? reading = steps > 0 ? Task.Run(() => file.ReadSteps(0, Math.Min(block, steps), buffers[0])) : null;
+        try
+        {
+            for (int t0 = 0, turn = 0; t0 < steps; t0 += block, turn ^= 1)
+            {
+                int n = Math.Min(block, steps - t0);
+                reading!.GetAwaiter().GetResult();
+                var buffer = buffers[turn];
+                int next = t0 + block, nextCount = Math.Min(block, steps - next);
+                var nextBuffer = buffers[turn ^ 1];
+                reading = next < steps ? Task.Run(() => file.ReadSteps(next, nextCount, nextBuffer)) : Task.CompletedTask;
+                Parallel.For(0, stations, s => IntegrateStation(integrators[s], s, t0, n, buffer, perSpectrum));
+            }
+        }
+        finally
+        {
+            // A read still under way ends before the file can be closed (and its buffer returned).
+            try { reading?.Wait(); } catch (AggregateException) { }
+            foreach (var buffer in buffers) ArrayPool<float>.Shared.Return(buffer);
+        }
+    }
+
+    /// <summary>Integrates steps t0..t0+n of station <paramref name="s"/> from a block laid out [step][station][values].</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
+    private void IntegrateStation(SpectralIntegrator integrator, int s, int t0, int n, float[] buffer, int perSpectrum)
+    {
+        int stations = Stations.Count, steps = TimesUtc.Count, nf = Axes.FrequencyCount, nd = Axes.DirectionCount;
         var hs = _series[WaveParameter.Hs]; var te = _series[WaveParameter.Te]; var tp = _series[WaveParameter.Tp];
         var dir = _series[WaveParameter.Dir]; var spread = _series[WaveParameter.Spread];
-        for (int t0 = 0; t0 < steps; t0 += block)
+        for (int k = 0; k < n; k++)
         {
-            int n = Math.Min(block, steps - t0);
-            file.ReadSteps(t0, n, buffer);
-            Parallel.For(0, stations, s =>
-            {
-                var integrator = integrators[s];
-                for (int k = 0; k < n; k++)
-                {
-                    int t = t0 + k;
-                    var state = integrator.Integrate(buffer.AsSpan((k * stations + s) * perSpectrum, perSpectrum));
-                    int at = s * steps + t;
-                    hs[at] = (float)state.Hm0;
-                    te[at] = (float)state.EnergyPeriod;
-                    tp[at] = (float)state.PeakPeriod;
-                    dir[at] = (float)state.MeanDirectionFrom;
-                    spread[at] = (float)state.DirectionalSpread;
-                    _products[(int)SpectralProduct.Power][at] = (float)state.Power;
-                    _products[(int)SpectralProduct.ParametricPower][at] = (float)state.ParametricPower;
-                    _products[(int)SpectralProduct.Directionality][at] = (float)state.Directionality;
-                    _products[(int)SpectralProduct.MaximumPowerFrom][at] = (float)state.MaximumPowerFrom;
-                    _products[(int)SpectralProduct.SpectralWidth][at] = (float)state.SpectralWidth;
-                    var spectrum = integrator.FrequencySpectrum;
-                    for (int i = 0; i < nf; i++) FrequencySpectra[(long)at * nf + i] = (float)spectrum[i];
-                    var powers = integrator.DirectionPowers;
-                    for (int j = 0; j < nd; j++) DirectionPowers[(long)at * nd + j] = (float)powers[j];
-                }
-            });
+            int t = t0 + k;
+            var state = integrator.Integrate(buffer.AsSpan((k * stations + s) * perSpectrum, perSpectrum));
+            int at = s * steps + t;
+            hs[at] = (float)state.Hm0;
+            te[at] = (float)state.EnergyPeriod;
+            tp[at] = (float)state.PeakPeriod;
+            dir[at] = (float)state.MeanDirectionFrom;
+            spread[at] = (float)state.DirectionalSpread;
+            _products[(int)SpectralProduct.Power][at] = (float)state.Power;
+            _products[(int)SpectralProduct.ParametricPower][at] = (float)state.ParametricPower;
+            _products[(int)SpectralProduct.Directionality][at] = (float)state.Directionality;
+            _products[(int)SpectralProduct.MaximumPowerFrom][at] = (float)state.MaximumPowerFrom;
+            _products[(int)SpectralProduct.SpectralWidth][at] = (float)state.SpectralWidth;
+            if (float.IsNaN(hs[at])) continue;
+            var sums = _monthSums[_monthOfStep[t]];
+            var spectrum = integrator.FrequencySpectrum;
+            var frequency = sums.Frequency.AsSpan(s * nf, nf);
+            for (int i = 0; i < nf; i++) frequency[i] += spectrum[i];
+            var powers = integrator.DirectionPowers;
+            var direction = sums.Direction.AsSpan(s * nd, nd);
+            for (int j = 0; j < nd; j++) direction[j] += powers[j];
+            sums.Steps[s]++;
         }
     }
 

@@ -38,54 +38,90 @@ public static class SpectralProductWriter
 
         int stations = plan.Grid.PointCount;
         var stored = plan.CreatesDataset ? [] : await StationSpectraStore.ReadStepsAsync(connection, transaction, datasetId, plan.Years, null, cancel);
-        var records = new List<StationStepRecord>();
-        var sums = new Dictionary<(int Station, int Year, int Month), StationMonthSums>();
         int nf = axes.FrequencyCount, nd = axes.DirectionCount;
+
+        // Per station-year, the products on the year's merged time line: what was stored before, then each file's steps.
+        var values = new Dictionary<(int Station, int Year), float[][]>();
         foreach (int year in plan.Years)
         {
             var line = plan.MergedTimelines[year];
             var before = plan.StoredTimelines.GetValueOrDefault(year, []);
             for (int s = 0; s < stations; s++)
             {
-                var values = new float[SpectralProducts.Count][];
-                for (int k = 0; k < values.Length; k++) { values[k] = new float[line.Length]; Array.Fill(values[k], float.NaN); }
+                var products = new float[SpectralProducts.Count][];
+                for (int k = 0; k < products.Length; k++) { products[k] = new float[line.Length]; Array.Fill(products[k], float.NaN); }
                 if (stored.TryGetValue((s, year), out var old))
                 {
                     float[][] previous = [old.PowerSpectral, old.PowerParametric, old.Directionality, old.MaximumPowerFrom, old.SpectralWidth];
                     for (int t = 0; t < before.Length && t < previous[0].Length; t++)
                     {
                         int at = Array.BinarySearch(line, before[t]);
-                        for (int k = 0; k < values.Length; k++) values[k][at] = previous[k][t];
+                        for (int k = 0; k < products.Length; k++) products[k][at] = previous[k][t];
                     }
                 }
-                var counted = new HashSet<long>(before);
-                foreach (var file in files)
-                {
-                    var spectra = file.Spectra!;
-                    int steps = file.Times.Length;
-                    for (int t = 0; t < steps; t++)
-                    {
-                        long time = file.Times[t];
-                        if (YearTimeline.YearOf(time) != year) continue;
-                        int at = Array.BinarySearch(line, time);
-                        foreach (var product in SpectralProducts.All) values[(int)product][at] = spectra.Product(product, s)[t];
-                        if (!counted.Add(time) || float.IsNaN(spectra.Series(WaveParameter.Hs, s)[t])) continue;
-                        int month = DateTimeOffset.FromUnixTimeSeconds(time).Month;
-                        if (!sums.TryGetValue((s, year, month), out var sum))
-                            sums[(s, year, month)] = sum = new StationMonthSums(s, year, month, 0, new double[nf], new double[nd]);
-                        long row = (long)s * steps + t;
-                        for (int i = 0; i < nf; i++) sum.FrequencySum[i] += spectra.FrequencySpectra[row * nf + i];
-                        for (int j = 0; j < nd; j++) sum.DirectionSum[j] += spectra.DirectionPowers[row * nd + j];
-                        sums[(s, year, month)] = sum with { Steps = sum.Steps + 1 };
-                    }
-                }
-                records.Add(new StationStepRecord(s, year, values[0], values[1], values[2], values[3], values[4]));
+                values[(s, year)] = products;
             }
         }
+
+        // Monthly sums count each step once: not when stored before, nor when an earlier file (or step) gave it already.
+        // Each file summed its months as it was integrated; the spectra of a step counted elsewhere are taken out again.
+        var counted = new HashSet<long>(plan.StoredTimelines.Values.SelectMany(line => line));
+        var sums = new Dictionary<(int Station, int Year, int Month), (double[] Frequency, double[] Direction, int[] Steps)>();
+        foreach (var file in files)
+        {
+            var spectra = file.Spectra!;
+            int steps = file.Times.Length;
+            var repeated = new List<int>();
+            for (int t = 0; t < steps; t++)
+            {
+                long time = file.Times[t];
+                int year = YearTimeline.YearOf(time);
+                int at = Array.BinarySearch(plan.MergedTimelines[year], time);
+                if (!counted.Add(time)) repeated.Add(t);
+                for (int s = 0; s < stations; s++)
+                {
+                    var products = values[(s, year)];
+                    foreach (var product in SpectralProducts.All) products[(int)product][at] = spectra.Product(product, s)[t];
+                }
+            }
+            for (int s = 0; s < stations; s++)
+            {
+                for (int m = 0; m < spectra.Months.Count; m++)
+                {
+                    var (year, month) = spectra.Months[m];
+                    var (frequency, direction, count) = spectra.MonthSum(m, s);
+                    if (!sums.TryGetValue((s, year, month), out var sum))
+                        sums[(s, year, month)] = sum = (new double[nf], new double[nd], new int[1]);
+                    Add(sum.Frequency, frequency.Span, 1);
+                    Add(sum.Direction, direction.Span, 1);
+                    sum.Steps[0] += count;
+                }
+                var hs = spectra.Series(WaveParameter.Hs, s);
+                var again = new List<int>();
+                foreach (int t in repeated) if (!float.IsNaN(hs[t])) again.Add(t);
+                if (again.Count == 0) continue;
+                var twice = spectra.SpectraOf(s, again);
+                for (int k = 0; k < again.Count; k++)
+                {
+                    var (year, month) = spectra.Months[spectra.MonthOf(again[k])];
+                    var sum = sums[(s, year, month)];
+                    Add(sum.Frequency, twice[k].Frequency, -1);
+                    Add(sum.Direction, twice[k].Direction, -1);
+                    sum.Steps[0]--;
+                }
+            }
+        }
+        var records = values.Select(v => new StationStepRecord(v.Key.Station, v.Key.Year, v.Value[0], v.Value[1], v.Value[2], v.Value[3], v.Value[4])).ToList();
+        var monthSums = sums.Select(m => new StationMonthSums(m.Key.Station, m.Key.Year, m.Key.Month, m.Value.Steps[0], m.Value.Frequency, m.Value.Direction)).ToList();
         await StationSpectraStore.UpsertStepsAsync(connection, transaction, datasetId, records, cancel);
-        await StationSpectraStore.AddMonthSumsAsync(connection, transaction, datasetId, sums.Values, cancel);
+        await StationSpectraStore.AddMonthSumsAsync(connection, transaction, datasetId, monthSums, cancel);
         await DatasetStore.MergeMetadataAsync(connection, transaction, datasetId, metadata.ToJsonString(), cancel);
         return files.SelectMany(f => f.Spectra!.Notes).Distinct().ToList();
+    }
+
+    private static void Add(double[] into, ReadOnlySpan<double> values, int sign)
+    {
+        for (int i = 0; i < values.Length; i++) into[i] += sign * values[i];
     }
 
     /// <summary>The metadata under "spectra"; the axes must equal those stored by an earlier ingest of the dataset.</summary>

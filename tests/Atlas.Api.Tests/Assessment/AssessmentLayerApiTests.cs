@@ -40,11 +40,13 @@ public sealed class AssessmentLayerApiTests(AtlasApiFixture atlas)
     public async Task YieldLayerCsvAndGeoJsonCarryEveryWetCellAndTheProvenance()
     {
         await YieldApiTests.EnsureDeviceAsync(atlas, "Test Absorber", YieldApiTests.AbsorberCsv());
-        var csv = await _client.GetStringAsync($"{Layers}/yield/test-absorber.csv");
-        var lines = csv.Split('\n', StringSplitOptions.RemoveEmptyEntries);
-        Assert.Contains(lines, l => l.StartsWith("# source_file: " + SyntheticAtlas.SourceFileName, StringComparison.Ordinal));
-        Assert.Contains(lines, l => l == "# caution: " + Atlas.Api.Model.AtlasCaution.Text);
-        var rows = lines.SkipWhile(l => l.StartsWith('#')).ToArray();
+        // GDAL, pandas and the CSVW structure: see CsvDownloadCheck.
+        var download = await CsvDownloadCheck.AssertAsync(_client, $"{Layers}/yield/test-absorber.csv");
+        Assert.Contains(SyntheticAtlas.SourceFileName, CsvDownloadCheck.SourceFiles(download.Metadata));
+        Assert.Contains(Atlas.Api.Model.AtlasCaution.Text, CsvDownloadCheck.Notes(download.Metadata));
+        Assert.Equal("MWh/yr", CsvDownloadCheck.Unit(download.Metadata, "annual_energy_mwh"));
+        Assert.EndsWith("/yield/test-absorber.csv-metadata.json", download.MetadataUrl);
+        var rows = download.Csv.Split("\r\n", StringSplitOptions.RemoveEmptyEntries);
         Assert.Equal("cell_id,lon,lat,annual_energy_mwh,capacity_factor,outside_matrix_fraction,mean_power_kw", rows[0]);
         Assert.Equal(SyntheticAtlas.FirstDryColumn * SyntheticAtlas.Ny, rows.Length - 1);
 

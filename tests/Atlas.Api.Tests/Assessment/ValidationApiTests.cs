@@ -68,7 +68,8 @@ public sealed class ValidationApiTests(AtlasApiFixture atlas)
     public async Task SkillAgreesWithNumPyOnTheServedPairs()
     {
         await OffsetBuoyAsync();
-        var csv = await _client.GetStringAsync($"{Coast}/validation/offset-buoy/pairs?format=csv");
+        // The pairs CSV opens as it is (GDAL, pandas, its CSVW metadata: see CsvDownloadCheck).
+        var csv = (await CsvDownloadCheck.AssertAsync(_client, $"{Coast}/validation/offset-buoy/pairs?format=csv")).Csv;
         var path = ExternalTool.TempFile(".csv");
         await File.WriteAllTextAsync(path, csv);
         var numpy = JsonDocument.Parse(ExternalTool.Run(ExternalTool.Python,
@@ -144,15 +145,14 @@ public sealed class ValidationApiTests(AtlasApiFixture atlas)
     }
 
     [Fact]
-    public async Task ValidationCsvGivesARowPerStationVariableAndGroupAfterTheProvenance()
+    public async Task ValidationCsvGivesARowPerStationVariableAndGroupWithTheProvenanceInItsMetadata()
     {
         await OffsetBuoyAsync();
-        var response = await _client.GetAsync($"{Coast}/validation?station=offset-buoy&format=csv");
-        Assert.Equal("text/csv", response.Content.Headers.ContentType?.MediaType);
-        var lines = (await response.Content.ReadAsStringAsync()).Split('\n', StringSplitOptions.RemoveEmptyEntries);
-        Assert.Contains(lines, l => l == "# caution: " + Atlas.Api.Model.AtlasCaution.Text);
-        Assert.Contains(lines, l => l.StartsWith("# source_file: " + SyntheticAtlas.SourceFileName, StringComparison.Ordinal));
-        var data = lines.SkipWhile(l => l.StartsWith('#')).ToArray();
+        // GDAL, pandas and the CSVW structure: see CsvDownloadCheck.
+        var download = await CsvDownloadCheck.AssertAsync(_client, $"{Coast}/validation?station=offset-buoy&format=csv");
+        Assert.Contains(Atlas.Api.Model.AtlasCaution.Text, CsvDownloadCheck.Notes(download.Metadata));
+        Assert.Contains(SyntheticAtlas.SourceFileName, CsvDownloadCheck.SourceFiles(download.Metadata));
+        var data = download.Csv.Split("\r\n", StringSplitOptions.RemoveEmptyEntries);
         Assert.Equal("station,role,independent,cell_id,distance_m,variable,group,n,mean_observed,mean_modelled,bias,rmse,scatter_index,pearson_r,symmetric_slope", data[0]);
         // hs only (the record has no period or direction): overall, four seasons, five Hs classes.
         Assert.Equal(10, data.Length - 1);
@@ -287,7 +287,8 @@ public sealed class ValidationApiTests(AtlasApiFixture atlas)
         // ... and the head of the assessment downloads of that dataset (once the server's few-second row cache lets go,
         // which the test does at once rather than wait).
         atlas.Factory.Services.GetRequiredService<Atlas.Api.Catalog.DatasetCatalog>().Forget(AssessmentAtlas.ScaledSlug);
-        var csv = await _client.GetStringAsync($"/api/v1/datasets/{AssessmentAtlas.ScaledSlug}/layers/accessibility.csv?hs_max=2");
-        Assert.Contains(string.Create(CultureInfo.InvariantCulture, $"# validation: Offset Buoy (validation): hs N={expected.N}, bias={expected.Bias:0.###} m"), csv);
+        var download = await CsvDownloadCheck.AssertAsync(_client, $"/api/v1/datasets/{AssessmentAtlas.ScaledSlug}/layers/accessibility.csv?hs_max=2");
+        Assert.Contains(string.Create(CultureInfo.InvariantCulture, $"Validation: Offset Buoy (validation): hs N={expected.N}, bias={expected.Bias:0.###} m"),
+            CsvDownloadCheck.Notes(download.Metadata));
     }
 }

@@ -2,7 +2,7 @@
 bias = mean(model - observed); RMSE; scatter index = RMSE / mean(observed); Pearson r (numpy.corrcoef);
 symmetric slope = sqrt(sum(model^2) / sum(observed^2)).
 
-usage: skill_reference.py PAIRS.csv  (the pairs endpoint's CSV: '#' lines, then time,observed,modelled)
+usage: skill_reference.py PAIRS.csv  (the pairs endpoint's CSV: the header time,observed,modelled, then the pairs)
 prints one JSON object.
 """
 import json

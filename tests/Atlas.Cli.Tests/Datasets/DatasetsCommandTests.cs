@@ -74,6 +74,9 @@ public class DatasetsCommandTests(TwoDatasets data) : IClassFixture<TwoDatasets>
         Assert.Contains($"{N(computed)} of {N(wet)} wet cells computed", output);
         Assert.Contains($"method version {Atlas.Statistics.MethodNotes.Version} ", output);
         Assert.Contains("options: Hs thresholds ", output);
+        // Options in words, never a code identifier such as the spectrum's enum member.
+        Assert.Contains("Te from Tp where Te is absent: JONSWAP spectrum with peak enhancement 3.3", output);
+        Assert.DoesNotMatch(@"\b[A-Z][a-z]+[A-Z][A-Za-z]*\d*\b", output.Split('\n').Single(l => l.Contains("options: Hs thresholds ", StringComparison.Ordinal)));
         foreach (var job in await new JobQueue(data.Database.DataSource).ForDatasetAsync(TwoDatasets.Demo))
             Assert.Contains($"job {job.Id}  {JobQueue.KindName(job.Kind)}  done", output);
     }
