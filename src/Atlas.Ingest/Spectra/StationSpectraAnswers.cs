@@ -90,10 +90,12 @@ public sealed class StationSpectraAnswers(NpgsqlDataSource dataSource, StationSp
     /// summaries alone), the pooled spectral width and the period spectra from the monthly sums.
     /// </summary>
     /// <param name="calendarOf">The calendar of the steps' times, from a caller that keeps recent ones (built afresh when null).</param>
-    public SpectralPointAnswer Answer(DatasetRecord dataset, OutputPointRecord record, double lat, double lon, double? depth, double? distanceKm,
+    /// <returns>The answer; null when no stored year of the point is inside the window's years (as when none is read).</returns>
+    public SpectralPointAnswer? Answer(DatasetRecord dataset, OutputPointRecord record, double lat, double lon, double? depth, double? distanceKm,
         AnalysisWindow window, Func<ReadOnlySpan<long>, TimelineCalendar>? calendarOf = null)
     {
         var range = record.StepsOf(window.FirstYear, window.LastYear);
+        if (range.Start.Value == range.End.Value) return null;
         var s = record.Series;
         var times = s.Times.AsSpan(range);
         var cell = new CellSeries
