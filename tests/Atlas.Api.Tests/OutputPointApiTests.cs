@@ -101,6 +101,28 @@ public sealed class OutputPointApiTests : IAsyncLifetime
 
     // The site report of a gridded cell prints the nearest output point's spectral values, read back by poppler's pdftotext
     // (an outside reader): the same station and the same annual means as the point answer's JSON, at the printed precision.
+    // The output points beside a gridded dataset are found from the catalogue kept in memory until its stamp moves: points
+    // loaded after the server started join the gridded answers, and leave them when removed, without a restart (the
+    // answer asked for again as the stamp is read afresh, a couple of seconds at most).
+    [Fact]
+    public async Task OutputPointsLoadedOrRemovedLaterJoinOrLeaveTheGriddedAnswers()
+    {
+        var client = _factory.CreateClient();
+        var folder = Path.GetDirectoryName(_points)!;
+        await new HindcastIngestor(_database.DataSource).RunAsync(new IngestRequest("grid-later", [Path.Combine(folder, "grid.nc")]));
+        const string url = "/api/v1/datasets/grid-later/point?lat=50.3&lon=-19.6&include=none";
+        static async Task<JsonElement> SpectralAsync(HttpClient client) =>
+            JsonDocument.Parse(await client.GetStringAsync(url)).RootElement.GetProperty("spectral");
+        Assert.Equal(JsonValueKind.Null, (await SpectralAsync(client)).ValueKind);
+
+        await new HindcastIngestor(_database.DataSource).RunAsync(new IngestRequest("points-later", [_points]) { GridDataset = "grid-later" });
+        var joined = await Patience.UntilAsync(() => SpectralAsync(client), s => s.ValueKind == JsonValueKind.Object, "the new output points in the answer");
+        Assert.Equal("points-later", joined.GetProperty("dataset").GetString());
+
+        await new Atlas.Storage.Datasets.DatasetStore(_database.DataSource).DeleteAsync("points-later");
+        await Patience.UntilAsync(() => SpectralAsync(client), s => s.ValueKind == JsonValueKind.Null, "the removed output points gone from the answer");
+    }
+
     [Fact]
     public async Task TheSiteReportPrintsTheNearestOutputPointsSpectralValues()
     {
