@@ -85,6 +85,25 @@ public sealed class OutputPointApiTests : IAsyncLifetime
         Assert.Equal(24, annualSpectral.GetProperty("direction_power").GetArrayLength());
     }
 
+    // The statistics pass of output points stores the period directionality from the spectra: the d layer (CSV, read as
+    // plain text) equals the point answer's, which the test above holds against the NumPy script's direction powers.
+    [Fact]
+    public async Task TheDirectionalityLayerOfOutputPointsComesFromTheSpectra()
+    {
+        await new Atlas.Ingest.Statistics.StatisticsService(_database.DataSource).RunAsync("points", all: true);
+        var client = _factory.CreateClient();
+        var text = await client.GetStringAsync("/api/v1/datasets/points/layers/d/mean/annual.csv");
+        var csv = text.Split('\n').Select(l => l.TrimEnd('\r')).Where(l => l.Length > 0).ToArray();
+        Assert.True(csv.Length == 4, text);
+        var header = csv[0].Split(',');
+        var valueColumn = Array.IndexOf(header, "value");
+        var lonColumn = Array.IndexOf(header, "lon");
+        var row = csv.Skip(1).Select(l => l.Split(',')).Single(c => Math.Abs(double.Parse(c[lonColumn], System.Globalization.CultureInfo.InvariantCulture) + 19.71) < 0.001);
+        var root = JsonDocument.Parse(await client.GetStringAsync("/api/v1/datasets/points/point?lat=50.21&lon=-19.71&include=none")).RootElement;
+        double expected = Period(root.GetProperty("periods"), "annual").GetProperty("direction").GetProperty("directionality_coefficient").GetDouble();
+        Assert.Equal(expected, double.Parse(row[valueColumn], System.Globalization.CultureInfo.InvariantCulture), 1e-6);
+    }
+
     [Fact]
     public async Task TheGriddedDatasetAddsTheNearestOutputPointAndItsDistance()
     {

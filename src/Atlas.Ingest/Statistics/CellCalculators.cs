@@ -14,6 +14,12 @@ public sealed record CellResult(int CellId, List<StatisticRow> Rows);
 /// </summary>
 public sealed class CellCalculators(StatisticsOptions options, long[] times, int workers)
 {
+    /// <summary>
+    /// At output points of spectra: each (cell, period)'s directionality coefficient from the period-mean directionally
+    /// resolved power of its spectra, which replaces the one modelled from direction and spread in the stored d row.
+    /// </summary>
+    public IReadOnlyDictionary<(int Cell, AtlasPeriod Period), double>? SpectralDirectionality { get; init; }
+
     /// <summary>The running workers; started by <see cref="Start"/>.</summary>
     public Task[] Workers { get; private set; } = [];
 
@@ -32,6 +38,10 @@ public sealed class CellCalculators(StatisticsOptions options, long[] times, int
         {
             var rows = new List<StatisticRow>(160);
             StatisticRows.Append(buffer.CellId, calculator.Compute(buffer.AsSeries(times)), rows);
+            if (SpectralDirectionality is { } spectral)
+                for (int k = 0; k < rows.Count; k++)
+                    if (rows[k].Parameter == WaveParameter.D && spectral.TryGetValue((buffer.CellId, rows[k].Period), out double d))
+                        rows[k] = rows[k] with { Mean = double.IsFinite(d) ? (float)d : null };
             var cellId = buffer.CellId;
             free.TryWrite(buffer);
             await results.WriteAsync(new CellResult(cellId, rows), cancel);

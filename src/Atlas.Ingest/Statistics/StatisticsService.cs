@@ -4,6 +4,8 @@ using System.Threading.Channels;
 using Atlas.Ingest.Ingestion;
 using Atlas.Ingest.Progress;
 using Atlas.Statistics;
+using Atlas.Statistics.Calendar;
+using Atlas.Statistics.Spectral;
 using Atlas.Storage.Cells;
 using Atlas.Storage.Datasets;
 using Atlas.Storage.Passes;
@@ -98,7 +100,10 @@ public sealed class StatisticsService(NpgsqlDataSource dataSource, StatisticsOpt
             SpectralPower = await SpectralPowerAsync(datasetId, cancel),
         };
         var produced = Task.Run(() => producer.RunAsync(free.Reader, work.Writer, token), token);
-        var calculators = new CellCalculators(_options, timeline.Times, workers);
+        var calculators = new CellCalculators(_options, timeline.Times, workers)
+        {
+            SpectralDirectionality = await SpectralDirectionalityAsync(datasetId, targets, timeline, cancel),
+        };
         var calculated = calculators.Start(work.Reader, free.Writer, results.Writer, token);
         var writer = new StatisticBatchWriter(store, targets.Length, progress, clock);
         var written = writer.Start(batches.Reader, WriterConnections, linked);
@@ -132,6 +137,32 @@ public sealed class StatisticsService(NpgsqlDataSource dataSource, StatisticsOpt
         await using var connection = await dataSource.OpenConnectionAsync(cancel);
         var steps = await Atlas.Storage.Spectra.StationSpectraStore.ReadStepsAsync(connection, null, datasetId, null, null, cancel);
         return steps.Count == 0 ? null : steps.ToDictionary(kv => kv.Key, kv => kv.Value.PowerSpectral);
+    }
+
+    /// <summary>
+    /// For a dataset of output points: the directionality coefficient of every period of every target station from its
+    /// period-mean directionally resolved power (the monthly sums of its spectra, month-balanced like every period mean;
+    /// IEC TS 62600-101), which replaces the one modelled from direction and spread; null for gridded fields.
+    /// </summary>
+    private async Task<IReadOnlyDictionary<(int Cell, AtlasPeriod Period), double>?> SpectralDirectionalityAsync(int datasetId, int[] targets,
+        DatasetTimeline timeline, CancellationToken cancel)
+    {
+        var dataset = await new DatasetStore(dataSource).FindByIdAsync(datasetId, cancel);
+        if (dataset?.GridKind != Spectra.StationSpectraAnswers.StationsKind) return null;
+        if (JsonNode.Parse(dataset.MetadataJson)?["spectra"]?["directions_from_deg"] is not JsonArray bins || bins.Count == 0) return null;
+        var directions = bins.Select(v => v!.GetValue<double>()).ToArray();
+        var years = timeline.Times.Select(t => DateTimeOffset.FromUnixTimeSeconds(t).Year).Distinct().Select(AtlasPeriod.Year);
+        var periods = AtlasPeriod.StandardPeriods.Concat(years).ToList();
+        var store = new Atlas.Storage.Spectra.StationSpectraStore(dataSource);
+        var result = new Dictionary<(int, AtlasPeriod), double>();
+        foreach (int cell in targets)
+        {
+            var months = (await store.MonthSumsAsync(datasetId, cell, cancel))
+                .Select(m => new MonthSpectrum(m.Year, m.Month, m.Steps, m.FrequencySum, m.DirectionSum)).ToList();
+            foreach (var period in PeriodSpectra.Of(months, periods, new AnalysisWindow(null, null, null), directions))
+                result[(cell, period.Period)] = period.DirectionalityCoefficient;
+        }
+        return result;
     }
 
     private static StatisticsOptions Checked(StatisticsOptions options)
@@ -168,13 +199,16 @@ public sealed class StatisticsService(NpgsqlDataSource dataSource, StatisticsOpt
                 ["power"] = outputPoints
                     ? "omnidirectional power per time step integrated from the output point's spectrum, J = rho g sum cg(f, h) S(f) df with each " +
                       "frequency's group velocity at the station depth (trapezoidal rule over the given frequencies; rho 1025 kg/m3, g 9.81 m/s2), " +
-                      "then averaged. The point answers give the power from Hm0 and Te beside it and the directionality from the period-mean " +
-                      "J_theta of the spectra; the directionality of these layers models each step's spreading from its spread, as for gridded fields"
+                      "then averaged. The point answers give the power from Hm0 and Te beside it. The directionality coefficient of every period, " +
+                      "in the layers and the point answers alike, is the largest period-mean J_theta of the spectra over the period-mean J (monthly " +
+                      "sums of each direction bin's power, month-balanced)"
                     : "omnidirectional power per time step from Hm0 and Te with the linear-theory group velocity at Te and the cell depth " +
                       "(rho 1025 kg/m3, g 9.81 m/s2; deep water where the depth is unknown), then averaged; never from mean Hs and mean Te",
                 ["energy_period"] = $"Te from the source; where absent, assumed from Tp for the {Atlas.Statistics.MethodNotes.AssumedSpectrum(_options.AssumedSpectrum)}",
                 ["direction"] = "power-weighted circular mean of the direction waves come from; 16-sector power rose",
-                ["directionality"] = Atlas.Statistics.MethodNotes.Directionality,
+                ["directionality"] = outputPoints
+                    ? "from the spectra: the largest period-mean directionally resolved power J_theta over the period-mean power (IEC TS 62600-101)"
+                    : Atlas.Statistics.MethodNotes.Directionality,
                 ["percentiles_layers"] = $"from fixed-bin histograms: Hs {_options.HsBinning.BinWidth} m, Te/Tp {_options.PeriodBinning.BinWidth} s, " +
                                          $"J {_options.PowerBinning.BinWidth} kW/m, spread {_options.SpreadBinning.BinWidth} degree",
                 ["percentiles_points"] = "exact, from the stored series (linear interpolation between order statistics, NumPy's default)",

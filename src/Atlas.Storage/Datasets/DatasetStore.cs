@@ -14,6 +14,14 @@ public sealed class DatasetStore(NpgsqlDataSource dataSource)
         return await ReadAllAsync(command, cancel);
     }
 
+    public async Task<DatasetRecord?> FindByIdAsync(int id, CancellationToken cancel = default)
+    {
+        await using var command = dataSource.CreateCommand($"SELECT {Columns} FROM dataset WHERE dataset_id = $1");
+        command.Parameters.AddWithValue(id);
+        var rows = await ReadAllAsync(command, cancel);
+        return rows.Count == 0 ? null : rows[0];
+    }
+
     public async Task<DatasetRecord?> FindAsync(string slug, CancellationToken cancel = default)
     {
         await using var command = dataSource.CreateCommand($"SELECT {Columns} FROM dataset WHERE slug = $1");
