@@ -160,6 +160,21 @@ public sealed class OutputPointApiTests : IAsyncLifetime
         Assert.Contains(Printed("directionality_coefficient", 3), text);
     }
 
+    // The site report of an output point itself, read back by pdftotext: its own spectral values, not a neighbour's.
+    [Fact]
+    public async Task TheSiteReportOfAnOutputPointPrintsItsOwnSpectralValues()
+    {
+        var client = _factory.CreateClient();
+        var response = await client.GetAsync("/api/v1/datasets/points/point/report.pdf?lat=50.21&lon=-19.71");
+        Assert.True(response.IsSuccessStatusCode, await response.Content.ReadAsStringAsync());
+        var text = new PopplerReport(await response.Content.ReadAsByteArrayAsync(), "site-report-at-output-point").Flat();
+        Assert.Contains("This site is the output point Cobble Shelf", text);
+        Assert.Contains("J integrated from the output point's spectrum at every step", text);
+        var answer = JsonDocument.Parse(await client.GetStringAsync("/api/v1/datasets/points/point?lat=50.21&lon=-19.71&include=none")).RootElement;
+        var annual = Period(answer.GetProperty("spectral").GetProperty("periods"), "annual");
+        Assert.Contains(annual.GetProperty("mean_power_spectral").GetDouble().ToString("F1", System.Globalization.CultureInfo.InvariantCulture), text);
+    }
+
     // The series at an output point: j is the power integrated from the spectra (the script's NumPy/SciPy values, to the
     // 3 decimals written), followed by the spectral values; the NetCDF form read back by netCDF4-python (a reader the project
     // did not write) holds the same numbers as the JSON form.

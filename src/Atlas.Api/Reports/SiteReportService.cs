@@ -8,7 +8,7 @@ namespace Atlas.Api.Reports;
 /// anything is written.
 /// </summary>
 public sealed class SiteReportService(PointLocator locator, DatasetCatalog catalog, PointStatisticsService statistics, PointAssessments assessments,
-    ValidationService validation, DryCellLand land, CellFootprints footprints, StatisticsOptions statisticsOptions)
+    ValidationService validation, DryCellLand land, CellFootprints footprints, StatisticsOptions statisticsOptions, OutputPointRecords outputPointRecords)
 {
     /// <summary>The report's content, or the problem (unknown dataset or device, a position off the sea cells, no steps in the window).</summary>
     public async Task<(SiteReportContent? Content, ProblemHttpResult? Problem)> GatherAsync(SiteReportRequest request, CancellationToken cancel)
@@ -40,13 +40,27 @@ public sealed class SiteReportService(PointLocator locator, DatasetCatalog catal
             if (yield is null) return (null, problem);
         }
 
-        // Power per step as the series endpoint derives it (Te from Tp for the assumed spectrum where Te is not stored).
+        // Power per step as the series endpoint derives it (Te from Tp for the assumed spectrum where Te is not stored);
+        // at an output point, the power integrated from its spectra, as its statistics use.
         var (_, power, _) = context.Series.Derived(statisticsOptions.AssumedSpectrum);
-        var series = new PointTimeSeries(context.Series.Times, [.. context.Series.Hs.Select(v => (double)v)], [.. power.Select(v => (double)v)]);
+        double[] j = [.. power.Select(v => (double)v)];
+        if (analysis.AtOutputPoint && await outputPointRecords.ForAsync(point.Dataset, point.Nearest.Cell, cancel) is { } record)
+            SpectralPower(record, context.Series.Times, j);
+        var series = new PointTimeSeries(context.Series.Times, [.. context.Series.Hs.Select(v => (double)v)], j);
         var dryCells = await land.ForAsync(point.Dataset, cancel);
         var extent = GridOutline.Of((await footprints.ForAsync(point.Dataset, cancel)).Values, dryCells, (await catalog.ExtentAsync(point.Dataset, cancel))!.Value);
         return (new SiteReportContent(request, pointStatistics, windows, extremes, yield, series, await NearestStationAsync(point, cancel),
             dryCells, extent, pointStatistics.Provenance.GeneratedAtUtc), null);
+    }
+
+    /// <summary>Puts the output point's spectral power of each of <paramref name="times"/> into <paramref name="power"/>.</summary>
+    private static void SpectralPower(OutputPointRecord record, ReadOnlySpan<long> times, double[] power)
+    {
+        var spectral = record.Steps[SpectralProduct.Power];
+        var index = new Dictionary<long, int>(record.Series.Times.Length);
+        for (int i = 0; i < record.Series.Times.Length; i++) index[record.Series.Times[i]] = i;
+        for (int k = 0; k < times.Length; k++)
+            power[k] = index.TryGetValue(times[k], out int i) && i < spectral.Length ? spectral[i] : double.NaN;
     }
 
     /// <summary>The PDF of gathered content.</summary>

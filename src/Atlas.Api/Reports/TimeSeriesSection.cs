@@ -48,7 +48,8 @@ public sealed class TimeSeriesSection(SiteReportContent content) : IReportSectio
         ReportCharts.Draw(page, j, SKRect.Create(ReportPage.Margin, top + 300, ReportPage.ContentWidth, 250));
         page.Y = top + 560;
         page.Paragraph($"{series.Times.Count.ToString("N0", CultureInfo.InvariantCulture)} time steps of the cell's stored series (whole years of the window); " +
-            "J computed at every step at the cell depth. The measured values are those matched to the hindcast at the station's own nearest wet cell. " +
+            (content.Statistics.PowerFrom == "spectra" ? "J integrated from the output point's spectrum at every step. " : "J computed at every step at the cell depth. ") +
+            "The measured values are those matched to the hindcast at the station's own nearest wet cell. " +
             "Missing steps are left out (the line joins their neighbours). GET /point/series gives the same series as CSV or JSON.",
             page.Fonts.Small, colour: ReportPage.Faint);
     }
