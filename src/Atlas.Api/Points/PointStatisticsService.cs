@@ -40,9 +40,14 @@ public sealed class PointStatisticsService(DatasetCatalog catalog, SeriesStore s
         var analysisWindow = new AnalysisWindow(window.FromYear, window.ToYear, window.Months);
         var atOutputPoint = point.Dataset.GridKind == StationSpectraAnswers.StationsKind;
         var cellId = point.Nearest.Cell.CellId;
-        // At an output point the power per step is the one integrated from its spectra.
-        var spectralPower = atOutputPoint ? (await spectra.AlignedStepsAsync(point.Dataset.Id, cellId, chunks, timelines, cancel))[SpectralProduct.Power] : null;
+        // At an output point the power per step is the one integrated from its spectra, from the point's kept record: the
+        // window's years are the steps a read of their chunks decodes to.
+        var record = atOutputPoint ? await outputPointRecords.ForAsync(point.Dataset, point.Nearest.Cell, cancel) : null;
+        float[]? spectralPower = record is null ? null : record.Steps[SpectralProduct.Power][record.StepsOf(window.FromYear, window.ToYear)];
         using (var decoded = PointSeriesReader.DecodeRented(chunks, timelines, point.Nearest.Cell.DepthMetres is { } d ? d : double.NaN))
+        {
+            if (spectralPower is not null && spectralPower.Length != decoded.Times.Length)
+                throw new InvalidOperationException($"output point {cellId} of '{slug}': {spectralPower.Length} spectral steps for {decoded.Times.Length} series steps");
             result = ExactPointAnalysis.Analyse(decoded.ToCellSeries() with { Power = spectralPower }, new ExactPointOptions
             {
                 Window = analysisWindow,
@@ -51,22 +56,22 @@ public sealed class PointStatisticsService(DatasetCatalog catalog, SeriesStore s
                 PowerCurveStepKilowattsPerMetre = powerCurveStep ?? 1.0,
                 PowerCurveMaxThresholds = powerCurveStep is null ? DefaultPowerCurveThresholds : null,
             }, calendars.For(decoded.Times));
+        }
         var periods = result.Periods.Where(p => onlyPeriod is not { } only || p.Period == only).ToArray();
         SpectralPointAnswer? spectral = null;
-        if (atOutputPoint)
+        if (record is not null)
         {
             // The directionality of a period from its period-mean J_theta summed over the spectra's direction bins.
-            var byPeriod = await spectra.PeriodSpectraAsync(point.Dataset, cellId, periods.Select(p => p.Period).ToList(), analysisWindow, cancel);
+            var byPeriod = Atlas.Statistics.Spectral.PeriodSpectra.Of(record.Months, periods.Select(p => p.Period).ToList(), analysisWindow, record.Directions).ToDictionary(p => p.Period);
             periods = periods.Select(p => byPeriod.TryGetValue(p.Period, out var s)
                 ? p with { Direction = p.Direction with { DirectionalityCoefficient = s.DirectionalityCoefficient, MaxPowerFromDeg = s.MaxPowerFromDeg } }
                 : p).ToArray();
             var c = point.Nearest.Cell;
-            if (await outputPointRecords.ForAsync(point.Dataset, c, cancel) is { } record)
-                spectral = spectra.Answer(point.Dataset, record, c.Latitude, c.Longitude, c.DepthMetres, null, analysisWindow, calendars.For);
+            spectral = spectra.Answer(point.Dataset, record, c.Latitude, c.Longitude, c.DepthMetres, null, analysisWindow, calendars.For);
         }
         else if (await outputPoints.NearestAsync(point.Dataset, point.Asked.Latitude, point.Asked.Longitude, cancel) is { } nearest
-                 && await outputPointRecords.ForAsync(nearest.Dataset, nearest.Cell, cancel) is { } record)
-            spectral = spectra.Answer(nearest.Dataset, record, nearest.Cell.Latitude, nearest.Cell.Longitude, nearest.Cell.DepthMetres,
+                 && await outputPointRecords.ForAsync(nearest.Dataset, nearest.Cell, cancel) is { } nearestRecord)
+            spectral = spectra.Answer(nearest.Dataset, nearestRecord, nearest.Cell.Latitude, nearest.Cell.Longitude, nearest.Cell.DepthMetres,
                 nearest.DistanceKm, analysisWindow, calendars.For);
         if (spectral is not null && onlyPeriod is { } one)
             spectral = spectral with { Periods = spectral.Periods.Where(p => p.Period == one).ToList() };

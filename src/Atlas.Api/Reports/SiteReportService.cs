@@ -45,7 +45,7 @@ public sealed class SiteReportService(PointLocator locator, DatasetCatalog catal
         var (_, power, _) = context.Series.Derived(statisticsOptions.AssumedSpectrum);
         double[] j = [.. power.Select(v => (double)v)];
         if (analysis.AtOutputPoint && await outputPointRecords.ForAsync(point.Dataset, point.Nearest.Cell, cancel) is { } record)
-            SpectralPower(record, context.Series.Times, j);
+            SpectralPower(record, years, context.Series.Times, j);
         var series = new PointTimeSeries(context.Series.Times, [.. context.Series.Hs.Select(v => (double)v)], j);
         var dryCells = await land.ForAsync(point.Dataset, cancel);
         var extent = GridOutline.Of((await footprints.ForAsync(point.Dataset, cancel)).Values, dryCells, (await catalog.ExtentAsync(point.Dataset, cancel))!.Value);
@@ -53,14 +53,14 @@ public sealed class SiteReportService(PointLocator locator, DatasetCatalog catal
             dryCells, extent, pointStatistics.Provenance.GeneratedAtUtc), null);
     }
 
-    /// <summary>Puts the output point's spectral power of each of <paramref name="times"/> into <paramref name="power"/>.</summary>
-    private static void SpectralPower(OutputPointRecord record, ReadOnlySpan<long> times, double[] power)
+    /// <summary>Puts the output point's spectral power of the window's years into <paramref name="power"/> (the steps a read
+    /// of those years' chunks decodes to, as <paramref name="times"/> are).</summary>
+    private static void SpectralPower(OutputPointRecord record, YearWindow years, ReadOnlySpan<long> times, double[] power)
     {
-        var spectral = record.Steps[SpectralProduct.Power];
-        var index = new Dictionary<long, int>(record.Series.Times.Length);
-        for (int i = 0; i < record.Series.Times.Length; i++) index[record.Series.Times[i]] = i;
-        for (int k = 0; k < times.Length; k++)
-            power[k] = index.TryGetValue(times[k], out int i) && i < spectral.Length ? spectral[i] : double.NaN;
+        var range = record.StepsOf(years.FromYear, years.ToYear);
+        if (!record.Series.Times.AsSpan(range).SequenceEqual(times)) return;
+        var spectral = record.Steps[SpectralProduct.Power].AsSpan(range);
+        for (int k = 0; k < spectral.Length; k++) power[k] = spectral[k];
     }
 
     /// <summary>The PDF of gathered content.</summary>

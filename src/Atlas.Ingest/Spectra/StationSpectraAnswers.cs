@@ -78,8 +78,7 @@ public sealed class StationSpectraAnswers(NpgsqlDataSource dataSource, StationSp
         var usable = chunks.Where(c => timelines.TryGetValue(c.Year, out var t) && t.Length == SeriesCodec.StepCountOf(c.Payload)).ToArray();
         var starts = new int[usable.Length + 1];
         for (int k = 0; k < usable.Length; k++) starts[k + 1] = starts[k] + SeriesCodec.StepCountOf(usable[k].Payload);
-        var months = (await store.MonthSumsAsync(dataset.Id, cellId, cancel))
-            .Select(m => new MonthSpectrum(m.Year, m.Month, m.Steps, m.FrequencySum, m.DirectionSum)).ToList();
+        var months = await MonthSpectraAsync(store, dataset.Id, cellId, cancel);
         var (frequencies, directions, station) = Axes(dataset, cellId);
         return new OutputPointRecord(cellId, station, frequencies, directions, [.. usable.Select(c => (int)c.Year)], starts, decoded, aligned, months);
     }
@@ -129,14 +128,9 @@ public sealed class StationSpectraAnswers(NpgsqlDataSource dataSource, StationSp
         return new SpectralPointAnswer(dataset.Slug, record.Station, record.CellId, lat, lon, depth, distanceKm, record.Frequencies, record.Directions, result, Method);
     }
 
-    /// <summary>The period's directionality and direction of largest resolved power from the monthly spectra, for the main answer's periods.</summary>
-    public async Task<IReadOnlyDictionary<AtlasPeriod, PeriodSpectrum>> PeriodSpectraAsync(DatasetRecord dataset, int cellId, IReadOnlyList<AtlasPeriod> periods,
-        AnalysisWindow window, CancellationToken cancel)
-    {
-        var months = (await store.MonthSumsAsync(dataset.Id, cellId, cancel))
-            .Select(m => new MonthSpectrum(m.Year, m.Month, m.Steps, m.FrequencySum, m.DirectionSum)).ToList();
-        return PeriodSpectra.Of(months, periods, window, Axes(dataset, cellId).Directions).ToDictionary(p => p.Period);
-    }
+    /// <summary>The monthly sums of an output point's spectra, as the period means are built from them.</summary>
+    public static async Task<IReadOnlyList<MonthSpectrum>> MonthSpectraAsync(StationSpectraStore store, int datasetId, int cellId, CancellationToken cancel) =>
+        (await store.MonthSumsAsync(datasetId, cellId, cancel)).Select(m => new MonthSpectrum(m.Year, m.Month, m.Steps, m.FrequencySum, m.DirectionSum)).ToList();
 
     /// <summary>The name of an output point of a dataset of points.</summary>
     public static string StationName(DatasetRecord dataset, int cellId) =>

@@ -157,8 +157,7 @@ public sealed class StatisticsService(NpgsqlDataSource dataSource, StatisticsOpt
         var result = new Dictionary<(int, AtlasPeriod), double>();
         foreach (int cell in targets)
         {
-            var months = (await store.MonthSumsAsync(datasetId, cell, cancel))
-                .Select(m => new MonthSpectrum(m.Year, m.Month, m.Steps, m.FrequencySum, m.DirectionSum)).ToList();
+            var months = await Spectra.StationSpectraAnswers.MonthSpectraAsync(store, datasetId, cell, cancel);
             foreach (var period in PeriodSpectra.Of(months, periods, new AnalysisWindow(null, null, null), directions))
                 result[(cell, period.Period)] = period.DirectionalityCoefficient;
         }
