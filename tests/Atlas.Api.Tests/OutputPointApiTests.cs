@@ -51,7 +51,7 @@ public sealed class OutputPointApiTests : IAsyncLifetime
     public async Task AnOutputPointAnswersWithTheSpectralPowerAndDirectionality()
     {
         var client = _factory.CreateClient();
-        var root = JsonDocument.Parse(await client.GetStringAsync("/api/v1/datasets/points/point?lat=50.21&lon=-19.71&include=none")).RootElement;
+        var root = JsonDocument.Parse(await client.GetStringAsync("/api/v1/datasets/points/point?lat=50.21&lon=-19.71&include=spectra")).RootElement;
         Assert.Equal("spectra", root.GetProperty("power_from").GetString());
         var steps = PointSpectraFixture.Expected(_points)["steps"]!.AsArray().Select(s => s![1]!).ToList();
         // All 16 steps lie in January: the annual means are plain means of the script's per-step values.
@@ -83,6 +83,35 @@ public sealed class OutputPointApiTests : IAsyncLifetime
         Assert.Equal(expectedD, annualSpectral.GetProperty("directionality_coefficient").GetDouble(), 2e-6);
         Assert.Equal(32, annualSpectral.GetProperty("frequency_spectrum").GetArrayLength());
         Assert.Equal(24, annualSpectral.GetProperty("direction_power").GetArrayLength());
+    }
+
+    // include=none leaves the period-mean spectra and direction powers (chart data) out of the spectral block and keeps
+    // its period summaries, the same numbers as the answer with every part.
+    [Fact]
+    public async Task SummariesAloneLeaveTheSpectraOutOfTheSpectralBlock()
+    {
+        var client = _factory.CreateClient();
+        foreach (var at in new[] { "points/point?lat=50.21&lon=-19.71", "grid/point?lat=50.2&lon=-19.8" })
+        {
+            var all = JsonDocument.Parse(await client.GetStringAsync($"/api/v1/datasets/{at}")).RootElement.GetProperty("spectral");
+            var none = JsonDocument.Parse(await client.GetStringAsync($"/api/v1/datasets/{at}&include=none")).RootElement.GetProperty("spectral");
+            Assert.True(all.TryGetProperty("frequencies_hz", out _), at);
+            Assert.True(all.TryGetProperty("directions_from_deg", out _), at);
+            Assert.False(none.TryGetProperty("frequencies_hz", out _), at);
+            Assert.False(none.TryGetProperty("directions_from_deg", out _), at);
+            var summaries = new[] { "steps", "mean_power_spectral", "mean_power_parametric", "parametric_over_spectral", "directionality_coefficient",
+                "max_power_from_deg", "mean_spectral_width" };
+            foreach (var period in all.GetProperty("periods").EnumerateArray())
+            {
+                var name = period.GetProperty("period").GetString()!;
+                var bare = Period(none.GetProperty("periods"), name);
+                Assert.True(period.GetProperty("frequency_spectrum").GetArrayLength() > 0, $"{at} {name}");
+                Assert.False(bare.TryGetProperty("frequency_spectrum", out _), $"{at} {name}");
+                Assert.False(bare.TryGetProperty("direction_power", out _), $"{at} {name}");
+                foreach (var key in summaries)
+                    Assert.Equal(period.GetProperty(key).GetRawText(), bare.GetProperty(key).GetRawText());
+            }
+        }
     }
 
     // The statistics pass of output points stores the period directionality from the spectra: the d layer (CSV, read as

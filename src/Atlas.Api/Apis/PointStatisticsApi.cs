@@ -22,7 +22,9 @@ public static class PointStatisticsApi
             $"or, where that would take more than {PointStatisticsService.DefaultPowerCurveThresholds} thresholds up to the largest J, " +
             "the smallest step of 2, 5, 10, 20, 50 ... kW/m that does not; each fraction is exact), " +
             "joint (Hm0 x Te occurrence, 0.5 m x 1 s bins, with mean power and share of energy per bin), rose (16-sector power rose), " +
-            "interannual (yearly annual and seasonal means and coefficients of variation); all by default, none for summaries only. " +
+            "interannual (yearly annual and seasonal means and coefficients of variation), spectra (in the spectral block of an output " +
+            "point: each period's mean frequency spectrum and power per direction bin, with their frequencies and directions; the " +
+            "block's period summaries are always given); all by default, none for summaries only. " +
             "Statistics are computed exactly from the stored series (percentiles Hyndman-Fan type 7); the cell (id, lat, lon, depth_m, " +
             "distance_m) is the nearest wet cell. Coverage: " + MethodNotes.Coverage(lowCoverageThreshold) + ". " +
             "Seasons and the annual period: " + MethodNotes.Climatology + "; weighted percentiles: " + MethodNotes.WeightedPercentiles + ". " +

@@ -100,7 +100,7 @@ public sealed class PointStatisticsService(DatasetCatalog catalog, SeriesStore s
             analysis.Source, AtlasCaution.Text)
         {
             PowerFrom = analysis.AtOutputPoint ? "spectra" : "Hs and Te",
-            Spectral = analysis.Spectral,
+            Spectral = parts.Contains("spectra") ? analysis.Spectral : analysis.Spectral?.WithoutSpectra(),
         };
     }
 

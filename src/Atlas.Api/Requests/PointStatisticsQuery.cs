@@ -13,7 +13,7 @@ public sealed record PointStatisticsQuery(
     [property: FromQuery(Name = "format")] string? Format,
     [property: FromQuery(Name = "j_step")] string? JStep = null)
 {
-    public static readonly string[] Parts = ["exceedance", "joint", "rose", "interannual"];
+    public static readonly string[] Parts = ["exceedance", "joint", "rose", "interannual", "spectra"];
 
     /// <summary>The one period asked for, or null for all (the default).</summary>
     public AtlasPeriod? OnePeriod(QueryErrors errors)

@@ -1,4 +1,6 @@
 using System.Buffers;
+using System.Runtime.CompilerServices;
+using System.Runtime.InteropServices;
 
 namespace Atlas.Statistics.Exact;
 
@@ -94,9 +96,10 @@ internal sealed class WindowedPeriods
         long[] keys = ArrayPool<long>.Shared.Rent(values.Length), buffer = ArrayPool<long>.Shared.Rent(values.Length);
         try
         {
-            int count = Pack(values, parameter, keys, sums);
+            var slotCounts = new int[_included.Length];
+            int count = Pack(values, parameter, keys, slotCounts, sums);
             ValueRadixSort.SortByUpperHalf(keys.AsSpan(0, count), buffer);
-            return Deal(keys.AsSpan(0, count));
+            return Deal(keys.AsSpan(0, count), slotCounts);
         }
         finally
         {
@@ -119,26 +122,31 @@ internal sealed class WindowedPeriods
         }
     }
 
-    private int Pack(ReadOnlySpan<float> values, WaveParameter parameter, Span<long> keys, SlotSums? sums)
+    private int Pack(ReadOnlySpan<float> values, WaveParameter parameter, Span<long> keys, Span<int> slotCounts, SlotSums? sums)
     {
-        ReadOnlySpan<int> stepSlots = Calendar.StepSlots;
         int count = 0;
-        for (int i = 0; i < values.Length; i++)
+        // Run by run (consecutive steps of one slot, in step order): the slots outside the window are stepped over whole.
+        foreach (StepRun run in Calendar.Runs)
         {
-            int slot = stepSlots[i];
-            if (!_included[slot] || !ParameterValidity.IsValid(parameter, values[i])) continue;
-            sums?.Add(slot, values[i]);
-            float value = values[i] + 0f; // -0 becomes +0, whose bits sort first
-            keys[count++] = (long)BitConverter.SingleToInt32Bits(value) << 32 | (uint)slot;
+            int slot = run.Slot;
+            if (!_included[slot]) continue;
+            int before = count;
+            foreach (float v in values.Slice(run.Start, run.Length))
+            {
+                if (!ParameterValidity.IsValid(parameter, v)) continue;
+                sums?.Add(slot, v);
+                float value = v + 0f; // -0 becomes +0, whose bits sort first
+                keys[count++] = (long)BitConverter.SingleToInt32Bits(value) << 32 | (uint)slot;
+            }
+            slotCounts[slot] += count - before;
         }
         return count;
     }
 
-    private SortedPeriodValues Deal(ReadOnlySpan<long> sortedKeys)
+    /// <param name="slotCounts">The keys of each slot, counted while they were packed.</param>
+    private SortedPeriodValues Deal(ReadOnlySpan<long> sortedKeys, int[] slotCounts)
     {
         // Per period: the count of its steps, from the steps per slot.
-        var slotCounts = new int[_included.Length];
-        foreach (long key in sortedKeys) slotCounts[(int)(key & 0xFFFF_FFFF)]++;
         var counts = new int[Periods.Count];
         var monthCounts = new long[Periods.Count * 12];
         for (int s = 0; s < slotCounts.Length; s++)
@@ -162,6 +170,14 @@ internal sealed class WindowedPeriods
         // Seasons and the annual run also keep each value's calendar month, for the month-balanced statistics.
         Span<double> annual = values.AsSpan(starts[_annual], sortedKeys.Length);
         Span<byte> annualMonths = months.AsSpan(starts[_annual], sortedKeys.Length);
+        // The hot loop reads the slot tables and writes the runs through references: every index was bounded above (a
+        // slot is below the slot count, a run's cursor stays inside the run its count made).
+        ref int monthOf = ref MemoryMarshal.GetArrayDataReference(_monthOfSlot);
+        ref int seasonOf = ref MemoryMarshal.GetArrayDataReference(_seasonOfSlot);
+        ref int yearOf = ref MemoryMarshal.GetArrayDataReference(_yearOfSlot);
+        ref int cursor = ref MemoryMarshal.GetArrayDataReference(next);
+        ref double run = ref MemoryMarshal.GetArrayDataReference(values);
+        ref byte runMonth = ref MemoryMarshal.GetArrayDataReference(months);
         for (int i = 0; i < sortedKeys.Length; i++)
         {
             long key = sortedKeys[i];
@@ -170,11 +186,11 @@ internal sealed class WindowedPeriods
             byte month = (byte)(slot % 12);
             annual[i] = value;
             annualMonths[i] = month;
-            values[next[_monthOfSlot[slot]]++] = value;
-            int season = next[_seasonOfSlot[slot]]++;
-            values[season] = value;
-            months[season] = month;
-            values[next[_yearOfSlot[slot]]++] = value;
+            Unsafe.Add(ref run, Unsafe.Add(ref cursor, Unsafe.Add(ref monthOf, slot))++) = value;
+            int season = Unsafe.Add(ref cursor, Unsafe.Add(ref seasonOf, slot))++;
+            Unsafe.Add(ref run, season) = value;
+            Unsafe.Add(ref runMonth, season) = month;
+            Unsafe.Add(ref run, Unsafe.Add(ref cursor, Unsafe.Add(ref yearOf, slot))++) = value;
         }
         return sorted;
     }

@@ -43,7 +43,7 @@ public sealed class DataPrecisionJsonConverter : JsonConverter<double>
     private static bool TryFormatPlain(double value, Span<byte> buffer, out ReadOnlySpan<byte> digits)
     {
         digits = default;
-        if (!value.TryFormat(buffer, out int written, "G7", CultureInfo.InvariantCulture) || buffer[..written].IndexOfAny((byte)'E', (byte)'e') >= 0) return false;
+        if (!SevenDigits.TryFormat(value, buffer, out int written) || buffer[..written].IndexOfAny((byte)'E', (byte)'e') >= 0) return false;
         digits = buffer[..written];
         return true;
     }
