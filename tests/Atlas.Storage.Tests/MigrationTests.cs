@@ -27,6 +27,26 @@ public class MigrationTests(TestDatabase database) : IClassFixture<TestDatabase>
         Assert.Equal("pass_id,dataset_id,parameter,period,block", await PrimaryKeyAsync(Datasets.DatasetStore.StatisticStageTable));
     }
 
+    // A nearest-cell search names one dataset: the index it runs on is led by the dataset id, so the search goes
+    // straight to that dataset's cells (where datasets overlap, an index over all of them walked the others' cells).
+    // PostgreSQL's own EXPLAIN names the index, its condition and the distance ordering it serves.
+    [Theory]
+    [InlineData("wet", "cell_wet_dataset_geom_idx")]
+    [InlineData("NOT wet", "cell_dry_dataset_geom_idx")]
+    public async Task NearestCellSearchesRunOnAnIndexLedByTheDataset(string which, string index)
+    {
+        await using var connection = await database.DataSource.OpenConnectionAsync();
+        await using (var off = new NpgsqlCommand("SET enable_seqscan = off", connection)) await off.ExecuteNonQueryAsync();
+        await using var explain = new NpgsqlCommand(
+            $"EXPLAIN (FORMAT JSON) SELECT cell_id FROM cell WHERE dataset_id = $1 AND {which} ORDER BY geom <-> ST_SetSRID(ST_MakePoint(-20, 50), 4326) LIMIT 1",
+            connection);
+        explain.Parameters.AddWithValue(7);
+        var plan = (string)(await explain.ExecuteScalarAsync())!;
+        Assert.Contains($"\"Index Name\": \"{index}\"", plan);
+        Assert.Contains("\"Index Cond\": \"(dataset_id = 7)\"", plan);
+        Assert.Contains("\"Order By\": \"(geom <->", plan);
+    }
+
     private async Task<string> PrimaryKeyAsync(string table)
     {
         await using var key = database.DataSource.CreateCommand("""
