@@ -29,11 +29,25 @@ fresh_database atlas_parts_bench
 
 now() { date +%s.%N; }
 rss() { awk -F': ' '/Maximum resident set size/ {print $2}' "$work/$1.time"; }
+cpu_of() { awk -F': ' '/User time|System time/ {s += $2} END {printf "%.2f", s}' "$work/$1.time"; }
+
+# The database's CPU seconds so far, from /proc: every PostgreSQL process of the cluster alive now (utime + stime),
+# plus what the postmaster has collected from its exited children (cutime + cstime: the backends of closed
+# connections). Differences around a run are the database's share of it (autovacuum and the checkpointer included).
+# Empty when the cluster is not a local process this script can see (ATLAS_DB on another machine).
+postmaster=$(head -1 "${ATLAS_HOME:-$here/.atlas}/pg/postmaster.pid" 2>/dev/null || true)
+db_cpu() {
+  [ -n "$postmaster" ] && [ -r "/proc/$postmaster/stat" ] || return 0
+  local tick; tick=$(getconf CLK_TCK)
+  { cat "/proc/$postmaster/stat"; for c in $(pgrep -P "$postmaster"); do cat "/proc/$c/stat" 2>/dev/null || true; done; } |
+    awk -v root="$postmaster" -v tick="$tick" '{ sub(/^[^)]*\) /, ""); s += $12 + $13; if (NR == 1) s += $14 + $15 } END { printf "%.2f", s / tick }'
+}
 
 # Runs the queued parts with WORKERS workers, worker k pinned to core k-1, each until the queue is idle; prints the
 # wall time from the first start to the last exit.
 run_workers() { # name workers
   local name=$1 workers=$2 k start pids=()
+  db_before[$name]=$(db_cpu)
   start=$(now)
   for ((k = 1; k <= workers; k++)); do
     taskset -c $((k - 1)) /usr/bin/time -v -o "$work/$name-w$k.time" "$atlas" worker --until-idle > "$work/$name-w$k.out" 2>&1 &
@@ -41,6 +55,17 @@ run_workers() { # name workers
   done
   for pid in "${pids[@]}"; do wait "$pid"; done
   awk -v a="$start" -v b="$(now)" 'BEGIN { printf "%.2f", b - a }'
+  db_after[$name]=$(db_cpu)
+}
+
+# The CPU of a run (its workers' and the database's) over its wall time: the cores it kept busy. On a machine of C
+# cores where the database shares the workers' cores, two workers cannot go faster than C / (cores the one-worker run
+# kept busy) times the one-worker run, whatever the parts: the script prints that bound beside the speed-up.
+busy_cores() { # name workers wall
+  local name=$1 workers=$2 wall=$3 k cpu=0
+  for ((k = 1; k <= workers; k++)); do cpu=$(awk -v a="$cpu" -v b="$(cpu_of "$name-w$k")" 'BEGIN { print a + b }'); done
+  local db; db=$(awk -v a="${db_before[$name]:-}" -v b="${db_after[$name]:-}" 'BEGIN { if (a == "" || b == "") print "-"; else printf "%.2f", b - a }')
+  echo "$cpu $db $(awk -v c="$cpu" -v d="$db" -v w="$wall" 'BEGIN { if (d == "-") print "-"; else printf "%.2f", (c + d) / w }')"
 }
 
 # Digests of what a dataset stores: its series (every chunk's bytes) and its statistics (every block, every column).
@@ -50,22 +75,29 @@ layers_digest() { psql_cmd "SELECT md5(string_agg(concat_ws('|', parameter, peri
 {
   echo "# parts benchmark $(date -u +%FT%TZ), $(nproc) cores, file $(du -h "$file" | cut -f1) (${nx}x${ny} cells x ${nt} steps)"
   echo "# parts: ingest $ingest_part grid points, statistics $stats_part cell ids; worker k pinned to core k-1 (taskset)"
-  declare -A ingest stats
+  declare -A ingest stats db_before db_after bound
   for workers in 1 2; do
     slug="parts-w$workers"
     "$atlas" ingest "$file" --dataset "$slug" --queue --part-cells "$ingest_part" | sed 's/^/  /'
-    ingest[$workers]=$(run_workers "ingest-$slug" "$workers")
+    run_workers "ingest-$slug" "$workers" > "$work/wall"; ingest[$workers]=$(cat "$work/wall")
     "$atlas" stats "$slug" --all --queue --part-cells "$stats_part" | sed 's/^/  /'
-    stats[$workers]=$(run_workers "stats-$slug" "$workers")
+    run_workers "stats-$slug" "$workers" > "$work/wall"; stats[$workers]=$(cat "$work/wall")
     for ((k = 1; k <= workers; k++)); do
       echo "$workers worker(s), worker $k: ingest peak RSS $(rss "ingest-$slug-w$k") kB, statistics peak RSS $(rss "stats-$slug-w$k") kB"
     done
     echo "$workers worker(s): ingest ${ingest[$workers]} s, statistics ${stats[$workers]} s"
+    for stage in ingest stats; do
+      wall=${ingest[$workers]}; [ "$stage" = stats ] && wall=${stats[$workers]}
+      read -r cpu db busy < <(busy_cores "$stage-$slug" "$workers" "$wall")
+      echo "$workers worker(s), $stage: workers' CPU $cpu s, database CPU $db s, cores kept busy $busy of $(nproc)"
+      [ "$workers" = 1 ] && [ "$busy" != "-" ] && bound[$stage]=$(awk -v b="$busy" -v c="$(nproc)" 'BEGIN { printf "%.2f", c / b }')
+    done
     "$atlas" jobs --dataset "$slug" --limit 2 | grep '^pass' | sed 's/^/  /'
   done
   awk -v i1="${ingest[1]}" -v i2="${ingest[2]}" -v s1="${stats[1]}" -v s2="${stats[2]}" 'BEGIN {
     printf "ratio ingest speed-up (1 worker / 2 workers) = %.2f (goal >= 1.5)\n", i1 / i2;
     printf "ratio statistics speed-up (1 worker / 2 workers) = %.2f (goal >= 1.6)\n", s1 / s2 }'
+  echo "bound on the speed-up from this machine's cores (cores / cores the one-worker run kept busy, the database on the same cores): ingest ${bound[ingest]:--}, statistics ${bound[stats]:--}"
   s1=$(series_digest parts-w1); s2=$(series_digest parts-w2)
   l1=$(layers_digest parts-w1); l2=$(layers_digest parts-w2)
   [ "$s1" = "$s2" ] && echo "series: identical ($s1)" || echo "series: DIFFER ($s1 against $s2)"
