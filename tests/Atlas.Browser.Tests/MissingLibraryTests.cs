@@ -29,6 +29,8 @@ public class MissingLibraryTests(AtlasSite site)
         Assert.Contains("deploy/prepare.sh", text);
         Assert.Contains("npm ci", text);
         Assert.DoesNotContain("Loading", (await page.TextContentAsync("#dataset-title"))!);
+        // No empty colour-bar frame beside the message.
+        await Assertions.Expect(page.Locator("#map-legend")).ToBeHiddenAsync();
         await page.ScreenshotAsync(new PageScreenshotOptions { Path = Path.Combine(site.ScreenshotFolder, $"missing-{library.ToLowerInvariant()}.png") });
     }
 }

@@ -14,4 +14,7 @@
     'installed on this server: run bash deploy/prepare.sh (or npm ci in the wwwroot folder), then reload this page.';
   status.classList.add('error');
   document.getElementById('dataset-title').textContent = 'The page\u2019s libraries are missing.';
+  // The colour bar stays empty without the map: hide its frame rather than show an empty box.
+  var legend = document.getElementById('map-legend');
+  if (legend) legend.hidden = true;
 })();
