@@ -1,3 +1,5 @@
+using System.Runtime.Intrinsics;
+
 namespace Atlas.Statistics.Binned;
 
 /// <summary>
@@ -81,6 +83,22 @@ public sealed class FixedBinHistogram
         int low = lowBin >> BlockShift, high = highBin >> BlockShift;
         if (low < LowBlock) LowBlock = low;
         if (high > HighBlock) HighBlock = high;
+    }
+
+    /// <summary>
+    /// Sets the block counts from the fine counts over the blocks in use, after the caller incremented only fine bins
+    /// (the fast path of the layer pass: one count per value instead of two).
+    /// </summary>
+    internal void CountBlocks()
+    {
+        for (int b = LowBlock; b <= HighBlock; b++)
+        {
+            ReadOnlySpan<int> block = Fine.AsSpan(b << BlockShift, BlockSize);
+            var sum = Vector256<int>.Zero;
+            for (int i = 0; i < BlockSize; i += Vector256<int>.Count)
+                sum += Vector256.Create(block.Slice(i, Vector256<int>.Count));
+            Coarse[b] = Vector256.Sum(sum);
+        }
     }
 
     /// <summary>Bins of the smallest and largest value, for <see cref="Record"/>.</summary>

@@ -1,5 +1,3 @@
-using System.Runtime.Intrinsics;
-
 namespace Atlas.Statistics.Binned;
 
 /// <summary>
@@ -14,7 +12,9 @@ internal sealed class ParameterAccumulator
     private readonly FixedBinHistogram[] _monthHistograms = new FixedBinHistogram[12];
     private readonly FixedBinHistogram[] _parts = new FixedBinHistogram[12];
     private readonly double[] _thresholds;
-    private readonly Vector256<float>[] _thresholdVectors;
+    private readonly float[] _singleThresholds;
+    private int[] _bins = [];
+    private double[] _offsets = [];
     private FixedBinHistogram[] _yearHistograms = [];
     private RunningMoments[] _slots = [];
     private readonly RunningMoments[] _monthMoments = new RunningMoments[12];
@@ -31,18 +31,7 @@ internal sealed class ParameterAccumulator
         for (int m = 0; m < 12; m++) _monthHistograms[m] = new FixedBinHistogram(binning);
         _thresholds = [.. thresholds];
         // Thresholds are compared in single precision, like the stored values: a stored 3.0 is not above 3 m.
-        int lanes = Vector256<float>.Count;
-        _thresholdVectors = new Vector256<float>[(_thresholds.Length + lanes - 1) / lanes];
-        Span<float> lane = stackalloc float[lanes];
-        for (int c = 0; c < _thresholdVectors.Length; c++)
-        {
-            for (int l = 0; l < lanes; l++)
-            {
-                int t = c * lanes + l;
-                lane[l] = t < _thresholds.Length ? (float)_thresholds[t] : float.PositiveInfinity;
-            }
-            _thresholdVectors[c] = Vector256.Create<float>(lane);
-        }
+        _singleThresholds = [.. _thresholds.Select(t => (float)t)];
     }
 
     /// <summary>True when the parameter was accumulated for the current cell.</summary>
@@ -67,6 +56,11 @@ internal sealed class ParameterAccumulator
     }
 
     /// <summary>One pass over the series of the current cell.</summary>
+    /// <remarks>
+    /// Each run of steps in one slot is read by <see cref="RunScan"/> (validity, extremes, bins, exceedances, in whole
+    /// vectors), then once more in step order for the sums, so that they hold the same bits as a plain loop, and for
+    /// the fine bins of the histograms; the histograms' block counts are taken from their fine bins at the end.
+    /// </remarks>
     public void Accumulate(ReadOnlySpan<float> values)
     {
         TimelineCalendar calendar = _calendar ?? throw new InvalidOperationException("Prepare the accumulator for a calendar first.");
@@ -81,54 +75,48 @@ internal sealed class ParameterAccumulator
         double inverseWidth = _monthHistograms[0].InverseWidth;
         int lastBin = _monthHistograms[0].LastBin;
         bool byYear = _yearHistograms.Length > 0;
-        int chunks = _thresholdVectors.Length;
-        Span<Vector256<int>> exceeding = stackalloc Vector256<int>[chunks];
+        int thresholds = _thresholds.Length;
+        Span<long> exceeding = stackalloc long[thresholds];
 
         foreach (StepRun run in calendar.Runs)
         {
+            if (_bins.Length < run.Length)
+            {
+                _bins = new int[run.Length];
+                _offsets = new double[run.Length];
+            }
+            Span<int> bins = _bins.AsSpan(0, run.Length);
+            Span<double> offsets = _offsets.AsSpan(0, run.Length);
+            exceeding.Clear();
+            RunExtent extent = RunScan.Scan(values.Slice(run.Start, run.Length), lowest, shift, inverseWidth, lastBin, _singleThresholds,
+                exceeding, bins, offsets);
+            if (extent.Count == 0) continue;
+
             FixedBinHistogram month = _monthHistograms[run.Slot % 12];
             FixedBinHistogram year = byYear ? _yearHistograms[run.Slot / 12] : month;
-            int[] monthFine = month.Fine, monthCoarse = month.Coarse, yearFine = year.Fine, yearCoarse = year.Coarse;
-            exceeding.Clear();
-            long n = 0;
+            int[] monthFine = month.Fine, yearFine = year.Fine;
+            // Missing steps add +0, which leaves a sum as it is (a sum of these offsets, begun at +0, is never -0).
             double sum = 0, sumSquares = 0;
-            float minimum = float.PositiveInfinity, maximum = float.NegativeInfinity;
-
-            foreach (float x in values.Slice(run.Start, run.Length))
+            for (int i = 0; i < bins.Length; i++)
             {
-                if (!(x >= lowest && x <= float.MaxValue)) continue;
-                n++;
-                double d = x - shift;
+                double d = offsets[i];
                 sum += d;
                 sumSquares += d * d;
-                if (x < minimum) minimum = x;
-                if (x > maximum) maximum = x;
-                double position = x * inverseWidth;
-                int bin = position >= lastBin ? lastBin : (int)position;
+                int bin = bins[i];
+                if (bin == RunScan.MissingBin) continue;
                 monthFine[bin]++;
-                monthCoarse[bin >> FixedBinHistogram.BlockShift]++;
-                if (byYear)
-                {
-                    yearFine[bin]++;
-                    yearCoarse[bin >> FixedBinHistogram.BlockShift]++;
-                }
-                if (chunks > 0)
-                {
-                    Vector256<float> value = Vector256.Create(x);
-                    for (int c = 0; c < chunks; c++)
-                        exceeding[c] -= Vector256.GreaterThan(value, _thresholdVectors[c]).AsInt32();
-                }
+                if (byYear) yearFine[bin]++;
             }
-            if (n == 0) continue;
 
-            _slots[run.Slot].AddSums(n, sum, sumSquares, minimum, maximum);
-            int lowBin = month.BinOfValid(minimum), highBin = month.BinOfValid(maximum);
-            month.Record(n, minimum, maximum, lowBin, highBin);
-            if (byYear) year.Record(n, minimum, maximum, lowBin, highBin);
-            int offset = run.Slot * _thresholds.Length;
-            for (int t = 0; t < _thresholds.Length; t++)
-                _slotExceedances[offset + t] += exceeding[t / Vector256<int>.Count][t % Vector256<int>.Count];
+            _slots[run.Slot].AddSums(extent.Count, sum, sumSquares, extent.Minimum, extent.Maximum);
+            int lowBin = month.BinOfValid(extent.Minimum), highBin = month.BinOfValid(extent.Maximum);
+            month.Record(extent.Count, extent.Minimum, extent.Maximum, lowBin, highBin);
+            if (byYear) year.Record(extent.Count, extent.Minimum, extent.Maximum, lowBin, highBin);
+            int offset = run.Slot * thresholds;
+            for (int t = 0; t < thresholds; t++) _slotExceedances[offset + t] += exceeding[t];
         }
+        foreach (FixedBinHistogram h in _monthHistograms) h.CountBlocks();
+        foreach (FixedBinHistogram h in _yearHistograms) h.CountBlocks();
     }
 
     /// <summary>
