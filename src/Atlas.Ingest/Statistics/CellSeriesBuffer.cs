@@ -1,5 +1,6 @@
 using Atlas.Statistics;
 using Atlas.Storage.Series;
+using System.Runtime.CompilerServices;
 
 namespace Atlas.Ingest.Statistics;
 
@@ -55,6 +56,7 @@ public sealed class CellSeriesBuffer
     /// Decodes one chunk of the cell into its place on the time line; <paramref name="yearOffsets"/> gives each year's
     /// first step and step count. A year outside the time line is ignored.
     /// </summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public void Add(int year, ReadOnlySpan<byte> payload, IReadOnlyDictionary<int, (int Offset, int Count)> yearOffsets)
     {
         if (!yearOffsets.TryGetValue(year, out var place)) return;

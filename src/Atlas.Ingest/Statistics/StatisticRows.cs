@@ -1,5 +1,6 @@
 using Atlas.Statistics;
 using Atlas.Storage.Statistics;
+using System.Runtime.CompilerServices;
 
 namespace Atlas.Ingest.Statistics;
 
@@ -13,6 +14,7 @@ public static class StatisticRows
 {
     private static readonly WaveParameter[] Summarised = [WaveParameter.Hs, WaveParameter.Te, WaveParameter.Tp, WaveParameter.J, WaveParameter.Spread, WaveParameter.D];
 
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public static void Append(int cellId, BinnedCellStatistics statistics, List<StatisticRow> rows)
     {
         var annual = statistics.Find(AtlasPeriod.Annual);
@@ -24,8 +26,8 @@ public static class StatisticRows
                 var s = period.Summary(parameter);
                 float[]? extra = parameter switch
                 {
-                    WaveParameter.Hs => period.HsExceedance.Select(e => (float)e.Fraction).ToArray(),
-                    WaveParameter.J => period.PowerExceedance.Select(e => (float)e.Fraction).ToArray(),
+                    WaveParameter.Hs => Fractions(period.HsExceedance),
+                    WaveParameter.J => Fractions(period.PowerExceedance),
                     _ => null,
                 };
                 rows.Add(new StatisticRow(cellId, period.Period, parameter, F(s.Mean), F(s.Sd), F(s.Min), F(s.Max),
@@ -34,9 +36,23 @@ public static class StatisticRows
             if (annual is not null && annual.Direction.Count == 0) continue;
             var d = period.Direction;
             rows.Add(new StatisticRow(cellId, period.Period, WaveParameter.Dir, F(d.Mean), F(d.Spread), null, null, null, null, null, null,
-                (int)d.Count, (float)d.Coverage, d.PowerRose.Select(f => (float)f).ToArray()));
+                (int)d.Count, (float)d.Coverage, Singles(d.PowerRose)));
         }
     }
 
     private static float? F(double value) => double.IsFinite(value) ? (float)value : null;
+
+    private static float[] Fractions(IReadOnlyList<ExceedanceFraction> exceedances)
+    {
+        var fractions = new float[exceedances.Count];
+        for (var i = 0; i < fractions.Length; i++) fractions[i] = (float)exceedances[i].Fraction;
+        return fractions;
+    }
+
+    private static float[] Singles(IReadOnlyList<double> values)
+    {
+        var singles = new float[values.Count];
+        for (var i = 0; i < singles.Length; i++) singles[i] = (float)values[i];
+        return singles;
+    }
 }

@@ -1,3 +1,5 @@
+using System.Runtime.CompilerServices;
+
 namespace Atlas.Statistics.Binned;
 
 /// <summary>
@@ -47,6 +49,7 @@ public sealed class BinnedCellCalculator
     /// <returns>One entry per period with at least one step in the timeline; none for an empty timeline. Parameters
     /// that are absent, or whose steps are all missing, have NaN statistics with count 0.</returns>
     /// <exception cref="ArgumentException">The series lengths disagree, the depth is not positive, or a time is out of range.</exception>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public BinnedCellStatistics Compute(in CellSeries series)
     {
         series.Validate();
@@ -86,6 +89,7 @@ public sealed class BinnedCellCalculator
         }
     }
 
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private PeriodStatistics Summarise(TimelineCalendar calendar, AtlasPeriod period, bool hasPower)
     {
         long expected = calendar.ExpectedSteps(period);

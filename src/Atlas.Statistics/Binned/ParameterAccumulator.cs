@@ -1,3 +1,5 @@
+using System.Runtime.CompilerServices;
+
 namespace Atlas.Statistics.Binned;
 
 /// <summary>
@@ -13,8 +15,11 @@ internal sealed class ParameterAccumulator
     private readonly FixedBinHistogram[] _parts = new FixedBinHistogram[12];
     private readonly double[] _thresholds;
     private readonly float[] _singleThresholds;
+    // Scratch of one group of runs read side by side (RunTally), reused from cell to cell.
     private int[] _bins = [];
     private double[] _offsets = [];
+    private readonly int[][] _laneFine = new int[RunTally.Lanes][];
+    private readonly int[]?[] _laneAlsoFine = new int[]?[RunTally.Lanes];
     private FixedBinHistogram[] _yearHistograms = [];
     private RunningMoments[] _slots = [];
     private readonly RunningMoments[] _monthMoments = new RunningMoments[12];
@@ -57,10 +62,12 @@ internal sealed class ParameterAccumulator
 
     /// <summary>One pass over the series of the current cell.</summary>
     /// <remarks>
-    /// Each run of steps in one slot is read by <see cref="RunScan"/> (validity, extremes, bins, exceedances, in whole
-    /// vectors), then once more in step order for the sums, so that they hold the same bits as a plain loop, and for
-    /// the fine bins of the histograms; the histograms' block counts are taken from their fine bins at the end.
+    /// Runs of steps in one slot are read four at a time: each by <see cref="RunScan"/> (validity, extremes, bins,
+    /// exceedances, in whole vectors), then side by side by <see cref="RunTally"/> for the sums, in step order so that
+    /// they hold the same bits as a plain loop over each run, and for the fine bins of the histograms; the histograms'
+    /// block counts are taken from their fine bins at the end.
     /// </remarks>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public void Accumulate(ReadOnlySpan<float> values)
     {
         TimelineCalendar calendar = _calendar ?? throw new InvalidOperationException("Prepare the accumulator for a calendar first.");
@@ -76,44 +83,63 @@ internal sealed class ParameterAccumulator
         int lastBin = _monthHistograms[0].LastBin;
         bool byYear = _yearHistograms.Length > 0;
         int thresholds = _thresholds.Length;
-        Span<long> exceeding = stackalloc long[thresholds];
+        const int lanes = RunTally.Lanes;
+        Span<long> exceeding = stackalloc long[lanes * thresholds];
+        Span<RunExtent> extents = stackalloc RunExtent[lanes];
+        Span<double> sums = stackalloc double[2 * lanes];
+        int[][] fine = _laneFine;
+        int[]?[] alsoFine = _laneAlsoFine;
 
-        foreach (StepRun run in calendar.Runs)
+        ReadOnlySpan<StepRun> runs = calendar.Runs;
+        for (int first = 0; first < runs.Length; first += lanes)
         {
-            if (_bins.Length < run.Length)
+            ReadOnlySpan<StepRun> group = runs.Slice(first, Math.Min(lanes, runs.Length - first));
+            int stride = 0;
+            foreach (StepRun run in group) stride = Math.Max(stride, run.Length);
+            if (_bins.Length < lanes * stride)
             {
-                _bins = new int[run.Length];
-                _offsets = new double[run.Length];
+                _bins = new int[lanes * stride];
+                _offsets = new double[lanes * stride];
             }
-            Span<int> bins = _bins.AsSpan(0, run.Length);
-            Span<double> offsets = _offsets.AsSpan(0, run.Length);
             exceeding.Clear();
-            RunExtent extent = RunScan.Scan(values.Slice(run.Start, run.Length), lowest, shift, inverseWidth, lastBin, _singleThresholds,
-                exceeding, bins, offsets);
-            if (extent.Count == 0) continue;
-
-            FixedBinHistogram month = _monthHistograms[run.Slot % 12];
-            FixedBinHistogram year = byYear ? _yearHistograms[run.Slot / 12] : month;
-            int[] monthFine = month.Fine, yearFine = year.Fine;
-            // Missing steps add +0, which leaves a sum as it is (a sum of these offsets, begun at +0, is never -0).
-            double sum = 0, sumSquares = 0;
-            for (int i = 0; i < bins.Length; i++)
+            for (int r = 0; r < lanes; r++)
             {
-                double d = offsets[i];
-                sum += d;
-                sumSquares += d * d;
-                int bin = bins[i];
-                if (bin == RunScan.MissingBin) continue;
-                monthFine[bin]++;
-                if (byYear) yearFine[bin]++;
+                Span<int> bins = _bins.AsSpan(r * stride, stride);
+                Span<double> offsets = _offsets.AsSpan(r * stride, stride);
+                int length = 0;
+                if (r < group.Length)
+                {
+                    StepRun run = group[r];
+                    length = run.Length;
+                    extents[r] = RunScan.Scan(values.Slice(run.Start, length), lowest, shift, inverseWidth, lastBin, _singleThresholds,
+                        exceeding.Slice(r * thresholds, thresholds), bins, offsets);
+                    fine[r] = _monthHistograms[run.Slot % 12].Fine;
+                    alsoFine[r] = byYear ? _yearHistograms[run.Slot / 12].Fine : null;
+                }
+                else
+                {
+                    // A lane without a run (the last group) is all padding: its counts are never touched.
+                    fine[r] = fine[0];
+                    alsoFine[r] = alsoFine[0];
+                }
+                bins[length..].Fill(RunScan.MissingBin);
+                offsets[length..].Clear();
             }
+            RunTally.Tally(_offsets, _bins, stride, fine, alsoFine, sums);
 
-            _slots[run.Slot].AddSums(extent.Count, sum, sumSquares, extent.Minimum, extent.Maximum);
-            int lowBin = month.BinOfValid(extent.Minimum), highBin = month.BinOfValid(extent.Maximum);
-            month.Record(extent.Count, extent.Minimum, extent.Maximum, lowBin, highBin);
-            if (byYear) year.Record(extent.Count, extent.Minimum, extent.Maximum, lowBin, highBin);
-            int offset = run.Slot * thresholds;
-            for (int t = 0; t < thresholds; t++) _slotExceedances[offset + t] += exceeding[t];
+            for (int r = 0; r < group.Length; r++)
+            {
+                RunExtent extent = extents[r];
+                if (extent.Count == 0) continue;
+                StepRun run = group[r];
+                _slots[run.Slot].AddSums(extent.Count, sums[2 * r], sums[2 * r + 1], extent.Minimum, extent.Maximum);
+                FixedBinHistogram month = _monthHistograms[run.Slot % 12];
+                int lowBin = month.BinOfValid(extent.Minimum), highBin = month.BinOfValid(extent.Maximum);
+                month.Record(extent.Count, extent.Minimum, extent.Maximum, lowBin, highBin);
+                if (byYear) _yearHistograms[run.Slot / 12].Record(extent.Count, extent.Minimum, extent.Maximum, lowBin, highBin);
+                int offset = run.Slot * thresholds;
+                for (int t = 0; t < thresholds; t++) _slotExceedances[offset + t] += exceeding[r * thresholds + t];
+            }
         }
         foreach (FixedBinHistogram h in _monthHistograms) h.CountBlocks();
         foreach (FixedBinHistogram h in _yearHistograms) h.CountBlocks();
@@ -124,6 +150,7 @@ internal sealed class ParameterAccumulator
     /// the annual period are month-balanced (<see cref="MonthBalance"/>): the mean is the expected-step-weighted mean
     /// of the monthly means, the deviation that of the weighted mixture, the percentiles weighted histogram estimates.
     /// </summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public SummaryStatistics Summarise(AtlasPeriod period, long expectedSteps)
     {
         TimelineCalendar calendar = _calendar!;
@@ -172,6 +199,7 @@ internal sealed class ParameterAccumulator
     /// Exceedance fractions of a period at the accumulator's thresholds (NaN fractions when no step is valid);
     /// month-balanced for seasons and the annual period, as <see cref="Summarise"/>.
     /// </summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public ExceedanceFraction[] Exceedances(AtlasPeriod period, long validSteps)
     {
         var result = new ExceedanceFraction[_thresholds.Length];
@@ -196,6 +224,7 @@ internal sealed class ParameterAccumulator
     }
 
     /// <summary>The month weights of a climatological period and its moments per calendar month; false when they are equal.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private bool BalanceWeights(AtlasPeriod period, Span<double> weights, out RunningMoments[] months)
     {
         TimelineCalendar calendar = _calendar!;

@@ -1,6 +1,7 @@
 using System.Numerics;
 using System.Runtime.InteropServices;
 using System.Runtime.Intrinsics;
+using System.Runtime.CompilerServices;
 
 namespace Atlas.Statistics.Binned;
 
@@ -38,6 +39,7 @@ internal static class RunScan
     /// <param name="exceeding">Receives, added to what it holds, the valid steps above each threshold.</param>
     /// <param name="bins">Receives each step's bin, <see cref="MissingBin"/> for a missing step (length of the run).</param>
     /// <param name="offsets">Receives each step's value minus <paramref name="shift"/>, +0 for a missing step (length of the run).</param>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public static RunExtent Scan(ReadOnlySpan<float> values, float lowest, double shift, double inverseWidth, int lastBin,
         ReadOnlySpan<float> thresholds, Span<long> exceeding, Span<int> bins, Span<double> offsets)
     {
@@ -72,6 +74,7 @@ internal static class RunScan
         return new RunExtent(count, minimum, maximum);
     }
 
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private static int ScanVectors(ReadOnlySpan<float> values, float lowest, double shift, double inverseWidth, int lastBin,
         ReadOnlySpan<float> thresholds, Span<long> exceeding, Span<int> bins, Span<double> offsets, ref int count, ref float minimum, ref float maximum)
     {
@@ -117,6 +120,7 @@ internal static class RunScan
     }
 
     /// <summary>floor(x / width) as the plain loop takes it: x times the inverse width in double, the overflow bin at and above it.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveInlining)]
     private static Vector256<long> Bins(Vector256<double> x, Vector256<double> inverse, Vector256<double> overflow)
     {
         var position = x * inverse;
@@ -126,6 +130,7 @@ internal static class RunScan
         return Vector256.ConvertToInt64(clamped);
     }
 
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private static float FirstExtreme(ReadOnlySpan<float> values, float lowest, bool smallest)
     {
         float extreme = smallest ? float.PositiveInfinity : float.NegativeInfinity;

@@ -1,3 +1,5 @@
+using System.Runtime.CompilerServices;
+
 namespace Atlas.Statistics.Directions;
 
 /// <summary>
@@ -25,6 +27,7 @@ internal sealed class DirectionAccumulator
 
     /// <summary>One pass over direction (degrees from) and power (kW/m) of the current cell.</summary>
     /// <param name="includedSlots">When given, only the steps of the slots marked true are read (the others are never summarised).</param>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public void Accumulate(ReadOnlySpan<float> directionDegrees, ReadOnlySpan<float> power, ReadOnlySpan<bool> includedSlots = default)
     {
         TimelineCalendar calendar = _calendar ?? throw new InvalidOperationException("Prepare the accumulator for a calendar first.");
@@ -59,6 +62,7 @@ internal sealed class DirectionAccumulator
     /// The statistics over a set of slots (a period restricted to a window, in the point analysis), each calendar
     /// month weighted by <see cref="MonthBalance"/> when <paramref name="balanced"/>.
     /// </summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public DirectionStatistics Summarise(ReadOnlySpan<int> slots, long expectedSteps, ReadOnlySpan<long> expectedByMonth, bool balanced)
     {
         if (!HasSeries) return DirectionStatistics.Empty;
