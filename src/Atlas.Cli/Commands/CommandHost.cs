@@ -22,7 +22,7 @@ public static class CommandHost
         // A command reads its configuration once: no watcher on appsettings.json, which would watch every folder under the
         // current one (a repository, say) for the whole run.
         var settings = new HostApplicationBuilderSettings { Configuration = new ConfigurationManager() };
-        settings.Configuration["hostBuilder:reloadConfigOnChange"] = "false";
+        settings.Configuration.AddInMemoryCollection([new("hostBuilder:reloadConfigOnChange", "false")]);
         var builder = Host.CreateApplicationBuilder(settings);
         builder.Services.AddSingleton(dataSource);
         builder.Services.AddAtlasJobs();
