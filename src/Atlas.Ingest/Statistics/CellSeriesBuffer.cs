@@ -31,6 +31,7 @@ public sealed class CellSeriesBuffer
     public double DepthMetres { get; private set; }
 
     /// <summary>Empties the buffer for a cell: every step missing until its chunks are added.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public void Begin(int cellId, double depthMetres)
     {
         CellId = cellId;
@@ -79,6 +80,7 @@ public sealed class CellSeriesBuffer
     /// a chunk, or whose chunk lacks the variable), so that the series reads NaN there. Hs is always read, so it counts as
     /// present. Called once the cell's last chunk is added.
     /// </summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public void Complete()
     {
         var hs = WaveParameterGroups.SeriesIndex(WaveParameter.Hs);
@@ -91,6 +93,7 @@ public sealed class CellSeriesBuffer
         }
     }
 
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public CellSeries AsSeries(long[] times) => new()
     {
         Times = times,

@@ -48,27 +48,34 @@ internal ref struct OrderStatisticWalk
         if (rank == _count - 1) return _maximum;
         if (rank >= _beforeBlock + _blockCount)
         {
+            // Walked in locals (the walk's own fields live in memory beside its block of counts).
+            long beforeBlock = _beforeBlock, blockCount = _blockCount;
+            int block = _block;
             do
             {
-                _beforeBlock += _blockCount;
-                _block++;
-                _blockCount = BlockCount(_block);
-            } while (rank >= _beforeBlock + _blockCount);
-            _bin = _block << FixedBinHistogram.BlockShift;
-            _beforeBin = _beforeBlock;
-            _bins.Load(_parts, _block);
+                beforeBlock += blockCount;
+                block++;
+                blockCount = BlockCount(block);
+            } while (rank >= beforeBlock + blockCount);
+            (_beforeBlock, _blockCount, _block) = (beforeBlock, blockCount, block);
+            _bin = block << FixedBinHistogram.BlockShift;
+            _beforeBin = beforeBlock;
+            _bins.Load(_parts, block);
             _binCount = _bins[0];
         }
         // The rank lies in this block, so the walk never leaves it.
-        while (rank >= _beforeBin + _binCount)
+        long beforeBin = _beforeBin, binCount = _binCount;
+        int bin = _bin;
+        while (rank >= beforeBin + binCount)
         {
-            _beforeBin += _binCount;
-            _bin++;
-            _binCount = _bins[_bin & InBlock];
+            beforeBin += binCount;
+            bin++;
+            binCount = _bins[bin & InBlock];
         }
-        double low = _bin * _width;
-        double high = _bin == _lastBin ? Math.Max(_maximum, low) : low + _width;
-        double value = low + (high - low) * ((rank - _beforeBin) + 0.5) / _binCount;
+        (_beforeBin, _binCount, _bin) = (beforeBin, binCount, bin);
+        double low = bin * _width;
+        double high = bin == _lastBin ? Math.Max(_maximum, low) : low + _width;
+        double value = low + (high - low) * ((rank - beforeBin) + 0.5) / binCount;
         return Math.Clamp(value, _minimum, _maximum);
     }
 

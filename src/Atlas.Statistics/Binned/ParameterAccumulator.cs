@@ -43,6 +43,7 @@ internal sealed class ParameterAccumulator
     public bool HasSeries { get; private set; }
 
     /// <summary>Sizes the per-slot and per-year stores for a calendar (allocating only when it changes shape).</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public void Prepare(TimelineCalendar calendar)
     {
         if (ReferenceEquals(calendar, _calendar)) return;
@@ -238,6 +239,7 @@ internal sealed class ParameterAccumulator
     }
 
     /// <summary>Forgets the current cell, touching only what it used.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public void Clear()
     {
         if (!HasSeries) return;
@@ -247,6 +249,7 @@ internal sealed class ParameterAccumulator
         Array.Clear(_slotExceedances);
     }
 
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private ReadOnlySpan<FixedBinHistogram> HistogramsOf(AtlasPeriod period)
     {
         switch (period.Kind)

@@ -87,34 +87,42 @@ internal static class RunScan
         var missing = Vector256.Create(MissingBin);
         var smallest = Vector256.Create(float.PositiveInfinity);
         var largest = Vector256.Create(float.NegativeInfinity);
-        Span<Vector256<int>> above = stackalloc Vector256<int>[thresholds.Length];
-        above.Clear();
         ref float source = ref MemoryMarshal.GetReference(values);
         ref int binOut = ref MemoryMarshal.GetReference(bins);
         ref double offsetOut = ref MemoryMarshal.GetReference(offsets);
-        int i = 0;
+        int valid = 0, i = 0;
         for (; i + lanes <= values.Length; i += lanes)
         {
             var x = Vector256.LoadUnsafe(ref source, (nuint)i);
-            var valid = Vector256.GreaterThanOrEqual(x, low) & Vector256.LessThanOrEqual(x, high);
-            count += BitOperations.PopCount(valid.ExtractMostSignificantBits());
-            smallest = Vector256.ConditionalSelect(valid & Vector256.LessThan(x, smallest), x, smallest);
-            largest = Vector256.ConditionalSelect(valid & Vector256.GreaterThan(x, largest), x, largest);
-            for (int t = 0; t < above.Length; t++)
-                above[t] -= (Vector256.GreaterThan(x, Vector256.Create(thresholds[t])) & valid).AsInt32();
-
+            var mask = Vector256.GreaterThanOrEqual(x, low) & Vector256.LessThanOrEqual(x, high);
+            valid += BitOperations.PopCount(mask.ExtractMostSignificantBits());
+            smallest = Vector256.ConditionalSelect(mask & Vector256.LessThan(x, smallest), x, smallest);
+            largest = Vector256.ConditionalSelect(mask & Vector256.GreaterThan(x, largest), x, largest);
             var (lower, upper) = Vector256.Widen(x);
-            var (validLower, validUpper) = Vector256.Widen(valid.AsInt32());
-            Vector256.ConditionalSelect(validLower.AsDouble(), lower - shifts, Vector256<double>.Zero).StoreUnsafe(ref offsetOut, (nuint)i);
-            Vector256.ConditionalSelect(validUpper.AsDouble(), upper - shifts, Vector256<double>.Zero).StoreUnsafe(ref offsetOut, (nuint)(i + lanes / 2));
+            var (maskLower, maskUpper) = Vector256.Widen(mask.AsInt32());
+            Vector256.ConditionalSelect(maskLower.AsDouble(), lower - shifts, Vector256<double>.Zero).StoreUnsafe(ref offsetOut, (nuint)i);
+            Vector256.ConditionalSelect(maskUpper.AsDouble(), upper - shifts, Vector256<double>.Zero).StoreUnsafe(ref offsetOut, (nuint)(i + lanes / 2));
             var bin = Vector256.Narrow(Bins(lower, inverse, overflow), Bins(upper, inverse, overflow));
-            Vector256.ConditionalSelect(valid.AsInt32(), bin, missing).StoreUnsafe(ref binOut, (nuint)i);
+            Vector256.ConditionalSelect(mask.AsInt32(), bin, missing).StoreUnsafe(ref binOut, (nuint)i);
         }
-        for (int t = 0; t < above.Length; t++) exceeding[t] += Vector256.Sum(above[t]);
+        count += valid;
         for (int l = 0; l < lanes; l++)
         {
             if (smallest[l] < minimum) minimum = smallest[l];
             if (largest[l] > maximum) maximum = largest[l];
+        }
+        // One threshold at a time, so that its count stays in a register.
+        for (int t = 0; t < thresholds.Length; t++)
+        {
+            var threshold = Vector256.Create(thresholds[t]);
+            var above = Vector256<int>.Zero;
+            for (int j = 0; j < i; j += lanes)
+            {
+                var x = Vector256.LoadUnsafe(ref source, (nuint)j);
+                var mask = Vector256.GreaterThanOrEqual(x, low) & Vector256.LessThanOrEqual(x, high);
+                above -= (Vector256.GreaterThan(x, threshold) & mask).AsInt32();
+            }
+            exceeding[t] += Vector256.Sum(above);
         }
         return i;
     }
@@ -124,10 +132,9 @@ internal static class RunScan
     private static Vector256<long> Bins(Vector256<double> x, Vector256<double> inverse, Vector256<double> overflow)
     {
         var position = x * inverse;
-        // Positions at or above the overflow bin (and any not a number, whose lane is missing anyway) are clamped first,
-        // so that the conversion only ever truncates a value below it.
-        var clamped = Vector256.ConditionalSelect(Vector256.GreaterThanOrEqual(position, overflow) | ~Vector256.Equals(position, position), overflow, position);
-        return Vector256.ConvertToInt64(clamped);
+        // Positions at or above the overflow bin are clamped first, so that the conversion only ever truncates a value in
+        // range; a lane that is not a number is a missing step, whose bin the caller replaces.
+        return Vector256.ConvertToInt64Native(Vector256.ConditionalSelect(Vector256.GreaterThanOrEqual(position, overflow), overflow, position));
     }
 
     [MethodImpl(MethodImplOptions.AggressiveOptimization)]

@@ -42,28 +42,37 @@ internal ref struct WeightedBinWalk
     {
         if (target >= _beforeBlock + _blockMass)
         {
-            while (target >= _beforeBlock + _blockMass && _block < _highBlock)
+            // Walked in locals (the walk's own fields live in memory beside its block of counts).
+            double beforeBlock = _beforeBlock, blockMass = _blockMass;
+            int block = _block;
+            while (target >= beforeBlock + blockMass && block < _highBlock)
             {
-                _beforeBlock += _blockMass;
-                _block++;
-                _blockMass = BlockMass(_block);
+                beforeBlock += blockMass;
+                block++;
+                blockMass = BlockMass(block);
             }
-            _bin = _block << FixedBinHistogram.BlockShift;
-            _beforeBin = _beforeBlock;
+            (_beforeBlock, _blockMass, _block) = (beforeBlock, blockMass, block);
+            _bin = block << FixedBinHistogram.BlockShift;
+            _beforeBin = beforeBlock;
             LoadBlock();
             LoadBin();
         }
         // Bins are walked within the block (up to the overflow bin).
-        while ((target >= _beforeBin + _binMass || _binCount == 0) && _bin < Math.Min((_block + 1) << FixedBinHistogram.BlockShift, _lastBin + 1) - 1)
+        double beforeBin = _beforeBin, binMass = _binMass;
+        long binCount = _binCount;
+        int bin = _bin, end = Math.Min((_block + 1) << FixedBinHistogram.BlockShift, _lastBin + 1) - 1;
+        while ((target >= beforeBin + binMass || binCount == 0) && bin < end)
         {
-            _beforeBin += _binMass;
-            _bin++;
-            LoadBin();
+            beforeBin += binMass;
+            bin++;
+            binMass = _masses[bin & InBlock];
+            binCount = _counts[bin & InBlock];
         }
-        double each = _binMass / Math.Max(_binCount, 1);
-        double position = each > 0 ? (target - _beforeBin) / each : 0;
-        _index = (int)Math.Clamp(Math.Floor(position), 0, Math.Max(_binCount - 1, 0));
-        return (ValueAt(_bin, _index, _binCount), Math.Clamp(position - _index, 0, 1));
+        (_beforeBin, _binMass, _binCount, _bin) = (beforeBin, binMass, binCount, bin);
+        double each = binMass / Math.Max(binCount, 1);
+        double position = each > 0 ? (target - beforeBin) / each : 0;
+        _index = (int)Math.Clamp(Math.Floor(position), 0, Math.Max(binCount - 1, 0));
+        return (ValueAt(bin, _index, binCount), Math.Clamp(position - _index, 0, 1));
     }
 
     /// <summary>The estimated value after the last one estimated (in the same bin, or the first of the next bin with values).</summary>
