@@ -27,6 +27,8 @@ public sealed class StatisticBlockAssembler(IReadOnlyList<int> targets, int cell
     {
         var missing = targets.GroupBy(StatisticBlock.BlockOf).ToDictionary(g => g.Key, g => g.Count());
         var open = new Dictionary<int, (List<int> Cells, StatisticBlockBuilder Builder)>();
+        // Builders of closed blocks, reused for the next ones (cells arrive nearly in order, so few are ever open).
+        var spare = new Stack<StatisticBlockBuilder>();
         var batch = NewBatch();
         async Task CloseAsync(int block)
         {
@@ -34,6 +36,7 @@ public sealed class StatisticBlockAssembler(IReadOnlyList<int> targets, int cell
             open.Remove(block);
             batch.Cells.AddRange(blockCells);
             batch.Blocks.AddRange(builder.Build());
+            spare.Push(builder);
             if (batch.Cells.Count < cellsPerBatch) return;
             await batches.WriteAsync(batch, cancel);
             batch = NewBatch();
@@ -42,7 +45,11 @@ public sealed class StatisticBlockAssembler(IReadOnlyList<int> targets, int cell
         {
             var block = StatisticBlock.BlockOf(cell);
             if (!open.TryGetValue(block, out var pending))
-                open[block] = pending = (new List<int>(StatisticBlock.CellsPerBlock), new StatisticBlockBuilder(block));
+            {
+                var builder = spare.TryPop(out var reused) ? reused : new StatisticBlockBuilder(block);
+                builder.Restart(block);
+                open[block] = pending = (new List<int>(StatisticBlock.CellsPerBlock), builder);
+            }
             pending.Cells.Add(cell);
             foreach (var row in rows)
             {

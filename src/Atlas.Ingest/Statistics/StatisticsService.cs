@@ -31,7 +31,7 @@ namespace Atlas.Ingest.Statistics;
 public sealed class StatisticsService(NpgsqlDataSource dataSource, StatisticsOptions? options = null)
 {
     private readonly StatisticsOptions _options = Checked(options ?? new StatisticsOptions());
-    private const int CellsPerBatch = 2000;
+    private const int CellsPerBatch = 1024;
     private const int WriterConnections = 2;
 
     public async Task<StatisticsSummary> RunAsync(string slug, bool all, IProgress<ProgressSnapshot>? progress = null, CancellationToken cancel = default)

@@ -5,13 +5,21 @@ namespace Atlas.Storage.Statistics;
 /// <summary>
 /// Gathers the statistic rows of one block of cells as they are computed, straight into per-column arrays, so that no
 /// row object outlives its cell; <see cref="Build"/> then gives the block's stored form, one
-/// <see cref="StatisticBlock"/> per parameter and period, cells ascending.
+/// <see cref="StatisticBlock"/> per parameter and period, cells ascending. <see cref="Restart"/> makes it ready for another
+/// block with the arrays it has, so that a pass does not leave a block's worth of them behind for every block.
 /// </summary>
 public sealed class StatisticBlockBuilder(int block)
 {
     private readonly Dictionary<(WaveParameter Parameter, AtlasPeriod Period), Group> _groups = [];
 
-    public int Block { get; } = block;
+    public int Block { get; private set; } = block;
+
+    /// <summary>Forgets every row and starts gathering the rows of <paramref name="block"/>.</summary>
+    public void Restart(int block)
+    {
+        Block = block;
+        foreach (var group in _groups.Values) group.Clear();
+    }
 
     /// <summary>Adds one row; its cell must belong to this block, and appear once per parameter and period.</summary>
     [MethodImpl(MethodImplOptions.AggressiveOptimization)]
@@ -30,7 +38,7 @@ public sealed class StatisticBlockBuilder(int block)
     {
         var blocks = new List<StatisticBlock>(_groups.Count);
         foreach (var ((parameter, period), group) in _groups.OrderBy(g => g.Key))
-            blocks.Add(group.Build(parameter, period, Block));
+            if (group.Rows > 0) blocks.Add(group.Build(parameter, period, Block));
         return blocks;
     }
 
@@ -43,9 +51,21 @@ public sealed class StatisticBlockBuilder(int block)
         private readonly bool[] _present = new bool[StatisticBlock.CellsPerBlock];
         private readonly int[] _counts = new int[StatisticBlock.CellsPerBlock];
         private readonly float[][] _columns = [.. Enumerable.Range(0, 9).Select(_ => new float[StatisticBlock.CellsPerBlock])];
-        private readonly float[]?[] _extra = new float[]?[StatisticBlock.CellsPerBlock];
-        private int _rows, _width;
+        // Each row's fractions copied in (place-major, _stride per place), so that the row's own array dies with the row.
+        private readonly int[] _extraLength = new int[StatisticBlock.CellsPerBlock];
+        private float[] _extra = [];
+        private int _rows, _width, _stride;
         private int? _duplicate;
+
+        public int Rows => _rows;
+
+        public void Clear()
+        {
+            Array.Clear(_present);
+            Array.Clear(_extraLength);
+            _rows = _width = 0;
+            _duplicate = null;
+        }
 
         [MethodImpl(MethodImplOptions.AggressiveOptimization)]
         public void Add(StatisticRow row, int place)
@@ -67,8 +87,11 @@ public sealed class StatisticBlockBuilder(int block)
             _columns[6][place] = Stored(row.P50);
             _columns[7][place] = Stored(row.P90);
             _columns[8][place] = Stored(row.P99);
-            _extra[place] = row.Fractions;
-            if (row.Fractions is { } extra) _width = Math.Max(_width, extra.Length);
+            var fractions = row.Fractions ?? [];
+            if (fractions.Length > _stride) Widen(fractions.Length);
+            fractions.CopyTo(_extra, place * _stride);
+            _extraLength[place] = fractions.Length;
+            _width = Math.Max(_width, fractions.Length);
         }
 
         [MethodImpl(MethodImplOptions.AggressiveOptimization)]
@@ -90,11 +113,20 @@ public sealed class StatisticBlockBuilder(int block)
                 ids[i] = block * StatisticBlock.CellsPerBlock + place;
                 counts[i] = _counts[place];
                 for (var c = 0; c < columns.Length; c++) columns[c][i] = _columns[c][place];
-                if (extra is not null && _extra[place] is { } fractions) fractions.CopyTo(extra, i * _width);
+                if (extra is not null) _extra.AsSpan(place * _stride, _extraLength[place]).CopyTo(extra.AsSpan(i * _width));
                 i++;
             }
             return new StatisticBlock(parameter, period, block, ids, counts, columns[0], columns[1], columns[2], columns[3], columns[4],
                 columns[5], columns[6], columns[7], columns[8], _width, extra);
+        }
+
+        /// <summary>Room for rows of <paramref name="width"/> fractions, keeping those already placed.</summary>
+        private void Widen(int width)
+        {
+            var wider = new float[StatisticBlock.CellsPerBlock * width];
+            for (var place = 0; place < StatisticBlock.CellsPerBlock; place++)
+                if (_present[place]) _extra.AsSpan(place * _stride, _extraLength[place]).CopyTo(wider.AsSpan(place * width));
+            (_extra, _stride) = (wider, width);
         }
 
         private static float Stored(float? value) => value is { } v && float.IsFinite(v) ? v : float.NaN;
