@@ -20,6 +20,9 @@ public sealed class CellCalculators(StatisticsOptions options, long[] times, int
     /// </summary>
     public IReadOnlyDictionary<(int Cell, AtlasPeriod Period), double>? SpectralDirectionality { get; init; }
 
+    /// <summary>Where the lists of rows come from; the assembler gives them back.</summary>
+    public RowListPool RowLists { get; init; } = new();
+
     /// <summary>The running workers; started by <see cref="Start"/>.</summary>
     public Task[] Workers { get; private set; } = [];
 
@@ -36,7 +39,7 @@ public sealed class CellCalculators(StatisticsOptions options, long[] times, int
         var calculator = new BinnedCellCalculator(options);
         await foreach (var buffer in work.ReadAllAsync(cancel))
         {
-            var rows = new List<StatisticRow>(160);
+            var rows = RowLists.Rent();
             StatisticRows.Append(buffer.CellId, calculator.Compute(buffer.AsSeries(times)), rows);
             if (SpectralDirectionality is { } spectral)
                 for (int k = 0; k < rows.Count; k++)

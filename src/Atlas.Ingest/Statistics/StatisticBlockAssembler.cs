@@ -16,6 +16,9 @@ public sealed class StatisticBlockAssembler(IReadOnlyList<int> targets, int cell
 {
     private readonly HashSet<AtlasPeriod> _periods = [];
 
+    /// <summary>Where the lists of rows go back once their rows are placed.</summary>
+    public RowListPool? RowLists { get; init; }
+
     /// <summary>Rows assembled so far.</summary>
     public long Rows { get; private set; }
 
@@ -57,6 +60,7 @@ public sealed class StatisticBlockAssembler(IReadOnlyList<int> targets, int cell
                 _periods.Add(row.Period);
             }
             Rows += rows.Count;
+            RowLists?.Return(rows);
             if (--missing[block] == 0) await CloseAsync(block);
         }
         foreach (var block in open.Keys.Order().ToArray()) await CloseAsync(block);
