@@ -37,10 +37,12 @@ public sealed class CellCalculators(StatisticsOptions options, long[] times, int
         CancellationToken cancel)
     {
         var calculator = new BinnedCellCalculator(options);
+        var statistics = new BinnedCellResults();
         await foreach (var buffer in work.ReadAllAsync(cancel))
         {
             var rows = RowLists.Rent();
-            StatisticRows.Append(buffer.CellId, calculator.Compute(buffer.AsSeries(times)), rows);
+            calculator.Compute(buffer.AsSeries(times), statistics);
+            StatisticRows.Append(buffer.CellId, statistics, rows);
             if (SpectralDirectionality is { } spectral)
                 for (int k = 0; k < rows.Count; k++)
                     if (rows[k].Parameter == WaveParameter.D && spectral.TryGetValue((buffer.CellId, rows[k].Period), out double d))

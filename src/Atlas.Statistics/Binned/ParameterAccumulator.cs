@@ -196,14 +196,16 @@ internal sealed class ParameterAccumulator
             quantiles[0], quantiles[1], quantiles[2], quantiles[3], n, coverage);
     }
 
+    /// <summary>The thresholds, in the order of the fractions.</summary>
+    public ReadOnlySpan<double> Thresholds => _thresholds;
+
     /// <summary>
-    /// Exceedance fractions of a period at the accumulator's thresholds (NaN fractions when no step is valid);
-    /// month-balanced for seasons and the annual period, as <see cref="Summarise"/>.
+    /// Exceedance fractions of a period at the accumulator's thresholds, one per threshold into <paramref name="fractions"/>
+    /// (NaN when no step is valid); month-balanced for seasons and the annual period, as <see cref="Summarise"/>.
     /// </summary>
     [MethodImpl(MethodImplOptions.AggressiveOptimization)]
-    public ExceedanceFraction[] Exceedances(AtlasPeriod period, long validSteps)
+    public void ExceedancesInto(AtlasPeriod period, long validSteps, Span<double> fractions)
     {
-        var result = new ExceedanceFraction[_thresholds.Length];
         ReadOnlySpan<int> slots = HasSeries ? _calendar!.SlotsOf(period) : [];
         Span<double> weights = stackalloc double[12];
         bool balanced = HasSeries && validSteps > 0 && MonthBalance.Applies(period) && BalanceWeights(period, weights, out _);
@@ -218,10 +220,8 @@ internal sealed class ParameterAccumulator
                 long count = _slotExceedances[slot * _thresholds.Length + t];
                 above += balanced ? weights[slot % 12] * count : count;
             }
-            double fraction = !HasSeries || validSteps <= 0 ? double.NaN : balanced ? above / weightSum : above / validSteps;
-            result[t] = new ExceedanceFraction(_thresholds[t], fraction);
+            fractions[t] = !HasSeries || validSteps <= 0 ? double.NaN : balanced ? above / weightSum : above / validSteps;
         }
-        return result;
     }
 
     /// <summary>The month weights of a climatological period and its moments per calendar month; false when they are equal.</summary>
