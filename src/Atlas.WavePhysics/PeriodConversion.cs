@@ -1,3 +1,5 @@
+using System.Runtime.CompilerServices;
+
 namespace Atlas.WavePhysics;
 
 /// <summary>
@@ -26,6 +28,7 @@ public static class PeriodConversion
         energyPeriodSeconds / EnergyToPeakPeriodRatio(shape);
 
     /// <summary>Te per step from Tp per step; NaN, zero or negative Tp gives NaN.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public static void EnergyPeriodFromPeakPeriod(ReadOnlySpan<float> peakPeriodSeconds, Span<float> energyPeriodSeconds,
         SpectrumShape shape = SpectrumShape.JonswapGamma33)
     {

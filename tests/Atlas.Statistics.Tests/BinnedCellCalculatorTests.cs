@@ -249,6 +249,37 @@ public class BinnedCellCalculatorTests(InventedSeriesReference reference)
         }
     }
 
+    // The reused arrays the statistics pass reads, filled for cells of another shape in between (three years, then one
+    // year with other thresholds' worth of fractions), hold what Compute gives as objects for the same cell.
+    [Fact]
+    public void ResultsComputedIntoReusedArraysEqualTheObjectsOfCompute()
+    {
+        var cell = new InventedSeries(seed: 4) { DepthMetres = 12 };
+        var results = new BinnedCellResults();
+        new BinnedCellCalculator(new StatisticsOptions { HsThresholdsMetres = [0.5, 1, 2, 3, 4, 5, 6, 7] }).Compute(new InventedSeries(years: 1, seed: 5).Series(), results);
+        var calculator = new BinnedCellCalculator();
+        calculator.Compute(new InventedSeries(years: 3, seed: 6).Series(), results);
+        calculator.Compute(cell.Series(), results);
+        BinnedCellStatistics expected = new BinnedCellCalculator().Compute(cell.Series());
+        Assert.Equal(expected.Periods.Count, results.PeriodCount);
+        Assert.Equal(expected.DepthMetres, results.DepthMetres);
+        for (int i = 0; i < results.PeriodCount; i++)
+        {
+            PeriodStatistics e = expected.Periods[i];
+            ref readonly PeriodResult p = ref results.Period(i);
+            Assert.Equal(i, results.IndexOf(e.Period));
+            Assert.Equal((e.Period, e.ExpectedSteps, e.Hs, e.Te, e.Tp, e.J, e.Spread, e.D, e.LowCoverage),
+                (p.Period, p.ExpectedSteps, p.Hs, p.Te, p.Tp, p.J, p.Spread, p.D, p.LowCoverage));
+            Assert.Equal((e.Direction.Mean, e.Direction.Spread, e.Direction.Count, e.Direction.Coverage, e.Direction.DirectionalityCoefficient, e.Direction.MaxPowerFromDeg),
+                (p.Direction.Mean, p.Direction.Spread, p.Direction.Count, p.Direction.Coverage, p.DirectionalityCoefficient, p.MaxPowerFromDeg));
+            Assert.Equal(e.Direction.PowerRose, results.PowerRose(i).ToArray());
+            Assert.Equal(e.HsExceedance.Select(f => f.Fraction), results.HsExceedance(i).ToArray());
+            Assert.Equal(e.PowerExceedance.Select(f => f.Fraction), results.PowerExceedance(i).ToArray());
+            Assert.Equal(e.HsExceedance.Select(f => f.Threshold), results.HsThresholds.ToArray());
+        }
+        Assert.Equal(-1, results.IndexOf(AtlasPeriod.Year(1999)));
+    }
+
     // A whole year without gaps: the month weights are equal, so the month-balanced annual period is the year itself.
     [Fact]
     public void SingleWholeYearGivesTheYearTheAnnualStatistics()

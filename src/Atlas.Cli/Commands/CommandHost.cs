@@ -1,5 +1,6 @@
 using Atlas.Ingest.Hosting;
 using Atlas.Ingest.Validation;
+using Microsoft.Extensions.Configuration;
 using Microsoft.Extensions.DependencyInjection;
 using Microsoft.Extensions.Hosting;
 using Microsoft.Extensions.Options;
@@ -18,7 +19,11 @@ public static class CommandHost
     /// <param name="more">Services a command adds to the common ones (<c>atlas report</c> adds the point and report services of the API).</param>
     public static IHost Build(NpgsqlDataSource dataSource, Action<IServiceCollection>? more = null)
     {
-        var builder = Host.CreateApplicationBuilder();
+        // A command reads its configuration once: no watcher on appsettings.json, which would watch every folder under the
+        // current one (a repository, say) for the whole run.
+        var settings = new HostApplicationBuilderSettings { Configuration = new ConfigurationManager() };
+        settings.Configuration.AddInMemoryCollection([new("hostBuilder:reloadConfigOnChange", "false")]);
+        var builder = Host.CreateApplicationBuilder(settings);
         builder.Services.AddSingleton(dataSource);
         builder.Services.AddAtlasJobs();
         builder.Services.AddStationValidation();

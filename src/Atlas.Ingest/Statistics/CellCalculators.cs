@@ -20,6 +20,9 @@ public sealed class CellCalculators(StatisticsOptions options, long[] times, int
     /// </summary>
     public IReadOnlyDictionary<(int Cell, AtlasPeriod Period), double>? SpectralDirectionality { get; init; }
 
+    /// <summary>Where the lists of rows come from; the assembler gives them back.</summary>
+    public RowListPool RowLists { get; init; } = new();
+
     /// <summary>The running workers; started by <see cref="Start"/>.</summary>
     public Task[] Workers { get; private set; } = [];
 
@@ -34,10 +37,12 @@ public sealed class CellCalculators(StatisticsOptions options, long[] times, int
         CancellationToken cancel)
     {
         var calculator = new BinnedCellCalculator(options);
+        var statistics = new BinnedCellResults();
         await foreach (var buffer in work.ReadAllAsync(cancel))
         {
-            var rows = new List<StatisticRow>(160);
-            StatisticRows.Append(buffer.CellId, calculator.Compute(buffer.AsSeries(times)), rows);
+            var rows = RowLists.Rent();
+            calculator.Compute(buffer.AsSeries(times), statistics);
+            StatisticRows.Append(buffer.CellId, statistics, rows);
             if (SpectralDirectionality is { } spectral)
                 for (int k = 0; k < rows.Count; k++)
                     if (rows[k].Parameter == WaveParameter.D && spectral.TryGetValue((buffer.CellId, rows[k].Period), out double d))

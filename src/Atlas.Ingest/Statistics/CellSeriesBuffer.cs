@@ -1,5 +1,6 @@
 using Atlas.Statistics;
 using Atlas.Storage.Series;
+using System.Runtime.CompilerServices;
 
 namespace Atlas.Ingest.Statistics;
 
@@ -30,6 +31,7 @@ public sealed class CellSeriesBuffer
     public double DepthMetres { get; private set; }
 
     /// <summary>Empties the buffer for a cell: every step missing until its chunks are added.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public void Begin(int cellId, double depthMetres)
     {
         CellId = cellId;
@@ -55,6 +57,7 @@ public sealed class CellSeriesBuffer
     /// Decodes one chunk of the cell into its place on the time line; <paramref name="yearOffsets"/> gives each year's
     /// first step and step count. A year outside the time line is ignored.
     /// </summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public void Add(int year, ReadOnlySpan<byte> payload, IReadOnlyDictionary<int, (int Offset, int Count)> yearOffsets)
     {
         if (!yearOffsets.TryGetValue(year, out var place)) return;
@@ -77,6 +80,7 @@ public sealed class CellSeriesBuffer
     /// a chunk, or whose chunk lacks the variable), so that the series reads NaN there. Hs is always read, so it counts as
     /// present. Called once the cell's last chunk is added.
     /// </summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public void Complete()
     {
         var hs = WaveParameterGroups.SeriesIndex(WaveParameter.Hs);
@@ -89,6 +93,7 @@ public sealed class CellSeriesBuffer
         }
     }
 
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public CellSeries AsSeries(long[] times) => new()
     {
         Times = times,

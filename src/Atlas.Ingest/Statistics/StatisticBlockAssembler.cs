@@ -16,6 +16,9 @@ public sealed class StatisticBlockAssembler(IReadOnlyList<int> targets, int cell
 {
     private readonly HashSet<AtlasPeriod> _periods = [];
 
+    /// <summary>Where the lists of rows go back once their rows are placed.</summary>
+    public RowListPool? RowLists { get; init; }
+
     /// <summary>Rows assembled so far.</summary>
     public long Rows { get; private set; }
 
@@ -27,6 +30,8 @@ public sealed class StatisticBlockAssembler(IReadOnlyList<int> targets, int cell
     {
         var missing = targets.GroupBy(StatisticBlock.BlockOf).ToDictionary(g => g.Key, g => g.Count());
         var open = new Dictionary<int, (List<int> Cells, StatisticBlockBuilder Builder)>();
+        // Builders of closed blocks, reused for the next ones (cells arrive nearly in order, so few are ever open).
+        var spare = new Stack<StatisticBlockBuilder>();
         var batch = NewBatch();
         async Task CloseAsync(int block)
         {
@@ -34,6 +39,7 @@ public sealed class StatisticBlockAssembler(IReadOnlyList<int> targets, int cell
             open.Remove(block);
             batch.Cells.AddRange(blockCells);
             batch.Blocks.AddRange(builder.Build());
+            spare.Push(builder);
             if (batch.Cells.Count < cellsPerBatch) return;
             await batches.WriteAsync(batch, cancel);
             batch = NewBatch();
@@ -42,7 +48,11 @@ public sealed class StatisticBlockAssembler(IReadOnlyList<int> targets, int cell
         {
             var block = StatisticBlock.BlockOf(cell);
             if (!open.TryGetValue(block, out var pending))
-                open[block] = pending = (new List<int>(StatisticBlock.CellsPerBlock), new StatisticBlockBuilder(block));
+            {
+                var builder = spare.TryPop(out var reused) ? reused : new StatisticBlockBuilder(block);
+                builder.Restart(block);
+                open[block] = pending = (new List<int>(StatisticBlock.CellsPerBlock), builder);
+            }
             pending.Cells.Add(cell);
             foreach (var row in rows)
             {
@@ -50,6 +60,7 @@ public sealed class StatisticBlockAssembler(IReadOnlyList<int> targets, int cell
                 _periods.Add(row.Period);
             }
             Rows += rows.Count;
+            RowLists?.Return(rows);
             if (--missing[block] == 0) await CloseAsync(block);
         }
         foreach (var block in open.Keys.Order().ToArray()) await CloseAsync(block);

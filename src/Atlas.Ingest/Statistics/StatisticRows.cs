@@ -1,3 +1,4 @@
+using System.Runtime.CompilerServices;
 using Atlas.Statistics;
 using Atlas.Storage.Statistics;
 
@@ -13,30 +14,39 @@ public static class StatisticRows
 {
     private static readonly WaveParameter[] Summarised = [WaveParameter.Hs, WaveParameter.Te, WaveParameter.Tp, WaveParameter.J, WaveParameter.Spread, WaveParameter.D];
 
-    public static void Append(int cellId, BinnedCellStatistics statistics, List<StatisticRow> rows)
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
+    public static void Append(int cellId, BinnedCellResults statistics, List<StatisticRow> rows)
     {
-        var annual = statistics.Find(AtlasPeriod.Annual);
-        foreach (var period in statistics.Periods)
+        int annual = statistics.IndexOf(AtlasPeriod.Annual);
+        for (int i = 0; i < statistics.PeriodCount; i++)
         {
+            ref readonly PeriodResult period = ref statistics.Period(i);
             foreach (var parameter in Summarised)
             {
-                if (annual is not null && annual.Summary(parameter).Count == 0 && parameter != WaveParameter.Hs) continue;
+                if (annual >= 0 && statistics.Period(annual).Summary(parameter).Count == 0 && parameter != WaveParameter.Hs) continue;
                 var s = period.Summary(parameter);
                 float[]? extra = parameter switch
                 {
-                    WaveParameter.Hs => period.HsExceedance.Select(e => (float)e.Fraction).ToArray(),
-                    WaveParameter.J => period.PowerExceedance.Select(e => (float)e.Fraction).ToArray(),
+                    WaveParameter.Hs => Singles(statistics.HsExceedance(i)),
+                    WaveParameter.J => Singles(statistics.PowerExceedance(i)),
                     _ => null,
                 };
                 rows.Add(new StatisticRow(cellId, period.Period, parameter, F(s.Mean), F(s.Sd), F(s.Min), F(s.Max),
                     F(s.P10), F(s.P50), F(s.P90), F(s.P99), (int)s.Count, (float)s.Coverage, extra));
             }
-            if (annual is not null && annual.Direction.Count == 0) continue;
+            if (annual >= 0 && statistics.Period(annual).Direction.Count == 0) continue;
             var d = period.Direction;
             rows.Add(new StatisticRow(cellId, period.Period, WaveParameter.Dir, F(d.Mean), F(d.Spread), null, null, null, null, null, null,
-                (int)d.Count, (float)d.Coverage, d.PowerRose.Select(f => (float)f).ToArray()));
+                (int)d.Count, (float)d.Coverage, Singles(statistics.PowerRose(i))));
         }
     }
 
     private static float? F(double value) => double.IsFinite(value) ? (float)value : null;
+
+    private static float[] Singles(ReadOnlySpan<double> values)
+    {
+        var singles = new float[values.Length];
+        for (var i = 0; i < singles.Length; i++) singles[i] = (float)values[i];
+        return singles;
+    }
 }

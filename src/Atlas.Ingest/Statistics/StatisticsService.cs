@@ -31,7 +31,7 @@ namespace Atlas.Ingest.Statistics;
 public sealed class StatisticsService(NpgsqlDataSource dataSource, StatisticsOptions? options = null)
 {
     private readonly StatisticsOptions _options = Checked(options ?? new StatisticsOptions());
-    private const int CellsPerBatch = 2000;
+    private const int CellsPerBatch = 1024;
     private const int WriterConnections = 2;
 
     public async Task<StatisticsSummary> RunAsync(string slug, bool all, IProgress<ProgressSnapshot>? progress = null, CancellationToken cancel = default)
@@ -100,14 +100,16 @@ public sealed class StatisticsService(NpgsqlDataSource dataSource, StatisticsOpt
             SpectralPower = await SpectralPowerAsync(datasetId, cancel),
         };
         var produced = Task.Run(() => producer.RunAsync(free.Reader, work.Writer, token), token);
+        var rowLists = new RowListPool();
         var calculators = new CellCalculators(_options, timeline.Times, workers)
         {
+            RowLists = rowLists,
             SpectralDirectionality = await SpectralDirectionalityAsync(datasetId, targets, timeline, cancel),
         };
         var calculated = calculators.Start(work.Reader, free.Writer, results.Writer, token);
         var writer = new StatisticBatchWriter(store, targets.Length, progress, clock);
         var written = writer.Start(batches.Reader, WriterConnections, linked);
-        var assembler = new StatisticBlockAssembler(targets, CellsPerBatch);
+        var assembler = new StatisticBlockAssembler(targets, CellsPerBatch) { RowLists = rowLists };
         try
         {
             await assembler.RunAsync(results.Reader, batches.Writer, token);

@@ -1,3 +1,5 @@
+using System.Runtime.CompilerServices;
+
 namespace Atlas.Statistics.Binned;
 
 /// <summary>
@@ -25,6 +27,8 @@ public sealed class BinnedCellCalculator
     private readonly DirectionAccumulator _direction = new();
     private readonly DirectionalityAccumulator _directionality = new();
     private TimelineCalendar? _calendar;
+    private BinnedCellResults? _results;
+    private readonly double[] _hsThresholds, _powerThresholds;
 
     /// <summary>A calculator with the given settings (the defaults when null).</summary>
     /// <exception cref="ArgumentException">A setting is not usable; the message names it.</exception>
@@ -37,6 +41,8 @@ public sealed class BinnedCellCalculator
         _tp = new ParameterAccumulator(WaveParameter.Tp, Options.PeriodBinning, []);
         _power = new ParameterAccumulator(WaveParameter.J, Options.PowerBinning, Options.PowerThresholdsKilowattsPerMetre);
         _spread = new ParameterAccumulator(WaveParameter.Spread, Options.SpreadBinning, []);
+        _hsThresholds = [.. Options.HsThresholdsMetres];
+        _powerThresholds = [.. Options.PowerThresholdsKilowattsPerMetre];
     }
 
     /// <summary>The settings.</summary>
@@ -49,6 +55,20 @@ public sealed class BinnedCellCalculator
     /// <exception cref="ArgumentException">The series lengths disagree, the depth is not positive, or a time is out of range.</exception>
     public BinnedCellStatistics Compute(in CellSeries series)
     {
+        var results = _results ??= new BinnedCellResults();
+        Compute(series, results);
+        return results.ToStatistics();
+    }
+
+    /// <summary>
+    /// Statistics of one cell into <paramref name="into"/>, the same as <see cref="Compute(in CellSeries)"/> gives but
+    /// held in reused arrays: nothing is allocated once the arrays have the timeline's shape.
+    /// </summary>
+    /// <exception cref="ArgumentException">The series lengths disagree, the depth is not positive, or a time is out of range.</exception>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
+    public void Compute(in CellSeries series, BinnedCellResults into)
+    {
+        ArgumentNullException.ThrowIfNull(into);
         series.Validate();
         TimelineCalendar calendar = CalendarFor(series.Times);
         try
@@ -70,9 +90,9 @@ public sealed class BinnedCellCalculator
                 }
             }
 
-            var periods = new PeriodStatistics[calendar.PeriodsPresent.Count];
-            for (int i = 0; i < periods.Length; i++) periods[i] = Summarise(calendar, calendar.PeriodsPresent[i], derived.Power.Length > 0);
-            return new BinnedCellStatistics(series.DepthMetres, derived.DeepWaterAssumed, derived.EnergyPeriodSource, periods);
+            into.Begin(calendar.PeriodsPresent.Count, _hsThresholds, _powerThresholds, series.DepthMetres, derived.DeepWaterAssumed,
+                derived.EnergyPeriodSource);
+            for (int i = 0; i < into.PeriodCount; i++) Summarise(calendar, calendar.PeriodsPresent[i], derived.Power.Length > 0, into, i);
         }
         finally
         {
@@ -86,7 +106,8 @@ public sealed class BinnedCellCalculator
         }
     }
 
-    private PeriodStatistics Summarise(TimelineCalendar calendar, AtlasPeriod period, bool hasPower)
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
+    private void Summarise(TimelineCalendar calendar, AtlasPeriod period, bool hasPower, BinnedCellResults into, int index)
     {
         long expected = calendar.ExpectedSteps(period);
         SummaryStatistics hs = _hs.Summarise(period, expected);
@@ -98,7 +119,10 @@ public sealed class BinnedCellCalculator
         ReadOnlySpan<int> slots = calendar.SlotsOf(period);
         bool balanced = MonthBalance.Applies(period);
         PeriodDirectionality directionality = _directionality.Summarise(slots, expected, expectedByMonth, balanced);
-        return new PeriodStatistics(
+        DirectionSummary direction = _direction.SummariseInto(slots, expected, expectedByMonth, balanced, into.RoseOf(index));
+        _hs.ExceedancesInto(period, hs.Count, into.HsExceedanceOf(index));
+        _power.ExceedancesInto(period, power.Count, into.PowerExceedanceOf(index));
+        into.Set(index, new PeriodResult(
             period,
             expected,
             hs,
@@ -107,14 +131,10 @@ public sealed class BinnedCellCalculator
             power,
             _spread.Summarise(period, expected),
             directionality.AsSummary(),
-            _direction.Summarise(slots, expected, expectedByMonth, balanced) with
-            {
-                DirectionalityCoefficient = directionality.Coefficient,
-                MaxPowerFromDeg = directionality.MaxPowerFromDegrees,
-            },
-            _hs.Exceedances(period, hs.Count),
-            _power.Exceedances(period, power.Count),
-            coreCoverage < Options.LowCoverageThreshold);
+            direction,
+            directionality.Coefficient,
+            directionality.MaxPowerFromDegrees,
+            coreCoverage < Options.LowCoverageThreshold));
     }
 
     private static void Accumulate(ParameterAccumulator accumulator, TimelineCalendar calendar, ReadOnlySpan<float> values)

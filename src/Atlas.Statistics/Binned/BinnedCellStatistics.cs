@@ -1,4 +1,5 @@
 using System.Text.Json.Serialization;
+using System.Runtime.CompilerServices;
 
 namespace Atlas.Statistics.Binned;
 
@@ -15,6 +16,7 @@ public sealed record BinnedCellStatistics(
     IReadOnlyList<PeriodStatistics> Periods)
 {
     /// <summary>The statistics of a period, or null when the timeline has no step in it.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public PeriodStatistics? Find(AtlasPeriod period)
     {
         foreach (PeriodStatistics p in Periods)

@@ -1,3 +1,6 @@
+using System.Runtime.Intrinsics;
+using System.Runtime.CompilerServices;
+
 namespace Atlas.Statistics.Binned;
 
 /// <summary>
@@ -83,6 +86,23 @@ public sealed class FixedBinHistogram
         if (high > HighBlock) HighBlock = high;
     }
 
+    /// <summary>
+    /// Sets the block counts from the fine counts over the blocks in use, after the caller incremented only fine bins
+    /// (the fast path of the layer pass: one count per value instead of two).
+    /// </summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
+    internal void CountBlocks()
+    {
+        for (int b = LowBlock; b <= HighBlock; b++)
+        {
+            ReadOnlySpan<int> block = Fine.AsSpan(b << BlockShift, BlockSize);
+            var sum = Vector256<int>.Zero;
+            for (int i = 0; i < BlockSize; i += Vector256<int>.Count)
+                sum += Vector256.Create(block.Slice(i, Vector256<int>.Count));
+            Coarse[b] = Vector256.Sum(sum);
+        }
+    }
+
     /// <summary>Bins of the smallest and largest value, for <see cref="Record"/>.</summary>
     internal int BinOfValid(double value)
     {
@@ -91,6 +111,7 @@ public sealed class FixedBinHistogram
     }
 
     /// <summary>Empties the histogram, touching only the blocks used.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public void Clear()
     {
         for (int b = LowBlock; b <= HighBlock; b++)
@@ -119,6 +140,7 @@ public sealed class FixedBinHistogram
     /// increasing order; NaN when they hold no value.
     /// </summary>
     /// <exception cref="ArgumentException">The parts have different bins, or the probabilities are not increasing within 0..1.</exception>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public static void EstimateQuantiles(ReadOnlySpan<FixedBinHistogram> parts, ReadOnlySpan<double> probabilities, Span<double> results)
     {
         if (results.Length < probabilities.Length)
@@ -169,6 +191,7 @@ public sealed class FixedBinHistogram
     /// increase; NaN when the parts hold no weighted value.
     /// </summary>
     /// <exception cref="ArgumentException">The parts have different bins, a weight is negative, or the probabilities are not increasing within 0..1.</exception>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public static void EstimateWeightedQuantiles(ReadOnlySpan<FixedBinHistogram> parts, ReadOnlySpan<double> weights,
         ReadOnlySpan<double> probabilities, Span<double> results)
     {
@@ -204,7 +227,7 @@ public sealed class FixedBinHistogram
             return;
         }
 
-        var walk = new WeightedWalk(parts, weights, lowBlock, highBlock);
+        var walk = new WeightedBinWalk(parts, weights, lowBlock, highBlock);
         for (int q = 0; q < probabilities.Length; q++)
         {
             double p = probabilities[q];
@@ -215,172 +238,6 @@ public sealed class FixedBinHistogram
             (double lower, double fraction) = walk.Estimate(target);
             double upper = walk.EstimateNext();
             results[q] = Math.Clamp(ExactQuantile.Interpolate(lower, upper, fraction), minimum, maximum);
-        }
-    }
-
-    /// <summary>A forward walk over the weighted bins of several histograms (see <see cref="EstimateWeightedQuantiles"/>).</summary>
-    private ref struct WeightedWalk
-    {
-        private readonly ReadOnlySpan<FixedBinHistogram> _parts;
-        private readonly ReadOnlySpan<double> _weights;
-        private readonly int _highBlock, _lastBin;
-        private readonly double _width;
-        private int _block, _bin, _index;
-        private double _beforeBlock, _blockMass, _beforeBin, _binMass;
-        private long _binCount;
-
-        public WeightedWalk(ReadOnlySpan<FixedBinHistogram> parts, ReadOnlySpan<double> weights, int lowBlock, int highBlock)
-        {
-            _parts = parts;
-            _weights = weights;
-            _highBlock = highBlock;
-            _lastBin = parts[0].LastBin;
-            _width = parts[0].Binning.BinWidth;
-            _block = lowBlock;
-            _blockMass = WeightedCount(parts, weights, lowBlock, coarse: true);
-            _bin = lowBlock << BlockShift;
-            LoadBin();
-        }
-
-        /// <summary>The estimated value whose weighted rank is at or below the target, the next one's fraction of the way.</summary>
-        public (double Value, double Fraction) Estimate(double target)
-        {
-            if (target >= _beforeBlock + _blockMass)
-            {
-                while (target >= _beforeBlock + _blockMass && _block < _highBlock)
-                {
-                    _beforeBlock += _blockMass;
-                    _block++;
-                    _blockMass = WeightedCount(_parts, _weights, _block, coarse: true);
-                }
-                _bin = _block << BlockShift;
-                _beforeBin = _beforeBlock;
-                LoadBin();
-            }
-            while ((target >= _beforeBin + _binMass || _binCount == 0) && _bin < Math.Min((_block + 1) << BlockShift, _lastBin + 1) - 1)
-            {
-                _beforeBin += _binMass;
-                _bin++;
-                LoadBin();
-            }
-            double each = _binMass / Math.Max(_binCount, 1);
-            double position = each > 0 ? (target - _beforeBin) / each : 0;
-            _index = (int)Math.Clamp(Math.Floor(position), 0, Math.Max(_binCount - 1, 0));
-            return (ValueAt(_bin, _index, _binCount), Math.Clamp(position - _index, 0, 1));
-        }
-
-        /// <summary>The estimated value after the last one estimated (in the same bin, or the first of the next bin with values).</summary>
-        public readonly double EstimateNext()
-        {
-            if (_index + 1 < _binCount) return ValueAt(_bin, _index + 1, _binCount);
-            int last = ((_highBlock + 1) << BlockShift) - 1;
-            for (int bin = _bin + 1; bin <= Math.Min(last, _lastBin); bin++)
-            {
-                long c = 0;
-                foreach (FixedBinHistogram part in _parts) c += part.Fine[bin];
-                if (c > 0) return ValueAt(bin, 0, c);
-            }
-            return ValueAt(_bin, _index, _binCount);
-        }
-
-        private readonly double ValueAt(int bin, long index, long binCount)
-        {
-            // The overflow bin's values lie between the bound and the maximum; the caller's clamp keeps them below it.
-            return bin * _width + _width * (index + 0.5) / Math.Max(binCount, 1);
-        }
-
-        private void LoadBin()
-        {
-            _binMass = WeightedCount(_parts, _weights, _bin, coarse: false);
-            _binCount = 0;
-            foreach (FixedBinHistogram part in _parts) _binCount += part.Fine[_bin];
-        }
-    }
-
-    private static double WeightedCount(ReadOnlySpan<FixedBinHistogram> parts, ReadOnlySpan<double> weights, int index, bool coarse)
-    {
-        double mass = 0;
-        for (int i = 0; i < parts.Length; i++)
-        {
-            int[] counts = coarse ? parts[i].Coarse : parts[i].Fine;
-            if (index < counts.Length) mass += weights[i] * counts[index];
-        }
-        return mass;
-    }
-
-    /// <summary>
-    /// A forward walk over the combined bins that estimates order statistics of increasing rank, summing the parts'
-    /// block counts to skip whole blocks and their bin counts only inside the block that holds the rank.
-    /// </summary>
-    private ref struct OrderStatisticWalk
-    {
-        private readonly ReadOnlySpan<FixedBinHistogram> _parts;
-        private readonly double _minimum, _maximum, _width;
-        private readonly long _count;
-        private readonly int _lastBin;
-        private int _block;
-        private long _beforeBlock, _blockCount;
-        private int _bin;
-        private long _beforeBin, _binCount;
-
-        public OrderStatisticWalk(ReadOnlySpan<FixedBinHistogram> parts, int lowBlock, long count, double minimum, double maximum)
-        {
-            _parts = parts;
-            _count = count;
-            _minimum = minimum;
-            _maximum = maximum;
-            _width = parts[0].Binning.BinWidth;
-            _lastBin = parts[0].LastBin;
-            _block = lowBlock;
-            _beforeBlock = 0;
-            _blockCount = BlockCount(lowBlock);
-            _bin = lowBlock << BlockShift;
-            _beforeBin = 0;
-            _binCount = BinCount(_bin);
-        }
-
-        /// <summary>Estimated value of the order statistic of 0-based rank (ranks must not decrease between calls).</summary>
-        public double Estimate(long rank)
-        {
-            // The extremes are known exactly.
-            if (rank == 0) return _minimum;
-            if (rank == _count - 1) return _maximum;
-            if (rank >= _beforeBlock + _blockCount)
-            {
-                do
-                {
-                    _beforeBlock += _blockCount;
-                    _block++;
-                    _blockCount = BlockCount(_block);
-                } while (rank >= _beforeBlock + _blockCount);
-                _bin = _block << BlockShift;
-                _beforeBin = _beforeBlock;
-                _binCount = BinCount(_bin);
-            }
-            while (rank >= _beforeBin + _binCount)
-            {
-                _beforeBin += _binCount;
-                _bin++;
-                _binCount = BinCount(_bin);
-            }
-            double low = _bin * _width;
-            double high = _bin == _lastBin ? Math.Max(_maximum, low) : low + _width;
-            double value = low + (high - low) * ((rank - _beforeBin) + 0.5) / _binCount;
-            return Math.Clamp(value, _minimum, _maximum);
-        }
-
-        private readonly long BlockCount(int block)
-        {
-            long count = 0;
-            foreach (FixedBinHistogram part in _parts) count += part.Coarse[block];
-            return count;
-        }
-
-        private readonly long BinCount(int bin)
-        {
-            long count = 0;
-            foreach (FixedBinHistogram part in _parts) count += part.Fine[bin];
-            return count;
         }
     }
 }

@@ -1,4 +1,4 @@
-using System.Runtime.Intrinsics;
+using System.Runtime.CompilerServices;
 
 namespace Atlas.Statistics.Binned;
 
@@ -14,7 +14,12 @@ internal sealed class ParameterAccumulator
     private readonly FixedBinHistogram[] _monthHistograms = new FixedBinHistogram[12];
     private readonly FixedBinHistogram[] _parts = new FixedBinHistogram[12];
     private readonly double[] _thresholds;
-    private readonly Vector256<float>[] _thresholdVectors;
+    private readonly float[] _singleThresholds;
+    // Scratch of one group of runs read side by side (RunTally), reused from cell to cell.
+    private int[] _bins = [];
+    private double[] _offsets = [];
+    private readonly int[][] _laneFine = new int[RunTally.Lanes][];
+    private readonly int[]?[] _laneAlsoFine = new int[]?[RunTally.Lanes];
     private FixedBinHistogram[] _yearHistograms = [];
     private RunningMoments[] _slots = [];
     private readonly RunningMoments[] _monthMoments = new RunningMoments[12];
@@ -31,24 +36,14 @@ internal sealed class ParameterAccumulator
         for (int m = 0; m < 12; m++) _monthHistograms[m] = new FixedBinHistogram(binning);
         _thresholds = [.. thresholds];
         // Thresholds are compared in single precision, like the stored values: a stored 3.0 is not above 3 m.
-        int lanes = Vector256<float>.Count;
-        _thresholdVectors = new Vector256<float>[(_thresholds.Length + lanes - 1) / lanes];
-        Span<float> lane = stackalloc float[lanes];
-        for (int c = 0; c < _thresholdVectors.Length; c++)
-        {
-            for (int l = 0; l < lanes; l++)
-            {
-                int t = c * lanes + l;
-                lane[l] = t < _thresholds.Length ? (float)_thresholds[t] : float.PositiveInfinity;
-            }
-            _thresholdVectors[c] = Vector256.Create<float>(lane);
-        }
+        _singleThresholds = [.. _thresholds.Select(t => (float)t)];
     }
 
     /// <summary>True when the parameter was accumulated for the current cell.</summary>
     public bool HasSeries { get; private set; }
 
     /// <summary>Sizes the per-slot and per-year stores for a calendar (allocating only when it changes shape).</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public void Prepare(TimelineCalendar calendar)
     {
         if (ReferenceEquals(calendar, _calendar)) return;
@@ -67,6 +62,13 @@ internal sealed class ParameterAccumulator
     }
 
     /// <summary>One pass over the series of the current cell.</summary>
+    /// <remarks>
+    /// Runs of steps in one slot are read four at a time: each by <see cref="RunScan"/> (validity, extremes, bins,
+    /// exceedances, in whole vectors), then side by side by <see cref="RunTally"/> for the sums, in step order so that
+    /// they hold the same bits as a plain loop over each run, and for the fine bins of the histograms; the histograms'
+    /// block counts are taken from their fine bins at the end.
+    /// </remarks>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public void Accumulate(ReadOnlySpan<float> values)
     {
         TimelineCalendar calendar = _calendar ?? throw new InvalidOperationException("Prepare the accumulator for a calendar first.");
@@ -81,54 +83,67 @@ internal sealed class ParameterAccumulator
         double inverseWidth = _monthHistograms[0].InverseWidth;
         int lastBin = _monthHistograms[0].LastBin;
         bool byYear = _yearHistograms.Length > 0;
-        int chunks = _thresholdVectors.Length;
-        Span<Vector256<int>> exceeding = stackalloc Vector256<int>[chunks];
+        int thresholds = _thresholds.Length;
+        const int lanes = RunTally.Lanes;
+        Span<long> exceeding = stackalloc long[lanes * thresholds];
+        Span<RunExtent> extents = stackalloc RunExtent[lanes];
+        Span<double> sums = stackalloc double[2 * lanes];
+        int[][] fine = _laneFine;
+        int[]?[] alsoFine = _laneAlsoFine;
 
-        foreach (StepRun run in calendar.Runs)
+        ReadOnlySpan<StepRun> runs = calendar.Runs;
+        for (int first = 0; first < runs.Length; first += lanes)
         {
-            FixedBinHistogram month = _monthHistograms[run.Slot % 12];
-            FixedBinHistogram year = byYear ? _yearHistograms[run.Slot / 12] : month;
-            int[] monthFine = month.Fine, monthCoarse = month.Coarse, yearFine = year.Fine, yearCoarse = year.Coarse;
-            exceeding.Clear();
-            long n = 0;
-            double sum = 0, sumSquares = 0;
-            float minimum = float.PositiveInfinity, maximum = float.NegativeInfinity;
-
-            foreach (float x in values.Slice(run.Start, run.Length))
+            ReadOnlySpan<StepRun> group = runs.Slice(first, Math.Min(lanes, runs.Length - first));
+            int stride = 0;
+            foreach (StepRun run in group) stride = Math.Max(stride, run.Length);
+            if (_bins.Length < lanes * stride)
             {
-                if (!(x >= lowest && x <= float.MaxValue)) continue;
-                n++;
-                double d = x - shift;
-                sum += d;
-                sumSquares += d * d;
-                if (x < minimum) minimum = x;
-                if (x > maximum) maximum = x;
-                double position = x * inverseWidth;
-                int bin = position >= lastBin ? lastBin : (int)position;
-                monthFine[bin]++;
-                monthCoarse[bin >> FixedBinHistogram.BlockShift]++;
-                if (byYear)
-                {
-                    yearFine[bin]++;
-                    yearCoarse[bin >> FixedBinHistogram.BlockShift]++;
-                }
-                if (chunks > 0)
-                {
-                    Vector256<float> value = Vector256.Create(x);
-                    for (int c = 0; c < chunks; c++)
-                        exceeding[c] -= Vector256.GreaterThan(value, _thresholdVectors[c]).AsInt32();
-                }
+                _bins = new int[lanes * stride];
+                _offsets = new double[lanes * stride];
             }
-            if (n == 0) continue;
+            exceeding.Clear();
+            for (int r = 0; r < lanes; r++)
+            {
+                Span<int> bins = _bins.AsSpan(r * stride, stride);
+                Span<double> offsets = _offsets.AsSpan(r * stride, stride);
+                int length = 0;
+                if (r < group.Length)
+                {
+                    StepRun run = group[r];
+                    length = run.Length;
+                    extents[r] = RunScan.Scan(values.Slice(run.Start, length), lowest, shift, inverseWidth, lastBin, _singleThresholds,
+                        exceeding.Slice(r * thresholds, thresholds), bins, offsets);
+                    fine[r] = _monthHistograms[run.Slot % 12].Fine;
+                    alsoFine[r] = byYear ? _yearHistograms[run.Slot / 12].Fine : null;
+                }
+                else
+                {
+                    // A lane without a run (the last group) is all padding: its counts are never touched.
+                    fine[r] = fine[0];
+                    alsoFine[r] = alsoFine[0];
+                }
+                bins[length..].Fill(RunScan.MissingBin);
+                offsets[length..].Clear();
+            }
+            RunTally.Tally(_offsets, _bins, stride, fine, alsoFine, sums);
 
-            _slots[run.Slot].AddSums(n, sum, sumSquares, minimum, maximum);
-            int lowBin = month.BinOfValid(minimum), highBin = month.BinOfValid(maximum);
-            month.Record(n, minimum, maximum, lowBin, highBin);
-            if (byYear) year.Record(n, minimum, maximum, lowBin, highBin);
-            int offset = run.Slot * _thresholds.Length;
-            for (int t = 0; t < _thresholds.Length; t++)
-                _slotExceedances[offset + t] += exceeding[t / Vector256<int>.Count][t % Vector256<int>.Count];
+            for (int r = 0; r < group.Length; r++)
+            {
+                RunExtent extent = extents[r];
+                if (extent.Count == 0) continue;
+                StepRun run = group[r];
+                _slots[run.Slot].AddSums(extent.Count, sums[2 * r], sums[2 * r + 1], extent.Minimum, extent.Maximum);
+                FixedBinHistogram month = _monthHistograms[run.Slot % 12];
+                int lowBin = month.BinOfValid(extent.Minimum), highBin = month.BinOfValid(extent.Maximum);
+                month.Record(extent.Count, extent.Minimum, extent.Maximum, lowBin, highBin);
+                if (byYear) _yearHistograms[run.Slot / 12].Record(extent.Count, extent.Minimum, extent.Maximum, lowBin, highBin);
+                int offset = run.Slot * thresholds;
+                for (int t = 0; t < thresholds; t++) _slotExceedances[offset + t] += exceeding[r * thresholds + t];
+            }
         }
+        foreach (FixedBinHistogram h in _monthHistograms) h.CountBlocks();
+        foreach (FixedBinHistogram h in _yearHistograms) h.CountBlocks();
     }
 
     /// <summary>
@@ -136,6 +151,7 @@ internal sealed class ParameterAccumulator
     /// the annual period are month-balanced (<see cref="MonthBalance"/>): the mean is the expected-step-weighted mean
     /// of the monthly means, the deviation that of the weighted mixture, the percentiles weighted histogram estimates.
     /// </summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public SummaryStatistics Summarise(AtlasPeriod period, long expectedSteps)
     {
         TimelineCalendar calendar = _calendar!;
@@ -180,13 +196,16 @@ internal sealed class ParameterAccumulator
             quantiles[0], quantiles[1], quantiles[2], quantiles[3], n, coverage);
     }
 
+    /// <summary>The thresholds, in the order of the fractions.</summary>
+    public ReadOnlySpan<double> Thresholds => _thresholds;
+
     /// <summary>
-    /// Exceedance fractions of a period at the accumulator's thresholds (NaN fractions when no step is valid);
-    /// month-balanced for seasons and the annual period, as <see cref="Summarise"/>.
+    /// Exceedance fractions of a period at the accumulator's thresholds, one per threshold into <paramref name="fractions"/>
+    /// (NaN when no step is valid); month-balanced for seasons and the annual period, as <see cref="Summarise"/>.
     /// </summary>
-    public ExceedanceFraction[] Exceedances(AtlasPeriod period, long validSteps)
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
+    public void ExceedancesInto(AtlasPeriod period, long validSteps, Span<double> fractions)
     {
-        var result = new ExceedanceFraction[_thresholds.Length];
         ReadOnlySpan<int> slots = HasSeries ? _calendar!.SlotsOf(period) : [];
         Span<double> weights = stackalloc double[12];
         bool balanced = HasSeries && validSteps > 0 && MonthBalance.Applies(period) && BalanceWeights(period, weights, out _);
@@ -201,13 +220,12 @@ internal sealed class ParameterAccumulator
                 long count = _slotExceedances[slot * _thresholds.Length + t];
                 above += balanced ? weights[slot % 12] * count : count;
             }
-            double fraction = !HasSeries || validSteps <= 0 ? double.NaN : balanced ? above / weightSum : above / validSteps;
-            result[t] = new ExceedanceFraction(_thresholds[t], fraction);
+            fractions[t] = !HasSeries || validSteps <= 0 ? double.NaN : balanced ? above / weightSum : above / validSteps;
         }
-        return result;
     }
 
     /// <summary>The month weights of a climatological period and its moments per calendar month; false when they are equal.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private bool BalanceWeights(AtlasPeriod period, Span<double> weights, out RunningMoments[] months)
     {
         TimelineCalendar calendar = _calendar!;
@@ -221,6 +239,7 @@ internal sealed class ParameterAccumulator
     }
 
     /// <summary>Forgets the current cell, touching only what it used.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public void Clear()
     {
         if (!HasSeries) return;
@@ -230,6 +249,7 @@ internal sealed class ParameterAccumulator
         Array.Clear(_slotExceedances);
     }
 
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private ReadOnlySpan<FixedBinHistogram> HistogramsOf(AtlasPeriod period)
     {
         switch (period.Kind)

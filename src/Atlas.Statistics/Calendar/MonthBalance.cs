@@ -1,3 +1,5 @@
+using System.Runtime.CompilerServices;
+
 namespace Atlas.Statistics.Calendar;
 
 /// <summary>
@@ -21,6 +23,7 @@ internal static class MonthBalance
     /// The month weights of a set of slots from their valid counts (<paramref name="countsBySlot"/>, indexed by slot),
     /// or false when they are equal or <paramref name="balanced"/> is false; <paramref name="valid"/> receives the total.
     /// </summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public static bool TryWeightsOfSlots(ReadOnlySpan<int> slots, ReadOnlySpan<long> countsBySlot, ReadOnlySpan<long> expectedByMonth,
         bool balanced, Span<double> weights, out long valid)
     {
@@ -41,6 +44,7 @@ internal static class MonthBalance
     /// <param name="expected">Steps each calendar month expects in the period.</param>
     /// <param name="valid">Valid steps of each calendar month in the period.</param>
     /// <param name="weights">Receives 12 weights.</param>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public static bool TryWeights(ReadOnlySpan<long> expected, ReadOnlySpan<long> valid, Span<double> weights)
     {
         weights[..12].Clear();

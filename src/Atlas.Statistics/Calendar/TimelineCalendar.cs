@@ -1,3 +1,5 @@
+using System.Runtime.CompilerServices;
+
 namespace Atlas.Statistics.Calendar;
 
 /// <summary>
@@ -138,6 +140,7 @@ public sealed class TimelineCalendar
     /// Steps the period expects: the calendar length of its months within the record's years over the nominal step
     /// (see remarks); 0 when the timeline is empty.
     /// </summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public long ExpectedSteps(AtlasPeriod period) =>
         _periodExpected.TryGetValue(period, out long n) ? n : CountExpected(period);
 
@@ -154,6 +157,7 @@ public sealed class TimelineCalendar
     public long ExpectedInSlot(int slot) => _slotExpected[slot];
 
     /// <summary>Steps each calendar month (index 0 = January) of a period expects over the record's years (0 for the months it lacks).</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public void ExpectedByMonth(AtlasPeriod period, Span<long> expected)
     {
         expected[..12].Clear();
@@ -179,6 +183,7 @@ public sealed class TimelineCalendar
     public long StepsInSlot(int slot) => _slotSteps[slot];
 
     /// <summary>The slots (with steps) that make up a period, ascending; empty when it has none.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public ReadOnlySpan<int> SlotsOf(AtlasPeriod period) => _periodSlots.TryGetValue(period, out int[]? slots) ? slots : [];
 
     /// <summary>The slot of each step.</summary>
@@ -188,6 +193,7 @@ public sealed class TimelineCalendar
     internal ReadOnlySpan<StepRun> Runs => _runs;
 
     /// <summary>True when the timeline is exactly this one (so a calendar can be reused from cell to cell).</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public bool HasTimes(ReadOnlySpan<long> unixSeconds) => unixSeconds.SequenceEqual(_times);
 
     private static long ModalInterval(long[] times)

@@ -1,3 +1,5 @@
+using System.Runtime.CompilerServices;
+
 namespace Atlas.Statistics.Directions;
 
 /// <summary>
@@ -25,6 +27,7 @@ internal sealed class DirectionAccumulator
 
     /// <summary>One pass over direction (degrees from) and power (kW/m) of the current cell.</summary>
     /// <param name="includedSlots">When given, only the steps of the slots marked true are read (the others are never summarised).</param>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public void Accumulate(ReadOnlySpan<float> directionDegrees, ReadOnlySpan<float> power, ReadOnlySpan<bool> includedSlots = default)
     {
         TimelineCalendar calendar = _calendar ?? throw new InvalidOperationException("Prepare the accumulator for a calendar first.");
@@ -61,7 +64,18 @@ internal sealed class DirectionAccumulator
     /// </summary>
     public DirectionStatistics Summarise(ReadOnlySpan<int> slots, long expectedSteps, ReadOnlySpan<long> expectedByMonth, bool balanced)
     {
-        if (!HasSeries) return DirectionStatistics.Empty;
+        Span<double> rose = stackalloc double[Sectors];
+        return SummariseInto(slots, expectedSteps, expectedByMonth, balanced, rose).ToStatistics(rose);
+    }
+
+    /// <summary>
+    /// <see cref="Summarise"/> without allocating: the power rose goes into <paramref name="rose"/> (<see cref="Sectors"/>
+    /// values, written only when <see cref="DirectionSummary.HasRose"/>).
+    /// </summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
+    public DirectionSummary SummariseInto(ReadOnlySpan<int> slots, long expectedSteps, ReadOnlySpan<long> expectedByMonth, bool balanced, Span<double> rose)
+    {
+        if (!HasSeries) return DirectionSummary.Empty;
         double weight = 0, cosine = 0, sine = 0;
         Span<double> weights = stackalloc double[12];
         bool weighted = MonthBalance.TryWeightsOfSlots(slots, _counts, expectedByMonth, balanced, weights, out long n);
@@ -74,18 +88,12 @@ internal sealed class DirectionAccumulator
             sine += w * _sums[3 * slot + 2];
             for (int k = 0; k < Sectors; k++) sectors[k] += w * _sectorSums[slot * Sectors + k];
         }
-        return Build(n, expectedSteps, weight, cosine, sine, sectors);
-    }
-
-    private static DirectionStatistics Build(long count, long expectedSteps, double weight, double cosine, double sine, ReadOnlySpan<double> sectorSums)
-    {
-        double coverage = expectedSteps > 0 ? (double)count / expectedSteps : 0;
-        if (count == 0 || !(weight > 0))
-            return DirectionStatistics.Empty with { Count = count, Coverage = coverage };
-        var rose = new double[Sectors];
-        for (int k = 0; k < Sectors; k++) rose[k] = sectorSums[k] / weight;
-        return new DirectionStatistics(CircularStatistics.MeanFromSums(cosine, sine), CircularStatistics.SpreadFromSums(weight, cosine, sine),
-            count, coverage, rose);
+        double coverage = expectedSteps > 0 ? (double)n / expectedSteps : 0;
+        if (n == 0 || !(weight > 0))
+            return DirectionSummary.Empty with { Count = n, Coverage = coverage };
+        for (int k = 0; k < Sectors; k++) rose[k] = sectors[k] / weight;
+        return new DirectionSummary(CircularStatistics.MeanFromSums(cosine, sine), CircularStatistics.SpreadFromSums(weight, cosine, sine),
+            n, coverage, HasRose: true);
     }
 
     public void Clear()

@@ -1,4 +1,5 @@
 using Atlas.WavePhysics;
+using System.Runtime.CompilerServices;
 
 namespace Atlas.Statistics.Directions;
 
@@ -30,6 +31,7 @@ internal sealed class DirectionalityAccumulator
 
     /// <summary>One pass over the mean direction (degrees from), spread (degrees) and power (kW/m) of the current cell.</summary>
     /// <param name="includedSlots">When given, only the steps of the slots marked true are read (the others are never summarised).</param>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public void Accumulate(ReadOnlySpan<float> directionDegrees, ReadOnlySpan<float> spreadDegrees, ReadOnlySpan<float> power, ReadOnlySpan<bool> includedSlots = default)
     {
         TimelineCalendar calendar = _calendar ?? throw new InvalidOperationException("Prepare the accumulator for a calendar first.");
@@ -58,6 +60,7 @@ internal sealed class DirectionalityAccumulator
     /// The directionality over a set of slots: the slots' harmonic sums merged (each calendar month weighted by
     /// <see cref="MonthBalance"/> when <paramref name="balanced"/>), J_theta maximised over theta.
     /// </summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public PeriodDirectionality Summarise(ReadOnlySpan<int> slots, long expectedSteps, ReadOnlySpan<long> expectedByMonth, bool balanced)
     {
         if (!HasSeries) return PeriodDirectionality.Empty;

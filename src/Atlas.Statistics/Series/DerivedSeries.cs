@@ -1,5 +1,6 @@
 using System.Buffers;
 using Atlas.WavePhysics;
+using System.Runtime.CompilerServices;
 
 namespace Atlas.Statistics.Series;
 
@@ -29,6 +30,7 @@ internal sealed class DerivedSeriesBuffers(ArrayPool<float>? pool = null) : IDis
     /// velocity at the cell depth, deep water when the depth is unknown; a power given with the series (integrated from
     /// a spectrum) is used as it is.
     /// </summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public DerivedSeries Derive(in CellSeries series, StatisticsOptions options)
     {
         int n = series.Times.Length;
@@ -71,6 +73,7 @@ internal sealed class DerivedSeriesBuffers(ArrayPool<float>? pool = null) : IDis
         };
     }
 
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private static bool HasValidStep(ReadOnlySpan<float> values)
     {
         foreach (float v in values)

@@ -1,4 +1,5 @@
 using System.Buffers.Binary;
+using System.Runtime.CompilerServices;
 
 namespace Atlas.Storage.Copy;
 
@@ -65,6 +66,7 @@ public sealed class BinaryCopyEncoder(Stream target)
     }
 
     /// <summary>A one-dimensional real[] (lower bound 1) of any length; NaN elements stay NaN.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public void WriteRealArray(ReadOnlySpan<float> values)
     {
         ArrayHeader(Float4Oid, values.Length);

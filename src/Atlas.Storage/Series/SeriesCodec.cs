@@ -1,6 +1,7 @@
 using System.Runtime.InteropServices;
 using System.Runtime.Intrinsics;
 using System.Buffers.Binary;
+using System.Runtime.CompilerServices;
 
 namespace Atlas.Storage.Series;
 
@@ -146,6 +147,7 @@ public static class SeriesCodec
     /// Decodes one variable into <paramref name="destination"/> (length = step count), NaN for missing.
     /// Returns false (and fills NaN) when the chunk does not hold the variable.
     /// </summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public static bool Decode(ReadOnlySpan<byte> payload, WaveParameter variable, Span<float> destination)
     {
         var steps = StepCountOf(payload);
@@ -174,6 +176,7 @@ public static class SeriesCodec
     /// rounded to float; NaN for <see cref="Missing"/>): the same operations lane by lane, so the same bits. Returns the
     /// values decoded; the caller decodes the rest.
     /// </summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private static int DecodeVectors(ReadOnlySpan<byte> source, float step, Span<float> destination)
     {
         if (!Vector256.IsHardwareAccelerated) return 0;
@@ -190,6 +193,7 @@ public static class SeriesCodec
         }
         return done;
 
+        [MethodImpl(MethodImplOptions.AggressiveInlining)]
         Vector256<float> Half(Vector256<uint> q)
         {
             var (a, b) = Vector256.Widen(q);

@@ -3,9 +3,10 @@ namespace Atlas.Storage.Statistics;
 /// <summary>
 /// One stored statistic row: a parameter of a cell over a period. <paramref name="Fractions"/> holds the exceedance
 /// fractions at the pass's thresholds (hs, j) or the 16-sector shares of power (dir); null for other parameters.
-/// The numeric codes of periods and parameters in the tables stay inside Storage.
+/// The numeric codes of periods and parameters in the tables stay inside Storage. A value, so that a pass's rows cost no
+/// allocation each.
 /// </summary>
-public sealed record StatisticRow(
+public readonly record struct StatisticRow(
     int CellId,
     AtlasPeriod Period,
     WaveParameter Parameter,

@@ -110,20 +110,28 @@ public sealed class StatisticsStore(NpgsqlDataSource dataSource)
 
     /// <summary>
     /// The stored blocks among <paramref name="blocks"/> that hold a cell outside <paramref name="replaced"/>, locked for
-    /// update. Only their cell ids are read first, so replacing whole blocks reads no statistics back.
+    /// update. Only their distinct cell-id lists are read first (the rows of a block mostly share one), so replacing
+    /// whole blocks reads no statistics back.
     /// </summary>
     private static async Task<IReadOnlyList<StatisticBlock>> BlocksWithOtherCellsAsync(NpgsqlConnection connection, NpgsqlTransaction transaction,
         int datasetId, int[] blocks, HashSet<int> replaced, CancellationToken cancel)
     {
+        await using (var lockRows = new NpgsqlCommand(
+            "SELECT count(*) FROM (SELECT 1 FROM statistic_block WHERE dataset_id = $1 AND block = ANY($2) FOR UPDATE) locked", connection, transaction))
+        {
+            lockRows.Parameters.AddWithValue(datasetId);
+            lockRows.Parameters.AddWithValue(blocks);
+            await lockRows.ExecuteScalarAsync(cancel);
+        }
         var partial = new HashSet<int>();
         await using (var command = new NpgsqlCommand(
-            "SELECT block, cell_ids FROM statistic_block WHERE dataset_id = $1 AND block = ANY($2) FOR UPDATE", connection, transaction))
+            "SELECT DISTINCT block, cell_ids FROM statistic_block WHERE dataset_id = $1 AND block = ANY($2)", connection, transaction))
         {
             command.Parameters.AddWithValue(datasetId);
             command.Parameters.AddWithValue(blocks);
             await using var reader = await command.ExecuteReaderAsync(cancel);
             while (await reader.ReadAsync(cancel))
-                if (reader.GetFieldValue<int[]>(1).Any(id => !replaced.Contains(id)))
+                if (HoldsOther(reader.GetFieldValue<int[]>(1), replaced))
                     partial.Add(reader.GetInt32(0));
         }
         if (partial.Count == 0) return [];
@@ -131,6 +139,13 @@ public sealed class StatisticsStore(NpgsqlDataSource dataSource)
         read.Parameters.AddWithValue(datasetId);
         read.Parameters.AddWithValue(partial.ToArray());
         return await ReadBlocksAsync(read, cancel);
+    }
+
+    private static bool HoldsOther(int[] cellIds, HashSet<int> replaced)
+    {
+        foreach (int id in cellIds)
+            if (!replaced.Contains(id)) return true;
+        return false;
     }
 
     private static async Task<IReadOnlyList<StatisticBlock>> ReadBlocksAsync(NpgsqlCommand command, CancellationToken cancel)
