@@ -50,14 +50,8 @@ public sealed class HindcastIngestor(NpgsqlDataSource dataSource, StatisticsOpti
         var files = new List<SourceFile>();
         try
         {
-            foreach (var path in request.Files.Distinct())
-            {
-                cancel.ThrowIfCancellationRequested();
-                var opened = SourceFile.Open(path, request.Mapping);
-                opened.Release();
-                files.Add(opened);
-                progress?.Report(new ProgressSnapshot("opening files", files.Count, request.Files.Count, 0, clock.Elapsed, "files"));
-            }
+            files = SourceFile.OpenAll(request.Files.Distinct().ToList(), request.Mapping,
+                opened => progress?.Report(new ProgressSnapshot("opening files", opened, request.Files.Count, 0, clock.Elapsed, "files")), cancel);
             return await load(files, clock);
         }
         finally

@@ -87,12 +87,81 @@ public sealed class SourceFile : IDisposable
     /// <summary>A variable named like the water depth that was not taken for it, and why; null when there is none.</summary>
     public DepthLookalike? DepthLookalike { get; private init; }
 
-    /// <summary>Opens and decodes a file, and checksums its bytes (SHA-256, streamed).</summary>
+    /// <summary>The most files opened at once by <see cref="OpenAll"/>, whatever the processor count: each holds its read buffers.</summary>
+    private const int MaxOpenAtOnce = 4;
+
+    /// <summary>
+    /// Opens <paramref name="paths"/> as <see cref="Open"/> does, one file per processor at a time (each file's checksum
+    /// and, for spectra, its integration run beside the other files'), and returns them in the given order, released
+    /// (<see cref="Release"/>). When a file fails, no further file is started, those started are finished and disposed,
+    /// and the error of the first failing file in the given order is thrown, as opening them one after another would.
+    /// </summary>
+    /// <param name="opened">Called with the number of files opened so far, one call at a time.</param>
+    public static List<SourceFile> OpenAll(IReadOnlyList<string> paths, VariableMapping? mapping, Action<int>? opened = null,
+        CancellationToken cancel = default)
+    {
+        using var slots = new SemaphoreSlim(Math.Clamp(Environment.ProcessorCount, 1, MaxOpenAtOnce));
+        var tasks = new List<Task<SourceFile>>(paths.Count);
+        var report = new object();
+        int count = 0, failed = 0;
+        try
+        {
+            foreach (var path in paths)
+            {
+                slots.Wait(cancel);
+                if (Volatile.Read(ref failed) != 0) { slots.Release(); break; }
+                // A thread of its own: the opening waits on its checksum and read tasks, which need the pool's threads.
+                tasks.Add(Task.Factory.StartNew(() =>
+                {
+                    try
+                    {
+                        var file = Open(path, mapping);
+                        file.Release();
+                        lock (report) opened?.Invoke(++count);
+                        return file;
+                    }
+                    catch
+                    {
+                        Volatile.Write(ref failed, 1);
+                        throw;
+                    }
+                    finally
+                    {
+                        slots.Release();
+                    }
+                }, CancellationToken.None, TaskCreationOptions.LongRunning, TaskScheduler.Default));
+            }
+        }
+        catch
+        {
+            // Cancelled: the files already opened are closed again.
+            Finish(tasks);
+            foreach (var task in tasks.Where(t => t.IsCompletedSuccessfully)) task.Result.Dispose();
+            throw;
+        }
+        Finish(tasks);
+        if (tasks.FirstOrDefault(t => t.IsFaulted) is { } first)
+        {
+            foreach (var task in tasks.Where(t => t.IsCompletedSuccessfully)) task.Result.Dispose();
+            System.Runtime.ExceptionServices.ExceptionDispatchInfo.Throw(first.Exception!.InnerException!);
+        }
+        return tasks.Select(t => t.Result).ToList();
+    }
+
+    /// <summary>Waits for every file started, so that no read of a file outlives the call (their faults are looked at after).</summary>
+    private static void Finish(List<Task<SourceFile>> tasks)
+    {
+        foreach (var task in tasks) ((IAsyncResult)task).AsyncWaitHandle.WaitOne();
+    }
+
+    /// <summary>Opens and decodes a file, and checksums its bytes (SHA-256).</summary>
     public static SourceFile Open(string path, VariableMapping? mapping)
     {
         if (!System.IO.File.Exists(path)) throw new IngestException($"{path}: no such file.");
-        // The checksum reads the file once more: it runs beside the decoding (and a spectral file's integration).
-        var checksum = Task.Run(() => FileChecksum.Sha256(path));
+        // The checksum reads the file once more: it runs beside the decoding (and a spectral file's integration), on a
+        // thread of its own, so that it never waits for the pool's threads nor holds one of them for its whole length.
+        var checksum = Task.Factory.StartNew(() => FileChecksum.Sha256(path), CancellationToken.None, TaskCreationOptions.LongRunning,
+            TaskScheduler.Default);
         try
         {
             return OpenDecoded(path, mapping, checksum);
