@@ -50,7 +50,7 @@ public sealed class HindcastIngestor(NpgsqlDataSource dataSource, StatisticsOpti
         var files = new List<SourceFile>();
         try
         {
-            files = SourceFile.OpenAll(request.Files.Distinct().ToList(), request.Mapping,
+            files = await SourceFile.OpenAllAsync(request.Files.Distinct().ToList(), request.Mapping,
                 opened => progress?.Report(new ProgressSnapshot("opening files", opened, request.Files.Count, 0, clock.Elapsed, "files")), cancel);
             return await load(files, clock);
         }

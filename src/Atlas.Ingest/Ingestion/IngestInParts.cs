@@ -38,7 +38,7 @@ public sealed class IngestInParts(NpgsqlDataSource dataSource, StatisticsOptions
         var files = new List<SourceFile>();
         try
         {
-            files = SourceFile.OpenAll(request.Files.Distinct().ToList(), mapping, cancel: cancel);
+            files = await SourceFile.OpenAllAsync(request.Files.Distinct().ToList(), mapping, cancel: cancel);
             IngestPlan plan;
             await using (var connection = await dataSource.OpenConnectionAsync(cancel))
             await using (var transaction = await connection.BeginTransactionAsync(cancel))

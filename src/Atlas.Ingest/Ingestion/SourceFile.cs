@@ -96,8 +96,13 @@ public sealed class SourceFile : IDisposable
     /// (<see cref="Release"/>). When a file fails, no further file is started, those started are finished and disposed,
     /// and the error of the first failing file in the given order is thrown, as opening them one after another would.
     /// </summary>
+    /// <remarks>
+    /// The files are opened on the thread pool's threads, never on threads started for the purpose: the HDF5 library
+    /// frees a thread's error stack when the thread ends, which crashes the process after a refused file (seen with HDF5
+    /// 1.10 built thread-safe), and the pool's threads live on.
+    /// </remarks>
     /// <param name="opened">Called with the number of files opened so far, one call at a time.</param>
-    public static List<SourceFile> OpenAll(IReadOnlyList<string> paths, VariableMapping? mapping, Action<int>? opened = null,
+    public static async Task<List<SourceFile>> OpenAllAsync(IReadOnlyList<string> paths, VariableMapping? mapping, Action<int>? opened = null,
         CancellationToken cancel = default)
     {
         using var slots = new SemaphoreSlim(Math.Clamp(Environment.ProcessorCount, 1, MaxOpenAtOnce));
@@ -108,10 +113,9 @@ public sealed class SourceFile : IDisposable
         {
             foreach (var path in paths)
             {
-                slots.Wait(cancel);
+                await slots.WaitAsync(cancel);
                 if (Volatile.Read(ref failed) != 0) { slots.Release(); break; }
-                // A thread of its own: the opening waits on its checksum and read tasks, which need the pool's threads.
-                tasks.Add(Task.Factory.StartNew(() =>
+                tasks.Add(Task.Run(() =>
                 {
                     try
                     {
@@ -129,17 +133,17 @@ public sealed class SourceFile : IDisposable
                     {
                         slots.Release();
                     }
-                }, CancellationToken.None, TaskCreationOptions.LongRunning, TaskScheduler.Default));
+                }, CancellationToken.None));
             }
         }
         catch
         {
-            // Cancelled: the files already opened are closed again.
-            Finish(tasks);
+            // Cancelled: the files already opened are closed again, once every file started is finished.
+            await Finish(tasks);
             foreach (var task in tasks.Where(t => t.IsCompletedSuccessfully)) task.Result.Dispose();
             throw;
         }
-        Finish(tasks);
+        await Finish(tasks);
         if (tasks.FirstOrDefault(t => t.IsFaulted) is { } first)
         {
             foreach (var task in tasks.Where(t => t.IsCompletedSuccessfully)) task.Result.Dispose();
@@ -149,19 +153,14 @@ public sealed class SourceFile : IDisposable
     }
 
     /// <summary>Waits for every file started, so that no read of a file outlives the call (their faults are looked at after).</summary>
-    private static void Finish(List<Task<SourceFile>> tasks)
-    {
-        foreach (var task in tasks) ((IAsyncResult)task).AsyncWaitHandle.WaitOne();
-    }
+    private static Task Finish(List<Task<SourceFile>> tasks) => Task.WhenAll(tasks).ContinueWith(_ => { }, TaskScheduler.Default);
 
     /// <summary>Opens and decodes a file, and checksums its bytes (SHA-256).</summary>
     public static SourceFile Open(string path, VariableMapping? mapping)
     {
         if (!System.IO.File.Exists(path)) throw new IngestException($"{path}: no such file.");
-        // The checksum reads the file once more: it runs beside the decoding (and a spectral file's integration), on a
-        // thread of its own, so that it never waits for the pool's threads nor holds one of them for its whole length.
-        var checksum = Task.Factory.StartNew(() => FileChecksum.Sha256(path), CancellationToken.None, TaskCreationOptions.LongRunning,
-            TaskScheduler.Default);
+        // The checksum reads the file once more: it runs beside the decoding (and a spectral file's integration).
+        var checksum = Task.Run(() => FileChecksum.Sha256(path));
         try
         {
             return OpenDecoded(path, mapping, checksum);
