@@ -141,10 +141,10 @@ public sealed class IntegratedSpectra : IStepReader
         var integrators = Stations.Select(s => new SpectralIntegrator(Axes, s.DepthMetres)).ToArray();
         int block = file.PlanBlocks(BlockValues, MaxBlockValues);
         // Two buffers: the file reads the next block as stored (netCDF calls stay on one thread at a time) while this one
-        // is decoded and integrated, station by station, each spectrum decoded into its station's scratch.
+        // is decoded and integrated, station by station, each spectrum decoded into one scratch spectrum.
         int length = checked(block * stations * perSpectrum);
         var buffers = new[] { ArrayPool<float>.Shared.Rent(length), ArrayPool<float>.Shared.Rent(length) };
-        var scratch = Stations.Select(_ => new float[perSpectrum]).ToArray();
+        var spectrum = new float[perSpectrum];
         var refused = new int[stations];   // per station, the first step of the block whose density is negative, or -1
         Task? reading = steps > 0 ? Task.Run(() => file.ReadStoredSteps(0, Math.Min(block, steps), buffers[0])) : null;
         try
@@ -157,7 +157,9 @@ public sealed class IntegratedSpectra : IStepReader
                 int next = t0 + block, nextCount = Math.Min(block, steps - next);
                 var nextBuffer = buffers[turn ^ 1];
                 reading = next < steps ? Task.Run(() => file.ReadStoredSteps(next, nextCount, nextBuffer)) : Task.CompletedTask;
-                Parallel.For(0, stations, s => refused[s] = IntegrateStation(file, integrators[s], scratch[s], s, t0, n, buffer));
+                // Station after station on this thread: files are integrated beside each other and beside their
+                // checksums (SourceFile.OpenAllAsync), which keeps the processors busy without splitting a block.
+                for (int s = 0; s < stations; s++) refused[s] = IntegrateStation(file, integrators[s], spectrum, s, t0, n, buffer);
                 // The first refused spectrum in step-then-station order, as reading the steps one after another meets it.
                 int badStation = -1;
                 for (int s = 0; s < stations; s++)
