@@ -66,6 +66,24 @@ public sealed class StationSpectraStore(NpgsqlDataSource dataSource)
         return result;
     }
 
+    /// <summary>The power integrated from the spectra, per step, of every stored station-year of a dataset, read by binary COPY.</summary>
+    public static async Task<Dictionary<(int Cell, int Year), float[]>> ReadSpectralPowerAsync(NpgsqlConnection connection, int datasetId,
+        CancellationToken cancel)
+    {
+        var result = new Dictionary<(int, int), float[]>();
+        await using var copy = await connection.BeginRawBinaryCopyAsync(
+            $"COPY (SELECT cell_id, year, j_spectral FROM station_step WHERE dataset_id = {datasetId:D}) TO STDOUT (FORMAT BINARY)", cancel);
+        var decoder = new BinaryCopyDecoder(copy);
+        await decoder.ReadHeaderAsync(cancel);
+        while (await decoder.StartRowAsync(3, cancel))
+        {
+            int cell = await decoder.ReadInt32Async(cancel);
+            int year = await decoder.ReadInt16Async(cancel);
+            result[(cell, year)] = await decoder.ReadRealArrayAsync(cancel) ?? throw new InvalidDataException("station_step holds a NULL array");
+        }
+        return result;
+    }
+
     /// <summary>The per-step values of every stored year of one station.</summary>
     public async Task<IReadOnlyDictionary<int, StationStepRecord>> StepsOfStationAsync(int datasetId, int cellId, CancellationToken cancel)
     {
@@ -120,21 +138,36 @@ public sealed class StationSpectraStore(NpgsqlDataSource dataSource)
         await command.ExecuteNonQueryAsync(cancel);
     }
 
-    /// <summary>The monthly sums of one station, every stored month.</summary>
-    public async Task<IReadOnlyList<StationMonthSums>> MonthSumsAsync(int datasetId, int cellId, CancellationToken cancel)
+    /// <summary>The monthly sums of one station, every stored month, in calendar order.</summary>
+    public async Task<IReadOnlyList<StationMonthSums>> MonthSumsAsync(int datasetId, int cellId, CancellationToken cancel) =>
+        (await MonthSumsOfCellsAsync(datasetId, [cellId], cancel)).GetValueOrDefault(cellId, []);
+
+    /// <summary>
+    /// The monthly sums of the given stations (all when null), every stored month in calendar order, by station: one
+    /// binary COPY for them all.
+    /// </summary>
+    public async Task<Dictionary<int, List<StationMonthSums>>> MonthSumsOfCellsAsync(int datasetId, int[]? cellIds, CancellationToken cancel)
     {
+        // COPY takes no parameters: the filters are integers formatted here, so nothing in the query is text from outside.
+        var filter = $"dataset_id = {datasetId:D}" + (cellIds is null ? ""
+            : $" AND cell_id IN ({(cellIds.Length == 0 ? "NULL" : string.Join(", ", cellIds.Select(c => c.ToString("D", CultureInfo.InvariantCulture))))})");
+        var result = new Dictionary<int, List<StationMonthSums>>();
         await using var connection = await dataSource.OpenConnectionAsync(cancel);
-        await using var command = new NpgsqlCommand("""
-            SELECT year, month, steps, frequency_sum, direction_sum FROM station_spectrum_month
-            WHERE dataset_id = $1 AND cell_id = $2 ORDER BY year, month
-            """, connection);
-        command.Parameters.AddWithValue(datasetId);
-        command.Parameters.AddWithValue(cellId);
-        var result = new List<StationMonthSums>();
-        await using var reader = await command.ExecuteReaderAsync(cancel);
-        while (await reader.ReadAsync(cancel))
-            result.Add(new StationMonthSums(cellId, reader.GetInt16(0), reader.GetInt16(1), reader.GetInt32(2),
-                reader.GetFieldValue<double[]>(3), reader.GetFieldValue<double[]>(4)));
+        await using var copy = await connection.BeginRawBinaryCopyAsync(
+            $"COPY (SELECT cell_id, year, month, steps, frequency_sum, direction_sum FROM station_spectrum_month WHERE {filter} ORDER BY cell_id, year, month) TO STDOUT (FORMAT BINARY)", cancel);
+        var decoder = new BinaryCopyDecoder(copy);
+        await decoder.ReadHeaderAsync(cancel);
+        while (await decoder.StartRowAsync(6, cancel))
+        {
+            int cell = await decoder.ReadInt32Async(cancel);
+            int year = await decoder.ReadInt16Async(cancel);
+            int month = await decoder.ReadInt16Async(cancel);
+            int steps = await decoder.ReadInt32Async(cancel);
+            var frequency = await decoder.ReadDoubleArrayAsync(cancel) ?? throw new InvalidDataException("station_spectrum_month holds a NULL array");
+            var direction = await decoder.ReadDoubleArrayAsync(cancel) ?? throw new InvalidDataException("station_spectrum_month holds a NULL array");
+            if (!result.TryGetValue(cell, out var months)) result[cell] = months = [];
+            months.Add(new StationMonthSums(cell, year, month, steps, frequency, direction));
+        }
         return result;
     }
 }
