@@ -50,8 +50,9 @@ public sealed class HindcastIngestor(NpgsqlDataSource dataSource, StatisticsOpti
         var files = new List<SourceFile>();
         try
         {
-            files = await SourceFile.OpenAllAsync(request.Files.Distinct().ToList(), request.Mapping,
-                opened => progress?.Report(new ProgressSnapshot("opening files", opened, request.Files.Count, 0, clock.Elapsed, "files")), cancel);
+            var paths = request.Files.Distinct().ToList();
+            files = await SourceFile.OpenAllAsync(paths, request.Mapping,
+                opened => progress?.Report(new ProgressSnapshot("opening files", opened, paths.Count, 0, clock.Elapsed, "files")), cancel);
             return await load(files, clock);
         }
         finally
