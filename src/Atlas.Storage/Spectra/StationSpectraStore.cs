@@ -11,33 +11,20 @@ public sealed class StationSpectraStore(NpgsqlDataSource dataSource)
     /// Writes (or replaces) station-years of per-step values inside the caller's transaction: by binary COPY into a
     /// temporary table, then one insert that replaces the rows already stored.
     /// </summary>
-    public static async Task UpsertStepsAsync(NpgsqlConnection connection, NpgsqlTransaction transaction, int datasetId,
-        IEnumerable<StationStepRecord> records, CancellationToken cancel)
-    {
-        await ExecuteAsync(connection, transaction, "CREATE TEMP TABLE station_step_load (LIKE station_step) ON COMMIT DROP", cancel);
-        await using (var copy = await connection.BeginRawBinaryCopyAsync($"COPY station_step_load ({StepColumns}) FROM STDIN (FORMAT BINARY)", cancel))
+    public static Task UpsertStepsAsync(NpgsqlConnection connection, NpgsqlTransaction transaction, int datasetId,
+        IEnumerable<StationStepRecord> records, CancellationToken cancel) =>
+        CopyAndMergeAsync(connection, transaction, "station_step", StepColumns, records, (encoder, r) =>
         {
-            var encoder = new BinaryCopyEncoder(copy);
-            encoder.WriteHeader();
-            foreach (var r in records)
-            {
-                cancel.ThrowIfCancellationRequested();
-                encoder.StartRow(8);
-                encoder.WriteInt32(datasetId);
-                encoder.WriteInt32(r.CellId);
-                encoder.WriteInt16((short)r.Year);
-                foreach (var values in new[] { r.PowerSpectral, r.PowerParametric, r.Directionality, r.MaximumPowerFrom, r.SpectralWidth })
-                    encoder.WriteRealArray(values.AsSpan());
-            }
-            encoder.WriteTrailer();
-        }
-        await ExecuteAsync(connection, transaction, $"""
-            INSERT INTO station_step ({StepColumns}) SELECT {StepColumns} FROM station_step_load
+            encoder.StartRow(8);
+            encoder.WriteInt32(datasetId);
+            encoder.WriteInt32(r.CellId);
+            encoder.WriteInt16((short)r.Year);
+            foreach (var values in new[] { r.PowerSpectral, r.PowerParametric, r.Directionality, r.MaximumPowerFrom, r.SpectralWidth })
+                encoder.WriteRealArray(values.AsSpan());
+        }, """
             ON CONFLICT (dataset_id, cell_id, year) DO UPDATE SET j_spectral = excluded.j_spectral, j_parametric = excluded.j_parametric,
-                directionality = excluded.directionality, max_power_from = excluded.max_power_from, spectral_width = excluded.spectral_width;
-            DROP TABLE station_step_load
+                directionality = excluded.directionality, max_power_from = excluded.max_power_from, spectral_width = excluded.spectral_width
             """, cancel);
-    }
 
     /// <summary>
     /// The per-step values of the given years (all when null) of one station (all when null), by (cell, year), read by
@@ -96,18 +83,11 @@ public sealed class StationSpectraStore(NpgsqlDataSource dataSource)
     /// Adds the given monthly sums to the stored ones (rows created where missing) inside the caller's transaction: by
     /// binary COPY into a temporary table, then one insert that adds to the rows already stored, element by element.
     /// </summary>
-    public static async Task AddMonthSumsAsync(NpgsqlConnection connection, NpgsqlTransaction transaction, int datasetId,
-        IEnumerable<StationMonthSums> sums, CancellationToken cancel)
-    {
-        const string columns = "dataset_id, cell_id, year, month, steps, frequency_sum, direction_sum";
-        await ExecuteAsync(connection, transaction, "CREATE TEMP TABLE station_spectrum_month_load (LIKE station_spectrum_month) ON COMMIT DROP", cancel);
-        await using (var copy = await connection.BeginRawBinaryCopyAsync($"COPY station_spectrum_month_load ({columns}) FROM STDIN (FORMAT BINARY)", cancel))
-        {
-            var encoder = new BinaryCopyEncoder(copy);
-            encoder.WriteHeader();
-            foreach (var m in sums)
+    public static Task AddMonthSumsAsync(NpgsqlConnection connection, NpgsqlTransaction transaction, int datasetId,
+        IEnumerable<StationMonthSums> sums, CancellationToken cancel) =>
+        CopyAndMergeAsync(connection, transaction, "station_spectrum_month", "dataset_id, cell_id, year, month, steps, frequency_sum, direction_sum", sums,
+            (encoder, m) =>
             {
-                cancel.ThrowIfCancellationRequested();
                 encoder.StartRow(7);
                 encoder.WriteInt32(datasetId);
                 encoder.WriteInt32(m.CellId);
@@ -116,17 +96,37 @@ public sealed class StationSpectraStore(NpgsqlDataSource dataSource)
                 encoder.WriteInt32(m.Steps);
                 encoder.WriteDoubleArray(m.FrequencySum);
                 encoder.WriteDoubleArray(m.DirectionSum);
+            }, """
+            ON CONFLICT (dataset_id, cell_id, year, month) DO UPDATE SET
+                steps = station_spectrum_month.steps + excluded.steps,
+                frequency_sum = (SELECT array_agg(a + b ORDER BY k)
+                    FROM unnest(station_spectrum_month.frequency_sum, excluded.frequency_sum) WITH ORDINALITY AS u(a, b, k)),
+                direction_sum = coalesce((SELECT array_agg(a + b ORDER BY k)
+                    FROM unnest(station_spectrum_month.direction_sum, excluded.direction_sum) WITH ORDINALITY AS u(a, b, k)), ARRAY[]::double precision[])
+            """, cancel);
+
+    /// <summary>
+    /// Writes rows into <paramref name="table"/> inside the caller's transaction: by binary COPY into a temporary table
+    /// shaped like it (<paramref name="write"/> writes one row's fields), then one insert of them all that ends with
+    /// <paramref name="onConflict"/>; the temporary table is dropped after.
+    /// </summary>
+    private static async Task CopyAndMergeAsync<T>(NpgsqlConnection connection, NpgsqlTransaction transaction, string table, string columns,
+        IEnumerable<T> rows, Action<BinaryCopyEncoder, T> write, string onConflict, CancellationToken cancel)
+    {
+        var load = table + "_load";
+        await ExecuteAsync(connection, transaction, $"CREATE TEMP TABLE {load} (LIKE {table}) ON COMMIT DROP", cancel);
+        await using (var copy = await connection.BeginRawBinaryCopyAsync($"COPY {load} ({columns}) FROM STDIN (FORMAT BINARY)", cancel))
+        {
+            var encoder = new BinaryCopyEncoder(copy);
+            encoder.WriteHeader();
+            foreach (var row in rows)
+            {
+                cancel.ThrowIfCancellationRequested();
+                write(encoder, row);
             }
             encoder.WriteTrailer();
         }
-        await ExecuteAsync(connection, transaction, $"""
-            INSERT INTO station_spectrum_month AS m ({columns}) SELECT {columns} FROM station_spectrum_month_load
-            ON CONFLICT (dataset_id, cell_id, year, month) DO UPDATE SET
-                steps = m.steps + excluded.steps,
-                frequency_sum = (SELECT array_agg(a + b ORDER BY k) FROM unnest(m.frequency_sum, excluded.frequency_sum) WITH ORDINALITY AS u(a, b, k)),
-                direction_sum = coalesce((SELECT array_agg(a + b ORDER BY k) FROM unnest(m.direction_sum, excluded.direction_sum) WITH ORDINALITY AS u(a, b, k)), ARRAY[]::double precision[]);
-            DROP TABLE station_spectrum_month_load
-            """, cancel);
+        await ExecuteAsync(connection, transaction, $"INSERT INTO {table} ({columns}) SELECT {columns} FROM {load} {onConflict}; DROP TABLE {load}", cancel);
     }
 
     private const string ProductColumns = "j_spectral, j_parametric, directionality, max_power_from, spectral_width";
