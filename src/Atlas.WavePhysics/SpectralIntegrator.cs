@@ -1,4 +1,5 @@
 using System.Runtime.CompilerServices;
+using System.Runtime.InteropServices;
 using System.Runtime.Intrinsics;
 
 namespace Atlas.WavePhysics;
@@ -155,7 +156,10 @@ public sealed class SpectralIntegrator
     /// One pass over S(f, theta): each direction bin's power (rows weighted by rho g cg w) into <paramref name="powers"/>,
     /// its energy (rows weighted by w) into <paramref name="energy"/>, and each frequency's sum over the directions into
     /// the frequency spectrum (not yet times the bin width). Eight directions at a time in registers where the machine
-    /// has 256-bit vectors, frequencies inner.
+    /// has 256-bit vectors, three such blocks per pass over the frequencies (their twelve sums stay in registers), then
+    /// single blocks, then the directions left one by one. Each sum adds its terms in the same order whatever the
+    /// grouping: a direction's sums over the frequencies in frequency order, a frequency's sum over the directions
+    /// block after block.
     /// </summary>
     [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private void Accumulate(ReadOnlySpan<float> density, int nf, int nd, Span<double> powers, Span<double> energy)
@@ -164,25 +168,8 @@ public sealed class SpectralIntegrator
         int j0 = 0;
         if (Vector256.IsHardwareAccelerated)
         {
-            for (; j0 + 8 <= nd; j0 += 8)
-            {
-                Vector256<double> powerLow = default, powerHigh = default, energyLow = default, energyHigh = default;
-                for (int i = 0; i < nf; i++)
-                {
-                    var (low, high) = Vector256.Widen(Vector256.Create(density.Slice(i * nd + j0, 8)));
-                    var weight = Vector256.Create(_powerWeights[i]);
-                    var trapezoid = Vector256.Create(_m0[i]);
-                    powerLow += weight * low;
-                    powerHigh += weight * high;
-                    energyLow += trapezoid * low;
-                    energyHigh += trapezoid * high;
-                    _frequencySpectrum[i] += Vector256.Sum(low + high);
-                }
-                powerLow.CopyTo(powers.Slice(j0, 4));
-                powerHigh.CopyTo(powers.Slice(j0 + 4, 4));
-                energyLow.CopyTo(energy.Slice(j0, 4));
-                energyHigh.CopyTo(energy.Slice(j0 + 4, 4));
-            }
+            for (; j0 + 24 <= nd; j0 += 24) AccumulateThreeBlocks(density, nf, nd, j0, powers, energy);
+            for (; j0 + 8 <= nd; j0 += 8) AccumulateBlock(density, nf, nd, j0, powers, energy);
         }
         for (int i = 0; i < nf; i++)
         {
@@ -197,6 +184,65 @@ public sealed class SpectralIntegrator
             }
             _frequencySpectrum[i] += sum;
         }
+    }
+
+    /// <summary>Directions j0 .. j0 + 7 of every frequency (see <see cref="Accumulate"/>).</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
+    private void AccumulateBlock(ReadOnlySpan<float> density, int nf, int nd, int j0, Span<double> powers, Span<double> energy)
+    {
+        Vector256<double> powerLow = default, powerHigh = default, energyLow = default, energyHigh = default;
+        for (int i = 0; i < nf; i++)
+        {
+            var (low, high) = Vector256.Widen(Vector256.Create(density.Slice(i * nd + j0, 8)));
+            var weight = Vector256.Create(_powerWeights[i]);
+            var trapezoid = Vector256.Create(_m0[i]);
+            powerLow += weight * low;
+            powerHigh += weight * high;
+            energyLow += trapezoid * low;
+            energyHigh += trapezoid * high;
+            _frequencySpectrum[i] += Vector256.Sum(low + high);
+        }
+        powerLow.CopyTo(powers.Slice(j0, 4));
+        powerHigh.CopyTo(powers.Slice(j0 + 4, 4));
+        energyLow.CopyTo(energy.Slice(j0, 4));
+        energyHigh.CopyTo(energy.Slice(j0 + 4, 4));
+    }
+
+    /// <summary>Directions j0 .. j0 + 23 of every frequency, three blocks of eight in one pass (see <see cref="Accumulate"/>).</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
+    private void AccumulateThreeBlocks(ReadOnlySpan<float> density, int nf, int nd, int j0, Span<double> powers, Span<double> energy)
+    {
+        if (density.Length < (nf - 1) * nd + j0 + 24 || _powerWeights.Length < nf || _m0.Length < nf || _frequencySpectrum.Length < nf)
+            throw new ArgumentException("The spectrum is shorter than its axes say.", nameof(density));
+        Vector256<double> p0l = default, p0h = default, e0l = default, e0h = default;
+        Vector256<double> p1l = default, p1h = default, e1l = default, e1h = default;
+        Vector256<double> p2l = default, p2h = default, e2l = default, e2h = default;
+        ref float first = ref Unsafe.Add(ref MemoryMarshal.GetReference(density), j0);
+        ref double weights = ref MemoryMarshal.GetArrayDataReference(_powerWeights);
+        ref double trapezoids = ref MemoryMarshal.GetArrayDataReference(_m0);
+        ref double spectrum = ref MemoryMarshal.GetArrayDataReference(_frequencySpectrum);
+        for (int i = 0; i < nf; i++)
+        {
+            ref float row = ref Unsafe.Add(ref first, i * nd);
+            var weight = Vector256.Create(Unsafe.Add(ref weights, i));
+            var trapezoid = Vector256.Create(Unsafe.Add(ref trapezoids, i));
+            var (l0, h0) = Vector256.Widen(Vector256.LoadUnsafe(ref row));
+            var (l1, h1) = Vector256.Widen(Vector256.LoadUnsafe(ref row, 8));
+            var (l2, h2) = Vector256.Widen(Vector256.LoadUnsafe(ref row, 16));
+            p0l += weight * l0; p0h += weight * h0; e0l += trapezoid * l0; e0h += trapezoid * h0;
+            p1l += weight * l1; p1h += weight * h1; e1l += trapezoid * l1; e1h += trapezoid * h1;
+            p2l += weight * l2; p2h += weight * h2; e2l += trapezoid * l2; e2h += trapezoid * h2;
+            ref double sum = ref Unsafe.Add(ref spectrum, i);
+            sum += Vector256.Sum(l0 + h0);
+            sum += Vector256.Sum(l1 + h1);
+            sum += Vector256.Sum(l2 + h2);
+        }
+        p0l.CopyTo(powers.Slice(j0, 4)); p0h.CopyTo(powers.Slice(j0 + 4, 4));
+        p1l.CopyTo(powers.Slice(j0 + 8, 4)); p1h.CopyTo(powers.Slice(j0 + 12, 4));
+        p2l.CopyTo(powers.Slice(j0 + 16, 4)); p2h.CopyTo(powers.Slice(j0 + 20, 4));
+        e0l.CopyTo(energy.Slice(j0, 4)); e0h.CopyTo(energy.Slice(j0 + 4, 4));
+        e1l.CopyTo(energy.Slice(j0 + 8, 4)); e1h.CopyTo(energy.Slice(j0 + 12, 4));
+        e2l.CopyTo(energy.Slice(j0 + 16, 4)); e2h.CopyTo(energy.Slice(j0 + 20, 4));
     }
 
     private SpectralSeaState Missing()

@@ -1,4 +1,6 @@
 using Atlas.Hindcast;
+using Atlas.Hindcast.Spectra;
+using Atlas.Ingest.Spectra;
 using Atlas.Ingest.Ingestion;
 using Atlas.Storage.Cells;
 using Atlas.Storage.Datasets;
@@ -124,6 +126,74 @@ public class PointSpectraIngestTests(TestDatabase database) : IClassFixture<Test
             if (variant == "frequency_only") Assert.True(float.IsNaN(steps.Directionality[t]));
             else Assert.Equal(e["directionality"]!.GetValue<double>(), steps.Directionality[t], 1e-5);
         }
+    }
+
+    // The same densities stored with directions before frequencies (not contiguous in the file; netCDF4-python wrote
+    // them), and copies rewritten by netCDF-C's nccopy compressed in chunks of one station over all steps (chunks longer
+    // than a block) and in chunks of three steps (blocks of whole chunks): every per-step value and month sum is the
+    // same to the bit as from the file as written, whichever way the reader takes the blocks.
+    [Fact]
+    public void LayoutCompressionAndChunkingOfTheFileChangeNoValue()
+    {
+        var folder = Folder();
+        const int steps = 40;
+        var written = PointSpectraFixture.Make(Path.Combine(folder, "written.nc"), 0, steps);
+        var files = new Dictionary<string, string>
+        {
+            ["direction before frequency"] = PointSpectraFixture.Make(Path.Combine(folder, "direction-first.nc"), 0, steps, "direction_before_frequency"),
+            ["one station per chunk"] = NcCopy(written, Path.Combine(folder, "station-chunks.nc"), "time/40,station/1,frequency/32,direction/24"),
+            ["three steps per chunk"] = NcCopy(written, Path.Combine(folder, "step-chunks.nc"), "time/3,station/3,frequency/32,direction/24"),
+        };
+        using var original = PointSpectraFile.Open(written);
+        var reference = IntegratedSpectra.Integrate(original);
+        foreach (var (layout, path) in files)
+        {
+            using var file = PointSpectraFile.Open(path);
+            var other = IntegratedSpectra.Integrate(file);
+            for (int s = 0; s < 3; s++)
+            {
+                foreach (var parameter in new[] { WaveParameter.Hs, WaveParameter.Te, WaveParameter.Tp, WaveParameter.Dir, WaveParameter.Spread })
+                    Assert.True(reference.Series(parameter, s).SequenceEqual(other.Series(parameter, s)), $"{layout}: {parameter.Symbol()} of station {s} differs");
+                foreach (var product in SpectralProducts.All)
+                    Assert.True(reference.Product(product, s).SequenceEqual(other.Product(product, s)), $"{layout}: {product} of station {s} differs");
+                var (frequency, direction, count) = reference.MonthSum(0, s);
+                var (otherFrequency, otherDirection, otherCount) = other.MonthSum(0, s);
+                Assert.Equal(count, otherCount);
+                Assert.True(frequency.Span.SequenceEqual(otherFrequency.Span) && direction.Span.SequenceEqual(otherDirection.Span), $"{layout}: month sums of station {s} differ");
+            }
+        }
+    }
+
+    // Files are opened side by side, but a refusal is the one reading them in the given order meets first: here the
+    // second file (a negative density), not the third (unknown units), and nothing is stored.
+    [Fact]
+    public async Task TheFirstBadFileInTheGivenOrderIsTheOneReported()
+    {
+        var folder = Folder();
+        var good = PointSpectraFixture.Make(Path.Combine(folder, "good.nc"), 0, 4);
+        var negative = PointSpectraFixture.Make(Path.Combine(folder, "negative.nc"), 12, 4, "negative");
+        var unknown = PointSpectraFixture.Make(Path.Combine(folder, "unknown.nc"), 24, 4, "units_unknown");
+        var error = await Assert.ThrowsAsync<HindcastFormatException>(() =>
+            new HindcastIngestor(database.DataSource).RunAsync(new IngestRequest("first-bad", [good, negative, unknown])));
+        Assert.Contains("negative density", error.Message);
+        Assert.Contains("negative.nc", error.Message);
+        Assert.Null(await new DatasetStore(database.DataSource).FindAsync("first-bad"));
+    }
+
+    /// <summary>netCDF-C's nccopy: a deflated copy (level 1, shuffled) of <paramref name="source"/> in the given chunks.</summary>
+    private static string NcCopy(string source, string target, string chunks)
+    {
+        var start = new System.Diagnostics.ProcessStartInfo("nccopy", ["-d1", "-s", "-c", chunks, source, target])
+        {
+            RedirectStandardError = true,
+            UseShellExecute = false,
+        };
+        start.Environment["HDF5_USE_FILE_LOCKING"] = "FALSE";
+        using var process = System.Diagnostics.Process.Start(start)!;
+        var error = process.StandardError.ReadToEnd();
+        process.WaitForExit();
+        if (process.ExitCode != 0) throw new InvalidOperationException($"nccopy failed: {error}");
+        return target;
     }
 
     private async Task<StationStepRecord> StationSpectraStoreSteps(int datasetId, int cell) =>

@@ -22,6 +22,7 @@ public sealed class CfValueDecoder
     private readonly double _rawMin, _rawMax;
     private readonly double _scale, _offset, _factor, _unitOffset;
     private readonly bool _isDirection, _toFrom, _reciprocal;
+    private readonly StoredFloatMask _mask;
 
     private CfValueDecoder(double[] rawMissing, double rawMin, double rawMax, double scale, double offset, UnitConversion units, bool negate, bool isDirection, bool toFrom, bool reciprocal, NetCdfType readType)
     {
@@ -38,6 +39,7 @@ public sealed class CfValueDecoder
         ReadType = readType;
         Units = units;
         IsPacked = scale != 1 || offset != 0;
+        _mask = new StoredFloatMask(rawMissing.Select(m => (float)m), (float)rawMin, (float)rawMax);
     }
 
     /// <summary>The type to read from the file before decoding (unsigned when _Unsigned = "true").</summary>
@@ -49,6 +51,12 @@ public sealed class CfValueDecoder
 
     /// <summary>True when the decoded value is the reciprocal of the converted one (a peak frequency read as Tp).</summary>
     public bool IsReciprocal => _reciprocal;
+
+    /// <summary>
+    /// The stored values that decode as missing, when decoding float data changes nothing else (unpacked, in SI units, no
+    /// direction turned, no reciprocal); null when it does more.
+    /// </summary>
+    public StoredFloatMask? MaskOnly => OnlyMasks ? _mask : null;
 
     /// <summary>True when decoding changes nothing but the missing values (float data in SI units).</summary>
     private bool OnlyMasks => ReadType == NetCdfType.Float && !IsPacked && _factor == 1 && _unitOffset == 0 && !_isDirection && !_reciprocal;
@@ -149,34 +157,24 @@ public sealed class CfValueDecoder
 
     private void MaskFloats(ReadOnlySpan<float> raw, Span<float> destination)
     {
-        var missing = _rawMissing.Select(m => (float)m).Where(m => !float.IsNaN(m)).ToArray();
-        float min = (float)_rawMin, max = (float)_rawMax;
-        bool ranged = !float.IsNegativeInfinity(min) || !float.IsPositiveInfinity(max);
+        var mask = _mask;
         int i = 0;
         if (Vector.IsHardwareAccelerated && raw.Length >= Vector<float>.Count)
         {
             var nan = new Vector<float>(float.NaN);
-            var vmin = new Vector<float>(min);
-            var vmax = new Vector<float>(max);
-            var fills = missing.Select(m => new Vector<float>(m)).ToArray();
             var rawVectors = MemoryMarshal.Cast<float, Vector<float>>(raw);
             var outVectors = MemoryMarshal.Cast<float, Vector<float>>(destination);
             for (int k = 0; k < rawVectors.Length; k++)
             {
                 var v = rawVectors[k];
-                var mask = Vector<int>.Zero;
-                foreach (var f in fills) mask |= Vector.Equals(v, f);
-                if (ranged) mask |= Vector.LessThan(v, vmin) | Vector.GreaterThan(v, vmax);
-                outVectors[k] = Vector.ConditionalSelect(mask, nan, v);
+                outVectors[k] = Vector.ConditionalSelect(mask.Missing(v), nan, v);
             }
             i = rawVectors.Length * Vector<float>.Count;
         }
         for (; i < raw.Length; i++)
         {
             float v = raw[i];
-            bool isMissing = v < min || v > max;
-            foreach (var f in missing) isMissing |= v == f;
-            destination[i] = isMissing ? float.NaN : v;
+            destination[i] = mask.IsMissing(v) ? float.NaN : v;
         }
     }
 

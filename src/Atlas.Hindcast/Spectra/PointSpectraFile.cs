@@ -1,6 +1,7 @@
 using System.Buffers;
 using System.Numerics;
 using System.Runtime.CompilerServices;
+using System.Runtime.InteropServices;
 
 namespace Atlas.Hindcast.Spectra;
 
@@ -38,7 +39,13 @@ public sealed class PointSpectraFile : IDisposable
     private readonly double _factor;
     private readonly int _timeAxis, _stationAxis, _frequencyAxis, _directionAxis;
     private readonly int[] _directionOrder; // sorted position -> file index
-    private float[] _raw = [];              // the last block as read, reused from block to block
+    private readonly int[] _sortedToFile;   // _directionOrder, or [0] for S(f)
+    private readonly (int To, int From, int Length)[] _runs;  // the sorted order as runs of consecutive file indices
+    private readonly int[] _vectorMoves, _scalarMoves;         // the runs as (target, source) moves within a row
+    private readonly int[] _spectrumMoves, _spectrumScalarMoves;  // a whole spectrum as one run, for files that allow it
+    private readonly StoredFloatMask _storedMask;              // masked while copying (None when decoded on reading)
+    private readonly bool _decodeOnRead;                       // the encoding needs more than masking
+    private float[] _raw = [];              // the last block as read by ReadSteps, reused from block to block
 
     private PointSpectraFile(NetCdfFile file, VariableMapping? mapping)
     {
@@ -90,6 +97,16 @@ public sealed class PointSpectraFile : IDisposable
         _stationAxis = remaining.Length == 1 ? remaining[0] : -1;
         var stationDimension = _stationAxis >= 0 ? _density.Dimensions[_stationAxis] : null;
         Stations = ReadStations(file, stationDimension, timeDimension, mapping, notes);
+        _sortedToFile = _directionOrder.Length > 0 ? _directionOrder : [0];
+        _runs = Runs(_sortedToFile);
+        var scalarMoves = new List<int>();
+        _vectorMoves = VectorMoves(_runs, scalarMoves);
+        _scalarMoves = [.. scalarMoves];
+        var spectrumScalarMoves = new List<int>();
+        _spectrumMoves = VectorMoves([(0, 0, ValuesPerSpectrum)], spectrumScalarMoves);
+        _spectrumScalarMoves = [.. spectrumScalarMoves];
+        _decodeOnRead = _decoder.MaskOnly is null;
+        _storedMask = _decoder.MaskOnly ?? StoredFloatMask.None;
         Grid = new StationGrid(Stations);
         Notes = notes;
     }
@@ -136,11 +153,30 @@ public sealed class PointSpectraFile : IDisposable
     /// <summary>What was converted and assumed in reading the file, in words.</summary>
     public IReadOnlyList<string> Notes { get; }
 
-    /// <summary>Values per step and station: frequencies x directions (x 1 for S(f)).</summary>
     /// <summary>Steps per chunk of the spectrum variable along time (1 when it is not chunked): reads of whole chunks
     /// decode each chunk once.</summary>
     public int TimeChunkSteps => _density.ChunkSizes is { } chunks && chunks[_timeAxis] > 0 ? (int)Math.Min(chunks[_timeAxis], int.MaxValue) : 1;
 
+    /// <summary>
+    /// The steps per block in which to read the whole file, and HDF5's chunk cache set for reading so: whole chunks
+    /// along time, as many as make about <paramref name="targetValues"/> values (at least one chunk, when a chunk holds
+    /// at most <paramref name="maxValues"/>), so that each chunk is read and inflated once and HDF5 copies it straight
+    /// into the caller's buffer without a cache between. Where blocks cannot be whole chunks (chunks far longer than a
+    /// block), the library's chunk cache stays for compressed data, and uncompressed data are read without it.
+    /// </summary>
+    public int PlanBlocks(long targetValues, long maxValues)
+    {
+        long perStep = Math.Max(1L, (long)Stations.Count * ValuesPerSpectrum);
+        long target = Math.Max(1, targetValues / perStep), most = Math.Max(1, maxValues / perStep);
+        int steps = Math.Max(TimesUtc.Count, 1), chunk = Math.Max(1, TimeChunkSteps);
+        bool aligned = chunk <= most;
+        long block = aligned ? Math.Max(chunk, target / chunk * chunk) : target;
+        bool compressed = _density.DeflateLevel > 0 || _density.Shuffle;
+        if (_density.Storage == NetCdfStorage.Chunked && (aligned || !compressed)) _file.SetChunkCache(_density, 0, 0);
+        return (int)Math.Min(block, steps);
+    }
+
+    /// <summary>Values per step and station: frequencies x directions (x 1 for S(f)).</summary>
     public int ValuesPerSpectrum => FrequenciesHz.Length * Math.Max(DirectionsFrom.Length, 1);
 
     /// <summary>
@@ -148,72 +184,196 @@ public sealed class PointSpectraFile : IDisposable
     /// <paramref name="destination"/> laid out [time][station][frequency][direction, sorted], in m^2 s rad^-1 (m^2 s for
     /// S(f)), NaN where the file has a fill value. A negative density is refused, naming the station, time and frequency.
     /// </summary>
-    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public void ReadSteps(int timeStart, int timeCount, Span<float> destination)
     {
-        int stations = Stations.Count, nf = FrequenciesHz.Length, nd = Math.Max(DirectionsFrom.Length, 1);
-        long needed = (long)timeCount * stations * nf * nd;
+        int stations = Stations.Count, perSpectrum = ValuesPerSpectrum;
+        long needed = (long)timeCount * stations * perSpectrum;
         if (destination.Length < needed) throw new ArgumentException($"destination holds {destination.Length} values; {needed} are needed", nameof(destination));
-        if (timeStart < 0 || timeCount < 0 || timeStart + timeCount > TimesUtc.Count)
-            throw new ArgumentOutOfRangeException(nameof(timeStart), $"steps [{timeStart}, +{timeCount}) outside 0..{TimesUtc.Count}");
-        if (timeCount == 0) return;
-
-        int rank = _density.Rank;
-        var start = new long[rank];
-        var count = _density.Shape;
-        start[_timeAxis] = timeStart;
-        count[_timeAxis] = timeCount;
         if (_raw.Length < needed)
         {
             if (_raw.Length > 0) ArrayPool<float>.Shared.Return(_raw);
             _raw = ArrayPool<float>.Shared.Rent((int)needed);
         }
-        var raw = _raw.AsSpan(0, (int)needed);
-        _file.Read(_density, start, count, raw);
-        _decoder.DecodeInPlace(raw);
-
-        // Strides of each role in the raw (file-ordered) slab.
-        var strides = new long[rank];
-        long stride = 1;
-        for (int a = rank - 1; a >= 0; a--) { strides[a] = stride; stride *= count[a]; }
-        long st = strides[_timeAxis], sf = strides[_frequencyAxis];
-        long ss = _stationAxis >= 0 ? strides[_stationAxis] : 0, sd = _directionAxis >= 0 ? strides[_directionAxis] : 0;
-        float factor = (float)_factor;
-        var order = _directionOrder.Length > 0 ? _directionOrder : [0];
-        var runs = Runs(order);
-        int o = 0;
+        var stored = _raw.AsSpan(0, (int)needed);
+        ReadStoredSteps(timeStart, timeCount, stored);
         for (int t = 0; t < timeCount; t++)
             for (int s = 0; s < stations; s++)
-                for (int i = 0; i < nf; i++)
-                {
-                    long rowBase = t * st + s * ss + i * sf;
-                    var row = destination.Slice(o, nd);
-                    float smallest = 0;
-                    if (sd == 1 || nd == 1)
-                    {
-                        // Directions contiguous in the file: copy each run of consecutive file indices at once.
-                        foreach (var (to, from, length) in runs)
-                            smallest = Math.Min(smallest, ScaledCopy(raw.Slice((int)rowBase + from, length), factor, row.Slice(to, length)));
-                    }
-                    else
-                    {
-                        for (int j = 0; j < row.Length; j++)
-                        {
-                            float v = raw[(int)(rowBase + order[j] * sd)];
-                            smallest = Math.Min(smallest, v);
-                            row[j] = v * factor;
-                        }
-                    }
-                    if (smallest < 0)
-                        throw new HindcastFormatException(Path, _density.Name,
-                            $"has a negative density {smallest} at station '{Stations[s].Name}', {CfTime.Iso(TimesUtc[timeStart + t])}, " +
-                            $"frequency {FrequenciesHz[i]:0.#####} Hz; a variance density cannot be negative");
-                    o += nd;
-                }
+                if (!TryDecodeSpectrum(stored, timeCount, t, s, destination.Slice((t * stations + s) * perSpectrum, perSpectrum)))
+                    throw NegativeDensity(stored, timeStart, timeCount, t, s);
+    }
+
+    /// <summary>
+    /// Reads steps [<paramref name="timeStart"/>, +<paramref name="timeCount"/>) of every station as the file stores them
+    /// (its own order of dimensions and directions, <see cref="ValuesPerSpectrum"/> values per step and station), for
+    /// <see cref="TryDecodeSpectrum"/>. Float data whose decoding only masks missing values are left for that step to
+    /// mask while it copies; any other encoding (packing, integers) is decoded here, its missing values to NaN.
+    /// </summary>
+    public void ReadStoredSteps(int timeStart, int timeCount, Span<float> stored)
+    {
+        long needed = (long)timeCount * Stations.Count * ValuesPerSpectrum;
+        if (stored.Length < needed) throw new ArgumentException($"the buffer holds {stored.Length} values; {needed} are needed", nameof(stored));
+        if (timeStart < 0 || timeCount < 0 || timeStart + timeCount > TimesUtc.Count)
+            throw new ArgumentOutOfRangeException(nameof(timeStart), $"steps [{timeStart}, +{timeCount}) outside 0..{TimesUtc.Count}");
+        if (timeCount == 0) return;
+        var start = new long[_density.Rank];
+        var count = _density.Shape;
+        start[_timeAxis] = timeStart;
+        count[_timeAxis] = timeCount;
+        var slab = stored[..(int)needed];
+        _file.Read(_density, start, count, slab);
+        if (_decodeOnRead) _decoder.DecodeInPlace(slab);
+    }
+
+    /// <summary>
+    /// Decodes the spectrum of station <paramref name="station"/> at step <paramref name="step"/> of a block of
+    /// <paramref name="timeCount"/> steps read by <see cref="ReadStoredSteps"/> into <paramref name="destination"/>
+    /// (<see cref="ValuesPerSpectrum"/> values, [frequency][direction, sorted], in m^2 s rad^-1 or m^2 s, NaN where
+    /// missing). Returns false when a density is negative (<see cref="NegativeDensity"/> names it); the destination
+    /// is then not all written. Safe to call from several threads at once on one block.
+    /// </summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
+    public bool TryDecodeSpectrum(ReadOnlySpan<float> stored, int timeCount, int step, int station, Span<float> destination)
+    {
+        int nf = FrequenciesHz.Length, nd = Math.Max(DirectionsFrom.Length, 1);
+        if (destination.Length < nf * nd) throw new ArgumentException($"destination holds {destination.Length} values; {nf * nd} are needed", nameof(destination));
+        var (st, ss, sf, sd) = Strides(timeCount);
+        long at = step * st + station * ss;
+        if (at < 0 || at + (nf - 1) * sf + (nd - 1) * sd >= stored.Length)
+            throw new ArgumentOutOfRangeException(nameof(step), $"step {step} of station {station} lies outside a stored block of {timeCount} steps");
+        var mask = _storedMask;
+        float factor = (float)_factor;
+        if ((sd == 1 || nd == 1) && Vector.IsHardwareAccelerated && !mask.HasMoreFills)
+        {
+            ref float source = ref Unsafe.Add(ref MemoryMarshal.GetReference(stored), (nint)at);
+            ref float target = ref MemoryMarshal.GetReference(destination);
+            // A spectrum whose frequency rows follow each other in file order, directions in sorted order, is one run.
+            return _runs.Length == 1 && sf == nd
+                ? !CopyRows(ref source, 0, 1, ref target, nf * nd, _spectrumMoves, _spectrumScalarMoves, factor, mask)
+                : !CopyRows(ref source, sf, nf, ref target, nd, _vectorMoves, _scalarMoves, factor, mask);
+        }
+        bool negative = false;
+        for (int i = 0; i < nf; i++)
+        {
+            long rowBase = at + i * sf;
+            for (int j = 0; j < nd; j++)
+            {
+                float v = stored[(int)(rowBase + _sortedToFile[j] * sd)];
+                if (mask.IsMissing(v)) v = float.NaN;
+                negative |= v < 0;
+                destination[i * nd + j] = v * factor;
+            }
+        }
+        return !negative;
+    }
+
+    /// <summary>
+    /// Copies <paramref name="rows"/> rows of <paramref name="width"/> values, each row <paramref name="rowStride"/> apart
+    /// in the source and <paramref name="width"/> apart in the target, by the given moves (target, source offsets within
+    /// a row): whole vectors, then single values. Each value is multiplied by <paramref name="factor"/> (not when it is 1,
+    /// which changes no value), NaN where the mask says missing (its first two fills and its range: the caller leaves
+    /// masks with more fills to the scalar path); returns true when a value (not missing) is negative. No calls inside,
+    /// so that the mask stays in registers.
+    /// </summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
+    private static bool CopyRows(ref float source, long rowStride, int rows, ref float target, int width, int[] vectorMoves, int[] scalarMoves,
+        float factor, StoredFloatMask mask)
+    {
+        var fill0 = mask.Fill0; var fill1 = mask.Fill1; var min = mask.Min; var max = mask.Max;
+        float fill0s = fill0[0], fill1s = fill1[0], mins = min[0], maxs = max[0];
+        var f = new Vector<float>(factor);
+        bool scale = factor != 1;
+        var nan = new Vector<float>(float.NaN);
+        var negative = Vector<int>.Zero;
+        bool any = false;
+        for (int i = 0; i < rows; i++)
+        {
+            ref float from = ref Unsafe.Add(ref source, (nint)(i * rowStride));
+            ref float to = ref Unsafe.Add(ref target, i * width);
+            for (int m = 0; m < vectorMoves.Length; m += 2)
+            {
+                var v = Vector.LoadUnsafe(ref from, (nuint)vectorMoves[m + 1]);
+                var missing = StoredFloatMask.Missing(v, fill0, fill1, min, max);
+                negative |= Vector.AndNot(Vector.LessThan(v, Vector<float>.Zero), missing);
+                Vector.ConditionalSelect(missing, nan, scale ? v * f : v).StoreUnsafe(ref to, (nuint)vectorMoves[m]);
+            }
+            for (int m = 0; m < scalarMoves.Length; m += 2)
+            {
+                float v = Unsafe.Add(ref from, scalarMoves[m + 1]);
+                if (v == fill0s || v == fill1s || v < mins || v > maxs) v = float.NaN;
+                any |= v < 0;
+                Unsafe.Add(ref to, scalarMoves[m]) = scale ? v * factor : v;
+            }
+        }
+        return any || negative != Vector<int>.Zero;
+    }
+
+    /// <summary>
+    /// The moves that copy runs (target, source, length) a vector at a time, a run's last vector overlapping the one
+    /// before: (target, source) offset pairs; runs shorter than a vector go to <paramref name="scalar"/> value by value.
+    /// </summary>
+    private static int[] VectorMoves(IEnumerable<(int To, int From, int Length)> runs, List<int> scalar)
+    {
+        int width = Vector<float>.Count;
+        var moves = new List<int>();
+        foreach (var (to, from, length) in runs)
+        {
+            if (length < width)
+            {
+                for (int m = 0; m < length; m++) { scalar.Add(to + m); scalar.Add(from + m); }
+                continue;
+            }
+            for (int j = 0; ; j += width)
+            {
+                if (j > length - width) j = length - width;
+                moves.Add(to + j);
+                moves.Add(from + j);
+                if (j == length - width) break;
+            }
+        }
+        return [.. moves];
+    }
+
+    /// <summary>
+    /// The error for a spectrum <see cref="TryDecodeSpectrum"/> refused: the station, the time and the first frequency
+    /// with a negative density, and the most negative value there.
+    /// </summary>
+    public HindcastFormatException NegativeDensity(ReadOnlySpan<float> stored, int timeStart, int timeCount, int step, int station)
+    {
+        int nf = FrequenciesHz.Length, nd = Math.Max(DirectionsFrom.Length, 1);
+        var (st, ss, sf, sd) = Strides(timeCount);
+        for (int i = 0; i < nf; i++)
+        {
+            float smallest = 0;
+            for (int j = 0; j < nd; j++)
+            {
+                float v = stored[(int)(step * st + station * ss + i * sf + j * sd)];
+                if (!_storedMask.IsMissing(v) && v < smallest) smallest = v;
+            }
+            if (smallest < 0)
+                return new HindcastFormatException(Path, _density.Name,
+                    $"has a negative density {smallest} at station '{Stations[station].Name}', {CfTime.Iso(TimesUtc[timeStart + step])}, " +
+                    $"frequency {FrequenciesHz[i]:0.#####} Hz; a variance density cannot be negative");
+        }
+        throw new InvalidOperationException($"station {station} at step {timeStart + step} has no negative density");
+    }
+
+    /// <summary>Strides of step, station, frequency and direction in a stored block of <paramref name="timeCount"/> steps (0 for an absent axis).</summary>
+    private (long Step, long Station, long Frequency, long Direction) Strides(int timeCount)
+    {
+        long step = 0, station = 0, frequency = 0, direction = 0, stride = 1;
+        for (int a = _density.Rank - 1; a >= 0; a--)
+        {
+            if (a == _timeAxis) step = stride;
+            else if (a == _stationAxis) station = stride;
+            else if (a == _frequencyAxis) frequency = stride;
+            else if (a == _directionAxis) direction = stride;
+            stride *= a == _timeAxis ? timeCount : _density.Dimensions[a].Length;
+        }
+        return (step, station, frequency, direction);
     }
 
     /// <summary>The sorted order as runs of consecutive file indices: (sorted position, file index, length).</summary>
-    private static List<(int To, int From, int Length)> Runs(int[] order)
+    private static (int To, int From, int Length)[] Runs(int[] order)
     {
         var runs = new List<(int, int, int)>();
         for (int j = 0; j < order.Length;)
@@ -223,34 +383,7 @@ public sealed class PointSpectraFile : IDisposable
             runs.Add((j, order[j], length));
             j += length;
         }
-        return runs;
-    }
-
-    /// <summary>Copies <paramref name="source"/> times <paramref name="factor"/>; returns the smallest value seen if below 0, else 0 (NaN passes).</summary>
-    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
-    private static float ScaledCopy(ReadOnlySpan<float> source, float factor, Span<float> destination)
-    {
-        int j = 0, width = Vector<float>.Count;
-        float smallest = 0;
-        if (Vector.IsHardwareAccelerated && source.Length >= width)
-        {
-            var f = new Vector<float>(factor);
-            var low = Vector<float>.Zero;
-            for (; j <= source.Length - width; j += width)
-            {
-                var v = new Vector<float>(source.Slice(j, width));
-                low = Vector.Min(low, v);
-                (v * f).CopyTo(destination.Slice(j, width));
-            }
-            for (int k = 0; k < width; k++) smallest = Math.Min(smallest, low[k]);
-        }
-        for (; j < source.Length; j++)
-        {
-            float v = source[j];
-            smallest = Math.Min(smallest, v);
-            destination[j] = v * factor;
-        }
-        return smallest;
+        return [.. runs];
     }
 
     public void Dispose()

@@ -50,14 +50,9 @@ public sealed class HindcastIngestor(NpgsqlDataSource dataSource, StatisticsOpti
         var files = new List<SourceFile>();
         try
         {
-            foreach (var path in request.Files.Distinct())
-            {
-                cancel.ThrowIfCancellationRequested();
-                var opened = SourceFile.Open(path, request.Mapping);
-                opened.Release();
-                files.Add(opened);
-                progress?.Report(new ProgressSnapshot("opening files", files.Count, request.Files.Count, 0, clock.Elapsed, "files"));
-            }
+            var paths = request.Files.Distinct().ToList();
+            files = await SourceFile.OpenAllAsync(paths, request.Mapping,
+                opened => progress?.Report(new ProgressSnapshot("opening files", opened, paths.Count, 0, clock.Elapsed, "files")), cancel);
             return await load(files, clock);
         }
         finally

@@ -38,12 +38,7 @@ public sealed class IngestInParts(NpgsqlDataSource dataSource, StatisticsOptions
         var files = new List<SourceFile>();
         try
         {
-            foreach (var path in request.Files.Distinct())
-            {
-                var opened = SourceFile.Open(path, mapping);
-                opened.Release();
-                files.Add(opened);
-            }
+            files = await SourceFile.OpenAllAsync(request.Files.Distinct().ToList(), mapping, cancel: cancel);
             IngestPlan plan;
             await using (var connection = await dataSource.OpenConnectionAsync(cancel))
             await using (var transaction = await connection.BeginTransactionAsync(cancel))

@@ -87,7 +87,75 @@ public sealed class SourceFile : IDisposable
     /// <summary>A variable named like the water depth that was not taken for it, and why; null when there is none.</summary>
     public DepthLookalike? DepthLookalike { get; private init; }
 
-    /// <summary>Opens and decodes a file, and checksums its bytes (SHA-256, streamed).</summary>
+    /// <summary>The most files opened at once by <see cref="OpenAll"/>, whatever the processor count: each holds its read buffers.</summary>
+    private const int MaxOpenAtOnce = 4;
+
+    /// <summary>
+    /// Opens <paramref name="paths"/> as <see cref="Open"/> does, one file per processor at a time (each file's checksum
+    /// and, for spectra, its integration run beside the other files'), and returns them in the given order, released
+    /// (<see cref="Release"/>). When a file fails, no further file is started, those started are finished and disposed,
+    /// and the error of the first failing file in the given order is thrown, as opening them one after another would.
+    /// </summary>
+    /// <remarks>
+    /// The files are opened on the thread pool's threads, never on threads started for the purpose: the HDF5 library
+    /// frees a thread's error stack when the thread ends, which crashes the process after a refused file (seen with HDF5
+    /// 1.10 built thread-safe), and the pool's threads live on.
+    /// </remarks>
+    /// <param name="opened">Called with the number of files opened so far, one call at a time.</param>
+    public static async Task<List<SourceFile>> OpenAllAsync(IReadOnlyList<string> paths, VariableMapping? mapping, Action<int>? opened = null,
+        CancellationToken cancel = default)
+    {
+        using var slots = new SemaphoreSlim(Math.Clamp(Environment.ProcessorCount, 1, MaxOpenAtOnce));
+        var tasks = new List<Task<SourceFile>>(paths.Count);
+        var report = new object();
+        int count = 0, failed = 0;
+        try
+        {
+            foreach (var path in paths)
+            {
+                await slots.WaitAsync(cancel);
+                if (Volatile.Read(ref failed) != 0) { slots.Release(); break; }
+                tasks.Add(Task.Run(() =>
+                {
+                    try
+                    {
+                        var file = Open(path, mapping);
+                        file.Release();
+                        lock (report) opened?.Invoke(++count);
+                        return file;
+                    }
+                    catch
+                    {
+                        Volatile.Write(ref failed, 1);
+                        throw;
+                    }
+                    finally
+                    {
+                        slots.Release();
+                    }
+                }, CancellationToken.None));
+            }
+        }
+        catch
+        {
+            // Cancelled: the files already opened are closed again, once every file started is finished.
+            await Finish(tasks);
+            foreach (var task in tasks.Where(t => t.IsCompletedSuccessfully)) task.Result.Dispose();
+            throw;
+        }
+        await Finish(tasks);
+        if (tasks.FirstOrDefault(t => t.IsFaulted) is { } first)
+        {
+            foreach (var task in tasks.Where(t => t.IsCompletedSuccessfully)) task.Result.Dispose();
+            System.Runtime.ExceptionServices.ExceptionDispatchInfo.Throw(first.Exception!.InnerException!);
+        }
+        return tasks.Select(t => t.Result).ToList();
+    }
+
+    /// <summary>Waits for every file started, so that no read of a file outlives the call (their faults are looked at after).</summary>
+    private static Task Finish(List<Task<SourceFile>> tasks) => Task.WhenAll(tasks).ContinueWith(_ => { }, TaskScheduler.Default);
+
+    /// <summary>Opens and decodes a file, and checksums its bytes (SHA-256).</summary>
     public static SourceFile Open(string path, VariableMapping? mapping)
     {
         if (!System.IO.File.Exists(path)) throw new IngestException($"{path}: no such file.");

@@ -15,8 +15,12 @@ namespace Atlas.Ingest.Spectra;
 /// </summary>
 public sealed class IntegratedSpectra : IStepReader
 {
-    /// <summary>Steps read from the file at a time: bounded so that one raw block stays near 16 MB.</summary>
-    private const long BlockValues = 4 << 20;
+    /// <summary>Values read from the file at a time: about 2 MB, so that a block stays in the processor's cache from its
+    /// read to its integration.</summary>
+    private const long BlockValues = 512 << 10;
+
+    /// <summary>The most values of a block of whole chunks (128 MB): files with longer chunks are read across them.</summary>
+    private const long MaxBlockValues = 32 << 20;
 
     private readonly Dictionary<WaveParameter, float[]> _series = [];   // [station * steps + step]
     private readonly float[][] _products;                                // per product, [station * steps + step]
@@ -135,14 +139,14 @@ public sealed class IntegratedSpectra : IStepReader
     {
         int stations = Stations.Count, steps = TimesUtc.Count, perSpectrum = file.ValuesPerSpectrum;
         var integrators = Stations.Select(s => new SpectralIntegrator(Axes, s.DepthMetres)).ToArray();
-        // Whole chunks along time, so that a compressed chunk is inflated once and HDF5 copies straight into the buffer.
-        long fit = BlockValues / Math.Max(1L, (long)stations * perSpectrum);
-        int chunk = file.TimeChunkSteps <= Math.Max(fit, 1) * 8 ? Math.Max(1, file.TimeChunkSteps) : 1;   // chunks far longer than a block: not aligned
-        int block = (int)Math.Clamp(Math.Max(chunk, fit / chunk * chunk), 1, Math.Max(steps, 1));
-        // Two buffers: the file reads the next block (netCDF calls stay on one thread at a time) while this one is integrated.
+        int block = file.PlanBlocks(BlockValues, MaxBlockValues);
+        // Two buffers: the file reads the next block as stored (netCDF calls stay on one thread at a time) while this one
+        // is decoded and integrated, station by station, each spectrum decoded into one scratch spectrum.
         int length = checked(block * stations * perSpectrum);
         var buffers = new[] { ArrayPool<float>.Shared.Rent(length), ArrayPool<float>.Shared.Rent(length) };
-        Task? reading = steps > 0 ? Task.Run(() => file.ReadSteps(0, Math.Min(block, steps), buffers[0])) : null;
+        var spectrum = new float[perSpectrum];
+        var refused = new int[stations];   // per station, the first step of the block whose density is negative, or -1
+        Task? reading = steps > 0 ? Task.Run(() => file.ReadStoredSteps(0, Math.Min(block, steps), buffers[0])) : null;
         try
         {
             for (int t0 = 0, turn = 0; t0 < steps; t0 += block, turn ^= 1)
@@ -152,8 +156,15 @@ public sealed class IntegratedSpectra : IStepReader
                 var buffer = buffers[turn];
                 int next = t0 + block, nextCount = Math.Min(block, steps - next);
                 var nextBuffer = buffers[turn ^ 1];
-                reading = next < steps ? Task.Run(() => file.ReadSteps(next, nextCount, nextBuffer)) : Task.CompletedTask;
-                Parallel.For(0, stations, s => IntegrateStation(integrators[s], s, t0, n, buffer, perSpectrum));
+                reading = next < steps ? Task.Run(() => file.ReadStoredSteps(next, nextCount, nextBuffer)) : Task.CompletedTask;
+                // Station after station on this thread: files are integrated beside each other and beside their
+                // checksums (SourceFile.OpenAllAsync), which keeps the processors busy without splitting a block.
+                for (int s = 0; s < stations; s++) refused[s] = IntegrateStation(file, integrators[s], spectrum, s, t0, n, buffer);
+                // The first refused spectrum in step-then-station order, as reading the steps one after another meets it.
+                int badStation = -1;
+                for (int s = 0; s < stations; s++)
+                    if (refused[s] >= 0 && (badStation < 0 || refused[s] < refused[badStation])) badStation = s;
+                if (badStation >= 0) throw file.NegativeDensity(buffer, t0, n, refused[badStation], badStation);
             }
         }
         finally
@@ -164,17 +175,21 @@ public sealed class IntegratedSpectra : IStepReader
         }
     }
 
-    /// <summary>Integrates steps t0..t0+n of station <paramref name="s"/> from a block laid out [step][station][values].</summary>
+    /// <summary>
+    /// Decodes and integrates steps t0..t0+n of station <paramref name="s"/> from a block of n steps as the file stores
+    /// them; returns the first step of the block whose density is negative (nothing of it summed), or -1.
+    /// </summary>
     [MethodImpl(MethodImplOptions.AggressiveOptimization)]
-    private void IntegrateStation(SpectralIntegrator integrator, int s, int t0, int n, float[] buffer, int perSpectrum)
+    private int IntegrateStation(PointSpectraFile file, SpectralIntegrator integrator, float[] spectrum, int s, int t0, int n, float[] buffer)
     {
-        int stations = Stations.Count, steps = TimesUtc.Count, nf = Axes.FrequencyCount, nd = Axes.DirectionCount;
+        int steps = TimesUtc.Count, nf = Axes.FrequencyCount, nd = Axes.DirectionCount;
         var hs = _series[WaveParameter.Hs]; var te = _series[WaveParameter.Te]; var tp = _series[WaveParameter.Tp];
         var dir = _series[WaveParameter.Dir]; var spread = _series[WaveParameter.Spread];
         for (int k = 0; k < n; k++)
         {
             int t = t0 + k;
-            var state = integrator.Integrate(buffer.AsSpan((k * stations + s) * perSpectrum, perSpectrum));
+            if (!file.TryDecodeSpectrum(buffer, n, k, s, spectrum)) return k;
+            var state = integrator.Integrate(spectrum);
             int at = s * steps + t;
             hs[at] = (float)state.Hm0;
             te[at] = (float)state.EnergyPeriod;
@@ -188,14 +203,15 @@ public sealed class IntegratedSpectra : IStepReader
             _products[(int)SpectralProduct.SpectralWidth][at] = (float)state.SpectralWidth;
             if (float.IsNaN(hs[at])) continue;
             var sums = _monthSums[_monthOfStep[t]];
-            var spectrum = integrator.FrequencySpectrum;
+            var frequencySpectrum = integrator.FrequencySpectrum;
             var frequency = sums.Frequency.AsSpan(s * nf, nf);
-            for (int i = 0; i < nf; i++) frequency[i] += spectrum[i];
+            for (int i = 0; i < nf; i++) frequency[i] += frequencySpectrum[i];
             var powers = integrator.DirectionPowers;
             var direction = sums.Direction.AsSpan(s * nd, nd);
             for (int j = 0; j < nd; j++) direction[j] += powers[j];
             sums.Steps[s]++;
         }
+        return -1;
     }
 
     public void ReadSteps(WaveParameter variable, int timeStart, int timeCount, int pointStart, int pointCount, Span<float> destination)

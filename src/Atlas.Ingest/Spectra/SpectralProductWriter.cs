@@ -72,20 +72,28 @@ public static class SpectralProductWriter
             var spectra = file.Spectra!;
             int steps = file.Times.Length;
             var repeated = new List<int>();
+            // Each step's year and place on that year's merged time line, found once for every station.
+            var yearOf = new int[steps];
+            var at = new int[steps];
             for (int t = 0; t < steps; t++)
             {
                 long time = file.Times[t];
-                int year = YearTimeline.YearOf(time);
-                int at = Array.BinarySearch(plan.MergedTimelines[year], time);
+                yearOf[t] = YearTimeline.YearOf(time);
+                at[t] = Array.BinarySearch(plan.MergedTimelines[yearOf[t]], time);
                 if (!counted.Add(time)) repeated.Add(t);
-                for (int s = 0; s < stations; s++)
-                {
-                    var products = values[(s, year)];
-                    foreach (var product in SpectralProducts.All) products[(int)product][at] = spectra.Product(product, s)[t];
-                }
             }
             for (int s = 0; s < stations; s++)
             {
+                foreach (var product in SpectralProducts.All)
+                {
+                    var from = spectra.Product(product, s);
+                    float[]? into = null;
+                    for (int t = 0, year = -1; t < steps; t++)
+                    {
+                        if (yearOf[t] != year) into = values[(s, year = yearOf[t])][(int)product];
+                        into![at[t]] = from[t];
+                    }
+                }
                 for (int m = 0; m < spectra.Months.Count; m++)
                 {
                     var (year, month) = spectra.Months[m];

@@ -130,7 +130,11 @@ public sealed class StationSpectraAnswers(NpgsqlDataSource dataSource, StationSp
 
     /// <summary>The monthly sums of an output point's spectra, as the period means are built from them.</summary>
     public static async Task<IReadOnlyList<MonthSpectrum>> MonthSpectraAsync(StationSpectraStore store, int datasetId, int cellId, CancellationToken cancel) =>
-        (await store.MonthSumsAsync(datasetId, cellId, cancel)).Select(m => new MonthSpectrum(m.Year, m.Month, m.Steps, m.FrequencySum, m.DirectionSum)).ToList();
+        MonthSpectra(await store.MonthSumsAsync(datasetId, cellId, cancel));
+
+    /// <summary>Stored monthly sums as the period means take them.</summary>
+    public static IReadOnlyList<MonthSpectrum> MonthSpectra(IEnumerable<StationMonthSums> sums) =>
+        sums.Select(m => new MonthSpectrum(m.Year, m.Month, m.Steps, m.FrequencySum, m.DirectionSum)).ToList();
 
     /// <summary>The name of an output point of a dataset of points.</summary>
     public static string StationName(DatasetRecord dataset, int cellId) =>

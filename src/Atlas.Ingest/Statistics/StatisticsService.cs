@@ -95,16 +95,19 @@ public sealed class StatisticsService(NpgsqlDataSource dataSource, StatisticsOpt
         using var linked = CancellationTokenSource.CreateLinkedTokenSource(cancel);
         var token = linked.Token;
 
+        // What output points add from their spectra, read side by side before the cells stream.
+        var spectralPower = SpectralPowerAsync(datasetId, cancel);
+        var spectralDirectionality = SpectralDirectionalityAsync(datasetId, targets, timeline, cancel);
         var producer = new CellSeriesProducer(new SeriesStore(dataSource), datasetId, cells, onlyCells, timeline)
         {
-            SpectralPower = await SpectralPowerAsync(datasetId, cancel),
+            SpectralPower = await spectralPower,
         };
         var produced = Task.Run(() => producer.RunAsync(free.Reader, work.Writer, token), token);
         var rowLists = new RowListPool();
         var calculators = new CellCalculators(_options, timeline.Times, workers)
         {
             RowLists = rowLists,
-            SpectralDirectionality = await SpectralDirectionalityAsync(datasetId, targets, timeline, cancel),
+            SpectralDirectionality = await spectralDirectionality,
         };
         var calculated = calculators.Start(work.Reader, free.Writer, results.Writer, token);
         var writer = new StatisticBatchWriter(store, targets.Length, progress, clock);
@@ -137,8 +140,8 @@ public sealed class StatisticsService(NpgsqlDataSource dataSource, StatisticsOpt
     private async Task<IReadOnlyDictionary<(int Cell, int Year), float[]>?> SpectralPowerAsync(int datasetId, CancellationToken cancel)
     {
         await using var connection = await dataSource.OpenConnectionAsync(cancel);
-        var steps = await Atlas.Storage.Spectra.StationSpectraStore.ReadStepsAsync(connection, null, datasetId, null, null, cancel);
-        return steps.Count == 0 ? null : steps.ToDictionary(kv => kv.Key, kv => kv.Value.PowerSpectral);
+        var power = await Atlas.Storage.Spectra.StationSpectraStore.ReadSpectralPowerAsync(connection, datasetId, cancel);
+        return power.Count == 0 ? null : power;
     }
 
     /// <summary>
@@ -155,11 +158,11 @@ public sealed class StatisticsService(NpgsqlDataSource dataSource, StatisticsOpt
         var directions = bins.Select(v => v!.GetValue<double>()).ToArray();
         var years = timeline.Times.Select(t => DateTimeOffset.FromUnixTimeSeconds(t).Year).Distinct().Select(AtlasPeriod.Year);
         var periods = AtlasPeriod.StandardPeriods.Concat(years).ToList();
-        var store = new Atlas.Storage.Spectra.StationSpectraStore(dataSource);
+        var sums = await new Atlas.Storage.Spectra.StationSpectraStore(dataSource).MonthSumsOfCellsAsync(datasetId, targets, cancel);
         var result = new Dictionary<(int, AtlasPeriod), double>();
         foreach (int cell in targets)
         {
-            var months = await Spectra.StationSpectraAnswers.MonthSpectraAsync(store, datasetId, cell, cancel);
+            var months = Spectra.StationSpectraAnswers.MonthSpectra(sums.GetValueOrDefault(cell, []));
             foreach (var period in PeriodSpectra.Of(months, periods, new AnalysisWindow(null, null, null), directions))
                 result[(cell, period.Period)] = period.DirectionalityCoefficient;
         }

@@ -12,7 +12,7 @@ public sealed class BinaryCopyDecoder(Stream source)
 {
     private static readonly byte[] Signature = [(byte)'P', (byte)'G', (byte)'C', (byte)'O', (byte)'P', (byte)'Y', 0x0A, 0xFF, 0x0D, 0x0A, 0x00];
 
-    private const int Int4Oid = 23, Float4Oid = 700;   // pg_type oids of integer and real
+    private const int Int4Oid = 23, Float4Oid = 700, Float8Oid = 701;   // pg_type oids of integer, real and double precision
 
     private byte[] _buffer = new byte[1 << 17];
     private int _start, _end;
@@ -74,10 +74,25 @@ public sealed class BinaryCopyDecoder(Stream source)
     /// <summary>A one-dimensional real[] field without NULL elements (NaN is a value), or null for a NULL field.</summary>
     public ValueTask<float[]?> ReadRealArrayAsync(CancellationToken cancel = default) => ReadWordArrayAsync<float>(Float4Oid, "real[]", cancel);
 
+    /// <summary>A one-dimensional double precision[] field without NULL elements (NaN is a value), or null for a NULL field.</summary>
+    public async ValueTask<double[]?> ReadDoubleArrayAsync(CancellationToken cancel = default)
+    {
+        var length = await ArrayLengthAsync(Float8Oid, 8, cancel);
+        if (length < 0) return null;
+        var values = new double[length];
+        for (var i = 0; i < length; i++)
+        {
+            if (BinaryPrimitives.ReadInt32BigEndian(_buffer.AsSpan(_start)) != 8) throw new InvalidDataException("An element of a double precision[] field is not 8 bytes long.");
+            values[i] = BinaryPrimitives.ReadDoubleBigEndian(_buffer.AsSpan(_start + 4));
+            _start += 12;
+        }
+        return values;
+    }
+
     // Both element types are 4-byte big-endian words: each is read as an integer and stored bit for bit.
     private async ValueTask<T[]?> ReadWordArrayAsync<T>(int elementOid, string typeName, CancellationToken cancel) where T : unmanaged
     {
-        var length = await ArrayLengthAsync(elementOid, cancel);
+        var length = await ArrayLengthAsync(elementOid, 4, cancel);
         if (length < 0) return null;
         var values = new T[length];
         var words = System.Runtime.InteropServices.MemoryMarshal.Cast<T, int>(values.AsSpan());
@@ -92,7 +107,7 @@ public sealed class BinaryCopyDecoder(Stream source)
 
     // Reads an array field's header ("array_send" layout: dimensions, has-nulls flag, element type, then per dimension
     // length and lower bound) and makes its whole body available; returns the element count, or -1 for NULL.
-    private async ValueTask<int> ArrayLengthAsync(int elementOid, CancellationToken cancel)
+    private async ValueTask<int> ArrayLengthAsync(int elementOid, int elementBytes, CancellationToken cancel)
     {
         await EnsureAsync(4, cancel);
         var bytes = TakeInt32();
@@ -108,7 +123,7 @@ public sealed class BinaryCopyDecoder(Stream source)
             throw new InvalidDataException($"An array field has {dimensions} dimensions of type {oid} where one of type {elementOid} was expected.");
         var length = TakeInt32();
         TakeInt32();   // lower bound
-        if (length < 0 || _start + 8L * length != end) throw new InvalidDataException("An array field's length disagrees with its size.");
+        if (length < 0 || _start + (4L + elementBytes) * length != end) throw new InvalidDataException("An array field's length disagrees with its size.");
         return length;
     }
 

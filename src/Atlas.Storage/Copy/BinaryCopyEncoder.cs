@@ -13,6 +13,7 @@ public sealed class BinaryCopyEncoder(Stream target)
 {
     private const int Float4Oid = 700;  // pg_type oid of real
     private const int Int4Oid = 23;     // pg_type oid of integer
+    private const int Float8Oid = 701;  // pg_type oid of double precision
     private static readonly byte[] Signature = [(byte)'P', (byte)'G', (byte)'C', (byte)'O', (byte)'P', (byte)'Y', 0x0A, 0xFF, 0x0D, 0x0A, 0x00];
 
     private readonly byte[] _buffer = new byte[1 << 16];
@@ -79,6 +80,19 @@ public sealed class BinaryCopyEncoder(Stream target)
         }
     }
 
+    /// <summary>A one-dimensional double precision[] (lower bound 1) of any length; NaN elements stay NaN.</summary>
+    public void WriteDoubleArray(ReadOnlySpan<double> values)
+    {
+        ArrayHeader(Float8Oid, values.Length, 8);
+        foreach (var v in values)
+        {
+            Ensure(12);
+            Int32Raw(8);
+            BinaryPrimitives.WriteDoubleBigEndian(_buffer.AsSpan(_used), v);
+            _used += 8;
+        }
+    }
+
     /// <summary>A one-dimensional integer[] (lower bound 1) of any length.</summary>
     public void WriteInt32Array(ReadOnlySpan<int> values)
     {
@@ -93,10 +107,10 @@ public sealed class BinaryCopyEncoder(Stream target)
 
     // The field length, then the array header of the "array_send" layout: dimensions, has-nulls flag, element type,
     // and per dimension its length and lower bound. Elements follow, each length-prefixed.
-    private void ArrayHeader(int elementOid, int length)
+    private void ArrayHeader(int elementOid, int length, int elementBytes = 4)
     {
         Ensure(24);
-        Int32Raw(20 + 8 * length);
+        Int32Raw(checked(20 + (4 + elementBytes) * length));
         Int32Raw(1);           // dimensions
         Int32Raw(0);           // no NULL elements
         Int32Raw(elementOid);

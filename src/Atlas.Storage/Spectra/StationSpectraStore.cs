@@ -1,3 +1,5 @@
+using System.Globalization;
+using Atlas.Storage.Copy;
 using Npgsql;
 
 namespace Atlas.Storage.Spectra;
@@ -5,52 +7,66 @@ namespace Atlas.Storage.Spectra;
 /// <summary>The spectral values of output points kept beside their series: per-step values and monthly sums (V6 schema).</summary>
 public sealed class StationSpectraStore(NpgsqlDataSource dataSource)
 {
-    /// <summary>Writes (or replaces) station-years of per-step values inside the caller's transaction.</summary>
-    public static async Task UpsertStepsAsync(NpgsqlConnection connection, NpgsqlTransaction transaction, int datasetId,
-        IEnumerable<StationStepRecord> records, CancellationToken cancel)
-    {
-        const string sql = """
-            INSERT INTO station_step (dataset_id, cell_id, year, j_spectral, j_parametric, directionality, max_power_from, spectral_width)
-            VALUES ($1, $2, $3, $4, $5, $6, $7, $8)
+    /// <summary>
+    /// Writes (or replaces) station-years of per-step values inside the caller's transaction: by binary COPY into a
+    /// temporary table, then one insert that replaces the rows already stored.
+    /// </summary>
+    public static Task UpsertStepsAsync(NpgsqlConnection connection, NpgsqlTransaction transaction, int datasetId,
+        IEnumerable<StationStepRecord> records, CancellationToken cancel) =>
+        CopyAndMergeAsync(connection, transaction, "station_step", StepColumns, records, (encoder, r) =>
+        {
+            encoder.StartRow(8);
+            encoder.WriteInt32(datasetId);
+            encoder.WriteInt32(r.CellId);
+            encoder.WriteInt16((short)r.Year);
+            foreach (var values in new[] { r.PowerSpectral, r.PowerParametric, r.Directionality, r.MaximumPowerFrom, r.SpectralWidth })
+                encoder.WriteRealArray(values.AsSpan());
+        }, """
             ON CONFLICT (dataset_id, cell_id, year) DO UPDATE SET j_spectral = excluded.j_spectral, j_parametric = excluded.j_parametric,
                 directionality = excluded.directionality, max_power_from = excluded.max_power_from, spectral_width = excluded.spectral_width
-            """;
-        var batch = new NpgsqlBatch(connection, transaction);
-        foreach (var r in records)
-        {
-            var command = new NpgsqlBatchCommand(sql);
-            command.Parameters.AddWithValue(datasetId);
-            command.Parameters.AddWithValue(r.CellId);
-            command.Parameters.AddWithValue((short)r.Year);
-            command.Parameters.AddWithValue(r.PowerSpectral);
-            command.Parameters.AddWithValue(r.PowerParametric);
-            command.Parameters.AddWithValue(r.Directionality);
-            command.Parameters.AddWithValue(r.MaximumPowerFrom);
-            command.Parameters.AddWithValue(r.SpectralWidth);
-            batch.BatchCommands.Add(command);
-        }
-        await using (batch)
-            if (batch.BatchCommands.Count > 0) await batch.ExecuteNonQueryAsync(cancel);
-    }
+            """, cancel);
 
-    /// <summary>The per-step values of the given years, by (cell, year); inside the caller's transaction when given.</summary>
+    /// <summary>
+    /// The per-step values of the given years (all when null) of one station (all when null), by (cell, year), read by
+    /// binary COPY; inside the caller's transaction when given.
+    /// </summary>
     public static async Task<Dictionary<(int Cell, int Year), StationStepRecord>> ReadStepsAsync(NpgsqlConnection connection,
         NpgsqlTransaction? transaction, int datasetId, int[]? years, int? cellId, CancellationToken cancel)
     {
-        await using var command = new NpgsqlCommand("""
-            SELECT cell_id, year, j_spectral, j_parametric, directionality, max_power_from, spectral_width FROM station_step
-            WHERE dataset_id = $1 AND ($2::smallint[] IS NULL OR year = ANY($2)) AND ($3::integer IS NULL OR cell_id = $3)
-            """, connection, transaction);
-        command.Parameters.AddWithValue(datasetId);
-        command.Parameters.Add(new NpgsqlParameter { Value = (object?)years?.Select(y => (short)y).ToArray() ?? DBNull.Value, NpgsqlDbType = NpgsqlTypes.NpgsqlDbType.Array | NpgsqlTypes.NpgsqlDbType.Smallint });
-        command.Parameters.Add(new NpgsqlParameter { Value = (object?)cellId ?? DBNull.Value, NpgsqlDbType = NpgsqlTypes.NpgsqlDbType.Integer });
+        // COPY takes no parameters: the filters are integers formatted here, so nothing in the query is text from outside.
+        var filter = $"dataset_id = {datasetId:D}" +
+            (years is null ? "" : $" AND year IN ({(years.Length == 0 ? "NULL" : string.Join(", ", years.Select(y => y.ToString("D", CultureInfo.InvariantCulture))))})") +
+            (cellId is { } cell ? $" AND cell_id = {cell:D}" : "");
         var result = new Dictionary<(int, int), StationStepRecord>();
-        await using var reader = await command.ExecuteReaderAsync(cancel);
-        while (await reader.ReadAsync(cancel))
+        await using var copy = await connection.BeginRawBinaryCopyAsync($"COPY (SELECT cell_id, year, {ProductColumns} FROM station_step WHERE {filter}) TO STDOUT (FORMAT BINARY)", cancel);
+        var decoder = new BinaryCopyDecoder(copy);
+        await decoder.ReadHeaderAsync(cancel);
+        while (await decoder.StartRowAsync(7, cancel))
         {
-            var record = new StationStepRecord(reader.GetInt32(0), reader.GetInt16(1), reader.GetFieldValue<float[]>(2), reader.GetFieldValue<float[]>(3),
-                reader.GetFieldValue<float[]>(4), reader.GetFieldValue<float[]>(5), reader.GetFieldValue<float[]>(6));
-            result[(record.CellId, record.Year)] = record;
+            int cellOf = await decoder.ReadInt32Async(cancel);
+            int year = await decoder.ReadInt16Async(cancel);
+            var products = new float[5][];
+            for (int k = 0; k < products.Length; k++)
+                products[k] = await decoder.ReadRealArrayAsync(cancel) ?? throw new InvalidDataException("station_step holds a NULL array");
+            result[(cellOf, year)] = new StationStepRecord(cellOf, year, products[0], products[1], products[2], products[3], products[4]);
+        }
+        return result;
+    }
+
+    /// <summary>The power integrated from the spectra, per step, of every stored station-year of a dataset, read by binary COPY.</summary>
+    public static async Task<Dictionary<(int Cell, int Year), float[]>> ReadSpectralPowerAsync(NpgsqlConnection connection, int datasetId,
+        CancellationToken cancel)
+    {
+        var result = new Dictionary<(int, int), float[]>();
+        await using var copy = await connection.BeginRawBinaryCopyAsync(
+            $"COPY (SELECT cell_id, year, j_spectral FROM station_step WHERE dataset_id = {datasetId:D}) TO STDOUT (FORMAT BINARY)", cancel);
+        var decoder = new BinaryCopyDecoder(copy);
+        await decoder.ReadHeaderAsync(cancel);
+        while (await decoder.StartRowAsync(3, cancel))
+        {
+            int cell = await decoder.ReadInt32Async(cancel);
+            int year = await decoder.ReadInt16Async(cancel);
+            result[(cell, year)] = await decoder.ReadRealArrayAsync(cancel) ?? throw new InvalidDataException("station_step holds a NULL array");
         }
         return result;
     }
@@ -63,50 +79,95 @@ public sealed class StationSpectraStore(NpgsqlDataSource dataSource)
         return all.Values.ToDictionary(r => r.Year);
     }
 
-    /// <summary>Adds the given monthly sums to the stored ones (rows created where missing) inside the caller's transaction.</summary>
-    public static async Task AddMonthSumsAsync(NpgsqlConnection connection, NpgsqlTransaction transaction, int datasetId,
-        IEnumerable<StationMonthSums> sums, CancellationToken cancel)
-    {
-        const string sql = """
-            INSERT INTO station_spectrum_month AS m (dataset_id, cell_id, year, month, steps, frequency_sum, direction_sum)
-            VALUES ($1, $2, $3, $4, $5, $6, $7)
+    /// <summary>
+    /// Adds the given monthly sums to the stored ones (rows created where missing) inside the caller's transaction: by
+    /// binary COPY into a temporary table, then one insert that adds to the rows already stored, element by element.
+    /// </summary>
+    public static Task AddMonthSumsAsync(NpgsqlConnection connection, NpgsqlTransaction transaction, int datasetId,
+        IEnumerable<StationMonthSums> sums, CancellationToken cancel) =>
+        CopyAndMergeAsync(connection, transaction, "station_spectrum_month", "dataset_id, cell_id, year, month, steps, frequency_sum, direction_sum", sums,
+            (encoder, m) =>
+            {
+                encoder.StartRow(7);
+                encoder.WriteInt32(datasetId);
+                encoder.WriteInt32(m.CellId);
+                encoder.WriteInt16((short)m.Year);
+                encoder.WriteInt16((short)m.Month);
+                encoder.WriteInt32(m.Steps);
+                encoder.WriteDoubleArray(m.FrequencySum);
+                encoder.WriteDoubleArray(m.DirectionSum);
+            }, """
             ON CONFLICT (dataset_id, cell_id, year, month) DO UPDATE SET
-                steps = m.steps + excluded.steps,
-                frequency_sum = (SELECT array_agg(a + b ORDER BY k) FROM unnest(m.frequency_sum, excluded.frequency_sum) WITH ORDINALITY AS u(a, b, k)),
-                direction_sum = coalesce((SELECT array_agg(a + b ORDER BY k) FROM unnest(m.direction_sum, excluded.direction_sum) WITH ORDINALITY AS u(a, b, k)), '{}')
-            """;
-        var batch = new NpgsqlBatch(connection, transaction);
-        foreach (var s in sums)
+                steps = station_spectrum_month.steps + excluded.steps,
+                frequency_sum = (SELECT array_agg(a + b ORDER BY k)
+                    FROM unnest(station_spectrum_month.frequency_sum, excluded.frequency_sum) WITH ORDINALITY AS u(a, b, k)),
+                direction_sum = coalesce((SELECT array_agg(a + b ORDER BY k)
+                    FROM unnest(station_spectrum_month.direction_sum, excluded.direction_sum) WITH ORDINALITY AS u(a, b, k)), ARRAY[]::double precision[])
+            """, cancel);
+
+    /// <summary>
+    /// Writes rows into <paramref name="table"/> inside the caller's transaction: by binary COPY into a temporary table
+    /// shaped like it (<paramref name="write"/> writes one row's fields), then one insert of them all that ends with
+    /// <paramref name="onConflict"/>; the temporary table is dropped after.
+    /// </summary>
+    private static async Task CopyAndMergeAsync<T>(NpgsqlConnection connection, NpgsqlTransaction transaction, string table, string columns,
+        IEnumerable<T> rows, Action<BinaryCopyEncoder, T> write, string onConflict, CancellationToken cancel)
+    {
+        var load = table + "_load";
+        await ExecuteAsync(connection, transaction, $"CREATE TEMP TABLE {load} (LIKE {table}) ON COMMIT DROP", cancel);
+        await using (var copy = await connection.BeginRawBinaryCopyAsync($"COPY {load} ({columns}) FROM STDIN (FORMAT BINARY)", cancel))
         {
-            var command = new NpgsqlBatchCommand(sql);
-            command.Parameters.AddWithValue(datasetId);
-            command.Parameters.AddWithValue(s.CellId);
-            command.Parameters.AddWithValue((short)s.Year);
-            command.Parameters.AddWithValue((short)s.Month);
-            command.Parameters.AddWithValue(s.Steps);
-            command.Parameters.AddWithValue(s.FrequencySum);
-            command.Parameters.AddWithValue(s.DirectionSum);
-            batch.BatchCommands.Add(command);
+            var encoder = new BinaryCopyEncoder(copy);
+            encoder.WriteHeader();
+            foreach (var row in rows)
+            {
+                cancel.ThrowIfCancellationRequested();
+                write(encoder, row);
+            }
+            encoder.WriteTrailer();
         }
-        await using (batch)
-            if (batch.BatchCommands.Count > 0) await batch.ExecuteNonQueryAsync(cancel);
+        await ExecuteAsync(connection, transaction, $"INSERT INTO {table} ({columns}) SELECT {columns} FROM {load} {onConflict}; DROP TABLE {load}", cancel);
     }
 
-    /// <summary>The monthly sums of one station, every stored month.</summary>
-    public async Task<IReadOnlyList<StationMonthSums>> MonthSumsAsync(int datasetId, int cellId, CancellationToken cancel)
+    private const string ProductColumns = "j_spectral, j_parametric, directionality, max_power_from, spectral_width";
+    private const string StepColumns = "dataset_id, cell_id, year, " + ProductColumns;
+
+    private static async Task ExecuteAsync(NpgsqlConnection connection, NpgsqlTransaction transaction, string sql, CancellationToken cancel)
     {
+        await using var command = new NpgsqlCommand(sql, connection, transaction);
+        await command.ExecuteNonQueryAsync(cancel);
+    }
+
+    /// <summary>The monthly sums of one station, every stored month, in calendar order.</summary>
+    public async Task<IReadOnlyList<StationMonthSums>> MonthSumsAsync(int datasetId, int cellId, CancellationToken cancel) =>
+        (await MonthSumsOfCellsAsync(datasetId, [cellId], cancel)).GetValueOrDefault(cellId, []);
+
+    /// <summary>
+    /// The monthly sums of the given stations (all when null), every stored month in calendar order, by station: one
+    /// binary COPY for them all.
+    /// </summary>
+    public async Task<Dictionary<int, List<StationMonthSums>>> MonthSumsOfCellsAsync(int datasetId, int[]? cellIds, CancellationToken cancel)
+    {
+        // COPY takes no parameters: the filters are integers formatted here, so nothing in the query is text from outside.
+        var filter = $"dataset_id = {datasetId:D}" + (cellIds is null ? ""
+            : $" AND cell_id IN ({(cellIds.Length == 0 ? "NULL" : string.Join(", ", cellIds.Select(c => c.ToString("D", CultureInfo.InvariantCulture))))})");
+        var result = new Dictionary<int, List<StationMonthSums>>();
         await using var connection = await dataSource.OpenConnectionAsync(cancel);
-        await using var command = new NpgsqlCommand("""
-            SELECT year, month, steps, frequency_sum, direction_sum FROM station_spectrum_month
-            WHERE dataset_id = $1 AND cell_id = $2 ORDER BY year, month
-            """, connection);
-        command.Parameters.AddWithValue(datasetId);
-        command.Parameters.AddWithValue(cellId);
-        var result = new List<StationMonthSums>();
-        await using var reader = await command.ExecuteReaderAsync(cancel);
-        while (await reader.ReadAsync(cancel))
-            result.Add(new StationMonthSums(cellId, reader.GetInt16(0), reader.GetInt16(1), reader.GetInt32(2),
-                reader.GetFieldValue<double[]>(3), reader.GetFieldValue<double[]>(4)));
+        await using var copy = await connection.BeginRawBinaryCopyAsync(
+            $"COPY (SELECT cell_id, year, month, steps, frequency_sum, direction_sum FROM station_spectrum_month WHERE {filter} ORDER BY cell_id, year, month) TO STDOUT (FORMAT BINARY)", cancel);
+        var decoder = new BinaryCopyDecoder(copy);
+        await decoder.ReadHeaderAsync(cancel);
+        while (await decoder.StartRowAsync(6, cancel))
+        {
+            int cell = await decoder.ReadInt32Async(cancel);
+            int year = await decoder.ReadInt16Async(cancel);
+            int month = await decoder.ReadInt16Async(cancel);
+            int steps = await decoder.ReadInt32Async(cancel);
+            var frequency = await decoder.ReadDoubleArrayAsync(cancel) ?? throw new InvalidDataException("station_spectrum_month holds a NULL array");
+            var direction = await decoder.ReadDoubleArrayAsync(cancel) ?? throw new InvalidDataException("station_spectrum_month holds a NULL array");
+            if (!result.TryGetValue(cell, out var months)) result[cell] = months = [];
+            months.Add(new StationMonthSums(cell, year, month, steps, frequency, direction));
+        }
         return result;
     }
 }

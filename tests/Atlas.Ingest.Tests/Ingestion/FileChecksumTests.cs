@@ -6,7 +6,7 @@ namespace Atlas.Ingest.Tests.Ingestion;
 public class FileChecksumTests
 {
     // The provenance checksum equals what GNU coreutils' sha256sum prints for the same bytes: an empty file, a small one,
-    // and one of 150 MB that spans three of the mapping's 64 MB windows, the last one partial.
+    // and one of 150 MB read in many buffers' worth, the last one partial.
     [Theory]
     [InlineData(0)]
     [InlineData(1_000)]

@@ -94,13 +94,18 @@ else:
     if variant == "half_circle":
         v[:] = (np.arange(24) * 7.5).astype(np.float32)
     v = nc.createVariable("dpt", "f4", ("time", "station"), fill_value=np.float32(9.96921e36)); v.units = "m"; v.long_name = "depth"; v[:] = np.tile(depths, (steps, 1))
-    v = nc.createVariable("efth", "f4", ("time", "station", "frequency", "direction"), fill_value=np.float32(9.96921e36))
+    # direction_before_frequency: the same densities stored efth(time, station, direction, frequency).
+    dims = ("time", "station", "direction", "frequency") if variant == "direction_before_frequency" else ("time", "station", "frequency", "direction")
+    v = nc.createVariable("efth", "f4", dims, fill_value=np.float32(9.96921e36))
     v.units = {"units_unknown": "m2 s furlong-1", "per_degree": "m2 Hz-1 degree-1"}.get(variant, "m2 s rad-1")
     v.standard_name = "sea_surface_wave_directional_variance_spectral_density"
     if variant == "negative":
         efth[1, 2, 5, 3] = -0.25
     # Per degree: the same spectra divided by 180/pi, which the reader must multiply back.
-    v[:] = efth * np.float32(np.pi / 180) if variant == "per_degree" else efth
+    if variant == "direction_before_frequency":
+        v[:] = efth.transpose(0, 1, 3, 2)
+    else:
+        v[:] = efth * np.float32(np.pi / 180) if variant == "per_degree" else efth
     nc.close()
 with open(path + ".expected.json", "w") as out:
     json.dump(expected, out)
