@@ -4,7 +4,7 @@
 #
 # Assumes a dataset is loaded and the database is up. Starts its own server on 127.0.0.1:${PORT:-5093} with the rate
 # limit lifted, runs each load for ${DURATION:-10s} at ${CONNECTIONS:-32} connections and ${THREADS:-2} threads
-# (seeded with ${SEED:-1}) after a warm-up of ${WARMUP:-15s}, and stops the server again. The dataset is SLUG, or the
+# (seeded with ${SEED:-1}) after a warm-up of ${WARMUP:-30s}, and stops the server again. The dataset is SLUG, or the
 # first one the catalogue lists.
 # Positions are drawn uniformly inside the dataset's extent and are not steered off land: a position too far from any
 # wet cell is refused with 422 by design, and those answers are counted and reported apart (their share, and the rate
@@ -39,10 +39,10 @@ socket_errors() { awk '/Socket errors:/ {gsub(",", ""); s = $4 + $6 + $8 + $10} 
 # A load on both first, so that neither is measured while the JIT is still at work (the ceiling runs first): the
 # runtime compiles a method again, optimised, once it has run often (tiered compilation), and the point path reaches
 # some 25,000 methods; on two busy cores a few seconds leave much of that compiling inside the measured run, which a
-# long-running server never sees again. ${WARMUP:-15s} of the point load (the healthz path is short: 3 s); the warm-up
+# long-running server never sees again. ${WARMUP:-30s} of the point load (the healthz path is short: 3 s); the warm-up
 # draws with another seed, so the measured requests are still new to the server's caches.
 wrk -t"$threads" -c"$connections" -d3s "$base/healthz" >/dev/null
-wrk -t"$threads" -c"$connections" -d"${WARMUP:-15s}" -s "$here/random_window.lua" "$base" -- "${args[@]}" "$((seed + 1000))" >/dev/null
+wrk -t"$threads" -c"$connections" -d"${WARMUP:-30s}" -s "$here/random_window.lua" "$base" -- "${args[@]}" "$((seed + 1000))" >/dev/null
 
 # The server's CPU time over each load (user + system, from /proc): on a shared machine the CPU per answer is the
 # steadier figure beside the rates, which the other work on the machine moves.
