@@ -27,6 +27,27 @@ public static class SchemaMigrator
     {
         if (!Directory.Exists(MigrationsFolder) || Directory.GetFiles(MigrationsFolder, "*.sql").Length == 0)
             throw new InvalidOperationException($"No migrations found in {MigrationsFolder}.");
+        // Processes starting together (workers of one pass) queue on this lock and go on as soon as the one before has
+        // looked at the ledger, instead of meeting Evolve's own lock, whose retry sleeps for seconds.
+        using var gate = new NpgsqlConnection(connectionString);
+        gate.Open();
+        using (var take = new NpgsqlCommand($"SELECT pg_advisory_lock({GateKeySql})", gate)) take.ExecuteNonQuery();
+        try
+        {
+            return MigrateHoldingTheGate(connectionString, log, targetVersion);
+        }
+        finally
+        {
+            using var release = new NpgsqlCommand($"SELECT pg_advisory_unlock({GateKeySql})", gate);
+            release.ExecuteNonQuery();
+        }
+    }
+
+    /// <summary>The advisory lock that every atlas process takes (waiting, not polling) around its migration.</summary>
+    public const string GateKeySql = "hashtext('atlas schema migration gate')";
+
+    private static int MigrateHoldingTheGate(string connectionString, Action<string>? log, string? targetVersion)
+    {
         MoveFormerLedger(connectionString, log);
         using var connection = new NpgsqlConnection(connectionString);
         var evolve = new EvolveDb.Evolve(connection, message => log?.Invoke(message))
