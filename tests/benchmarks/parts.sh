@@ -75,7 +75,7 @@ layers_digest() { psql_cmd "SELECT md5(string_agg(concat_ws('|', parameter, peri
 {
   echo "# parts benchmark $(date -u +%FT%TZ), $(nproc) cores, file $(du -h "$file" | cut -f1) (${nx}x${ny} cells x ${nt} steps)"
   echo "# parts: ingest $ingest_part grid points, statistics $stats_part cell ids; worker k pinned to core k-1 (taskset)"
-  declare -A ingest stats db_before db_after bound
+  declare -A ingest stats db_before db_after bound cpubound
   for workers in 1 2; do
     slug="parts-w$workers"
     "$atlas" ingest "$file" --dataset "$slug" --queue --part-cells "$ingest_part" | sed 's/^/  /'
@@ -91,6 +91,9 @@ layers_digest() { psql_cmd "SELECT md5(string_agg(concat_ws('|', parameter, peri
       read -r cpu db busy < <(busy_cores "$stage-$slug" "$workers" "$wall")
       echo "$workers worker(s), $stage: workers' CPU $cpu s, database CPU $db s, cores kept busy $busy of $(nproc)"
       [ "$workers" = 1 ] && [ "$busy" != "-" ] && bound[$stage]=$(awk -v b="$busy" -v c="$(nproc)" 'BEGIN { printf "%.2f", c / b }')
+      # The two-worker run's own CPU (workers and database) spread evenly over every core: the shortest it could have
+      # taken, and the speed-up over the one-worker run that shortest time would give.
+      [ "$workers" = 2 ] && [ "$db" != "-" ] && cpubound[$stage]=$(awk -v c="$cpu" -v d="$db" -v n="$(nproc)" -v w1="$( [ "$stage" = stats ] && echo "${stats[1]}" || echo "${ingest[1]}")" 'BEGIN { printf "%.2f s, speed-up %.2f", (c + d) / n, w1 / ((c + d) / n) }')
     done
     "$atlas" jobs --dataset "$slug" --limit 2 | grep '^pass' | sed 's/^/  /'
   done
@@ -98,6 +101,7 @@ layers_digest() { psql_cmd "SELECT md5(string_agg(concat_ws('|', parameter, peri
     printf "ratio ingest speed-up (1 worker / 2 workers) = %.2f (goal >= 1.5)\n", i1 / i2;
     printf "ratio statistics speed-up (1 worker / 2 workers) = %.2f (goal >= 1.6)\n", s1 / s2 }'
   echo "bound on the speed-up from this machine's cores (cores / cores the one-worker run kept busy, the database on the same cores): ingest ${bound[ingest]:--}, statistics ${bound[stats]:--}"
+  echo "shortest time the two-worker run's own CPU allows on $(nproc) cores (workers' and database CPU / cores): ingest ${cpubound[ingest]:--}; statistics ${cpubound[stats]:--}"
   s1=$(series_digest parts-w1); s2=$(series_digest parts-w2)
   l1=$(layers_digest parts-w1); l2=$(layers_digest parts-w2)
   [ "$s1" = "$s2" ] && echo "series: identical ($s1)" || echo "series: DIFFER ($s1 against $s2)"
