@@ -31,3 +31,9 @@ fi
 
 echo "atlas: building"
 dotnet build Atlas.sln -c Release -nologo -v quiet -clp:ErrorsOnly
+# The atlas command itself, compiled ahead of time (ReadyToRun) over the build: every command is a process of its own
+# (workers, ingests, statistics passes), and each spent about 0.4 s of processor time compiling the same methods at
+# its start (tests/benchmarks/pipeline.sh: the statistics pass 2.4-2.8 s instead of 3.0-3.1 s).
+echo "atlas: compiling the command ahead of time"
+dotnet publish src/Atlas.Cli/Atlas.Cli.csproj -c Release -r linux-x64 --self-contained false -p:PublishReadyToRun=true \
+  -o src/Atlas.Cli/bin/Release/net10.0 -nologo -v quiet -clp:ErrorsOnly
