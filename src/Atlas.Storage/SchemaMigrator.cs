@@ -21,20 +21,24 @@ public static class SchemaMigrator
 
     /// <summary>
     /// Applies pending migrations, up to <paramref name="targetVersion"/> when given (for tests of a migration on data
-    /// stored by the schema before it); returns the number applied.
+    /// stored by the schema before it); returns the number applied. The scripts are those of <paramref name="folder"/>,
+    /// by default <see cref="MigrationsFolder"/>.
     /// </summary>
-    public static int Migrate(string connectionString, Action<string>? log = null, string? targetVersion = null)
+    public static int Migrate(string connectionString, Action<string>? log = null, string? targetVersion = null, string? folder = null)
     {
-        if (!Directory.Exists(MigrationsFolder) || Directory.GetFiles(MigrationsFolder, "*.sql").Length == 0)
-            throw new InvalidOperationException($"No migrations found in {MigrationsFolder}.");
+        folder ??= MigrationsFolder;
+        if (!Directory.Exists(folder) || Directory.GetFiles(folder, "*.sql").Length == 0)
+            throw new InvalidOperationException($"No migrations found in {folder}.");
         // Processes starting together (workers of one pass) queue on this lock and go on as soon as the one before has
         // looked at the ledger, instead of meeting Evolve's own lock, whose retry sleeps for seconds.
         using var gate = new NpgsqlConnection(connectionString);
         gate.Open();
+        // Every script already applied, unchanged: nothing for Evolve to do (every command starts with this look).
+        if (targetVersion is null && EveryScriptApplied(gate, folder)) return 0;
         using (var take = new NpgsqlCommand($"SELECT pg_advisory_lock({GateKeySql})", gate)) take.ExecuteNonQuery();
         try
         {
-            return MigrateHoldingTheGate(connectionString, log, targetVersion);
+            return MigrateHoldingTheGate(connectionString, log, targetVersion, folder);
         }
         finally
         {
@@ -43,16 +47,41 @@ public static class SchemaMigrator
         }
     }
 
+    /// <summary>
+    /// Whether the ledger records every script of the folder as applied with the checksum Evolve gives it (the MD5 of
+    /// its bytes) and nothing else; anything else (no ledger, a new, changed or unknown script, a repeatable one) is
+    /// left to Evolve, which applies, or refuses with its own message.
+    /// </summary>
+    private static bool EveryScriptApplied(NpgsqlConnection connection, string folder)
+    {
+        var files = Directory.GetFiles(folder, "*.sql");
+        if (files.Any(f => !Path.GetFileName(f).StartsWith('V'))) return false;
+        var applied = new Dictionary<string, string>(StringComparer.Ordinal);
+        try
+        {
+            using var command = new NpgsqlCommand($"SELECT name, checksum FROM {HistoryTable} WHERE success AND type = 0", connection);
+            using var reader = command.ExecuteReader();
+            while (reader.Read()) applied[reader.GetString(0)] = reader.GetString(1);
+        }
+        catch (PostgresException e) when (e.SqlState == PostgresErrorCodes.UndefinedTable)
+        {
+            return false;
+        }
+        return applied.Count == files.Length && files.All(f =>
+            applied.TryGetValue(Path.GetFileName(f), out var checksum) &&
+            string.Equals(checksum, Convert.ToHexString(System.Security.Cryptography.MD5.HashData(File.ReadAllBytes(f))), StringComparison.OrdinalIgnoreCase));
+    }
+
     /// <summary>The advisory lock that every atlas process takes (waiting, not polling) around its migration.</summary>
     public const string GateKeySql = "hashtext('atlas schema migration gate')";
 
-    private static int MigrateHoldingTheGate(string connectionString, Action<string>? log, string? targetVersion)
+    private static int MigrateHoldingTheGate(string connectionString, Action<string>? log, string? targetVersion, string folder)
     {
         MoveFormerLedger(connectionString, log);
         using var connection = new NpgsqlConnection(connectionString);
         var evolve = new EvolveDb.Evolve(connection, message => log?.Invoke(message))
         {
-            Locations = [MigrationsFolder],
+            Locations = [folder],
             MetadataTableName = HistoryTable,
             IsEraseDisabled = true,
             EnableClusterMode = true,

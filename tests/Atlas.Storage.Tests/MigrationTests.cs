@@ -16,32 +16,6 @@ public class MigrationTests(TestDatabase database) : IClassFixture<TestDatabase>
         Assert.Equal(SchemaMigrator.AvailableMigrationCount, versions.Count);
     }
 
-    // Two processes starting together (two workers of one pass): the second waits in PostgreSQL's lock queue for the
-    // first's migration, seen in pg_locks as an advisory lock not granted (PostgreSQL documentation, "Viewing Locks"),
-    // and goes on when it is released, instead of sleeping out a retry interval.
-    [Fact]
-    public async Task AMigrationStartedWhileAnotherRunsWaitsInTheLockQueue()
-    {
-        await using var holder = new NpgsqlConnection(database.ConnectionString);
-        await holder.OpenAsync();
-        await using (var take = new NpgsqlCommand($"SELECT pg_advisory_lock({SchemaMigrator.GateKeySql})", holder))
-            await take.ExecuteNonQueryAsync();
-        var second = Task.Run(() => SchemaMigrator.Migrate(database.ConnectionString));
-        var waiting = false;
-        for (int i = 0; i < 600 && !waiting && !second.IsCompleted; i++)
-        {
-            await using var look = database.DataSource.CreateCommand(
-                $"SELECT EXISTS (SELECT 1 FROM pg_locks WHERE locktype = 'advisory' AND NOT granted AND objid = ({SchemaMigrator.GateKeySql})::oid)");
-            waiting = (bool)(await look.ExecuteScalarAsync())!;
-            if (!waiting) await Task.Delay(50);
-        }
-        Assert.True(waiting, "the second migration is not queued on the gate lock");
-        Assert.False(second.IsCompleted);
-        await using (var release = new NpgsqlCommand($"SELECT pg_advisory_unlock({SchemaMigrator.GateKeySql})", holder))
-            await release.ExecuteNonQueryAsync();
-        Assert.Equal(0, await second);
-    }
-
     [Fact]
     public async Task SchemaHasPostgisAndEveryPerCellTableKeyedByDatasetAndCellOrBlock()
     {
