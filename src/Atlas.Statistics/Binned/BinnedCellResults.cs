@@ -123,14 +123,5 @@ public readonly record struct PeriodResult(
     bool LowCoverage)
 {
     /// <summary>The summary of a parameter that has one (hs, te, tp, j, spread, d), as <see cref="PeriodStatistics.Summary"/>.</summary>
-    public SummaryStatistics Summary(WaveParameter parameter) => parameter switch
-    {
-        WaveParameter.Hs => Hs,
-        WaveParameter.Te => Te,
-        WaveParameter.Tp => Tp,
-        WaveParameter.J => J,
-        WaveParameter.Spread => Spread,
-        WaveParameter.D => D,
-        _ => throw new ArgumentException($"Parameter '{parameter.Symbol()}' has no summary statistics per period.", nameof(parameter)),
-    };
+    public SummaryStatistics Summary(WaveParameter parameter) => ParameterSummaries.Pick(parameter, Hs, Te, Tp, J, Spread, D);
 }

@@ -30,16 +30,7 @@ public sealed record PeriodStatistics(
 {
     /// <summary>The summary of a parameter that has one (hs, te, tp, j, spread, d).</summary>
     /// <exception cref="ArgumentException">dir and depth have no summary (see <see cref="Direction"/> and the cell depth).</exception>
-    public SummaryStatistics Summary(WaveParameter parameter) => parameter switch
-    {
-        WaveParameter.Hs => Hs,
-        WaveParameter.Te => Te,
-        WaveParameter.Tp => Tp,
-        WaveParameter.J => J,
-        WaveParameter.Spread => Spread,
-        WaveParameter.D => D,
-        _ => throw new ArgumentException($"Parameter '{parameter.Symbol()}' has no summary statistics per period.", nameof(parameter)),
-    };
+    public SummaryStatistics Summary(WaveParameter parameter) => ParameterSummaries.Pick(parameter, Hs, Te, Tp, J, Spread, D);
 
     /// <summary>
     /// One value for a layer: a statistic of a summarised parameter, or for dir the power-weighted mean (mean),
