@@ -87,6 +87,7 @@ public sealed class CellBlock
     {
         var offset = SeriesCodec.OffsetOf(Mask, StepCount, slab.Variable);
         var isHs = slab.Variable == WaveParameter.Hs;
+        var quantiser = new SeriesQuantiser(slab.Variable);
         for (var s = 0; s < slab.Steps; s++)
         {
             var step = slab.PartStep + s;
@@ -98,18 +99,15 @@ public sealed class CellBlock
             {
                 var value = values[row + c];
                 var candidate = _candidate[FirstCell + c];
-                ushort q;
-                try
-                {
-                    q = SeriesCodec.Quantise(slab.Variable, value);
-                }
-                catch (ArgumentOutOfRangeException)
+                var quantised = quantiser.Quantise(value);
+                if (quantised == SeriesQuantiser.OutOfRange)
                 {
                     if (!candidate) continue;
                     throw new IngestException($"{slab.File.Name}: variable '{slab.Variable}': value {value} at {YearTimeline.Iso(slab.File.Times[slab.Part.First + step])}, " +
                         $"point {FirstCell + c} is outside the physical range 0 to {SeriesCodec.MaximumOf(slab.Variable)} ({slab.Variable.Unit()}); " +
                         "check the units and fill values.");
                 }
+                var q = (ushort)quantised;
                 var payload = Payload(c);
                 if (compare && candidate)
                 {

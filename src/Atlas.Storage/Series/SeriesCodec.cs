@@ -83,8 +83,13 @@ public static class SeriesCodec
 
     private static void Quantise(ReadOnlySpan<float> values, WaveParameter variable, Span<byte> destination)
     {
+        var quantiser = new SeriesQuantiser(variable);
         for (var i = 0; i < values.Length; i++)
-            BinaryPrimitives.WriteUInt16LittleEndian(destination.Slice(2 * i), Quantise(variable, values[i]));
+        {
+            var q = quantiser.Quantise(values[i]);
+            if (q == SeriesQuantiser.OutOfRange) throw OutOfRange(variable, values[i]);
+            BinaryPrimitives.WriteUInt16LittleEndian(destination.Slice(2 * i), (ushort)q);
+        }
     }
 
     /// <summary>A payload of <paramref name="stepCount"/> steps holding the variables of <paramref name="mask"/>, all missing.</summary>
@@ -123,17 +128,12 @@ public static class SeriesCodec
     /// </summary>
     public static ushort Quantise(WaveParameter variable, float value)
     {
-        double v = value;
-        if (double.IsNaN(v)) return Missing;
-        var wrap = variable == WaveParameter.Dir;
-        if (wrap) { v %= 360.0; if (v < 0) v += 360.0; }
-        var scaled = Math.Round(v / Steps[SlotOf(variable)]);
-        if (wrap && scaled >= 36000) scaled = 0;
-        if (scaled < 0 || scaled >= Missing || double.IsInfinity(v))
-            throw new ArgumentOutOfRangeException(variable.ToString(), value,
-                $"{variable} value {value} is outside the storable range 0 to {MaximumOf(variable)}.");
-        return (ushort)scaled;
+        var q = new SeriesQuantiser(variable).Quantise(value);
+        return q == SeriesQuantiser.OutOfRange ? throw OutOfRange(variable, value) : (ushort)q;
     }
+
+    private static ArgumentOutOfRangeException OutOfRange(WaveParameter variable, float value) =>
+        new(variable.ToString(), value, $"{variable} value {value} is outside the storable range 0 to {MaximumOf(variable)}.");
 
     public static int StepCountOf(ReadOnlySpan<byte> payload)
     {
