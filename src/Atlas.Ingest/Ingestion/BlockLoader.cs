@@ -20,8 +20,8 @@ public sealed class BlockLoader(NpgsqlConnection connection, NpgsqlTransaction t
 {
     private readonly CellRange _cells = plan.Request.Cells ?? new CellRange(0, plan.Grid.PointCount - 1);
 
-    /// <summary>The largest float buffer of one hyperslab read: steps read at once are bounded by it.</summary>
-    private const int MaxSlabBytes = 64 << 20;
+    /// <summary>The largest float buffer of one hyperslab read (two take turns): steps read at once are bounded by it.</summary>
+    private const int MaxSlabBytes = 32 << 20;
 
     private readonly SharedStepConflicts _conflicts = new();
     private readonly string _storedName = $"dataset '{plan.Request.DatasetSlug}' (already stored)";
@@ -96,7 +96,12 @@ public sealed class BlockLoader(NpgsqlConnection connection, NpgsqlTransaction t
         await SeriesStore.DeleteAsync(connection, transaction, datasetId, year.Year, block.FirstCell, last, cancel);
     }
 
-    /// <summary>Reads the block's steps of the year from every new file, slab by slab, and scatters them into the block.</summary>
+    /// <summary>
+    /// Reads the block's steps of the year from every new file, slab by slab, and scatters them into the block. A slab
+    /// is scattered on a pool thread while the next is read (the file is read by this thread alone): two buffers take
+    /// turns, and one scatter runs at a time, in the order of the reads, so the block receives the same values in the
+    /// same order as a loop doing both in turn.
+    /// </summary>
     private void ReadFiles(YearPlan year, CellBlock block, CancellationToken cancel)
     {
         var count = block.Count;
@@ -108,28 +113,38 @@ public sealed class BlockLoader(NpgsqlConnection connection, NpgsqlTransaction t
             if (part.IsEmpty) continue;
             var shared = new SharedStepCheck(year.Shared, k, _conflicts, h => h == SharedSteps.Stored ? _storedName : plan.Fresh[h].Name);
             var slab = (int)Math.Clamp(MaxSlabBytes / (4L * count), 1, part.Positions.Length);
-            var buffer = ArrayPool<float>.Shared.Rent(slab * count);
+            float[][] buffers = [ArrayPool<float>.Shared.Rent(slab * count), ArrayPool<float>.Shared.Rent(slab * count)];
+            var turn = 0;
+            var scatter = Task.CompletedTask;
             try
             {
                 for (var t0 = part.First; t0 <= part.Last; t0 += slab)
                 {
                     cancel.ThrowIfCancellationRequested();
                     var steps = Math.Min(slab, part.Last - t0 + 1);
-                    var values = buffer.AsSpan(0, steps * count);
                     foreach (var variable in WaveParameterGroups.SeriesFields)
                     {
                         if (!file.Has(variable)) continue;
-                        file.File.ReadSteps(variable, t0, steps, block.FirstCell, count, values);
+                        // This buffer's scatter ended before the other buffer's began (awaited below): it is free.
+                        var values = buffers[turn];
+                        turn ^= 1;
+                        file.File.ReadSteps(variable, t0, steps, block.FirstCell, count, values.AsSpan(0, steps * count));
                         BytesRead += 4L * steps * count;
-                        block.Scatter(new FileSlab(file, part, variable, t0 - part.First, steps), values, shared);
+                        scatter.GetAwaiter().GetResult();
+                        var slice = new FileSlab(file, part, variable, t0 - part.First, steps);
+                        scatter = Task.Run(() => block.Scatter(slice, values.AsSpan(0, slice.Steps * count), shared), CancellationToken.None);
                     }
                     _doneWork += (long)steps * count;
                     progress?.Report(new ProgressSnapshot($"loading {year.Year}", _doneWork, TotalWork, BytesRead, clock.Elapsed, "cell-steps"));
                 }
+                scatter.GetAwaiter().GetResult();
             }
             finally
             {
-                ArrayPool<float>.Shared.Return(buffer);
+                // A read that failed leaves a scatter in flight: it ends before its buffer goes back (its error, if
+                // any, comes after the read's).
+                if (!scatter.IsCompleted) ((IAsyncResult)scatter).AsyncWaitHandle.WaitOne();
+                foreach (var buffer in buffers) ArrayPool<float>.Shared.Return(buffer);
                 // A file is done with once its last year's last block is read: its chunk caches go now, not at the end.
                 if (lastBlock && YearTimeline.YearOf(file.Times[^1]) <= year.Year) file.Release();
             }
