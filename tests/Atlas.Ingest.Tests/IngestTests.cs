@@ -71,6 +71,37 @@ public class IngestTests(TestDatabase database) : IClassFixture<TestDatabase>
         Assert.Equal(before, await CountsAsync("again"));
     }
 
+    // One request naming the same bytes twice (a copy under another name) loads them once; a file of the same size with
+    // other bytes (the next hours, written alike) is loaded. Python's hashlib gives the checksums the stored ones must be.
+    [Fact]
+    public async Task ACopyUnderAnotherNameIsLoadedOnceAndAFileOfTheSameSizeIsNot()
+    {
+        var first = FixtureFiles.Make("copies-a.nc", 0, 8);
+        var copy = Path.Combine(Path.GetDirectoryName(first)!, "copies-a-copy.nc");
+        File.Copy(first, copy, overwrite: true);
+        var next = FixtureFiles.Make("copies-b.nc", 8, 8);
+        Assert.Equal(new FileInfo(first).Length, new FileInfo(next).Length);
+        var summary = await Ingestor.RunAsync(new IngestRequest("copies", [first, copy, next]));
+        Assert.Equal(2, summary.FilesLoaded);
+        Assert.Equal(1, summary.FilesSkipped);
+        await using var command = database.DataSource.CreateCommand(
+            "SELECT sha256 FROM source_file s JOIN dataset d USING (dataset_id) WHERE d.slug = 'copies' ORDER BY file_name");
+        var stored = new List<string>();
+        await using (var reader = await command.ExecuteReaderAsync())
+            while (await reader.ReadAsync()) stored.Add(reader.GetString(0));
+        Assert.Equal([PythonSha256(first), PythonSha256(next)], stored);
+    }
+
+    private static string PythonSha256(string path)
+    {
+        var python = System.Diagnostics.Process.Start(new System.Diagnostics.ProcessStartInfo("/usr/bin/python3",
+            ["-c", "import hashlib, sys; print(hashlib.sha256(open(sys.argv[1], 'rb').read()).hexdigest())", path])
+            { RedirectStandardOutput = true })!;
+        var digest = python.StandardOutput.ReadToEnd().Trim();
+        python.WaitForExit();
+        return digest;
+    }
+
     [Fact]
     public async Task MonthlyFilesOfOneYearJoinIntoOneChunkPerCell()
     {

@@ -74,8 +74,7 @@ public sealed class IngestPlan
         CheckSameGrid(files);
         var dataset = await DatasetStore.FindAsync(connection, transaction, request.DatasetSlug, cancel);
         var loaded = dataset is null ? [] : await DatasetStore.LoadedChecksumsAsync(connection, transaction, dataset.Id, cancel);
-        var seen = new HashSet<string>(loaded, StringComparer.OrdinalIgnoreCase);
-        var fresh = files.Where(f => seen.Add(f.Sha256)).ToList();
+        var fresh = FreshFiles(files, loaded);
         if (fresh.Count == 0) return new IngestPlan(request, fresh, files.Count, dataset);
 
         var grid = GridDescription.Of(fresh[0].Grid);
@@ -131,4 +130,19 @@ public sealed class IngestPlan
                 throw new IngestException($"{files[i].Name}: its grid ({GridDescription.Of(files[i].Grid).Describe()}) differs from the grid of " +
                     $"{files[0].Name} ({GridDescription.Of(files[0].Grid).Describe()}); files of one dataset must share one grid.");
     }
+
+    /// <summary>
+    /// The files whose bytes are neither loaded already nor those of an earlier file of the list. Files of the same
+    /// bytes have the same size and the same decoded time axis: where nothing is loaded, a file that no other given file
+    /// matches in both (yearly files, monthly files) is fresh without its checksum, which then goes on beside the load.
+    /// </summary>
+    private static List<SourceFile> FreshFiles(List<SourceFile> files, IReadOnlyCollection<string> loaded)
+    {
+        var seen = new HashSet<string>(loaded, StringComparer.OrdinalIgnoreCase);
+        var alike = files.GroupBy(Likeness).Where(g => g.Count() > 1).Select(g => g.Key).ToHashSet();
+        return files.Where(f => (loaded.Count == 0 && !alike.Contains(Likeness(f))) || seen.Add(f.Sha256)).ToList();
+    }
+
+    private static (long Size, int Steps, long First, long Last) Likeness(SourceFile file) =>
+        (file.SizeBytes, file.Times.Length, file.Times.Length == 0 ? 0 : file.Times[0], file.Times.Length == 0 ? 0 : file.Times[^1]);
 }

@@ -15,9 +15,9 @@ public sealed class SourceFile : IDisposable
     private readonly VariableMapping? _mapping;
     private IStepReader? _file;
 
-    private SourceFile(HindcastFile file, VariableMapping? mapping, string sha256, long sizeBytes, IReadOnlyDictionary<string, string> attributes,
+    private SourceFile(HindcastFile file, VariableMapping? mapping, Task<string> checksum, long sizeBytes, IReadOnlyDictionary<string, string> attributes,
         DepthLookalike? depthLookalike)
-        : this(file.Path, file.Grid, file.TimesUtc, mapping, sha256, sizeBytes, attributes)
+        : this(file.Path, file.Grid, file.TimesUtc, mapping, checksum, sizeBytes, attributes)
     {
         DepthLookalike = depthLookalike;
         Sources = WaveParameterGroups.HindcastFields.Where(file.Has).ToDictionary(v => v, v =>
@@ -29,9 +29,9 @@ public sealed class SourceFile : IDisposable
         _file = file;
     }
 
-    private SourceFile(IntegratedSpectra spectra, VariableMapping? mapping, string sha256, long sizeBytes, IReadOnlyDictionary<string, string> attributes,
+    private SourceFile(IntegratedSpectra spectra, VariableMapping? mapping, Task<string> checksum, long sizeBytes, IReadOnlyDictionary<string, string> attributes,
         string path)
-        : this(path, spectra.Grid, spectra.TimesUtc, mapping, sha256, sizeBytes, attributes)
+        : this(path, spectra.Grid, spectra.TimesUtc, mapping, checksum, sizeBytes, attributes)
     {
         Spectra = spectra;
         var fields = WaveParameterGroups.SeriesFields.Where(v => spectra.Axes.IsDirectional || v is not (WaveParameter.Dir or WaveParameter.Spread)).ToList();
@@ -43,14 +43,14 @@ public sealed class SourceFile : IDisposable
         _file = spectra;
     }
 
-    private SourceFile(string path, HindcastGrid grid, IReadOnlyList<DateTime> times, VariableMapping? mapping, string sha256, long sizeBytes,
+    private SourceFile(string path, HindcastGrid grid, IReadOnlyList<DateTime> times, VariableMapping? mapping, Task<string> checksum, long sizeBytes,
         IReadOnlyDictionary<string, string> attributes)
     {
         Attributes = attributes;
         _mapping = mapping;
         Path = path;
         Grid = grid;
-        Sha256 = sha256;
+        _checksum = checksum;
         SizeBytes = sizeBytes;
         Times = times.Select(t => new DateTimeOffset(DateTime.SpecifyKind(t, DateTimeKind.Utc)).ToUnixTimeSeconds()).ToArray();
         Variables = new HashSet<WaveParameter>();
@@ -72,7 +72,17 @@ public sealed class SourceFile : IDisposable
     public IReadOnlySet<WaveParameter> Variables { get; private init; }
     public bool Has(WaveParameter variable) => Variables.Contains(variable);
     public string Name => System.IO.Path.GetFileName(Path);
-    public string Sha256 { get; }
+    /// <summary>
+    /// The SHA-256 of the file's bytes. It is computed beside the decoding and the load, from the file's opening on,
+    /// and waited for where it is first needed (a file's size shared with another given or loaded file, the record of
+    /// the sources); a read error of the file surfaces there.
+    /// </summary>
+    public string Sha256 => _checksum.GetAwaiter().GetResult();
+
+    /// <summary>The checksum's computation, done when the file has been read through for it.</summary>
+    public Task Checksummed => _checksum;
+
+    private readonly Task<string> _checksum;
     public long SizeBytes { get; }
     public long[] Times { get; }
 
@@ -105,7 +115,8 @@ public sealed class SourceFile : IDisposable
     public static async Task<List<SourceFile>> OpenAllAsync(IReadOnlyList<string> paths, VariableMapping? mapping, Action<int>? opened = null,
         CancellationToken cancel = default)
     {
-        using var slots = new SemaphoreSlim(Math.Clamp(Environment.ProcessorCount, 1, MaxOpenAtOnce));
+        // Not disposed: a file's checksum gives its slot back after the call may have returned.
+        var slots = new SemaphoreSlim(Math.Clamp(Environment.ProcessorCount, 1, MaxOpenAtOnce));
         var tasks = new List<Task<SourceFile>>(paths.Count);
         var report = new object();
         int count = 0, failed = 0;
@@ -122,16 +133,16 @@ public sealed class SourceFile : IDisposable
                         var file = Open(path, mapping);
                         file.Release();
                         lock (report) opened?.Invoke(++count);
+                        // The slot stays the file's until its checksum is done, so that no more files than processors
+                        // are read at a time; the last files' checksums go on beside the load.
+                        file.Checksummed.ContinueWith(_ => slots.Release(), CancellationToken.None, TaskContinuationOptions.ExecuteSynchronously, TaskScheduler.Default);
                         return file;
                     }
                     catch
                     {
                         Volatile.Write(ref failed, 1);
-                        throw;
-                    }
-                    finally
-                    {
                         slots.Release();
+                        throw;
                     }
                 }, CancellationToken.None));
             }
@@ -159,16 +170,18 @@ public sealed class SourceFile : IDisposable
     public static SourceFile Open(string path, VariableMapping? mapping)
     {
         if (!System.IO.File.Exists(path)) throw new IngestException($"{path}: no such file.");
-        // The checksum reads the file once more: it runs beside the decoding (and a spectral file's integration).
+        // The checksum reads the file once more: it runs beside the decoding (and a spectral file's integration), and
+        // on beside the load; the file, once disposed, waits for it.
         var checksum = Task.Run(() => FileChecksum.Sha256(path));
         try
         {
             return OpenDecoded(path, mapping, checksum);
         }
-        finally
+        catch
         {
             // A failed decoding still waits for the checksum, so that no read of the file outlives the call.
             try { checksum.Wait(); } catch (AggregateException) { }
+            throw;
         }
     }
 
@@ -186,7 +199,7 @@ public sealed class SourceFile : IDisposable
             using var points = PointSpectraFile.Open(path, mapping);
             if (points.TimesUtc.Count == 0) throw new IngestException($"{System.IO.Path.GetFileName(path)}: the time axis is empty; there is nothing to load.");
             var integrated = IntegratedSpectra.Integrate(points, mapping);
-            return new SourceFile(integrated, mapping, checksum.GetAwaiter().GetResult(), new FileInfo(path).Length, attributes, path);
+            return new SourceFile(integrated, mapping, checksum, new FileInfo(path).Length, attributes, path);
         }
         var file = HindcastFile.Open(path, mapping);
         DepthLookalike? lookalike = null;
@@ -197,7 +210,7 @@ public sealed class SourceFile : IDisposable
             file.Dispose();
             throw new IngestException($"{System.IO.Path.GetFileName(path)}: the time axis is empty; there is nothing to load.");
         }
-        return new SourceFile(file, mapping, checksum.GetAwaiter().GetResult(), new FileInfo(path).Length, attributes, lookalike);
+        return new SourceFile(file, mapping, checksum, new FileInfo(path).Length, attributes, lookalike);
     }
 
     /// <summary>Closes the file (and frees its caches) until it is next needed.</summary>
@@ -208,5 +221,10 @@ public sealed class SourceFile : IDisposable
         _file = null;
     }
 
-    public void Dispose() => Release();
+    /// <summary>Closes the file, once its checksum is done: no read of the file outlives it.</summary>
+    public void Dispose()
+    {
+        Release();
+        try { _checksum.Wait(); } catch (AggregateException) { }
+    }
 }
