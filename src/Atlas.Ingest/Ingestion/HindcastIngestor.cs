@@ -39,11 +39,16 @@ public sealed class HindcastIngestor(NpgsqlDataSource dataSource, StatisticsOpti
     /// the part's summary line. Throws <see cref="PartLostException"/> when the part was taken from this worker.
     /// </summary>
     public Task<string> RunPartAsync(IngestRequest request, JobRecord part, PassRecord pass, IProgress<ProgressSnapshot>? progress, CancellationToken cancel) =>
-        WithFilesAsync(request, progress, (files, clock) => LoadPartAsync(request, part, pass, files, progress, clock, cancel), cancel);
+        WithFilesAsync(request, progress, (files, clock) => LoadPartAsync(request, part, pass, files, progress, clock, cancel), cancel,
+            checksumNow: false);
 
-    /// <summary>Opens the request's files (checksums, grids, times), runs <paramref name="load"/> with them and closes them.</summary>
+    /// <summary>
+    /// Opens the request's files (checksums, grids, times), runs <paramref name="load"/> with them and closes them. A part
+    /// of an ingest in parts opens them with <paramref name="checksumNow"/> false: only the part that completes the pass
+    /// records the sources and computes their checksums.
+    /// </summary>
     private static async Task<T> WithFilesAsync<T>(IngestRequest request, IProgress<ProgressSnapshot>? progress,
-        Func<List<SourceFile>, Stopwatch, Task<T>> load, CancellationToken cancel)
+        Func<List<SourceFile>, Stopwatch, Task<T>> load, CancellationToken cancel, bool checksumNow = true)
     {
         var clock = Stopwatch.StartNew();
         if (request.Files.Count == 0) throw new IngestException("No files were given to ingest.");
@@ -52,7 +57,7 @@ public sealed class HindcastIngestor(NpgsqlDataSource dataSource, StatisticsOpti
         {
             var paths = request.Files.Distinct().ToList();
             files = await SourceFile.OpenAllAsync(paths, request.Mapping,
-                opened => progress?.Report(new ProgressSnapshot("opening files", opened, paths.Count, 0, clock.Elapsed, "files")), cancel);
+                opened => progress?.Report(new ProgressSnapshot("opening files", opened, paths.Count, 0, clock.Elapsed, "files")), checksumNow, cancel);
             return await load(files, clock);
         }
         finally

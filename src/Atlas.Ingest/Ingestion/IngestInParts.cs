@@ -38,7 +38,8 @@ public sealed class IngestInParts(NpgsqlDataSource dataSource, StatisticsOptions
         var files = new List<SourceFile>();
         try
         {
-            files = await SourceFile.OpenAllAsync(request.Files.Distinct().ToList(), mapping, cancel: cancel);
+            // Queueing checks the files; their checksums are the business of the part that records the sources.
+            files = await SourceFile.OpenAllAsync(request.Files.Distinct().ToList(), mapping, checksumNow: false, cancel: cancel);
             IngestPlan plan;
             await using (var connection = await dataSource.OpenConnectionAsync(cancel))
             await using (var transaction = await connection.BeginTransactionAsync(cancel))

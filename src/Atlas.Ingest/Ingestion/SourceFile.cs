@@ -15,7 +15,7 @@ public sealed class SourceFile : IDisposable
     private readonly VariableMapping? _mapping;
     private IStepReader? _file;
 
-    private SourceFile(HindcastFile file, VariableMapping? mapping, Task<string> checksum, long sizeBytes, IReadOnlyDictionary<string, string> attributes,
+    private SourceFile(HindcastFile file, VariableMapping? mapping, Task<string>? checksum, long sizeBytes, IReadOnlyDictionary<string, string> attributes,
         DepthLookalike? depthLookalike)
         : this(file.Path, file.Grid, file.TimesUtc, mapping, checksum, sizeBytes, attributes)
     {
@@ -29,7 +29,7 @@ public sealed class SourceFile : IDisposable
         _file = file;
     }
 
-    private SourceFile(IntegratedSpectra spectra, VariableMapping? mapping, Task<string> checksum, long sizeBytes, IReadOnlyDictionary<string, string> attributes,
+    private SourceFile(IntegratedSpectra spectra, VariableMapping? mapping, Task<string>? checksum, long sizeBytes, IReadOnlyDictionary<string, string> attributes,
         string path)
         : this(path, spectra.Grid, spectra.TimesUtc, mapping, checksum, sizeBytes, attributes)
     {
@@ -43,7 +43,7 @@ public sealed class SourceFile : IDisposable
         _file = spectra;
     }
 
-    private SourceFile(string path, HindcastGrid grid, IReadOnlyList<DateTime> times, VariableMapping? mapping, Task<string> checksum, long sizeBytes,
+    private SourceFile(string path, HindcastGrid grid, IReadOnlyList<DateTime> times, VariableMapping? mapping, Task<string>? checksum, long sizeBytes,
         IReadOnlyDictionary<string, string> attributes)
     {
         Attributes = attributes;
@@ -73,16 +73,17 @@ public sealed class SourceFile : IDisposable
     public bool Has(WaveParameter variable) => Variables.Contains(variable);
     public string Name => System.IO.Path.GetFileName(Path);
     /// <summary>
-    /// The SHA-256 of the file's bytes. It is computed beside the decoding and the load, from the file's opening on,
-    /// and waited for where it is first needed (a file's size shared with another given or loaded file, the record of
-    /// the sources); a read error of the file surfaces there.
+    /// The SHA-256 of the file's bytes. Opened for a load, the file computes it beside the decoding and the load, and it
+    /// is waited for where first needed (files alike, an append, the record of the sources); opened for a part of an
+    /// ingest in parts or for queueing one, it is computed only where asked for (the part that records the sources). A
+    /// read error of the file surfaces there.
     /// </summary>
-    public string Sha256 => _checksum.GetAwaiter().GetResult();
+    public string Sha256 => (_checksum ??= Task.FromResult(FileChecksum.Sha256(Path))).GetAwaiter().GetResult();
 
-    /// <summary>The checksum's computation, done when the file has been read through for it.</summary>
-    public Task Checksummed => _checksum;
+    /// <summary>The checksum's computation, done when the file has been read through for it (at once when none runs).</summary>
+    public Task Checksummed => _checksum ?? Task.CompletedTask;
 
-    private readonly Task<string> _checksum;
+    private Task<string>? _checksum;
     public long SizeBytes { get; }
     public long[] Times { get; }
 
@@ -112,8 +113,9 @@ public sealed class SourceFile : IDisposable
     /// 1.10 built thread-safe), and the pool's threads live on.
     /// </remarks>
     /// <param name="opened">Called with the number of files opened so far, one call at a time.</param>
+    /// <param name="checksumNow">Whether each file computes its checksum from its opening on (see <see cref="Sha256"/>).</param>
     public static async Task<List<SourceFile>> OpenAllAsync(IReadOnlyList<string> paths, VariableMapping? mapping, Action<int>? opened = null,
-        CancellationToken cancel = default)
+        bool checksumNow = true, CancellationToken cancel = default)
     {
         // Not disposed: a file's checksum gives its slot back after the call may have returned.
         var slots = new SemaphoreSlim(Math.Clamp(Environment.ProcessorCount, 1, MaxOpenAtOnce));
@@ -130,7 +132,7 @@ public sealed class SourceFile : IDisposable
                 {
                     try
                     {
-                        var file = Open(path, mapping);
+                        var file = Open(path, mapping, checksumNow);
                         file.Release();
                         lock (report) opened?.Invoke(++count);
                         // The slot stays the file's until its checksum is done, so that no more files than processors
@@ -167,12 +169,12 @@ public sealed class SourceFile : IDisposable
     private static Task Finish(List<Task<SourceFile>> tasks) => Task.WhenAll(tasks).ContinueWith(_ => { }, TaskScheduler.Default);
 
     /// <summary>Opens and decodes a file, and checksums its bytes (SHA-256).</summary>
-    public static SourceFile Open(string path, VariableMapping? mapping)
+    public static SourceFile Open(string path, VariableMapping? mapping, bool checksumNow = true)
     {
         if (!System.IO.File.Exists(path)) throw new IngestException($"{path}: no such file.");
         // The checksum reads the file once more: it runs beside the decoding (and a spectral file's integration), and
         // on beside the load; the file, once disposed, waits for it.
-        var checksum = Task.Run(() => FileChecksum.Sha256(path));
+        var checksum = checksumNow ? Task.Run(() => FileChecksum.Sha256(path)) : null;
         try
         {
             return OpenDecoded(path, mapping, checksum);
@@ -180,12 +182,12 @@ public sealed class SourceFile : IDisposable
         catch
         {
             // A failed decoding still waits for the checksum, so that no read of the file outlives the call.
-            try { checksum.Wait(); } catch (AggregateException) { }
+            try { checksum?.Wait(); } catch (AggregateException) { }
             throw;
         }
     }
 
-    private static SourceFile OpenDecoded(string path, VariableMapping? mapping, Task<string> checksum)
+    private static SourceFile OpenDecoded(string path, VariableMapping? mapping, Task<string>? checksum)
     {
         Dictionary<string, string> attributes;
         bool spectral;
@@ -225,6 +227,6 @@ public sealed class SourceFile : IDisposable
     public void Dispose()
     {
         Release();
-        try { _checksum.Wait(); } catch (AggregateException) { }
+        try { _checksum?.Wait(); } catch (AggregateException) { }
     }
 }
