@@ -29,12 +29,12 @@ public static class SchemaMigrator
         folder ??= MigrationsFolder;
         if (!Directory.Exists(folder) || Directory.GetFiles(folder, "*.sql").Length == 0)
             throw new InvalidOperationException($"No migrations found in {folder}.");
-        // Processes starting together (workers of one pass) queue on this lock and go on as soon as the one before has
-        // looked at the ledger, instead of meeting Evolve's own lock, whose retry sleeps for seconds.
         using var gate = new NpgsqlConnection(connectionString);
         gate.Open();
         // Every script already applied, unchanged: nothing for Evolve to do (every command starts with this look).
         if (targetVersion is null && EveryScriptApplied(gate, folder)) return 0;
+        // Processes starting together (workers of one pass) queue on this lock and go on as soon as the one before has
+        // migrated, instead of meeting Evolve's own lock, whose retry sleeps for seconds.
         using (var take = new NpgsqlCommand($"SELECT pg_advisory_lock({GateKeySql})", gate)) take.ExecuteNonQuery();
         try
         {
