@@ -41,8 +41,23 @@ public class ColourBarTests(AtlasSite site)
     /// <summary>The colours of the bar at its 17 gradient stops, from a screenshot of the bar (1 px border, then the gradient).</summary>
     private async Task<(byte R, byte G, byte B)[]> BarColoursAsync(IPage page, string name)
     {
+        // The legend is drawn again when the layer's last answers arrive: the bar is taken once the page has no request
+        // in flight, and again should it still be replaced while it is taken.
+        await page.WaitForLoadStateAsync(LoadState.NetworkIdle);
         var bar = page.Locator(".legend-bar");
-        var png = await bar.ScreenshotAsync(new LocatorScreenshotOptions { Path = Path.Combine(site.ScreenshotFolder, $"colour-bar-{name}.png") });
+        byte[] png;
+        for (var attempt = 1; ; attempt++)
+        {
+            try
+            {
+                png = await bar.ScreenshotAsync(new LocatorScreenshotOptions { Path = Path.Combine(site.ScreenshotFolder, $"colour-bar-{name}.png") });
+                break;
+            }
+            catch (PlaywrightException e) when (attempt < 5 && e.Message.Contains("not attached", StringComparison.Ordinal))
+            {
+                await page.WaitForTimeoutAsync(200);
+            }
+        }
         using var image = SKBitmap.Decode(png);
         var inner = image.Width - 2;
         var row = image.Height / 2;
