@@ -26,7 +26,8 @@ public sealed class MigrationGateTests : IAsyncLifetime
             await take.ExecuteNonQueryAsync();
         var second = Task.Run(() => SchemaMigrator.Migrate(_database.ConnectionString, folder: _folder));
         var waiting = false;
-        for (int i = 0; i < 600 && !waiting && !second.IsCompleted; i++)
+        // No time limit: the loop ends when the second migration is seen waiting, or has finished without waiting.
+        while (!waiting && !second.IsCompleted)
         {
             await using var look = _database.DataSource.CreateCommand(
                 $"SELECT EXISTS (SELECT 1 FROM pg_locks WHERE locktype = 'advisory' AND NOT granted AND objid = ({SchemaMigrator.GateKeySql})::oid)");

@@ -19,17 +19,27 @@ public static class CommandHost
     /// <param name="more">Services a command adds to the common ones (<c>atlas report</c> adds the point and report services of the API).</param>
     public static IHost Build(NpgsqlDataSource dataSource, Action<IServiceCollection>? more = null)
     {
-        // A command reads its configuration once: no watcher on appsettings.json, which would watch every folder under the
-        // current one (a repository, say) for the whole run.
-        var settings = new HostApplicationBuilderSettings { Configuration = new ConfigurationManager() };
-        settings.Configuration.AddInMemoryCollection([new("hostBuilder:reloadConfigOnChange", "false")]);
-        var builder = Host.CreateApplicationBuilder(settings);
+        var builder = Host.CreateApplicationBuilder(ReadOnce());
         builder.Services.AddSingleton(dataSource);
         builder.Services.AddAtlasJobs();
         builder.Services.AddStationValidation();
         more?.Invoke(builder.Services);
         return builder.Build();
     }
+
+    /// <summary>
+    /// Host settings that read the configuration once: no watcher on appsettings.json, which would watch every folder
+    /// under the current one (a repository, say) for the whole run. Commands and the worker read their settings at start.
+    /// </summary>
+    public static HostApplicationBuilderSettings ReadOnce()
+    {
+        var settings = new HostApplicationBuilderSettings { Configuration = new ConfigurationManager() };
+        settings.Configuration.AddInMemoryCollection([new(ReloadOnChangeKey, "false")]);
+        return settings;
+    }
+
+    /// <summary>The host setting that turns the configuration file watcher on or off.</summary>
+    public const string ReloadOnChangeKey = "hostBuilder:reloadConfigOnChange";
 
     /// <summary>
     /// Runs the checks a start would run on every option validated at start; null when all pass, otherwise what is

@@ -4,7 +4,6 @@ using Atlas.Ingest.Worker;
 using Atlas.Storage;
 using Microsoft.AspNetCore.Builder;
 using Microsoft.AspNetCore.Hosting;
-using Microsoft.Extensions.Configuration;
 using Microsoft.Extensions.DependencyInjection;
 using Microsoft.Extensions.Hosting;
 
@@ -61,18 +60,14 @@ public static class WorkerCommand
 
     private static IHost BuildPlain(Npgsql.NpgsqlDataSource dataSource, WorkerRunOptions run)
     {
-        // The worker reads its settings once, at the start: no watcher on appsettings.json, which would watch every
-        // folder under the current one for the whole run.
-        var settings = new HostApplicationBuilderSettings { Configuration = new ConfigurationManager() };
-        settings.Configuration.AddInMemoryCollection([new(ReloadOnChangeKey, "false")]);
-        var builder = Host.CreateApplicationBuilder(settings);
+        var builder = Host.CreateApplicationBuilder(CommandHost.ReadOnce());
         AddWorker(builder.Services, dataSource, run);
         return builder.Build();
     }
 
     private static IHost BuildWithMetrics(Npgsql.NpgsqlDataSource dataSource, string urls, WorkerRunOptions run)
     {
-        var builder = WebApplication.CreateSlimBuilder(new WebApplicationOptions { Args = [$"--{ReloadOnChangeKey}=false"] });
+        var builder = WebApplication.CreateSlimBuilder(new WebApplicationOptions { Args = [$"--{CommandHost.ReloadOnChangeKey}=false"] });
         builder.WebHost.UseUrls(urls);
         AddWorker(builder.Services, dataSource, run);
         builder.Services.AddAtlasMetrics(MetricsServiceName);
@@ -80,8 +75,6 @@ public static class WorkerCommand
         app.MapAtlasMetrics();
         return app;
     }
-
-    private const string ReloadOnChangeKey = "hostBuilder:reloadConfigOnChange";
 
     private static void AddWorker(IServiceCollection services, Npgsql.NpgsqlDataSource dataSource, WorkerRunOptions run)
     {

@@ -143,7 +143,7 @@ public sealed class BlockLoader(NpgsqlConnection connection, NpgsqlTransaction t
             {
                 // A read that failed leaves a scatter in flight: it ends before its buffer goes back (its error, if
                 // any, comes after the read's).
-                if (!scatter.IsCompleted) ((IAsyncResult)scatter).AsyncWaitHandle.WaitOne();
+                try { scatter.Wait(); } catch (AggregateException) { }
                 foreach (var buffer in buffers) ArrayPool<float>.Shared.Return(buffer);
                 // A file is done with once its last year's last block is read: its chunk caches go now, not at the end.
                 if (lastBlock && YearTimeline.YearOf(file.Times[^1]) <= year.Year) file.Release();

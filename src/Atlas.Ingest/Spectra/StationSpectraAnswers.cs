@@ -78,7 +78,7 @@ public sealed class StationSpectraAnswers(NpgsqlDataSource dataSource, StationSp
         var usable = chunks.Where(c => timelines.TryGetValue(c.Year, out var t) && t.Length == SeriesCodec.StepCountOf(c.Payload)).ToArray();
         var starts = new int[usable.Length + 1];
         for (int k = 0; k < usable.Length; k++) starts[k + 1] = starts[k] + SeriesCodec.StepCountOf(usable[k].Payload);
-        var months = await MonthSpectraAsync(store, dataset.Id, cellId, cancel);
+        var months = MonthSpectra(await store.MonthSumsAsync(dataset.Id, cellId, cancel));
         var (frequencies, directions, station) = Axes(dataset, cellId);
         return new OutputPointRecord(cellId, station, frequencies, directions, [.. usable.Select(c => (int)c.Year)], starts, decoded, aligned, months);
     }
@@ -127,10 +127,6 @@ public sealed class StationSpectraAnswers(NpgsqlDataSource dataSource, StationSp
         }
         return new SpectralPointAnswer(dataset.Slug, record.Station, record.CellId, lat, lon, depth, distanceKm, record.Frequencies, record.Directions, result, Method);
     }
-
-    /// <summary>The monthly sums of an output point's spectra, as the period means are built from them.</summary>
-    public static async Task<IReadOnlyList<MonthSpectrum>> MonthSpectraAsync(StationSpectraStore store, int datasetId, int cellId, CancellationToken cancel) =>
-        MonthSpectra(await store.MonthSumsAsync(datasetId, cellId, cancel));
 
     /// <summary>Stored monthly sums as the period means take them.</summary>
     public static IReadOnlyList<MonthSpectrum> MonthSpectra(IEnumerable<StationMonthSums> sums) =>

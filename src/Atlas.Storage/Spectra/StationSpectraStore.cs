@@ -33,10 +33,7 @@ public sealed class StationSpectraStore(NpgsqlDataSource dataSource)
     public static async Task<Dictionary<(int Cell, int Year), StationStepRecord>> ReadStepsAsync(NpgsqlConnection connection,
         NpgsqlTransaction? transaction, int datasetId, int[]? years, int? cellId, CancellationToken cancel)
     {
-        // COPY takes no parameters: the filters are integers formatted here, so nothing in the query is text from outside.
-        var filter = $"dataset_id = {datasetId:D}" +
-            (years is null ? "" : $" AND year IN ({(years.Length == 0 ? "NULL" : string.Join(", ", years.Select(y => y.ToString("D", CultureInfo.InvariantCulture))))})") +
-            (cellId is { } cell ? $" AND cell_id = {cell:D}" : "");
+        var filter = $"dataset_id = {datasetId:D}" + AndIn("year", years) + AndIn("cell_id", cellId is { } cell ? [cell] : null);
         var result = new Dictionary<(int, int), StationStepRecord>();
         await using var copy = await connection.BeginRawBinaryCopyAsync($"COPY (SELECT cell_id, year, {ProductColumns} FROM station_step WHERE {filter}) TO STDOUT (FORMAT BINARY)", cancel);
         var decoder = new BinaryCopyDecoder(copy);
@@ -129,6 +126,17 @@ public sealed class StationSpectraStore(NpgsqlDataSource dataSource)
         await ExecuteAsync(connection, transaction, $"INSERT INTO {table} ({columns}) SELECT {columns} FROM {load} {onConflict}; DROP TABLE {load}", cancel);
     }
 
+    /// <summary>
+    /// " AND column IN (...)" over <paramref name="values"/> (matching nothing when empty), or nothing when null. COPY
+    /// takes no parameters: the values are integers formatted here, so nothing in the query is text from outside.
+    /// </summary>
+    private static string AndIn(string column, int[]? values) => values switch
+    {
+        null => "",
+        [] => $" AND {column} IN (NULL)",
+        _ => $" AND {column} IN ({string.Join(", ", values.Select(v => v.ToString("D", CultureInfo.InvariantCulture)))})",
+    };
+
     private const string ProductColumns = "j_spectral, j_parametric, directionality, max_power_from, spectral_width";
     private const string StepColumns = "dataset_id, cell_id, year, " + ProductColumns;
 
@@ -148,9 +156,7 @@ public sealed class StationSpectraStore(NpgsqlDataSource dataSource)
     /// </summary>
     public async Task<Dictionary<int, List<StationMonthSums>>> MonthSumsOfCellsAsync(int datasetId, int[]? cellIds, CancellationToken cancel)
     {
-        // COPY takes no parameters: the filters are integers formatted here, so nothing in the query is text from outside.
-        var filter = $"dataset_id = {datasetId:D}" + (cellIds is null ? ""
-            : $" AND cell_id IN ({(cellIds.Length == 0 ? "NULL" : string.Join(", ", cellIds.Select(c => c.ToString("D", CultureInfo.InvariantCulture))))})");
+        var filter = $"dataset_id = {datasetId:D}" + AndIn("cell_id", cellIds);
         var result = new Dictionary<int, List<StationMonthSums>>();
         await using var connection = await dataSource.OpenConnectionAsync(cancel);
         await using var copy = await connection.BeginRawBinaryCopyAsync(
