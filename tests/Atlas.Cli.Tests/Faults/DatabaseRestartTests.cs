@@ -6,6 +6,7 @@ using Atlas.Storage;
 using Atlas.Storage.Jobs;
 using Atlas.Storage.Passes;
 using Atlas.TestSupport;
+using Npgsql;
 
 namespace Atlas.Cli.Tests.Faults;
 
@@ -172,9 +173,20 @@ public sealed class DatabaseRestartTests : IAsyncLifetime
         await using var dataSource = AtlasDatabase.CreateDataSource(_cluster.ConnectionString);
         var pass = Assert.Single(await new PassStore(dataSource).ProgressAsync("restart-parts")).Pass;
 
+        // The first part is held at its end, whatever the machine's speed: this transaction shares the lock on the pass
+        // row that staging a batch shares too and that marking a part done takes alone, so the part stages its batches
+        // and then waits; the restart below always comes in the middle of it, and takes the lock away with the server.
+        var holder = new NpgsqlConnection(_cluster.ConnectionString);
+        await holder.OpenAsync();
+        var hold = await holder.BeginTransactionAsync();
+        await using (var share = new NpgsqlCommand("SELECT 1 FROM pass WHERE pass_id = $1 FOR SHARE", holder, hold))
+        {
+            share.Parameters.AddWithValue(pass.Id);
+            await share.ExecuteScalarAsync();
+        }
+
         using var worker = new RunningAtlas("worker", environment);
-        // The first part under way, its first batch staged and two thirds of it still to compute: the server stops and
-        // starts under the worker.
+        // The first part under way, a batch of it staged: the server stops and starts under the worker.
         await Patience.UntilAsync(async () =>
         {
             var progress = Assert.Single(await new PassStore(dataSource).ProgressAsync("restart-parts"));
@@ -183,7 +195,8 @@ public sealed class DatabaseRestartTests : IAsyncLifetime
         }, $"the first part to stage its first batch\n{worker.Output}");
         _cluster.Stop();
         await _cluster.EnsureRunningAsync();
-        // The test's own pooled connections died with the server too.
+        // The test's own connections died with the server too.
+        try { await holder.DisposeAsync(); } catch (NpgsqlException) { }
         dataSource.Clear();
 
         var done = await Patience.UntilAsync(() => new PassStore(dataSource).FindAsync(pass.Id), p => p!.State != "open",
