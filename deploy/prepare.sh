@@ -6,7 +6,7 @@ here="$(cd "$(dirname "${BASH_SOURCE[0]}")/.." && pwd)"
 cd "$here"
 
 runtime_packages=(postgresql-15 postgresql-15-postgis-3 postgresql-contrib libnetcdf19 fonts-dejavu-core libfontconfig1)
-test_packages=(libnetcdf-dev netcdf-bin cdo gdal-bin python3-numpy python3-scipy python3-netcdf4 python3-xarray python3-pandas python3-matplotlib python3-colorcet python3-pil librsvg2-bin poppler-utils chromium wrk docker-compose)
+test_packages=(libnetcdf-dev netcdf-bin b3sum cdo gdal-bin python3-numpy python3-scipy python3-netcdf4 python3-xarray python3-pandas python3-matplotlib python3-colorcet python3-pil librsvg2-bin poppler-utils chromium wrk docker-compose)
 
 want=("${runtime_packages[@]}")
 command -v npm > /dev/null || want+=(nodejs npm)

@@ -35,7 +35,7 @@ public sealed class DatasetApiTests(AtlasApiFixture atlas)
         Assert.Equal(SyntheticAtlas.StepSeconds, d.GetProperty("time").GetProperty("step_seconds").GetInt32());
         Assert.Equal([2019, 2020], d.GetProperty("time").GetProperty("years").EnumerateArray().Select(y => y.GetInt32()));
         var file = d.GetProperty("source_files").EnumerateArray().Single();
-        Assert.Equal(SyntheticAtlas.SourceSha256, file.GetProperty("sha256").GetString());
+        Assert.Equal(SyntheticAtlas.SourceChecksum, file.GetProperty("checksum").GetString());
         Assert.Equal("Invented test data, free to use", d.GetProperty("licence").GetString());
         Assert.Equal(0.14, d.GetProperty("validation").GetProperty("hs_scatter_index").GetDouble());
         Assert.Equal("m", d.GetProperty("variables").GetProperty("hs").GetProperty("units").GetString());

@@ -45,7 +45,7 @@ public sealed class LayerFigureTests(AtlasApiFixture atlas)
         Assert.Contains("units: m", caption);
         Assert.Contains(AtlasCaution.Text, caption);
         Assert.EndsWith("Provenance: see metadata.", caption);
-        Assert.DoesNotContain("sha256", caption);
+        Assert.DoesNotContain(SyntheticAtlas.SourceChecksum, caption);
 
         // The PNG read by Pillow: its size, and its text chunks holding the provenance.
         var pil = JsonDocument.Parse(ExternalTool.Run(ExternalTool.Python, "-c",
@@ -56,9 +56,9 @@ public sealed class LayerFigureTests(AtlasApiFixture atlas)
         Assert.Equal(caption, text.GetProperty("Description").GetString());
         Assert.Equal(AtlasCaution.Text, text.GetProperty("Disclaimer").GetString());
         // Every source file with its checksum (the coast dataset was loaded from one file; the mesh was stored without any).
-        var sources = sidecar.GetProperty("provenance").GetProperty("source_files").EnumerateArray().Select(f => f.GetProperty("sha256").GetString()!).ToArray();
-        if (which == "coast") Assert.Equal([SyntheticAtlas.SourceSha256], sources);
-        foreach (var sha in sources) Assert.Contains($"sha256={sha}", text.GetProperty("Source").GetString());
+        var sources = sidecar.GetProperty("provenance").GetProperty("source_files").EnumerateArray().Select(f => f.GetProperty("checksum").GetString()!).ToArray();
+        if (which == "coast") Assert.Equal([SyntheticAtlas.SourceChecksum], sources);
+        foreach (var checksum in sources) Assert.Contains(checksum, text.GetProperty("Source").GetString());
         if (sources.Length == 0) Assert.Equal("no source files recorded", text.GetProperty("Source").GetString());
         Assert.Contains("Method:", text.GetProperty("Comment").GetString());
         Assert.Equal(sidecar.GetProperty("metadata").GetProperty("Comment").GetString(), text.GetProperty("Comment").GetString());

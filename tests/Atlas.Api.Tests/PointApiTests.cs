@@ -110,8 +110,8 @@ public sealed class PointApiTests(AtlasApiFixture atlas)
 
         // A file loaded later (another process's ingest) changes the dataset's stamp: the answer is made afresh and
         // names the new file in its provenance, under a new tag.
-        var sql = $"INSERT INTO source_file (dataset_id, file_name, sha256, size_bytes, time_start, time_end, step_count) " +
-                  $"SELECT dataset_id, 'later-file.nc', repeat('ab', 32), 1, now(), now(), 1 FROM dataset WHERE slug = '{SyntheticAtlas.CoastSlug}'";
+        var sql = $"INSERT INTO source_file (dataset_id, file_name, checksum, size_bytes, time_start, time_end, step_count) " +
+                  $"SELECT dataset_id, 'later-file.nc', 'blake3:' || repeat('ab', 32), 1, now(), now(), 1 FROM dataset WHERE slug = '{SyntheticAtlas.CoastSlug}'";
         await atlas.CountAsync(sql + " RETURNING 1");
         try
         {
@@ -191,7 +191,7 @@ public sealed class PointApiTests(AtlasApiFixture atlas)
         var years = root.GetProperty("inter_annual").EnumerateArray().First(p => p.GetProperty("period").GetString() == "annual").GetProperty("years");
         Assert.Equal(stored[(2020, 0)].Mean!.Value, years.EnumerateArray().Single(y => y.GetProperty("year").GetInt32() == 2020).GetProperty("hs").GetDouble(), 1e-5);
         Assert.Equal(AtlasCaution.Text, root.GetProperty("caution").GetString());
-        Assert.Equal(SyntheticAtlas.SourceSha256, root.GetProperty("provenance").GetProperty("source_files")[0].GetProperty("sha256").GetString());
+        Assert.Equal(SyntheticAtlas.SourceChecksum, root.GetProperty("provenance").GetProperty("source_files")[0].GetProperty("checksum").GetString());
     }
 
     [Fact]
@@ -202,7 +202,7 @@ public sealed class PointApiTests(AtlasApiFixture atlas)
         Assert.Equal("period,parameter,mean,sd,min,max,p10,p50,p90,p99,count,coverage,low_coverage", string.Join(',', download.Header));
         var notes = CsvDownloadCheck.Notes(download.Metadata);
         Assert.Contains(AtlasCaution.Text, notes);
-        Assert.Contains("sha256:" + SyntheticAtlas.SourceSha256, CsvDownloadCheck.SourceChecksums(download.Metadata));
+        Assert.Contains(SyntheticAtlas.SourceChecksum, CsvDownloadCheck.SourceChecksums(download.Metadata));
         Assert.Contains("j kW/m", notes);
         Assert.Contains($"{Point}?{At(5, 4)}&format=csvw", download.MetadataUrl);
         using var stream = new MemoryStream(System.Text.Encoding.UTF8.GetBytes(download.Csv));

@@ -72,7 +72,8 @@ public class IngestTests(TestDatabase database) : IClassFixture<TestDatabase>
     }
 
     // One request naming the same bytes twice (a copy under another name) loads them once; a file of the same size with
-    // other bytes (the next hours, written alike) is loaded. Python's hashlib gives the checksums the stored ones must be.
+    // other bytes (the next hours, written alike) is loaded. The BLAKE3 team's b3sum gives the checksums the stored ones
+    // must be.
     [Fact]
     public async Task ACopyUnderAnotherNameIsLoadedOnceAndAFileOfTheSameSizeIsNot()
     {
@@ -84,23 +85,41 @@ public class IngestTests(TestDatabase database) : IClassFixture<TestDatabase>
         var summary = await Ingestor.RunAsync(new IngestRequest("copies", [first, copy, next]));
         Assert.Equal(2, summary.FilesLoaded);
         Assert.Equal(1, summary.FilesSkipped);
-        await using var command = database.DataSource.CreateCommand(
-            "SELECT sha256 FROM source_file s JOIN dataset d USING (dataset_id) WHERE d.slug = 'copies' ORDER BY file_name");
-        var stored = new List<string>();
-        await using (var reader = await command.ExecuteReaderAsync())
-            while (await reader.ReadAsync()) stored.Add(reader.GetString(0));
-        Assert.Equal([PythonSha256(first), PythonSha256(next)], stored);
+        Assert.Equal(["blake3:" + Printed("b3sum", first), "blake3:" + Printed("b3sum", next)], await StoredChecksumsAsync("copies"));
     }
 
-    private static string PythonSha256(string path)
+    // A dataset loaded when checksums were SHA-256 (the migration prefixes them "sha256:"): the same file given again is
+    // known by its SHA-256 (GNU sha256sum's digits) and not loaded twice; a new file beside it loads with BLAKE3.
+    [Fact]
+    public async Task AFileRecordedBySha256IsKnownWhenGivenAgain()
     {
-        var python = System.Diagnostics.Process.Start(new System.Diagnostics.ProcessStartInfo("/usr/bin/python3",
-            ["-c", "import hashlib, sys; print(hashlib.sha256(open(sys.argv[1], 'rb').read()).hexdigest())", path])
-            { RedirectStandardOutput = true })!;
-        var digest = python.StandardOutput.ReadToEnd().Trim();
-        python.WaitForExit();
-        return digest;
+        var first = FixtureFiles.Make("older-a.nc", 0, 8);
+        var next = FixtureFiles.Make("older-b.nc", 8, 8);
+        await Ingestor.RunAsync(new IngestRequest("older", [first]));
+        await using (var older = database.DataSource.CreateCommand(
+            "UPDATE source_file SET checksum = $1 WHERE dataset_id = (SELECT dataset_id FROM dataset WHERE slug = 'older')"))
+        {
+            older.Parameters.AddWithValue("sha256:" + Printed("sha256sum", first));
+            Assert.Equal(1, await older.ExecuteNonQueryAsync());
+        }
+        var again = await Ingestor.RunAsync(new IngestRequest("older", [first, next]));
+        Assert.Equal(1, again.FilesLoaded);
+        Assert.Equal(1, again.FilesSkipped);
+        Assert.Equal(["sha256:" + Printed("sha256sum", first), "blake3:" + Printed("b3sum", next)], await StoredChecksumsAsync("older"));
     }
+
+    private async Task<List<string>> StoredChecksumsAsync(string slug)
+    {
+        await using var command = database.DataSource.CreateCommand(
+            "SELECT checksum FROM source_file s JOIN dataset d USING (dataset_id) WHERE d.slug = $1 ORDER BY file_name");
+        command.Parameters.AddWithValue(slug);
+        var stored = new List<string>();
+        await using var reader = await command.ExecuteReaderAsync();
+        while (await reader.ReadAsync()) stored.Add(reader.GetString(0));
+        return stored;
+    }
+
+    private static string Printed(string program, string path) => Atlas.Ingest.Tests.Ingestion.FileChecksumTests.Printed(program, path);
 
     [Fact]
     public async Task MonthlyFilesOfOneYearJoinIntoOneChunkPerCell()

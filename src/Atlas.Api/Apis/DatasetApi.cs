@@ -32,7 +32,7 @@ public static class DatasetApi
     [EndpointSummary("What one dataset holds")]
     [EndpointDescription(
         "Extent, grid kind, cell counts, time coverage and step, variables with units, source files with " +
-        "SHA-256 checksums, method notes, licence and citation, the validation summary when one is stored, and the caution.")]
+        "checksums (blake3: or sha256:), method notes, licence and citation, the validation summary when one is stored, and the caution.")]
     public static async Task<Results<Ok<DatasetDetail>, ProblemHttpResult>> DescribeAsync(string slug, DatasetStore datasets,
         ProvenanceBuilder provenance, OutputPoints outputPoints, CancellationToken cancel)
     {
@@ -47,7 +47,7 @@ public static class DatasetApi
             dataset.Slug, dataset.Title, dataset.GridKind, ExtentOf(summary), dataset.Nx, dataset.Ny, dataset.PointCount,
             summary.WetCellCount, summary.StatisticsCellCount, TimeOf(summary),
             Member(root, "variables"), ParameterCatalogue.Items,
-            files.Select(f => new SourceFileItem(f.FileName, f.Sha256, f.SizeBytes, f.TimeStartUtc, f.TimeEndUtc, f.StepCount, f.LoadedAtUtc)).ToArray(),
+            files.Select(f => new SourceFileItem(f.FileName, f.Checksum, f.SizeBytes, f.TimeStartUtc, f.TimeEndUtc, f.StepCount, f.LoadedAtUtc)).ToArray(),
             source.MethodNotes, source.Licence, source.Citation, Member(root, "validation"), root, dataset.CreatedAtUtc,
             AtlasCaution.Text, LinksOf(dataset.Slug))
         {

@@ -111,7 +111,7 @@ public static class AssessmentLayerWriter
             new("value", layer.Primary.Name),
             new("units", layer.Primary.Unit),
             new("method", layer.Description),
-            new("source_files", string.Join("; ", provenance.SourceFiles.Select(f => $"{f.Name} sha256={f.Sha256}"))),
+            new("source_files", provenance.SourceFilesText()),
             new("software", $"{provenance.Software} {provenance.SoftwareVersion}"),
             new("generated_at", provenance.GeneratedAtUtc.ToString("O", CultureInfo.InvariantCulture)),
             new("caution", provenance.Caution),

@@ -56,7 +56,7 @@ public sealed class ProvenanceBuilder(DatasetStore datasets, DatasetCatalog cata
             foreach (var name in RecordedNotes)
                 if (Text(notes, name) is { } note) method += $" {name.Replace('_', ' ')}: {note}.";
         return new Provenance(dataset.Slug, dataset.Title,
-            files.Select(f => new ProvenanceFile(f.FileName, f.Sha256, f.TimeStartUtc, f.TimeEndUtc)).ToArray(),
+            files.Select(f => new ProvenanceFile(f.FileName, f.Checksum, f.TimeStartUtc, f.TimeEndUtc)).ToArray(),
             Software, SoftwareVersion, stamp.ComputedAtUtc, DateTime.UtcNow, method,
             Text(root, "licence"), Text(root, "citation"), AtlasCaution.Text, VariableAssumption.ListFrom(root), Warnings(root));
     }

@@ -45,7 +45,7 @@ public static class CsvwMetadataWriter
             {
                 json.WriteStartObject();
                 json.WriteString("schema:name", file.Name);
-                json.WriteString("schema:identifier", "sha256:" + file.Sha256);
+                json.WriteString("schema:identifier", file.Checksum);
                 json.WriteString("schema:temporalCoverage",
                     $"{file.TimeStartUtc.ToString("yyyy-MM-dd'T'HH:mm:ss'Z'", CultureInfo.InvariantCulture)}/{file.TimeEndUtc.ToString("yyyy-MM-dd'T'HH:mm:ss'Z'", CultureInfo.InvariantCulture)}");
                 json.WriteEndObject();
@@ -88,7 +88,7 @@ public static class CsvwMetadataWriter
     /// <summary>The provenance in sentences: dataset, software, dates, method and what was assumed at ingest.</summary>
     public static string ProvenanceText(Provenance p) =>
         $"From dataset {p.Dataset} ({p.Title}), {p.SourceFiles.Count} source file{(p.SourceFiles.Count == 1 ? "" : "s")} " +
-        "(named with their SHA-256 checksums under prov:wasDerivedFrom), by " +
+        "(named with their checksums, blake3: or sha256:, under prov:wasDerivedFrom), by " +
         $"{p.Software} {p.SoftwareVersion}; statistics computed {(p.StatisticsComputedAtUtc is { } t ? "at " + t.ToString("yyyy-MM-dd'T'HH:mm:ss'Z'", CultureInfo.InvariantCulture) : "not yet")}; " +
         $"this file generated at {p.GeneratedAtUtc.ToString("yyyy-MM-dd'T'HH:mm:ss'Z'", CultureInfo.InvariantCulture)}. Method: {p.MethodNotes} " +
         $"Assumed at ingest: {p.AssumptionsText()}.";

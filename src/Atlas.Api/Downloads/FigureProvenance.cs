@@ -19,7 +19,7 @@ public sealed record FigureProvenance(string Title, string Caption, IReadOnlyLis
         [
             new("Title", data.Title),
             new("Description", caption),
-            new("Source", p.SourceFiles.Count == 0 ? "no source files recorded" : string.Join("; ", p.SourceFiles.Select(f => $"{f.Name} sha256={f.Sha256}"))),
+            new("Source", p.SourceFilesText()),
             new("Software", $"{p.Software} {p.SoftwareVersion}"),
             new("Creation Time", p.GeneratedAtUtc.ToString("yyyy-MM-dd'T'HH:mm:ss'Z'", CultureInfo.InvariantCulture)),
             new("Disclaimer", p.Caution),

@@ -25,7 +25,7 @@ public static class LayerNetCdfWriter
             GlobalAttributes = new Dictionary<string, string>
             {
                 ["dataset"] = p.Dataset,
-                ["source_files"] = string.Join("; ", p.SourceFiles.Select(f => $"{f.Name} sha256={f.Sha256}")),
+                ["source_files"] = p.SourceFilesText(),
                 ["method"] = p.MethodNotes,
                 ["assumptions"] = p.AssumptionsText(),
                 ["licence"] = p.Licence ?? "not stated",

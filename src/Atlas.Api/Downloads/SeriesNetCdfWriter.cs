@@ -52,7 +52,7 @@ public static class SeriesNetCdfWriter
                 nc.PutAttribute(null, "featureType", "timeSeries");
                 nc.PutAttribute(null, "title", $"Series of {stationName} from dataset {source.Dataset}: {source.Title}");
                 nc.PutAttribute(null, "source", $"{source.Software} {source.SoftwareVersion}");
-                nc.PutAttribute(null, "source_files", string.Join("; ", source.SourceFiles.Select(f => $"{f.Name} sha256={f.Sha256}")));
+                nc.PutAttribute(null, "source_files", source.SourceFilesText());
                 nc.PutAttribute(null, "method", source.MethodNotes);
                 nc.PutAttribute(null, "assumptions", source.AssumptionsText());
                 nc.PutAttribute(null, "licence", source.Licence ?? "not stated");

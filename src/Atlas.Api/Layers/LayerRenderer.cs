@@ -100,7 +100,7 @@ public sealed class LayerRenderer(
             new("statistic", data.Request.Statistic.Name()),
             new("period", data.Request.Period.Name),
             new("units", data.Units),
-            new("source_files", string.Join("; ", p.SourceFiles.Select(f => $"{f.Name} sha256={f.Sha256}"))),
+            new("source_files", p.SourceFilesText()),
             new("software", $"{p.Software} {p.SoftwareVersion}"),
             new("statistics_computed_at", p.StatisticsComputedAtUtc?.ToString("O") ?? "not computed"),
             new("generated_at", p.GeneratedAtUtc.ToString("O")),

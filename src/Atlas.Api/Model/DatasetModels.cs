@@ -19,7 +19,7 @@ public sealed record DatasetListItem(
 
 public sealed record DatasetList(IReadOnlyList<DatasetListItem> Datasets, string Caution);
 
-public sealed record SourceFileItem(string FileName, string Sha256, long SizeBytes, DateTime TimeStartUtc, DateTime TimeEndUtc, int StepCount, DateTime LoadedAtUtc);
+public sealed record SourceFileItem(string FileName, string Checksum, long SizeBytes, DateTime TimeStartUtc, DateTime TimeEndUtc, int StepCount, DateTime LoadedAtUtc);
 
 /// <summary>Everything the store knows of one dataset.</summary>
 public sealed record DatasetDetail(

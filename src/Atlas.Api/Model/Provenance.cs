@@ -26,7 +26,17 @@ public sealed record Provenance(
     public string AssumptionsText() => Assumptions is { Count: > 0 } assumed
         ? string.Join("; ", assumed.Select(a => a.Describe()).Concat((Warnings ?? []).Select(w => "warning: " + w)))
         : "not recorded (loaded before the ingest kept them)";
+
+    /// <summary>
+    /// The source files with their checksums in one line ("a.nc blake3:…; b.nc sha256:…"), for the metadata of
+    /// binary downloads and figures.
+    /// </summary>
+    public string SourceFilesText() => SourceFiles.Count == 0
+        ? "no source files recorded"
+        : string.Join("; ", SourceFiles.Select(f => $"{f.Name} {f.Checksum}"));
 }
 
-public sealed record ProvenanceFile(string Name, string Sha256, DateTime TimeStartUtc, DateTime TimeEndUtc);
+/// <param name="Checksum">The file's checksum with its algorithm's name: <c>blake3:</c> (as <c>b3sum</c> prints it) or, for
+/// files loaded before BLAKE3, <c>sha256:</c> (as <c>sha256sum</c> prints it), then 64 hexadecimal digits.</param>
+public sealed record ProvenanceFile(string Name, string Checksum, DateTime TimeStartUtc, DateTime TimeEndUtc);
 

@@ -31,7 +31,8 @@ public static class MethodSection
         blocks.Add(new(FlowBlockKind.Heading, "Provenance and citation"));
         blocks.Add(new(FlowBlockKind.Paragraph, $"Computed by {source.Software} {source.SoftwareVersion}; statistics computed " +
             $"{(source.StatisticsComputedAtUtc is { } t ? t.ToString("yyyy-MM-dd HH:mm", CultureInfo.InvariantCulture) + " UTC" : "not recorded")}; " +
-            $"{source.SourceFiles.Count} source file(s), listed with their SHA-256 checksums in the appendix."));
+            $"{source.SourceFiles.Count} source file(s), listed with their checksums in the appendix " +
+            "(blake3: as b3sum prints it, sha256: as sha256sum does)."));
         if (source.Licence is { } licence) blocks.Add(new(FlowBlockKind.Paragraph, "Licence: " + licence));
         blocks.Add(new(FlowBlockKind.Emphasis, "Cite as: " + citation));
         blocks.Add(new(FlowBlockKind.Heading, "Caution"));

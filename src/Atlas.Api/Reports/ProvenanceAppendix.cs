@@ -2,7 +2,10 @@ using static Atlas.Api.Reports.ReportNumbers;
 
 namespace Atlas.Api.Reports;
 
-/// <summary>The appendix of source files: name, time span and SHA-256 checksum, as many pages as the list needs.</summary>
+/// <summary>
+/// The appendix of source files: name, time span and checksum (BLAKE3, or SHA-256 for files loaded before), as many
+/// pages as the list needs.
+/// </summary>
 public sealed class ProvenanceAppendix(Provenance source) : IReportSection
 {
     private const int FilesPerPage = 44;
@@ -18,9 +21,9 @@ public sealed class ProvenanceAppendix(Provenance source) : IReportSection
             return;
         }
         var files = source.SourceFiles.Skip(index * FilesPerPage).Take(FilesPerPage);
-        page.Table(["file", "from", "to", "SHA-256"],
+        page.Table(["file", "from", "to", "checksum"],
             files.Select(f => (IReadOnlyList<string>)[f.Name, f.TimeStartUtc.ToString("yyyy-MM-dd", CultureInfo.InvariantCulture),
-                f.TimeEndUtc.ToString("yyyy-MM-dd", CultureInfo.InvariantCulture), f.Sha256]),
-            [150, 48, 48, 265], page.Fonts.Tiny);
+                f.TimeEndUtc.ToString("yyyy-MM-dd", CultureInfo.InvariantCulture), f.Checksum]),
+            [122, 48, 48, 293], page.Fonts.Tiny);
     }
 }

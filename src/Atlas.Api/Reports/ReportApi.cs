@@ -29,7 +29,7 @@ public static class ReportApi
         "length of the weather windows. An A4 PDF: location map on the dataset's land mask, the cell, depth and distances; annual and " +
         "seasonal Hs, Te, Tp, J, directionality and direction; monthly means, exceedance, inter-annual variation and power rose; the joint " +
         "Hm0-Te table by occurrence and by energy; the skill of the nearest measuring station; device yield; weather windows; extreme Hs " +
-        "with its cautions; method notes and ingest assumptions; source files with SHA-256 checksums; a citation line; page numbers and " +
+        "with its cautions; method notes and ingest assumptions; source files with their checksums (BLAKE3, or SHA-256 for files loaded before); a citation line; page numbers and " +
         "the caution on every page. Its numbers are those of /point, /point/windows, /point/extremes and /point/yield for the same query. " +
         "Windows, yield and extremes use whole years (from, to); months restrict the statistics only.")]
     public static async Task<Results<FileContentHttpResult, ProblemHttpResult, ValidationProblem>> SiteReportAsync(

@@ -16,7 +16,7 @@ namespace Atlas.Ingest.Ingestion;
 /// Loads hindcast files into a dataset: transposes time-major fields into cell-major yearly chunks, packs them
 /// (<see cref="Atlas.Storage.Series.SeriesCodec"/>) and writes them with binary COPY. Everything happens in one transaction, so a failed
 /// or killed ingest leaves nothing visible and the same command can simply be run again. A file already loaded
-/// (same SHA-256) is skipped. A time step given twice (already stored, or in two of the files, as monthly files that
+/// (same checksum) is skipped. A time step given twice (already stored, or in two of the files, as monthly files that
 /// share their boundary step) is stored once when its values are identical, and refused naming the step, the variable
 /// and the largest difference when they are not, unless the request replaces stored steps.
 /// Memory stays within the request's budget: cells are processed in blocks, each read with hyperslab reads.
@@ -186,7 +186,7 @@ public sealed class HindcastIngestor(NpgsqlDataSource dataSource, StatisticsOpti
         CancellationToken cancel)
     {
         foreach (var file in plan.Fresh)
-            await DatasetStore.InsertSourceFileAsync(connection, transaction, datasetId, new SourceFileRecord(file.Name, file.Sha256, file.SizeBytes,
+            await DatasetStore.InsertSourceFileAsync(connection, transaction, datasetId, new SourceFileRecord(file.Name, file.Checksum, file.SizeBytes,
                 DateTimeOffset.FromUnixTimeSeconds(file.Times[0]).UtcDateTime, DateTimeOffset.FromUnixTimeSeconds(file.Times[^1]).UtcDateTime,
                 file.Times.Length, plan.Request.JobId, DateTime.UtcNow), cancel);
         var assumptions = IngestAssumptions.Build(plan.Fresh, plan.Depths, deepWaterCells, plan.Dataset?.MetadataJson, assumedSpectrum);

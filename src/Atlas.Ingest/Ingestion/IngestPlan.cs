@@ -23,7 +23,7 @@ public sealed class IngestPlan
 
     public IngestRequest Request { get; }
 
-    /// <summary>The files not loaded before (by SHA-256), in time order; empty when there is nothing to do.</summary>
+    /// <summary>The files not loaded before (by checksum), in time order; empty when there is nothing to do.</summary>
     public IReadOnlyList<SourceFile> Fresh { get; }
 
     /// <summary>Files skipped because the dataset already holds them.</summary>
@@ -135,12 +135,15 @@ public sealed class IngestPlan
     /// The files whose bytes are neither loaded already nor those of an earlier file of the list. Files of the same
     /// bytes have the same size and the same decoded time axis: where nothing is loaded, a file that no other given file
     /// matches in both (yearly files, monthly files) is fresh without its checksum, which then goes on beside the load.
+    /// A dataset loaded before checksums were BLAKE3 holds SHA-256 ones: a given file is compared with those by SHA-256.
     /// </summary>
     private static List<SourceFile> FreshFiles(List<SourceFile> files, IReadOnlyCollection<string> loaded)
     {
         var seen = new HashSet<string>(loaded, StringComparer.OrdinalIgnoreCase);
+        var olderAlgorithms = loaded.Select(FileChecksum.AlgorithmOf).Where(a => a != FileChecksum.Blake3).Distinct().ToArray();
         var alike = files.GroupBy(Likeness).Where(g => g.Count() > 1).Select(g => g.Key).ToHashSet();
-        return files.Where(f => (loaded.Count == 0 && !alike.Contains(Likeness(f))) || seen.Add(f.Sha256)).ToList();
+        return files.Where(f => (loaded.Count == 0 && !alike.Contains(Likeness(f))) ||
+            (olderAlgorithms.All(a => !seen.Contains(f.ChecksumBy(a))) && seen.Add(f.Checksum))).ToList();
     }
 
     private static (long Size, int Steps, long First, long Last) Likeness(SourceFile file) =>

@@ -73,12 +73,15 @@ public sealed class SourceFile : IDisposable
     public bool Has(WaveParameter variable) => Variables.Contains(variable);
     public string Name => System.IO.Path.GetFileName(Path);
     /// <summary>
-    /// The SHA-256 of the file's bytes. Opened for a load, the file computes it beside the decoding and the load, and it
-    /// is waited for where first needed (files alike, an append, the record of the sources); opened for a part of an
-    /// ingest in parts or for queueing one, it is computed only where asked for (the part that records the sources). A
-    /// read error of the file surfaces there.
+    /// The checksum of the file's bytes as provenance records it (<see cref="FileChecksum"/>: <c>blake3:…</c>). Opened
+    /// for a load, the file computes it beside the decoding and the load, and it is waited for where first needed (files
+    /// alike, an append, the record of the sources); opened for a part of an ingest in parts or for queueing one, it is
+    /// computed only where asked for (the part that records the sources). A read error of the file surfaces there.
     /// </summary>
-    public string Sha256 => (_checksum ??= Task.FromResult(FileChecksum.Sha256(Path))).GetAwaiter().GetResult();
+    public string Checksum => (_checksum ??= Task.FromResult(FileChecksum.Of(Path))).GetAwaiter().GetResult();
+
+    /// <summary>The checksum by <paramref name="algorithm"/>: <see cref="Checksum"/>, or computed now for another one.</summary>
+    public string ChecksumBy(string algorithm) => algorithm == FileChecksum.Blake3 ? Checksum : FileChecksum.Of(Path, algorithm);
 
     /// <summary>The checksum's computation, done when the file has been read through for it (at once when none runs).</summary>
     public Task Checksummed => _checksum ?? Task.CompletedTask;
@@ -113,7 +116,7 @@ public sealed class SourceFile : IDisposable
     /// 1.10 built thread-safe), and the pool's threads live on.
     /// </remarks>
     /// <param name="opened">Called with the number of files opened so far, one call at a time.</param>
-    /// <param name="checksumNow">Whether each file computes its checksum from its opening on (see <see cref="Sha256"/>).</param>
+    /// <param name="checksumNow">Whether each file computes its checksum from its opening on (see <see cref="Checksum"/>).</param>
     public static async Task<List<SourceFile>> OpenAllAsync(IReadOnlyList<string> paths, VariableMapping? mapping, Action<int>? opened = null,
         bool checksumNow = true, CancellationToken cancel = default)
     {
@@ -168,13 +171,13 @@ public sealed class SourceFile : IDisposable
     /// <summary>Waits for every file started, so that no read of a file outlives the call (their faults are looked at after).</summary>
     private static Task Finish(List<Task<SourceFile>> tasks) => Task.WhenAll(tasks).ContinueWith(_ => { }, TaskScheduler.Default);
 
-    /// <summary>Opens and decodes a file, and checksums its bytes (SHA-256).</summary>
+    /// <summary>Opens and decodes a file, and checksums its bytes (<see cref="FileChecksum"/>).</summary>
     public static SourceFile Open(string path, VariableMapping? mapping, bool checksumNow = true)
     {
         if (!System.IO.File.Exists(path)) throw new IngestException($"{path}: no such file.");
         // The checksum reads the file once more: it runs beside the decoding (and a spectral file's integration), and
         // on beside the load; the file, once disposed, waits for it.
-        var checksum = checksumNow ? Task.Run(() => FileChecksum.Sha256(path)) : null;
+        var checksum = checksumNow ? Task.Run(() => FileChecksum.Of(path)) : null;
         try
         {
             return OpenDecoded(path, mapping, checksum);

@@ -30,7 +30,7 @@ public sealed record DatasetSummary(
 
 public sealed record SourceFileRecord(
     string FileName,
-    string Sha256,
+    string Checksum,
     long SizeBytes,
     DateTime TimeStartUtc,
     DateTime TimeEndUtc,

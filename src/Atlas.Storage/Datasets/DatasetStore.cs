@@ -235,7 +235,7 @@ public sealed class DatasetStore(NpgsqlDataSource dataSource)
     public async Task<IReadOnlyList<SourceFileRecord>> SourceFilesAsync(int datasetId, CancellationToken cancel = default)
     {
         await using var command = dataSource.CreateCommand("""
-            SELECT file_name, sha256, size_bytes, time_start, time_end, step_count, job_id, loaded_at
+            SELECT file_name, checksum, size_bytes, time_start, time_end, step_count, job_id, loaded_at
               FROM source_file WHERE dataset_id = $1 ORDER BY time_start, file_name
             """);
         command.Parameters.AddWithValue(datasetId);
@@ -250,7 +250,7 @@ public sealed class DatasetStore(NpgsqlDataSource dataSource)
 
     public static async Task<HashSet<string>> LoadedChecksumsAsync(NpgsqlConnection connection, NpgsqlTransaction? transaction, int datasetId, CancellationToken cancel)
     {
-        await using var command = new NpgsqlCommand("SELECT sha256 FROM source_file WHERE dataset_id = $1", connection, transaction);
+        await using var command = new NpgsqlCommand("SELECT checksum FROM source_file WHERE dataset_id = $1", connection, transaction);
         command.Parameters.AddWithValue(datasetId);
         var set = new HashSet<string>(StringComparer.OrdinalIgnoreCase);
         await using var reader = await command.ExecuteReaderAsync(cancel);
@@ -262,12 +262,12 @@ public sealed class DatasetStore(NpgsqlDataSource dataSource)
         SourceFileRecord file, CancellationToken cancel)
     {
         await using var command = new NpgsqlCommand("""
-            INSERT INTO source_file (dataset_id, file_name, sha256, size_bytes, time_start, time_end, step_count, job_id)
+            INSERT INTO source_file (dataset_id, file_name, checksum, size_bytes, time_start, time_end, step_count, job_id)
             VALUES ($1, $2, $3, $4, $5, $6, $7, $8)
             """, connection, transaction);
         command.Parameters.AddWithValue(datasetId);
         command.Parameters.AddWithValue(file.FileName);
-        command.Parameters.AddWithValue(file.Sha256);
+        command.Parameters.AddWithValue(file.Checksum);
         command.Parameters.AddWithValue(file.SizeBytes);
         command.Parameters.AddWithValue(file.TimeStartUtc);
         command.Parameters.AddWithValue(file.TimeEndUtc);

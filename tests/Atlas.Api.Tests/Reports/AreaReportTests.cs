@@ -70,7 +70,7 @@ public sealed class AreaReportTests(AtlasApiFixture atlas)
             return lon > West && lon < East && lat > South && lat < North;
         });
         Assert.Equal(inside.ToString(CultureInfo.InvariantCulture), Match(flat, @"(\d+) of the \d+ wet cells inside meet them"));
-        Assert.Contains(SyntheticAtlas.SourceSha256, flat);
+        Assert.Contains(SyntheticAtlas.SourceChecksum, flat);
     }
 
     [Fact]

@@ -96,7 +96,7 @@ public sealed partial class SiteReportTests(AtlasApiFixture atlas)
 
         // Provenance: the source file and its checksum in the appendix; no code identifier in the words.
         Assert.Contains(SyntheticAtlas.SourceFileName, flat);
-        Assert.Contains(SyntheticAtlas.SourceSha256, flat);
+        Assert.Contains(SyntheticAtlas.SourceChecksum, flat);
         Assert.DoesNotContain("JonswapGamma33", flat);
         Assert.DoesNotMatch(@"\b[a-z]+_[a-z]+\b", flat);
         Assert.Contains("Cite as:", flat);

@@ -29,7 +29,8 @@ public static class SyntheticAtlas
     public const int MeshSide = 81;
     public const double MeshWest = 30.0, MeshSouth = 10.0, MeshStep = 0.01;
     public const string SourceFileName = "test-coast-hindcast.nc";
-    public static readonly string SourceSha256 = Convert.ToHexStringLower(SHA256.HashData("invented test hindcast"u8));
+    // Recorded as a file loaded before checksums were BLAKE3 would be (the migration's prefix), so that the older form shows too.
+    public static readonly string SourceChecksum = "sha256:" + Convert.ToHexStringLower(SHA256.HashData("invented test hindcast"u8));
 
     public static double Longitude(int i) => West + Step * i;
     public static double Latitude(int j) => South + Step * j;
@@ -96,7 +97,7 @@ public static class SyntheticAtlas
             foreach (var year in Years) await DatasetStore.UpsertTimelineAsync(connection, transaction, datasetId, year, Timeline(year), CancellationToken.None);
             var first = Timeline(Years[0])[0];
             var last = Timeline(Years[^1])[^1];
-            await DatasetStore.InsertSourceFileAsync(connection, transaction, datasetId, new SourceFileRecord(SourceFileName, SourceSha256, 123456,
+            await DatasetStore.InsertSourceFileAsync(connection, transaction, datasetId, new SourceFileRecord(SourceFileName, SourceChecksum, 123456,
                 DateTimeOffset.FromUnixTimeSeconds(first).UtcDateTime, DateTimeOffset.FromUnixTimeSeconds(last).UtcDateTime,
                 Years.Sum(y => Timeline(y).Length), null, DateTime.UtcNow), CancellationToken.None);
             await transaction.CommitAsync();

@@ -30,7 +30,7 @@ public sealed class IngestInPartsTests(TestDatabase database) : IClassFixture<Te
             UNION ALL
             SELECT 'year ' || year || ' ' || times::text FROM dataset_year JOIN dataset d USING (dataset_id) WHERE d.slug = $1
             UNION ALL
-            SELECT concat_ws(' ', 'file', file_name, sha256, size_bytes, time_start, time_end, step_count) FROM source_file JOIN dataset d USING (dataset_id) WHERE d.slug = $1
+            SELECT concat_ws(' ', 'file', file_name, checksum, size_bytes, time_start, time_end, step_count) FROM source_file JOIN dataset d USING (dataset_id) WHERE d.slug = $1
             UNION ALL
             SELECT concat_ws(' ', 'dataset', title, grid_kind, nx, ny, point_count, ST_AsText(extent), grid::text, metadata::text) FROM dataset d WHERE d.slug = $1
             ORDER BY 1
