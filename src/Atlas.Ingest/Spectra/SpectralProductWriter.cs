@@ -121,8 +121,8 @@ public static class SpectralProductWriter
         }
         var records = values.Select(v => new StationStepRecord(v.Key.Station, v.Key.Year, v.Value[0], v.Value[1], v.Value[2], v.Value[3], v.Value[4])).ToList();
         var monthSums = sums.Select(m => new StationMonthSums(m.Key.Station, m.Key.Year, m.Key.Month, m.Value.Steps[0], m.Value.Frequency, m.Value.Direction)).ToList();
-        await StationSpectraStore.UpsertStepsAsync(connection, transaction, datasetId, records, cancel);
-        await StationSpectraStore.AddMonthSumsAsync(connection, transaction, datasetId, monthSums, cancel);
+        await StationSpectraStore.UpsertStepsAsync(connection, transaction, datasetId, plan.CreatesDataset, records, cancel);
+        await StationSpectraStore.AddMonthSumsAsync(connection, transaction, datasetId, plan.CreatesDataset, monthSums, cancel);
         await DatasetStore.MergeMetadataAsync(connection, transaction, datasetId, metadata.ToJsonString(), cancel);
         return files.SelectMany(f => f.Spectra!.Notes).Distinct().ToList();
     }

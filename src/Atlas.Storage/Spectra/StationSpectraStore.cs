@@ -9,11 +9,12 @@ public sealed class StationSpectraStore(NpgsqlDataSource dataSource)
 {
     /// <summary>
     /// Writes (or replaces) station-years of per-step values inside the caller's transaction: by binary COPY into a
-    /// temporary table, then one insert that replaces the rows already stored.
+    /// temporary table, then one insert that replaces the rows already stored; straight into the table for a dataset
+    /// created by this transaction (<paramref name="newDataset"/>), which has no rows to replace.
     /// </summary>
-    public static Task UpsertStepsAsync(NpgsqlConnection connection, NpgsqlTransaction transaction, int datasetId,
+    public static Task UpsertStepsAsync(NpgsqlConnection connection, NpgsqlTransaction transaction, int datasetId, bool newDataset,
         IEnumerable<StationStepRecord> records, CancellationToken cancel) =>
-        CopyAndMergeAsync(connection, transaction, "station_step", StepColumns, records, (encoder, r) =>
+        CopyAndMergeAsync(connection, transaction, "station_step", StepColumns, newDataset, records, (encoder, r) =>
         {
             encoder.StartRow(8);
             encoder.WriteInt32(datasetId);
@@ -78,11 +79,12 @@ public sealed class StationSpectraStore(NpgsqlDataSource dataSource)
 
     /// <summary>
     /// Adds the given monthly sums to the stored ones (rows created where missing) inside the caller's transaction: by
-    /// binary COPY into a temporary table, then one insert that adds to the rows already stored, element by element.
+    /// binary COPY into a temporary table, then one insert that adds to the rows already stored, element by element;
+    /// straight into the table for a dataset created by this transaction (<paramref name="newDataset"/>).
     /// </summary>
-    public static Task AddMonthSumsAsync(NpgsqlConnection connection, NpgsqlTransaction transaction, int datasetId,
+    public static Task AddMonthSumsAsync(NpgsqlConnection connection, NpgsqlTransaction transaction, int datasetId, bool newDataset,
         IEnumerable<StationMonthSums> sums, CancellationToken cancel) =>
-        CopyAndMergeAsync(connection, transaction, "station_spectrum_month", "dataset_id, cell_id, year, month, steps, frequency_sum, direction_sum", sums,
+        CopyAndMergeAsync(connection, transaction, "station_spectrum_month", "dataset_id, cell_id, year, month, steps, frequency_sum, direction_sum", newDataset, sums,
             (encoder, m) =>
             {
                 encoder.StartRow(7);
@@ -105,13 +107,15 @@ public sealed class StationSpectraStore(NpgsqlDataSource dataSource)
     /// <summary>
     /// Writes rows into <paramref name="table"/> inside the caller's transaction: by binary COPY into a temporary table
     /// shaped like it (<paramref name="write"/> writes one row's fields), then one insert of them all that ends with
-    /// <paramref name="onConflict"/>; the temporary table is dropped after.
+    /// <paramref name="onConflict"/>; the temporary table is dropped after. With <paramref name="direct"/> (the rows
+    /// cannot conflict: their dataset was created by this transaction) the COPY goes straight into the table, which
+    /// halves the database's work: on 50 stations x 10 years the staged way wrote 58 MB twice.
     /// </summary>
     private static async Task CopyAndMergeAsync<T>(NpgsqlConnection connection, NpgsqlTransaction transaction, string table, string columns,
-        IEnumerable<T> rows, Action<BinaryCopyEncoder, T> write, string onConflict, CancellationToken cancel)
+        bool direct, IEnumerable<T> rows, Action<BinaryCopyEncoder, T> write, string onConflict, CancellationToken cancel)
     {
-        var load = table + "_load";
-        await ExecuteAsync(connection, transaction, $"CREATE TEMP TABLE {load} (LIKE {table}) ON COMMIT DROP", cancel);
+        var load = direct ? table : table + "_load";
+        if (!direct) await ExecuteAsync(connection, transaction, $"CREATE TEMP TABLE {load} (LIKE {table}) ON COMMIT DROP", cancel);
         await using (var copy = await connection.BeginRawBinaryCopyAsync($"COPY {load} ({columns}) FROM STDIN (FORMAT BINARY)", cancel))
         {
             var encoder = new BinaryCopyEncoder(copy);
@@ -123,7 +127,8 @@ public sealed class StationSpectraStore(NpgsqlDataSource dataSource)
             }
             encoder.WriteTrailer();
         }
-        await ExecuteAsync(connection, transaction, $"INSERT INTO {table} ({columns}) SELECT {columns} FROM {load} {onConflict}; DROP TABLE {load}", cancel);
+        if (!direct)
+            await ExecuteAsync(connection, transaction, $"INSERT INTO {table} ({columns}) SELECT {columns} FROM {load} {onConflict}; DROP TABLE {load}", cancel);
     }
 
     /// <summary>
