@@ -1,5 +1,6 @@
 using System.CommandLine;
 using Atlas.Ingest.Ingestion;
+using Atlas.Ingest.Statistics;
 using Atlas.Ingest.Worker;
 using Atlas.Storage;
 using Atlas.Storage.Jobs;
@@ -62,6 +63,8 @@ public static class IngestCommand
                     return 2;
                 }
             }
+            // The statistics follow the load: their kernel compiles meanwhile, on a core the load leaves free at times.
+            if (!parse.GetValue(noStats)) HotMethodWarmup.Start();
             var ingest = await CommandLineJob.RunAsync(dataSource, runner, JobKind.Ingest, slug, payload, "ingest", "Nothing was changed in the dataset.", cancel);
             if (ingest != 0) return ingest;
             if (!parse.GetValue(noStats)) return await StatsCommand.RunAsync(dataSource, runner, slug, all: false, cancel);

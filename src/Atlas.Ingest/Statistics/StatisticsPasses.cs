@@ -67,6 +67,7 @@ public sealed class StatisticsPasses(NpgsqlDataSource dataSource, StatisticsOpti
     public async Task<string> RunPartAsync(JobRecord part, IProgress<ProgressSnapshot>? progress, CancellationToken cancel)
     {
         var clock = Stopwatch.StartNew();
+        HotMethodWarmup.Start();
         var passes = new PassStore(dataSource);
         var passId = part.PassId ?? throw new ArgumentException($"Job {part.Id} is not a part of a pass.", nameof(part));
         var name = $"statistics {part.DatasetSlug} pass {passId} part {part.Part + 1}";

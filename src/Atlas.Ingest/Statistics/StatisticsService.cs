@@ -37,6 +37,7 @@ public sealed class StatisticsService(NpgsqlDataSource dataSource, StatisticsOpt
     public async Task<StatisticsSummary> RunAsync(string slug, bool all, IProgress<ProgressSnapshot>? progress = null, CancellationToken cancel = default)
     {
         var clock = Stopwatch.StartNew();
+        HotMethodWarmup.Start();
         var plan = await PlanAsync(slug, all, cancel);
         if (plan.Targets.Length == 0) return new StatisticsSummary(slug, 0, 0, 0, 0, clock.Elapsed);
         // A pass in parts publishes its blocks at its end: a plain pass under way meanwhile would interleave with it.
