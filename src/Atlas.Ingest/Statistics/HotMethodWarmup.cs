@@ -6,7 +6,7 @@ namespace Atlas.Ingest.Statistics;
 /// <summary>
 /// Compiles the statistics kernel ahead of its first use, on a pool thread, once per process. Its hot methods are marked
 /// for full optimisation at once (long loops run a few times per cell, and precompiled code is never replaced inside a
-/// running loop), so the runtime compiles each at its first call: some 50 methods, which held the first cells of every
+/// running loop), so the runtime compiles each at its first call: some 45 methods, which held the first cells of every
 /// pass for a fifth of a second. Started as a pass begins, the compilation runs while the pass plans and reads its first
 /// series from the database; a method reached before it is compiled is simply waited for, as it would be anyway.
 /// </summary>
