@@ -106,6 +106,63 @@ public class BinaryCopyDecoderTests(TestDatabase database) : IClassFixture<TestD
         Assert.Contains(message, (await Assert.ThrowsAsync<InvalidDataException>(async () => await decoder.ReadInt32ArrayAsync())).Message);
     }
 
+    // Packed floats (the output points' per-step values): written by the encoder through PostgreSQL's COPY FROM into a
+    // bytea column, the stored bytes read by NumPy as little-endian float32 (numpy.frombuffer, dtype '<f4') give the same
+    // values bit for bit, and the decoder reads them back alike; 40,000 values span the encoder's 64 KB buffer.
+    [Fact]
+    public async Task PackedFloatsGoThroughPostgreSqlAsNumPyReadsThem()
+    {
+        var values = Enumerable.Range(0, 40_000).Select(i => i switch
+        {
+            0 => float.NaN, 1 => -0f, 2 => float.Epsilon, 3 => float.MaxValue, 4 => float.NegativeInfinity,
+            _ => (float)Math.Sin(i) * i,
+        }).ToArray();
+        await using var connection = await database.DataSource.OpenConnectionAsync();
+        await using (var create = new Npgsql.NpgsqlCommand("CREATE TEMP TABLE packed (v bytea)", connection)) await create.ExecuteNonQueryAsync();
+        await using (var copy = await connection.BeginRawBinaryCopyAsync("COPY packed (v) FROM STDIN (FORMAT BINARY)"))
+        {
+            var encoder = new BinaryCopyEncoder(copy);
+            encoder.WriteHeader();
+            encoder.StartRow(1);
+            encoder.WriteFloatBytes(values);
+            encoder.WriteTrailer();
+        }
+        string hex;
+        await using (var select = new Npgsql.NpgsqlCommand("SELECT encode(v, 'hex') FROM packed", connection)) hex = (string)(await select.ExecuteScalarAsync())!;
+        var path = Path.Combine(Path.GetTempPath(), $"atlas-packed-{Guid.NewGuid():N}.hex");
+        try
+        {
+            await File.WriteAllTextAsync(path, hex);
+            using var python = System.Diagnostics.Process.Start(new System.Diagnostics.ProcessStartInfo("/usr/bin/python3",
+                ["-c", "import sys, numpy as np; v = np.frombuffer(bytes.fromhex(open(sys.argv[1]).read()), dtype='<f4'); " +
+                       "print(len(v)); print(' '.join(str(int(x)) for x in v.view('<u4')[:5])); print(int(v.view('<u4').astype(np.uint64).sum()))", path])
+                { RedirectStandardOutput = true })!;
+            var lines = (await python.StandardOutput.ReadToEndAsync()).Split('\n');
+            await python.WaitForExitAsync();
+            var bits = values.Select(v => (ulong)BitConverter.SingleToUInt32Bits(v)).ToArray();
+            Assert.Equal(values.Length.ToString(), lines[0]);
+            Assert.Equal(string.Join(' ', bits.Take(5)), lines[1]);
+            Assert.Equal(bits.Aggregate(0UL, (a, b) => a + b).ToString(), lines[2]);
+        }
+        finally
+        {
+            File.Delete(path);
+        }
+        var back = new BinaryCopyDecoder(new MemoryStream(await CopyOutAsync("COPY packed (v) TO STDOUT (FORMAT BINARY)", connection)));
+        await back.ReadHeaderAsync();
+        Assert.True(await back.StartRowAsync(1));
+        var read = await back.ReadFloatBytesAsync("packed");
+        Assert.Equal(values.Select(BitConverter.SingleToUInt32Bits), read.Select(BitConverter.SingleToUInt32Bits));
+    }
+
+    private async Task<byte[]> CopyOutAsync(string query, Npgsql.NpgsqlConnection connection)
+    {
+        await using var copy = await connection.BeginRawBinaryCopyAsync(query);
+        using var memory = new MemoryStream();
+        await copy.CopyToAsync(memory);
+        return memory.ToArray();
+    }
+
     private async Task<byte[]> CopyOutAsync(string query = Query)
     {
         await using var connection = await database.DataSource.OpenConnectionAsync();

@@ -68,6 +68,23 @@ public sealed class BinaryCopyDecoder(Stream source)
         return view;
     }
 
+    /// <summary>
+    /// A non-null bytea field of little-endian 32-bit floats (<see cref="BinaryCopyEncoder.WriteFloatBytes"/>), as a new
+    /// array; a length that is not a multiple of four is refused.
+    /// </summary>
+    public async ValueTask<float[]> ReadFloatBytesAsync(string what, CancellationToken cancel = default)
+    {
+        var bytes = await ReadBytesAsync(cancel);
+        if (bytes.Length % 4 != 0) throw new InvalidDataException($"{what} holds {bytes.Length} bytes, not whole 4-byte floats.");
+        var values = System.Runtime.InteropServices.MemoryMarshal.Cast<byte, float>(bytes.Span).ToArray();
+        if (!BitConverter.IsLittleEndian)
+        {
+            var words = System.Runtime.InteropServices.MemoryMarshal.Cast<float, int>(values.AsSpan());
+            BinaryPrimitives.ReverseEndianness(words, words);
+        }
+        return values;
+    }
+
     /// <summary>A one-dimensional integer[] field without NULL elements, or null for a NULL field.</summary>
     public ValueTask<int[]?> ReadInt32ArrayAsync(CancellationToken cancel = default) => ReadWordArrayAsync<int>(Int4Oid, "integer[]", cancel);
 

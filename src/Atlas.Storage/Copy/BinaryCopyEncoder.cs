@@ -80,6 +80,27 @@ public sealed class BinaryCopyEncoder(Stream target)
         }
     }
 
+    /// <summary>
+    /// A bytea field holding <paramref name="values"/> as little-endian 32-bit floats, four bytes each (NaN stays NaN):
+    /// what <see cref="BinaryCopyDecoder.ReadFloatBytesAsync"/> reads back.
+    /// </summary>
+    public void WriteFloatBytes(ReadOnlySpan<float> values)
+    {
+        Ensure(4);
+        Int32Raw(checked(4 * values.Length));
+        for (var at = 0; at < values.Length;)
+        {
+            Ensure(4);
+            var take = Math.Min(values.Length - at, (_buffer.Length - _used) / 4);
+            var into = System.Runtime.InteropServices.MemoryMarshal.Cast<byte, float>(_buffer.AsSpan(_used, 4 * take));
+            values.Slice(at, take).CopyTo(into);
+            if (!BitConverter.IsLittleEndian)
+                BinaryPrimitives.ReverseEndianness(System.Runtime.InteropServices.MemoryMarshal.Cast<float, int>(into), System.Runtime.InteropServices.MemoryMarshal.Cast<float, int>(into));
+            _used += 4 * take;
+            at += take;
+        }
+    }
+
     /// <summary>A one-dimensional double precision[] (lower bound 1) of any length; NaN elements stay NaN.</summary>
     public void WriteDoubleArray(ReadOnlySpan<double> values)
     {

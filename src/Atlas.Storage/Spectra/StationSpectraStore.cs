@@ -21,7 +21,7 @@ public sealed class StationSpectraStore(NpgsqlDataSource dataSource)
             encoder.WriteInt32(r.CellId);
             encoder.WriteInt16((short)r.Year);
             foreach (var values in new[] { r.PowerSpectral, r.PowerParametric, r.Directionality, r.MaximumPowerFrom, r.SpectralWidth })
-                encoder.WriteRealArray(values.AsSpan());
+                encoder.WriteFloatBytes(values);
         }, """
             ON CONFLICT (dataset_id, cell_id, year) DO UPDATE SET j_spectral = excluded.j_spectral, j_parametric = excluded.j_parametric,
                 directionality = excluded.directionality, max_power_from = excluded.max_power_from, spectral_width = excluded.spectral_width
@@ -45,7 +45,7 @@ public sealed class StationSpectraStore(NpgsqlDataSource dataSource)
             int year = await decoder.ReadInt16Async(cancel);
             var products = new float[5][];
             for (int k = 0; k < products.Length; k++)
-                products[k] = await decoder.ReadRealArrayAsync(cancel) ?? throw new InvalidDataException("station_step holds a NULL array");
+                products[k] = await decoder.ReadFloatBytesAsync("station_step", cancel);
             result[(cellOf, year)] = new StationStepRecord(cellOf, year, products[0], products[1], products[2], products[3], products[4]);
         }
         return result;
@@ -64,7 +64,7 @@ public sealed class StationSpectraStore(NpgsqlDataSource dataSource)
         {
             int cell = await decoder.ReadInt32Async(cancel);
             int year = await decoder.ReadInt16Async(cancel);
-            result[(cell, year)] = await decoder.ReadRealArrayAsync(cancel) ?? throw new InvalidDataException("station_step holds a NULL array");
+            result[(cell, year)] = await decoder.ReadFloatBytesAsync("station_step", cancel);
         }
         return result;
     }
