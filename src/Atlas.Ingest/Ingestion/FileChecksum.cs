@@ -1,5 +1,6 @@
 using System.Buffers;
 using System.Security.Cryptography;
+using Microsoft.Win32.SafeHandles;
 
 namespace Atlas.Ingest.Ingestion;
 
@@ -35,12 +36,26 @@ public static class FileChecksum
         var buffer = ArrayPool<byte>.Shared.Rent(bufferBytes);
         try
         {
-            return algorithm switch
+            var span = buffer.AsSpan(0, bufferBytes);
+            switch (algorithm)
             {
-                Blake3 => Blake3Of(file, buffer.AsSpan(0, bufferBytes)),
-                Sha256 => Sha256Of(file, buffer.AsSpan(0, bufferBytes)),
-                _ => throw new ArgumentException($"Unknown checksum algorithm '{algorithm}' (known: {Blake3}, {Sha256}).", nameof(algorithm)),
-            };
+                case Blake3:
+                {
+                    using var hasher = global::Blake3.Hasher.New();
+                    ReadThrough(file, span, hasher.Update);
+                    Span<byte> hash = stackalloc byte[32];
+                    hasher.Finalize(hash);
+                    return Blake3 + ":" + Convert.ToHexStringLower(hash);
+                }
+                case Sha256:
+                {
+                    using var hash = IncrementalHash.CreateHash(HashAlgorithmName.SHA256);
+                    ReadThrough(file, span, hash.AppendData);
+                    return Sha256 + ":" + Convert.ToHexStringLower(hash.GetHashAndReset());
+                }
+                default:
+                    throw new ArgumentException($"Unknown checksum algorithm '{algorithm}' (known: {Blake3}, {Sha256}).", nameof(algorithm));
+            }
         }
         finally
         {
@@ -48,23 +63,13 @@ public static class FileChecksum
         }
     }
 
-    private static string Blake3Of(Microsoft.Win32.SafeHandles.SafeFileHandle file, Span<byte> buffer)
-    {
-        using var hasher = global::Blake3.Hasher.New();
-        long at = 0;
-        for (int read; (read = RandomAccess.Read(file, buffer, at)) > 0; at += read)
-            hasher.Update(buffer[..read]);
-        Span<byte> hash = stackalloc byte[32];
-        hasher.Finalize(hash);
-        return Blake3 + ":" + Convert.ToHexStringLower(hash);
-    }
+    private delegate void Append(ReadOnlySpan<byte> bytes);
 
-    private static string Sha256Of(Microsoft.Win32.SafeHandles.SafeFileHandle file, Span<byte> buffer)
+    /// <summary>Reads the file in order through <paramref name="buffer"/>, giving each read to <paramref name="append"/>.</summary>
+    private static void ReadThrough(SafeFileHandle file, Span<byte> buffer, Append append)
     {
-        using var hash = IncrementalHash.CreateHash(HashAlgorithmName.SHA256);
         long at = 0;
         for (int read; (read = RandomAccess.Read(file, buffer, at)) > 0; at += read)
-            hash.AppendData(buffer[..read]);
-        return Sha256 + ":" + Convert.ToHexStringLower(hash.GetHashAndReset());
+            append(buffer[..read]);
     }
 }

@@ -1,4 +1,5 @@
 using System.Buffers.Binary;
+using System.Runtime.InteropServices;
 
 namespace Atlas.Storage.Copy;
 
@@ -76,10 +77,10 @@ public sealed class BinaryCopyDecoder(Stream source)
     {
         var bytes = await ReadBytesAsync(cancel);
         if (bytes.Length % 4 != 0) throw new InvalidDataException($"{what} holds {bytes.Length} bytes, not whole 4-byte floats.");
-        var values = System.Runtime.InteropServices.MemoryMarshal.Cast<byte, float>(bytes.Span).ToArray();
+        var values = MemoryMarshal.Cast<byte, float>(bytes.Span).ToArray();
         if (!BitConverter.IsLittleEndian)
         {
-            var words = System.Runtime.InteropServices.MemoryMarshal.Cast<float, int>(values.AsSpan());
+            var words = MemoryMarshal.Cast<float, int>(values.AsSpan());
             BinaryPrimitives.ReverseEndianness(words, words);
         }
         return values;
@@ -112,7 +113,7 @@ public sealed class BinaryCopyDecoder(Stream source)
         var length = await ArrayLengthAsync(elementOid, 4, cancel);
         if (length < 0) return null;
         var values = new T[length];
-        var words = System.Runtime.InteropServices.MemoryMarshal.Cast<T, int>(values.AsSpan());
+        var words = MemoryMarshal.Cast<T, int>(values.AsSpan());
         for (var i = 0; i < length; i++)
         {
             if (BinaryPrimitives.ReadInt32BigEndian(_buffer.AsSpan(_start)) != 4) throw new InvalidDataException($"An element of a {typeName} field is not 4 bytes long.");

@@ -1,4 +1,5 @@
 using System.Buffers.Binary;
+using System.Runtime.InteropServices;
 using System.Runtime.CompilerServices;
 
 namespace Atlas.Storage.Copy;
@@ -92,10 +93,10 @@ public sealed class BinaryCopyEncoder(Stream target)
         {
             Ensure(4);
             var take = Math.Min(values.Length - at, (_buffer.Length - _used) / 4);
-            var into = System.Runtime.InteropServices.MemoryMarshal.Cast<byte, float>(_buffer.AsSpan(_used, 4 * take));
+            var into = MemoryMarshal.Cast<byte, float>(_buffer.AsSpan(_used, 4 * take));
             values.Slice(at, take).CopyTo(into);
             if (!BitConverter.IsLittleEndian)
-                BinaryPrimitives.ReverseEndianness(System.Runtime.InteropServices.MemoryMarshal.Cast<float, int>(into), System.Runtime.InteropServices.MemoryMarshal.Cast<float, int>(into));
+                BinaryPrimitives.ReverseEndianness(MemoryMarshal.Cast<float, int>(into), MemoryMarshal.Cast<float, int>(into));
             _used += 4 * take;
             at += take;
         }
