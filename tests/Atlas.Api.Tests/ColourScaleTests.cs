@@ -3,6 +3,8 @@ using System.Text.Json;
 using Atlas.Api.Downloads;
 using Atlas.Api.Tests.Support;
 
+using Atlas.TestSupport;
+
 namespace Atlas.Api.Tests;
 
 /// <summary>

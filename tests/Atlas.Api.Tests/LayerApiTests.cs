@@ -7,6 +7,8 @@ using Atlas.Api.Tests.Support;
 using Atlas.Storage.Statistics;
 using Microsoft.Data.Analysis;
 
+using Atlas.TestSupport;
+
 namespace Atlas.Api.Tests;
 
 [Collection(AtlasApiCollection.Name)]

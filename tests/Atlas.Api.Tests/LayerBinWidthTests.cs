@@ -6,6 +6,8 @@ using Atlas.Statistics;
 using Microsoft.Extensions.Configuration;
 using Microsoft.Extensions.DependencyInjection;
 
+using Atlas.TestSupport;
+
 namespace Atlas.Api.Tests;
 
 /// <summary>

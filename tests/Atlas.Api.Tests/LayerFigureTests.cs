@@ -6,6 +6,8 @@ using Atlas.Api.Model;
 using Atlas.Api.Tests.Assessment;
 using Atlas.Api.Tests.Support;
 
+using Atlas.TestSupport;
+
 namespace Atlas.Api.Tests;
 
 /// <summary>

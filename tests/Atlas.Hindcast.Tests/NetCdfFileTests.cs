@@ -1,6 +1,8 @@
 using System.Globalization;
 using System.Text.RegularExpressions;
 
+using Atlas.TestSupport;
+
 namespace Atlas.Hindcast.Tests;
 
 public sealed class NetCdfFileTests

@@ -1,6 +1,8 @@
 using System.Text.Json;
 using System.Text.RegularExpressions;
 
+using Atlas.TestSupport;
+
 namespace Atlas.Hindcast.Tests;
 
 /// <summary>

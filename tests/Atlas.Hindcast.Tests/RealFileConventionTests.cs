@@ -1,5 +1,7 @@
 using System.Text.Json;
 
+using Atlas.TestSupport;
+
 namespace Atlas.Hindcast.Tests;
 
 /// <summary>

@@ -1,6 +1,8 @@
 using System.Globalization;
 using Atlas.WavePhysics;
 
+using Atlas.TestSupport;
+
 namespace Atlas.Statistics.Tests;
 
 /// <summary>

@@ -4,6 +4,8 @@ using System.Text.Json;
 using Atlas.Api.Tests.Support;
 using Atlas.Assessment.Access;
 
+using Atlas.TestSupport;
+
 namespace Atlas.Api.Tests.Assessment;
 
 [Collection(AtlasApiCollection.Name)]

@@ -9,6 +9,8 @@ using Atlas.Storage.Datasets;
 using Microsoft.Extensions.Configuration;
 using Microsoft.Extensions.DependencyInjection;
 
+using Atlas.TestSupport;
+
 namespace Atlas.Api.Tests.Assessment;
 
 [Collection(AtlasApiCollection.Name)]

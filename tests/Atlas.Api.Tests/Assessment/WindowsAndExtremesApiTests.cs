@@ -5,6 +5,8 @@ using Atlas.Api.Tests.Support;
 using Atlas.Assessment.Access;
 using Atlas.Assessment.Extremes;
 
+using Atlas.TestSupport;
+
 namespace Atlas.Api.Tests.Assessment;
 
 [Collection(AtlasApiCollection.Name)]

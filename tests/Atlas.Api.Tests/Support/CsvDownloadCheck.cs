@@ -3,6 +3,8 @@ using System.Text.Json;
 using System.Text.RegularExpressions;
 using Atlas.Api.Model;
 
+using Atlas.TestSupport;
+
 namespace Atlas.Api.Tests.Support;
 
 /// <summary>

@@ -8,6 +8,8 @@ using Atlas.Storage.Series;
 using Atlas.Storage.Statistics;
 using Npgsql;
 
+using Atlas.TestSupport;
+
 namespace Atlas.Api.Tests.Support;
 
 /// <summary>

@@ -1,4 +1,3 @@
-using System.Diagnostics;
 using Atlas.Ingest.Ingestion;
 
 namespace Atlas.Ingest.Tests.Ingestion;
@@ -72,14 +71,7 @@ public class FileChecksumTests
     }
 
     /// <summary>The digest a checksum program prints for <paramref name="path"/> (its first word).</summary>
-    internal static string Printed(string program, string path)
-    {
-        using var process = Process.Start(new ProcessStartInfo(program, [path]) { RedirectStandardOutput = true })!;
-        var digest = process.StandardOutput.ReadToEnd().Split(' ')[0];
-        process.WaitForExit();
-        Assert.Equal(0, process.ExitCode);
-        return digest;
-    }
+    internal static string Printed(string program, string path) => Atlas.TestSupport.ExternalTool.Run(program, path).Split(' ')[0];
 
     private static string TempFile() => Path.Combine(Path.GetTempPath(), $"atlas-checksum-{Guid.NewGuid():N}.bin");
 }
