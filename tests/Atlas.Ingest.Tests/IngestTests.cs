@@ -197,6 +197,8 @@ public class IngestTests(TestDatabase database) : IClassFixture<TestDatabase>
         var error = await Assert.ThrowsAsync<IngestException>(() => Ingestor.RunAsync(new IngestRequest("negative", [file])));
         Assert.Contains("negative.nc", error.Message);
         Assert.Contains("Hs", error.Message);
+        // The first value refused in step order: the second step (make_fixture.py makes its heights negative).
+        Assert.Contains("at 2020-01-01T03:00:00Z", error.Message);
         Assert.Null(await new Storage.Datasets.DatasetStore(database.DataSource).FindAsync("negative"));
     }
 
