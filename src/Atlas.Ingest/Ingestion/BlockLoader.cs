@@ -20,8 +20,11 @@ public sealed class BlockLoader(NpgsqlConnection connection, NpgsqlTransaction t
 {
     private readonly CellRange _cells = plan.Request.Cells ?? new CellRange(0, plan.Grid.PointCount - 1);
 
-    /// <summary>The largest float buffer of one hyperslab read (two take turns): steps read at once are bounded by it.</summary>
-    private const int MaxSlabBytes = 32 << 20;
+    /// <summary>
+    /// The largest float buffer of one hyperslab read (two take turns): steps read at once are bounded by it. 16 MB
+    /// (over a thousand steps of a 3,600-cell block) reads as fast as 32 MB did and keeps 32 MB less in memory.
+    /// </summary>
+    private const int MaxSlabBytes = 16 << 20;
 
     private readonly SharedStepConflicts _conflicts = new();
     private readonly string _storedName = $"dataset '{plan.Request.DatasetSlug}' (already stored)";
