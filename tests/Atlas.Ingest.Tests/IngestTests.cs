@@ -58,6 +58,34 @@ public class IngestTests(TestDatabase database) : IClassFixture<TestDatabase>
         }
     }
 
+    // The cells are loaded in blocks that fit the memory budget (the load's first two a quarter and a half of the
+    // others), and each block's steps in tiles of 32: a budget of 13 cells' series (blocks of 3, 6, 12 and 9 cells;
+    // 40 steps, a tile of 32 and one of 8) stores every cell's series byte for byte as one block of all 30 cells does.
+    [Fact]
+    public async Task BlocksOfAnySizeStoreTheSameBytes()
+    {
+        var file = FixtureFiles.Make("blocks-of-any-size.nc", 0, 40);
+        var bytesPerCell = SeriesCodec.EncodedLength(40, 5);
+        await Ingestor.RunAsync(new IngestRequest("blocks-whole", [file]));
+        await Ingestor.RunAsync(new IngestRequest("blocks-small", [file], MemoryBudgetBytes: 2L * 13 * bytesPerCell));
+        var whole = await PayloadsAsync("blocks-whole");
+        var small = await PayloadsAsync("blocks-small");
+        Assert.Equal(Nx * Ny - 1, whole.Count);
+        Assert.Equal(whole.Keys, small.Keys);
+        foreach (var (cell, payload) in whole) Assert.Equal(payload, small[cell]);
+    }
+
+    private async Task<SortedDictionary<int, byte[]>> PayloadsAsync(string slug)
+    {
+        var payloads = new SortedDictionary<int, byte[]>();
+        await using var command = database.DataSource.CreateCommand(
+            "SELECT c.cell_id, c.payload FROM series_chunk c JOIN dataset d USING (dataset_id) WHERE d.slug = $1");
+        command.Parameters.AddWithValue(slug);
+        await using var reader = await command.ExecuteReaderAsync();
+        while (await reader.ReadAsync()) payloads.Add(reader.GetInt32(0), (byte[])reader[1]);
+        return payloads;
+    }
+
     [Fact]
     public async Task IngestingTheSameFileAgainChangesNothing()
     {
