@@ -47,10 +47,21 @@ public static class AtlasDatabase
         return builder.Build();
     }
 
-    /// <summary>Resolves the database, applies pending migrations, and returns a data source for it.</summary>
+    /// <summary>
+    /// Resolves the database, applies pending migrations, and returns a data source for it. Where every migration is
+    /// applied already (every command but the first on a database), the look is made on the data source returned, so
+    /// that the command connects and loads the database's types once (each data source does on its first connection:
+    /// a command had spent 50-90 ms doing it twice).
+    /// </summary>
     public static async Task<NpgsqlDataSource> OpenMigratedAsync(Action<string>? log = null, CancellationToken cancel = default)
     {
         var connectionString = await ResolveConnectionStringAsync(cancel);
+        var dataSource = CreateDataSource(connectionString);
+        bool upToDate;
+        await using (var connection = await dataSource.OpenConnectionAsync(cancel)) upToDate = SchemaMigrator.IsUpToDate(connection);
+        if (upToDate) return dataSource;
+        // Migrations to apply: through the migrator's own connections, then a data source that loads the types they made.
+        await dataSource.DisposeAsync();
         SchemaMigrator.Migrate(connectionString, log);
         return CreateDataSource(connectionString);
     }

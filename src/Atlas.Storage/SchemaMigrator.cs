@@ -48,6 +48,17 @@ public static class SchemaMigrator
     }
 
     /// <summary>
+    /// Whether every migration script of <see cref="MigrationsFolder"/> is applied, unchanged, as seen on
+    /// <paramref name="connection"/> (of the data source a command goes on with, so that a command on an up-to-date
+    /// database opens and loads the database's types once, not once for the look and again for the work).
+    /// </summary>
+    public static bool IsUpToDate(NpgsqlConnection connection)
+    {
+        var folder = MigrationsFolder;
+        return Directory.Exists(folder) && Directory.GetFiles(folder, "*.sql").Length > 0 && EveryScriptApplied(connection, folder);
+    }
+
+    /// <summary>
     /// Whether the ledger records every script of the folder as applied with the checksum Evolve gives it (the MD5 of
     /// its bytes) and nothing else; anything else (no ledger, a new, changed or unknown script, a repeatable one) is
     /// left to Evolve, which applies, or refuses with its own message.
