@@ -2,7 +2,6 @@ using System.Globalization;
 using System.Text.Json;
 using Atlas.Api.Downloads;
 using Atlas.Api.Tests.Support;
-
 using Atlas.TestSupport;
 
 namespace Atlas.Api.Tests;

@@ -6,7 +6,6 @@ using Atlas.Api.Model;
 using Atlas.Api.Tests.Support;
 using Atlas.Storage.Statistics;
 using Microsoft.Data.Analysis;
-
 using Atlas.TestSupport;
 
 namespace Atlas.Api.Tests;

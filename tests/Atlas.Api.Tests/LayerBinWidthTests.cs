@@ -5,7 +5,6 @@ using Atlas.Ingest.Statistics;
 using Atlas.Statistics;
 using Microsoft.Extensions.Configuration;
 using Microsoft.Extensions.DependencyInjection;
-
 using Atlas.TestSupport;
 
 namespace Atlas.Api.Tests;

@@ -5,7 +5,6 @@ using System.Xml.Linq;
 using Atlas.Api.Model;
 using Atlas.Api.Tests.Assessment;
 using Atlas.Api.Tests.Support;
-
 using Atlas.TestSupport;
 
 namespace Atlas.Api.Tests;

@@ -1,6 +1,5 @@
 using System.Globalization;
 using System.Text.RegularExpressions;
-
 using Atlas.TestSupport;
 
 namespace Atlas.Hindcast.Tests;

@@ -1,5 +1,4 @@
 using System.Text.Json;
-
 using Atlas.TestSupport;
 
 namespace Atlas.Hindcast.Tests;

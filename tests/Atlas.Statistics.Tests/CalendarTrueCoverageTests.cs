@@ -1,6 +1,5 @@
 using System.Globalization;
 using Atlas.WavePhysics;
-
 using Atlas.TestSupport;
 
 namespace Atlas.Statistics.Tests;

@@ -3,7 +3,6 @@ using System.Net;
 using System.Text.Json;
 using Atlas.Api.Tests.Support;
 using Atlas.Assessment.Access;
-
 using Atlas.TestSupport;
 
 namespace Atlas.Api.Tests.Assessment;

@@ -8,7 +8,6 @@ using Atlas.Ingest.Validation;
 using Atlas.Storage.Datasets;
 using Microsoft.Extensions.Configuration;
 using Microsoft.Extensions.DependencyInjection;
-
 using Atlas.TestSupport;
 
 namespace Atlas.Api.Tests.Assessment;

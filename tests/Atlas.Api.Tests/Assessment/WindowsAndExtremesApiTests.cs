@@ -4,7 +4,6 @@ using System.Text.Json;
 using Atlas.Api.Tests.Support;
 using Atlas.Assessment.Access;
 using Atlas.Assessment.Extremes;
-
 using Atlas.TestSupport;
 
 namespace Atlas.Api.Tests.Assessment;

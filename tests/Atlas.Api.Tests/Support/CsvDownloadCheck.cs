@@ -2,7 +2,6 @@ using System.Text;
 using System.Text.Json;
 using System.Text.RegularExpressions;
 using Atlas.Api.Model;
-
 using Atlas.TestSupport;
 
 namespace Atlas.Api.Tests.Support;

@@ -7,7 +7,6 @@ using Atlas.Storage.Datasets;
 using Atlas.Storage.Series;
 using Atlas.Storage.Statistics;
 using Npgsql;
-
 using Atlas.TestSupport;
 
 namespace Atlas.Api.Tests.Support;
