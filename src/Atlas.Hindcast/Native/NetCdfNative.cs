@@ -64,6 +64,7 @@ internal static unsafe class NetCdfNative
         foreach (var name in Hdf5Names)
         {
             if (!NativeLibrary.TryLoad(name, out var hdf5)) continue;
+            Hdf5 = hdf5;
             if (NativeLibrary.TryGetExport(hdf5, "H5Eset_auto2", out var setAuto)) _setAuto = setAuto;
             break;
         }
@@ -72,6 +73,12 @@ internal static unsafe class NetCdfNative
     }
 
     private static IntPtr _setAuto;
+
+    /// <summary>The HDF5 library netCDF-C was loaded with, or zero when it was not found (a build without NetCDF-4).</summary>
+    public static IntPtr Hdf5 { get; private set; }
+
+    /// <summary>Makes sure the library is loaded (and <see cref="Hdf5"/> looked up) before a call that needs HDF5 itself.</summary>
+    public static void Load() => nc_inq_libvers();
 
     [ThreadStatic]
     private static bool _quiet;

@@ -48,12 +48,17 @@ public sealed unsafe class NetCdfFile : IDisposable
         // Before the library sees a classic-model file: a damaged header count makes nc_open allocate and copy
         // gigabytes for a file of kilobytes (found by the ingest fuzz test). An HDF5 file passes untouched.
         RequireComplete(path);
-        int status, ncid;
+        int status = 0, ncid = -1;
+        string? damage;
         lock (NetCdfNative.Gate)
         {
+            NetCdfNative.Load();
             NetCdfNative.QuietenThisThread();
-            status = NetCdfNative.nc_open(path, NetCdfNative.NC_NOWRITE, out ncid);
+            // A damaged link index would make the HDF5 under netCDF-C corrupt this process's heap (see the check).
+            damage = Hdf5LinkIndexCheck.Problem(path);
+            if (damage is null) status = NetCdfNative.nc_open(path, NetCdfNative.NC_NOWRITE, out ncid);
         }
+        if (damage is not null) throw new HindcastFormatException(path, null, damage + "; the file was not opened further");
         NetCdfException.Check(status, path, null, "nc_open");
         var handle = new NetCdfHandle(ncid);
         try
