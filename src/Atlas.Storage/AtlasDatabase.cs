@@ -58,7 +58,16 @@ public static class AtlasDatabase
         var connectionString = await ResolveConnectionStringAsync(cancel);
         var dataSource = CreateDataSource(connectionString);
         bool upToDate;
-        await using (var connection = await dataSource.OpenConnectionAsync(cancel)) upToDate = SchemaMigrator.IsUpToDate(connection);
+        try
+        {
+            await using var connection = await dataSource.OpenConnectionAsync(cancel);
+            upToDate = SchemaMigrator.IsUpToDate(connection);
+        }
+        catch (Exception e) when (DatabaseUnreachableException.From(e, connectionString) is { } unreachable)
+        {
+            await dataSource.DisposeAsync();
+            throw unreachable;
+        }
         if (upToDate) return dataSource;
         // Migrations to apply: through the migrator's own connections, then a data source that loads the types they made.
         await dataSource.DisposeAsync();

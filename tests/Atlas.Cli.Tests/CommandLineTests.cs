@@ -43,6 +43,26 @@ public class CommandLineTests(TestDatabase database) : IClassFixture<TestDatabas
         Assert.Contains("Nothing was changed", output);
     }
 
+    [Fact]
+    public void ACommandWhoseDatabaseCannotBeUsedSaysWhichWhyAndWhatToSetWithoutATrace()
+    {
+        var missing = new Npgsql.NpgsqlConnectionStringBuilder(database.ConnectionString) { Database = "no_such_atlas_database" };
+        var (code, output) = AtlasProcess.Run("datasets list", new Dictionary<string, string> { ["ATLAS_DB"] = missing.ConnectionString });
+        Assert.Equal(3, code);
+        // PostgreSQL's own words and code (SQLSTATE 3D000, invalid_catalog_name; PostgreSQL manual, appendix A).
+        Assert.Contains("atlas datasets list: cannot use the database 'no_such_atlas_database'", output);
+        Assert.Contains("does not exist (SQLSTATE 3D000)", output);
+        Assert.Contains("ATLAS_DB", output);
+        Assert.DoesNotContain("   at ", output);
+
+        var closed = new Npgsql.NpgsqlConnectionStringBuilder(database.ConnectionString) { Port = 1 };
+        (code, output) = AtlasProcess.Run("ingest /nonexistent/hindcast.nc --dataset unreachable", new Dictionary<string, string> { ["ATLAS_DB"] = closed.ConnectionString });
+        Assert.Equal(3, code);
+        Assert.Contains("atlas ingest: cannot use the database", output);
+        Assert.Contains(":1", output);
+        Assert.DoesNotContain("   at ", output);
+    }
+
     private (long Datasets, long Chunks, long Statistics, long Files) Counts()
     {
         using var command = database.DataSource.CreateCommand("""
