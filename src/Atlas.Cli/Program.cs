@@ -3,6 +3,7 @@ using System.CommandLine.Parsing;
 using Atlas.Cli.Commands;
 using Atlas.Storage;
 
+ServerRuntimeSettings.ApplyTo(args);
 var parsed = AtlasCommandLine.Build().Parse(args);
 try
 {

@@ -37,6 +37,8 @@ public static class StatsCommand
         });
         command.SetAction(async (parse, cancel) =>
         {
+            // The kernel compiles while the command connects and sets up, not while the pass waits for it.
+            if (!parse.GetValue(queue)) HotMethodWarmup.Start();
             await using var dataSource = await AtlasDatabase.OpenMigratedAsync(cancel: cancel);
             using var host = CommandHost.BuildChecked(dataSource, "stats");
             if (host is null) return 2;

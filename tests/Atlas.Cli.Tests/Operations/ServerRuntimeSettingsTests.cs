@@ -1,0 +1,57 @@
+using System.Text.Json;
+using Atlas.Cli.Commands;
+using Atlas.TestSupport;
+
+namespace Atlas.Cli.Tests.Operations;
+
+/// <summary>
+/// Batch commands run with the runtime settings of atlas.runtimeconfig.json (workstation collector, no profile-guided
+/// recompilation); <c>atlas serve</c> starts itself again with the server's, keeping its process id and any value
+/// the operator gave. Checked from outside the process, in Linux's /proc: its environment and the runtime's threads.
+/// </summary>
+public sealed class ServerRuntimeSettingsTests(TestDatabase database) : IClassFixture<TestDatabase>
+{
+    [Fact]
+    public void BatchCommandsRunWithTheWorkstationCollectorAndNoProfileGuidedRecompilation()
+    {
+        // The runtime's documented names (learn.microsoft.com, runtime configuration options for garbage collection
+        // and compilation): System.GC.Server and System.Runtime.TieredPGO.
+        using var config = JsonDocument.Parse(File.ReadAllText(Path.Combine(AppContext.BaseDirectory, "atlas.runtimeconfig.json")));
+        var properties = config.RootElement.GetProperty("runtimeOptions").GetProperty("configProperties");
+        Assert.False(properties.GetProperty("System.GC.Server").GetBoolean());
+        Assert.False(properties.GetProperty("System.Runtime.TieredPGO").GetBoolean());
+    }
+
+    [Fact]
+    public async Task ServeRestartsItselfWithTheServerSettingsKeepingItsIdAndTheOperatorsValues()
+    {
+        var port = RunningAtlas.FreePort();
+        using var server = new RunningAtlas("serve", new Dictionary<string, string>
+        {
+            ["ATLAS_DB"] = database.ConnectionString,
+            ["ASPNETCORE_URLS"] = $"http://127.0.0.1:{port}",
+            // Given by the operator: kept as given.
+            ["DOTNET_TieredPGO"] = "0",
+        });
+        using var http = new HttpClient();
+        await Patience.UntilAsync(async () =>
+        {
+            try { return (await http.GetAsync($"http://127.0.0.1:{port}/healthz")).IsSuccessStatusCode; }
+            catch (HttpRequestException) { return false; }
+        }, $"the server to answer\n{server.Output}");
+
+        // The process the test started (same id) now runs with the settings in its environment.
+        var environment = File.ReadAllText($"/proc/{server.Id}/environ").Split('\0');
+        Assert.Contains("DOTNET_gcServer=1", environment);
+        Assert.Contains("DOTNET_TieredPGO=0", environment);
+        Assert.DoesNotContain("DOTNET_TieredPGO=1", environment);
+        // The server collector runs on threads of its own, which the runtime names ".NET Server GC".
+        var threads = Directory.GetDirectories($"/proc/{server.Id}/task").Select(t => File.ReadAllText(Path.Combine(t, "comm")).Trim());
+        Assert.Contains(".NET Server GC", threads);
+        // Still the command it was: its arguments and name unchanged.
+        Assert.EndsWith("\0serve\0", File.ReadAllText($"/proc/{server.Id}/cmdline"));
+        Assert.Equal("dotnet", File.ReadAllText($"/proc/{server.Id}/comm").Trim());
+        Assert.DoesNotContain("could not restart", server.Output);
+        Assert.Equal(["DOTNET_gcServer", "DOTNET_TieredPGO"], ServerRuntimeSettings.Settings.Select(s => s.Name));
+    }
+}
