@@ -39,7 +39,6 @@ runs=${RUNS:-3}
   ratios=()
   for round in $(seq 1 "$runs"); do
     fresh_database atlas_bench_spectra
-    "$atlas" db migrate > /dev/null
     measure numpy_reference_$round /usr/bin/python3 tests/benchmarks/spectra/reference.py "${files[@]}"
     measure atlas_$round "$atlas" ingest "${files[@]}" --dataset "$slug"
     ref=$(seconds numpy_reference_$round); at=$(seconds atlas_$round)
@@ -49,5 +48,6 @@ runs=${RUNS:-3}
   done
   printf '%s\n' "${ratios[@]}" | sort -n | awk '{ v[NR] = $1 } END { m = NR % 2 ? v[(NR + 1) / 2] : (v[NR / 2] + v[NR / 2 + 1]) / 2; printf "median ratio atlas(ingest+stats)/numpy over %d round(s) = %.3f (goal <= 0.5)\n", NR, m }'
   grep -E "^(ingest|statistics) $slug" "$work/atlas_$runs.out"
+  # Inside the block: fresh_database set `server` in this subshell of the pipe, not in the script around it.
+  psql "$server dbname=postgres" -qc "DROP DATABASE IF EXISTS atlas_bench_spectra WITH (FORCE)"
 } | tee "$report"
-psql "$server dbname=postgres" -qc "DROP DATABASE IF EXISTS atlas_bench_spectra WITH (FORCE)"
