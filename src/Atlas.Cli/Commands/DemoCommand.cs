@@ -103,7 +103,11 @@ public static class DemoCommand
                 Console.WriteLine($"atlas demo: loaded; run 'atlas serve' and open {ServeCommand.Url}/");
                 return 0;
             }
-            await ServeCommand.RunAsync(url => Console.WriteLine($"atlas demo: ready at {url}/ (dataset '{DatasetSlug}': {url}/api/v1/datasets/{DatasetSlug})"), cancel);
+            Console.WriteLine($"atlas demo: loaded; serving at {ServeCommand.Url}/ (dataset '{DatasetSlug}': {ServeCommand.Url}/api/v1/datasets/{DatasetSlug})");
+            Console.Out.Flush();
+            // The server runs as `atlas serve` does, under the server's runtime settings (this process becomes it).
+            ServerRuntimeSettings.ServeInstead(Environment.GetCommandLineArgs()[1..]);
+            await ServeCommand.RunAsync(url => Console.WriteLine($"atlas demo: ready at {url}/"), cancel);
             return 0;
         });
         return command;

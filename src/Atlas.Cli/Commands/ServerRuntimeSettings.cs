@@ -14,7 +14,8 @@ namespace Atlas.Cli.Commands;
 /// instead of 133 MB; ingest 0.94 and 0.97; paired runs, tests/benchmarks/README.md). The web server lives for days and answers requests on every
 /// core: it wants both, and the server's CPU per uncached point answer was 15-50 % higher without the profile.
 /// So <c>atlas serve</c>, started without them, starts itself again at once with them set (execve: the same process
-/// id, arguments, streams and environment, plus the settings). A setting already given in the environment is kept.
+/// id, arguments, streams and environment, plus the settings), and <c>atlas demo --serve</c>, once the demo is loaded,
+/// becomes <c>atlas serve</c> the same way. A setting already given in the environment is kept.
 /// </remarks>
 public static unsafe class ServerRuntimeSettings
 {
@@ -31,29 +32,41 @@ public static unsafe class ServerRuntimeSettings
     /// </summary>
     public static void ApplyTo(string[] args)
     {
-        if (args.Length == 0 || args[0] != "serve" || !OperatingSystem.IsLinux()) return;
-        var missing = Settings.Where(s => Environment.GetEnvironmentVariable(s.Name) is null).ToArray();
-        if (missing.Length == 0) return;
-        byte[] commandLine;
-        try
-        {
-            commandLine = File.ReadAllBytes("/proc/self/cmdline");
-        }
-        catch (IOException)
-        {
-            return;
-        }
-        var arguments = SplitNulTerminated(commandLine);
-        var environment = Environment.GetEnvironmentVariables().Cast<System.Collections.DictionaryEntry>()
-            .Select(e => $"{e.Key}={e.Value}").Concat(missing.Select(s => $"{s.Name}={s.Value}")).ToArray();
+        if (args is not ["serve", ..] || Missing().Length == 0) return;
+        ReplaceProcess(args, args);
+    }
+
+    /// <summary>
+    /// For <c>atlas demo --serve</c> once the demo is loaded: replaces this process with <c>atlas serve</c> under the
+    /// server's settings (the same id and streams, so Ctrl-C and a supervisor still reach it). Returns only when it
+    /// could not, having said so; the caller then serves in this process.
+    /// </summary>
+    public static void ServeInstead(string[] args) => ReplaceProcess(args, ["serve"]);
+
+    private static (string Name, string Value)[] Missing() =>
+        Settings.Where(s => Environment.GetEnvironmentVariable(s.Name) is null).ToArray();
+
+    /// <summary>
+    /// Runs this program again in this process with <paramref name="arguments"/> in place of <paramref name="given"/>
+    /// (the arguments Main received) and the missing settings added to the environment.
+    /// </summary>
+    private static void ReplaceProcess(string[] given, string[] arguments)
+    {
+        var missing = Missing();
         string why;
         try
         {
+            if (!OperatingSystem.IsLinux()) throw new PlatformNotSupportedException("only on Linux");
+            // What precedes Main's arguments on the command line: the program, and for `dotnet atlas.dll` the assembly.
+            var commandLine = SplitNulTerminated(File.ReadAllBytes("/proc/self/cmdline"));
+            var program = commandLine[..Math.Max(1, commandLine.Length - given.Length)];
+            var environment = Environment.GetEnvironmentVariables().Cast<System.Collections.DictionaryEntry>()
+                .Select(e => $"{e.Key}={e.Value}").Concat(missing.Select(s => $"{s.Name}={s.Value}")).ToArray();
             // The program by its own path (not /proc/self/exe), so that the process keeps its name for ps and pgrep.
-            Execute(Environment.ProcessPath ?? "/proc/self/exe", arguments, environment);
+            Execute(Environment.ProcessPath ?? "/proc/self/exe", [.. program, .. arguments], environment);
             why = Marshal.GetLastPInvokeErrorMessage();
         }
-        catch (Exception e) when (e is DllNotFoundException or EntryPointNotFoundException)
+        catch (Exception e) when (e is DllNotFoundException or EntryPointNotFoundException or IOException or PlatformNotSupportedException)
         {
             why = e.Message;
         }

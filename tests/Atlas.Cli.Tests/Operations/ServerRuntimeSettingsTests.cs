@@ -23,6 +23,30 @@ public sealed class ServerRuntimeSettingsTests(TestDatabase database) : IClassFi
     }
 
     [Fact]
+    public async Task TheDemoLoadedBecomesAServerWithTheServerSettings()
+    {
+        var port = RunningAtlas.FreePort();
+        using var demo = new RunningAtlas("demo --months 2 --serve", new Dictionary<string, string>
+        {
+            ["ATLAS_DB"] = database.ConnectionString,
+            ["ATLAS_HOME"] = Directory.CreateTempSubdirectory("atlas-demo-serve-").FullName,
+            ["ASPNETCORE_URLS"] = $"http://127.0.0.1:{port}",
+        });
+        using var http = new HttpClient();
+        await Patience.UntilAsync(async () =>
+        {
+            try { return (await http.GetAsync($"http://127.0.0.1:{port}/api/v1/datasets/{DemoCommand.DatasetSlug}")).IsSuccessStatusCode; }
+            catch (HttpRequestException) { return false; }
+        }, $"the demo to be served\n{demo.Output}");
+
+        Assert.Contains($"serving at http://127.0.0.1:{port}/", demo.Output);
+        Assert.EndsWith("\0serve\0", File.ReadAllText($"/proc/{demo.Id}/cmdline"));
+        var environment = File.ReadAllText($"/proc/{demo.Id}/environ").Split('\0');
+        Assert.Contains("DOTNET_gcServer=1", environment);
+        Assert.Contains("DOTNET_TieredPGO=1", environment);
+    }
+
+    [Fact]
     public async Task ServeRestartsItselfWithTheServerSettingsKeepingItsIdAndTheOperatorsValues()
     {
         var port = RunningAtlas.FreePort();
