@@ -16,8 +16,11 @@ for place in "$here" "${TMPDIR:-/tmp}"; do
 done
 bash deploy/prepare.sh --with-test-tools || exit 1
 atlas="$here/src/Atlas.Cli/bin/Release/net10.0/atlas"
+started_here=0
 if [ -z "${ATLAS_DB:-}" ]; then
   created_here=0; [ -f "${ATLAS_HOME:-$here/.atlas}/pg/PG_VERSION" ] || created_here=1
+  # A cluster this run starts is stopped when it ends (CI leaves nothing running); one already running is left so.
+  "$atlas" db status > /dev/null 2>&1 || started_here=1
   "$atlas" db start || exit 1
   # The tests write and rewrite much more than they keep: a cluster this run created (a clean clone, as in CI)
   # checkpoints at 512 MB of WAL instead of the embedded cluster's 4 GB, which keeps its disk small. A checkout's
@@ -29,7 +32,7 @@ fi
 # Every file and folder the tests make (fixtures, downloads, clusters of their own, reference tools' output) goes
 # under one folder of this run, removed when it ends however it ends.
 run_tmp="$(mktemp -d "${TMPDIR:-/tmp}/atlas-tests-XXXXXX")"
-trap 'rm -rf "$run_tmp"' EXIT
+trap '[ "$started_here" -eq 0 ] || "$atlas" db stop > /dev/null; rm -rf "$run_tmp"' EXIT
 export TMPDIR="$run_tmp"
 
 results="$here/tests/artifacts/results"
