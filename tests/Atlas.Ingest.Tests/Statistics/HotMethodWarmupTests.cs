@@ -10,6 +10,7 @@ public class HotMethodWarmupTests
     public void ThePassesFullyOptimisedMethodsAllCompile()
     {
         Assert.True(HotMethodWarmup.Prepare(typeof(Atlas.Statistics.Binned.BinnedCellCalculator).Assembly) >= 20);
+        Assert.True(HotMethodWarmup.Prepare(typeof(Atlas.WavePhysics.WavePower).Assembly) >= 1);
         Assert.True(HotMethodWarmup.Prepare(typeof(Atlas.Storage.Series.SeriesCodec).Assembly) >= 5);
         Assert.True(HotMethodWarmup.Prepare(typeof(HotMethodWarmup).Assembly) >= 5);
     }
