@@ -43,6 +43,7 @@ internal static unsafe class NetCdfNative
     private static IntPtr Resolve(string libraryName, Assembly assembly, DllImportSearchPath? searchPath)
     {
         if (libraryName != Library) return IntPtr.Zero;
+        WithoutHdf5FileLocks();
         if (NativeLibrary.TryLoad(libraryName, assembly, searchPath, out var handle)) return Quieten(handle);
         foreach (var name in FallbackNames)
             if (NativeLibrary.TryLoad(name, assembly, searchPath, out handle)) return Quieten(handle);
@@ -50,6 +51,31 @@ internal static unsafe class NetCdfNative
             "netCDF-C was not found: tried 'netcdf' and " + string.Join(", ", FallbackNames) +
             ". Install the Debian package libnetcdf19 (or libnetcdf-dev).");
     }
+
+    /// <summary>
+    /// Asks HDF5 not to lock the files it opens (HDF5_USE_FILE_LOCKING=FALSE, its documented switch), unless the
+    /// environment already says otherwise. HDF5 1.10 holds flock(LOCK_EX) on a file it writes and opens it without
+    /// close-on-exec: a child process started meanwhile by any thread (a tool the server runs, a test's NumPy)
+    /// inherits the descriptor and the lock with it, and the finished file cannot be read back until that child
+    /// exits (.NET's read takes flock(LOCK_SH): "being used by another process"). The atlas writes only files of its
+    /// own, under fresh names, and never has one file open twice for writing, which is what the locks are for. Set in
+    /// the process's native environment before HDF5 is loaded, where HDF5 reads it at every open.
+    /// </summary>
+    private static void WithoutHdf5FileLocks()
+    {
+        if (!OperatingSystem.IsLinux() && !OperatingSystem.IsMacOS()) return;
+        try
+        {
+            setenv("HDF5_USE_FILE_LOCKING", "FALSE", overwrite: 0);
+        }
+        catch (Exception e) when (e is DllNotFoundException or EntryPointNotFoundException)
+        {
+            // A C library without setenv: HDF5 locks as it would anyway.
+        }
+    }
+
+    [DllImport("libc", EntryPoint = "setenv")]
+    private static extern int setenv([MarshalAs(UnmanagedType.LPUTF8Str)] string name, [MarshalAs(UnmanagedType.LPUTF8Str)] string value, int overwrite);
 
     /// <summary>Sonames of the HDF5 library netCDF-C sits on (Debian builds it as the serial flavour).</summary>
     private static readonly string[] Hdf5Names = ["libhdf5_serial.so.103", "libhdf5.so.103", "libhdf5_serial.so", "libhdf5.so", "libhdf5.dylib"];
