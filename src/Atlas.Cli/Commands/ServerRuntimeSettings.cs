@@ -11,11 +11,12 @@ namespace Atlas.Cli.Commands;
 /// every command. Most commands are batch processes of a few seconds (an ingest, a statistics pass): they run with
 /// the workstation garbage collector and without the runtime's profile-guided recompilation, which in so short a life
 /// costs more than it gains (statistics pass: 0.90 of the processor time, 0.95 of the time, peak memory 127 MB
-/// instead of 133 MB; ingest 0.94 and 0.97; paired runs, tests/benchmarks/README.md). The web server lives for days and answers requests on every
-/// core: it wants both, and the server's CPU per uncached point answer was 15-50 % higher without the profile.
-/// So <c>atlas serve</c>, started without them, starts itself again at once with them set (execve: the same process
-/// id, arguments, streams and environment, plus the settings), and <c>atlas demo --serve</c>, once the demo is loaded,
-/// becomes <c>atlas serve</c> the same way. A setting already given in the environment is kept.
+/// instead of 133 MB; ingest 0.94 and 0.97; paired runs, tests/benchmarks/README.md). The web server lives for days
+/// and answers requests on every core: it wants both, and the server's CPU per uncached point answer was 15-50 %
+/// higher without the profile. So <c>atlas serve</c>, started without them, starts itself again at once with them set
+/// (execve: the same process id, arguments, streams and environment, plus the settings), and <c>atlas demo
+/// --serve</c>, once the demo is loaded, becomes <c>atlas serve</c> the same way. A setting already given in the
+/// environment is kept.
 /// </remarks>
 public static unsafe class ServerRuntimeSettings
 {

@@ -9,15 +9,15 @@ namespace Atlas.Hindcast.Native;
 /// <remarks>
 /// HDF5 1.10 (the one Debian 12 ships under netCDF-C) lists a group kept in dense storage by first copying its links
 /// into a table. When a damaged link stops the copy, it releases the whole table, entries it never filled included:
-/// it frees whatever an earlier allocation left in that memory, corrupts the heap, and the process crashes later at an
-/// unrelated place (found by the ingest fuzz test; under glibc's checking allocator, <c>MALLOC_CHECK_=3</c>, at once;
-/// valgrind reports the uninitialised reads). netCDF-C asks for the links in creation order, which takes that path.
-/// Walking the name index in its own (native) order visits the links without the table; a damaged link then fails
-/// the walk cleanly. Groups kept in compact storage (8 links or fewer) are listed through a table whatever the order,
-/// so they are not walked here (their link messages are read with the group's header, before any table: 400 copies of
-/// such a file with up to 24 random bytes in its first 2 KB, each opened twice under the checking allocator and once
-/// under valgrind, gave neither an abort nor a report); nor are sub-groups, which CF hindcast files do not use. Call inside
-/// <see cref="NetCdfNative.Gate"/>.
+/// it frees whatever an earlier allocation left in that memory, corrupts the heap, and the process crashes later at
+/// an unrelated place (found by the ingest fuzz test; under glibc's checking allocator, <c>MALLOC_CHECK_=3</c>, at
+/// once; valgrind reports the uninitialised reads). netCDF-C asks for the links in creation order, which takes that
+/// path. Walking the name index in its own (native) order visits the links without the table; a damaged link then
+/// fails the walk cleanly. Groups kept in compact storage (8 links or fewer) are listed through a table whatever the
+/// order, so they are not walked here (their link messages are read with the group's header, before any table: 400
+/// copies of such a file with up to 24 random bytes in its first 2 KB, each opened twice under the checking allocator
+/// and once under valgrind, gave neither an abort nor a report); nor are sub-groups, which CF hindcast files do not
+/// use. Call inside <see cref="NetCdfNative.Gate"/>.
 /// </remarks>
 internal static unsafe class Hdf5LinkIndexCheck
 {

@@ -4,13 +4,14 @@ using System.Runtime.CompilerServices;
 namespace Atlas.Ingest.Statistics;
 
 /// <summary>
-/// Compiles the statistics kernel ahead of its first use, on pool threads (one per assembly), once per process. Its hot methods are marked
-/// for full optimisation at once (long loops run a few times per cell, and precompiled code is never replaced inside a
-/// running loop), so the runtime compiles each at its first call: some 45 methods, which held the first cells of every
-/// pass for a fifth of a second. Started as a pass begins, the compilation runs while the pass plans and reads its first
-/// series from the database; a method reached before it is compiled is simply waited for, as it would be anyway.
-/// One thread per assembly rather than one for all: the pass 0.91-0.93 of the time and 0.90-0.92 of the CPU (paired,
-/// three runs of 10-12 pairs), since the first cells wait less for the methods they reach first.
+/// Compiles the statistics kernel ahead of its first use, on pool threads (one per assembly), once per process. Its
+/// hot methods are marked for full optimisation at once (long loops run a few times per cell, and precompiled code is
+/// never replaced inside a running loop), so the runtime compiles each at its first call: some 45 methods, which held
+/// the first cells of every pass for a fifth of a second. Started as a pass begins, the compilation runs while the
+/// pass plans and reads its first series from the database; a method reached before it is compiled is simply waited
+/// for, as it would be anyway. One thread per assembly rather than one for all: the pass 0.91-0.93 of the time and
+/// 0.90-0.92 of the CPU (paired, three runs of 10-12 pairs), since the first cells wait less for the methods they
+/// reach first.
 /// </summary>
 public static class HotMethodWarmup
 {
